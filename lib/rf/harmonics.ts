@@ -1,3 +1,5 @@
+import { pairSweep } from "./sweep";
+
 /**
  * Harmonic suppression, sign convention used throughout Octavo:
  *   suppressionDbc = P_wanted − P_harmonic
@@ -65,7 +67,7 @@ export interface OptimumDrive {
  * (three-point Lagrange fit, valid for uneven steps), kept inside their span.
  */
 export function findOptimumDrive(options: OptimumDriveOptions): OptimumDrive {
-  const points = sortByInput(options.inputPowerDbm, options.conversionLossDb);
+  const points = pairSweep(options.inputPowerDbm, options.conversionLossDb, "drive");
   if (points.length === 0) throw new RangeError("Optimum drive needs at least one sweep point");
   let best = 0;
   for (let i = 1; i < points.length; i++) if (points[i].y < points[best].y) best = i;
@@ -93,24 +95,4 @@ export function findOptimumDrive(options: OptimumDriveOptions): OptimumDrive {
     method: "parabolic",
     atSweepEnd: false,
   };
-}
-
-interface Point {
-  x: number;
-  y: number;
-}
-
-function sortByInput(xs: ArrayLike<number>, ys: ArrayLike<number>): Point[] {
-  if (xs.length !== ys.length) {
-    throw new RangeError(`Sweep arrays differ in length: ${xs.length} inputs, ${ys.length} values`);
-  }
-  const points: Point[] = [];
-  for (let i = 0; i < xs.length; i++) {
-    if (Number.isFinite(xs[i]) && Number.isFinite(ys[i])) points.push({ x: xs[i], y: ys[i] });
-  }
-  points.sort((p, q) => p.x - q.x);
-  for (let i = 1; i < points.length; i++) {
-    if (points[i].x === points[i - 1].x) throw new RangeError(`Duplicate drive step at ${points[i].x} dBm`);
-  }
-  return points;
 }
