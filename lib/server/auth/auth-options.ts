@@ -1,0 +1,72 @@
+import "server-only";
+import bcrypt from "bcryptjs";
+import type { NextAuthOptions } from "next-auth";
+import CredentialsProvider from "next-auth/providers/credentials";
+import { User, getSequelize } from "@/models";
+import { serverConfig } from "../config";
+import { isRole } from "./permissions";
+import { clientAddress, isSignInThrottled, recordSignInAttempt } from "./rate-limit";
+
+/** Codes the sign-in form turns into words (next-auth passes the thrown message through as `error`). */
+export const signInErrors = { invalid: "invalid-credentials", throttled: "too-many-attempts" } as const;
+
+// Compared against when the account does not exist, so timing does not reveal which e-mails are registered.
+const decoyHash = bcrypt.hashSync("octavo-decoy-password", 10);
+
+export const authOptions: NextAuthOptions = {
+  secret: process.env.NEXTAUTH_SECRET,
+  session: { strategy: "jwt", maxAge: serverConfig.sessionMaxAgeSeconds },
+  pages: { signIn: "/sign-in", error: "/sign-in" },
+  providers: [
+    CredentialsProvider({
+      name: "E-mail and password",
+      credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
+      async authorize(credentials, req) {
+        getSequelize();
+        const email = String(credentials?.email ?? "").trim().toLowerCase();
+        const password = String(credentials?.password ?? "");
+        if (!email || !password) throw new Error(signInErrors.invalid);
+        const address = clientAddress(req?.headers as Record<string, string> | undefined);
+        if (await isSignInThrottled(email, address)) throw new Error(signInErrors.throttled);
+        const user = await User.findOne({ where: { email } });
+        const matches = await bcrypt.compare(password, user?.passwordHash ?? decoyHash);
+        const ok = Boolean(user && matches && !user.disabledAt);
+        await recordSignInAttempt(email, address, ok);
+        if (!ok || !user) throw new Error(signInErrors.invalid);
+        await user.update({ lastSignInAt: new Date() });
+        return {
+          id: String(user.id),
+          email: user.email,
+          name: user.name,
+          role: user.role,
+          organizationId: user.organizationId,
+          tokenVersion: user.tokenVersion,
+        };
+      },
+    }),
+  ],
+  callbacks: {
+    async jwt({ token, user }) {
+      if (user) {
+        token.userId = Number(user.id);
+        token.role = user.role;
+        token.organizationId = user.organizationId;
+        token.tokenVersion = user.tokenVersion;
+      }
+      return token;
+    },
+    async session({ session, token }) {
+      if (token.userId && isRole(token.role)) {
+        session.user = {
+          id: token.userId,
+          email: token.email ?? "",
+          name: token.name ?? "",
+          role: token.role,
+          organizationId: token.organizationId ?? 0,
+          tokenVersion: token.tokenVersion ?? 0,
+        };
+      }
+      return session;
+    },
+  },
+};

@@ -1,0 +1,124 @@
+import "server-only";
+import { headers } from "next/headers";
+import { ZodError, type ZodType } from "zod";
+import { AppError, isAppError } from "@/lib/errors";
+import { serverConfig } from "../config";
+import { can, type Permission } from "./permissions";
+import { getSessionUser, type SessionUser } from "./session";
+
+/** Who may call: anyone, any signed-in user, or a role holding this permission. */
+export type Access = "public" | "signed-in" | Permission;
+
+const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
+
+/**
+ * Refuses a state-changing request sent by a browser from another site. Browsers send
+ * `Origin` on every cross-origin POST/PATCH/DELETE; it must name this app.
+ */
+export function assertSameOrigin(method: string, requestHeaders: Headers): void {
+  if (SAFE_METHODS.has(method.toUpperCase())) return;
+  const origin = requestHeaders.get("origin");
+  const fetchSite = requestHeaders.get("sec-fetch-site");
+  if (!origin) {
+    if (fetchSite === "cross-site") throw new AppError("forbidden", "Cross-site request refused.");
+    return;
+  }
+  const allowed = new Set<string>([new URL(serverConfig.appUrl).origin]);
+  const host = requestHeaders.get("x-forwarded-host") ?? requestHeaders.get("host");
+  if (host) {
+    const proto = requestHeaders.get("x-forwarded-proto") ?? new URL(serverConfig.appUrl).protocol.replace(":", "");
+    allowed.add(`${proto}://${host}`);
+  }
+  if (!allowed.has(origin)) throw new AppError("forbidden", `Cross-site request from ${origin} refused.`);
+}
+
+/** Session → permission. Throws 401 when signed out, 403 when the role lacks the permission. */
+export async function requireAccess(access: Exclude<Access, "public">): Promise<SessionUser> {
+  const user = await getSessionUser();
+  if (!user) throw new AppError("unauthenticated", "Sign in to continue.");
+  if (access !== "signed-in" && !can(user.role, access)) {
+    throw new AppError("forbidden", "Your role does not allow this.");
+  }
+  return user;
+}
+
+export function errorResponse(error: unknown): Response {
+  if (isAppError(error)) return Response.json(error.toJSON(), { status: error.status });
+  if (error instanceof ZodError) return Response.json(validationError(error).toJSON(), { status: 422 });
+  console.error("[octavo] unexpected error", error);
+  return Response.json(new AppError("internal", "Something went wrong on our side.").toJSON(), { status: 500 });
+}
+
+function validationError(error: ZodError): AppError {
+  const fields = error.issues.map((issue) => ({ field: issue.path.join(".") || "(body)", message: issue.message }));
+  const first = fields[0];
+  return new AppError("invalid", first ? `${first.field}: ${first.message}` : "Invalid input.", { fields });
+}
+
+type RouteContext = { params: Promise<Record<string, string | string[]>> };
+
+type HandlerArgs<B, U> = { user: U; body: B; params: Record<string, string>; request: Request };
+
+type RouteOptions<B> = { access: Access; body?: ZodType<B>; maxBodyBytes?: number };
+
+/**
+ * The one wrapper for route handlers: origin check → session → permission →
+ * validated input → the handler. Organization scope is the handler's `where`,
+ * using `user.organizationId`. A returned plain object becomes JSON.
+ */
+export function route<B = undefined, A extends Access = Access>(
+  options: RouteOptions<B> & { access: A },
+  handler: (args: HandlerArgs<B, A extends "public" ? SessionUser | null : SessionUser>) => Promise<unknown>,
+) {
+  return async (request: Request, context: RouteContext): Promise<Response> => {
+    try {
+      assertSameOrigin(request.method, request.headers);
+      const user = options.access === "public" ? await getSessionUser() : await requireAccess(options.access);
+      const body = options.body ? await readJsonBody(request, options.body, options.maxBodyBytes ?? 64 * 1024) : (undefined as B);
+      const raw = (await context?.params) ?? {};
+      const params = Object.fromEntries(Object.entries(raw).map(([k, v]) => [k, Array.isArray(v) ? v.join("/") : v]));
+      const result = await handler({ user: user as never, body, params, request });
+      if (result instanceof Response) return result;
+      return Response.json(result ?? { ok: true });
+    } catch (error) {
+      return errorResponse(error);
+    }
+  };
+}
+
+async function readJsonBody<B>(request: Request, schema: ZodType<B>, maxBytes: number): Promise<B> {
+  const declared = Number(request.headers.get("content-length") ?? 0);
+  if (declared > maxBytes) throw new AppError("payload-too-large", `Request body over ${maxBytes} bytes.`);
+  const type = request.headers.get("content-type") ?? "";
+  if (!type.includes("application/json")) throw new AppError("unsupported-media-type", "Send the body as application/json.");
+  const text = await request.text();
+  if (Buffer.byteLength(text) > maxBytes) throw new AppError("payload-too-large", `Request body over ${maxBytes} bytes.`);
+  let json: unknown;
+  try {
+    json = JSON.parse(text);
+  } catch {
+    throw new AppError("bad-request", "The body is not valid JSON.");
+  }
+  return schema.parse(json);
+}
+
+/** The same chain for server actions: errors come back as a value the form can show. */
+export async function runAction<B, R>(
+  options: { access: Exclude<Access, "public">; input: unknown; schema: ZodType<B> },
+  fn: (args: { user: SessionUser; input: B }) => Promise<R>,
+): Promise<{ ok: true; value: R } | { ok: false; code: string; message: string }> {
+  try {
+    const h = await headers();
+    assertSameOrigin("POST", h);
+    const user = await requireAccess(options.access);
+    const input = options.schema.parse(options.input);
+    return { ok: true, value: await fn({ user, input }) };
+  } catch (error) {
+    const appError = isAppError(error) ? error : error instanceof ZodError ? validationError(error) : null;
+    if (!appError) {
+      console.error("[octavo] unexpected error in action", error);
+      return { ok: false, code: "internal", message: "Something went wrong on our side." };
+    }
+    return { ok: false, code: appError.code, message: appError.message };
+  }
+}

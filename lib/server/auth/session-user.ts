@@ -1,0 +1,12 @@
+import type { Role } from "./permissions";
+
+/** The signed-in person as every server function sees it: always read fresh from the database. */
+export type SessionUser = {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  organizationId: number;
+  organizationName: string;
+  organizationKind: "vendor" | "lab" | "customer";
+};

@@ -1,0 +1,27 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+
+export const organizationKinds = ["vendor", "lab", "customer"] as const;
+export type OrganizationKind = (typeof organizationKinds)[number];
+
+export class Organization extends Model<InferAttributes<Organization>, InferCreationAttributes<Organization>> {
+  declare id: CreationOptional<number>;
+  declare slug: string;
+  declare name: string;
+  declare kind: OrganizationKind;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Organization.init(
+      {
+        id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+        slug: { type: DataTypes.STRING(64), allowNull: false, unique: true },
+        name: { type: DataTypes.STRING(160), allowNull: false },
+        kind: { type: DataTypes.ENUM(...organizationKinds), allowNull: false },
+        createdAt: DataTypes.DATE(3),
+        updatedAt: DataTypes.DATE(3),
+      },
+      { sequelize, tableName: "organizations" },
+    );
+  }
+}

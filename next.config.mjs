@@ -1,0 +1,19 @@
+/** @type {import('next').NextConfig} */
+const nextConfig = {
+  // Native addons and packages that load optional drivers at run time stay outside the bundle.
+  serverExternalPackages: [
+    "sequelize",
+    "mariadb",
+    "@resvg/resvg-js",
+    "vega",
+    "vega-lite",
+    "bcryptjs",
+    "nodemailer",
+    "mailparser",
+  ],
+  poweredByHeader: false,
+  reactStrictMode: true,
+  typedRoutes: false,
+};
+
+export default nextConfig;

@@ -1,0 +1,67 @@
+/**
+ * The local fake SMTP server for development and tests: accepts every message on
+ * 127.0.0.1:$SMTP_PORT, keeps the newest 500 in memory and shows them as JSON on
+ * 127.0.0.1:$OCTAVO_MAILBOX_PORT (GET /messages, DELETE /messages, GET /health).
+ * Never started in production: the scripts start it only when no SMTP_HOST is configured.
+ */
+import { createServer } from "node:http";
+import { randomUUID } from "node:crypto";
+import { simpleParser } from "mailparser";
+import { SMTPServer } from "smtp-server";
+
+type Caught = { id: string; from: string; to: string; subject: string; text: string; html: string | null; date: string };
+
+const smtpPort = Number(process.env.SMTP_PORT ?? 2525);
+const httpPort = Number(process.env.OCTAVO_MAILBOX_PORT ?? 2580);
+const messages: Caught[] = [];
+const maxMessages = 500;
+const maxMessageBytes = 5 * 1024 * 1024;
+
+const smtp = new SMTPServer({
+  authOptional: true,
+  disabledCommands: ["STARTTLS", "AUTH"],
+  size: maxMessageBytes,
+  logger: false,
+  onData(stream, session, callback) {
+    simpleParser(stream)
+      .then((mail) => {
+        messages.unshift({
+          id: randomUUID(),
+          from: mail.from?.text ?? session.envelope.mailFrom?.toString() ?? "",
+          to: session.envelope.rcptTo.map((r) => r.address).join(", "),
+          subject: mail.subject ?? "",
+          text: mail.text ?? "",
+          html: typeof mail.html === "string" ? mail.html : null,
+          date: (mail.date ?? new Date()).toISOString(),
+        });
+        messages.length = Math.min(messages.length, maxMessages);
+        callback();
+      })
+      .catch((error: Error) => callback(error));
+  },
+});
+
+const http = createServer((req, res) => {
+  const send = (status: number, body: unknown) => {
+    res.writeHead(status, { "content-type": "application/json" });
+    res.end(JSON.stringify(body));
+  };
+  if (req.url === "/health") return send(200, { ok: true, smtpPort });
+  if (req.url === "/messages" && req.method === "GET") return send(200, { messages });
+  if (req.url === "/messages" && req.method === "DELETE") {
+    messages.length = 0;
+    return send(200, { ok: true });
+  }
+  send(404, { error: "not found" });
+});
+
+smtp.listen(smtpPort, "127.0.0.1", () => {
+  http.listen(httpPort, "127.0.0.1", () => console.log(`fake SMTP on 127.0.0.1:${smtpPort}, read-out on 127.0.0.1:${httpPort}`));
+});
+
+const stop = () => {
+  smtp.close(() => undefined);
+  http.close(() => process.exit(0));
+};
+process.on("SIGTERM", stop);
+process.on("SIGINT", stop);

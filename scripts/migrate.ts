@@ -1,0 +1,16 @@
+// Applies pending migrations to the database named by DB_NAME (scripts/lib.sh sets the defaults).
+import { closeSequelize, getSequelize } from "../models";
+import { createMigrator } from "../models/migrator";
+
+async function main() {
+  const sequelize = getSequelize();
+  const done = await createMigrator(sequelize).up();
+  console.error(`[octavo] migrations: ${done.length ? done.map((m) => m.name).join(", ") : "up to date"}`);
+  await closeSequelize();
+}
+
+main().catch(async (error) => {
+  console.error("[octavo] migration failed:", error);
+  await closeSequelize();
+  process.exit(1);
+});

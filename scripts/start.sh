@@ -1,0 +1,32 @@
+#!/usr/bin/env bash
+# npm start: install what is missing, start MariaDB, migrate, seed the demo once, build and serve.
+# `npm run dev` (--dev) serves with hot reload instead of a production build.
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+cd "$OCTAVO_ROOT"
+
+MODE="${1:-}"
+started=$(date +%s)
+ensure_debian_packages mariadbd:mariadb-server curl:curl
+ensure_node_modules
+load_env
+bash scripts/db.sh start
+run_tsx scripts/migrate.ts
+run_tsx scripts/seed.ts
+
+# Mail: a real relay when SMTP_HOST is configured, otherwise the local fake server and its mailbox page.
+if [ -z "${SMTP_HOST:-}" ]; then
+  start_fake_smtp
+  [ -n "$FAKE_SMTP_PID" ] && trap 'kill "$FAKE_SMTP_PID" 2>/dev/null || true' EXIT
+fi
+
+if [ "$MODE" = "--dev" ]; then
+  log "ready in $(( $(date +%s) - started )) s of set-up; dev server on http://localhost:$PORT"
+  node node_modules/next/dist/bin/next dev -p "$PORT"
+else
+  log "building"
+  node node_modules/next/dist/bin/next build >"$OCTAVO_DATA_DIR/logs/next-build.log" 2>&1 \
+    || { tail -40 "$OCTAVO_DATA_DIR/logs/next-build.log"; die "next build failed (full log: $OCTAVO_DATA_DIR/logs/next-build.log)"; }
+  log "set-up took $(( $(date +%s) - started )) s; serving http://localhost:$PORT (demo password: bench-demo-2026)"
+  node node_modules/next/dist/bin/next start -p "$PORT"
+fi

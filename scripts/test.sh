@@ -1,0 +1,68 @@
+#!/usr/bin/env bash
+# npm test: the same set-up as npm start against a separate database (octavo_test, reset
+# each run), then every test: types, unit, integration (HTTP against the built app and the
+# real MariaDB) and browser tests (Debian's chromium). One build, one DB, one server per run.
+set -uo pipefail
+source "$(dirname "$0")/lib.sh"
+cd "$OCTAVO_ROOT"
+
+started=$(date +%s)
+ensure_debian_packages mariadbd:mariadb-server curl:curl /usr/bin/chromium:chromium pdftoppm:poppler-utils \
+  /usr/lib/python3/dist-packages/skrf:python3-scikit-rf
+ensure_node_modules
+
+export DB_NAME="${TEST_DB_NAME:-octavo_test}"
+export PORT="${TEST_PORT:-3100}"
+export SMTP_PORT="${TEST_SMTP_PORT:-2526}"
+export OCTAVO_MAILBOX_PORT="${TEST_MAILBOX_PORT:-2581}"
+export NEXTAUTH_URL="http://localhost:$PORT"
+export BASE_URL="http://localhost:$PORT"
+# Tests give each client its own address through X-Forwarded-For, as a trusted proxy would.
+export OCTAVO_TRUST_PROXY=1
+unset SMTP_HOST
+load_env
+export NEXTAUTH_SECRET="test-secret-$(date +%s%N)"
+
+RESULTS="$OCTAVO_DATA_DIR/test-results"
+rm -rf "$RESULTS"; mkdir -p "$RESULTS" "$OCTAVO_DATA_DIR/logs"
+
+bash scripts/db.sh start || die "MariaDB did not start"
+bash scripts/db.sh reset "$DB_NAME" || die "could not reset $DB_NAME"
+run_tsx scripts/migrate.ts || die "migrations failed"
+run_tsx scripts/seed.ts || die "seeding failed"
+start_fake_smtp
+SERVER_PID=""
+cleanup() {
+  [ -n "$SERVER_PID" ] && kill "$SERVER_PID" 2>/dev/null
+  [ -n "${FAKE_SMTP_PID:-}" ] && kill "$FAKE_SMTP_PID" 2>/dev/null
+  true
+}
+trap cleanup EXIT
+
+status=0
+step() { local name="$1"; shift; log "── $name"; "$@" || { log "✗ $name failed"; status=1; }; }
+
+step "type check" node node_modules/typescript/bin/tsc --noEmit
+step "unit tests" node node_modules/vitest/vitest.mjs run --project unit \
+  --reporter=default --reporter=json --outputFile.json="$RESULTS/unit.json"
+
+log "── build"
+if node node_modules/next/dist/bin/next build >"$OCTAVO_DATA_DIR/logs/next-build-test.log" 2>&1; then
+  node node_modules/next/dist/bin/next start -p "$PORT" >"$OCTAVO_DATA_DIR/logs/next-test-server.log" 2>&1 &
+  SERVER_PID=$!
+  for _ in $(seq 1 150); do curl -fsS "$BASE_URL/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done
+  if curl -fsS "$BASE_URL/api/auth/csrf" >/dev/null 2>&1; then
+    step "integration tests" node node_modules/vitest/vitest.mjs run --project integration \
+      --reporter=default --reporter=json --outputFile.json="$RESULTS/integration.json"
+    step "browser tests" env PLAYWRIGHT_JSON_OUTPUT_NAME="$RESULTS/e2e.json" \
+      node node_modules/@playwright/test/cli.js test --reporter=list,json
+  else
+    tail -20 "$OCTAVO_DATA_DIR/logs/next-test-server.log"; log "✗ the app server did not start"; status=1
+  fi
+else
+  tail -40 "$OCTAVO_DATA_DIR/logs/next-build-test.log"; log "✗ build failed"; status=1
+fi
+
+node scripts/summarize-tests.mjs "$RESULTS" || status=1
+log "npm test took $(( $(date +%s) - started )) s"
+exit $status

@@ -1,0 +1,37 @@
+import bcrypt from "bcryptjs";
+import { randomBytes } from "node:crypto";
+import { Device, Organization, User, getSequelize } from "@/models";
+import type { UserRole } from "@/models/user";
+import { assertLoopbackDatabase } from "./loopback";
+
+export const factoryPassword = "factory-password-1";
+const passwordHash = bcrypt.hashSync(factoryPassword, 4);
+
+export const uniqueEmail = (label: string) => `${label}-${randomBytes(5).toString("hex")}@factory.example`;
+
+type Made = { organization: Organization; users: Record<UserRole, User> };
+
+/** An organization of its own with one user per role (random e-mails), for one test file. */
+export async function makeOrganization(kind: "vendor" | "lab" = "vendor"): Promise<Made> {
+  assertLoopbackDatabase();
+  getSequelize();
+  const tag = randomBytes(4).toString("hex");
+  const organization = await Organization.create({ slug: `factory-${tag}`, name: `Factory Org ${tag}`, kind });
+  const users = {} as Record<UserRole, User>;
+  for (const role of ["admin", "engineer", "reviewer", "customer"] as const) {
+    users[role] = await User.create({ organizationId: organization.id, email: uniqueEmail(role), name: `${role} ${tag}`, role, passwordHash });
+  }
+  return { organization, users };
+}
+
+export async function makeDevice(organizationId: number, partNumber = `FX-${randomBytes(3).toString("hex")}`): Promise<Device> {
+  return Device.create({
+    organizationId,
+    createdById: null,
+    partNumber,
+    deviceClass: "frequency-multiplier",
+    title: "Factory doubler",
+    description: "",
+    keyConditions: { multiplicationFactor: 2 },
+  });
+}
