@@ -1,0 +1,47 @@
+import { metaQuantity, metaString, rawMetadata, unknownMetadataKeys } from "./csv-metadata";
+import { readCsvDocument, unusedColumns, type ColumnRequest, type CsvDocument } from "./csv-table";
+import { IngestError } from "./errors";
+import { decodeInput } from "./text-guards";
+import type { MeasurementKind, UnitConditions } from "./types";
+import { RANGES } from "./units";
+
+export type FileContent = string | Uint8Array;
+
+export interface ParseOptions {
+  /** Size limit in bytes (default 20 MiB). */
+  maxBytes?: number;
+}
+
+export function openCsv(fileName: string, content: FileContent, kind: MeasurementKind, options: ParseOptions = {}): CsvDocument {
+  const text =
+    typeof content === "string"
+      ? decodeInput({ fileName, text: content, maxBytes: options.maxBytes })
+      : decodeInput({ fileName, bytes: content, maxBytes: options.maxBytes });
+  const doc = readCsvDocument(fileName, text);
+  const declared = doc.metadata.get("kind");
+  if (declared && declared.value.toLowerCase() !== kind) {
+    throw new IngestError({
+      fileName,
+      code: "bad-metadata",
+      line: declared.line,
+      field: "kind",
+      expected: kind,
+      found: declared.value,
+      detail: `this file declares kind "${declared.value}" but is being read as "${kind}"`,
+    });
+  }
+  return doc;
+}
+
+export function readUnitConditions(doc: CsvDocument, warnings: string[]): UnitConditions {
+  const serial = metaString(doc, "serial", true, "OCT-0001");
+  const lot = metaString(doc, "lot", false, "L2405");
+  const temperatureC = metaQuantity(doc, "temperature", "temperature", RANGES.temperatureC, false, "25 C");
+  if (temperatureC === undefined) warnings.push('no "# temperature:" metadata; the measurement temperature is unknown');
+  return { serial, lot, temperatureC, metadata: rawMetadata(doc) };
+}
+
+export function warnUnused(doc: CsvDocument, requests: ColumnRequest[], knownMetadata: string[], warnings: string[]): void {
+  for (const col of unusedColumns(doc, requests)) warnings.push(`column "${col}" is not used by this kind and was ignored`);
+  for (const key of unknownMetadataKeys(doc, knownMetadata)) warnings.push(`metadata "${key}" is not used by this kind`);
+}

@@ -1,0 +1,462 @@
+/**
+ * Octavo's CSV conventions (described in fixtures/FORMATS.md):
+ *   # key: value          metadata lines at the top (lines starting "#"
+ *                          without a colon are comments)
+ *   name [unit],...       one header row; units in square brackets
+ *   numbers,...           data rows
+ * Delimiter: comma, semicolon or tab, taken from the header row. Semicolon
+ * files may use a decimal comma ("12,5") or a decimal point. A UTF-8 BOM,
+ * CRLF or LF line ends, and blank lines are accepted. No quoting: cells are
+ * names, units and plain numbers.
+ */
+import { IngestError, shortenFound } from "./errors";
+import { looksNonFinite, parseNumberAt } from "./number";
+import {
+  acceptedUnits,
+  describeQuantity,
+  describeRange,
+  findConversion,
+  inRange,
+  type Quantity,
+  type UnitConversion,
+  type ValueRange,
+} from "./units";
+
+export type Delimiter = "," | ";" | "\t";
+
+export interface MetadataEntry {
+  key: string;
+  value: string;
+  line: number;
+}
+
+export interface HeaderCell {
+  /** 0-based position in the row. */
+  index: number;
+  /** Lower-case name with spaces and hyphens folded to "_", e.g. "input_power". */
+  name: string;
+  /** The cell as written, for messages. */
+  raw: string;
+  /** The text inside the brackets, if any. */
+  unit?: string;
+}
+
+export interface CsvDocument {
+  fileName: string;
+  text: string;
+  delimiter: Delimiter;
+  /** Semicolon files accept "12,5" as well as "12.5". */
+  decimalComma: boolean;
+  metadata: Map<string, MetadataEntry>;
+  header: HeaderCell[];
+  headerLine: number;
+  /** Offset of the first character after the header row. */
+  dataOffset: number;
+}
+
+const DELIMITER_NAMES: Record<Delimiter, string> = { ",": "comma", ";": "semicolon", "\t": "tab" };
+
+export function normalizeName(raw: string): string {
+  return raw.trim().toLowerCase().replace(/[\s-]+/g, "_");
+}
+
+function lineEnd(text: string, from: number): { end: number; next: number } {
+  const nl = text.indexOf("\n", from);
+  const next = nl === -1 ? text.length : nl + 1;
+  let end = nl === -1 ? text.length : nl;
+  if (end > from && text.charCodeAt(end - 1) === 13) end--;
+  return { end, next };
+}
+
+function isBlankRange(text: string, start: number, end: number): boolean {
+  for (let i = start; i < end; i++) {
+    const c = text.charCodeAt(i);
+    if (c !== 32 && c !== 9 && c !== 12) return false;
+  }
+  return true;
+}
+
+function firstNonSpace(text: string, start: number, end: number): number {
+  let i = start;
+  while (i < end && (text.charCodeAt(i) === 32 || text.charCodeAt(i) === 9)) i++;
+  return i;
+}
+
+function detectDelimiter(fileName: string, line: string, lineNo: number): Delimiter {
+  const found: Delimiter[] = [];
+  if (line.includes("\t")) found.push("\t");
+  if (line.includes(";")) found.push(";");
+  if (line.includes(",")) found.push(",");
+  if (found.length > 1) {
+    throw new IngestError({
+      fileName,
+      code: "mixed-delimiters",
+      line: lineNo,
+      detail: `the header row mixes ${found.map((d) => DELIMITER_NAMES[d]).join(" and ")} delimiters; use one of comma, semicolon or tab`,
+      expected: "one delimiter",
+    });
+  }
+  return found[0] ?? ",";
+}
+
+function parseHeaderCell(fileName: string, raw: string, index: number, lineNo: number): HeaderCell {
+  const open = raw.indexOf("[");
+  if (open === -1) {
+    const name = normalizeName(raw);
+    if (name === "") {
+      throw new IngestError({
+        fileName,
+        code: "missing-header",
+        line: lineNo,
+        column: index + 1,
+        detail: "header cell is empty; every column needs a name",
+        expected: "a column name such as \"frequency [MHz]\"",
+      });
+    }
+    return { index, name, raw: raw.trim() };
+  }
+  const close = raw.indexOf("]", open);
+  if (close === -1 || raw.slice(close + 1).trim() !== "") {
+    throw new IngestError({
+      fileName,
+      code: "unknown-unit",
+      line: lineNo,
+      column: index + 1,
+      field: raw.trim(),
+      detail: "the unit must be in square brackets at the end of the header cell, e.g. \"frequency [MHz]\"",
+      expected: "name [unit]",
+      found: shortenFound(raw.trim()),
+    });
+  }
+  return {
+    index,
+    name: normalizeName(raw.slice(0, open)),
+    raw: raw.trim(),
+    unit: raw.slice(open + 1, close).trim(),
+  };
+}
+
+function allNumeric(cells: string[]): boolean {
+  return cells.every((c) => {
+    const t = c.trim();
+    return t !== "" && !Number.isNaN(parseNumberAt(t, 0, t.length, true));
+  });
+}
+
+/** Reads metadata and the header row; data rows are read on demand by readCsvColumns. */
+export function readCsvDocument(fileName: string, text: string): CsvDocument {
+  const metadata = new Map<string, MetadataEntry>();
+  let pos = text.charCodeAt(0) === 0xfeff ? 1 : 0;
+  let lineNo = 0;
+  while (pos < text.length) {
+    lineNo++;
+    const { end, next } = lineEnd(text, pos);
+    const start = firstNonSpace(text, pos, end);
+    if (start === end) {
+      pos = next;
+      continue;
+    }
+    if (text.charCodeAt(start) === 35 /* # */) {
+      const body = text.slice(start + 1, end);
+      const colon = body.indexOf(":");
+      if (colon > 0) {
+        const key = normalizeName(body.slice(0, colon));
+        const value = body.slice(colon + 1).trim();
+        if (key !== "") {
+          const before = metadata.get(key);
+          if (before) {
+            throw new IngestError({
+              fileName,
+              code: "duplicate-metadata",
+              line: lineNo,
+              field: key,
+              detail: `metadata key "${key}" appears twice (first on line ${before.line})`,
+            });
+          }
+          metadata.set(key, { key, value, line: lineNo });
+        }
+      }
+      pos = next;
+      continue;
+    }
+    const line = text.slice(start, end);
+    const delimiter = detectDelimiter(fileName, line, lineNo);
+    const rawCells = line.split(delimiter);
+    if (allNumeric(rawCells)) {
+      throw new IngestError({
+        fileName,
+        code: "missing-header",
+        line: lineNo,
+        detail: `expected a header row such as "frequency [MHz],L [dBc/Hz]" before the data, found "${shortenFound(line)}"`,
+        expected: "a header row",
+        found: shortenFound(line),
+      });
+    }
+    const header = rawCells.map((raw, i) => parseHeaderCell(fileName, raw, i, lineNo));
+    const seen = new Map<string, number>();
+    for (const cell of header) {
+      const first = seen.get(cell.name);
+      if (first !== undefined) {
+        throw new IngestError({
+          fileName,
+          code: "duplicate-column",
+          line: lineNo,
+          column: cell.index + 1,
+          field: cell.raw,
+          detail: `column "${cell.name}" appears twice (also column ${first + 1})`,
+        });
+      }
+      seen.set(cell.name, cell.index);
+    }
+    return {
+      fileName,
+      text,
+      delimiter,
+      decimalComma: delimiter === ";",
+      metadata,
+      header,
+      headerLine: lineNo,
+      dataOffset: next,
+    };
+  }
+  throw new IngestError({
+    fileName,
+    code: "missing-header",
+    detail: "no header row and no data: the file holds only metadata or comments",
+    expected: "a header row and data rows",
+  });
+}
+
+export interface ColumnRequest {
+  cell: HeaderCell;
+  conversion: UnitConversion;
+  range: ValueRange;
+  /** Used in messages: "expected a number in dBm". */
+  quantity: Quantity;
+}
+
+export interface ColumnValues {
+  /** One array per request, in canonical units. */
+  values: number[][];
+  /** File line number of each row, for later checks (monotonicity). */
+  lines: number[];
+}
+
+function otherDelimiterIn(text: string, start: number, end: number, delimiter: Delimiter): Delimiter | undefined {
+  const others: Delimiter[] = delimiter === "," ? [";", "\t"] : delimiter === ";" ? ["\t"] : [",", ";"];
+  const segment = text.slice(start, end);
+  return others.find((d) => segment.includes(d));
+}
+
+/**
+ * Reads the requested columns of every data row in one pass over the text,
+ * without splitting rows into arrays of strings. Every row must have as many
+ * cells as the header; blank lines and "#" comment lines are skipped.
+ */
+export function readCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): ColumnValues {
+  const { text, fileName, delimiter, decimalComma } = doc;
+  const width = doc.header.length;
+  const slot = new Int32Array(width).fill(-1);
+  requests.forEach((r, k) => (slot[r.cell.index] = k));
+  const values: number[][] = requests.map(() => []);
+  const lines: number[] = [];
+  const delimCode = delimiter.charCodeAt(0);
+  let pos = doc.dataOffset;
+  let lineNo = doc.headerLine;
+  while (pos < text.length) {
+    lineNo++;
+    const { end, next } = lineEnd(text, pos);
+    const lineStart = pos;
+    pos = next;
+    if (isBlankRange(text, lineStart, end)) continue;
+    if (text.charCodeAt(firstNonSpace(text, lineStart, end)) === 35) continue;
+    let cellStart = lineStart;
+    let cell = 0;
+    for (;;) {
+      let cellEnd = cellStart;
+      while (cellEnd < end && text.charCodeAt(cellEnd) !== delimCode) cellEnd++;
+      if (cell < width) {
+        const k = slot[cell];
+        if (k !== -1) {
+          let s = cellStart;
+          let e = cellEnd;
+          while (s < e && (text.charCodeAt(s) === 32 || text.charCodeAt(s) === 9)) s++;
+          while (e > s && (text.charCodeAt(e - 1) === 32 || text.charCodeAt(e - 1) === 9)) e--;
+          const x = parseNumberAt(text, s, e, decimalComma);
+          if (!Number.isFinite(x)) throwCellError(doc, requests[k], lineNo, cell, text.slice(s, e), x);
+          values[k].push(convertChecked(doc, requests[k], x, lineNo, cell, text.slice(s, e)));
+        }
+      }
+      cell++;
+      if (cellEnd >= end) break;
+      cellStart = cellEnd + 1;
+    }
+    if (cell !== width) {
+      const other = otherDelimiterIn(text, lineStart, end, delimiter);
+      if (other !== undefined && cell < width) {
+        throw new IngestError({
+          fileName,
+          code: "mixed-delimiters",
+          line: lineNo,
+          detail: `row has ${cell} cell${cell === 1 ? "" : "s"} when split on ${DELIMITER_NAMES[delimiter]}s (the header's delimiter) but contains ${DELIMITER_NAMES[other]}s; use one delimiter throughout`,
+          expected: `${width} cells separated by ${DELIMITER_NAMES[delimiter]}s`,
+        });
+      }
+      throw new IngestError({
+        fileName,
+        code: "cell-count",
+        line: lineNo,
+        detail: `row has ${cell} cell${cell === 1 ? "" : "s"}, expected ${width} (one per header column)${
+          cell < width && next >= text.length ? "; the file may be truncated" : ""
+        }`,
+        expected: `${width} cells`,
+      });
+    }
+    lines.push(lineNo);
+  }
+  return { values, lines };
+}
+
+function unitLabel(r: ColumnRequest): string {
+  return r.conversion.unit;
+}
+
+function throwCellError(doc: CsvDocument, r: ColumnRequest, line: number, cell: number, found: string, x: number): never {
+  const base = { fileName: doc.fileName, line, column: cell + 1, field: r.cell.raw, found: shortenFound(found) };
+  const expected = `a number in ${unitLabel(r)}`;
+  if (found === "") {
+    throw new IngestError({ ...base, code: "empty-cell", expected, detail: `expected a number in ${unitLabel(r)}, found an empty cell` });
+  }
+  if (looksNonFinite(found) || (!Number.isNaN(x) && !Number.isFinite(x))) {
+    throw new IngestError({
+      ...base,
+      code: "non-finite",
+      expected,
+      detail: `expected a finite number in ${unitLabel(r)}, found "${shortenFound(found)}"`,
+    });
+  }
+  throw new IngestError({
+    ...base,
+    code: "bad-number",
+    expected,
+    detail: `expected a number in ${unitLabel(r)}, found "${shortenFound(found)}"`,
+  });
+}
+
+function convertChecked(doc: CsvDocument, r: ColumnRequest, x: number, line: number, cell: number, found: string): number {
+  const invalid = r.conversion.invalid?.(x);
+  if (invalid !== undefined) {
+    throw new IngestError({
+      fileName: doc.fileName,
+      code: "out-of-range",
+      line,
+      column: cell + 1,
+      field: r.cell.raw,
+      found: shortenFound(found),
+      detail: `${invalid}, found ${found} ${r.conversion.unit}`,
+    });
+  }
+  const v = r.conversion.toCanonical(x);
+  if (!inRange(v, r.range)) {
+    throw new IngestError({
+      fileName: doc.fileName,
+      code: "out-of-range",
+      line,
+      column: cell + 1,
+      field: r.cell.raw,
+      found: shortenFound(found),
+      expected: describeRange(r.range),
+      detail: `${describeQuantity(r.quantity)} of ${found} ${r.conversion.unit} is outside the plausible range (${describeRange(r.range)})`,
+    });
+  }
+  return v;
+}
+
+/** Finds a column by normalized name and checks its unit against the quantity. */
+export function findColumn(
+  doc: CsvDocument,
+  name: string,
+  quantity: Quantity,
+  range: ValueRange,
+): ColumnRequest | undefined {
+  const cell = doc.header.find((c) => c.name === name);
+  if (!cell) return undefined;
+  return columnRequest(doc, cell, quantity, range);
+}
+
+export function columnRequest(doc: CsvDocument, cell: HeaderCell, quantity: Quantity, range: ValueRange): ColumnRequest {
+  if (cell.unit === undefined || cell.unit === "") {
+    throw new IngestError({
+      fileName: doc.fileName,
+      code: "missing-unit",
+      line: doc.headerLine,
+      column: cell.index + 1,
+      field: cell.raw,
+      expected: `a unit in brackets: ${acceptedUnits(quantity)}`,
+      detail: `column "${cell.raw}" has no unit; write it in brackets, e.g. "${cell.name} [${acceptedUnits(quantity).split(",")[0]}]"`,
+    });
+  }
+  const conversion = findConversion(cell.unit, quantity);
+  if (!conversion) {
+    throw new IngestError({
+      fileName: doc.fileName,
+      code: "unknown-unit",
+      line: doc.headerLine,
+      column: cell.index + 1,
+      field: cell.raw,
+      expected: acceptedUnits(quantity),
+      found: shortenFound(cell.unit),
+      detail: `unknown unit "${shortenFound(cell.unit)}" for ${describeQuantity(quantity)}; expected one of ${acceptedUnits(quantity)}`,
+    });
+  }
+  return { cell, conversion, range, quantity };
+}
+
+export function requireColumn(doc: CsvDocument, name: string, quantity: Quantity, range: ValueRange, example: string): ColumnRequest {
+  const found = findColumn(doc, name, quantity, range);
+  if (found) return found;
+  throw new IngestError({
+    fileName: doc.fileName,
+    code: "missing-column",
+    line: doc.headerLine,
+    field: name,
+    expected: example,
+    detail: `required column "${example}" is missing; the header has ${doc.header.map((c) => `"${c.raw}"`).join(", ")}`,
+  });
+}
+
+/** Strictly increasing values; equal neighbours are duplicates. */
+export function checkIncreasing(doc: CsvDocument, request: ColumnRequest, values: number[], lines: number[]): void {
+  for (let i = 1; i < values.length; i++) {
+    if (values[i] > values[i - 1]) continue;
+    const same = values[i] === values[i - 1];
+    throw new IngestError({
+      fileName: doc.fileName,
+      code: same ? "duplicate-value" : "non-monotonic",
+      line: lines[i],
+      column: request.cell.index + 1,
+      field: request.cell.raw,
+      expected: "strictly increasing values",
+      detail: same
+        ? `"${request.cell.raw}" repeats the value of line ${lines[i - 1]}; each value must appear once`
+        : `"${request.cell.raw}" decreases after line ${lines[i - 1]}; values must be strictly increasing`,
+    });
+  }
+}
+
+export function requireRows(doc: CsvDocument, lines: number[], minimum: number): void {
+  if (lines.length >= minimum) return;
+  throw new IngestError({
+    fileName: doc.fileName,
+    code: "too-few-points",
+    line: doc.headerLine,
+    expected: `at least ${minimum} data row${minimum === 1 ? "" : "s"}`,
+    detail: `found ${lines.length} data row${lines.length === 1 ? "" : "s"} after the header, expected at least ${minimum}`,
+  });
+}
+
+/** Header columns no request uses, for a warning. */
+export function unusedColumns(doc: CsvDocument, requests: ColumnRequest[]): string[] {
+  const used = new Set(requests.map((r) => r.cell.index));
+  return doc.header.filter((c) => !used.has(c.index)).map((c) => c.raw);
+}

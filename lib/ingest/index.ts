@@ -1,0 +1,12 @@
+export { IngestError, isIngestError, type IngestErrorCode, type IngestErrorDetails } from "./errors";
+export type * from "./types";
+export { MEASUREMENT_KINDS } from "./types";
+export type { FileContent, ParseOptions } from "./csv-common";
+export { DEFAULT_MAX_BYTES } from "./text-guards";
+export { parseDriveSweep } from "./drive-sweep";
+export { parseFrequencySweep } from "./frequency-sweep";
+export { parseTwoTone } from "./two-tone";
+export { parsePhaseNoise } from "./phase-noise";
+export { parseTouchstone, sParameter } from "./touchstone";
+export { detectKind } from "./detect-kind";
+export { parseMeasurementFile, type MeasurementFileInput } from "./parse-measurement-file";

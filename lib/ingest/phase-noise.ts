@@ -1,0 +1,28 @@
+import { openCsv, readUnitConditions, warnUnused, type FileContent, type ParseOptions } from "./csv-common";
+import { metaInteger, metaQuantity } from "./csv-metadata";
+import { checkIncreasing, readCsvColumns, requireColumn, requireRows } from "./csv-table";
+import type { ParseResult, PhaseNoiseTrace } from "./types";
+import { RANGES } from "./units";
+
+const METADATA_KEYS = ["carrier_frequency", "carrier_power", "multiplication_factor"];
+
+export function parsePhaseNoise(fileName: string, content: FileContent, options: ParseOptions = {}): ParseResult<PhaseNoiseTrace> {
+  const warnings: string[] = [];
+  const doc = openCsv(fileName, content, "phase-noise", options);
+  const unit = readUnitConditions(doc, warnings);
+  const carrierFrequencyHz = metaQuantity(doc, "carrier_frequency", "frequency", RANGES.frequencyHz, true, "2 GHz")!;
+  const carrierPowerDbm = metaQuantity(doc, "carrier_power", "power", RANGES.powerDbm, false, "3 dBm");
+  const multiplicationFactor = metaInteger(doc, "multiplication_factor", 1, 1000, false, "2");
+
+  const offset = requireColumn(doc, "offset", "frequency", RANGES.frequencyHz, "offset [Hz]");
+  const l = requireColumn(doc, "l", "noise-dbc-hz", RANGES.noiseDbcHz, "L [dBc/Hz]");
+  const requests = [offset, l];
+  const { values, lines } = readCsvColumns(doc, requests);
+  requireRows(doc, lines, 2);
+  checkIncreasing(doc, offset, values[0], lines);
+  warnUnused(doc, requests, METADATA_KEYS, warnings);
+  return {
+    data: { ...unit, carrierFrequencyHz, carrierPowerDbm, multiplicationFactor, offsetHz: values[0], lDbcHz: values[1] },
+    warnings,
+  };
+}

@@ -1,0 +1,113 @@
+import { IngestError } from "./errors";
+
+export const DEFAULT_MAX_BYTES = 20 * 1024 * 1024;
+
+export interface TextInput {
+  fileName: string;
+  /** Raw bytes as uploaded; preferred, so the size and encoding are checked exactly. */
+  bytes?: Uint8Array;
+  /** Already decoded text; its size is counted in UTF-16 code units. */
+  text?: string;
+  /** Size limit in bytes, checked before anything else (default 20 MiB). */
+  maxBytes?: number;
+}
+
+function lineOfByte(bytes: Uint8Array, index: number): number {
+  let line = 1;
+  for (let i = 0; i < index; i++) if (bytes[i] === 10) line++;
+  return line;
+}
+
+function lineOfChar(text: string, index: number): number {
+  let line = 1;
+  let at = text.indexOf("\n");
+  while (at !== -1 && at < index) {
+    line++;
+    at = text.indexOf("\n", at + 1);
+  }
+  return line;
+}
+
+/**
+ * Size, binary and encoding guards, then the decoded text without a BOM.
+ * Control characters other than tab, CR, LF and form feed mark a binary file.
+ */
+export function decodeInput(input: TextInput): string {
+  const { fileName } = input;
+  const maxBytes = input.maxBytes ?? DEFAULT_MAX_BYTES;
+  const size = input.bytes ? input.bytes.byteLength : (input.text ?? "").length;
+  if (size > maxBytes) {
+    throw new IngestError({
+      fileName,
+      code: "too-large",
+      detail: `file is ${size} bytes, more than the limit of ${maxBytes} bytes`,
+      expected: `at most ${maxBytes} bytes`,
+    });
+  }
+  let text: string;
+  if (input.bytes) {
+    const bytes = input.bytes;
+    const nul = bytes.indexOf(0);
+    if (nul !== -1) {
+      throw new IngestError({
+        fileName,
+        code: "binary-file",
+        line: lineOfByte(bytes, nul),
+        detail: "this is a binary file (it contains NUL bytes); expected a text file",
+        expected: "UTF-8 text",
+      });
+    }
+    try {
+      text = new TextDecoder("utf-8", { fatal: true, ignoreBOM: false }).decode(bytes);
+    } catch {
+      throw new IngestError({
+        fileName,
+        code: "invalid-encoding",
+        detail: "the file is not valid UTF-8 text; save it as UTF-8 (plain ASCII is fine)",
+        expected: "UTF-8 text",
+      });
+    }
+  } else if (input.text !== undefined) {
+    text = input.text.charCodeAt(0) === 0xfeff ? input.text.slice(1) : input.text;
+  } else {
+    text = "";
+  }
+  const bad = findControlChar(text);
+  if (bad !== -1) {
+    throw new IngestError({
+      fileName,
+      code: "binary-file",
+      line: lineOfChar(text, bad),
+      detail: `this looks like a binary file (control character U+${text
+        .charCodeAt(bad)
+        .toString(16)
+        .padStart(4, "0")
+        .toUpperCase()}); expected a text file`,
+      expected: "text",
+    });
+  }
+  if (text.length === 0) {
+    throw new IngestError({ fileName, code: "empty-file", detail: "the file is empty" });
+  }
+  if (isBlank(text)) {
+    throw new IngestError({ fileName, code: "empty-file", detail: "the file contains only whitespace" });
+  }
+  return text;
+}
+
+function findControlChar(text: string): number {
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c < 32 && c !== 9 && c !== 10 && c !== 13 && c !== 12) return i;
+    if (c === 127) return i;
+  }
+  return -1;
+}
+
+function isBlank(text: string): boolean {
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c !== 32 && c !== 9 && c !== 10 && c !== 13 && c !== 12) return false;
+  }
+  return true;
+}

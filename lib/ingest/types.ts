@@ -1,0 +1,127 @@
+/**
+ * Parsed measurement data. Plain numbers and arrays in canonical units (the
+ * unit is in each property name), so lib/rf can use them directly.
+ */
+
+export type MeasurementKind = "drive-sweep" | "frequency-sweep" | "two-tone" | "phase-noise" | "touchstone";
+
+export const MEASUREMENT_KINDS: readonly MeasurementKind[] = [
+  "drive-sweep",
+  "frequency-sweep",
+  "two-tone",
+  "phase-noise",
+  "touchstone",
+];
+
+/** What every CSV measurement says about the unit under test. */
+export interface UnitConditions {
+  serial: string;
+  lot?: string;
+  temperatureC?: number;
+  /** Every "# key: value" line as written, including the ones read above. */
+  metadata: Record<string, string>;
+}
+
+export interface HarmonicTrace {
+  /** 1 = fundamental leak-through, 2 = second harmonic, … */
+  order: number;
+  outputPowerDbm: number[];
+}
+
+/** Output spectrum vs drive level at one input frequency (multipliers, mixers as doublers). */
+export interface DriveSweep extends UnitConditions {
+  inputFrequencyHz: number;
+  /** Harmonic order of the wanted output (2 for a doubler). */
+  wantedOrder: number;
+  /** Excess loss of the splitter/hybrid feeding both ports, beyond the ideal 3.01 dB; 0 when not given. */
+  splitterExcessLossDb: number;
+  /** Cable loss between source and device; 0 when not given. */
+  cableLossDb: number;
+  /** Total input power as measured at the source, one entry per row, strictly increasing. */
+  inputPowerDbm: number[];
+  /** One trace per pN_out column, sorted by order; each has one entry per row. */
+  harmonics: HarmonicTrace[];
+}
+
+/** Quantities vs frequency (mixer conversion loss, isolation, multiplier output). */
+export interface FrequencySweep extends UnitConditions {
+  /** Strictly increasing. */
+  frequencyHz: number[];
+  inputPowerDbm?: number[];
+  outputPowerDbm?: number[];
+  conversionLossDb?: number[];
+  isolationLoRfDb?: number[];
+  isolationLoIfDb?: number[];
+  isolationRfIfDb?: number[];
+  /** LO drive (mixers) or input drive (multipliers). */
+  loPowerDbm?: number;
+  ifFrequencyHz?: number;
+  loFrequencyHz?: number;
+}
+
+/** Two-tone intermodulation sweep. */
+export interface TwoTone extends UnitConditions {
+  /** Input power of each tone, strictly increasing. */
+  inputPowerPerToneDbm: number[];
+  /** Output power of each fundamental tone. */
+  fundamentalOutputDbm: number[];
+  /** Output power of the third-order product (2f1 − f2 or 2f2 − f1). */
+  im3OutputDbm: number[];
+  tone1FrequencyHz?: number;
+  tone2FrequencyHz?: number;
+  /** Given, or |f2 − f1| when both tones are given. */
+  toneSpacingHz?: number;
+  loPowerDbm?: number;
+}
+
+/** Single-sideband phase noise L(f) (IEEE Std 1139-2008), dBc/Hz vs offset. */
+export interface PhaseNoiseTrace extends UnitConditions {
+  carrierFrequencyHz: number;
+  carrierPowerDbm?: number;
+  /** Multiplication factor N of the device (2 for a doubler), when measured through a multiplier. */
+  multiplicationFactor?: number;
+  /** Strictly increasing, > 0. */
+  offsetHz: number[];
+  lDbcHz: number[];
+}
+
+/**
+ * S-parameters from a Touchstone file (IBIS Open Forum Touchstone File
+ * Format Specification, Version 1.1 and 2.0). Complex values are stored
+ * entry-major: S(i,j) at frequency k (0-based i = output port, j = input
+ * port) is at index (i·N + j)·F + k of sRe/sIm, so one parameter across
+ * frequency is a contiguous run; see sParameter().
+ */
+export interface TouchstoneData {
+  version: 1 | 2;
+  portCount: number;
+  /** F frequencies in Hz, strictly increasing (0 Hz allowed). */
+  frequencyHz: Float64Array;
+  /** Reference impedance of each port in ohms. */
+  referenceOhm: number[];
+  sRe: Float64Array;
+  sIm: Float64Array;
+  /** Format of the numbers in the file, already converted to real/imaginary here. */
+  sourceFormat: "RI" | "MA" | "DB";
+  /** Comment lines ("!"-prefixed) before the data, trimmed. */
+  comments: string[];
+}
+
+interface Parsed<K extends MeasurementKind, D> {
+  kind: K;
+  data: D;
+  warnings: string[];
+}
+
+export type ParsedMeasurement =
+  | Parsed<"drive-sweep", DriveSweep>
+  | Parsed<"frequency-sweep", FrequencySweep>
+  | Parsed<"two-tone", TwoTone>
+  | Parsed<"phase-noise", PhaseNoiseTrace>
+  | Parsed<"touchstone", TouchstoneData>;
+
+/** What each parser returns: its data and warnings about things it ignored or defaulted. */
+export interface ParseResult<D> {
+  data: D;
+  warnings: string[];
+}
