@@ -1,0 +1,53 @@
+import type { Metadata, Viewport } from "next";
+import localFont from "next/font/local";
+import { SiteFooter } from "@/components/site-footer";
+import { SiteHeader } from "@/components/site-header";
+import "./globals.css";
+
+// Full TTFs from the installed packages: nothing is fetched at build or run time.
+const textFont = localFont({
+  src: [
+    { path: "../node_modules/@expo-google-fonts/source-sans-3/400Regular/SourceSans3_400Regular.ttf", weight: "400", style: "normal" },
+    { path: "../node_modules/@expo-google-fonts/source-sans-3/400Regular_Italic/SourceSans3_400Regular_Italic.ttf", weight: "400", style: "italic" },
+    { path: "../node_modules/@expo-google-fonts/source-sans-3/600SemiBold/SourceSans3_600SemiBold.ttf", weight: "600", style: "normal" },
+    { path: "../node_modules/@expo-google-fonts/source-sans-3/700Bold/SourceSans3_700Bold.ttf", weight: "700", style: "normal" },
+  ],
+  variable: "--font-text",
+  display: "swap",
+  fallback: ["system-ui", "sans-serif"],
+});
+
+const figureFont = localFont({
+  src: [
+    { path: "../node_modules/@expo-google-fonts/source-code-pro/400Regular/SourceCodePro_400Regular.ttf", weight: "400", style: "normal" },
+    { path: "../node_modules/@expo-google-fonts/source-code-pro/600SemiBold/SourceCodePro_600SemiBold.ttf", weight: "600", style: "normal" },
+  ],
+  variable: "--font-figures",
+  display: "swap",
+  fallback: ["ui-monospace", "monospace"],
+});
+
+export const metadata: Metadata = {
+  title: { default: "Octavo — characterization datasheets", template: "%s · Octavo" },
+  description:
+    "From bench measurements of mixers, frequency multipliers and hybrids to reviewed, released datasheets your customers can trust.",
+};
+
+export const viewport: Viewport = { themeColor: "#FAF7F0" };
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${textFont.variable} ${figureFont.variable}`}>
+      <body className="flex min-h-dvh flex-col bg-paper text-ink antialiased">
+        <a href="#content" className="skip-link">
+          Skip to content
+        </a>
+        <SiteHeader />
+        <main id="content" tabIndex={-1} className="mx-auto w-full max-w-page flex-1 px-5 pb-20 pt-10 outline-none sm:px-8">
+          {children}
+        </main>
+        <SiteFooter />
+      </body>
+    </html>
+  );
+}

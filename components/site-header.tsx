@@ -1,0 +1,53 @@
+import Link from "next/link";
+import { getSessionUser } from "@/lib/server/auth/session";
+import { navigationFor } from "@/lib/server/auth/permissions";
+import { Logo } from "./logo";
+import { NavLinks } from "./nav-links";
+import { roleLabels } from "./role-label";
+import { SignOutButton } from "./auth/sign-out-button";
+
+export async function SiteHeader() {
+  const user = await getSessionUser();
+  const items = navigationFor(user?.role ?? null).map(({ href, label }) => ({ href, label }));
+
+  return (
+    <header className="border-b border-rule">
+      <div className="mx-auto flex w-full max-w-page flex-wrap items-center justify-between gap-x-8 gap-y-3 px-5 pt-4 sm:px-8">
+        <Link href="/" className="no-underline" aria-label="Octavo, home">
+          <Logo />
+        </Link>
+        {user ? (
+          <div className="flex items-center gap-5" data-testid="session-identity">
+            <div className="text-right leading-tight">
+              <p className="font-semibold" data-testid="session-name">
+                {user.name}
+              </p>
+              <p className="text-sm text-ink-muted">
+                <span data-testid="session-role">{roleLabels[user.role]}</span>
+                <span aria-hidden="true"> · </span>
+                <span className="sr-only">, </span>
+                <span data-testid="session-organization">{user.organizationName}</span>
+              </p>
+            </div>
+            <SignOutButton />
+          </div>
+        ) : (
+          <div className="flex items-center gap-5 text-[0.9375rem]">
+            <Link href="/sign-up" className="no-underline hover:underline">
+              Customer account
+            </Link>
+            <Link
+              href="/sign-in"
+              className="rounded border border-ink px-3 py-1.5 font-semibold no-underline hover:border-signal hover:text-signal"
+            >
+              Sign in
+            </Link>
+          </div>
+        )}
+      </div>
+      <nav aria-label="Main" className="mx-auto mt-3 w-full max-w-page px-5 sm:px-8">
+        <NavLinks items={items} />
+      </nav>
+    </header>
+  );
+}

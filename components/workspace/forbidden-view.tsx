@@ -1,0 +1,27 @@
+import Link from "next/link";
+import { navigationFor, type Role } from "@/lib/server/auth/permissions";
+import { roleLabels } from "@/components/role-label";
+
+/** What a signed-in person sees on a page their role does not open (HTTP's 403 in words). */
+export function ForbiddenView({ role, pageName }: { role: Role; pageName: string }) {
+  const home = navigationFor(role)[0];
+  return (
+    <section aria-labelledby="forbidden-title" className="max-w-prose" data-testid="forbidden">
+      <p className="running-head mb-2">
+        <span className="figure text-signal-deep">403</span> · Not allowed
+      </p>
+      <h1 id="forbidden-title" className="text-[2rem] font-semibold leading-tight">
+        Your role does not open {pageName}
+      </h1>
+      <p className="mt-4 text-[1.0625rem] text-ink-muted">
+        You are signed in as {/^[AEIOU]/.test(roleLabels[role]) ? "an" : "a"} {roleLabels[role].toLowerCase()}. This page belongs to
+        another role in the organization; if you need it, ask your organization&rsquo;s administrator to change your role.
+      </p>
+      {home ? (
+        <p className="mt-6">
+          <Link href={home.href}>Go to {home.label.toLowerCase()}</Link>
+        </p>
+      ) : null}
+    </section>
+  );
+}
