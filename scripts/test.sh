@@ -16,7 +16,7 @@ export PORT="${TEST_PORT:-3100}"
 export SMTP_PORT="${TEST_SMTP_PORT:-2526}"
 export OCTAVO_MAILBOX_PORT="${TEST_MAILBOX_PORT:-2581}"
 export NEXTAUTH_URL="http://localhost:$PORT"
-export BASE_URL="http://localhost:$PORT"
+export OCTAVO_TEST_URL="http://localhost:$PORT"
 # Tests give each client its own address through X-Forwarded-For, as a trusted proxy would.
 export OCTAVO_TRUST_PROXY=1
 unset SMTP_HOST
@@ -50,8 +50,8 @@ log "── build"
 if node node_modules/next/dist/bin/next build >"$OCTAVO_DATA_DIR/logs/next-build-test.log" 2>&1; then
   node node_modules/next/dist/bin/next start -p "$PORT" >"$OCTAVO_DATA_DIR/logs/next-test-server.log" 2>&1 &
   SERVER_PID=$!
-  for _ in $(seq 1 150); do curl -fsS "$BASE_URL/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done
-  if curl -fsS "$BASE_URL/api/auth/csrf" >/dev/null 2>&1; then
+  for _ in $(seq 1 150); do curl -fsS "$OCTAVO_TEST_URL/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done
+  if curl -fsS "$OCTAVO_TEST_URL/api/auth/csrf" >/dev/null 2>&1; then
     step "integration tests" node node_modules/vitest/vitest.mjs run --project integration \
       --reporter=default --reporter=json --outputFile.json="$RESULTS/integration.json"
     step "browser tests" env PLAYWRIGHT_JSON_OUTPUT_NAME="$RESULTS/e2e.json" \

@@ -1,0 +1,63 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { QueryTypes } from "sequelize";
+import { AuditEvent, Device, Organization, User, closeSequelize, getSequelize } from "@/models";
+import { demoOrganizations } from "@/models/seeders/demo-scenario";
+import { assertLoopbackDatabase } from "./helpers/loopback";
+import { makeOrganization } from "./helpers/factories";
+
+beforeAll(() => assertLoopbackDatabase());
+afterAll(() => closeSequelize());
+
+describe("migrations and demo seed on MariaDB", () => {
+  it("applied every migration and seeder once", async () => {
+    const sequelize = getSequelize();
+    const migrations = await sequelize.query<{ name: string }>("SELECT name FROM octavo_migrations", { type: QueryTypes.SELECT });
+    const seeds = await sequelize.query<{ name: string }>("SELECT name FROM octavo_seeds", { type: QueryTypes.SELECT });
+    expect(migrations.map((m) => m.name)).toContain("20261201-0001-accounts-and-devices.ts");
+    expect(seeds.map((s) => s.name)).toContain("20261201-0001-demo-organizations.ts");
+  });
+
+  it("seeded every demo organization, person and device", async () => {
+    for (const spec of demoOrganizations) {
+      const org = await Organization.findOne({ where: { slug: spec.slug } });
+      expect(org, spec.slug).not.toBeNull();
+      expect(await User.count({ where: { organizationId: org!.id } })).toBeGreaterThanOrEqual(spec.users.length);
+      expect(await Device.count({ where: { organizationId: org!.id } })).toBe(spec.devices.length);
+    }
+    const kestrine = await Organization.findOne({ where: { slug: "kestrine" } });
+    const roles = (await User.findAll({ where: { organizationId: kestrine!.id } })).map((u) => u.role).sort();
+    expect(roles).toEqual(["admin", "engineer", "reviewer"]);
+  });
+
+  it("returns counts and ids as numbers, so JSON serialisation never meets a BigInt", async () => {
+    const [row] = await getSequelize().query<{ n: unknown }>("SELECT COUNT(*) AS n FROM users", { type: QueryTypes.SELECT });
+    expect(typeof row.n).toBe("number");
+    expect(() => JSON.stringify(row)).not.toThrow();
+  });
+
+  it("round-trips objects, arrays, strings and null through JSON columns", async () => {
+    const { organization } = await makeOrganization();
+    const values: unknown[] = [{ a: 1, nested: { b: [1, 2] } }, [1, "two", null], "plain string", null, 42.5];
+    for (const value of values) {
+      const event = await AuditEvent.create({
+        organizationId: organization.id, actorUserId: null, action: "test.json", subjectType: "test", subjectId: "1", before: value, after: null,
+      });
+      const back = await AuditEvent.findByPk(event.id);
+      expect(back!.before).toEqual(value);
+    }
+  });
+
+  it("keeps the audit trail append-only in the database itself", async () => {
+    const event = await AuditEvent.create({ organizationId: null, actorUserId: null, action: "test.append", subjectType: "test", subjectId: "2", before: null, after: null });
+    await expect(getSequelize().query("UPDATE audit_events SET action = 'x' WHERE id = ?", { replacements: [event.id] })).rejects.toThrow(/append-only/);
+    await expect(getSequelize().query("DELETE FROM audit_events WHERE id = ?", { replacements: [event.id] })).rejects.toThrow(/append-only/);
+  });
+
+  it("enforces a unique part number per organization", async () => {
+    const { organization } = await makeOrganization();
+    await Device.create({ organizationId: organization.id, createdById: null, partNumber: "DUP-1", deviceClass: "quadrature-hybrid", title: "a", description: "", keyConditions: {} });
+    await expect(
+      Device.create({ organizationId: organization.id, createdById: null, partNumber: "DUP-1", deviceClass: "quadrature-hybrid", title: "b", description: "", keyConditions: {} }),
+    ).rejects.toThrow();
+  });
+});
