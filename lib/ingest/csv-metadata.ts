@@ -81,7 +81,7 @@ export function metaQuantity(
       field: key,
       expected: describeRange(range),
       found: shortenFound(value),
-      detail: `${describeQuantity(quantity)} of ${shortenFound(value)} is outside the plausible range (${describeRange(range)})`,
+      detail: `${shortenFound(value)} is outside the plausible range for ${describeQuantity(quantity)} (${describeRange(range)})`,
     });
   }
   return v;

@@ -71,7 +71,7 @@ function lineEnd(text: string, from: number): { end: number; next: number } {
 function isBlankRange(text: string, start: number, end: number): boolean {
   for (let i = start; i < end; i++) {
     const c = text.charCodeAt(i);
-    if (c !== 32 && c !== 9 && c !== 12) return false;
+    if (c !== 32 && c !== 9 && c !== 12 && c !== 10 && c !== 13) return false;
   }
   return true;
 }
@@ -283,7 +283,10 @@ export function readCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): Col
           while (s < e && (text.charCodeAt(s) === 32 || text.charCodeAt(s) === 9)) s++;
           while (e > s && (text.charCodeAt(e - 1) === 32 || text.charCodeAt(e - 1) === 9)) e--;
           const x = parseNumberAt(text, s, e, decimalComma);
-          if (!Number.isFinite(x)) throwCellError(doc, requests[k], lineNo, cell, text.slice(s, e), x);
+          if (!Number.isFinite(x)) {
+            checkRowShape(doc, lineStart, end, next, lineNo);
+            throwCellError(doc, requests[k], lineNo, cell, text.slice(s, e), x);
+          }
           values[k].push(convertChecked(doc, requests[k], x, lineNo, cell, text.slice(s, e)));
         }
       }
@@ -291,30 +294,37 @@ export function readCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): Col
       if (cellEnd >= end) break;
       cellStart = cellEnd + 1;
     }
-    if (cell !== width) {
-      const other = otherDelimiterIn(text, lineStart, end, delimiter);
-      if (other !== undefined && cell < width) {
-        throw new IngestError({
-          fileName,
-          code: "mixed-delimiters",
-          line: lineNo,
-          detail: `row has ${cell} cell${cell === 1 ? "" : "s"} when split on ${DELIMITER_NAMES[delimiter]}s (the header's delimiter) but contains ${DELIMITER_NAMES[other]}s; use one delimiter throughout`,
-          expected: `${width} cells separated by ${DELIMITER_NAMES[delimiter]}s`,
-        });
-      }
-      throw new IngestError({
-        fileName,
-        code: "cell-count",
-        line: lineNo,
-        detail: `row has ${cell} cell${cell === 1 ? "" : "s"}, expected ${width} (one per header column)${
-          cell < width && next >= text.length ? "; the file may be truncated" : ""
-        }`,
-        expected: `${width} cells`,
-      });
-    }
+    if (cell !== width) checkRowShape(doc, lineStart, end, next, lineNo);
     lines.push(lineNo);
   }
   return { values, lines };
+}
+
+/** Throws when the row does not have one cell per header column. */
+function checkRowShape(doc: CsvDocument, lineStart: number, end: number, next: number, lineNo: number): void {
+  const { text, fileName, delimiter } = doc;
+  const width = doc.header.length;
+  let cell = 1;
+  for (let i = lineStart; i < end; i++) if (text[i] === delimiter) cell++;
+  if (cell === width) return;
+  const other = otherDelimiterIn(text, lineStart, end, delimiter);
+  if (other !== undefined && cell < width) {
+    throw new IngestError({
+      fileName,
+      code: "mixed-delimiters",
+      line: lineNo,
+      detail: `row has ${cell} cell${cell === 1 ? "" : "s"} when split on ${DELIMITER_NAMES[delimiter]}s (the header's delimiter) but contains ${DELIMITER_NAMES[other]}s; use one delimiter throughout`,
+      expected: `${width} cells separated by ${DELIMITER_NAMES[delimiter]}s`,
+    });
+  }
+  const truncated = cell < width && isBlankRange(text, next, text.length);
+  throw new IngestError({
+    fileName,
+    code: cell < width && truncated ? "truncated" : "cell-count",
+    line: lineNo,
+    detail: `row has ${cell} cell${cell === 1 ? "" : "s"}, expected ${width} (one per header column)${truncated ? "; the file is truncated" : ""}`,
+    expected: `${width} cells`,
+  });
 }
 
 function unitLabel(r: ColumnRequest): string {
@@ -366,7 +376,7 @@ function convertChecked(doc: CsvDocument, r: ColumnRequest, x: number, line: num
       field: r.cell.raw,
       found: shortenFound(found),
       expected: describeRange(r.range),
-      detail: `${describeQuantity(r.quantity)} of ${found} ${r.conversion.unit} is outside the plausible range (${describeRange(r.range)})`,
+      detail: `${found} ${r.conversion.unit} is outside the plausible range for ${describeQuantity(r.quantity)} (${describeRange(r.range)})`,
     });
   }
   return v;

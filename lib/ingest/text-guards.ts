@@ -60,9 +60,12 @@ export function decodeInput(input: TextInput): string {
     try {
       text = new TextDecoder("utf-8", { fatal: true, ignoreBOM: false }).decode(bytes);
     } catch {
+      const lossy = new TextDecoder("utf-8").decode(bytes);
+      const bad = lossy.indexOf("\uFFFD");
       throw new IngestError({
         fileName,
         code: "invalid-encoding",
+        line: bad === -1 ? undefined : lineOfChar(lossy, bad),
         detail: "the file is not valid UTF-8 text; save it as UTF-8 (plain ASCII is fine)",
         expected: "UTF-8 text",
       });

@@ -509,7 +509,7 @@ export function parseTouchstone(fileName: string, content: FileContent, options:
         const what =
           patternIndex === 0
             ? `the frequency and ${(expected - 1) / 2} complex value${expected === 3 ? "" : "s"}`
-            : `${expected / 2} complex value${expected === 2 ? "" : "s"} (continuing row ${Math.floor(patternIndex / Math.ceil(s.ports / 4)) + 1})`;
+            : `${expected / 2} complex value${expected === 2 ? "" : "s"} of row ${Math.floor(patternIndex / Math.ceil(s.ports / 4)) + 1} of the matrix`;
         let code: IngestErrorCode = "cell-count";
         if (records === 0 && patternIndex === 0) code = "port-count";
         else if (n < expected && restIsBlank(text, next)) code = "truncated";
@@ -530,7 +530,7 @@ export function parseTouchstone(fileName: string, content: FileContent, options:
           s,
           records === 0 ? "port-count" : "cell-count",
           recordPos === 0
-            ? `${n} numbers on one line, but a ${s.ports}-port record has ${recordLength} (the frequency and ${pairs.length} complex values); each frequency must start on a new line`
+            ? `${n} numbers on one line, but a ${s.ports}-port record has ${recordLength} (the frequency and ${pairs.length} complex value${pairs.length === 1 ? "" : "s"}); each frequency must start on a new line`
             : `this line completes a frequency's ${recordLength} numbers and continues with more; each frequency must start on a new line`,
           { line: lineNo, expected: `${recordLength} numbers per frequency`, found: String(n) },
         );

@@ -96,7 +96,7 @@ export function describeQuantity(quantity: Quantity): string {
     case "relative-dbc":
       return "a level in dBc";
     case "noise-dbc-hz":
-      return "a noise density in dBc/Hz";
+      return "a phase-noise density";
     case "temperature":
       return "a temperature";
   }
@@ -109,12 +109,14 @@ export interface ValueRange {
   minExclusive?: boolean;
   /** Canonical unit used to describe the range in messages. */
   unit: string;
+  /** Overrides the generated description, e.g. "greater than 0 Hz and at most 3 THz". */
+  text?: string;
 }
 
 /** Plausibility limits: a value outside is a unit mix-up or a corrupted file. */
 export const RANGES = {
   powerDbm: { min: -200, max: 60, unit: "dBm" },
-  frequencyHz: { min: 0, max: 3e12, minExclusive: true, unit: "Hz" },
+  frequencyHz: { min: 0, max: 3e12, minExclusive: true, unit: "Hz", text: "greater than 0 Hz and at most 3 THz" },
   noiseDbcHz: { min: -250, max: 0, unit: "dBc/Hz" },
   temperatureC: { min: -273.15, max: 500, unit: "°C" },
   lossDb: { min: -100, max: 300, unit: "dB" },
@@ -128,5 +130,6 @@ export function inRange(value: number, r: ValueRange): boolean {
 }
 
 export function describeRange(r: ValueRange): string {
-  return `${r.minExclusive ? "greater than" : "from"} ${r.min} ${r.minExclusive ? "and up to" : "to"} ${r.max} ${r.unit}`;
+  if (r.text) return r.text;
+  return `${r.minExclusive ? "greater than" : "from"} ${r.min} ${r.minExclusive ? "and at most" : "to"} ${r.max} ${r.unit}`;
 }
