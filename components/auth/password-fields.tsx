@@ -1,0 +1,25 @@
+import { Field } from "@/components/ui/field";
+
+/** New password twice; the length rule comes from the shared schema's message. */
+export function PasswordFields({ errors }: { errors: { password?: string; confirm?: string } }) {
+  return (
+    <>
+      <Field
+        label="New password"
+        name="password"
+        type="password"
+        autoComplete="new-password"
+        hint="At least 10 characters. A short sentence works well."
+        error={errors.password}
+        required
+      />
+      <Field label="Repeat the password" name="confirm" type="password" autoComplete="new-password" error={errors.confirm} required />
+    </>
+  );
+}
+
+export function readPasswordPair(form: FormData): { password: string; confirmError?: string } {
+  const password = String(form.get("password") ?? "");
+  const confirm = String(form.get("confirm") ?? "");
+  return { password, confirmError: password === confirm ? undefined : "The two passwords differ." };
+}
