@@ -10,12 +10,12 @@ export interface PhaseNoiseTrace {
   phaseNoiseDbcHz: ArrayLike<number>;
 }
 
-interface TracePoint {
+export interface TracePoint {
   offsetHz: number;
   phaseNoiseDbcHz: number;
 }
 
-/** Ideal frequency multiplication by N raises L(f) by 20·log10(N) dB (IEEE Std 1139-2008 §2.9; common practice). */
+/** Ideal frequency multiplication by N raises L(f) by 20·log10(N) dB (common practice). */
 export function computeMultiplicationPenaltyDb(multiplicationFactor: number): number {
   if (!(multiplicationFactor > 0)) throw new RangeError(`Multiplication factor must be positive, got ${multiplicationFactor}`);
   return 20 * Math.log10(multiplicationFactor);

@@ -6,7 +6,7 @@ export function computeNormalDensity(z: number): number {
   return Math.exp(-0.5 * z * z) / SQRT_TWO_PI;
 }
 
-/** Standard normal CDF Φ(z) = ½·erfc(−z/√2), with erfc(t) = Q(½, t²) for t ≥ 0 (Abramowitz & Stegun 6.5.17, 7.1.2). */
+/** Standard normal CDF Φ(z) = ½·erfc(−z/√2), with erfc(t) = Q(½, t²) for t ≥ 0 (Abramowitz & Stegun, ch. 6–7). */
 export function computeNormalCdf(z: number): number {
   if (Number.isNaN(z)) return Number.NaN;
   if (z === Infinity) return 1;

@@ -44,7 +44,7 @@ function betaContinuedFraction(x: number, a: number, b: number): number {
   return h;
 }
 
-/** Student t CDF with ν degrees of freedom: the tail is ½·I_{ν/(ν+t²)}(ν/2, ½) (Abramowitz & Stegun 26.7.1, 26.5.27). */
+/** Student t CDF with ν degrees of freedom: the tail is ½·I_{ν/(ν+t²)}(ν/2, ½) (Abramowitz & Stegun, ch. 26). */
 export function computeStudentTCdf(t: number, degreesOfFreedom: number): number {
   assertDegreesOfFreedom(degreesOfFreedom);
   if (t === Infinity) return 1;

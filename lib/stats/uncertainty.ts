@@ -3,7 +3,7 @@
  * a bound and the distribution it is believed to follow; its standard uncertainty is
  *   normal: U/k (the stated coverage factor; k = 1 for a standard uncertainty),
  *   rectangular: a/√3, triangular: a/√6, U-shaped (e.g. mismatch): a/√2
- * (JCGM 100:2008 §4.3.7, §4.3.9; EA-4/02 M:2022 for the U-shaped case).
+ * (JCGM 100:2008 §4.3.7, §4.3.9; EA-4/02 for the U-shaped case).
  */
 
 export type UncertaintyDistribution = "normal" | "rectangular" | "triangular" | "u-shaped";

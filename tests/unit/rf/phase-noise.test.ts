@@ -8,7 +8,7 @@ import {
 } from "@/lib/rf/phase-noise";
 
 describe("ideal multiplication", () => {
-  // 20·log10(N): REFERENCES.md "Phase noise" [computed]; IEEE Std 1139-2008 §2.9.
+  // 20·log10(N): REFERENCES.md "Phase noise" [computed].
   it.each([
     { factor: 2, penaltyDb: 6.021 },
     { factor: 3, penaltyDb: 9.542 },
