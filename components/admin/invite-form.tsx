@@ -6,7 +6,7 @@ import type { Role } from "@/lib/server/auth/permissions";
 import { ApiError, messageOf, requestJson } from "@/components/api-client";
 import { roleLabels } from "@/components/role-label";
 import { buttonClass } from "@/components/ui/button";
-import { Field, inputClass } from "@/components/ui/field";
+import { Field, selectClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 
 export function InviteForm({ onInvited }: { onInvited: () => void }) {
@@ -46,7 +46,7 @@ export function InviteForm({ onInvited }: { onInvited: () => void }) {
         <label htmlFor="invite-role" className="block text-[0.9375rem] font-semibold">
           Role
         </label>
-        <select id="invite-role" value={role} onChange={(e) => setRole(e.target.value as Role)} className={inputClass}>
+        <select id="invite-role" value={role} onChange={(e) => setRole(e.target.value as Role)} className={selectClass}>
           {(Object.entries(roleLabels) as [Role, string][]).map(([value, label]) => (
             <option key={value} value={value}>
               {label}

@@ -43,7 +43,7 @@ export function PeoplePanel({ currentUserId, initialUsers, initialInvitations }:
     <div className="space-y-14">
       <section aria-labelledby="people-title">
         <h2 id="people-title" className="mb-4 text-xl font-semibold">
-          People
+          Members
         </h2>
         <div aria-live="polite" className="mb-4 empty:hidden">
           {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}

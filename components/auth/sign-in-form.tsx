@@ -12,14 +12,14 @@ const errorMessages: Record<string, string> = {
   "too-many-attempts": "Too many sign-in attempts. Wait a few minutes, then try again.",
 };
 
-export function signInErrorMessage(code: string | null | undefined): string | null {
+function signInErrorMessage(code: string | null | undefined): string | null {
   if (!code) return null;
   return errorMessages[code] ?? "Sign-in did not work. Try again.";
 }
 
 /** After signing in we land on `next`, or on /sign-in itself, which forwards to the role's first page. */
-export function SignInForm({ next, initialError }: { next: string | null; initialError: string | null }) {
-  const [error, setError] = useState<string | null>(initialError);
+export function SignInForm({ next, initialErrorCode }: { next: string | null; initialErrorCode: string | null }) {
+  const [error, setError] = useState<string | null>(signInErrorMessage(initialErrorCode));
   const [pending, setPending] = useState(false);
 
   async function submit(event: React.FormEvent<HTMLFormElement>) {

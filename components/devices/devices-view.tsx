@@ -53,19 +53,19 @@ export function DevicesView({ devices, organizationName }: { devices: DeviceSumm
                     <th scope="row" className="figure whitespace-nowrap font-semibold">
                       {device.partNumber}
                     </th>
-                    <td className="whitespace-nowrap">{deviceClassLabels[device.deviceClass]}</td>
-                    <td className="min-w-[18rem]">
-                      {device.title}
+                    <td className="whitespace-nowrap">
+                      {deviceClassLabels[device.deviceClass]}
                       {k.multiplicationFactor ? (
-                        <span className="ml-2 text-sm text-ink-muted">
-                          (<span className="figure">×{formatNumber(k.multiplicationFactor)}</span>)
+                        <span className="figure ml-1.5 text-ink-muted" title={`Multiplication factor ${k.multiplicationFactor}`}>
+                          ×{formatNumber(k.multiplicationFactor)}
                         </span>
                       ) : null}
                     </td>
-                    <td>
+                    <td className="min-w-[16rem]">{device.title}</td>
+                    <td className="whitespace-nowrap">
                       <Range range={k.inputFrequencyHz} />
                     </td>
-                    <td>
+                    <td className="whitespace-nowrap">
                       <Range range={k.outputFrequencyHz} />
                     </td>
                     <td className="num">
@@ -75,7 +75,7 @@ export function DevicesView({ devices, organizationName }: { devices: DeviceSumm
                         <Quantity value={formatNumber(k.driveLevelDbm, { signed: true })} unit="dBm" />
                       )}
                     </td>
-                    <td className="num">
+                    <td className="num whitespace-nowrap">
                       <span className="figure">{formatDate(device.updatedAt)}</span>
                     </td>
                   </tr>

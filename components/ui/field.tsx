@@ -14,8 +14,8 @@ type FieldProps = {
   onChange?: (value: string) => void;
 };
 
-export const inputClass =
-  "w-full rounded border border-rule-strong bg-paper-bright px-3 py-2 text-base text-ink placeholder:text-ink-muted read-only:bg-paper-deep aria-[invalid=true]:border-signal";
+export const selectClass = "w-full rounded border border-rule-strong bg-paper-bright px-3 py-2 text-base text-ink";
+const inputClass = `${selectClass} placeholder:text-ink-muted read-only:bg-paper-deep aria-[invalid=true]:border-signal`;
 
 /** Label above, hint and error below, wired with aria-describedby so a screen reader hears both. */
 export function Field({ label, name, type = "text", autoComplete, defaultValue, hint, error, required, readOnly, value, onChange }: FieldProps) {

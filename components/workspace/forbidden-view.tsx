@@ -14,8 +14,10 @@ export function ForbiddenView({ role, pageName }: { role: Role; pageName: string
         Your role does not open {pageName}
       </h1>
       <p className="mt-4 text-[1.0625rem] text-ink-muted">
-        You are signed in as {/^[AEIOU]/.test(roleLabels[role]) ? "an" : "a"} {roleLabels[role].toLowerCase()}. This page belongs to
-        another role in the organization; if you need it, ask your organization&rsquo;s administrator to change your role.
+        You are signed in as {/^[AEIOU]/.test(roleLabels[role]) ? "an" : "a"} {roleLabels[role].toLowerCase()}.{" "}
+        {role === "customer"
+          ? "Customer accounts see the public catalog and their change notices; workspace pages belong to the vendors and labs that write sheets."
+          : "This page belongs to another role in your organization; if you need it, ask your administrator to change your role."}
       </p>
       {home ? (
         <p className="mt-6">

@@ -5,7 +5,7 @@ import { getSessionUser } from "@/lib/server/auth/session";
 import { navigationFor } from "@/lib/server/auth/permissions";
 import { AuthFrame } from "@/components/auth/auth-frame";
 import { safeNextPath } from "@/components/auth/safe-next";
-import { SignInForm, signInErrorMessage } from "@/components/auth/sign-in-form";
+import { SignInForm } from "@/components/auth/sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in" };
 
@@ -34,7 +34,7 @@ export default async function SignInPage({ searchParams }: Props) {
         </>
       }
     >
-      <SignInForm next={next} initialError={signInErrorMessage(error)} />
+      <SignInForm next={next} initialErrorCode={error} />
     </AuthFrame>
   );
 }
