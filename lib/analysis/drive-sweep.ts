@@ -1,0 +1,133 @@
+import type { DriveSweep } from "../ingest/types";
+import {
+  computeConversionLossDb,
+  computePerPortDriveDbm,
+  computeSuppressionDbc,
+  findCompressionPoint,
+  findOptimumDrive,
+} from "../rf";
+import { errorMessage, makeParameter, makeSeries, roundCondition } from "./curves";
+import type { Section } from "./section";
+import type { Curve, DeriveOptions, DerivedParameter } from "./types";
+
+/**
+ * Drive sweep of a multiplier (or a mixer used as a doubler, both ports fed
+ * through a splitter). Per-port drive = source − 10·log10(ways) − splitter excess
+ * − cable loss (common practice). Conversion loss refers to the power reaching the
+ * device, all ports together: per-port drive + 10·log10(ways).
+ */
+export function analyzeDriveSweep(data: DriveSweep, options: DeriveOptions, maxPoints: number): Section {
+  const parameters: DerivedParameter[] = [];
+  const warnings: string[] = [];
+  const splitWays = options.driveSweep?.splitWays ?? 2;
+  const splitDb = 10 * Math.log10(splitWays);
+  const n = data.inputPowerDbm.length;
+  const perPortDbm = data.inputPowerDbm.map((totalInputPowerDbm) =>
+    computePerPortDriveDbm({
+      totalInputPowerDbm,
+      splitterExcessLossDb: data.splitterExcessLossDb,
+      cableLossDb: data.cableLossDb,
+      splitWays,
+    }),
+  );
+  const deviceInputDbm = perPortDbm.map((p) => p + splitDb);
+  const wanted = data.harmonics.find((h) => h.order === data.wantedOrder);
+  if (!wanted) throw new RangeError(`No trace for the wanted order ${data.wantedOrder}`);
+  const conversionLossDb = wanted.outputPowerDbm.map((out, i) => computeConversionLossDb(deviceInputDbm[i], out));
+  const base = { inputFrequencyHz: data.inputFrequencyHz };
+
+  for (let i = 0; i < n; i++) {
+    parameters.push(
+      makeParameter("conversion-loss", conversionLossDb[i], {
+        ...base,
+        sourcePowerDbm: roundCondition(data.inputPowerDbm[i]),
+        perPortDriveDbm: roundCondition(perPortDbm[i]),
+      }),
+    );
+  }
+
+  let optimumStep = 0;
+  const markers: Curve["markers"] = [];
+  if (n >= 1) {
+    const optimum = findOptimumDrive({ inputPowerDbm: perPortDbm, conversionLossDb });
+    parameters.push(makeParameter("optimum-drive", optimum.inputPowerDbm, base));
+    parameters.push(makeParameter("conversion-loss", optimum.conversionLossDb, { ...base, drive: "optimum" }));
+    if (optimum.atSweepEnd) {
+      warnings.push(
+        `Best conversion is at the sweep's ${optimum.inputPowerDbm === perPortDbm[0] ? "lowest" : "highest"} drive step: the optimum may lie outside the sweep`,
+      );
+    }
+    markers.push({ label: "optimum drive", x: optimum.inputPowerDbm, y: optimum.conversionLossDb });
+    for (let i = 1; i < n; i++) {
+      if (Math.abs(perPortDbm[i] - optimum.inputPowerDbm) < Math.abs(perPortDbm[optimumStep] - optimum.inputPowerDbm)) optimumStep = i;
+    }
+    for (const trace of data.harmonics) {
+      if (trace.order === data.wantedOrder) continue;
+      parameters.push(
+        makeParameter(
+          "harmonic-suppression",
+          computeSuppressionDbc(wanted.outputPowerDbm[optimumStep], trace.outputPowerDbm[optimumStep]),
+          { order: trace.order, ...base, drive: "optimum" },
+        ),
+      );
+    }
+  }
+
+  // For a doubler the "gain" is −CL of the wanted order; compression is read against the lowest-drive steps.
+  if (n > 3) {
+    try {
+      const compression = findCompressionPoint({
+        inputPowerDbm: deviceInputDbm,
+        gainDb: conversionLossDb.map((cl) => -cl),
+      });
+      if (compression.reached) {
+        parameters.push(makeParameter("input-p1db", compression.inputCompressionPointDbm, base));
+        parameters.push(makeParameter("output-p1db", compression.outputCompressionPointDbm, base));
+      } else {
+        parameters.push(makeParameter("input-p1db", null, base));
+        parameters.push(makeParameter("output-p1db", null, base));
+        warnings.push(`No 1 dB compression in this sweep: ${compression.reason}`);
+      }
+    } catch (error) {
+      warnings.push(`Compression point not computed: ${errorMessage(error)}`);
+    }
+  } else {
+    warnings.push(`Compression point not computed: the sweep has only ${n} drive steps`);
+  }
+
+  const decimate = { maxPoints };
+  const curves: Curve[] = [
+    {
+      id: "conversion-loss-vs-drive",
+      title: "Conversion loss vs per-port drive",
+      x: { label: "Per-port drive", unit: "dBm", scale: "linear" },
+      y: { label: "Conversion loss", unit: "dB" },
+      series: [makeSeries(`order ${data.wantedOrder}`, perPortDbm, conversionLossDb, decimate)],
+      markers,
+    },
+    {
+      id: "output-spectrum-vs-drive",
+      title: "Output power of each order vs per-port drive",
+      x: { label: "Per-port drive", unit: "dBm", scale: "linear" },
+      y: { label: "Output power", unit: "dBm" },
+      series: data.harmonics.map((h) => makeSeries(`order ${h.order}`, perPortDbm, h.outputPowerDbm, decimate)),
+    },
+    {
+      id: "harmonic-suppression-vs-drive",
+      title: "Suppression of each order vs per-port drive",
+      x: { label: "Per-port drive", unit: "dBm", scale: "linear" },
+      y: { label: "Suppression", unit: "dBc" },
+      series: data.harmonics
+        .filter((h) => h.order !== data.wantedOrder)
+        .map((h) =>
+          makeSeries(
+            `order ${h.order}`,
+            perPortDbm,
+            h.outputPowerDbm.map((p, i) => computeSuppressionDbc(wanted.outputPowerDbm[i], p)),
+            decimate,
+          ),
+        ),
+    },
+  ];
+  return { parameters, warnings, curves };
+}

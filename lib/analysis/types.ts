@@ -1,0 +1,89 @@
+import type { MeasurementKind } from "../ingest/types";
+
+/** One derived figure. Stored as-is; the datasheet's statistics group by name + conditions. */
+export interface DerivedParameter {
+  name: string;
+  value: number | null;
+  unit: string;
+  conditions: Record<string, string | number>;
+}
+
+export interface CurveAxis {
+  label: string;
+  unit: string;
+  scale: "linear" | "log";
+}
+
+export interface CurveSeries {
+  name: string;
+  points: [number, number][];
+}
+
+export interface CurveMarker {
+  label: string;
+  x: number;
+  y: number;
+}
+
+/** A plot-ready chart: plain JSON, at most maxCurvePoints points per series. */
+export interface Curve {
+  id: string;
+  title: string;
+  x: CurveAxis;
+  y: Omit<CurveAxis, "scale"> & { scale?: "linear" | "log" };
+  series: CurveSeries[];
+  markers?: CurveMarker[];
+}
+
+export interface AnalysisResult {
+  kind: MeasurementKind;
+  parameters: DerivedParameter[];
+  warnings: string[];
+  curves: Curve[];
+}
+
+/** Port roles of a 4-port quadrature hybrid (1-based port numbers). */
+export interface HybridPorts {
+  input: number;
+  through: number;
+  coupled: number;
+  isolated: number;
+}
+
+/** Port roles of a 3-port in-phase splitter. */
+export interface SplitterPorts {
+  common: number;
+  outputs: [number, number];
+}
+
+export interface DeriveOptions {
+  /** Points per curve series after decimation; 2,000 by default. */
+  maxCurvePoints?: number;
+  driveSweep?: {
+    /** Ways of the splitter feeding the device ports; 2 (both ports of a mixer used as a doubler) by default. */
+    splitWays?: number;
+  };
+  twoTone?: {
+    /** Fit only points at or below this input per tone; by default the points whose tone gain is within 0.2 dB of the small-signal gain. */
+    maxInputPowerDbm?: number;
+  };
+  phaseNoise?: {
+    /** Integration band; by default 10 Hz … 1 MHz clipped to the trace. */
+    integrationStartHz?: number;
+    integrationStopHz?: number;
+    /** L(f) of the signal driving the multiplier, for the excess over ideal ×N. */
+    inputReference?: { offsetHz: readonly number[]; lDbcHz: readonly number[] };
+    /** Rise above the local median that makes a point a spur, dB; 10 by default. */
+    spurThresholdDb?: number;
+    /** Temperature of the kT reference; 290 K (IEEE) by default. */
+    referenceTemperatureK?: number;
+  };
+  touchstone?: {
+    /** Default ports 1 in, 2 through, 3 coupled, 4 isolated. */
+    hybridPorts?: HybridPorts;
+    /** Default port 1 common, ports 2 and 3 outputs. */
+    splitterPorts?: SplitterPorts;
+    /** Designed ∠S_through − ∠S_coupled; by default ±90°, the sign nearest the data at the first frequency. */
+    hybridNominalPhaseDeg?: number;
+  };
+}
