@@ -1,0 +1,44 @@
+import { expect, type Page } from "@playwright/test";
+
+export const demoPassword = "bench-demo-2026";
+
+export const demoUsers = {
+  admin: { email: "mira.okafor@wrenfield-lab.example", name: "Mira Okafor", organization: "Wrenfield RF Test Laboratory" },
+  engineer: { email: "tomas.lindqvist@wrenfield-lab.example", name: "Tomas Lindqvist", organization: "Wrenfield RF Test Laboratory" },
+  reviewer: { email: "priya.raman@wrenfield-lab.example", name: "Priya Raman", organization: "Wrenfield RF Test Laboratory" },
+  customer: { email: "anneli.vos@tarnby-radio.example", name: "Anneli Vos", organization: "Tarnby Radio Systems" },
+} as const;
+
+export type DemoRole = keyof typeof demoUsers;
+
+/**
+ * Signs in through next-auth's credentials callback with the page's own request context,
+ * so the session cookie lands in the browser context the test then drives.
+ */
+export async function signInViaApi(page: Page, email: string, password = demoPassword): Promise<void> {
+  const csrfResponse = await page.request.get("/api/auth/csrf");
+  expect(csrfResponse.ok(), "GET /api/auth/csrf").toBeTruthy();
+  const { csrfToken } = (await csrfResponse.json()) as { csrfToken: string };
+  const response = await page.request.post("/api/auth/callback/credentials", {
+    form: { csrfToken, email, password, json: "true" },
+  });
+  expect(response.status(), "credentials callback").toBeLessThan(400);
+  const me = await page.request.get("/api/me");
+  expect(me.status(), `signed in as ${email}`).toBe(200);
+}
+
+export async function signInAs(page: Page, role: DemoRole): Promise<void> {
+  await signInViaApi(page, demoUsers[role].email);
+}
+
+/** The main navigation's link texts, in order. */
+export function mainNavigationLinks(page: Page) {
+  return page.getByRole("navigation", { name: "Main" }).getByRole("link");
+}
+
+export async function expectRefused(page: Page, path: string): Promise<void> {
+  await page.goto(path);
+  await expect(page).toHaveURL(new RegExp(`${path.replace(/\//g, "\\/")}$`));
+  await expect(page.getByTestId("forbidden")).toBeVisible();
+  await expect(page.getByRole("heading", { level: 1 })).toContainText("Your role does not open");
+}

@@ -1,0 +1,76 @@
+import { expect, test } from "@playwright/test";
+import { demoUsers, expectRefused, mainNavigationLinks, signInAs } from "./helpers";
+
+test.describe("each role sees its own workspace", () => {
+  test("administrator: devices, people and catalog; manages people; no sheet drafts", async ({ page }) => {
+    await signInAs(page, "admin");
+    await page.goto("/admin/users");
+    await expect(mainNavigationLinks(page)).toHaveText(["Devices", "People", "Catalog"]);
+    await expect(page.getByTestId("session-name")).toHaveText(demoUsers.admin.name);
+    await expect(page.getByTestId("session-role")).toHaveText("Administrator");
+    await expect(page.getByTestId("session-organization")).toHaveText(demoUsers.admin.organization);
+
+    const people = page.getByTestId("people-table");
+    await expect(people.getByRole("row", { name: /Tomas Lindqvist/ })).toBeVisible();
+    await expect(people.getByLabel("Role of Tomas Lindqvist")).toHaveValue("engineer");
+    await expect(people).not.toContainText("anneli.vos@tarnby-radio.example");
+    await expect(page.getByTestId("invite-form")).toBeVisible();
+
+    await expectRefused(page, "/sheets");
+  });
+
+  test("engineer: devices, sheets and catalog; reads the device table; no people admin", async ({ page }) => {
+    await signInAs(page, "engineer");
+    await page.goto("/devices");
+    await expect(mainNavigationLinks(page)).toHaveText(["Devices", "Sheets", "Catalog"]);
+    await expect(page.getByTestId("session-role")).toHaveText("Engineer");
+
+    const table = page.getByTestId("devices-table");
+    const doubler = table.getByRole("row", { name: /WL-C2611-KDX/ });
+    await expect(doubler).toContainText("Frequency multiplier");
+    await expect(doubler).toContainText("0.5–1.5\u00a0GHz");
+    await expect(doubler).toContainText("+13\u00a0dBm");
+    await expect(table.getByRole("row", { name: /WL-C2614-PM13/ })).toContainText("10–3000\u00a0MHz");
+    // Another organization's parts never show.
+    await expect(table).not.toContainText("KDX-2G4");
+
+    await page.goto("/sheets");
+    await expect(page.getByTestId("empty-state")).toContainText("Sheets are not built yet");
+
+    await expectRefused(page, "/admin/users");
+  });
+
+  test("reviewer: devices, review queue and catalog; no sheet drafts", async ({ page }) => {
+    await signInAs(page, "reviewer");
+    await page.goto("/review");
+    await expect(mainNavigationLinks(page)).toHaveText(["Devices", "Review queue", "Catalog"]);
+    await expect(page.getByTestId("session-role")).toHaveText("Reviewer");
+    await expect(page.getByRole("heading", { level: 1 })).toHaveText("Review queue");
+    await expect(page.getByTestId("empty-state")).toContainText("Nothing to review");
+
+    await expectRefused(page, "/sheets");
+    await expectRefused(page, "/admin/users");
+  });
+
+  test("customer: catalog and change notices only; refused workspace pages", async ({ page }) => {
+    await signInAs(page, "customer");
+    await page.goto("/subscriptions");
+    await expect(mainNavigationLinks(page)).toHaveText(["Catalog", "Change notices"]);
+    await expect(page.getByTestId("session-organization")).toHaveText(demoUsers.customer.organization);
+    await expect(page.getByRole("heading", { level: 1 })).toHaveText("Change notices");
+
+    await expectRefused(page, "/admin/users");
+    await expectRefused(page, "/devices");
+  });
+});
+
+test("signed out: the catalog is open, the workspace sends you to sign in", async ({ page }) => {
+  await page.goto("/catalog");
+  await expect(mainNavigationLinks(page)).toHaveText(["Catalog"]);
+  await expect(page.getByTestId("catalog-empty")).toContainText("No sheet has been released yet");
+
+  await page.goto("/devices");
+  // The workspace layout and the page both guard; either may answer first, with or without `next`.
+  await expect(page).toHaveURL(/\/sign-in(\?next=%2Fdevices)?$/);
+  await expect(page.getByRole("heading", { level: 1 })).toHaveText("Sign in");
+});

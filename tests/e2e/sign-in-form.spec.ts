@@ -1,0 +1,30 @@
+import { expect, test } from "@playwright/test";
+import { demoPassword, demoUsers, mainNavigationLinks } from "./helpers";
+
+test("signing in through the form lands on the role's first page, and signing out ends the session", async ({ page }) => {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail address").fill(demoUsers.engineer.email);
+  await page.getByLabel("Password").fill(demoPassword);
+  await page.getByRole("button", { name: "Sign in" }).click();
+
+  await expect(page).toHaveURL(/\/devices$/);
+  await expect(page.getByTestId("session-name")).toHaveText(demoUsers.engineer.name);
+  await expect(mainNavigationLinks(page)).toHaveText(["Devices", "Sheets", "Catalog"]);
+
+  await page.getByRole("button", { name: "Sign out" }).click();
+  await expect(page.getByRole("banner").getByRole("link", { name: "Sign in" })).toBeVisible();
+  expect((await page.request.get("/api/me")).status()).toBe(401);
+});
+
+test("a wrong password is refused with a message, and the person stays signed out", async ({ page }) => {
+  // A fresh address, so this test never counts against a demo account's attempt limit.
+  const email = `nobody-${Date.now()}-${Math.random().toString(36).slice(2, 8)}@octavo-tests.example`;
+  await page.goto("/sign-in?next=%2Fdevices");
+  await page.getByLabel("E-mail address").fill(email);
+  await page.getByLabel("Password").fill("not-the-password");
+  await page.getByRole("button", { name: "Sign in" }).click();
+
+  await expect(page.getByTestId("sign-in-form").getByRole("alert")).toContainText("do not match an active account");
+  await expect(page).toHaveURL(/\/sign-in\?next=%2Fdevices$/);
+  expect((await page.request.get("/api/me")).status()).toBe(401);
+});
