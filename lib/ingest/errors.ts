@@ -15,7 +15,6 @@ export type IngestErrorCode =
   | "empty-cell"
   | "bad-number"
   | "non-finite"
-  | "bad-integer"
   | "unknown-unit"
   | "missing-unit"
   | "missing-column"

@@ -88,7 +88,6 @@ function partName(format: Format, part: number): string {
 
 interface State {
   fileName: string;
-  text: string;
   version: 1 | 2 | undefined;
   optionLine: number;
   frequencyScale: number;
@@ -327,7 +326,6 @@ export function parseTouchstone(fileName: string, content: FileContent, options:
       : decodeInput({ fileName, bytes: content, maxBytes: options.maxBytes });
   const s: State = {
     fileName,
-    text,
     version: undefined,
     optionLine: 0,
     frequencyScale: 1e9,
