@@ -7,7 +7,8 @@ test("signing in through the form lands on the role's first page, and signing ou
   await page.getByLabel("Password").fill(demoPassword);
   await page.getByRole("button", { name: "Sign in" }).click();
 
-  await expect(page).toHaveURL(/\/devices$/);
+  // Two hops: the form goes to /sign-in, which forwards a signed-in engineer to /devices.
+  await expect(page).toHaveURL(/\/devices$/, { timeout: 15_000 });
   await expect(page.getByTestId("session-name")).toHaveText(demoUsers.engineer.name);
   await expect(mainNavigationLinks(page)).toHaveText(["Devices", "Sheets", "Catalog"]);
 
