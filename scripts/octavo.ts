@@ -1,5 +1,4 @@
 import { readFileSync } from "node:fs";
-import path from "node:path";
 import { CLI_USAGE, deriveParameters, formatParameterTable, parseCliArgs } from "../lib/analysis";
 import { isIngestError, parseMeasurementFile } from "../lib/ingest";
 
@@ -24,10 +23,10 @@ function main(argv: string[]): number {
   }
   let parsed;
   try {
-    parsed = parseMeasurementFile({ fileName: path.basename(command.file), bytes, kind: command.kind });
+    parsed = parseMeasurementFile({ fileName: command.file, bytes, kind: command.kind });
   } catch (error) {
     if (isIngestError(error)) {
-      process.stderr.write(`${command.file}: ${error.message}\n`);
+      process.stderr.write(`${error.message}\n`);
       return 2;
     }
     throw error;
