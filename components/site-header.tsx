@@ -18,7 +18,7 @@ export async function SiteHeader() {
         </Link>
         {user ? (
           <div className="flex items-center gap-5" data-testid="session-identity">
-            <div className="text-right leading-tight">
+            <div className="text-left leading-tight sm:text-right">
               <p className="font-semibold" data-testid="session-name">
                 {user.name}
               </p>

@@ -25,7 +25,7 @@ export function DevicesView({ devices, organizationName }: { devices: DeviceSumm
           <p>Devices your engineers register appear here, one row per part number.</p>
         </EmptyState>
       ) : (
-        <div className="overflow-x-auto">
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Devices table, scrolls sideways on narrow screens">
           <table className="sheet-table" data-testid="devices-table">
             <caption>
               <span className="figure">{devices.length}</span> {devices.length === 1 ? "device" : "devices"}, by part number
