@@ -28,7 +28,7 @@ export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreation
         after: { type: DataTypes.JSON, allowNull: true },
         createdAt: DataTypes.DATE(3),
       },
-      { sequelize, tableName: "audit_events", updatedAt: false },
+      { sequelize, modelName: "AuditEvent", tableName: "audit_events", updatedAt: false },
     );
   }
 }

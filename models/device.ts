@@ -40,7 +40,7 @@ export class Device extends Model<InferAttributes<Device>, InferCreationAttribut
         updatedAt: DataTypes.DATE(3),
       },
       {
-        sequelize,
+        sequelize, modelName: "Device",
         tableName: "devices",
         indexes: [{ unique: true, fields: ["organization_id", "part_number"] }],
       },

@@ -1,6 +1,11 @@
 import type { Sequelize } from "sequelize";
 import { createSequelize } from "./connection";
 import { AuditEvent } from "./audit-event";
+import { BenchToken } from "./bench-token";
+import { ColumnMapping } from "./column-mapping";
+import { Instrument } from "./instrument";
+import { MeasurementSet, MeasurementSetInstrument } from "./measurement-set";
+import { StoredFile } from "./stored-file";
 import { Device } from "./device";
 import { Invitation } from "./invitation";
 import { Organization } from "./organization";
@@ -8,11 +13,28 @@ import { PasswordReset } from "./password-reset";
 import { SignInAttempt } from "./sign-in-attempt";
 import { User } from "./user";
 
-export { AuditEvent, Device, Invitation, Organization, PasswordReset, SignInAttempt, User };
+export {
+  AuditEvent,
+  BenchToken,
+  ColumnMapping,
+  Device,
+  Instrument,
+  Invitation,
+  MeasurementSet,
+  MeasurementSetInstrument,
+  Organization,
+  PasswordReset,
+  SignInAttempt,
+  StoredFile,
+  User,
+};
 export * from "./connection";
 
 function initModels(sequelize: Sequelize): Sequelize {
-  for (const model of [Organization, User, Invitation, PasswordReset, SignInAttempt, AuditEvent, Device]) {
+  for (const model of [
+    Organization, User, Invitation, PasswordReset, SignInAttempt, AuditEvent, Device,
+    StoredFile, Instrument, BenchToken, ColumnMapping, MeasurementSet, MeasurementSetInstrument,
+  ]) {
     model.initModel(sequelize);
   }
   Organization.hasMany(User, { foreignKey: "organizationId" });
@@ -22,20 +44,30 @@ function initModels(sequelize: Sequelize): Sequelize {
   Invitation.belongsTo(Organization, { foreignKey: "organizationId" });
   Invitation.belongsTo(User, { as: "invitedBy", foreignKey: "invitedById" });
   PasswordReset.belongsTo(User, { foreignKey: "userId" });
+  Device.hasMany(MeasurementSet, { foreignKey: "deviceId" });
+  MeasurementSet.belongsTo(Device, { foreignKey: "deviceId" });
+  MeasurementSet.belongsTo(StoredFile, { foreignKey: "storedFileId" });
+  MeasurementSet.belongsTo(User, { as: "uploadedBy", foreignKey: "uploadedById" });
+  MeasurementSet.belongsTo(User, { as: "reviewedBy", foreignKey: "reviewedById" });
+  MeasurementSet.belongsToMany(Instrument, { through: MeasurementSetInstrument, foreignKey: "measurementSetId", otherKey: "instrumentId" });
+  Instrument.belongsToMany(MeasurementSet, { through: MeasurementSetInstrument, foreignKey: "instrumentId", otherKey: "measurementSetId" });
   return sequelize;
 }
 
-// One connection pool per process, kept across hot reloads in development.
-const holder = globalThis as unknown as { __octavoSequelize?: Sequelize };
+// Next bundles this module separately into route handlers and pages, each with its own copy of
+// the model classes; every copy needs its own initialised Sequelize, so the instance lives here,
+// in the module, not on globalThis.
+let instance: Sequelize | undefined;
 
 export function getSequelize(): Sequelize {
-  holder.__octavoSequelize ??= initModels(createSequelize());
-  return holder.__octavoSequelize;
+  instance ??= initModels(createSequelize());
+  return instance;
 }
 
 export async function closeSequelize(): Promise<void> {
-  if (holder.__octavoSequelize) {
-    await holder.__octavoSequelize.close();
-    holder.__octavoSequelize = undefined;
+  if (instance) {
+    const closing = instance;
+    instance = undefined;
+    await closing.close();
   }
 }

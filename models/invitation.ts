@@ -30,7 +30,7 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },
-      { sequelize, tableName: "invitations" },
+      { sequelize, modelName: "Invitation", tableName: "invitations" },
     );
   }
 }

@@ -21,7 +21,7 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },
-      { sequelize, tableName: "organizations" },
+      { sequelize, modelName: "Organization", tableName: "organizations" },
     );
   }
 }

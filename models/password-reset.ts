@@ -22,7 +22,7 @@ export class PasswordReset extends Model<InferAttributes<PasswordReset>, InferCr
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },
-      { sequelize, tableName: "password_resets" },
+      { sequelize, modelName: "PasswordReset", tableName: "password_resets" },
     );
   }
 }

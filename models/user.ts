@@ -33,7 +33,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },
-      { sequelize, tableName: "users" },
+      { sequelize, modelName: "User", tableName: "users" },
     );
   }
 }

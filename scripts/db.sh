@@ -50,7 +50,7 @@ start() {
     setsid mariadbd --no-defaults "${userflag[@]}" --datadir="$DATADIR" --socket="$SOCK" \
       --port="$DB_PORT" --bind-address=127.0.0.1 --pid-file="$PIDFILE" --log-error="$LOGFILE" \
       --skip-name-resolve --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
-      --default-time-zone=+00:00 --max-connections=300 </dev/null >/dev/null 2>&1 &
+      --default-time-zone=+00:00 --max-connections=300 --max-allowed-packet=64M </dev/null >/dev/null 2>&1 &
     local i
     for i in $(seq 1 150); do
       ping_db && break

@@ -24,13 +24,18 @@ export class TestClient {
     }
   }
 
-  async request(path: string, init: { method?: string; json?: unknown; form?: Record<string, string>; origin?: string | null; headers?: Record<string, string> } = {}): Promise<Response> {
-    const method = init.method ?? (init.json !== undefined || init.form ? "POST" : "GET");
+  async request(
+    path: string,
+    init: { method?: string; json?: unknown; form?: Record<string, string>; multipart?: FormData; origin?: string | null; headers?: Record<string, string> } = {},
+  ): Promise<Response> {
+    const method = init.method ?? (init.json !== undefined || init.form || init.multipart ? "POST" : "GET");
     const headers: Record<string, string> = { "x-forwarded-for": this.address, ...init.headers };
     if (this.cookies.size) headers.cookie = this.cookieHeader();
     if (method !== "GET" && init.origin !== null) headers.origin = init.origin ?? new URL(baseUrl).origin;
-    let body: string | undefined;
-    if (init.json !== undefined) {
+    let body: string | FormData | undefined;
+    if (init.multipart) {
+      body = init.multipart;
+    } else if (init.json !== undefined) {
       headers["content-type"] = "application/json";
       body = JSON.stringify(init.json);
     } else if (init.form) {

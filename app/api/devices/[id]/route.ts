@@ -1,9 +1,13 @@
-import { AppError } from "@/lib/errors";
+import { deviceBodySchema } from "@/lib/schemas/measurements";
 import { route } from "@/lib/server/auth/guard";
 import { getDevice } from "@/lib/server/devices/get-device";
+import { saveDevice } from "@/lib/server/devices/save-device";
+import { readIdParam } from "@/lib/server/route-params";
 
-export const GET = route({ access: "device:read" }, async ({ user, params }) => {
-  const deviceId = Number(params.id);
-  if (!Number.isInteger(deviceId) || deviceId <= 0) throw new AppError("not-found", "No such device in your organization.");
-  return { device: await getDevice({ organizationId: user.organizationId, deviceId }) };
-});
+export const GET = route({ access: "device:read" }, async ({ user, params }) => ({
+  device: await getDevice({ organizationId: user.organizationId, deviceId: readIdParam(params.id, "device") }),
+}));
+
+export const PATCH = route({ access: "device:write", body: deviceBodySchema }, async ({ user, params, body }) => ({
+  device: await saveDevice({ actor: user, input: body, deviceId: readIdParam(params.id, "device") }),
+}));

@@ -1,0 +1,16 @@
+import { route } from "@/lib/server/auth/guard";
+import { ingestMeasurement } from "@/lib/server/measurements/ingest-measurement";
+import { listDeviceMeasurementSets } from "@/lib/server/measurements/list-device-measurement-sets";
+import { readUploadForm } from "@/lib/server/measurements/read-upload-form";
+import { readIdParam } from "@/lib/server/route-params";
+
+export const GET = route({ access: "device:read" }, async ({ user, params }) => ({
+  measurementSets: await listDeviceMeasurementSets({ organizationId: user.organizationId, deviceId: readIdParam(params.id, "device") }),
+}));
+
+export const POST = route({ access: "measurement:upload" }, async ({ user, params, request }) => {
+  const deviceId = readIdParam(params.id, "device");
+  const { file, fields } = await readUploadForm(request);
+  const set = await ingestMeasurement({ organizationId: user.organizationId, deviceId, file, fields, actor: { kind: "user", userId: user.id } });
+  return Response.json({ measurementSet: set }, { status: 201 });
+});

@@ -1,0 +1,93 @@
+import { z } from "zod";
+
+/** Shared by the upload form, the browser upload route and the bench API. */
+const optionalNumber = (min: number, max: number, what: string) =>
+  z.preprocess(
+    (v) => (v === "" || v === null || v === undefined ? undefined : typeof v === "string" ? Number(v) : v),
+    z.number({ error: `${what} must be a number` }).min(min, `${what} must be at least ${min}`).max(max, `${what} must be at most ${max}`).optional(),
+  );
+
+export const measurementConditionsSchema = z.object({
+  serial: z.string().trim().max(64).optional(),
+  lot: z.string().trim().max(64).optional(),
+  temperatureC: optionalNumber(-273.15, 500, "temperature (°C)"),
+  inputFrequencyHz: optionalNumber(1, 3e12, "input frequency (Hz)"),
+  driveLevelDbm: optionalNumber(-200, 60, "drive level (dBm)"),
+  splitterExcessLossDb: optionalNumber(0, 30, "splitter excess loss (dB)"),
+  cableLossDb: optionalNumber(0, 30, "cable loss (dB)"),
+  measuredOn: z
+    .string()
+    .regex(/^\d{4}-\d{2}-\d{2}$/, "measured on must be a date as YYYY-MM-DD")
+    .optional()
+    .or(z.literal("").transform(() => undefined)),
+  notes: z.string().trim().max(2000).optional(),
+});
+export type MeasurementConditionsInput = z.infer<typeof measurementConditionsSchema>;
+
+export const uploadFieldsSchema = measurementConditionsSchema.extend({
+  kind: z.enum(["drive-sweep", "frequency-sweep", "two-tone", "phase-noise", "touchstone"]).optional().or(z.literal("").transform(() => undefined)),
+  instrumentIds: z.array(z.coerce.number().int().positive()).max(20).default([]),
+  supersedesId: optionalNumber(1, 2 ** 31, "supersedes"),
+  mappingId: optionalNumber(1, 2 ** 31, "column mapping"),
+});
+export type UploadFields = z.infer<typeof uploadFieldsSchema>;
+
+export const reviewMeasurementBodySchema = z.discriminatedUnion("decision", [
+  z.object({ decision: z.literal("approve") }),
+  z.object({ decision: z.literal("reject"), reason: z.string().trim().min(5, "Say why the set is rejected (at least 5 characters).").max(2000) }),
+]);
+export type ReviewMeasurementBody = z.infer<typeof reviewMeasurementBodySchema>;
+
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date as YYYY-MM-DD.");
+
+export const instrumentBodySchema = z
+  .object({
+    kind: z.string().trim().min(2).max(64),
+    model: z.string().trim().min(1).max(160),
+    serial: z.string().trim().min(1).max(64),
+    calibratedOn: isoDate,
+    calibrationDueOn: isoDate,
+    uncertainty: z
+      .array(
+        z.object({
+          quantity: z.string().trim().min(1).max(64),
+          value: z.number().positive(),
+          unit: z.string().trim().min(1).max(16),
+          coverageFactor: z.number().positive().max(5).default(2),
+        }),
+      )
+      .max(20)
+      .default([]),
+  })
+  .refine((v) => v.calibrationDueOn > v.calibratedOn, { message: "The due date must come after the calibration date.", path: ["calibrationDueOn"] });
+export type InstrumentBody = z.infer<typeof instrumentBodySchema>;
+
+export const benchTokenBodySchema = z.object({ name: z.string().trim().min(2, "Name the bench or script.").max(120) });
+
+export const deviceBodySchema = z.object({
+  partNumber: z.string().trim().min(1).max(64).regex(/^[A-Za-z0-9][A-Za-z0-9._\-/]*$/, "Use letters, digits, . _ - /"),
+  deviceClass: z.enum(["frequency-multiplier", "double-balanced-mixer", "quadrature-hybrid"]),
+  title: z.string().trim().min(3).max(200),
+  description: z.string().trim().max(2000).default(""),
+  keyConditions: z
+    .object({
+      inputFrequencyHz: z.object({ min: z.number().positive(), max: z.number().positive() }).optional(),
+      outputFrequencyHz: z.object({ min: z.number().positive(), max: z.number().positive() }).optional(),
+      driveLevelDbm: z.number().min(-50).max(40).optional(),
+      multiplicationFactor: z.number().int().min(2).max(16).optional(),
+    })
+    .default({}),
+});
+export type DeviceBody = z.infer<typeof deviceBodySchema>;
+
+export const columnMappingBodySchema = z.object({
+  name: z.string().trim().min(2).max(120),
+  kind: z.enum(["drive-sweep", "frequency-sweep", "two-tone", "phase-noise"]),
+  headers: z.array(z.string().max(200)).min(1).max(64),
+  mapping: z
+    .array(z.object({ column: z.string().max(200), target: z.string().regex(/^[a-z0-9_]+$/).max(40), unit: z.string().max(16) }))
+    .min(1)
+    .max(64),
+  metadata: z.record(z.string().regex(/^[a-z0-9_]+$/).max(40), z.string().max(200)).default({}),
+});
+export type ColumnMappingBody = z.infer<typeof columnMappingBodySchema>;

@@ -1,0 +1,22 @@
+import "server-only";
+import { AppError } from "@/lib/errors";
+import { BenchToken, getSequelize } from "@/models";
+import { recordAuditEvent } from "../audit/record-audit-event";
+import type { SessionUser } from "../auth/session-user";
+import { toBenchTokenSummary, type BenchTokenSummary } from "./bench-token-summary";
+
+export async function revokeBenchToken(opts: { actor: SessionUser; tokenId: number }): Promise<BenchTokenSummary> {
+  return getSequelize().transaction(async (transaction) => {
+    const row = await BenchToken.findOne({ where: { id: opts.tokenId, organizationId: opts.actor.organizationId }, lock: transaction.LOCK.UPDATE, transaction });
+    if (!row) throw new AppError("not-found", "No such bench token in your organization.");
+    if (!row.revokedAt) {
+      row.revokedAt = new Date();
+      await row.save({ transaction });
+      await recordAuditEvent(
+        { organizationId: row.organizationId, actorUserId: opts.actor.id, action: "bench-token.revoke", subjectType: "bench-token", subjectId: row.id, before: { revoked: false }, after: { revoked: true } },
+        transaction,
+      );
+    }
+    return toBenchTokenSummary(row);
+  });
+}

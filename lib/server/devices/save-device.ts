@@ -1,0 +1,38 @@
+import "server-only";
+import { UniqueConstraintError } from "sequelize";
+import { AppError } from "@/lib/errors";
+import type { DeviceBody } from "@/lib/schemas/measurements";
+import { Device, getSequelize } from "@/models";
+import { recordAuditEvent } from "../audit/record-audit-event";
+import type { SessionUser } from "../auth/session-user";
+import { toDeviceSummary, type DeviceSummary } from "./device-summary";
+
+/** Creates a device, or edits one of the engineer's organization when `deviceId` is given. */
+export async function saveDevice(opts: { actor: SessionUser; input: DeviceBody; deviceId?: number }): Promise<DeviceSummary> {
+  const { actor, input, deviceId } = opts;
+  try {
+    return await getSequelize().transaction(async (transaction) => {
+      let row: Device | null;
+      let before: unknown = null;
+      if (deviceId) {
+        row = await Device.findOne({ where: { id: deviceId, organizationId: actor.organizationId }, lock: transaction.LOCK.UPDATE, transaction });
+        if (!row) throw new AppError("not-found", "No such device in your organization.");
+        before = toDeviceSummary(row);
+        await row.update(input, { transaction });
+      } else {
+        row = await Device.create({ ...input, organizationId: actor.organizationId, createdById: actor.id }, { transaction });
+      }
+      const after = toDeviceSummary(row);
+      await recordAuditEvent(
+        { organizationId: actor.organizationId, actorUserId: actor.id, action: deviceId ? "device.update" : "device.create", subjectType: "device", subjectId: row.id, before, after },
+        transaction,
+      );
+      return after;
+    });
+  } catch (error) {
+    if (error instanceof UniqueConstraintError) {
+      throw new AppError("conflict", `Part number ${input.partNumber} is already used in your organization.`, { field: "partNumber" });
+    }
+    throw error;
+  }
+}

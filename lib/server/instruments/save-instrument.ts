@@ -1,0 +1,36 @@
+import "server-only";
+import { UniqueConstraintError } from "sequelize";
+import { AppError } from "@/lib/errors";
+import type { InstrumentBody } from "@/lib/schemas/measurements";
+import { Instrument, getSequelize } from "@/models";
+import { recordAuditEvent } from "../audit/record-audit-event";
+import type { SessionUser } from "../auth/session-user";
+import { toInstrumentSummary, type InstrumentSummary } from "./instrument-summary";
+
+/** Creates an instrument, or updates one of the admin's organization when `instrumentId` is given. */
+export async function saveInstrument(opts: { actor: SessionUser; input: InstrumentBody; instrumentId?: number }): Promise<InstrumentSummary> {
+  const { actor, input, instrumentId } = opts;
+  try {
+    return await getSequelize().transaction(async (transaction) => {
+      let row: Instrument | null = null;
+      let before: unknown = null;
+      if (instrumentId) {
+        row = await Instrument.findOne({ where: { id: instrumentId, organizationId: actor.organizationId }, lock: transaction.LOCK.UPDATE, transaction });
+        if (!row) throw new AppError("not-found", "No such instrument in your organization.");
+        before = toInstrumentSummary(row);
+        await row.update(input, { transaction });
+      } else {
+        row = await Instrument.create({ ...input, organizationId: actor.organizationId }, { transaction });
+      }
+      const after = toInstrumentSummary(row);
+      await recordAuditEvent(
+        { organizationId: actor.organizationId, actorUserId: actor.id, action: instrumentId ? "instrument.update" : "instrument.create", subjectType: "instrument", subjectId: row.id, before, after },
+        transaction,
+      );
+      return after;
+    });
+  } catch (error) {
+    if (error instanceof UniqueConstraintError) throw new AppError("conflict", `An instrument with serial ${input.serial} is already listed.`, { field: "serial" });
+    throw error;
+  }
+}

@@ -1,0 +1,248 @@
+import "server-only";
+import { createHash } from "node:crypto";
+import { UniqueConstraintError } from "sequelize";
+import { deriveParameters } from "@/lib/analysis";
+import { AppError } from "@/lib/errors";
+import { isIngestError, parseMeasurementFile, type ParsedMeasurement } from "@/lib/ingest";
+import { mappingTargets, parseMappedFile, readForeignTable, type MappableKind } from "@/lib/ingest/column-mapping";
+import type { UploadFields } from "@/lib/schemas/measurements";
+import { ColumnMapping, Device, Instrument, MeasurementSet, MeasurementSetInstrument, StoredFile, getSequelize } from "@/models";
+import { headerSignature } from "../column-mappings/save-column-mapping";
+import type { MeasurementConditions } from "@/models/measurement-set";
+import { recordAuditEvent } from "../audit/record-audit-event";
+import { loadMeasurementSets } from "./load-measurement-sets";
+import type { MeasurementSetSummary } from "./measurement-set-summary";
+import { maxUploadBytes, type UploadedFile } from "./read-upload-form";
+import { toPlainJson } from "./to-plain-json";
+
+export type UploadActor = { kind: "user"; userId: number } | { kind: "bench-token"; tokenId: number };
+
+type IngestInput = {
+  organizationId: number;
+  deviceId: number;
+  file: UploadedFile;
+  fields: UploadFields;
+  actor: UploadActor;
+};
+
+const FOREIGN_HEADER_CODES = new Set(["unknown-kind", "missing-column", "missing-unit", "unknown-unit", "duplicate-column", "missing-header"]);
+
+function rejectIngest(error: unknown, extra: Record<string, unknown> = {}): never {
+  if (isIngestError(error)) {
+    throw new AppError(error.code === "too-large" ? "payload-too-large" : "invalid", error.message, { ingest: error.toJSON(), ...extra });
+  }
+  throw error;
+}
+
+/** `# key: value` lines a mapped file may lack, from what the engineer stated at upload. */
+function metadataFromFields(kind: MappableKind, fields: UploadFields): Record<string, string> {
+  const m: Record<string, string> = {};
+  if (fields.serial) m.serial = fields.serial;
+  if (fields.lot) m.lot = fields.lot;
+  if (fields.temperatureC !== undefined) m.temperature = `${fields.temperatureC} C`;
+  if (fields.inputFrequencyHz !== undefined) m[kind === "phase-noise" ? "carrier_frequency" : "input_frequency"] = `${fields.inputFrequencyHz} Hz`;
+  if (fields.splitterExcessLossDb !== undefined) m.splitter_excess_loss = `${fields.splitterExcessLossDb} dB`;
+  if (fields.cableLossDb !== undefined) m.cable_loss = `${fields.cableLossDb} dB`;
+  if (fields.driveLevelDbm !== undefined && (kind === "frequency-sweep" || kind === "two-tone")) m.lo_power = `${fields.driveLevelDbm} dBm`;
+  return m;
+}
+
+async function parseWithMapping(opts: { organizationId: number; file: UploadedFile; fields: UploadFields; mapping: ColumnMapping }): Promise<ParsedMeasurement> {
+  const { file, fields, mapping } = opts;
+  const kind = mapping.kind as MappableKind;
+  try {
+    return parseMappedFile({
+      fileName: file.name,
+      bytes: file.bytes,
+      kind,
+      mapping: mapping.mapping.entries,
+      metadata: { ...mapping.mapping.metadata, ...metadataFromFields(kind, fields) },
+      maxBytes: maxUploadBytes(),
+    });
+  } catch (error) {
+    rejectIngest(error, { mappingName: mapping.name });
+  }
+}
+
+/**
+ * The engine's parse, or a saved column mapping for a foreign CSV (chosen, or found by its
+ * header row). A foreign file without a mapping gets a 422 carrying its headers and a preview,
+ * so the upload form can open the mapping step. Errors name file, line, column and field.
+ */
+export async function parseUpload(opts: { organizationId: number; file: UploadedFile; fields: UploadFields }): Promise<ParsedMeasurement> {
+  const { organizationId, file, fields } = opts;
+  if (fields.mappingId) {
+    const mapping = await ColumnMapping.findOne({ where: { id: fields.mappingId, organizationId } });
+    if (!mapping) throw new AppError("invalid", "No such column mapping in your organization.", { field: "mappingId" });
+    return parseWithMapping({ organizationId, file, fields, mapping });
+  }
+  try {
+    return parseMeasurementFile({ fileName: file.name, bytes: file.bytes, kind: fields.kind, maxBytes: maxUploadBytes() });
+  } catch (error) {
+    if (!isIngestError(error) || !FOREIGN_HEADER_CODES.has(error.code) || /\.(s\d+p|ts)$/i.test(file.name)) rejectIngest(error);
+    let table: ReturnType<typeof readForeignTable>;
+    try {
+      table = readForeignTable(file.name, file.bytes);
+    } catch {
+      rejectIngest(error);
+    }
+    if (error.line !== undefined && error.line !== table.headerLine) rejectIngest(error);
+    const saved = await ColumnMapping.findOne({ where: { organizationId, headerSignature: headerSignature(table.headers) } });
+    if (saved) return parseWithMapping({ organizationId, file, fields, mapping: saved });
+    rejectIngest(error, { mapping: { headers: table.headers, preview: table.preview, headerLine: table.headerLine, targets: mappingTargets } });
+  }
+}
+
+/** Conditions from the file's own metadata, filled in (never overridden) by what the engineer stated. */
+function mergeConditions(parsed: ParsedMeasurement, fields: UploadFields, warnings: string[]): MeasurementConditions {
+  const fromFile: Partial<MeasurementConditions> = {};
+  if (parsed.kind !== "touchstone") {
+    const d = parsed.data;
+    if (d.serial) fromFile.serial = d.serial;
+    if (d.lot) fromFile.lot = d.lot;
+    if (d.temperatureC !== undefined) fromFile.temperatureC = d.temperatureC;
+    if (parsed.kind === "drive-sweep") {
+      fromFile.inputFrequencyHz = parsed.data.inputFrequencyHz;
+      fromFile.splitterExcessLossDb = parsed.data.splitterExcessLossDb;
+      fromFile.cableLossDb = parsed.data.cableLossDb;
+    }
+    if ((parsed.kind === "frequency-sweep" || parsed.kind === "two-tone") && parsed.data.loPowerDbm !== undefined) {
+      fromFile.driveLevelDbm = parsed.data.loPowerDbm;
+    }
+  }
+  const stated: Partial<MeasurementConditions> = {
+    serial: fields.serial || undefined,
+    lot: fields.lot || undefined,
+    temperatureC: fields.temperatureC,
+    inputFrequencyHz: fields.inputFrequencyHz,
+    driveLevelDbm: fields.driveLevelDbm,
+    splitterExcessLossDb: fields.splitterExcessLossDb,
+    cableLossDb: fields.cableLossDb,
+    notes: fields.notes || undefined,
+  };
+  const merged: Record<string, unknown> = {};
+  for (const key of Object.keys(stated) as (keyof MeasurementConditions)[]) {
+    const f = fromFile[key];
+    const s = stated[key];
+    if (f !== undefined && s !== undefined && String(f) !== String(s)) {
+      warnings.push(`${key}: the file says ${f}, the form said ${s}; the file's value is kept`);
+    }
+    merged[key] = f ?? s;
+  }
+  for (const key of Object.keys(fromFile) as (keyof MeasurementConditions)[]) merged[key] ??= fromFile[key];
+  if (!merged.serial) {
+    throw new AppError("invalid", 'State the unit serial: the file has no "# serial:" line and the form gave none.', { field: "serial" });
+  }
+  return Object.fromEntries(Object.entries(merged).filter(([, v]) => v !== undefined)) as MeasurementConditions;
+}
+
+/**
+ * Parse → derive → store, in one transaction: the raw bytes with their SHA-256, the parsed
+ * data, the derived parameters and the audit event. A bad file leaves nothing behind.
+ * Shared by the browser upload and the bench API.
+ */
+export async function ingestMeasurement(input: IngestInput): Promise<MeasurementSetSummary> {
+  const { organizationId, deviceId, file, fields, actor } = input;
+  const sequelize = getSequelize();
+  const device = await Device.findOne({ where: { id: deviceId, organizationId } });
+  if (!device) throw new AppError("not-found", "No such device in your organization.");
+
+  const parsed = await parseUpload({ organizationId, file, fields });
+  const warnings = [...parsed.warnings];
+  const conditions = mergeConditions(parsed, fields, warnings);
+  const derived = deriveParameters(parsed);
+  warnings.push(...derived.warnings);
+  const sha256 = createHash("sha256").update(file.bytes).digest("hex");
+  const measuredOn = fields.measuredOn ?? (parsed.kind !== "touchstone" ? isoDateOrNull(parsed.data.metadata?.date) : null) ?? new Date().toISOString().slice(0, 10);
+
+  try {
+    const id = await sequelize.transaction(async (transaction) => {
+      // Lock the device row so two uploads of the same bytes cannot both pass the duplicate check.
+      await Device.findOne({ where: { id: deviceId, organizationId }, lock: transaction.LOCK.UPDATE, transaction });
+      const earlier = await MeasurementSet.findOne({ where: { deviceId, sha256 }, include: [{ model: StoredFile, attributes: ["originalName"] }], transaction });
+      if (earlier) {
+        const name = (earlier as MeasurementSet & { StoredFile?: StoredFile }).StoredFile?.originalName ?? "a file";
+        throw new AppError("conflict", `This file is identical (same SHA-256) to measurement set #${earlier.id} (${name}), uploaded ${earlier.createdAt.toISOString().slice(0, 10)}.`, {
+          existingSetId: earlier.id,
+        });
+      }
+      const instruments = fields.instrumentIds.length
+        ? await Instrument.findAll({ where: { id: fields.instrumentIds, organizationId }, transaction })
+        : [];
+      if (instruments.length !== new Set(fields.instrumentIds).size) {
+        throw new AppError("invalid", "One of the chosen instruments is not in your organization's list.", { field: "instrumentIds" });
+      }
+      const lapsed = new Map<number, boolean>();
+      for (const instrument of instruments) {
+        const isLapsed = measuredOn > instrument.calibrationDueOn || measuredOn < instrument.calibratedOn;
+        lapsed.set(instrument.id, isLapsed);
+        if (isLapsed) {
+          warnings.push(`Calibration of ${instrument.kind} ${instrument.model} (serial ${instrument.serial}) was not valid on ${measuredOn}: calibrated ${instrument.calibratedOn}, due ${instrument.calibrationDueOn}.`);
+        }
+      }
+      let superseded: MeasurementSet | null = null;
+      if (fields.supersedesId) {
+        superseded = await MeasurementSet.findOne({ where: { id: fields.supersedesId, deviceId, organizationId }, lock: transaction.LOCK.UPDATE, transaction });
+        if (!superseded) throw new AppError("invalid", `Measurement set #${fields.supersedesId} is not on this device.`, { field: "supersedesId" });
+        if (superseded.supersededById) throw new AppError("conflict", `Measurement set #${superseded.id} is already superseded by #${superseded.supersededById}.`);
+      }
+      const stored = await StoredFile.create(
+        { organizationId, sha256, sizeBytes: file.bytes.byteLength, originalName: file.name, contentType: file.contentType, bytes: Buffer.from(file.bytes) },
+        { transaction },
+      );
+      const set = await MeasurementSet.create(
+        {
+          organizationId,
+          deviceId,
+          storedFileId: stored.id,
+          sha256,
+          kind: parsed.kind,
+          state: "submitted",
+          supersedesId: superseded?.id ?? null,
+          conditions,
+          parsed: toPlainJson(parsed.data),
+          parameters: derived.parameters,
+          curves: toPlainJson(derived.curves),
+          warnings,
+          measuredOn,
+          source: actor.kind === "user" ? "browser" : "bench-api",
+          uploadedById: actor.kind === "user" ? actor.userId : null,
+          benchTokenId: actor.kind === "bench-token" ? actor.tokenId : null,
+        },
+        { transaction },
+      );
+      if (instruments.length) {
+        await MeasurementSetInstrument.bulkCreate(
+          instruments.map((i) => ({ measurementSetId: set.id, instrumentId: i.id, calibrationLapsed: lapsed.get(i.id)! })),
+          { transaction },
+        );
+      }
+      if (superseded) {
+        superseded.supersededById = set.id;
+        await superseded.save({ transaction });
+      }
+      await recordAuditEvent(
+        {
+          organizationId,
+          actorUserId: actor.kind === "user" ? actor.userId : null,
+          action: "measurement-set.upload",
+          subjectType: "measurement-set",
+          subjectId: set.id,
+          after: { deviceId, kind: parsed.kind, file: file.name, sha256, state: "submitted", supersedesId: superseded?.id ?? null, via: actor.kind === "user" ? "browser" : `bench-token:${actor.tokenId}` },
+        },
+        transaction,
+      );
+      return set.id;
+    });
+    const [summary] = await loadMeasurementSets({ id, organizationId });
+    return summary;
+  } catch (error) {
+    if (error instanceof UniqueConstraintError) throw new AppError("conflict", "This file is identical (same SHA-256) to a set already on this device.");
+    throw error;
+  }
+}
+
+function isoDateOrNull(value: string | undefined): string | null {
+  return value && /^\d{4}-\d{2}-\d{2}$/.test(value.trim()) ? value.trim() : null;
+}
+

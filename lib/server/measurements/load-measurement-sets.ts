@@ -1,0 +1,20 @@
+import "server-only";
+import type { WhereOptions } from "sequelize";
+import { Instrument, MeasurementSet, StoredFile, User, getSequelize } from "@/models";
+import { toMeasurementSetSummary, type MeasurementSetSummary } from "./measurement-set-summary";
+
+/** The one query behind every list and detail of measurement sets; the caller's `where` carries the organization. */
+export async function loadMeasurementSets(where: WhereOptions<MeasurementSet>): Promise<MeasurementSetSummary[]> {
+  getSequelize();
+  const rows = await MeasurementSet.findAll({
+    where,
+    include: [
+      { model: StoredFile, attributes: ["originalName", "sizeBytes"] },
+      { model: User, as: "uploadedBy", attributes: ["name"] },
+      { model: User, as: "reviewedBy", attributes: ["name"] },
+      { model: Instrument, attributes: ["id", "kind", "model", "serial", "calibrationDueOn"], through: { attributes: ["calibrationLapsed"] } },
+    ],
+    order: [["createdAt", "DESC"], ["id", "DESC"]],
+  });
+  return rows.map(toMeasurementSetSummary);
+}

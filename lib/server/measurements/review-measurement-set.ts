@@ -1,0 +1,46 @@
+import "server-only";
+import { AppError } from "@/lib/errors";
+import type { ReviewMeasurementBody } from "@/lib/schemas/measurements";
+import { MeasurementSet, getSequelize } from "@/models";
+import { recordAuditEvent } from "../audit/record-audit-event";
+import type { SessionUser } from "../auth/session-user";
+import { loadMeasurementSets } from "./load-measurement-sets";
+import type { MeasurementSetSummary } from "./measurement-set-summary";
+
+/**
+ * Approves or rejects a submitted set. Four eyes: whoever uploaded it cannot decide on it.
+ * Organization, state and uploader are checked on the locked row inside the transaction.
+ */
+export async function reviewMeasurementSet(opts: { reviewer: SessionUser; setId: number; body: ReviewMeasurementBody }): Promise<MeasurementSetSummary> {
+  const { reviewer, setId, body } = opts;
+  await getSequelize().transaction(async (transaction) => {
+    const set = await MeasurementSet.findOne({
+      where: { id: setId, organizationId: reviewer.organizationId },
+      lock: transaction.LOCK.UPDATE,
+      transaction,
+    });
+    if (!set) throw new AppError("not-found", "No such measurement set in your organization.");
+    if (set.uploadedById === reviewer.id) throw new AppError("forbidden", "You uploaded this set; another reviewer must decide on it.");
+    if (set.state !== "submitted") throw new AppError("conflict", `Measurement set #${set.id} is already ${set.state}.`);
+    const before = { state: set.state };
+    set.state = body.decision === "approve" ? "approved" : "rejected";
+    set.reviewedById = reviewer.id;
+    set.reviewedAt = new Date();
+    set.rejectionReason = body.decision === "reject" ? body.reason : null;
+    await set.save({ transaction });
+    await recordAuditEvent(
+      {
+        organizationId: reviewer.organizationId,
+        actorUserId: reviewer.id,
+        action: `measurement-set.${body.decision}`,
+        subjectType: "measurement-set",
+        subjectId: set.id,
+        before,
+        after: { state: set.state, reason: set.rejectionReason },
+      },
+      transaction,
+    );
+  });
+  const [summary] = await loadMeasurementSets({ id: setId, organizationId: reviewer.organizationId });
+  return summary;
+}
