@@ -1,0 +1,509 @@
+import { findSheetTemplate } from "../../templates";
+import type { LimitBasis, SheetTemplate, SpecRowTemplate } from "../../templates/types";
+import { buildChartSpec, type ChartSource } from "./charts";
+import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
+import { EN_DASH, formatFrequency, formatFrequencyRange, formatTemperature, formatTrimmed, formatValue, pickFrequencyUnit } from "./format";
+import { renderProse } from "./render-prose";
+import { computeGroupStatistics, type UnitValue } from "./statistics";
+import type {
+  ApprovedSetInput,
+  RevisionState,
+  SheetInput,
+  SheetModel,
+  SpecLimitInput,
+  SpecTableRow,
+  StatisticsGroup,
+} from "./types";
+
+export const PRELIMINARY_BANNER = "PRELIMINARY — NOT RELEASED";
+
+const STATE_LABELS: Record<RevisionState, string> = {
+  draft: "Draft",
+  "in-review": "In review",
+  "changes-requested": "Changes requested",
+  approved: "Approved, not released",
+  released: "Released",
+};
+
+const BASIS_LEGEND: { basis: LimitBasis; mark: string; text: string }[] = [
+  { basis: "test", mark: "T", text: "Tested on every unit before shipment." },
+  { basis: "characterization", mark: "C", text: "Set from the characterization data in the statistics annex; not tested on every unit." },
+  { basis: "design", mark: "D", text: "Guaranteed by design; not tested on every unit." },
+];
+
+const MEASURED_MEAN_FOOTNOTE =
+  "No typical value is stated: the figure is the mean of the units measured (n in the statistics annex).";
+
+export interface BuildSheetModelOptions {
+  /** Use this template instead of the registry's for the device class. */
+  template?: SheetTemplate;
+}
+
+/**
+ * Everything a characterization sheet shows, computed once from the device
+ * data. Deterministic: the same input in any array order gives the same model
+ * (serializeSheetModel makes it byte-identical JSON).
+ */
+export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptions = {}): SheetModel {
+  const template = options.template ?? findSheetTemplate(input.device.deviceClass);
+  if (!template) throw new RangeError(`No sheet template for device class "${input.device.deviceClass}"`);
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(input.revision.date)) {
+    throw new RangeError(`Revision date must be an ISO date (YYYY-MM-DD), got "${input.revision.date}"`);
+  }
+  const issues: SheetModel["issues"] = [];
+  const kinds = new Set<string>(template.measurementKinds);
+  const allSets = [...input.approvedSets].sort(compareSets);
+  const sets = allSets.filter((set) => kinds.has(set.kind));
+  for (const set of allSets) {
+    if (!kinds.has(set.kind)) {
+      issues.push({
+        code: "set-kind-not-used",
+        message: `Measurement set ${String(set.id)} (${set.kind}, ${set.serial}) is not used: a ${template.label.toLowerCase()} sheet takes ${template.measurementKinds.join(", ")}.`,
+      });
+    }
+  }
+
+  const { limits, duplicateIssues } = indexLimits(input.limits);
+  issues.push(...duplicateIssues);
+  const usedLimits = new Set<string>();
+  const uncertainty = input.settings.measurementUncertainty ?? {};
+  const settings = input.settings;
+
+  const groups: StatisticsGroup[] = [];
+  const rows: SpecTableRow[] = [];
+  const footnotes: { mark: string; text: string }[] = [];
+  const footnoteMark = (text: string): string => {
+    const existing = footnotes.find((f) => f.text === text);
+    if (existing) return existing.mark;
+    const mark = String(footnotes.length + 1);
+    footnotes.push({ mark, text });
+    return mark;
+  };
+  const decisionRules = new Set<string>();
+
+  for (const row of template.specifications.rows) {
+    const collected = collectRowValues(row, sets);
+    for (const [key, limit] of limits) {
+      if (limit.parameter !== row.parameter || usedLimits.has(key)) continue;
+      if (!collected.has(limit.conditionsKey) && limitFitsRow(row, limit)) collected.set(limit.conditionsKey, []);
+    }
+    const orderedKeys = [...collected.keys()].sort((a, b) => compareConditions(parseConditionsKey(a), parseConditionsKey(b), row.groupBy));
+    for (const conditionsKey of orderedKeys) {
+      const limitKey = `${row.parameter}|${conditionsKey}`;
+      const limit = limits.get(limitKey);
+      if (limit) usedLimits.add(limitKey);
+      const conditions = parseConditionsKey(conditionsKey);
+      const conditionCells = template.specifications.conditionColumns.map((column) => formatConditionCell(column, conditions));
+      const conditionsText = template.specifications.conditionColumns
+        .map((column, i) => (conditionCells[i] ? `${column.label} ${conditionCells[i]}` : ""))
+        .filter(Boolean)
+        .join(", ");
+      const values = collected.get(conditionsKey) ?? [];
+      const stats = computeGroupStatistics({
+        label: row.label,
+        unit: row.unit,
+        decimals: row.decimals,
+        values,
+        limit,
+        expandedUncertainty: uncertainty[row.parameter],
+        cpkThreshold: settings.cpkThreshold,
+        coverage: settings.toleranceCoverage,
+        confidence: settings.toleranceConfidence,
+      });
+      if (stats.ruleStatement) decisionRules.add(stats.ruleStatement);
+      const groupId = `${row.id}:${conditionsKey}`;
+      const supported = stats.flags.length === 0;
+      const basis = limit?.basis ?? row.defaultBasis;
+      groups.push({
+        groupId,
+        rowId: row.id,
+        parameter: row.parameter,
+        conditionsKey,
+        label: row.label,
+        symbol: row.symbol,
+        unit: row.unit,
+        conditionsText,
+        n: stats.n,
+        lots: stats.lots,
+        mean: stats.mean,
+        standardDeviation: stats.standardDeviation,
+        median: stats.median,
+        min: stats.min,
+        max: stats.max,
+        toleranceInterval: stats.toleranceInterval,
+        limits: limit
+          ? {
+              min: formatValue(limit.min, row.decimals),
+              typ: formatValue(limit.typ, row.decimals),
+              max: formatValue(limit.max, row.decimals),
+              basis,
+            }
+          : null,
+        cpk: stats.cpk,
+        expandedUncertainty: stats.expandedUncertainty,
+        decisionRule: stats.decisionRule,
+        acceptance: stats.acceptance,
+        passCount: stats.passCount,
+        failCount: stats.failCount,
+        units: stats.units,
+        flags: stats.flags,
+        supported,
+      });
+
+      const typIsMeasuredMean = limit?.typ === undefined && stats.meanValue !== null;
+      const marks: string[] = [];
+      if (limit?.footnote) marks.push(footnoteMark(limit.footnote.trim()));
+      if (typIsMeasuredMean) marks.push(footnoteMark(MEASURED_MEAN_FOOTNOTE));
+      rows.push({
+        groupId,
+        rowId: row.id,
+        parameter: row.parameter,
+        conditionsKey,
+        label: row.label,
+        symbol: row.symbol,
+        unit: row.unit,
+        conditions: conditionCells,
+        min: formatValue(limit?.min, row.decimals),
+        typ: formatValue(limit?.typ ?? stats.meanValue, row.decimals),
+        max: formatValue(limit?.max, row.decimals),
+        typIsMeasuredMean,
+        basis,
+        basisMark: BASIS_LEGEND.find((b) => b.basis === basis)?.mark ?? "",
+        footnoteMarks: marks,
+        n: stats.n,
+        supported,
+      });
+    }
+  }
+  for (const [key, limit] of limits) {
+    if (!usedLimits.has(key)) {
+      issues.push({
+        code: "limit-not-shown",
+        message: `The limit for ${limit.parameter} at "${limit.conditionsKey}" matches no row of the ${template.label.toLowerCase()} template.`,
+      });
+    }
+  }
+
+  const revisionLabel = input.revision.label;
+  const released = input.revision.state === "released" && revisionLabel !== null;
+  if (input.revision.state === "released" && revisionLabel === null) {
+    issues.push({ code: "release-without-label", message: "The revision is marked released but has no revision letter." });
+  }
+
+  const absoluteMaximumRatings = buildAbsoluteMaximumRatings(template, input.absoluteMaximumRatings, issues);
+  const traceability = buildTraceability(sets, issues);
+
+  return {
+    schemaVersion: 1,
+    template: { deviceClass: template.deviceClass, label: template.label },
+    header: {
+      partNumber: input.device.partNumber,
+      title: input.device.title,
+      organizationName: input.device.organizationName,
+      deviceClassLabel: template.label,
+      description: input.device.description,
+      revisionText: revisionLabel ? `Rev. ${revisionLabel}` : "Draft",
+      revisionLabel,
+      state: input.revision.state,
+      stateLabel: STATE_LABELS[input.revision.state],
+      date: input.revision.date,
+      released,
+      banner: released ? null : PRELIMINARY_BANNER,
+    },
+    keyFacts: buildKeyFacts(input.device.keyConditions),
+    specifications: {
+      conditionColumns: template.specifications.conditionColumns.map(({ id, label }) => ({ id, label })),
+      rows,
+      notes: [...template.specifications.notes],
+      basisLegend: BASIS_LEGEND.map((entry) => ({ ...entry })),
+      footnotes,
+    },
+    absoluteMaximumRatings,
+    charts: buildCharts(template, sets),
+    prose: template.prose.map((section) => {
+      const own = input.prose[section.id];
+      const fromDevice = section.id === "description" && input.device.description.trim() ? input.device.description : undefined;
+      const markdown = own?.trim() ? own : (fromDevice ?? section.markdown);
+      const rendered = renderProse(markdown);
+      return { id: section.id, title: section.title, html: rendered.html, blocks: rendered.blocks, isDefault: !own?.trim() && !fromDevice };
+    }),
+    cautions: [...template.cautions],
+    traceability,
+    statistics: {
+      coverage: settings.toleranceCoverage,
+      confidence: settings.toleranceConfidence,
+      cpkThreshold: settings.cpkThreshold,
+      method:
+        `Per parameter and condition group across units: n, mean, sample standard deviation s (n − 1), median, min, max. ` +
+        `Proposed limits are the two-sided normal tolerance interval mean ± k·s covering ${formatTrimmed(settings.toleranceCoverage * 100, 2)} % ` +
+        `of units with ${formatTrimmed(settings.toleranceConfidence * 100, 2)} % confidence, exact factor k ` +
+        `(NIST/SEMATECH e-Handbook of Statistical Methods §7.2.6.3; Odeh & Owen 1980). ` +
+        `Cpk = min[(USL − mean)/(3s), (mean − LSL)/(3s)] (NIST/SEMATECH §6.1.6). A limit is flagged as not supported by the data ` +
+        `when Cpk < ${formatTrimmed(settings.cpkThreshold, 2)} or when any unit falls outside the guard-banded limit.`,
+      decisionRules: [...decisionRules].sort(),
+      groups,
+      flaggedGroupCount: groups.filter((g) => !g.supported).length,
+    },
+    revisionHistory: [...input.revision.history]
+      .sort((a, b) => compareStrings(a.date, b.date) || compareStrings(a.label, b.label))
+      .map(({ label, date, summary }) => ({ label, date, summary })),
+    issues,
+  };
+}
+
+function compareStrings(a: string, b: string): number {
+  return a < b ? -1 : a > b ? 1 : 0;
+}
+
+function compareSets(a: ApprovedSetInput, b: ApprovedSetInput): number {
+  return (
+    compareStrings(a.serial, b.serial) ||
+    compareStrings(a.kind, b.kind) ||
+    compareStrings(a.measuredOn, b.measuredOn) ||
+    compareStrings(String(a.id), String(b.id))
+  );
+}
+
+function compareValues(a: string | number | undefined, b: string | number | undefined): number {
+  if (a === b) return 0;
+  if (a === undefined) return -1;
+  if (b === undefined) return 1;
+  if (typeof a === "number" && typeof b === "number") return a - b;
+  if (typeof a === "number") return -1;
+  if (typeof b === "number") return 1;
+  return compareStrings(a, b);
+}
+
+function compareConditions(a: Conditions, b: Conditions, order: string[]): number {
+  for (const key of order) {
+    const c = compareValues(a[key], b[key]);
+    if (c !== 0) return c;
+  }
+  return compareStrings(makeConditionsKey(a), makeConditionsKey(b));
+}
+
+function indexLimits(input: SpecLimitInput[]) {
+  const limits = new Map<string, SpecLimitInput>();
+  const duplicateIssues: SheetModel["issues"] = [];
+  const sorted = [...input].sort(
+    (a, b) =>
+      compareStrings(a.parameter, b.parameter) ||
+      compareStrings(a.conditionsKey, b.conditionsKey) ||
+      compareStrings(JSON.stringify(a), JSON.stringify(b)),
+  );
+  for (const limit of sorted) {
+    const key = `${limit.parameter}|${limit.conditionsKey}`;
+    if (limits.has(key)) {
+      duplicateIssues.push({ code: "duplicate-limit", message: `Two limits for ${limit.parameter} at "${limit.conditionsKey}": the first in sort order is used.` });
+      continue;
+    }
+    limits.set(key, limit);
+  }
+  return { limits, duplicateIssues };
+}
+
+function groupConditions(row: SpecRowTemplate, conditions: Conditions): Conditions | null {
+  const match = row.match ?? {};
+  for (const key of Object.keys(match)) if (conditions[key] !== match[key]) return null;
+  const picked: Conditions = { ...match };
+  for (const key of row.groupBy) if (conditions[key] !== undefined) picked[key] = conditions[key];
+  return picked;
+}
+
+function limitFitsRow(row: SpecRowTemplate, limit: SpecLimitInput): boolean {
+  const conditions = parseConditionsKey(limit.conditionsKey);
+  const grouped = groupConditions(row, conditions);
+  return grouped !== null && makeConditionsKey(grouped) === limit.conditionsKey;
+}
+
+interface Candidate extends UnitValue {
+  measuredOn: string;
+  tieBreak: string;
+}
+
+/** Values of one row by condition group, one per unit: the latest set wins when a unit was measured twice. */
+function collectRowValues(row: SpecRowTemplate, sets: ApprovedSetInput[]): Map<string, UnitValue[]> {
+  const byGroup = new Map<string, Map<string, Candidate>>();
+  for (const set of sets) {
+    const setId = String(set.id);
+    for (const parameter of set.parameters) {
+      if (parameter.name !== row.parameter || parameter.value === null || !Number.isFinite(parameter.value)) continue;
+      const conditions: Conditions = { ...parameter.conditions };
+      if (set.temperatureC !== undefined && conditions.temperatureC === undefined) conditions.temperatureC = set.temperatureC;
+      const grouped = groupConditions(row, conditions);
+      if (!grouped) continue;
+      const key = makeConditionsKey(grouped);
+      const candidate: Candidate = {
+        serial: set.serial,
+        lot: set.lot ?? null,
+        setId,
+        value: parameter.value,
+        measuredOn: set.measuredOn,
+        tieBreak: `${setId}|${makeConditionsKey(parameter.conditions)}|${parameter.value}`,
+      };
+      let units = byGroup.get(key);
+      if (!units) byGroup.set(key, (units = new Map()));
+      const current = units.get(set.serial);
+      if (
+        !current ||
+        candidate.measuredOn > current.measuredOn ||
+        (candidate.measuredOn === current.measuredOn && candidate.tieBreak > current.tieBreak)
+      ) {
+        units.set(set.serial, candidate);
+      }
+    }
+  }
+  const result = new Map<string, UnitValue[]>();
+  for (const [key, units] of byGroup) {
+    result.set(
+      key,
+      [...units.values()]
+        .sort((a, b) => compareStrings(a.serial, b.serial))
+        .map(({ serial, lot, setId, value }) => ({ serial, lot, setId, value })),
+    );
+  }
+  return result;
+}
+
+/**
+ * A chart draws one curve per unit under one set of conditions: the sets are
+ * grouped by their frequency and temperature, and the group with the most
+ * units is drawn (ties to the first in sort order), named in the caption.
+ */
+function buildCharts(template: SheetTemplate, sets: ApprovedSetInput[]): SheetModel["charts"] {
+  const charts: SheetModel["charts"] = [];
+  for (const curveTemplate of template.curves) {
+    const byConditions = new Map<string, ChartSource[]>();
+    for (const set of sets) {
+      for (const curve of set.curves) {
+        if (curve.id !== curveTemplate.curveId) continue;
+        const label = describeSetConditions(set);
+        let sources = byConditions.get(label);
+        if (!sources) byConditions.set(label, (sources = []));
+        sources.push({ serial: set.serial, curve });
+      }
+    }
+    let best: [string, ChartSource[]] | null = null;
+    for (const entry of [...byConditions.entries()].sort((a, b) => compareStrings(a[0], b[0]))) {
+      const units = new Set(entry[1].map((s) => s.serial)).size;
+      if (!best || units > new Set(best[1].map((s) => s.serial)).size) best = entry;
+    }
+    const chart = best ? buildChartSpec(curveTemplate, best[1], best[0]) : null;
+    if (chart) charts.push(chart);
+  }
+  return charts;
+}
+
+function describeSetConditions(set: ApprovedSetInput): string {
+  const parts: string[] = [];
+  const conditions = set.parameters[0]?.conditions ?? {};
+  const number = (key: string) => (typeof conditions[key] === "number" ? (conditions[key] as number) : undefined);
+  const input = number("inputFrequencyHz");
+  const carrier = number("carrierFrequencyHz");
+  const start = number("startHz");
+  const stop = number("stopHz");
+  if (input !== undefined) parts.push(`${formatFrequency(input)} in`);
+  else if (carrier !== undefined) parts.push(`${formatFrequency(carrier)} out`);
+  else if (start !== undefined && stop !== undefined) parts.push(formatFrequencyRange(start, stop));
+  if (set.temperatureC !== undefined) parts.push(formatTemperature(set.temperatureC));
+  return parts.join(", ");
+}
+
+function buildAbsoluteMaximumRatings(
+  template: SheetTemplate,
+  given: SheetInput["absoluteMaximumRatings"],
+  issues: SheetModel["issues"],
+): SheetModel["absoluteMaximumRatings"] {
+  const normalize = (label: string) => label.trim().toLowerCase();
+  const byLabel = new Map(given.map((rating) => [normalize(rating.label), rating]));
+  const rows: SheetModel["absoluteMaximumRatings"] = [];
+  const used = new Set<string>();
+  for (const placeholder of template.absoluteMaximumRatings) {
+    const key = normalize(placeholder.label);
+    const rating = byLabel.get(key);
+    used.add(key);
+    if (rating && rating.value.trim()) {
+      rows.push({ label: placeholder.label, value: rating.value.trim(), unit: rating.unit || placeholder.unit, missing: false });
+    } else {
+      rows.push({ label: placeholder.label, value: "", unit: placeholder.unit, missing: true });
+      issues.push({ code: "rating-missing", message: `Absolute maximum rating "${placeholder.label}" has no value: it comes from the device data.` });
+    }
+  }
+  for (const rating of given) {
+    if (used.has(normalize(rating.label)) || !rating.value.trim()) continue;
+    used.add(normalize(rating.label));
+    rows.push({ label: rating.label.trim(), value: rating.value.trim(), unit: rating.unit, missing: false });
+  }
+  return rows;
+}
+
+function buildTraceability(sets: ApprovedSetInput[], issues: SheetModel["issues"]): SheetModel["traceability"] {
+  const instruments = new Map<string, SheetModel["traceability"]["instruments"][number]>();
+  for (const set of sets) {
+    for (const instrument of set.instruments) {
+      const key = [instrument.kind, instrument.model, instrument.serial, instrument.calibratedOn].join("|");
+      const lapsed = set.measuredOn > instrument.calibrationDueOn || set.measuredOn < instrument.calibratedOn;
+      if (lapsed) {
+        issues.push({
+          code: "calibration-lapsed",
+          message: `Set ${String(set.id)} (${set.serial}) was measured on ${set.measuredOn}, outside the calibration interval of ${instrument.model} ${instrument.serial} (${instrument.calibratedOn} to ${instrument.calibrationDueOn}).`,
+        });
+      }
+      const existing = instruments.get(key);
+      if (existing) {
+        existing.setCount++;
+        existing.calibrationLapsed ||= lapsed;
+        continue;
+      }
+      instruments.set(key, {
+        kind: instrument.kind,
+        model: instrument.model,
+        serial: instrument.serial,
+        calibratedOn: instrument.calibratedOn,
+        calibrationDueOn: instrument.calibrationDueOn,
+        uncertainty: [...instrument.uncertainty]
+          .sort((a, b) => compareStrings(a.quantity, b.quantity))
+          .map((u) => `${u.quantity}: ±${formatTrimmed(u.value, 4)} ${u.unit} (k = ${formatTrimmed(u.coverageFactor, 2)})`),
+        setCount: 1,
+        calibrationLapsed: lapsed,
+      });
+    }
+  }
+  return {
+    measurementSets: sets.map((set) => ({
+      id: String(set.id),
+      kind: set.kind,
+      serial: set.serial,
+      lot: set.lot ?? null,
+      temperature: set.temperatureC === undefined ? "" : `${formatTrimmed(set.temperatureC, 1)} °C`,
+      measuredOn: set.measuredOn,
+    })),
+    instruments: [...instruments.values()].sort(
+      (a, b) => compareStrings(a.kind, b.kind) || compareStrings(a.model, b.model) || compareStrings(a.serial, b.serial) || compareStrings(a.calibratedOn, b.calibratedOn),
+    ),
+    statements: [
+      "Results refer only to the units listed, measured on the dates shown with the instruments listed (ISO/IEC 17025:2017 §7.8.2.1).",
+      "Calibration dates and stated uncertainties are those on record for each instrument when the sheet was built.",
+      "Only measurement sets approved by a second engineer contribute to the statistics.",
+    ],
+  };
+}
+
+function buildKeyFacts(conditions: SheetInput["device"]["keyConditions"]): SheetModel["keyFacts"] {
+  const facts: SheetModel["keyFacts"] = [];
+  const range = (label: string, r: { min: number; max: number } | undefined) => {
+    if (!r) return;
+    let choice = pickFrequencyUnit(r.max);
+    if (r.min / choice.scale < 0.1) choice = pickFrequencyUnit(r.min);
+    facts.push({ label, value: `${formatTrimmed(r.min / choice.scale)}${EN_DASH}${formatTrimmed(r.max / choice.scale)}`, unit: choice.unit });
+  };
+  range("Input frequency", conditions.inputFrequencyHz);
+  range("Output frequency", conditions.outputFrequencyHz);
+  if (conditions.driveLevelDbm !== undefined) {
+    facts.push({ label: "Drive level", value: `${conditions.driveLevelDbm > 0 ? "+" : ""}${formatTrimmed(conditions.driveLevelDbm, 1)}`, unit: "dBm" });
+  }
+  if (conditions.multiplicationFactor !== undefined) {
+    facts.push({ label: "Multiplication factor", value: `×${formatTrimmed(conditions.multiplicationFactor, 0)}`, unit: "" });
+  }
+  return facts;
+}

@@ -1,0 +1,59 @@
+import type { ConditionColumn, ConditionSource } from "../../templates/types";
+import { formatFrequency, formatFrequencyRange, formatSignedDbm, formatTemperature, formatTrimmed } from "./format";
+
+export type Conditions = Record<string, string | number>;
+
+/**
+ * The stable name of a condition group: "key=value" pairs sorted by key, joined
+ * by ";". Numbers are written in plain JavaScript form (2000000000, 25), so
+ * limits stored in the database keep matching the same group.
+ */
+export function makeConditionsKey(conditions: Conditions): string {
+  return Object.keys(conditions)
+    .sort()
+    .map((key) => `${key}=${String(conditions[key])}`)
+    .join(";");
+}
+
+export function parseConditionsKey(conditionsKey: string): Conditions {
+  const conditions: Conditions = {};
+  if (!conditionsKey) return conditions;
+  for (const pair of conditionsKey.split(";")) {
+    const at = pair.indexOf("=");
+    if (at <= 0) continue;
+    const raw = pair.slice(at + 1);
+    const numeric = Number(raw);
+    conditions[pair.slice(0, at)] = raw.trim() !== "" && Number.isFinite(numeric) ? numeric : raw;
+  }
+  return conditions;
+}
+
+export function formatConditionCell(column: ConditionColumn, conditions: Conditions): string {
+  for (const source of column.sources) {
+    const text = formatSource(source, conditions);
+    if (text !== null) return source.suffix ? `${text} ${source.suffix}` : text;
+  }
+  return "";
+}
+
+function formatSource(source: ConditionSource, conditions: Conditions): string | null {
+  const value = conditions[source.key];
+  if (value === undefined) return null;
+  switch (source.format) {
+    case "frequency":
+      return typeof value === "number" ? formatFrequency(value) : String(value);
+    case "frequency-range": {
+      const stop = source.stopKey ? conditions[source.stopKey] : undefined;
+      if (typeof value === "number" && typeof stop === "number") return formatFrequencyRange(value, stop);
+      return typeof value === "number" ? formatFrequency(value) : String(value);
+    }
+    case "power-dbm":
+      return typeof value === "number" ? formatSignedDbm(value) : String(value);
+    case "temperature-c":
+      return typeof value === "number" ? formatTemperature(value) : String(value);
+    case "port":
+      return String(value);
+    case "text":
+      return typeof value === "number" ? formatTrimmed(value) : String(value);
+  }
+}

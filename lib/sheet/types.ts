@@ -1,0 +1,284 @@
+/**
+ * The sheet model: one JSON document holding everything a characterization
+ * sheet shows, built once from the device data and read by both renderers
+ * (web and PDF). Renderers lay it out; they compute nothing.
+ */
+
+import type { Curve, DerivedParameter } from "../analysis/types";
+import type { LimitBasis, ProseSectionId } from "../../templates/types";
+
+export type { LimitBasis, ProseSectionId };
+
+export type RevisionState = "draft" | "in-review" | "changes-requested" | "approved" | "released";
+
+/** As on a calibration certificate: one stated uncertainty of one quantity. */
+export interface InstrumentUncertaintyInput {
+  quantity: string;
+  value: number;
+  unit: string;
+  coverageFactor: number;
+}
+
+export interface SheetInstrumentInput {
+  kind: string;
+  model: string;
+  serial: string;
+  /** ISO dates (YYYY-MM-DD). */
+  calibratedOn: string;
+  calibrationDueOn: string;
+  uncertainty: InstrumentUncertaintyInput[];
+}
+
+export interface ApprovedSetInput {
+  id: string | number;
+  kind: string;
+  serial: string;
+  lot?: string;
+  temperatureC?: number;
+  /** ISO date (YYYY-MM-DD). */
+  measuredOn: string;
+  parameters: DerivedParameter[];
+  curves: Curve[];
+  instruments: SheetInstrumentInput[];
+}
+
+export interface SpecLimitInput {
+  parameter: string;
+  /** From SheetModel statistics groups (`conditionsKey`): the row's matched and grouping conditions, "k=v;k=v" sorted by key. */
+  conditionsKey: string;
+  min?: number;
+  typ?: number;
+  max?: number;
+  unit: string;
+  basis: LimitBasis;
+  footnote?: string;
+}
+
+export interface KeyConditionsInput {
+  inputFrequencyHz?: { min: number; max: number };
+  outputFrequencyHz?: { min: number; max: number };
+  driveLevelDbm?: number;
+  multiplicationFactor?: number;
+}
+
+export interface SheetInput {
+  device: {
+    partNumber: string;
+    deviceClass: string;
+    title: string;
+    description: string;
+    keyConditions: KeyConditionsInput;
+    organizationName: string;
+  };
+  revision: {
+    /** Null until released (the letter is assigned at release). */
+    label: string | null;
+    state: RevisionState;
+    /** ISO date (YYYY-MM-DD) printed on the sheet; given, never read from the clock. */
+    date: string;
+    history: { label: string; date: string; summary: string }[];
+  };
+  approvedSets: ApprovedSetInput[];
+  limits: SpecLimitInput[];
+  /** Markdown per prose section; a missing section takes the template's default. */
+  prose: Partial<Record<ProseSectionId, string>>;
+  absoluteMaximumRatings: { label: string; value: string; unit: string }[];
+  settings: {
+    /** A limit whose Cpk falls below this is flagged, e.g. 1.33. */
+    cpkThreshold: number;
+    /** Tolerance-interval coverage and confidence, e.g. 0.99 and 0.95. */
+    toleranceCoverage: number;
+    toleranceConfidence: number;
+    /** Expanded uncertainty U (k = 2) per parameter name, in the parameter's unit. */
+    measurementUncertainty?: Record<string, number>;
+  };
+}
+
+/* ---------- prose ---------- */
+
+export type ProseInline =
+  | { type: "text"; value: string }
+  | { type: "strong"; children: ProseInline[] }
+  | { type: "emphasis"; children: ProseInline[] }
+  | { type: "code"; value: string }
+  | { type: "link"; href: string; children: ProseInline[] }
+  | { type: "break" };
+
+export type ProseBlock =
+  | { type: "paragraph"; children: ProseInline[] }
+  | { type: "heading"; children: ProseInline[] }
+  | { type: "list"; ordered: boolean; items: ProseBlock[][] }
+  | { type: "code"; value: string }
+  | { type: "quote"; children: ProseBlock[] };
+
+export interface ProseSection {
+  id: ProseSectionId;
+  title: string;
+  /** Sanitized HTML, for API consumers. */
+  html: string;
+  /** The same content as a small safe tree: what both renderers draw. */
+  blocks: ProseBlock[];
+  /** True when the template's default text stands in for the engineer's. */
+  isDefault: boolean;
+}
+
+/* ---------- model ---------- */
+
+export interface FormattedValue {
+  value: number | null;
+  /** Number as printed (U+2212 minus), without unit; "" when absent. */
+  text: string;
+}
+
+export type FlagCode =
+  | "cpk-below-threshold"
+  | "unit-outside-acceptance"
+  | "insufficient-data"
+  | "limit-without-data"
+  | "limit-unit-mismatch"
+  | "guard-band-closes-acceptance";
+
+export interface StatisticsFlag {
+  code: FlagCode;
+  message: string;
+}
+
+export interface UnitResult {
+  serial: string;
+  lot: string | null;
+  setId: string;
+  value: FormattedValue;
+  decision: "pass" | "fail" | null;
+  /** Simple acceptance only: within U of a limit (ILAC-G8:09/2019 §4.2.1). */
+  conditional: boolean;
+}
+
+export interface StatisticsGroup {
+  groupId: string;
+  rowId: string;
+  parameter: string;
+  conditionsKey: string;
+  label: string;
+  symbol: string;
+  unit: string;
+  conditionsText: string;
+  n: number;
+  lots: number;
+  mean: FormattedValue;
+  standardDeviation: FormattedValue;
+  median: FormattedValue;
+  min: FormattedValue;
+  max: FormattedValue;
+  toleranceInterval: { lower: FormattedValue; upper: FormattedValue; factor: FormattedValue } | null;
+  limits: { min: FormattedValue; typ: FormattedValue; max: FormattedValue; basis: LimitBasis } | null;
+  cpk: FormattedValue;
+  expandedUncertainty: FormattedValue;
+  decisionRule: "guard-band" | "simple-acceptance" | null;
+  acceptance: { lower: FormattedValue; upper: FormattedValue } | null;
+  passCount: number;
+  failCount: number;
+  units: UnitResult[];
+  flags: StatisticsFlag[];
+  /** False when a limit is stated that the data does not support. */
+  supported: boolean;
+}
+
+export interface SpecTableRow {
+  groupId: string;
+  rowId: string;
+  parameter: string;
+  conditionsKey: string;
+  label: string;
+  symbol: string;
+  unit: string;
+  /** One cell per specifications.conditionColumns entry; "" when the condition does not apply. */
+  conditions: string[];
+  min: FormattedValue;
+  typ: FormattedValue;
+  max: FormattedValue;
+  /** True when typ is the measured mean rather than a stated typical value. */
+  typIsMeasuredMean: boolean;
+  basis: LimitBasis;
+  basisMark: string;
+  footnoteMarks: string[];
+  n: number;
+  supported: boolean;
+}
+
+export interface ChartSpec {
+  id: string;
+  title: string;
+  caption: string;
+  /** Words for screen readers and for the PDF's alt text. */
+  description: string;
+  unitCount: number;
+  /** A complete Vega-Lite 6 specification with its data inlined. */
+  vegaLite: Record<string, unknown>;
+}
+
+export interface SheetModel {
+  schemaVersion: 1;
+  template: { deviceClass: string; label: string };
+  header: {
+    partNumber: string;
+    title: string;
+    organizationName: string;
+    deviceClassLabel: string;
+    description: string;
+    /** "Rev. B", or "Draft" before release. */
+    revisionText: string;
+    revisionLabel: string | null;
+    state: RevisionState;
+    stateLabel: string;
+    date: string;
+    released: boolean;
+    /** Present on every page and screen until the revision is released. */
+    banner: string | null;
+  };
+  keyFacts: { label: string; value: string; unit: string }[];
+  specifications: {
+    conditionColumns: { id: string; label: string }[];
+    rows: SpecTableRow[];
+    notes: string[];
+    basisLegend: { basis: LimitBasis; mark: string; text: string }[];
+    footnotes: { mark: string; text: string }[];
+  };
+  absoluteMaximumRatings: { label: string; value: string; unit: string; missing: boolean }[];
+  charts: ChartSpec[];
+  prose: ProseSection[];
+  cautions: string[];
+  traceability: {
+    measurementSets: {
+      id: string;
+      kind: string;
+      serial: string;
+      lot: string | null;
+      temperature: string;
+      measuredOn: string;
+    }[];
+    instruments: {
+      kind: string;
+      model: string;
+      serial: string;
+      calibratedOn: string;
+      calibrationDueOn: string;
+      uncertainty: string[];
+      setCount: number;
+      /** True when some set was measured outside the calibration interval. */
+      calibrationLapsed: boolean;
+    }[];
+    statements: string[];
+  };
+  statistics: {
+    coverage: number;
+    confidence: number;
+    cpkThreshold: number;
+    method: string;
+    decisionRules: string[];
+    groups: StatisticsGroup[];
+    flaggedGroupCount: number;
+  };
+  revisionHistory: { label: string; date: string; summary: string }[];
+  /** Problems a reviewer must see before approving (missing ratings, unknown limits, lapsed calibration). */
+  issues: { code: string; message: string }[];
+}

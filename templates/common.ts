@@ -1,0 +1,51 @@
+import type { AbsoluteMaximumRatingTemplate, ConditionColumn, ProseTemplate } from "./types";
+
+/** The cautions every class carries (DESIGN.md "Safety"); a class adds its own RF-power wording. */
+export function composeCautions(maximumInputPowerCaution: string): string[] {
+  return [
+    "Electrostatic-discharge-sensitive device. Handle it at an ESD-protected workstation with grounded wrist straps and " +
+      "conductive packaging. The device's class per ANSI/ESDA/JEDEC JS-001 (human-body model) is stated by the maker under " +
+      "absolute maximum ratings.",
+    maximumInputPowerCaution,
+    "Limits apply only under the conditions stated with them. Outside those conditions the figures are not specified.",
+    "Stresses beyond the absolute maximum ratings may damage the device permanently; operation at those ratings is not implied.",
+    "This sheet does not replace the organization's own quality procedures: incoming inspection, acceptance and sign-off " +
+      "follow those procedures.",
+  ];
+}
+
+export const temperatureColumn: ConditionColumn = {
+  id: "temperature",
+  label: "T_A",
+  sources: [{ key: "temperatureC", format: "temperature-c" }],
+};
+
+export const esdRating: AbsoluteMaximumRatingTemplate = {
+  label: "ESD sensitivity, human-body model (ANSI/ESDA/JEDEC JS-001)",
+  unit: "class",
+};
+
+export const temperatureRatings: AbsoluteMaximumRatingTemplate[] = [
+  { label: "Operating temperature", unit: "°C" },
+  { label: "Storage temperature", unit: "°C" },
+];
+
+export function composeProse(sections: {
+  description: string;
+  features: string;
+  applications: string;
+  handling: string;
+  testFixture: string;
+}): ProseTemplate[] {
+  return [
+    { id: "description", title: "Description", markdown: sections.description },
+    { id: "features", title: "Key features", markdown: sections.features },
+    { id: "applications", title: "Applications", markdown: sections.applications },
+    { id: "handling", title: "Handling and mounting", markdown: sections.handling },
+    { id: "test-fixture", title: "Test fixture", markdown: sections.testFixture },
+  ];
+}
+
+export const defaultHandlingProse =
+  "Keep the device in its conductive packaging until it is mounted. Ground the work surface, the soldering iron " +
+  "and the operator. Follow the maker's reflow profile; do not exceed the storage temperature.";

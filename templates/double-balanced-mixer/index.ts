@@ -1,0 +1,154 @@
+import { composeCautions, composeProse, defaultHandlingProse, esdRating, temperatureColumn, temperatureRatings } from "../common";
+import type { SheetTemplate, SpecRowTemplate } from "../types";
+
+const bandKeys = ["startHz", "stopHz"];
+
+function isolationRow(path: "LO-RF" | "LO-IF" | "RF-IF", basis: SpecRowTemplate["defaultBasis"]): SpecRowTemplate {
+  return {
+    id: `isolation-${path.toLowerCase()}`,
+    parameter: "isolation",
+    label: `Isolation ${path.replace("-", "–")}`,
+    symbol: `ISO ${path}`,
+    unit: "dB",
+    decimals: 1,
+    match: { path, statistic: "min" },
+    groupBy: [...bandKeys, "loPowerDbm", "temperatureC"],
+    defaultBasis: basis,
+  };
+}
+
+/** Passive double-balanced diode mixers. */
+export const doubleBalancedMixerTemplate: SheetTemplate = {
+  deviceClass: "double-balanced-mixer",
+  label: "Double-balanced mixer",
+  measurementKinds: ["frequency-sweep", "two-tone", "touchstone"],
+  specifications: {
+    conditionColumns: [
+      {
+        id: "band",
+        label: "RF band",
+        sources: [{ key: "startHz", stopKey: "stopHz", format: "frequency-range" }],
+      },
+      {
+        id: "lo",
+        label: "LO drive",
+        sources: [{ key: "loPowerDbm", format: "power-dbm" }],
+      },
+      {
+        id: "port",
+        label: "Port",
+        sources: [{ key: "port", format: "port" }],
+      },
+      temperatureColumn,
+    ],
+    rows: [
+      {
+        id: "conversion-loss-worst",
+        parameter: "conversion-loss",
+        label: "Conversion loss, highest in band",
+        symbol: "CL",
+        unit: "dB",
+        decimals: 2,
+        match: { statistic: "max" },
+        groupBy: [...bandKeys, "loPowerDbm", "temperatureC"],
+        defaultBasis: "test",
+      },
+      {
+        id: "conversion-loss-typical",
+        parameter: "conversion-loss",
+        label: "Conversion loss, median over band",
+        symbol: "CL",
+        unit: "dB",
+        decimals: 2,
+        match: { statistic: "typ" },
+        groupBy: [...bandKeys, "loPowerDbm", "temperatureC"],
+        defaultBasis: "characterization",
+      },
+      isolationRow("LO-RF", "test"),
+      isolationRow("LO-IF", "characterization"),
+      isolationRow("RF-IF", "characterization"),
+      {
+        id: "iip3",
+        parameter: "iip3",
+        label: "Input third-order intercept",
+        symbol: "IIP3",
+        unit: "dBm",
+        decimals: 1,
+        match: { method: "slope-fit" },
+        groupBy: ["loPowerDbm", "temperatureC"],
+        defaultBasis: "characterization",
+      },
+      {
+        id: "input-p1db",
+        parameter: "input-p1db",
+        label: "Input 1 dB compression",
+        symbol: "P1dB",
+        unit: "dBm",
+        decimals: 1,
+        match: { method: "two-tone, per tone" },
+        groupBy: ["loPowerDbm", "temperatureC"],
+        defaultBasis: "characterization",
+      },
+      {
+        id: "vswr",
+        parameter: "vswr",
+        label: "VSWR, highest in band",
+        symbol: "VSWR",
+        unit: ":1",
+        decimals: 2,
+        match: { statistic: "worst" },
+        groupBy: ["port", ...bandKeys, "temperatureC"],
+        defaultBasis: "design",
+      },
+    ],
+    notes: [
+      "Conversion loss is P_RF − P_IF (positive for a lossy mixer). Intercepts are per tone, from slope-1 and slope-3 fits over the small-signal points.",
+      "System impedance 50 Ω; LO drive is the available power at the LO port.",
+    ],
+  },
+  curves: [
+    {
+      id: "conversion-loss-vs-frequency",
+      curveId: "conversion-loss-vs-frequency",
+      title: "Conversion loss vs RF frequency",
+      caption: "At the stated LO drive; each line one unit.",
+    },
+    {
+      id: "isolation-vs-frequency",
+      curveId: "isolation-vs-frequency",
+      title: "Isolation vs RF frequency",
+      caption: "Line style tells the paths apart.",
+    },
+    {
+      id: "two-tone-transfer",
+      curveId: "two-tone-transfer",
+      title: "Tone and IM3 output vs input per tone",
+      caption: "Line style tells the tone from the third-order product.",
+    },
+    {
+      id: "return-loss",
+      curveId: "return-loss",
+      title: "Return loss vs frequency",
+      caption: "Line style tells the ports apart.",
+    },
+  ],
+  prose: composeProse({
+    description: "A passive double-balanced diode mixer with balun-coupled LO and RF ports and a DC-coupled IF port.",
+    features: "- Conversion loss measured on every unit across the RF band\n- LO–RF isolation measured on every unit\n- Two-tone intercept at the rated LO drive",
+    applications: "- Up- and down-conversion\n- Phase detection\n- Frequency doubling with both ports driven",
+    handling: defaultHandlingProse,
+    testFixture:
+      "RF and LO are applied through calibrated cables to the device on its evaluation board; board and cable losses " +
+      "are de-embedded. The IF port is terminated in 50 Ω through a diplexer.",
+  }),
+  cautions: composeCautions(
+    "Do not exceed the maximum RF and LO input powers or the IF current stated under absolute maximum ratings.",
+  ),
+  absoluteMaximumRatings: [
+    { label: "RF input power", unit: "dBm" },
+    { label: "LO input power", unit: "dBm" },
+    { label: "IF current", unit: "mA" },
+    ...temperatureRatings,
+    esdRating,
+  ],
+};

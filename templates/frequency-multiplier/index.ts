@@ -1,0 +1,171 @@
+import { composeCautions, composeProse, defaultHandlingProse, esdRating, temperatureColumn, temperatureRatings } from "../common";
+import type { SheetTemplate } from "../types";
+
+const frequencyColumn = {
+  id: "frequency",
+  label: "Frequency",
+  sources: [
+    { key: "inputFrequencyHz", format: "frequency" as const, suffix: "in" },
+    { key: "carrierFrequencyHz", format: "frequency" as const, suffix: "out" },
+  ],
+};
+
+/** Frequency multipliers, including a double-balanced mixer driven on both ports as a doubler. */
+export const frequencyMultiplierTemplate: SheetTemplate = {
+  deviceClass: "frequency-multiplier",
+  label: "Frequency multiplier",
+  measurementKinds: ["drive-sweep", "phase-noise"],
+  specifications: {
+    conditionColumns: [
+      frequencyColumn,
+      {
+        id: "drive",
+        label: "Drive",
+        sources: [{ key: "drive", format: "text" }],
+      },
+      {
+        id: "offset",
+        label: "Offset",
+        sources: [{ key: "offsetHz", format: "frequency" }],
+      },
+      temperatureColumn,
+    ],
+    rows: [
+      {
+        id: "conversion-loss-optimum",
+        parameter: "conversion-loss",
+        label: "Conversion loss",
+        symbol: "CL",
+        unit: "dB",
+        decimals: 2,
+        match: { drive: "optimum" },
+        groupBy: ["inputFrequencyHz", "temperatureC"],
+        defaultBasis: "test",
+      },
+      {
+        id: "optimum-drive",
+        parameter: "optimum-drive",
+        label: "Optimum drive, per port",
+        symbol: "P_opt",
+        unit: "dBm",
+        decimals: 1,
+        groupBy: ["inputFrequencyHz", "temperatureC"],
+        defaultBasis: "characterization",
+      },
+      {
+        id: "fundamental-suppression",
+        parameter: "harmonic-suppression",
+        label: "Fundamental suppression",
+        symbol: "HS1",
+        unit: "dBc",
+        decimals: 1,
+        match: { order: 1, drive: "optimum" },
+        groupBy: ["inputFrequencyHz", "temperatureC"],
+        defaultBasis: "test",
+      },
+      {
+        id: "third-harmonic-suppression",
+        parameter: "harmonic-suppression",
+        label: "3rd harmonic suppression",
+        symbol: "HS3",
+        unit: "dBc",
+        decimals: 1,
+        match: { order: 3, drive: "optimum" },
+        groupBy: ["inputFrequencyHz", "temperatureC"],
+        defaultBasis: "characterization",
+      },
+      {
+        id: "fourth-harmonic-suppression",
+        parameter: "harmonic-suppression",
+        label: "4th harmonic suppression",
+        symbol: "HS4",
+        unit: "dBc",
+        decimals: 1,
+        match: { order: 4, drive: "optimum" },
+        groupBy: ["inputFrequencyHz", "temperatureC"],
+        defaultBasis: "characterization",
+      },
+      {
+        id: "input-p1db",
+        parameter: "input-p1db",
+        label: "Input 1 dB compression",
+        symbol: "P1dB",
+        unit: "dBm",
+        decimals: 1,
+        groupBy: ["inputFrequencyHz", "temperatureC"],
+        defaultBasis: "characterization",
+      },
+      {
+        id: "residual-phase-noise",
+        parameter: "spot-phase-noise",
+        label: "Residual phase noise",
+        symbol: "L(f)",
+        unit: "dBc/Hz",
+        decimals: 1,
+        groupBy: ["carrierFrequencyHz", "offsetHz", "temperatureC"],
+        defaultBasis: "characterization",
+      },
+      {
+        id: "excess-over-ideal",
+        parameter: "excess-over-ideal-multiplication",
+        label: "Excess over ideal ×N",
+        symbol: "ΔL",
+        unit: "dB",
+        decimals: 1,
+        groupBy: ["carrierFrequencyHz", "offsetHz", "temperatureC"],
+        defaultBasis: "design",
+      },
+      {
+        id: "noise-floor-above-kt",
+        parameter: "noise-floor-above-kt",
+        label: "Far-out floor above kT",
+        symbol: "NF_kT",
+        unit: "dB",
+        decimals: 1,
+        groupBy: ["carrierFrequencyHz", "temperatureC"],
+        defaultBasis: "characterization",
+      },
+    ],
+    notes: [
+      "Conversion loss is P_in − P_out of the wanted 2nd-order output; suppression is P_wanted − P_order (positive below the wanted output).",
+      "Per-port drive is the source power less the 3.01 dB split, splitter excess loss and cable loss. System impedance 50 Ω.",
+      "Residual phase noise is single-sideband L(f) per IEEE Std 1139-2008; an ideal ×2 adds 6.02 dB.",
+    ],
+  },
+  curves: [
+    {
+      id: "conversion-loss-vs-drive",
+      curveId: "conversion-loss-vs-drive",
+      title: "Conversion loss vs per-port drive",
+      caption: "Wanted output order; each line one unit.",
+    },
+    {
+      id: "output-spectrum-vs-drive",
+      curveId: "output-spectrum-vs-drive",
+      title: "Output power of each order vs per-port drive",
+      caption: "Line style tells the orders apart.",
+    },
+    {
+      id: "phase-noise",
+      curveId: "phase-noise",
+      title: "Residual phase noise L(f)",
+      caption: "Single-sideband, at the output frequency; each line one unit.",
+    },
+  ],
+  prose: composeProse({
+    description:
+      "A passive frequency doubler: the input drives both ports of a diode ring through a splitter, and the wanted " +
+      "output is the second harmonic.",
+    features: "- Conversion loss at optimum drive, measured on every unit\n- Fundamental and harmonic suppression at optimum drive\n- Residual phase noise at decade offsets",
+    applications: "- Local-oscillator chains\n- Frequency synthesis\n- Test equipment",
+    handling: defaultHandlingProse,
+    testFixture:
+      "Both device ports are fed from one source through a two-way splitter; its excess loss and the cable loss are " +
+      "de-embedded from the stated drive. Output power of each order is read on a spectrum analyzer.",
+  }),
+  cautions: composeCautions(
+    "Do not exceed the maximum RF input power stated under absolute maximum ratings. Driving far above the rated drive " +
+      "raises near-carrier noise and stresses the diodes.",
+  ),
+  absoluteMaximumRatings: [{ label: "RF input power, per port", unit: "dBm" }, ...temperatureRatings, esdRating],
+};

@@ -1,0 +1,112 @@
+import { composeCautions, composeProse, defaultHandlingProse, esdRating, temperatureColumn, temperatureRatings } from "../common";
+import type { SheetTemplate, SpecRowTemplate } from "../types";
+
+const bandKeys = ["startHz", "stopHz"];
+
+function bandRow(row: Omit<SpecRowTemplate, "groupBy">): SpecRowTemplate {
+  return { ...row, match: { statistic: "worst", ...row.match }, groupBy: [...bandKeys, "temperatureC"] };
+}
+
+/** 90° hybrids from 4-port Touchstone files (ports: 1 in, 2 through, 3 coupled, 4 isolated). */
+export const quadratureHybridTemplate: SheetTemplate = {
+  deviceClass: "quadrature-hybrid",
+  label: "Quadrature hybrid",
+  measurementKinds: ["touchstone"],
+  specifications: {
+    conditionColumns: [
+      {
+        id: "band",
+        label: "Band",
+        sources: [{ key: "startHz", stopKey: "stopHz", format: "frequency-range" }],
+      },
+      {
+        id: "port",
+        label: "Port",
+        sources: [{ key: "port", format: "port" }],
+      },
+      temperatureColumn,
+    ],
+    rows: [
+      bandRow({
+        id: "insertion-loss-through",
+        parameter: "insertion-loss",
+        label: "Insertion loss, input to through (S21)",
+        symbol: "IL",
+        unit: "dB",
+        decimals: 2,
+        match: { path: "S21" },
+        defaultBasis: "test",
+      }),
+      bandRow({
+        id: "insertion-loss-coupled",
+        parameter: "insertion-loss",
+        label: "Insertion loss, input to coupled (S31)",
+        symbol: "IL",
+        unit: "dB",
+        decimals: 2,
+        match: { path: "S31" },
+        defaultBasis: "test",
+      }),
+      bandRow({
+        id: "amplitude-balance",
+        parameter: "amplitude-balance",
+        label: "Amplitude balance",
+        symbol: "ΔA",
+        unit: "dB",
+        decimals: 2,
+        defaultBasis: "test",
+      }),
+      bandRow({
+        id: "phase-balance",
+        parameter: "phase-balance",
+        label: "Phase balance, from 90°",
+        symbol: "Δφ",
+        unit: "°",
+        decimals: 1,
+        defaultBasis: "test",
+      }),
+      bandRow({
+        id: "isolation-input",
+        parameter: "isolation",
+        label: "Isolation, input to isolated (S41)",
+        symbol: "ISO",
+        unit: "dB",
+        decimals: 1,
+        match: { path: "S41" },
+        defaultBasis: "characterization",
+      }),
+      {
+        id: "vswr",
+        parameter: "vswr",
+        label: "VSWR, highest in band",
+        symbol: "VSWR",
+        unit: ":1",
+        decimals: 2,
+        match: { statistic: "worst" },
+        groupBy: ["port", ...bandKeys, "temperatureC"],
+        defaultBasis: "characterization",
+      },
+    ],
+    notes: [
+      "Insertion loss includes the ideal 3.01 dB split. Balance figures are the largest deviation over the band, sign kept.",
+      "Measured with a vector network analyzer, all ports terminated in 50 Ω.",
+    ],
+  },
+  curves: [
+    { id: "transmission", curveId: "transmission", title: "Insertion loss and isolation vs frequency", caption: "Line style tells the paths apart." },
+    { id: "amplitude-balance", curveId: "amplitude-balance", title: "Amplitude balance vs frequency", caption: "Each line one unit." },
+    { id: "phase-balance", curveId: "phase-balance", title: "Phase balance vs frequency", caption: "Deviation from 90°; each line one unit." },
+    { id: "return-loss", curveId: "return-loss", title: "Return loss vs frequency", caption: "Line style tells the ports apart." },
+  ],
+  prose: composeProse({
+    description: "A 90° hybrid coupler: power at the input divides equally between the through and coupled ports in quadrature.",
+    features: "- Amplitude and phase balance over the full band\n- Insertion loss measured on every unit",
+    applications: "- Balanced amplifiers\n- Image-reject and I/Q mixers\n- Power combining",
+    handling: defaultHandlingProse,
+    testFixture:
+      "Four-port S-parameters are measured on the evaluation board with a vector network analyzer calibrated at the " +
+      "coaxial connectors; the board's lines are not de-embedded.",
+  }),
+  cautions: composeCautions("Do not exceed the maximum CW input power stated under absolute maximum ratings."),
+  absoluteMaximumRatings: [{ label: "Input power, CW", unit: "W" }, ...temperatureRatings, esdRating],
+};

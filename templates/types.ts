@@ -1,0 +1,97 @@
+/**
+ * A device-class template: what a characterization sheet of that class shows.
+ * Data plus a few small functions; lib/sheet reads it, the renderers never do.
+ */
+
+import type { MeasurementKind } from "../lib/ingest/types";
+
+/** Where a published limit comes from; printed as a mark beside the limit. */
+export type LimitBasis = "test" | "characterization" | "design";
+
+export type ProseSectionId = "description" | "features" | "applications" | "handling" | "test-fixture";
+
+/** How one condition value is written in a table cell. */
+export type ConditionFormat =
+  | "frequency" // Hz → GHz / MHz / kHz / Hz
+  | "frequency-range" // two keys, start and stop in Hz → "1–3 GHz"
+  | "power-dbm"
+  | "temperature-c"
+  | "port"
+  | "text";
+
+export interface ConditionSource {
+  /** Condition key of the derived parameter (or "temperatureC", taken from the measurement set). */
+  key: string;
+  /** Second key for "frequency-range": the stop frequency. */
+  stopKey?: string;
+  format: ConditionFormat;
+  /** Written after the value, e.g. "in" / "out" to say which frequency it is. */
+  suffix?: string;
+}
+
+/** One condition column of the electrical-specifications table. A cell shows the first source present. */
+export interface ConditionColumn {
+  id: string;
+  label: string;
+  sources: ConditionSource[];
+}
+
+export interface SpecRowTemplate {
+  /** Stable id within the template. */
+  id: string;
+  /** lib/analysis parameter name (parameterCatalog key). */
+  parameter: string;
+  label: string;
+  symbol: string;
+  unit: string;
+  /** Decimals printed for limits and typical values (statistics get one more for s). */
+  decimals: number;
+  /** Conditions a derived parameter must carry, value for value, to belong to this row. */
+  match?: Record<string, string | number>;
+  /** Condition keys that split the row into groups; each group is one table line and one statistics entry. */
+  groupBy: string[];
+  defaultBasis: LimitBasis;
+}
+
+export interface CurveTemplate {
+  /** Stable chart id in the sheet. */
+  id: string;
+  /** lib/analysis curve id. */
+  curveId: string;
+  title: string;
+  /** What the chart shows beyond the title; the sheet adds how many units are drawn. */
+  caption: string;
+  /** Keep only some series of the curve (by series name); all by default. */
+  selectSeries?: (seriesName: string) => boolean;
+}
+
+export interface ProseTemplate {
+  id: ProseSectionId;
+  title: string;
+  /** Markdown shown until the engineer writes the section. */
+  markdown: string;
+}
+
+export interface AbsoluteMaximumRatingTemplate {
+  /** Matched against SheetInput.absoluteMaximumRatings[].label; the value always comes from the device data. */
+  label: string;
+  unit: string;
+}
+
+export interface SheetTemplate {
+  deviceClass: string;
+  /** Human name of the class, e.g. "Frequency multiplier". */
+  label: string;
+  /** Measurement kinds whose approved sets feed the sheet. */
+  measurementKinds: MeasurementKind[];
+  specifications: {
+    conditionColumns: ConditionColumn[];
+    rows: SpecRowTemplate[];
+    /** Printed under the table, e.g. the reference impedance. */
+    notes: string[];
+  };
+  curves: CurveTemplate[];
+  prose: ProseTemplate[];
+  cautions: string[];
+  absoluteMaximumRatings: AbsoluteMaximumRatingTemplate[];
+}

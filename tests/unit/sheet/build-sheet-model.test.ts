@@ -1,0 +1,206 @@
+import { describe, expect, it } from "vitest";
+import { buildSheetModel, serializeSheetModel, type SheetInput } from "@/lib/sheet";
+import { computeToleranceInterval } from "@/lib/stats";
+import { loadDoublerInput, shuffled } from "./fixture";
+
+const CL_2GHZ = "drive=optimum;inputFrequencyHz=2000000000;temperatureC=25";
+const CL_3GHZ = "drive=optimum;inputFrequencyHz=3000000000;temperatureC=25";
+
+/** The fixture's values for one group, read straight from the sets (one per unit, 25 °C sets only). */
+function rawValues(input: SheetInput, name: string, conditions: Record<string, number | string>, temperatureC: number): number[] {
+  const values: number[] = [];
+  for (const set of input.approvedSets) {
+    if (set.temperatureC !== temperatureC) continue;
+    for (const p of set.parameters) {
+      if (p.name !== name || p.value === null) continue;
+      if (Object.entries(conditions).every(([k, v]) => p.conditions[k] === v)) values.push(p.value);
+    }
+  }
+  return values;
+}
+
+describe("buildSheetModel on the doubler fixture", () => {
+  const input = loadDoublerInput();
+  const model = buildSheetModel(input);
+  const group = (rowId: string, key: string) => {
+    const found = model.statistics.groups.find((g) => g.rowId === rowId && g.conditionsKey === key);
+    if (!found) throw new Error(`no group ${rowId} ${key}`);
+    return found;
+  };
+
+  it("computes n, mean, s, median, min, max by hand", () => {
+    const values = rawValues(input, "conversion-loss", { drive: "optimum", inputFrequencyHz: 2e9 }, 25);
+    expect(values).toHaveLength(10);
+    const n = values.length;
+    const mean = values.reduce((a, b) => a + b, 0) / n;
+    const s = Math.sqrt(values.reduce((a, v) => a + (v - mean) ** 2, 0) / (n - 1));
+    const sorted = [...values].sort((a, b) => a - b);
+    const g = group("conversion-loss-optimum", CL_2GHZ);
+    expect(g.n).toBe(10);
+    expect(g.lots).toBe(2);
+    expect(g.mean.value).toBeCloseTo(mean, 8);
+    expect(g.standardDeviation.value).toBeCloseTo(s, 8);
+    expect(g.median.value).toBeCloseTo((sorted[4] + sorted[5]) / 2, 8);
+    expect(g.min.value).toBeCloseTo(sorted[0], 8);
+    expect(g.max.value).toBeCloseTo(sorted[9], 8);
+    // Cpk against the one-sided max limit 12 dB: (USL − mean)/(3s), NIST/SEMATECH §6.1.6.
+    expect(g.cpk.value).toBeCloseTo((12 - mean) / (3 * s), 8);
+    expect(g.mean.text).toMatch(/^\d+\.\d{3}$/);
+  });
+
+  it("gives the exact two-sided tolerance interval (99 % coverage, 95 % confidence)", () => {
+    const g = group("conversion-loss-optimum", CL_2GHZ);
+    // Exact factor for n = 10, p = 0.99, γ = 0.95: 4.4369 (Berthouex & Brown Table 21.1 gives 4.44).
+    expect(g.toleranceInterval?.factor.value).toBeCloseTo(4.4369, 3);
+    const expected = computeToleranceInterval({
+      sampleSize: 10,
+      coverage: 0.99,
+      confidence: 0.95,
+      mean: g.mean.value!,
+      standardDeviation: g.standardDeviation.value!,
+    });
+    expect(g.toleranceInterval?.lower.value).toBeCloseTo(expected.lower, 6);
+    expect(g.toleranceInterval?.upper.value).toBeCloseTo(expected.upper, 6);
+  });
+
+  it("flags a limit whose Cpk is below the threshold", () => {
+    const g = group("fundamental-suppression", "drive=optimum;inputFrequencyHz=2000000000;order=1;temperatureC=25");
+    expect(g.cpk.value!).toBeLessThan(1.33);
+    expect(g.flags.map((f) => f.code)).toContain("cpk-below-threshold");
+    expect(g.supported).toBe(false);
+    expect(model.specifications.rows.find((r) => r.groupId === g.groupId)?.supported).toBe(false);
+  });
+
+  it("passes a well-supported limit without flags and states the guard-band rule", () => {
+    const g = group("conversion-loss-optimum", CL_2GHZ);
+    expect(g.flags).toEqual([]);
+    expect(g.decisionRule).toBe("guard-band");
+    expect(g.acceptance?.upper.value).toBeCloseTo(12 - 0.4, 10);
+    expect(g.passCount).toBe(10);
+    expect(model.statistics.decisionRules.some((r) => r.includes("ILAC-G8:09/2019 §4.2.2"))).toBe(true);
+  });
+
+  it("fails every unit above the guard-banded limit (max − U) and flags the group", () => {
+    const g = group("conversion-loss-optimum", CL_3GHZ);
+    const acceptance = 11.5 - 0.4;
+    const outside = g.units.filter((u) => u.value.value! > acceptance).map((u) => u.serial);
+    expect(outside.length).toBeGreaterThan(0);
+    expect(g.units.filter((u) => u.decision === "fail").map((u) => u.serial)).toEqual(outside);
+    expect(g.flags.map((f) => f.code)).toContain("unit-outside-acceptance");
+  });
+
+  it("prints limits, the measured mean as typ when none is stated, basis marks and footnotes", () => {
+    const row = model.specifications.rows.find((r) => r.groupId === `conversion-loss-optimum:${CL_3GHZ}`)!;
+    expect(row.max.text).toBe("11.50");
+    expect(row.typIsMeasuredMean).toBe(true);
+    expect(row.basisMark).toBe("T");
+    expect(row.conditions).toEqual(["3\u00a0GHz in", "optimum", "", "25\u00a0°C"]);
+    const marks = row.footnoteMarks.map((m) => model.specifications.footnotes.find((f) => f.mark === m)?.text);
+    expect(marks).toContain("At 3 GHz input the limit applies to lots from L24-07 on.");
+    const pn = model.specifications.rows.find((r) => r.rowId === "residual-phase-noise" && r.max.text)!;
+    expect(pn.max.text).toBe("\u2212155.0");
+  });
+
+  it("keeps ratings from the device data and reports the missing one", () => {
+    expect(model.absoluteMaximumRatings.find((r) => r.label.startsWith("RF input"))?.value).toBe("+20");
+    const esd = model.absoluteMaximumRatings.find((r) => r.label.startsWith("ESD"));
+    expect(esd).toMatchObject({ value: "", missing: true });
+    expect(model.issues.map((i) => i.code)).toContain("rating-missing");
+  });
+
+  it("carries charts as Vega-Lite specs with the data inlined", () => {
+    expect(model.charts.map((c) => c.id)).toEqual(["conversion-loss-vs-drive", "output-spectrum-vs-drive", "phase-noise"]);
+    const spec = model.charts[0].vegaLite as { $schema: string; data: { values: { unit: string }[] } };
+    expect(spec.$schema).toContain("vega-lite/v6");
+    expect(new Set(spec.data.values.map((v) => v.unit)).size).toBe(10);
+  });
+
+  it("shows the preliminary banner until released, and not after", () => {
+    expect(model.header.banner).toBe("PRELIMINARY — NOT RELEASED");
+    const released = buildSheetModel({ ...input, revision: { ...input.revision, label: "C", state: "released" } });
+    expect(released.header.banner).toBeNull();
+    expect(released.header.revisionText).toBe("Rev. C");
+  });
+
+  it("lists instruments once, with uncertainty and calibration dates", () => {
+    const { instruments } = model.traceability;
+    // Sorted by kind: phase-noise test set, signal generator, spectrum analyzer.
+    expect(instruments.map((i) => i.serial)).toEqual(["QPN-0042", "TSG-2291", "CSA-0815"]);
+    expect(instruments.find((i) => i.serial === "CSA-0815")?.setCount).toBe(23);
+    expect(instruments[1].uncertainty[0]).toBe("output level: ±0.5 dB (k = 2)");
+    expect(instruments[1]).toMatchObject({ calibratedOn: "2025-09-02", calibrationDueOn: "2026-09-02", calibrationLapsed: false });
+  });
+});
+
+describe("decisions per unit", () => {
+  const base = loadDoublerInput();
+  const cases = [
+    { name: "guard band w = U rejects a unit inside the limit but within U of it", u: 0.4, max: 11.0, value: 10.8, decision: "fail", rule: "guard-band" },
+    { name: "guard band accepts a unit more than U inside", u: 0.4, max: 11.5, value: 10.8, decision: "pass", rule: "guard-band" },
+    { name: "simple acceptance (no U stated) accepts the same unit", u: undefined, max: 11.0, value: 10.8, decision: "pass", rule: "simple-acceptance" },
+    { name: "simple acceptance rejects a unit beyond the limit", u: undefined, max: 10.7, value: 10.8, decision: "fail", rule: "simple-acceptance" },
+  ] as const;
+  for (const c of cases) {
+    it(c.name, () => {
+      const set = base.approvedSets[0];
+      const input: SheetInput = {
+        ...base,
+        approvedSets: [
+          { ...set, parameters: [{ name: "conversion-loss", value: c.value, unit: "dB", conditions: { drive: "optimum", inputFrequencyHz: 2e9 } }] },
+        ],
+        limits: [{ parameter: "conversion-loss", conditionsKey: CL_2GHZ, max: c.max, unit: "dB", basis: "test" }],
+        settings: { ...base.settings, measurementUncertainty: c.u === undefined ? {} : { "conversion-loss": c.u } },
+      };
+      const g = buildSheetModel(input).statistics.groups.find((x) => x.conditionsKey === CL_2GHZ)!;
+      expect(g.units[0].decision).toBe(c.decision);
+      expect(g.decisionRule).toBe(c.rule);
+      expect(g.flags.map((f) => f.code)).toContain("insufficient-data");
+    });
+  }
+
+  it("flags a limit that no data supports and keeps it in the table", () => {
+    const input: SheetInput = {
+      ...base,
+      limits: [...base.limits, { parameter: "optimum-drive", conditionsKey: "inputFrequencyHz=4000000000;temperatureC=25", max: 12, unit: "dBm", basis: "design" }],
+    };
+    const model = buildSheetModel(input);
+    const g = model.statistics.groups.find((x) => x.rowId === "optimum-drive" && x.conditionsKey.startsWith("inputFrequencyHz=4000000000"))!;
+    expect(g.n).toBe(0);
+    expect(g.flags.map((f) => f.code)).toEqual(["limit-without-data"]);
+    expect(model.specifications.rows.some((r) => r.groupId === g.groupId && r.max.text === "12.0")).toBe(true);
+  });
+});
+
+describe("determinism", () => {
+  const input = loadDoublerInput();
+
+  it("builds byte-identical JSON twice", () => {
+    expect(serializeSheetModel(buildSheetModel(input))).toBe(serializeSheetModel(buildSheetModel(input)));
+  });
+
+  it("gives the same bytes when every input array is shuffled", () => {
+    const reordered: SheetInput = {
+      ...input,
+      approvedSets: shuffled(input.approvedSets, 7).map((set, i) => ({
+        ...set,
+        parameters: shuffled(set.parameters, i + 11),
+        instruments: shuffled(set.instruments, i + 13),
+      })),
+      limits: shuffled(input.limits, 3),
+      revision: { ...input.revision, history: shuffled(input.revision.history, 5) },
+    };
+    expect(reordered.approvedSets.map((s) => s.id)).not.toEqual(input.approvedSets.map((s) => s.id));
+    expect(serializeSheetModel(buildSheetModel(reordered))).toBe(serializeSheetModel(buildSheetModel(input)));
+  });
+
+  it("sorts object keys in the serialized JSON", () => {
+    const json = serializeSheetModel(buildSheetModel(input));
+    expect(json.indexOf('"absoluteMaximumRatings"')).toBeLessThan(json.indexOf('"charts"'));
+    expect(JSON.parse(json).header.partNumber).toBe("OCX-2D40");
+  });
+
+  it("refuses an unknown device class and a non-ISO date", () => {
+    expect(() => buildSheetModel({ ...input, device: { ...input.device, deviceClass: "tripler-x" } })).toThrow(/No sheet template/);
+    expect(() => buildSheetModel({ ...input, revision: { ...input.revision, date: "3 Feb 2026" } })).toThrow(/ISO date/);
+  });
+});
