@@ -52,6 +52,8 @@ if node node_modules/next/dist/bin/next build >"$OCTAVO_DATA_DIR/logs/next-build
   SERVER_PID=$!
   for _ in $(seq 1 150); do curl -fsS "$OCTAVO_TEST_URL/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done
   if curl -fsS "$OCTAVO_TEST_URL/api/auth/csrf" >/dev/null 2>&1; then
+    step "demo measurements through the bench API" env OCTAVO_APP_URL="$OCTAVO_TEST_URL" \
+      node node_modules/tsx/dist/cli.mjs scripts/seed-demo-measurements.ts
     step "integration tests" node node_modules/vitest/vitest.mjs run --project integration \
       --reporter=default --reporter=json --outputFile.json="$RESULTS/integration.json"
     step "browser tests" env PLAYWRIGHT_JSON_OUTPUT_NAME="$RESULTS/e2e.json" \

@@ -61,3 +61,18 @@ describe("migrations and demo seed on MariaDB", () => {
     ).rejects.toThrow();
   });
 });
+
+describe("demo measurement sets", () => {
+  it("went in through the bench upload API, some approved and some pending", async () => {
+    const { MeasurementSet } = await import("@/models");
+    const kestrine = await Organization.findOne({ where: { slug: "kestrine" } });
+    const sets = await MeasurementSet.findAll({ where: { organizationId: kestrine!.id } });
+    expect(sets.length).toBeGreaterThanOrEqual(8);
+    expect(new Set(sets.map((s) => s.source))).toEqual(new Set(["bench-api"]));
+    expect(sets.filter((s) => s.state === "approved").length).toBeGreaterThan(0);
+    expect(sets.filter((s) => s.state === "submitted").length).toBeGreaterThan(0);
+    const doubler = await Device.findOne({ where: { organizationId: kestrine!.id, partNumber: "KDX-2G4" } });
+    const serials = sets.filter((s) => s.deviceId === doubler!.id && s.kind === "drive-sweep").map((s) => s.conditions.serial);
+    expect(serials.sort()).toEqual(["OCT-0001", "OCT-0002", "OCT-0003", "OCT-0004", "OCT-0005"]);
+  });
+});
