@@ -1,10 +1,14 @@
+import Link from "next/link";
 import type { DeviceSummary } from "@/lib/server/devices/list-devices";
 import { formatDate, formatFrequencyRange, formatNumber } from "@/components/format-quantity";
+import { buttonClass } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
-import { Notice } from "@/components/ui/notice";
+import { selectClass } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { Quantity } from "@/components/ui/quantity";
 import { deviceClassLabels } from "./device-class-label";
+import { applyDeviceListQuery, deviceListHref, type DeviceListQuery, type DeviceSortKey } from "./device-list-query";
+import { NewDeviceForm } from "./new-device-form";
 
 function Range({ range }: { range?: { min: number; max: number } }) {
   if (!range) return <span className="text-ink-muted">—</span>;
@@ -12,85 +16,178 @@ function Range({ range }: { range?: { min: number; max: number } }) {
   return <Quantity value={value} unit={unit} />;
 }
 
-export function DevicesView({ devices, organizationName }: { devices: DeviceSummary[]; organizationName: string }) {
+type DevicesViewProps = { devices: DeviceSummary[]; organizationName: string; query: DeviceListQuery; canCreate: boolean };
+
+export function DevicesView({ devices, organizationName, query, canCreate }: DevicesViewProps) {
+  const { rows, total, page, pageCount } = applyDeviceListQuery(devices, query);
   return (
     <>
       <PageHeader
         runningHead={organizationName}
         title="Devices"
         lead="The parts your organization characterizes, with the conditions that identify each one. Only your organization sees this list."
+        actions={
+          canCreate ? (
+            <a href="#new-device" className={buttonClass.secondary}>
+              New device
+            </a>
+          ) : null
+        }
       />
       {devices.length === 0 ? (
         <EmptyState title="No devices yet">
           <p>Devices your engineers register appear here, one row per part number.</p>
         </EmptyState>
       ) : (
-        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Devices table, scrolls sideways on narrow screens">
-          <table className="sheet-table" data-testid="devices-table">
-            <caption>
-              <span className="figure">{devices.length}</span> {devices.length === 1 ? "device" : "devices"}, by part number
-            </caption>
-            <thead>
-              <tr>
-                <th scope="col">Part number</th>
-                <th scope="col">Class</th>
-                <th scope="col">Title</th>
-                <th scope="col">Input range</th>
-                <th scope="col">Output range</th>
-                <th scope="col" className="num">
-                  Drive
-                </th>
-                <th scope="col" className="num">
-                  Updated
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {devices.map((device) => {
-                const k = device.keyConditions;
-                return (
-                  <tr key={device.id}>
-                    <th scope="row" className="figure whitespace-nowrap font-semibold">
-                      {device.partNumber}
+        <>
+          <form method="get" action="/devices" role="search" className="mb-6 flex flex-wrap items-end gap-3" data-testid="devices-search">
+            <div className="min-w-[16rem] flex-1 space-y-1.5 sm:max-w-md">
+              <label htmlFor="device-search" className="block text-[0.9375rem] font-semibold">
+                Search part number or title
+              </label>
+              <input id="device-search" name="q" type="search" defaultValue={query.q} className={selectClass} placeholder="e.g. C2611 or doubler" />
+            </div>
+            {query.sort !== "part" ? <input type="hidden" name="sort" value={query.sort} /> : null}
+            {query.dir !== (query.sort === "updated" ? "desc" : "asc") ? <input type="hidden" name="dir" value={query.dir} /> : null}
+            <button type="submit" className={buttonClass.secondary}>
+              Search
+            </button>
+            {query.q ? (
+              <Link href={deviceListHref(query, { q: "", page: 1 })} className={buttonClass.quiet}>
+                Clear search
+              </Link>
+            ) : null}
+          </form>
+          {total === 0 ? (
+            <p className="border-y border-rule py-4 text-ink-muted" data-testid="devices-no-match">
+              No device matches “{query.q}”.
+            </p>
+          ) : (
+            <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Devices table, scrolls sideways on narrow screens">
+              <table className="sheet-table" data-testid="devices-table">
+                <caption>
+                  <span className="figure">{total}</span> {total === 1 ? "device" : "devices"}
+                  {query.q ? <> matching “{query.q}”</> : null}, by {sortWords[query.sort]}
+                  {query.dir === "desc" ? " (descending)" : ""}
+                  {pageCount > 1 ? (
+                    <>
+                      {" "}
+                      · page <span className="figure">{page}</span> of <span className="figure">{pageCount}</span>
+                    </>
+                  ) : null}
+                </caption>
+                <thead>
+                  <tr>
+                    <SortHeader label="Part number" sortKey="part" query={query} />
+                    <SortHeader label="Class" sortKey="class" query={query} />
+                    <th scope="col">Title</th>
+                    <th scope="col">Input range</th>
+                    <th scope="col">Output range</th>
+                    <th scope="col" className="num">
+                      Drive
                     </th>
-                    <td className="whitespace-nowrap">
-                      {deviceClassLabels[device.deviceClass]}
-                      {k.multiplicationFactor ? (
-                        <span className="figure ml-1.5 text-ink-muted" title={`Multiplication factor ${k.multiplicationFactor}`}>
-                          ×{formatNumber(k.multiplicationFactor)}
-                        </span>
-                      ) : null}
-                    </td>
-                    <td className="min-w-[16rem]">{device.title}</td>
-                    <td className="whitespace-nowrap">
-                      <Range range={k.inputFrequencyHz} />
-                    </td>
-                    <td className="whitespace-nowrap">
-                      <Range range={k.outputFrequencyHz} />
-                    </td>
-                    <td className="num">
-                      {k.driveLevelDbm === undefined ? (
-                        <span className="text-ink-muted">—</span>
-                      ) : (
-                        <Quantity value={formatNumber(k.driveLevelDbm, { signed: true })} unit="dBm" />
-                      )}
-                    </td>
-                    <td className="num whitespace-nowrap">
-                      <span className="figure">{formatDate(device.updatedAt)}</span>
-                    </td>
+                    <SortHeader label="Updated" sortKey="updated" query={query} numeric />
                   </tr>
-                );
-              })}
-            </tbody>
-          </table>
-        </div>
+                </thead>
+                <tbody>
+                  {rows.map((device) => {
+                    const k = device.keyConditions;
+                    return (
+                      <tr key={device.id}>
+                        <th scope="row" className="figure whitespace-nowrap font-semibold">
+                          <Link href={`/devices/${device.id}`}>{device.partNumber}</Link>
+                        </th>
+                        <td className="whitespace-nowrap">
+                          {deviceClassLabels[device.deviceClass]}
+                          {k.multiplicationFactor ? (
+                            <span className="figure ml-1.5 text-ink-muted" title={`Multiplication factor ${k.multiplicationFactor}`}>
+                              ×{formatNumber(k.multiplicationFactor)}
+                            </span>
+                          ) : null}
+                        </td>
+                        <td className="min-w-[16rem]">{device.title}</td>
+                        <td className="whitespace-nowrap">
+                          <Range range={k.inputFrequencyHz} />
+                        </td>
+                        <td className="whitespace-nowrap">
+                          <Range range={k.outputFrequencyHz} />
+                        </td>
+                        <td className="num">
+                          {k.driveLevelDbm === undefined ? (
+                            <span className="text-ink-muted">—</span>
+                          ) : (
+                            <Quantity value={formatNumber(k.driveLevelDbm, { signed: true })} unit="dBm" />
+                          )}
+                        </td>
+                        <td className="num whitespace-nowrap">
+                          <span className="figure">{formatDate(device.updatedAt)}</span>
+                        </td>
+                      </tr>
+                    );
+                  })}
+                </tbody>
+              </table>
+            </div>
+          )}
+          {pageCount > 1 ? <Pager query={query} page={page} pageCount={pageCount} /> : null}
+        </>
       )}
-      <div className="mt-8 max-w-prose">
-        <Notice>
-          Measurement upload, column mapping and spec limits arrive in a later release. For now this list shows the parts and their
-          identifying conditions only.
-        </Notice>
-      </div>
+      {canCreate ? (
+        <section id="new-device" aria-labelledby="new-device-title" className="mt-14 max-w-3xl scroll-mt-8 border-t border-rule pt-8">
+          <h2 id="new-device-title" className="mb-1 text-xl font-semibold">
+            New device
+          </h2>
+          <p className="mb-6 text-ink-muted">
+            Register a part by its number; measurement sets are uploaded on its page. Frequencies are entered with their unit and stored in hertz.
+          </p>
+          <NewDeviceForm />
+        </section>
+      ) : null}
     </>
+  );
+}
+
+const sortWords: Record<DeviceSortKey, string> = { part: "part number", class: "class", updated: "last update" };
+
+function SortHeader({ label, sortKey, query, numeric }: { label: string; sortKey: DeviceSortKey; query: DeviceListQuery; numeric?: boolean }) {
+  const active = query.sort === sortKey;
+  const nextDir = active ? (query.dir === "asc" ? "desc" : "asc") : sortKey === "updated" ? "desc" : "asc";
+  return (
+    <th scope="col" className={numeric ? "num" : undefined} aria-sort={active ? (query.dir === "asc" ? "ascending" : "descending") : undefined}>
+      <Link
+        href={deviceListHref(query, { sort: sortKey, dir: nextDir, page: 1 })}
+        className={`no-underline hover:text-ink ${active ? "text-ink" : ""}`}
+        aria-label={`Sort by ${label.toLowerCase()}${active ? `, now ${query.dir === "asc" ? "ascending" : "descending"}` : ""}`}
+      >
+        {label}
+        <span aria-hidden="true" className="ml-1 inline-block w-2.5">
+          {active ? (query.dir === "asc" ? "↑" : "↓") : ""}
+        </span>
+      </Link>
+    </th>
+  );
+}
+
+function Pager({ query, page, pageCount }: { query: DeviceListQuery; page: number; pageCount: number }) {
+  return (
+    <nav aria-label="Pages of the device list" className="mt-5 flex items-center gap-5 text-[0.9375rem]" data-testid="devices-pager">
+      {page > 1 ? (
+        <Link href={deviceListHref(query, { page: page - 1 })} rel="prev">
+          ← Previous
+        </Link>
+      ) : (
+        <span className="text-ink-muted">← Previous</span>
+      )}
+      <span className="text-ink-muted">
+        Page <span className="figure text-ink">{page}</span> of <span className="figure text-ink">{pageCount}</span>
+      </span>
+      {page < pageCount ? (
+        <Link href={deviceListHref(query, { page: page + 1 })} rel="next">
+          Next →
+        </Link>
+      ) : (
+        <span className="text-ink-muted">Next →</span>
+      )}
+    </nav>
   );
 }

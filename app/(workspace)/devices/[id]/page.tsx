@@ -1,0 +1,35 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { isAppError } from "@/lib/errors";
+import { can } from "@/lib/server/auth/permissions";
+import { getDevice } from "@/lib/server/devices/get-device";
+import { listInstruments } from "@/lib/server/instruments/list-instruments";
+import { listDeviceMeasurementSets } from "@/lib/server/measurements/list-device-measurement-sets";
+import { DeviceView } from "@/components/devices/device-view";
+import { ForbiddenView } from "@/components/workspace/forbidden-view";
+import { requirePageUser } from "@/components/workspace/require-page-user";
+
+type Props = { params: Promise<{ id: string }> };
+
+export const metadata: Metadata = { title: "Device" };
+
+export default async function DevicePage({ params }: Props) {
+  const { id } = await params;
+  const access = await requirePageUser({ permission: "device:read", path: `/devices/${id}` });
+  if (!access.allowed) return <ForbiddenView role={access.user.role} pageName="this device" />;
+  const deviceId = Number(id);
+  if (!Number.isInteger(deviceId) || deviceId <= 0) notFound();
+  const { organizationId } = access.user;
+  const canUpload = can(access.user.role, "measurement:upload");
+  try {
+    const [device, sets, instruments] = await Promise.all([
+      getDevice({ organizationId, deviceId }),
+      listDeviceMeasurementSets({ organizationId, deviceId }),
+      canUpload ? listInstruments(organizationId) : Promise.resolve([]),
+    ]);
+    return <DeviceView device={device} organizationName={access.user.organizationName} sets={sets} upload={canUpload ? { instruments } : null} />;
+  } catch (error) {
+    if (isAppError(error) && error.code === "not-found") notFound();
+    throw error;
+  }
+}

@@ -1,0 +1,46 @@
+"use client";
+
+import { useMemo, useState, useSyncExternalStore } from "react";
+import { VegaEmbed } from "react-vega";
+import type { Curve } from "@/lib/analysis/types";
+import { buildCurveSpec, defaultChartFonts, type ChartFonts } from "./curve-spec";
+
+/** The page's own font stacks (next/font names them), so chart text matches the text around it. */
+function readFonts(): ChartFonts {
+  const root = getComputedStyle(document.documentElement);
+  const text = root.getPropertyValue("--font-text").trim();
+  const figures = root.getPropertyValue("--font-figures").trim();
+  return { text: text ? `${text}, ${defaultChartFonts.text}, sans-serif` : defaultChartFonts.text, figures: figures ? `${figures}, ${defaultChartFonts.figures}, monospace` : defaultChartFonts.figures };
+}
+
+const noSubscribe = () => () => {};
+
+export default function CurveChart({ curve, thermalFloorDbcHz }: { curve: Curve; thermalFloorDbcHz?: number }) {
+  const fontsKey = useSyncExternalStore(noSubscribe, () => JSON.stringify(readFonts()), () => "");
+  const [failed, setFailed] = useState<string | null>(null);
+  const spec = useMemo(
+    () => buildCurveSpec(curve, { width: "container", height: 260, fonts: fontsKey ? (JSON.parse(fontsKey) as ChartFonts) : defaultChartFonts, thermalFloorDbcHz }),
+    [curve, fontsKey, thermalFloorDbcHz],
+  );
+  if (failed) return <p className="text-sm text-signal-deep">The chart could not be drawn: {failed}</p>;
+  return (
+    <>
+      <style>{tooltipCss}</style>
+      <VegaEmbed
+      spec={spec}
+      options={{ renderer: "svg", actions: false, tooltip: { theme: "custom" } }}
+      onError={(e) => setFailed(e instanceof Error ? e.message : String(e))}
+      className="w-full"
+      data-testid={`chart-${curve.id}`}
+      />
+    </>
+  );
+}
+
+/** vega-tooltip's "custom" theme, in the page's paper and ink. */
+const tooltipCss = `
+#vg-tooltip-element.custom-theme { background: #FFFDF8; color: #1C1A17; border: 1px solid #8C8273; border-radius: 2px;
+  box-shadow: 0 2px 6px rgb(28 26 23 / 0.12); font-family: var(--font-text), sans-serif; font-size: 13px; padding: 6px 9px; }
+#vg-tooltip-element.custom-theme td.key { color: #6E685E; padding-right: 8px; }
+#vg-tooltip-element.custom-theme td.value { font-family: var(--font-figures), monospace; font-variant-numeric: tabular-nums; }
+`;

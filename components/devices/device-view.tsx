@@ -1,0 +1,54 @@
+import Link from "next/link";
+import type { DeviceSummary } from "@/lib/server/devices/device-summary";
+import type { InstrumentSummary } from "@/lib/server/instruments/instrument-summary";
+import type { MeasurementSetSummary } from "@/lib/server/measurements/measurement-set-summary";
+import { EmptyState } from "@/components/ui/empty-state";
+import { PageHeader } from "@/components/ui/page-header";
+import { MeasurementSetsTable } from "@/components/measurements/measurement-sets-table";
+import { UploadPanel } from "@/components/measurements/upload-panel";
+import { DeviceKeyConditions } from "./device-key-conditions";
+
+type DeviceViewProps = {
+  device: DeviceSummary;
+  organizationName: string;
+  sets: MeasurementSetSummary[];
+  /** Present when the viewer may upload. */
+  upload: { instruments: InstrumentSummary[] } | null;
+};
+
+export function DeviceView({ device, organizationName, sets, upload }: DeviceViewProps) {
+  const supersedable = sets
+    .filter((s) => !s.supersededById)
+    .map((s) => ({ id: s.id, kind: s.kind, fileName: s.fileName, serial: s.conditions.serial }));
+  return (
+    <>
+      <nav aria-label="Breadcrumb" className="mb-3 text-sm text-ink-muted">
+        <Link href="/devices">Devices</Link> <span aria-hidden="true">/</span> <span className="figure">{device.partNumber}</span>
+      </nav>
+      <PageHeader runningHead={organizationName} title={device.partNumber} lead={<p>{device.title}</p>} />
+      <div className="-mt-4 mb-10 space-y-4">
+        <DeviceKeyConditions device={device} />
+        {device.description ? <p className="max-w-prose text-[0.9375rem] text-ink-muted">{device.description}</p> : null}
+      </div>
+
+      <section aria-labelledby="sets-title" className="mb-12">
+        <h2 id="sets-title" className="mb-4 text-xl font-semibold">
+          Measurement sets
+        </h2>
+        {sets.length === 0 ? (
+          <EmptyState title="No measurements yet" testId="no-measurement-sets">
+            <p>
+              {upload
+                ? "Upload the bench files below: each becomes a measurement set with its conditions, derived parameters and curves, waiting for a reviewer."
+                : "An engineer uploads the bench files here; each becomes a measurement set that a reviewer approves or rejects."}
+            </p>
+          </EmptyState>
+        ) : (
+          <MeasurementSetsTable deviceId={device.id} sets={sets} />
+        )}
+      </section>
+
+      {upload ? <UploadPanel deviceId={device.id} instruments={upload.instruments} supersedable={supersedable} /> : null}
+    </>
+  );
+}

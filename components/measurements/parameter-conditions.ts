@@ -1,0 +1,64 @@
+import { formatFrequency, formatNumber } from "@/components/format-quantity";
+
+/**
+ * A derived parameter's conditions in words with units: `inputFrequencyHz: 1e9` → "input frequency 1 GHz".
+ * The unit is read from the key's suffix, the same convention the engine names them by.
+ */
+const suffixes: [RegExp, string][] = [
+  [/Hz$/, "Hz"],
+  [/Dbm$/, "dBm"],
+  [/DbcHz$/, "dBc/Hz"],
+  [/Dbc$/, "dBc"],
+  [/Db$/, "dB"],
+  [/Deg$/, "°"],
+  [/C$/, "°C"],
+  [/K$/, "K"],
+];
+
+const names: Record<string, string> = {
+  inputFrequencyHz: "input frequency",
+  carrierFrequencyHz: "carrier",
+  frequencyHz: "at",
+  offsetHz: "offset",
+  startHz: "from",
+  stopHz: "to",
+  inputPowerDbm: "input",
+  maxInputPowerDbm: "fit up to",
+  nominalDeg: "nominal",
+  temperatureK: "T",
+  ktDbmHz: "kT",
+  statistic: "",
+  drive: "drive",
+  order: "order",
+};
+
+function words(key: string): string {
+  if (key in names) return names[key];
+  const stem = key.replace(/(DbcHz|DbmHz|Dbm|Dbc|Db|Hz|Deg)$/, "");
+  return stem.replace(/([A-Z])/g, " $1").toLowerCase().trim();
+}
+
+export type ConditionPart = { label: string; value: string; unit?: string };
+
+export function describeConditions(conditions: Record<string, string | number>): ConditionPart[] {
+  const parts: ConditionPart[] = [];
+  for (const [key, raw] of Object.entries(conditions)) {
+    const label = words(key);
+    if (typeof raw === "string") {
+      parts.push({ label, value: raw });
+      continue;
+    }
+    if (key === "ktDbmHz") {
+      parts.push({ label, value: formatNumber(raw, { maxDecimals: 1 }), unit: "dBm/Hz" });
+      continue;
+    }
+    if (/Hz$/.test(key) && !/DbcHz$|DbmHz$/.test(key)) {
+      const f = formatFrequency(raw);
+      parts.push({ label, value: f.value, unit: f.unit });
+      continue;
+    }
+    const suffix = suffixes.find(([re]) => re.test(key));
+    parts.push({ label, value: formatNumber(raw, { signed: suffix?.[1] === "dBm" && raw > 0 }), unit: suffix?.[1] });
+  }
+  return parts;
+}
