@@ -34,14 +34,23 @@ export function findSpurs(options: FindSpursOptions): Spur[] {
   if (!(windowDecades > 0)) throw new RangeError(`Window must be positive, got ${windowDecades} decades`);
   const points = sortTrace(options.trace);
   const logOffsets = points.map((p) => Math.log10(p.offsetHz));
-  const floors = points.map((_, i) => {
-    const window: number[] = [];
-    for (let j = 0; j < points.length; j++) {
-      // The 1e-9 decade slack keeps points exactly on the window edge on both sides despite rounding.
-      const inWindow = Math.abs(logOffsets[j] - logOffsets[i]) <= windowDecades / 2 + 1e-9;
-      if (j !== i && inWindow) window.push(points[j].phaseNoiseDbcHz);
+  // The 1e-9 decade slack keeps points exactly on the window edge on both sides despite rounding.
+  const halfWindow = windowDecades / 2 + 1e-9;
+  // The window slides with the offset: a sorted copy of its levels is kept up to date, so each
+  // floor costs a binary search and a splice instead of a scan and a sort of the whole trace.
+  const window: number[] = [];
+  let low = 0;
+  let high = -1;
+  const floors = points.map((point, i) => {
+    while (high + 1 < points.length && logOffsets[high + 1] - logOffsets[i] <= halfWindow) {
+      high++;
+      window.splice(lowerBound(window, points[high].phaseNoiseDbcHz), 0, points[high].phaseNoiseDbcHz);
     }
-    return window.length > 0 ? median(window) : points[i].phaseNoiseDbcHz;
+    while (logOffsets[i] - logOffsets[low] > halfWindow) {
+      window.splice(lowerBound(window, points[low].phaseNoiseDbcHz), 1);
+      low++;
+    }
+    return window.length > 1 ? medianWithout(window, point.phaseNoiseDbcHz) : point.phaseNoiseDbcHz;
   });
 
   const spurs: Spur[] = [];
@@ -67,8 +76,22 @@ export function findSpurs(options: FindSpursOptions): Spur[] {
   return spurs;
 }
 
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  const middle = sorted.length >> 1;
-  return sorted.length % 2 === 1 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
+/** Median of a sorted list with one occurrence of `excluded` left out (the point itself). */
+function medianWithout(sorted: readonly number[], excluded: number): number {
+  const skip = lowerBound(sorted, excluded);
+  const count = sorted.length - 1;
+  const at = (k: number) => sorted[k < skip ? k : k + 1];
+  const middle = count >> 1;
+  return count % 2 === 1 ? at(middle) : (at(middle - 1) + at(middle)) / 2;
+}
+
+function lowerBound(sorted: readonly number[], value: number): number {
+  let lo = 0;
+  let hi = sorted.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (sorted[mid] < value) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
 }
