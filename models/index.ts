@@ -5,6 +5,8 @@ import { BenchToken } from "./bench-token";
 import { ColumnMapping } from "./column-mapping";
 import { Instrument } from "./instrument";
 import { MeasurementSet, MeasurementSetInstrument } from "./measurement-set";
+import { SheetContent } from "./sheet-content";
+import { SpecLimit } from "./spec-limit";
 import { StoredFile } from "./stored-file";
 import { Device } from "./device";
 import { Invitation } from "./invitation";
@@ -24,7 +26,9 @@ export {
   MeasurementSetInstrument,
   Organization,
   PasswordReset,
+  SheetContent,
   SignInAttempt,
+  SpecLimit,
   StoredFile,
   User,
 };
@@ -34,6 +38,7 @@ function initModels(sequelize: Sequelize): Sequelize {
   for (const model of [
     Organization, User, Invitation, PasswordReset, SignInAttempt, AuditEvent, Device,
     StoredFile, Instrument, BenchToken, ColumnMapping, MeasurementSet, MeasurementSetInstrument,
+    SpecLimit, SheetContent,
   ]) {
     model.initModel(sequelize);
   }

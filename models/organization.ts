@@ -8,6 +8,10 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
   declare slug: string;
   declare name: string;
   declare kind: OrganizationKind;
+  /** A spec limit whose Cpk falls below this is flagged on the sheet. */
+  declare cpkThreshold: CreationOptional<number>;
+  declare toleranceCoverage: CreationOptional<number>;
+  declare toleranceConfidence: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -18,6 +22,9 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
         slug: { type: DataTypes.STRING(64), allowNull: false, unique: true },
         name: { type: DataTypes.STRING(160), allowNull: false },
         kind: { type: DataTypes.ENUM(...organizationKinds), allowNull: false },
+        cpkThreshold: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 1.33 },
+        toleranceCoverage: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0.99 },
+        toleranceConfidence: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0.95 },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },

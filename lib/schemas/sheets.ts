@@ -1,0 +1,37 @@
+import { z } from "zod";
+
+const finite = z.number().refine(Number.isFinite, "must be a finite number");
+
+/** The whole set of a device's spec limits, replaced at once by the limits editor. */
+export const specLimitsBodySchema = z.object({
+  limits: z
+    .array(
+      z
+        .object({
+          parameter: z.string().regex(/^[a-z0-9-]+$/).max(64),
+          conditionsKey: z.string().max(255),
+          min: finite.nullable().optional(),
+          typ: finite.nullable().optional(),
+          max: finite.nullable().optional(),
+          unit: z.string().trim().min(1).max(16),
+          basis: z.enum(["test", "characterization", "design"]),
+          footnote: z.string().trim().max(500).optional(),
+        })
+        .refine((l) => l.min != null || l.typ != null || l.max != null, "Give at least one of min, typ, max.")
+        .refine((l) => l.min == null || l.max == null || l.min <= l.max, { message: "min must not exceed max", path: ["max"] }),
+    )
+    .max(400),
+});
+export type SpecLimitsBody = z.infer<typeof specLimitsBodySchema>;
+
+export const proseSectionIds = ["description", "features", "applications", "handling", "test-fixture"] as const;
+
+export const sheetContentBodySchema = z.object({
+  prose: z.partialRecord(z.enum(proseSectionIds), z.string().max(20_000)).default({}),
+  absoluteMaximumRatings: z
+    .array(z.object({ label: z.string().trim().min(1).max(120), value: z.string().trim().min(1).max(40), unit: z.string().trim().max(16) }))
+    .max(40)
+    .default([]),
+  measurementUncertainty: z.record(z.string().regex(/^[a-z0-9-]+$/).max(64), z.number().positive().max(100)).default({}),
+});
+export type SheetContentBody = z.infer<typeof sheetContentBodySchema>;

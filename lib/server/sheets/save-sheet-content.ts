@@ -1,0 +1,23 @@
+import "server-only";
+import { AppError } from "@/lib/errors";
+import type { SheetContentBody } from "@/lib/schemas/sheets";
+import { Device, SheetContent, getSequelize } from "@/models";
+import { recordAuditEvent } from "../audit/record-audit-event";
+import type { SessionUser } from "../auth/session-user";
+
+export async function saveSheetContent(opts: { actor: SessionUser; deviceId: number; input: SheetContentBody }): Promise<void> {
+  const { actor, deviceId, input } = opts;
+  await getSequelize().transaction(async (transaction) => {
+    const device = await Device.findOne({ where: { id: deviceId, organizationId: actor.organizationId }, lock: transaction.LOCK.UPDATE, transaction });
+    if (!device) throw new AppError("not-found", "No such device in your organization.");
+    const existing = await SheetContent.findOne({ where: { deviceId }, transaction });
+    const values = { prose: input.prose, absoluteMaximumRatings: input.absoluteMaximumRatings, measurementUncertainty: input.measurementUncertainty, updatedById: actor.id };
+    const before = existing ? { prose: existing.prose, absoluteMaximumRatings: existing.absoluteMaximumRatings, measurementUncertainty: existing.measurementUncertainty } : null;
+    if (existing) await existing.update(values, { transaction });
+    else await SheetContent.create({ organizationId: actor.organizationId, deviceId, ...values }, { transaction });
+    await recordAuditEvent(
+      { organizationId: actor.organizationId, actorUserId: actor.id, action: "sheet-content.save", subjectType: "device", subjectId: deviceId, before, after: input },
+      transaction,
+    );
+  });
+}

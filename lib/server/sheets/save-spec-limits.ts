@@ -1,0 +1,51 @@
+import "server-only";
+import { AppError } from "@/lib/errors";
+import type { SpecLimitsBody } from "@/lib/schemas/sheets";
+import { Device, SpecLimit, getSequelize } from "@/models";
+import { recordAuditEvent } from "../audit/record-audit-event";
+import type { SessionUser } from "../auth/session-user";
+
+/** Replaces the device's spec limits as one change, with the old and new set in the audit trail. */
+export async function saveSpecLimits(opts: { actor: SessionUser; deviceId: number; input: SpecLimitsBody }): Promise<number> {
+  const { actor, deviceId, input } = opts;
+  const seen = new Set<string>();
+  for (const l of input.limits) {
+    const key = `${l.parameter}|${l.conditionsKey}`;
+    if (seen.has(key)) throw new AppError("invalid", `Two limits for ${l.parameter} under the same conditions (${l.conditionsKey || "none"}).`, { field: "limits" });
+    seen.add(key);
+  }
+  return getSequelize().transaction(async (transaction) => {
+    const device = await Device.findOne({ where: { id: deviceId, organizationId: actor.organizationId }, lock: transaction.LOCK.UPDATE, transaction });
+    if (!device) throw new AppError("not-found", "No such device in your organization.");
+    const before = await SpecLimit.findAll({ where: { deviceId }, transaction });
+    await SpecLimit.destroy({ where: { deviceId }, transaction });
+    await SpecLimit.bulkCreate(
+      input.limits.map((l) => ({
+        organizationId: actor.organizationId,
+        deviceId,
+        parameter: l.parameter,
+        conditionsKey: l.conditionsKey,
+        minValue: l.min ?? null,
+        typValue: l.typ ?? null,
+        maxValue: l.max ?? null,
+        unit: l.unit,
+        basis: l.basis,
+        footnote: l.footnote || null,
+      })),
+      { transaction },
+    );
+    await recordAuditEvent(
+      {
+        organizationId: actor.organizationId,
+        actorUserId: actor.id,
+        action: "spec-limits.replace",
+        subjectType: "device",
+        subjectId: deviceId,
+        before: before.map((l) => ({ parameter: l.parameter, conditionsKey: l.conditionsKey, min: l.minValue, typ: l.typValue, max: l.maxValue, unit: l.unit, basis: l.basis })),
+        after: input.limits,
+      },
+      transaction,
+    );
+    return input.limits.length;
+  });
+}

@@ -1,0 +1,76 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { Device, Organization, User, closeSequelize, getSequelize } from "@/models";
+import { demoPassword } from "@/models/seeders/demo-scenario";
+import type { SheetModel } from "@/lib/sheet";
+import { TestClient } from "./helpers/client";
+import { factoryPassword, makeOrganization } from "./helpers/factories";
+
+let engineer: TestClient;
+let reviewer: TestClient;
+let outsider: TestClient;
+let deviceId: number;
+
+beforeAll(async () => {
+  getSequelize();
+  const kestrine = await Organization.findOne({ where: { slug: "kestrine" } });
+  deviceId = (await Device.findOne({ where: { organizationId: kestrine!.id, partNumber: "KDX-2G4" } }))!.id;
+  const users = await User.findAll({ where: { organizationId: kestrine!.id } });
+  engineer = new TestClient();
+  reviewer = new TestClient();
+  expect((await engineer.signIn(users.find((u) => u.role === "engineer")!.email, demoPassword)).ok).toBe(true);
+  expect((await reviewer.signIn(users.find((u) => u.role === "reviewer")!.email, demoPassword)).ok).toBe(true);
+  const other = await makeOrganization();
+  outsider = new TestClient();
+  expect((await outsider.signIn(other.users.engineer.email, factoryPassword)).ok).toBe(true);
+});
+afterAll(() => closeSequelize());
+
+async function sheet(client: TestClient): Promise<SheetModel> {
+  const r = await client.request(`/api/devices/${deviceId}/sheet`);
+  expect(r.status).toBe(200);
+  return ((await r.json()) as { sheet: SheetModel }).sheet;
+}
+
+describe("the draft sheet of a demo device", () => {
+  it("is built from the approved demo sets, marked preliminary", async () => {
+    const model = await sheet(engineer);
+    expect(model.header).toMatchObject({ partNumber: "KDX-2G4", released: false, state: "draft" });
+    expect(model.header.banner).toMatch(/PRELIMINARY/);
+    expect(model.specifications.rows.length).toBeGreaterThan(0);
+    // Four doubler units were approved by the demo loader; the fifth waits for review.
+    const cl = model.statistics.groups.find((g) => g.parameter === "conversion-loss");
+    expect(cl?.n).toBe(4);
+    expect((await outsider.request(`/api/devices/${deviceId}/sheet`)).status).toBe(404);
+  });
+
+  it("takes spec limits from engineers only, and flags a limit the data cannot support", async () => {
+    const model = await sheet(engineer);
+    const cl = model.statistics.groups.find((g) => g.parameter === "conversion-loss")!;
+    const tight = { parameter: cl.parameter, conditionsKey: cl.conditionsKey, max: (cl.mean.value ?? 0) + 0.01, unit: cl.unit, basis: "test" };
+    expect((await reviewer.request(`/api/devices/${deviceId}/spec-limits`, { method: "PUT", json: { limits: [tight] } })).status).toBe(403);
+    expect((await outsider.request(`/api/devices/${deviceId}/spec-limits`, { method: "PUT", json: { limits: [tight] } })).status).toBe(404);
+    const bad = await engineer.request(`/api/devices/${deviceId}/spec-limits`, { method: "PUT", json: { limits: [{ ...tight, min: 20, max: 10 }] } });
+    expect(bad.status).toBe(422);
+    const ok = await engineer.request(`/api/devices/${deviceId}/spec-limits`, { method: "PUT", json: { limits: [tight] } });
+    expect(ok.status).toBe(200);
+    const after = await sheet(engineer);
+    const group = after.statistics.groups.find((g) => g.groupId === cl.groupId)!;
+    expect(group.limits?.max.value).toBeCloseTo(tight.max, 6);
+    expect(group.supported).toBe(false);
+    expect(group.flags.length).toBeGreaterThan(0);
+    await engineer.request(`/api/devices/${deviceId}/spec-limits`, { method: "PUT", json: { limits: [] } });
+  });
+
+  it("renders the engineer's markdown sanitized", async () => {
+    const r = await engineer.request(`/api/devices/${deviceId}/sheet-content`, {
+      method: "PUT",
+      json: { prose: { description: "A **passive** doubler.<script>alert(1)</script> [x](javascript:alert(2))" }, absoluteMaximumRatings: [{ label: "RF input power", value: "+23", unit: "dBm" }] },
+    });
+    expect(r.status).toBe(200);
+    const model = await sheet(engineer);
+    const description = model.prose.find((p) => p.id === "description")!;
+    expect(description.html).toContain("<strong>passive</strong>");
+    expect(description.html).not.toMatch(/<script|javascript:/i);
+    expect(model.absoluteMaximumRatings.find((a) => a.label === "RF input power")).toMatchObject({ value: "+23", unit: "dBm", missing: false });
+  });
+});
