@@ -195,10 +195,15 @@ export function buildCurveSpec(curve: Curve, options: CurveSpecOptions = {}): To
         ],
       },
     });
-    if (markerData.some((m) => m.text)) {
+    // Labels stay inside the plot: a marker in the right half is labelled to its left.
+    const xs = data.map((d) => d.x);
+    const mid = logX ? Math.sqrt(Math.min(...xs) * Math.max(...xs)) : (Math.min(...xs) + Math.max(...xs)) / 2;
+    for (const side of ["left", "right"] as const) {
+      const values = markerData.filter((m) => m.text && (side === "left" ? m.x <= mid : m.x > mid));
+      if (values.length === 0) continue;
       layers.push({
-        data: { values: markerData.filter((m) => m.text) },
-        mark: { type: "text", align: "left", dx: 9, dy: -10, font: fonts.text, fontSize: 12, color: c["signal-deep"], fontWeight: 600 },
+        data: { values },
+        mark: { type: "text", align: side, dx: side === "left" ? 10 : -10, dy: -14, font: fonts.text, fontSize: 12, color: c["signal-deep"], fontWeight: 600 },
         encoding: { x: { field: "x", type: "quantitative" }, y: { field: "y", type: "quantitative" }, text: { field: "text" } },
       });
     }

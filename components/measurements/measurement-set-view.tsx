@@ -272,11 +272,40 @@ function ParameterValue({ p }: { p: DerivedParameter }) {
   return <Quantity value={formatNumber(p.value, { maxDecimals: p.unit === "fs" ? 1 : 2, signed: p.unit === "dBm" })} unit={p.unit} />;
 }
 
+/** Parameters that recur at every sweep step (conversion loss per drive step) fold away below the key figures. */
+const FOLD_AT = 9;
+
 function ParametersTable({ parameters }: { parameters: DerivedParameter[] }) {
   if (parameters.length === 0) return <p className="border-y border-rule py-4 text-ink-muted">No parameter was derived from this file.</p>;
+  const counts = new Map<string, number>();
+  for (const p of parameters) counts.set(p.name, (counts.get(p.name) ?? 0) + 1);
+  // Within a recurring name, the rows a datasheet quotes (optimum, worst, band statistics) stay up top.
+  const isSummary = (p: DerivedParameter) =>
+    (counts.get(p.name) ?? 0) < FOLD_AT || "statistic" in p.conditions || p.conditions.drive === "optimum" || "method" in p.conditions;
+  const key = parameters.filter(isSummary);
+  const steps = parameters.filter((p) => !isSummary(p));
+  const stepNames = [...new Set(steps.map((p) => labelOf(p.name).label))];
+  return (
+    <>
+      <ParameterRows parameters={key} testId="set-parameters" />
+      {steps.length > 0 ? (
+        <details className="mt-4 border-b border-rule pb-2" data-testid="set-parameters-steps">
+          <summary className="cursor-pointer py-1 text-[0.9375rem] font-semibold">
+            {stepNames.join(", ")} at each step <span className="figure font-normal text-ink-muted">({steps.length})</span>
+          </summary>
+          <div className="mt-3">
+            <ParameterRows parameters={steps} />
+          </div>
+        </details>
+      ) : null}
+    </>
+  );
+}
+
+function ParameterRows({ parameters, testId }: { parameters: DerivedParameter[]; testId?: string }) {
   return (
     <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Derived parameters, scrolls sideways on narrow screens">
-      <table className="sheet-table" data-testid="set-parameters">
+      <table className="sheet-table" data-testid={testId}>
         <thead>
           <tr>
             <th scope="col">Parameter</th>

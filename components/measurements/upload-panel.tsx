@@ -44,7 +44,7 @@ export type UploadConditions = {
 const initialConditions: UploadConditions = {
   serial: "",
   lot: "",
-  temperatureC: "25",
+  temperatureC: "",
   inputFrequency: "",
   inputFrequencyUnit: "GHz",
   driveLevelDbm: "",

@@ -49,6 +49,8 @@ export const workspaceNav: readonly NavItem[] = [
   { href: "/sheets", label: "Sheets", permission: "sheet:write" },
   { href: "/review", label: "Review queue", permission: "sheet:review" },
   { href: "/admin/users", label: "People", permission: "user:manage" },
+  { href: "/admin/instruments", label: "Instruments", permission: "instrument:manage" },
+  { href: "/admin/bench-tokens", label: "Bench tokens", permission: "token:manage" },
   { href: "/catalog", label: "Catalog", permission: "catalog:read" },
   { href: "/subscriptions", label: "Change notices", permission: "subscription:manage" },
 ];

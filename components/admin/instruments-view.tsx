@@ -1,0 +1,16 @@
+import type { InstrumentSummary } from "@/lib/server/instruments/instrument-summary";
+import { PageHeader } from "@/components/ui/page-header";
+import { InstrumentsPanel } from "./instruments-panel";
+
+export function InstrumentsView({ organizationName, instruments }: { organizationName: string; instruments: InstrumentSummary[] }) {
+  return (
+    <>
+      <PageHeader
+        runningHead={organizationName}
+        title="Instruments"
+        lead="The analyzers, meters and sources your benches measure with, their calibration dates and stated uncertainty."
+      />
+      <InstrumentsPanel initialInstruments={instruments} />
+    </>
+  );
+}

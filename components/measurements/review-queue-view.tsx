@@ -1,0 +1,81 @@
+import Link from "next/link";
+import type { DeviceSummary } from "@/lib/server/devices/device-summary";
+import type { MeasurementSetSummary } from "@/lib/server/measurements/measurement-set-summary";
+import { formatDateTime } from "@/components/format-quantity";
+import { EmptyState } from "@/components/ui/empty-state";
+import { Notice } from "@/components/ui/notice";
+import { PageHeader } from "@/components/ui/page-header";
+import { kindLabel } from "./measurement-labels";
+
+type ReviewQueueViewProps = { organizationName: string; sets: MeasurementSetSummary[]; devices: DeviceSummary[] };
+
+/** The reviewer's queue: submitted measurement sets, oldest first, never their own uploads. */
+export function ReviewQueueView({ organizationName, sets, devices }: ReviewQueueViewProps) {
+  const byId = new Map(devices.map((d) => [d.id, d]));
+  return (
+    <>
+      <PageHeader
+        runningHead={organizationName}
+        title="Review queue"
+        lead="Measurement sets waiting for a second engineer's decision, oldest first. Open a set to see its conditions, derived figures and curves, then approve it or reject it with a reason."
+      />
+      <section aria-labelledby="pending-sets-title" className="mb-12">
+        <h2 id="pending-sets-title" className="mb-4 text-xl font-semibold">
+          Measurement sets <span className="figure text-base font-normal text-ink-muted">({sets.length})</span>
+        </h2>
+        {sets.length === 0 ? (
+          <EmptyState title="Nothing to review" testId="review-empty">
+            <p>No measurement set is waiting. Sets you uploaded yourself never appear here: another reviewer decides on them.</p>
+          </EmptyState>
+        ) : (
+          <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Pending measurement sets, scrolls sideways on narrow screens">
+            <table className="sheet-table" data-testid="review-queue-table">
+              <thead>
+                <tr>
+                  <th scope="col">Set</th>
+                  <th scope="col">Device</th>
+                  <th scope="col">Kind</th>
+                  <th scope="col">File</th>
+                  <th scope="col">Uploaded</th>
+                  <th scope="col" className="num">
+                    Warnings
+                  </th>
+                </tr>
+              </thead>
+              <tbody>
+                {sets.map((set) => {
+                  const device = byId.get(set.deviceId);
+                  return (
+                    <tr key={set.id} data-testid={`review-row-${set.id}`}>
+                      <th scope="row">
+                        <Link href={`/devices/${set.deviceId}/measurements/${set.id}`} className="figure font-semibold">
+                          #{set.id}
+                        </Link>
+                      </th>
+                      <td className="figure whitespace-nowrap">{device?.partNumber ?? `device ${set.deviceId}`}</td>
+                      <td className="whitespace-nowrap">{kindLabel(set.kind)}</td>
+                      <td className="max-w-[18rem] truncate" title={set.fileName}>
+                        <span className="figure text-[0.875rem]">{set.fileName}</span>
+                      </td>
+                      <td className="whitespace-nowrap text-[0.875rem]">
+                        {set.uploadedBy ?? (set.source === "bench-api" ? "Bench API" : "—")}
+                        <br />
+                        <span className="figure text-ink-muted">{formatDateTime(set.createdAt)}</span>
+                      </td>
+                      <td className="num">
+                        <span className={`figure ${set.warnings.length ? "font-semibold text-signal-deep" : "text-ink-muted"}`}>{set.warnings.length}</span>
+                      </td>
+                    </tr>
+                  );
+                })}
+              </tbody>
+            </table>
+          </div>
+        )}
+      </section>
+      <div className="max-w-prose">
+        <Notice>Datasheet reviews, with the difference from the last release and an electronic signature, arrive with the sheets feature; only measurement sets are reviewed here for now.</Notice>
+      </div>
+    </>
+  );
+}
