@@ -4,6 +4,7 @@ import {
   computeSpotPhaseNoise,
   computeThermalNoiseDensityDbmHz,
   computeThermalPhaseNoiseFloor,
+  DECADE_OFFSETS_HZ,
   findSpurs,
   integratePhaseNoise,
   interpolatePhaseNoiseDbcHz,
@@ -33,7 +34,12 @@ export function analyzePhaseNoise(data: PhaseNoiseTrace, options: DeriveOptions,
   const lastHz = offsets[offsets.length - 1];
   const base = { carrierFrequencyHz: data.carrierFrequencyHz };
 
-  const spots = computeSpotPhaseNoise(trace);
+  // Each spot and the integral see only the points they need (the parser guarantees increasing
+  // offsets), so a 100,000-point trace is not re-sorted for every figure.
+  const spots = DECADE_OFFSETS_HZ.filter((f) => f >= firstHz && f <= lastHz).map((offsetHz) => {
+    const k = Math.min(Math.max(lowerBound(offsets, offsetHz), 1), offsets.length - 1);
+    return computeSpotPhaseNoise(sliceTrace(data, k - 1, k + 1), [offsetHz])[0];
+  });
   for (const spot of spots) {
     parameters.push(makeParameter("spot-phase-noise", spot.phaseNoiseDbcHz, { ...base, offsetHz: spot.offsetHz }));
   }
@@ -41,7 +47,9 @@ export function analyzePhaseNoise(data: PhaseNoiseTrace, options: DeriveOptions,
   const startHz = settings.integrationStartHz ?? Math.max(DEFAULT_INTEGRATION_START_HZ, firstHz);
   const stopHz = settings.integrationStopHz ?? Math.min(DEFAULT_INTEGRATION_STOP_HZ, lastHz);
   try {
-    const integrated = integratePhaseNoise({ trace, startOffsetHz: startHz, stopOffsetHz: stopHz, carrierFrequencyHz: data.carrierFrequencyHz });
+    const from = Math.max(lowerBound(offsets, startHz) - 1, 0);
+    const to = Math.min(lowerBound(offsets, stopHz) + 1, offsets.length);
+    const integrated = integratePhaseNoise({ trace: sliceTrace(data, from, to), startOffsetHz: startHz, stopOffsetHz: stopHz, carrierFrequencyHz: data.carrierFrequencyHz });
     const band = { ...base, startHz, stopHz };
     parameters.push(makeParameter("integrated-phase-noise", integrated.integratedPhaseNoiseDbc, band));
     parameters.push(makeParameter("rms-phase-error", integrated.phaseRmsDeg, band));
@@ -119,6 +127,10 @@ export function analyzePhaseNoise(data: PhaseNoiseTrace, options: DeriveOptions,
     },
   ];
   return { parameters, warnings, curves };
+}
+
+function sliceTrace(data: PhaseNoiseTrace, from: number, to: number) {
+  return { offsetHz: data.offsetHz.slice(from, to), phaseNoiseDbcHz: data.lDbcHz.slice(from, to) };
 }
 
 function lowerBound(sorted: ArrayLike<number>, value: number): number {
