@@ -86,8 +86,9 @@ export function buildChartSpec(template: CurveTemplate, sources: ChartSource[], 
       field: "x",
       type: "quantitative",
       title: xScaling.title,
-      scale: xScaling.log ? { type: "log" } : { zero: false, nice: true },
-      axis: xScaling.log ? { format: "~s" } : {},
+      scale: xScaling.log ? { type: "log" } : { zero: false, nice: false },
+      // Log axes: a label and grid line per decade only; the minor lines crowd a printed chart.
+      axis: xScaling.log ? { format: "~s", values: decades(values.map((v) => v.x)) } : {},
     },
     y: { field: "y", type: "quantitative", title: yScaling.title, scale: { zero: false, nice: true } },
     detail: { field: "unit", type: "nominal" },
@@ -137,6 +138,14 @@ export function buildChartSpec(template: CurveTemplate, sources: ChartSource[], 
     (multiSeries ? `, series ${names.join(", ")}` : "") +
     `; ${yScaling.title} from ${formatTrimmed(yMin, 2)} to ${formatTrimmed(yMax, 2)}.`;
   return { id: template.id, title: template.title, caption, description, unitCount: drawn.length, vegaLite };
+}
+
+function decades(xs: number[]): number[] {
+  const low = Math.floor(Math.log10(Math.min(...xs)) + 1e-9);
+  const high = Math.ceil(Math.log10(Math.max(...xs)) - 1e-9);
+  const out: number[] = [];
+  for (let e = low; e <= high; e++) out.push(10 ** e);
+  return out;
 }
 
 /** The typographic voice of the sheet, in Vega-Lite config: figures in Source Code Pro, words in Source Sans 3. */

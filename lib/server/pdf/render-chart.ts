@@ -1,0 +1,49 @@
+import "server-only";
+import { Resvg } from "@resvg/resvg-js";
+import * as vega from "vega";
+import { compile, type TopLevelSpec } from "vega-lite";
+import type { SheetModel } from "../../sheet/types";
+import { fontFiles, SANS_FAMILY } from "./fonts";
+
+/**
+ * Vega-Lite spec → SVG with Vega's headless view (renderer "none", no canvas):
+ * the same spec the sheet model carries, so web and PDF charts cannot differ.
+ */
+export async function renderChartSvg(vegaLite: Record<string, unknown>): Promise<string> {
+  const { spec } = compile(vegaLite as unknown as TopLevelSpec);
+  const view = new vega.View(vega.parse(spec), { renderer: "none" });
+  try {
+    return await view.toSVG();
+  } finally {
+    view.finalize();
+  }
+}
+
+/**
+ * SVG → PNG with resvg, given the sheet's own TTFs and no system fonts: resvg
+ * draws no text at all for a family it cannot find (TOOLCHAIN.md).
+ */
+export async function renderChartPng(vegaLite: Record<string, unknown>, options: { scale?: number } = {}): Promise<Buffer> {
+  const svg = await renderChartSvg(vegaLite);
+  const resvg = new Resvg(svg, {
+    font: {
+      fontFiles: [fontFiles.sansRegular, fontFiles.sansSemiBold, fontFiles.monoRegular],
+      loadSystemFonts: false,
+      defaultFontFamily: SANS_FAMILY,
+    },
+    fitTo: { mode: "zoom", value: options.scale ?? 3 },
+  });
+  return resvg.render().asPng();
+}
+
+/** Every chart of a sheet as SVG markup, keyed by chart id, for the web view. */
+export async function renderSheetChartSvgs(model: SheetModel): Promise<Record<string, string>> {
+  const entries = await Promise.all(model.charts.map(async (chart) => [chart.id, await renderChartSvg(chart.vegaLite)] as const));
+  return Object.fromEntries(entries);
+}
+
+/** Every chart of a sheet as PNG, keyed by chart id, for the PDF. */
+export async function renderSheetChartPngs(model: SheetModel): Promise<Record<string, Buffer>> {
+  const entries = await Promise.all(model.charts.map(async (chart) => [chart.id, await renderChartPng(chart.vegaLite)] as const));
+  return Object.fromEntries(entries);
+}

@@ -1,0 +1,479 @@
+import "server-only";
+import { Document, Font, Image, Page, renderToBuffer, Text, View } from "@react-pdf/renderer";
+import type { SheetModel, StatisticsGroup } from "../../sheet/types";
+import { fontFiles, MONO_FAMILY, SANS_FAMILY } from "./fonts";
+import { type Cell, colors, type Column, PdfProse, PdfTable, SectionHeading, styles } from "./pdf-parts";
+import { renderSheetChartPngs } from "./render-chart";
+
+let fontsRegistered = false;
+
+function registerFonts(): void {
+  if (fontsRegistered) return;
+  Font.register({
+    family: SANS_FAMILY,
+    fonts: [
+      { src: fontFiles.sansRegular, fontWeight: 400 },
+      { src: fontFiles.sansItalic, fontWeight: 400, fontStyle: "italic" },
+      { src: fontFiles.sansSemiBold, fontWeight: 600 },
+      { src: fontFiles.sansBold, fontWeight: 700 },
+    ],
+  });
+  Font.register({
+    family: MONO_FAMILY,
+    fonts: [
+      { src: fontFiles.monoRegular, fontWeight: 400 },
+      { src: fontFiles.monoSemiBold, fontWeight: 600 },
+    ],
+  });
+  // Part numbers, units and serials must never be split by an invented hyphen.
+  Font.registerHyphenationCallback((word) => [word]);
+  fontsRegistered = true;
+}
+
+/** The sheet model as a paginated A4 PDF: the same content as the web view, charts from the same Vega-Lite specs. */
+export async function renderSheetPdf(model: SheetModel): Promise<Buffer> {
+  registerFonts();
+  const charts = await renderSheetChartPngs(model);
+  return renderToBuffer(<SheetDocument model={model} charts={charts} />);
+}
+
+const PAGE_MARGIN = 42;
+const A4_HEIGHT_PT = 841.89;
+
+function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<string, Buffer> }) {
+  const { header } = model;
+  const proseById = new Map(model.prose.map((section) => [section.id, section]));
+  const description = proseById.get("description");
+  const features = proseById.get("features");
+  const laterProse = model.prose.filter((section) => section.id !== "description" && section.id !== "features");
+  return (
+    <Document
+      title={`${header.partNumber} ${header.title} (${header.revisionText})`}
+      author={header.organizationName}
+      subject={`${header.deviceClassLabel} characterization sheet`}
+      creator="Octavo"
+      producer="Octavo"
+      language="en"
+    >
+      <Page
+        size="A4"
+        style={{
+          fontFamily: SANS_FAMILY,
+          fontSize: 8.8,
+          lineHeight: 1.35,
+          color: colors.ink,
+          paddingTop: 56,
+          paddingBottom: 50,
+          paddingHorizontal: PAGE_MARGIN,
+          backgroundColor: "#FFFFFF",
+        }}
+      >
+        {header.banner ? <Watermark text={header.banner} /> : null}
+        <RunningHead model={model} />
+        <RunningFoot model={model} />
+
+        <TitleBlock model={model} />
+
+        <View style={{ flexDirection: "row", marginTop: 10 }}>
+          <View style={{ flex: 3, paddingRight: 16 }}>
+            <SectionHeading>{description?.title ?? "Description"}</SectionHeading>
+            {description ? <PdfProse blocks={description.blocks} /> : null}
+          </View>
+          <View style={{ flex: 2 }}>
+            <SectionHeading>{features?.title ?? "Key features"}</SectionHeading>
+            {features ? <PdfProse blocks={features.blocks} /> : null}
+          </View>
+        </View>
+
+        <SpecificationsTable model={model} />
+        <AbsoluteMaximumRatings model={model} />
+        <Cautions model={model} />
+
+        {model.charts.length > 0 ? (
+          <View break>
+            <SectionHeading>Typical performance</SectionHeading>
+            {model.charts.map((chart, i) => (
+              <View key={chart.id} wrap={false} style={{ marginBottom: 10 }}>
+                <Text style={{ fontWeight: 600, marginBottom: 2 }}>
+                  Figure {i + 1}. {chart.title}
+                </Text>
+                {charts[chart.id] ? <Image src={{ data: charts[chart.id], format: "png" }} style={{ width: 400, alignSelf: "flex-start" }} /> : null}
+                <Text style={styles.small}>{chart.caption}</Text>
+              </View>
+            ))}
+          </View>
+        ) : null}
+
+        {laterProse.map((section) => (
+          <View key={section.id}>
+            <SectionHeading>{section.title}</SectionHeading>
+            <PdfProse blocks={section.blocks} />
+          </View>
+        ))}
+
+        <Traceability model={model} />
+        <StatisticsAnnex model={model} />
+        <RevisionHistory model={model} />
+        {!header.released && model.issues.length > 0 ? (
+          <View>
+            <SectionHeading>Review notes (not printed on a released sheet)</SectionHeading>
+            {model.issues.map((issue, i) => (
+              <Text key={i} style={styles.paragraph}>
+                • {issue.message}
+              </Text>
+            ))}
+          </View>
+        ) : null}
+      </Page>
+    </Document>
+  );
+}
+
+function Watermark({ text }: { text: string }) {
+  return (
+    <View fixed style={{ position: "absolute", top: 0, left: 0, right: 0, bottom: 0, alignItems: "center", justifyContent: "center" }}>
+      <Text
+        style={{
+          fontSize: 44,
+          fontWeight: 700,
+          letterSpacing: 2,
+          color: colors.signal,
+          opacity: 0.14,
+          transform: "rotate(-45deg)",
+          width: 760,
+          textAlign: "center",
+        }}
+      >
+        {text}
+      </Text>
+    </View>
+  );
+}
+
+function RunningHead({ model }: { model: SheetModel }) {
+  const { header } = model;
+  return (
+    <View
+      fixed
+      style={{
+        position: "absolute",
+        top: 22,
+        left: PAGE_MARGIN,
+        right: PAGE_MARGIN,
+        flexDirection: "row",
+        justifyContent: "space-between",
+        borderBottomWidth: 0.5,
+        borderBottomColor: colors.rule,
+        paddingBottom: 4,
+        fontSize: 7.5,
+        color: colors["ink-muted"],
+      }}
+    >
+      <Text>
+        <Text style={{ fontWeight: 600, color: colors.ink }}>{header.partNumber}</Text> · {header.deviceClassLabel}
+      </Text>
+      <Text>
+        {header.revisionText} · {header.date}
+        {header.banner ? <Text style={{ color: colors.signal, fontWeight: 600 }}> · {header.stateLabel}</Text> : null}
+      </Text>
+    </View>
+  );
+}
+
+function RunningFoot({ model }: { model: SheetModel }) {
+  const { header } = model;
+  return (
+    <View
+      fixed
+      style={{
+        position: "absolute",
+        // Placed from the top: a bottom-anchored fixed view vanished from this layout in react-pdf 4.9.
+        top: A4_HEIGHT_PT - 40,
+        left: PAGE_MARGIN,
+        right: PAGE_MARGIN,
+        flexDirection: "row",
+        justifyContent: "space-between",
+        borderTopWidth: 0.5,
+        borderTopColor: colors.rule,
+        paddingTop: 4,
+        fontSize: 7.5,
+        color: colors["ink-muted"],
+      }}
+    >
+      <Text>
+        {header.organizationName} · {header.partNumber} {header.revisionText}
+      </Text>
+      <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
+    </View>
+  );
+}
+
+function TitleBlock({ model }: { model: SheetModel }) {
+  const { header, keyFacts } = model;
+  return (
+    <View>
+      <Text style={{ fontSize: 7.5, fontWeight: 600, letterSpacing: 1, textTransform: "uppercase", color: colors["ink-muted"] }}>
+        Characterization sheet · {header.deviceClassLabel}
+      </Text>
+      <Text style={{ fontSize: 24, lineHeight: 1.15, fontWeight: 600, marginTop: 4, letterSpacing: -0.2 }}>{header.partNumber}</Text>
+      <Text style={{ fontSize: 12.5, lineHeight: 1.25, marginTop: 2 }}>{header.title}</Text>
+      <Text style={{ marginTop: 4, color: colors["ink-muted"] }}>
+        {header.organizationName} · {header.revisionText} · {header.stateLabel} · {header.date}
+      </Text>
+      {header.banner ? (
+        <View style={{ marginTop: 8, padding: 6, borderWidth: 1, borderColor: colors.signal, backgroundColor: colors["signal-wash"] }}>
+          <Text style={{ color: colors.signal, fontWeight: 700, letterSpacing: 0.8 }}>{header.banner}</Text>
+          <Text style={{ fontSize: 7.8 }}>
+            This revision is {header.stateLabel.toLowerCase()}. Figures may change before release; do not design in from this sheet.
+          </Text>
+        </View>
+      ) : null}
+      {keyFacts.length > 0 ? (
+        <View style={{ flexDirection: "row", marginTop: 10, borderTopWidth: 1.2, borderTopColor: colors.ink, paddingTop: 5 }}>
+          {keyFacts.map((fact) => (
+            <View key={fact.label} style={{ flex: 1, paddingRight: 8 }}>
+              <Text style={styles.small}>{fact.label}</Text>
+              <Text>
+                <Text style={{ fontFamily: MONO_FAMILY, fontSize: 10.5, lineHeight: 1.3 }}>{fact.value}</Text>
+                {fact.unit ? <Text style={{ color: colors["ink-muted"] }}> {fact.unit}</Text> : null}
+              </Text>
+            </View>
+          ))}
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
+function SpecificationsTable({ model }: { model: SheetModel }) {
+  const { specifications } = model;
+  const conditionWidth = Math.floor(34 / Math.max(1, specifications.conditionColumns.length));
+  const columns: Column[] = [
+    { header: "Parameter", width: "22%" },
+    { header: "Symbol", width: "7%" },
+    ...specifications.conditionColumns.map((c): Column => ({ header: c.label, width: `${conditionWidth}%` })),
+    { header: "Min", width: "7%", align: "right", mono: true },
+    { header: "Typ", width: "7.5%", align: "right", mono: true },
+    { header: "Max", width: "7.5%", align: "right", mono: true },
+    { header: "Unit", width: "8%" },
+    { header: "Basis", width: "5%" },
+  ];
+  const rows = specifications.rows.map((row): Cell[] => [
+    <>
+      {row.label}
+      {row.footnoteMarks.length > 0 ? <Text style={{ fontSize: 5.8, color: colors["ink-muted"] }}> {row.footnoteMarks.join(",")}</Text> : null}
+      {!row.supported ? <Text style={{ color: colors.signal, fontWeight: 700 }}> !</Text> : null}
+    </>,
+    row.symbol,
+    ...row.conditions,
+    row.min.text,
+    row.typIsMeasuredMean ? <Text style={{ color: colors["ink-muted"] }}>{row.typ.text}</Text> : row.typ.text,
+    row.max.text,
+    row.unit,
+    row.basisMark,
+  ]);
+  return (
+    <View>
+      <SectionHeading>Electrical specifications</SectionHeading>
+      <PdfTable columns={columns} rows={rows} />
+      <View style={{ marginTop: 4 }}>
+        {specifications.notes.map((note, i) => (
+          <Text key={i} style={styles.small}>
+            {note}
+          </Text>
+        ))}
+        <Text style={[styles.small, { marginTop: 3 }]}>
+          Basis: {specifications.basisLegend.map((entry) => `${entry.mark} ${entry.text}`).join("  ")}
+        </Text>
+        {specifications.footnotes.map((footnote) => (
+          <Text key={footnote.mark} style={styles.small}>
+            {footnote.mark}. {footnote.text}
+          </Text>
+        ))}
+        {specifications.rows.some((row) => !row.supported) ? (
+          <Text style={[styles.small, { color: colors.signal }]}>! The data do not support this limit: see the statistics annex.</Text>
+        ) : null}
+      </View>
+    </View>
+  );
+}
+
+function AbsoluteMaximumRatings({ model }: { model: SheetModel }) {
+  return (
+    <View wrap={false}>
+      <SectionHeading>Absolute maximum ratings</SectionHeading>
+      <PdfTable
+        columns={[
+          { header: "Rating", width: "62%" },
+          { header: "Value", width: "24%", align: "right", mono: true },
+          { header: "Unit", width: "14%" },
+        ]}
+        rows={model.absoluteMaximumRatings.map((rating) => [
+          rating.label,
+          rating.missing ? <Text style={{ color: colors.signal }}>to be stated</Text> : rating.value,
+          rating.unit,
+        ])}
+      />
+    </View>
+  );
+}
+
+function Cautions({ model }: { model: SheetModel }) {
+  return (
+    <View wrap={false}>
+      <SectionHeading>Cautions</SectionHeading>
+      {model.cautions.map((caution, i) => (
+        <View key={i} style={styles.listItem}>
+          <Text style={styles.bullet}>{i + 1}.</Text>
+          <Text style={{ flex: 1 }}>{caution}</Text>
+        </View>
+      ))}
+    </View>
+  );
+}
+
+function Traceability({ model }: { model: SheetModel }) {
+  const { traceability } = model;
+  return (
+    <View break>
+      <SectionHeading>Measurement traceability</SectionHeading>
+      {traceability.statements.map((statement, i) => (
+        <Text key={i} style={styles.paragraph}>
+          {statement}
+        </Text>
+      ))}
+      <Text style={styles.subHeading}>Instruments</Text>
+      <PdfTable
+        columns={[
+          { header: "Instrument", width: "20%" },
+          { header: "Model", width: "15%" },
+          { header: "Serial", width: "11%", mono: true },
+          { header: "Calibrated", width: "11%", mono: true },
+          { header: "Due", width: "11%", mono: true },
+          { header: "Stated uncertainty", width: "26%" },
+          { header: "Sets", width: "6%", align: "right", mono: true },
+        ]}
+        rows={traceability.instruments.map((instrument) => [
+          instrument.kind,
+          instrument.model,
+          instrument.serial,
+          instrument.calibratedOn,
+          instrument.calibrationLapsed ? <Text style={{ color: colors.signal }}>{instrument.calibrationDueOn} lapsed</Text> : instrument.calibrationDueOn,
+          instrument.uncertainty,
+          String(instrument.setCount),
+        ])}
+      />
+      <Text style={styles.subHeading}>Approved measurement sets, by unit</Text>
+      <PdfTable
+        columns={[
+          { header: "Serial", width: "14%", mono: true },
+          { header: "Lot", width: "12%", mono: true },
+          { header: "Sets: id, kind, temperature, measured on", width: "74%" },
+        ]}
+        rows={unitsOf(traceability.measurementSets).map((unit) => [
+          unit.serial,
+          unit.lot,
+          unit.sets.map((set) => `${set.id}  ${set.kind}, ${set.temperature || "temperature not stated"}, ${set.measuredOn}`),
+        ])}
+      />
+    </View>
+  );
+}
+
+function unitsOf(sets: SheetModel["traceability"]["measurementSets"]) {
+  const units: { serial: string; lot: string; sets: SheetModel["traceability"]["measurementSets"] }[] = [];
+  for (const set of sets) {
+    const last = units[units.length - 1];
+    if (last && last.serial === set.serial) last.sets.push(set);
+    else units.push({ serial: set.serial, lot: set.lot ?? "", sets: [set] });
+  }
+  return units;
+}
+
+function StatisticsAnnex({ model }: { model: SheetModel }) {
+  const { statistics } = model;
+  const flagged = statistics.groups.filter((g) => !g.supported);
+  const columns: Column[] = [
+    { header: "Parameter, conditions", width: "27%" },
+    { header: "n", width: "4%", align: "right", mono: true },
+    { header: "Mean", width: "8%", align: "right", mono: true },
+    { header: "s", width: "7%", align: "right", mono: true },
+    { header: "Min", width: "8%", align: "right", mono: true },
+    { header: "Max", width: "8%", align: "right", mono: true },
+    { header: "Tol. low", width: "8.5%", align: "right", mono: true },
+    { header: "Tol. high", width: "8.5%", align: "right", mono: true },
+    { header: "Cpk", width: "6%", align: "right", mono: true },
+    { header: "U", width: "6%", align: "right", mono: true },
+    { header: "Pass", width: "6%", align: "right", mono: true },
+    { header: "", width: "3%" },
+  ];
+  const rows = statistics.groups.map((g: StatisticsGroup): Cell[] => [
+    [
+      <>
+        {g.label} <Text style={{ color: colors["ink-muted"] }}>({g.unit})</Text>
+      </>,
+      <Text style={{ color: colors["ink-muted"], fontSize: 6.8 }}>{g.conditionsText}</Text>,
+    ],
+    String(g.n),
+    g.mean.text,
+    g.standardDeviation.text,
+    g.min.text,
+    g.max.text,
+    g.toleranceInterval?.lower.text ?? "",
+    g.toleranceInterval?.upper.text ?? "",
+    g.cpk.text,
+    g.expandedUncertainty.text,
+    g.limits ? `${g.passCount}/${g.n}` : "",
+    g.supported ? "" : <Text style={{ color: colors.signal, fontWeight: 700 }}>!</Text>,
+  ]);
+  return (
+    <View break>
+      <SectionHeading>Statistics annex</SectionHeading>
+      <Text style={styles.paragraph}>{statistics.method}</Text>
+      <PdfTable columns={columns} rows={rows} />
+      {flagged.length > 0 ? (
+        <View>
+          <Text style={styles.subHeading}>Limits the data do not support</Text>
+          {flagged.map((g) => (
+            <View key={g.groupId} style={styles.listItem} wrap={false}>
+              <Text style={[styles.bullet, { color: colors.signal }]}>!</Text>
+              <Text style={{ flex: 1 }}>
+                <Text style={{ fontWeight: 600 }}>
+                  {g.label}, {g.conditionsText}:
+                </Text>{" "}
+                {g.flags.map((f) => f.message).join(" ")}
+              </Text>
+            </View>
+          ))}
+        </View>
+      ) : null}
+      {statistics.decisionRules.length > 0 ? (
+        <View>
+          <Text style={styles.subHeading}>Decision rules (ISO/IEC 17025:2017 §7.8.6)</Text>
+          {statistics.decisionRules.map((rule, i) => (
+            <Text key={i} style={styles.paragraph}>
+              {rule}
+            </Text>
+          ))}
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
+function RevisionHistory({ model }: { model: SheetModel }) {
+  if (model.revisionHistory.length === 0) return null;
+  return (
+    <View wrap={false}>
+      <SectionHeading>Revision history</SectionHeading>
+      <PdfTable
+        columns={[
+          { header: "Revision", width: "12%" },
+          { header: "Date", width: "16%", mono: true },
+          { header: "Changes", width: "72%" },
+        ]}
+        rows={model.revisionHistory.map((entry) => [entry.label, entry.date, entry.summary])}
+      />
+    </View>
+  );
+}

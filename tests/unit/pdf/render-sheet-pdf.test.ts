@@ -1,0 +1,105 @@
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { beforeAll, describe, expect, it, vi } from "vitest";
+
+vi.mock("server-only", () => ({}));
+
+import { buildSheetModel, type SheetModel } from "@/lib/sheet";
+import { renderChartPng, renderChartSvg } from "@/lib/server/pdf/render-chart";
+import { renderSheetPdf } from "@/lib/server/pdf/render-sheet-pdf";
+import { combGeneratorTemplate } from "../sheet/fourth-template";
+import { loadDoublerInput } from "../sheet/fixture";
+
+const dir = mkdtempSync(path.join(tmpdir(), "octavo-pdf-"));
+
+function poppler(tool: "pdftotext" | "pdffonts" | "pdfinfo", pdf: Buffer, name: string): string {
+  const file = path.join(dir, `${name}.pdf`);
+  writeFileSync(file, pdf);
+  return execFileSync(tool, tool === "pdftotext" ? [file, "-"] : [file], { encoding: "utf8" });
+}
+
+function pageCount(pdf: Buffer, name: string): number {
+  return Number(/Pages:\s+(\d+)/.exec(poppler("pdfinfo", pdf, name))?.[1]);
+}
+
+describe("renderSheetPdf", () => {
+  const input = loadDoublerInput();
+  let draft: Buffer;
+  let released: Buffer;
+  let draftModel: SheetModel;
+
+  beforeAll(async () => {
+    draftModel = buildSheetModel(input);
+    draft = await renderSheetPdf(draftModel);
+    released = await renderSheetPdf(buildSheetModel({ ...input, revision: { ...input.revision, label: "C", state: "released" } }));
+  }, 120_000);
+
+  it("writes a multi-page PDF", () => {
+    expect(draft.subarray(0, 5).toString("latin1")).toBe("%PDF-");
+    expect(pageCount(draft, "draft")).toBeGreaterThanOrEqual(2);
+  });
+
+  it("carries the part number, Ω, µ and ± as text", () => {
+    const text = poppler("pdftotext", draft, "draft");
+    expect(text).toContain("OCX-2D40");
+    expect(text).toContain("50 Ω");
+    expect(text).toContain("25 µm");
+    expect(text).toContain("±0.5 dB");
+    expect(text).toContain("−155.0");
+    expect(text).toMatch(/Page 1 of \d+/);
+  });
+
+  it("marks a sheet that is not released, and only that one", () => {
+    expect(poppler("pdftotext", draft, "draft")).toContain("PRELIMINARY");
+    const text = poppler("pdftotext", released, "released");
+    expect(text).not.toContain("PRELIMINARY");
+    expect(text).toContain("Rev. C");
+  });
+
+  it("embeds only Source Sans 3 and Source Code Pro (no Helvetica fallback)", () => {
+    for (const [name, pdf] of [["draft", draft], ["released", released]] as const) {
+      const rows = poppler("pdffonts", pdf, name).trim().split("\n").slice(2);
+      expect(rows.length).toBeGreaterThan(0);
+      for (const row of rows) {
+        expect(row).toMatch(/^[A-Z]{6}\+(SourceSans3|SourceCodePro)-\S+\s/);
+        expect(row).toMatch(/\syes\s+yes\s+yes\s/);
+      }
+    }
+  });
+});
+
+describe("render-chart", () => {
+  it("draws the chart's text with the sheet's fonts", async () => {
+    const chart = buildSheetModel(loadDoublerInput()).charts[0];
+    const svg = await renderChartSvg(chart.vegaLite);
+    expect(svg).toContain('font-family="Source Code Pro"');
+    expect(svg).toContain("Per-port drive (dBm)");
+    const png = await renderChartPng(chart.vegaLite, { scale: 1 });
+    expect(png.subarray(1, 4).toString("latin1")).toBe("PNG");
+  });
+});
+
+describe("a fourth device class", () => {
+  it("renders through both renderers with a template alone", async () => {
+    const input = loadDoublerInput();
+    const model = buildSheetModel(
+      {
+        ...input,
+        device: { ...input.device, partNumber: "TST-CMB9", deviceClass: combGeneratorTemplate.deviceClass },
+        limits: [],
+        prose: {},
+        absoluteMaximumRatings: [{ label: "Input power", value: "+27", unit: "dBm" }],
+      },
+      { template: combGeneratorTemplate },
+    );
+    expect(model.template.label).toBe("Comb generator");
+    expect(model.specifications.rows.map((r) => r.conditions[0])).toEqual(["2\u00a0GHz", "3\u00a0GHz"]);
+    const pdf = await renderSheetPdf(model);
+    const text = poppler("pdftotext", pdf, "comb");
+    expect(text).toContain("TST-CMB9");
+    expect(text).toContain("Loss to the wanted line");
+    expect(text).toContain("±1 dB flat comb");
+  }, 60_000);
+});

@@ -1,0 +1,32 @@
+import type { SheetTemplate } from "@/templates";
+
+/**
+ * A class the product does not ship: a step-recovery comb generator. Used only
+ * to show that a new template needs no change in either renderer.
+ */
+export const combGeneratorTemplate: SheetTemplate = {
+  deviceClass: "comb-generator-test-only",
+  label: "Comb generator",
+  measurementKinds: ["drive-sweep"],
+  specifications: {
+    conditionColumns: [{ id: "frequency", label: "f_IN", sources: [{ key: "inputFrequencyHz", format: "frequency" }] }],
+    rows: [
+      {
+        id: "conversion-loss",
+        parameter: "conversion-loss",
+        label: "Loss to the wanted line",
+        symbol: "CL",
+        unit: "dB",
+        decimals: 1,
+        match: { drive: "optimum" },
+        groupBy: ["inputFrequencyHz"],
+        defaultBasis: "design",
+      },
+    ],
+    notes: ["Comb lines measured one at a time. System impedance 50 Ω."],
+  },
+  curves: [{ id: "cl", curveId: "conversion-loss-vs-drive", title: "Loss vs drive", caption: "Each line one unit." }],
+  prose: [{ id: "description", title: "Description", markdown: "A test-only comb generator with a ±1 dB flat comb." }],
+  cautions: ["Test-only caution: limits apply only under the stated conditions."],
+  absoluteMaximumRatings: [{ label: "Input power", unit: "dBm" }],
+};
