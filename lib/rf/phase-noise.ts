@@ -35,8 +35,7 @@ export function computeExcessOverIdealMultiplicationDb(options: MultiplierExcess
 
 /** L at one offset, linear in log10(offset) between the neighbouring points; throws outside the trace. */
 export function interpolatePhaseNoiseDbcHz(trace: PhaseNoiseTrace, offsetHz: number): number {
-  const points = sortTrace(trace);
-  return interpolateSorted(points, offsetHz);
+  return interpolateSorted(readSortedTrace(trace), offsetHz);
 }
 
 export interface SpotPhaseNoise {
@@ -53,12 +52,12 @@ export function computeSpotPhaseNoise(
   trace: PhaseNoiseTrace,
   offsetsHz: readonly number[] = DECADE_OFFSETS_HZ,
 ): SpotPhaseNoise[] {
-  const points = sortTrace(trace);
-  const first = points[0].offsetHz;
-  const last = points[points.length - 1].offsetHz;
+  const sorted = readSortedTrace(trace);
+  const first = sorted.offsetHz[0];
+  const last = sorted.offsetHz[sorted.offsetHz.length - 1];
   return offsetsHz
     .filter((offsetHz) => offsetHz >= first && offsetHz <= last)
-    .map((offsetHz) => ({ offsetHz, phaseNoiseDbcHz: interpolateSorted(points, offsetHz) }));
+    .map((offsetHz) => ({ offsetHz, phaseNoiseDbcHz: interpolateSorted(sorted, offsetHz) }));
 }
 
 export const DECADE_OFFSETS_HZ: readonly number[] = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8];
@@ -93,15 +92,20 @@ export function integratePhaseNoise(options: IntegratePhaseNoiseOptions): Integr
     throw new RangeError(`Integration needs 0 < start < stop offset, got ${startOffsetHz} Hz to ${stopOffsetHz} Hz`);
   }
   if (!(carrierFrequencyHz > 0)) throw new RangeError(`Carrier frequency must be positive, got ${carrierFrequencyHz} Hz`);
-  const points = sortTrace(options.trace);
-  const span: TracePoint[] = [{ offsetHz: startOffsetHz, phaseNoiseDbcHz: interpolateSorted(points, startOffsetHz) }];
-  for (const point of points) {
-    if (point.offsetHz > startOffsetHz && point.offsetHz < stopOffsetHz) span.push(point);
-  }
-  span.push({ offsetHz: stopOffsetHz, phaseNoiseDbcHz: interpolateSorted(points, stopOffsetHz) });
-
+  const sorted = readSortedTrace(options.trace);
+  const offsets = sorted.offsetHz;
+  const levels = sorted.phaseNoiseDbcHz;
+  // Segments run start → every trace point strictly inside (start, stop) → stop, summed in that
+  // order; the points are read in place rather than copied into a list of segment ends.
+  let fromHz = startOffsetHz;
+  let fromDbcHz = interpolateSorted(sorted, startOffsetHz);
   let integrated = 0;
-  for (let i = 1; i < span.length; i++) integrated += integratePowerLawSegment(span[i - 1], span[i]);
+  for (let i = upperBound(offsets, startOffsetHz); i < offsets.length && offsets[i] < stopOffsetHz; i++) {
+    integrated += integratePowerLawSegment(fromHz, fromDbcHz, offsets[i], levels[i]);
+    fromHz = offsets[i];
+    fromDbcHz = levels[i];
+  }
+  integrated += integratePowerLawSegment(fromHz, fromDbcHz, stopOffsetHz, interpolateSorted(sorted, stopOffsetHz));
   const phaseRmsRad = Math.sqrt(2 * integrated);
   return {
     integratedPhaseNoiseDbc: 10 * Math.log10(integrated),
@@ -111,46 +115,96 @@ export function integratePhaseNoise(options: IntegratePhaseNoiseOptions): Integr
   };
 }
 
-function integratePowerLawSegment(from: TracePoint, to: TracePoint): number {
-  const ratio = to.offsetHz / from.offsetHz;
-  const startLinear = 10 ** (from.phaseNoiseDbcHz / 10);
-  const exponent = (to.phaseNoiseDbcHz - from.phaseNoiseDbcHz) / (10 * Math.log10(ratio));
+function integratePowerLawSegment(fromHz: number, fromDbcHz: number, toHz: number, toDbcHz: number): number {
+  const ratio = toHz / fromHz;
+  const startLinear = 10 ** (fromDbcHz / 10);
+  const exponent = (toDbcHz - fromDbcHz) / (10 * Math.log10(ratio));
   const exponentPlusOne = exponent + 1;
-  if (Math.abs(exponentPlusOne) < 1e-9) return startLinear * from.offsetHz * Math.log(ratio);
-  return ((startLinear * from.offsetHz) / exponentPlusOne) * (ratio ** exponentPlusOne - 1);
+  if (Math.abs(exponentPlusOne) < 1e-9) return startLinear * fromHz * Math.log(ratio);
+  return ((startLinear * fromHz) / exponentPlusOne) * (ratio ** exponentPlusOne - 1);
 }
 
-function interpolateSorted(points: readonly TracePoint[], offsetHz: number): number {
-  const first = points[0];
-  const last = points[points.length - 1];
-  if (!(offsetHz >= first.offsetHz && offsetHz <= last.offsetHz)) {
-    throw new RangeError(`Offset ${offsetHz} Hz lies outside the trace (${first.offsetHz} Hz to ${last.offsetHz} Hz)`);
+/** Interpolates between the two points around offsetHz, found by binary search. */
+function interpolateSorted(trace: SortedTrace, offsetHz: number): number {
+  const { offsetHz: offsets, phaseNoiseDbcHz: levels } = trace;
+  const count = offsets.length;
+  const first = offsets[0];
+  const last = offsets[count - 1];
+  if (!(offsetHz >= first && offsetHz <= last)) {
+    throw new RangeError(`Offset ${offsetHz} Hz lies outside the trace (${first} Hz to ${last} Hz)`);
   }
-  let high = 1;
-  while (high < points.length - 1 && points[high].offsetHz < offsetHz) high++;
-  if (points.length === 1) return first.phaseNoiseDbcHz;
-  const a = points[high - 1];
-  const b = points[high];
-  const fraction = Math.log10(offsetHz / a.offsetHz) / Math.log10(b.offsetHz / a.offsetHz);
-  return a.phaseNoiseDbcHz + fraction * (b.phaseNoiseDbcHz - a.phaseNoiseDbcHz);
+  if (count === 1) return levels[0];
+  // The first point at or above the offset, but never the first point: the segment ends there.
+  const high = Math.min(Math.max(lowerBound(offsets, offsetHz), 1), count - 1);
+  const fraction = Math.log10(offsetHz / offsets[high - 1]) / Math.log10(offsets[high] / offsets[high - 1]);
+  return levels[high - 1] + fraction * (levels[high] - levels[high - 1]);
 }
 
-export function sortTrace(trace: PhaseNoiseTrace): TracePoint[] {
+/** A validated trace with strictly increasing offsets, as two parallel arrays. */
+export interface SortedTrace {
+  offsetHz: ArrayLike<number>;
+  phaseNoiseDbcHz: ArrayLike<number>;
+}
+
+/**
+ * Checks a trace (equal lengths, positive finite offsets, finite levels, at least one
+ * point, no duplicate offset) and returns it in increasing offset order. A trace that is
+ * already strictly increasing (every parsed file is: the parser checks it) is returned
+ * as it is, without a copy or a sort: on a 100,000-point trace those dominated the
+ * spur search and the integral.
+ */
+export function readSortedTrace(trace: PhaseNoiseTrace): SortedTrace {
   const { offsetHz, phaseNoiseDbcHz } = trace;
   if (offsetHz.length !== phaseNoiseDbcHz.length) {
     throw new RangeError(`Trace arrays differ in length: ${offsetHz.length} offsets, ${phaseNoiseDbcHz.length} levels`);
   }
-  const points: TracePoint[] = [];
+  let increasing = true;
   for (let i = 0; i < offsetHz.length; i++) {
     if (!(offsetHz[i] > 0) || !Number.isFinite(offsetHz[i]) || !Number.isFinite(phaseNoiseDbcHz[i])) {
       throw new RangeError(`Trace point ${i} is not a positive offset with a finite level`);
     }
-    points.push({ offsetHz: offsetHz[i], phaseNoiseDbcHz: phaseNoiseDbcHz[i] });
+    if (i > 0 && !(offsetHz[i] > offsetHz[i - 1])) increasing = false;
   }
-  if (points.length === 0) throw new RangeError("A phase-noise trace needs at least one point");
-  points.sort((a, b) => a.offsetHz - b.offsetHz);
-  for (let i = 1; i < points.length; i++) {
-    if (points[i].offsetHz === points[i - 1].offsetHz) throw new RangeError(`Duplicate offset ${points[i].offsetHz} Hz`);
+  if (offsetHz.length === 0) throw new RangeError("A phase-noise trace needs at least one point");
+  if (increasing) return trace;
+
+  const order = Array.from({ length: offsetHz.length }, (_, i) => i).sort((a, b) => offsetHz[a] - offsetHz[b]);
+  for (let k = 1; k < order.length; k++) {
+    if (offsetHz[order[k]] === offsetHz[order[k - 1]]) throw new RangeError(`Duplicate offset ${offsetHz[order[k]]} Hz`);
+  }
+  return { offsetHz: order.map((i) => offsetHz[i]), phaseNoiseDbcHz: order.map((i) => phaseNoiseDbcHz[i]) };
+}
+
+/** The trace as points in increasing offset order; see readSortedTrace for the checks. */
+export function sortTrace(trace: PhaseNoiseTrace): TracePoint[] {
+  const sorted = readSortedTrace(trace);
+  const points: TracePoint[] = [];
+  for (let i = 0; i < sorted.offsetHz.length; i++) {
+    points.push({ offsetHz: sorted.offsetHz[i], phaseNoiseDbcHz: sorted.phaseNoiseDbcHz[i] });
   }
   return points;
+}
+
+/** First index whose value is ≥ value (the length when none is). */
+function lowerBound(sorted: ArrayLike<number>, value: number): number {
+  let lo = 0;
+  let hi = sorted.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (sorted[mid] < value) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/** First index whose value is > value (the length when none is). */
+function upperBound(sorted: ArrayLike<number>, value: number): number {
+  let lo = 0;
+  let hi = sorted.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (sorted[mid] <= value) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
 }

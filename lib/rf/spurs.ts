@@ -1,4 +1,4 @@
-import { type PhaseNoiseTrace, sortTrace } from "./phase-noise";
+import { type PhaseNoiseTrace, readSortedTrace } from "./phase-noise";
 
 export interface FindSpursOptions {
   trace: PhaseNoiseTrace;
@@ -32,36 +32,34 @@ export interface Spur {
 export function findSpurs(options: FindSpursOptions): Spur[] {
   const { thresholdDb = 10, windowDecades = 0.3 } = options;
   if (!(windowDecades > 0)) throw new RangeError(`Window must be positive, got ${windowDecades} decades`);
-  const points = sortTrace(options.trace);
-  const logOffsets = points.map((p) => Math.log10(p.offsetHz));
+  const { offsetHz: offsets, phaseNoiseDbcHz: levels } = readSortedTrace(options.trace);
+  const count = offsets.length;
+  const logOffsets = new Float64Array(count);
+  for (let i = 0; i < count; i++) logOffsets[i] = Math.log10(offsets[i]);
   // The 1e-9 decade slack keeps points exactly on the window edge on both sides despite rounding.
   const halfWindow = windowDecades / 2 + 1e-9;
-  // The window slides with the offset: a sorted copy of its levels is kept up to date, so each
-  // floor costs a binary search and a splice instead of a scan and a sort of the whole trace.
-  const window: number[] = [];
+  // The window slides with the offset. Its levels are counted in a Fenwick tree over the trace's
+  // levels in sorted order, so adding, removing and finding the k-th lowest level each cost
+  // O(log n): a 100,000-point trace has windows of thousands of points, and keeping a sorted
+  // array of them up to date (a splice per step) cost a copy of the window per point.
+  const window = new LevelCounts(levels);
+  const floors = new Float64Array(count);
   let low = 0;
   let high = -1;
-  const floors = points.map((point, i) => {
-    while (high + 1 < points.length && logOffsets[high + 1] - logOffsets[i] <= halfWindow) {
-      high++;
-      window.splice(lowerBound(window, points[high].phaseNoiseDbcHz), 0, points[high].phaseNoiseDbcHz);
-    }
-    while (logOffsets[i] - logOffsets[low] > halfWindow) {
-      window.splice(lowerBound(window, points[low].phaseNoiseDbcHz), 1);
-      low++;
-    }
-    return window.length > 1 ? medianWithout(window, point.phaseNoiseDbcHz) : point.phaseNoiseDbcHz;
-  });
+  for (let i = 0; i < count; i++) {
+    while (high + 1 < count && logOffsets[high + 1] - logOffsets[i] <= halfWindow) window.add(++high, 1);
+    while (logOffsets[i] - logOffsets[low] > halfWindow) window.add(low++, -1);
+    floors[i] = window.size > 1 ? window.medianWithout(i) : levels[i];
+  }
 
   const spurs: Spur[] = [];
   let current: Spur | undefined;
-  for (let i = 0; i < points.length; i++) {
-    const point = points[i];
-    const riseDb = point.phaseNoiseDbcHz - floors[i];
+  for (let i = 0; i < count; i++) {
+    const riseDb = levels[i] - floors[i];
     if (riseDb > thresholdDb) {
       const candidate = {
-        offsetHz: point.offsetHz,
-        levelDbcHz: point.phaseNoiseDbcHz,
+        offsetHz: offsets[i],
+        levelDbcHz: levels[i],
         localFloorDbcHz: floors[i],
         riseDb,
       };
@@ -76,16 +74,62 @@ export function findSpurs(options: FindSpursOptions): Spur[] {
   return spurs;
 }
 
-/** Median of a sorted list with one occurrence of `excluded` left out (the point itself). */
-function medianWithout(sorted: readonly number[], excluded: number): number {
-  const skip = lowerBound(sorted, excluded);
-  const count = sorted.length - 1;
-  const at = (k: number) => sorted[k < skip ? k : k + 1];
-  const middle = count >> 1;
-  return count % 2 === 1 ? at(middle) : (at(middle - 1) + at(middle)) / 2;
+/**
+ * A multiset of some of a trace's levels (the points in the window), kept as counts per
+ * rank in a Fenwick (binary indexed) tree: Fenwick, "A new data structure for cumulative
+ * frequency tables", Software: Practice and Experience 24(3), 1994. Equal levels share a rank.
+ */
+class LevelCounts {
+  /** The trace's levels in ascending order; a rank is an index into it. */
+  private readonly sortedLevels: Float64Array;
+  /** Rank of each trace point's level. */
+  private readonly rankOf: Int32Array;
+  /** tree[r] (1-based) counts the ranks r − (r & −r) … r − 1. */
+  private readonly tree: Int32Array;
+  /** Largest power of two ≤ the number of ranks, where the k-th search starts. */
+  private readonly topStep: number;
+  size = 0;
+
+  constructor(levels: ArrayLike<number>) {
+    this.sortedLevels = new Float64Array(levels).sort();
+    this.rankOf = new Int32Array(levels.length);
+    for (let i = 0; i < levels.length; i++) this.rankOf[i] = lowerBound(this.sortedLevels, levels[i]);
+    this.tree = new Int32Array(levels.length + 1);
+    let step = 1;
+    while (step * 2 <= levels.length) step *= 2;
+    this.topStep = step;
+  }
+
+  /** Adds (delta 1) or removes (delta −1) the level of trace point `point`. */
+  add(point: number, delta: number): void {
+    this.size += delta;
+    for (let r = this.rankOf[point] + 1; r < this.tree.length; r += r & -r) this.tree[r] += delta;
+  }
+
+  /** The k-th lowest level in the window, k counted from 0. */
+  kthLowest(k: number): number {
+    let rank = 0;
+    let remaining = k;
+    for (let step = this.topStep; step > 0; step >>= 1) {
+      if (rank + step < this.tree.length && this.tree[rank + step] <= remaining) {
+        rank += step;
+        remaining -= this.tree[rank];
+      }
+    }
+    return this.sortedLevels[rank];
+  }
+
+  /** Median of the window with point `point`'s own level left out once (the point itself). */
+  medianWithout(point: number): number {
+    this.add(point, -1);
+    const middle = this.size >> 1;
+    const median = this.size % 2 === 1 ? this.kthLowest(middle) : (this.kthLowest(middle - 1) + this.kthLowest(middle)) / 2;
+    this.add(point, 1);
+    return median;
+  }
 }
 
-function lowerBound(sorted: readonly number[], value: number): number {
+function lowerBound(sorted: ArrayLike<number>, value: number): number {
   let lo = 0;
   let hi = sorted.length;
   while (lo < hi) {

@@ -9,9 +9,15 @@ export function pairSweep(xs: ArrayLike<number>, ys: ArrayLike<number>, xLabel: 
     throw new RangeError(`Sweep arrays differ in length: ${xs.length} ${xLabel} values, ${ys.length} readings`);
   }
   const points: SweepPoint[] = [];
+  let increasing = true;
   for (let i = 0; i < xs.length; i++) {
-    if (Number.isFinite(xs[i]) && Number.isFinite(ys[i])) points.push({ x: xs[i], y: ys[i] });
+    if (!(Number.isFinite(xs[i]) && Number.isFinite(ys[i]))) continue;
+    if (points.length > 0 && !(xs[i] > points[points.length - 1].x)) increasing = false;
+    points.push({ x: xs[i], y: ys[i] });
   }
+  // Parsed sweeps are already strictly increasing (the parser checks it): then there is
+  // nothing to sort and no duplicate to find.
+  if (increasing) return points;
   points.sort((p, q) => p.x - q.x);
   for (let i = 1; i < points.length; i++) {
     if (points[i].x === points[i - 1].x) throw new RangeError(`Duplicate ${xLabel} step at ${points[i].x}`);
