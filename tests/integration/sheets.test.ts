@@ -74,3 +74,30 @@ describe("the draft sheet of a demo device", () => {
     expect(model.absoluteMaximumRatings.find((a) => a.label === "RF input power")).toMatchObject({ value: "+23", unit: "dBm", missing: false });
   });
 });
+
+describe("the draft PDF", () => {
+  it("is served as a PDF named after the part, and every figure of the spec table is in its text", { timeout: 120_000 }, async () => {
+    const { execFileSync } = await import("node:child_process");
+    const { mkdtempSync, writeFileSync } = await import("node:fs");
+    const { tmpdir } = await import("node:os");
+    const path = await import("node:path");
+    const model = await sheet(engineer);
+    const r = await engineer.request(`/api/devices/${deviceId}/sheet/pdf?download=1`);
+    expect(r.status).toBe(200);
+    expect(r.headers.get("content-type")).toBe("application/pdf");
+    expect(r.headers.get("content-disposition")).toBe('attachment; filename="KDX-2G4-draft.pdf"');
+    const bytes = Buffer.from(await r.arrayBuffer());
+    expect(bytes.subarray(0, 5).toString()).toBe("%PDF-");
+    const file = path.join(mkdtempSync(path.join(tmpdir(), "octavo-pdf-")), "sheet.pdf");
+    writeFileSync(file, bytes);
+    // poppler's pdftotext reads the PDF independently of the renderer that wrote it.
+    const text = execFileSync("pdftotext", ["-layout", file, "-"], { encoding: "utf8" }).replace(/\s+/g, " ");
+    expect(text).toContain("KDX-2G4");
+    expect(text).toContain("PRELIMINARY");
+    for (const row of model.specifications.rows) {
+      for (const cell of [row.min, row.typ, row.max]) if (cell.value !== null) expect(text, `${row.label}: ${cell.text}`).toContain(cell.text);
+    }
+    expect((await outsider.request(`/api/devices/${deviceId}/sheet/pdf`)).status).toBe(404);
+    expect((await new TestClient().request(`/api/devices/${deviceId}/sheet/pdf`)).status).toBe(401);
+  });
+});
