@@ -1,0 +1,52 @@
+/**
+ * Sheet benchmark (run by `npm run bench`, not by `npm test`): build the sheet model, render
+ * the web page to HTML on the server, and render the PDF, for the invented doubler sheet in
+ * fixtures/sheets; cold (first call in the process) and warm (median of the next runs).
+ * It runs under vitest only because vitest resolves the server-only guard and react-pdf's
+ * ESM packages the way Next does; nothing here is a timed assertion.
+ */
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import { createElement } from "react";
+import { expect, it, vi } from "vitest";
+
+vi.mock("server-only", () => ({}));
+
+it("times the sheet model, the web page HTML and the PDF", { timeout: 600_000 }, async () => {
+  const { buildSheetModel } = await import("@/lib/sheet");
+  const { renderSheetPdf } = await import("@/lib/server/pdf/render-sheet-pdf");
+  const { renderSheetChartSvgs } = await import("@/lib/server/pdf/render-chart");
+  const { SheetView } = await import("@/components/sheet/sheet-view");
+  const { renderToStaticMarkup } = await import("react-dom/server");
+  const input = JSON.parse(readFileSync(path.resolve(__dirname, "../../fixtures/sheets/doubler-full.json"), "utf8"));
+
+  const time = async <T>(fn: () => Promise<T> | T): Promise<[number, T]> => {
+    const t0 = performance.now();
+    const value = await fn();
+    return [performance.now() - t0, value];
+  };
+  const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+  const html = async (model: ReturnType<typeof buildSheetModel>) => {
+    const svgs = await renderSheetChartSvgs(model);
+    return renderToStaticMarkup(createElement(SheetView, { model, chartSvgs: svgs }));
+  };
+
+  const [modelCold, model] = await time(() => buildSheetModel(input));
+  const [htmlCold, page] = await time(() => html(model));
+  const [pdfCold, pdf] = await time(() => renderSheetPdf(model));
+  const runs = Number(process.env.BENCH_RUNS ?? 3);
+  const warm = { model: [] as number[], html: [] as number[], pdf: [] as number[] };
+  for (let i = 0; i < runs; i++) {
+    warm.model.push((await time(() => buildSheetModel(input)))[0]);
+    warm.html.push((await time(() => html(model)))[0]);
+    warm.pdf.push((await time(() => renderSheetPdf(model)))[0]);
+  }
+  const row = (name: string, cold: number, w: number[]) => console.log(`${name.padEnd(22)} ${cold.toFixed(0).padStart(8)} ms ${median(w).toFixed(0).padStart(8)} ms`);
+  console.log(`\nSheet: ${model.header.partNumber}, ${model.specifications.rows.length} spec rows, ${model.charts.length} charts, ${model.statistics.groups.length} statistics groups`);
+  console.log(`${"step".padEnd(22)} ${"cold".padStart(11)} ${"warm (median)".padStart(14)}`);
+  row("sheet model", modelCold, warm.model);
+  row("web page HTML", htmlCold, warm.html);
+  row("PDF", pdfCold, warm.pdf);
+  console.log(`HTML ${(page.length / 1024).toFixed(0)} kB, PDF ${(pdf.byteLength / 1024).toFixed(0)} kB; aim: warm PDF under 1000 ms`);
+  expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
+});
