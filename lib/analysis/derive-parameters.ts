@@ -36,7 +36,7 @@ export function deriveParameters(parsed: ParsedMeasurement, options: DeriveOptio
   return {
     kind: parsed.kind,
     parameters: section.parameters,
-    warnings: [...parsed.warnings, ...section.warnings],
+    warnings: parsed.warnings.concat(section.warnings),
     curves: section.curves,
   };
 }

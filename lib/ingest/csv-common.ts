@@ -1,7 +1,7 @@
 import { metaQuantity, metaString, rawMetadata, unknownMetadataKeys } from "./csv-metadata";
 import { readCsvDocument, unusedColumns, type ColumnRequest, type CsvDocument } from "./csv-table";
 import { IngestError } from "./errors";
-import { decodeInput } from "./text-guards";
+import { readParserInput } from "./text-guards";
 import type { MeasurementKind, UnitConditions } from "./types";
 import { RANGES } from "./units";
 
@@ -10,13 +10,12 @@ export type FileContent = string | Uint8Array;
 export interface ParseOptions {
   /** Size limit in bytes (default 20 MiB). */
   maxBytes?: number;
+  /** The content is text that already passed decodeInput's guards (parseMeasurementFile). */
+  textChecked?: boolean;
 }
 
 export function openCsv(fileName: string, content: FileContent, kind: MeasurementKind, options: ParseOptions = {}): CsvDocument {
-  const text =
-    typeof content === "string"
-      ? decodeInput({ fileName, text: content, maxBytes: options.maxBytes })
-      : decodeInput({ fileName, bytes: content, maxBytes: options.maxBytes });
+  const text = readParserInput({ fileName, content, maxBytes: options.maxBytes, checked: options.textChecked });
   const doc = readCsvDocument(fileName, text);
   const declared = doc.metadata.get("kind");
   if (declared && declared.value.toLowerCase() !== kind) {

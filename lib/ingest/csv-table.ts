@@ -259,8 +259,13 @@ export function readCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): Col
   const slot = new Int32Array(width).fill(-1);
   requests.forEach((r, k) => (slot[r.cell.index] = k));
   // Typed buffers grown by doubling: pushing doubles onto plain arrays was the slowest step.
-  let capacity = 1024;
-  let buffers = requests.map(() => new Float64Array(capacity));
+  // The values go row by row into one buffer (value k of row r at r·columns + k), so a file
+  // costs two allocations however many columns it has. A row takes at least one character
+  // per cell (a digit or a delimiter, the last one a line end), so a small file starts with
+  // buffers of its size rather than 1,024 rows.
+  const columns = requests.length;
+  let capacity = Math.max(1, Math.min(1024, Math.ceil((text.length - doc.dataOffset) / width)));
+  let buffer = new Float64Array(capacity * columns);
   let lineBuffer = new Int32Array(capacity);
   let rows = 0;
   // Next delimiter at or after the cursor, cached so a line without one does not rescan the rest of the file.
@@ -279,11 +284,9 @@ export function readCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): Col
     if (text.charCodeAt(firstNonSpace(text, lineStart, end)) === 35) continue;
     if (rows === capacity) {
       capacity *= 2;
-      buffers = buffers.map((b) => {
-        const grown = new Float64Array(capacity);
-        grown.set(b);
-        return grown;
-      });
+      const grown = new Float64Array(capacity * columns);
+      grown.set(buffer);
+      buffer = grown;
       const grownLines = new Int32Array(capacity);
       grownLines.set(lineBuffer);
       lineBuffer = grownLines;
@@ -308,7 +311,7 @@ export function readCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): Col
           const r = requests[k];
           const v = r.conversion.toCanonical(x);
           if (r.conversion.invalid !== undefined || !inRange(v, r.range)) convertChecked(doc, r, x, lineNo, cell, text.slice(s, e));
-          buffers[k][rows] = v;
+          buffer[rows * columns + k] = v;
         }
       }
       cell++;
@@ -318,13 +321,17 @@ export function readCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): Col
     if (cell !== width) checkRowShape(doc, lineStart, end, next, lineNo);
     lineBuffer[rows++] = lineNo;
   }
-  return { values: buffers.map((b) => toPlainArray(b, rows)), lines: toPlainArray(lineBuffer, rows) };
+  const values = requests.map((_, k) => columnToPlainArray(buffer, k, columns, rows));
+  return { values, lines: columnToPlainArray(lineBuffer, 0, 1, rows) };
 }
 
-/** Copy to a plain array with a loop: several times faster than Array.from on a typed array. */
-function toPlainArray(source: Float64Array | Int32Array, length: number): number[] {
-  const out = new Array<number>(length);
-  for (let i = 0; i < length; i++) out[i] = source[i];
+/**
+ * Column `column` of a row-by-row buffer as a plain array, copied with a loop: several
+ * times faster than Array.from on a typed array.
+ */
+function columnToPlainArray(source: Float64Array | Int32Array, column: number, columns: number, rows: number): number[] {
+  const out = new Array<number>(rows);
+  for (let r = 0; r < rows; r++) out[r] = source[r * columns + column];
   return out;
 }
 

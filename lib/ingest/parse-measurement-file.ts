@@ -22,8 +22,9 @@ export function parseMeasurementFile(input: MeasurementFileInput): ParsedMeasure
   const { fileName, maxBytes } = input;
   const text = decodeInput({ fileName, bytes: input.bytes, text: input.text, maxBytes });
   const kind = input.kind ?? detectKind(fileName, text);
-  // The text is already checked; the size limit is not applied twice to a decoded string.
-  const options = { maxBytes: Number.POSITIVE_INFINITY };
+  // The text is already checked: the parsers neither apply the size limit to a decoded string
+  // nor run the guards over it again.
+  const options = { maxBytes: Number.POSITIVE_INFINITY, textChecked: true };
   switch (kind) {
     case "drive-sweep":
       return { kind, ...parseDriveSweep(fileName, text, options) };

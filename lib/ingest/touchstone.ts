@@ -10,7 +10,7 @@
 import type { FileContent, ParseOptions } from "./csv-common";
 import { IngestError, shortenFound, type IngestErrorCode } from "./errors";
 import { looksNonFinite, parseNumberAt } from "./number";
-import { decodeInput } from "./text-guards";
+import { readParserInput } from "./text-guards";
 import type { ParseResult, TouchstoneData } from "./types";
 import { RANGES } from "./units";
 
@@ -320,10 +320,7 @@ function restIsBlank(text: string, from: number): boolean {
 }
 
 export function parseTouchstone(fileName: string, content: FileContent, options: ParseOptions = {}): ParseResult<TouchstoneData> {
-  const text =
-    typeof content === "string"
-      ? decodeInput({ fileName, text: content, maxBytes: options.maxBytes })
-      : decodeInput({ fileName, bytes: content, maxBytes: options.maxBytes });
+  const text = readParserInput({ fileName, content, maxBytes: options.maxBytes, checked: options.textChecked });
   const s: State = {
     fileName,
     version: undefined,
