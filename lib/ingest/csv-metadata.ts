@@ -120,10 +120,12 @@ export function metaInteger(
   return n;
 }
 
+const COMMON_METADATA_KEY_SET = new Set(COMMON_METADATA_KEYS);
+
 /** Metadata lines no parser read, reported as a warning rather than dropped silently. */
 export function unknownMetadataKeys(doc: CsvDocument, known: string[]): string[] {
-  const all = new Set([...COMMON_METADATA_KEYS, ...known]);
-  return [...doc.metadata.keys()].filter((k) => !all.has(k));
+  // The common keys' set is built once, not per file; a kind's own keys are only a handful.
+  return [...doc.metadata.keys()].filter((k) => !COMMON_METADATA_KEY_SET.has(k) && !known.includes(k));
 }
 
 export function rawMetadata(doc: CsvDocument): Record<string, string> {

@@ -248,6 +248,11 @@ function otherDelimiterIn(text: string, start: number, end: number, delimiter: D
   return others.find((d) => segment.includes(d));
 }
 
+/** Scratch buffers of readCsvColumns, big enough for a 4,096-value file; a larger one grows its own. */
+const SCRATCH_VALUES = 4096;
+const scratchValues = new Float64Array(SCRATCH_VALUES);
+const scratchLines = new Int32Array(SCRATCH_VALUES);
+
 /**
  * Reads the requested columns of every data row in one pass over the text,
  * without splitting rows into arrays of strings. Every row must have as many
@@ -259,14 +264,15 @@ export function readCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): Col
   const slot = new Int32Array(width).fill(-1);
   requests.forEach((r, k) => (slot[r.cell.index] = k));
   // Typed buffers grown by doubling: pushing doubles onto plain arrays was the slowest step.
-  // The values go row by row into one buffer (value k of row r at r·columns + k), so a file
-  // costs two allocations however many columns it has. A row takes at least one character
-  // per cell (a digit or a delimiter, the last one a line end), so a small file starts with
-  // buffers of its size rather than 1,024 rows.
+  // The values go row by row into one buffer (value k of row r at r·columns + k). The buffers
+  // are scratch space (the result is copied out into plain arrays), so a small file reuses
+  // the module's instead of allocating its own: with thousands of small files per upload the
+  // allocations, not the reading, were the cost.
   const columns = requests.length;
-  let capacity = Math.max(1, Math.min(1024, Math.ceil((text.length - doc.dataOffset) / width)));
-  let buffer = new Float64Array(capacity * columns);
-  let lineBuffer = new Int32Array(capacity);
+  const fitsScratch = columns <= SCRATCH_VALUES;
+  let capacity = fitsScratch ? Math.floor(SCRATCH_VALUES / columns) : 1;
+  let buffer = fitsScratch ? scratchValues : new Float64Array(columns);
+  let lineBuffer = scratchLines;
   let rows = 0;
   // Next delimiter at or after the cursor, cached so a line without one does not rescan the rest of the file.
   let nextDelim = text.indexOf(delimiter, doc.dataOffset);
@@ -285,10 +291,10 @@ export function readCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): Col
     if (rows === capacity) {
       capacity *= 2;
       const grown = new Float64Array(capacity * columns);
-      grown.set(buffer);
+      grown.set(buffer.subarray(0, rows * columns));
       buffer = grown;
       const grownLines = new Int32Array(capacity);
-      grownLines.set(lineBuffer);
+      grownLines.set(lineBuffer.subarray(0, rows));
       lineBuffer = grownLines;
     }
     let cellStart = lineStart;
