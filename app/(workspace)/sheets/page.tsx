@@ -1,22 +1,15 @@
 import type { Metadata } from "next";
+import { listDevices } from "@/lib/server/devices/list-devices";
+import { requireSheetReader } from "@/components/sheets/require-sheet-reader";
+import { SheetsIndexView } from "@/components/sheets/sheets-index-view";
 import { ForbiddenView } from "@/components/workspace/forbidden-view";
-import { NotBuiltView } from "@/components/workspace/not-built-view";
-import { requirePageUser } from "@/components/workspace/require-page-user";
 
 export const metadata: Metadata = { title: "Sheets" };
 
 export default async function SheetsPage() {
-  const access = await requirePageUser({ permission: "sheet:write", path: "/sheets" });
+  const access = await requireSheetReader("/sheets");
   if (!access.allowed) return <ForbiddenView role={access.user.role} pageName="datasheet drafts" />;
-  return (
-    <NotBuiltView
-      runningHead={access.user.organizationName}
-      title="Sheets"
-      lead="Draft datasheets: conditions, min/typ/max tables backed by the measurements, typical curves and the prose around them."
-      emptyTitle="Sheets are not built yet"
-    >
-      <p>Writing a sheet needs measurement sets to draw from, and uploading them arrives in a later release.</p>
-      <p>Until then, your devices and their identifying conditions are on the Devices page.</p>
-    </NotBuiltView>
-  );
+  const { organizationId, organizationName } = access.user;
+  const devices = await listDevices(organizationId);
+  return <SheetsIndexView devices={devices} organizationId={organizationId} organizationName={organizationName} canEdit={access.canEdit} />;
 }

@@ -1,0 +1,58 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { Suspense } from "react";
+import { isAppError } from "@/lib/errors";
+import { buildSheetModel, type SheetInput } from "@/lib/sheet";
+import { loadSheetInput } from "@/lib/server/sheets/load-sheet-input";
+import { findSheetTemplate } from "@/templates";
+import { SheetView } from "@/components/sheet/sheet-view";
+import { SheetViewWithCharts } from "@/components/sheets/sheet-view-with-charts";
+import { SheetWorkspace } from "@/components/sheets/sheet-workspace";
+import { requireSheetReader } from "@/components/sheets/require-sheet-reader";
+import { ForbiddenView } from "@/components/workspace/forbidden-view";
+
+type Props = { params: Promise<{ deviceId: string }> };
+
+export const metadata: Metadata = { title: "Sheet draft" };
+
+export default async function SheetPage({ params }: Props) {
+  const { deviceId: idText } = await params;
+  const access = await requireSheetReader(`/sheets/${idText}`);
+  if (!access.allowed) return <ForbiddenView role={access.user.role} pageName="datasheet drafts" />;
+  const deviceId = Number(idText);
+  if (!Number.isInteger(deviceId) || deviceId <= 0) notFound();
+  let input: SheetInput;
+  try {
+    // The same input buildDeviceSheet reads, loaded once: the model for the preview, the raw text for the editors.
+    input = await loadSheetInput({ organizationId: access.user.organizationId, deviceId, date: new Date().toISOString().slice(0, 10) });
+  } catch (error) {
+    if (isAppError(error) && error.code === "not-found") notFound();
+    throw error;
+  }
+  const model = buildSheetModel(input);
+  const template = findSheetTemplate(input.device.deviceClass);
+  return (
+    <SheetWorkspace
+      deviceId={deviceId}
+      canEdit={access.canEdit}
+      approvedSetCount={model.traceability.measurementSets.length}
+      model={{ header: model.header, specifications: model.specifications, statistics: model.statistics, issues: model.issues }}
+      content={{
+        limits: input.limits,
+        prose: input.prose,
+        absoluteMaximumRatings: input.absoluteMaximumRatings,
+        measurementUncertainty: input.settings.measurementUncertainty ?? {},
+      }}
+      template={{
+        prose: (template?.prose ?? []).map(({ id, title, markdown }) => ({ id, title, markdown })),
+        absoluteMaximumRatings: template?.absoluteMaximumRatings ?? [],
+      }}
+      sheetView={
+        // The charts' SVG is drawn on the server; until it arrives the sheet shows each chart's description.
+        <Suspense fallback={<SheetView model={model} />}>
+          <SheetViewWithCharts model={model} />
+        </Suspense>
+      }
+    />
+  );
+}
