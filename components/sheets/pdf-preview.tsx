@@ -20,9 +20,12 @@ export function PdfPreview({ deviceId, version, partNumber }: { deviceId: number
   useEffect(() => {
     const box = boxRef.current;
     if (!box || visible) return;
-    const observer = new IntersectionObserver((entries) => {
-      if (entries.some((e) => e.isIntersecting)) setVisible(true);
-    });
+    const observer = new IntersectionObserver(
+      (entries) => {
+        if (entries.some((e) => e.isIntersecting)) setVisible(true);
+      },
+      { rootMargin: "400px 0px" },
+    );
     observer.observe(box);
     return () => observer.disconnect();
   }, [visible]);
@@ -73,7 +76,7 @@ export function PdfPreview({ deviceId, version, partNumber }: { deviceId: number
       </div>
       <div className="relative flex-1 border border-rule bg-paper-deep">
         {state.phase === "ready" ? (
-          <iframe src={state.url} title={`${partNumber} draft sheet, PDF`} className="absolute inset-0 h-full w-full" />
+          <iframe src={`${state.url}#navpanes=0&view=FitH`} title={`${partNumber} draft sheet, PDF`} className="absolute inset-0 h-full w-full" />
         ) : (
           <div className="absolute inset-0 flex items-center justify-center p-6 text-center" role="status" aria-live="polite">
             {state.phase === "error" ? (

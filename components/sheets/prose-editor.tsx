@@ -38,7 +38,18 @@ export function ProseEditor({ deviceId, model, content, template, onSaved }: Pro
 
   const parameters = useMemo(() => {
     const seen = new Map<string, { parameter: string; label: string; unit: string }>();
-    for (const g of model.statistics.groups) if (!seen.has(g.parameter)) seen.set(g.parameter, { parameter: g.parameter, label: g.label, unit: g.unit });
+    const rowsOf = new Map<string, Map<string, { label: string; symbol: string }>>();
+    for (const g of model.statistics.groups) {
+      if (!rowsOf.has(g.parameter)) rowsOf.set(g.parameter, new Map());
+      rowsOf.get(g.parameter)!.set(g.rowId, { label: g.label, symbol: g.symbol });
+      if (!seen.has(g.parameter)) seen.set(g.parameter, { parameter: g.parameter, label: g.label, unit: g.unit });
+    }
+    // One U per parameter: a parameter behind several table rows (e.g. HS1, HS3, HS4) is named for all of them.
+    for (const [parameter, rows] of rowsOf) {
+      if (rows.size < 2) continue;
+      const name = parameter.replace(/-/g, " ");
+      seen.get(parameter)!.label = `${name[0].toUpperCase()}${name.slice(1)} (${[...rows.values()].map((r) => r.symbol).join(", ")})`;
+    }
     for (const p of Object.keys(content.measurementUncertainty)) if (!seen.has(p)) seen.set(p, { parameter: p, label: p, unit: "" });
     return [...seen.values()];
   }, [model.statistics.groups, content.measurementUncertainty]);
@@ -155,7 +166,8 @@ export function ProseEditor({ deviceId, model, content, template, onSaved }: Pro
                 {usingDefault ? (
                   <>
                     <p>
-                      <span className="font-semibold text-ink">Using the default.</span> The sheet prints the template’s text, shown greyed in the field.
+                      <span className="font-semibold text-ink">Using the default.</span> The sheet prints{" "}
+                      {section.defaultSource === "device" ? "the device’s description" : "the template’s text"}, shown greyed in the field.
                     </p>
                     <button
                       type="button"
@@ -167,7 +179,7 @@ export function ProseEditor({ deviceId, model, content, template, onSaved }: Pro
                   </>
                 ) : (
                   <>
-                    <p>Your text replaces the template’s default.</p>
+                    <p>Your text replaces the default.</p>
                     <button type="button" className={`${buttonClass.quiet} mt-1 text-sm`} onClick={() => setProse((p) => ({ ...p, [section.id]: "" }))}>
                       Clear, use the default
                     </button>

@@ -40,8 +40,13 @@ export function SheetWorkspace({ deviceId, canEdit, model, content, template, ap
   const visibleTabs = canEdit ? tabs : tabs.filter((t) => t.id === "preview");
 
   useEffect(() => {
-    const fromHash = window.location.hash.slice(1);
-    if (canEdit && tabs.some((t) => t.id === fromHash)) setTab(fromHash as TabId);
+    const followHash = () => {
+      const fromHash = window.location.hash.slice(1);
+      if (canEdit && tabs.some((t) => t.id === fromHash)) setTab(fromHash as TabId);
+    };
+    followHash();
+    window.addEventListener("hashchange", followHash);
+    return () => window.removeEventListener("hashchange", followHash);
   }, [canEdit]);
 
   const selectTab = (id: TabId) => {

@@ -13,6 +13,7 @@ export interface WorkspaceContent {
 
 /** The device class's defaults: prose shown until the engineer writes a section, and the ratings a sheet must state. */
 export interface WorkspaceTemplate {
-  prose: { id: ProseSectionId; title: string; markdown: string }[];
+  /** The text an empty section prints: the template's, or for the description the device's own. */
+  prose: { id: ProseSectionId; title: string; markdown: string; defaultSource: "template" | "device" }[];
   absoluteMaximumRatings: { label: string; unit: string }[];
 }

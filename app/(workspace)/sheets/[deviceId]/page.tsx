@@ -44,7 +44,12 @@ export default async function SheetPage({ params }: Props) {
         measurementUncertainty: input.settings.measurementUncertainty ?? {},
       }}
       template={{
-        prose: (template?.prose ?? []).map(({ id, title, markdown }) => ({ id, title, markdown })),
+        // As the model does: an unwritten description prints the device's own description, if it has one.
+        prose: (template?.prose ?? []).map(({ id, title, markdown }) =>
+          id === "description" && input.device.description.trim()
+            ? { id, title, markdown: input.device.description, defaultSource: "device" as const }
+            : { id, title, markdown, defaultSource: "template" as const },
+        ),
         absoluteMaximumRatings: template?.absoluteMaximumRatings ?? [],
       }}
       sheetView={
