@@ -21,7 +21,8 @@ test.describe("each role sees its own workspace", () => {
 
   test("engineer: devices, sheets and catalog; reads the device table; no people admin", async ({ page }) => {
     await signInAs(page, "engineer");
-    await page.goto("/devices");
+    // Searched, so the seeded parts are on the first page however many devices other tests have made.
+    await page.goto("/devices?q=WL-C26");
     await expect(mainNavigationLinks(page)).toHaveText(["Devices", "Sheets", "Catalog"]);
     await expect(page.getByTestId("session-role")).toHaveText("Engineer");
 
@@ -31,16 +32,19 @@ test.describe("each role sees its own workspace", () => {
     await expect(doubler).toContainText("0.5–1.5\u00a0GHz");
     await expect(doubler).toContainText("+13\u00a0dBm");
     await expect(table.getByRole("row", { name: /WL-C2614-PM13/ })).toContainText("10–3000\u00a0MHz");
-    // Another organization's parts never show.
-    await expect(table).not.toContainText("KDX-2G4");
+    // Another organization's parts never show, not even to a search that would match them.
+    await page.goto("/devices?q=KDX");
+    await expect(page.getByTestId("devices-table")).toContainText("WL-C2611-KDX");
+    await expect(page.getByTestId("devices-table")).not.toContainText("KDX-2G4");
 
     await page.goto("/sheets");
-    await expect(page.getByTestId("empty-state")).toContainText("Sheets are not built yet");
+    await expect(page.getByTestId("sheets-table")).toContainText("WL-C2611-KDX");
+    await expect(page.getByTestId("sheets-table")).not.toContainText("KDX-2G4");
 
     await expectRefused(page, "/admin/users");
   });
 
-  test("reviewer: devices, review queue and catalog; no sheet drafts", async ({ page }) => {
+  test("reviewer: devices, review queue and catalog; reads sheet drafts; no people admin", async ({ page }) => {
     await signInAs(page, "reviewer");
     await page.goto("/review");
     await expect(mainNavigationLinks(page)).toHaveText(["Devices", "Review queue", "Catalog"]);
@@ -50,7 +54,9 @@ test.describe("each role sees its own workspace", () => {
     await expect(page.getByTestId("review-queue-table").or(page.getByTestId("review-empty"))).toBeVisible();
     await expect(page.getByText("arrive with the sheets feature")).toBeVisible();
 
-    await expectRefused(page, "/sheets");
+    // Reviewers read the drafts they will sign off; they cannot edit them.
+    await page.goto("/sheets");
+    await expect(page.getByTestId("sheets-table")).toContainText("WL-C2611-KDX");
     await expectRefused(page, "/admin/users");
   });
 
