@@ -1,0 +1,244 @@
+import { expect as baseExpect, test, type Page } from "@playwright/test";
+import { signInViaApi } from "./helpers";
+import { xssPayloads } from "./xss-payloads";
+
+// A sheet page builds the model and draws its charts on the server; a busy dev server needs time.
+// The tests share the demo device and change its limits and prose for a moment: one at a time.
+test.describe.configure({ mode: "serial", timeout: 420_000 });
+const expect = baseExpect.configure({ timeout: 60_000 });
+
+// Kestrine Microwave's demo doubler has approved measurement sets (scripts/seed-demo-measurements.ts).
+const kestrine = {
+  engineer: "elena.marchetti@kestrine.example",
+  reviewer: "hiroshi.tanabe@kestrine.example",
+} as const;
+const customer = "anneli.vos@tarnby-radio.example";
+
+async function demoDoublerId(page: Page): Promise<number> {
+  const response = await page.request.get("/api/devices");
+  expect(response.status(), "GET /api/devices").toBe(200);
+  const { devices } = (await response.json()) as { devices: { id: number; partNumber: string }[] };
+  const device = devices.find((d) => d.partNumber === "KDX-2G4");
+  expect(device, "the demo device KDX-2G4").toBeTruthy();
+  return device!.id;
+}
+
+/**
+ * The draft PDF takes many seconds of server CPU to render and would slow every other request of these
+ * tests; where a test is not about the PDF, the frame gets a one-page stand-in instead.
+ */
+async function stubDraftPdf(page: Page): Promise<string[]> {
+  const requested: string[] = [];
+  await page.route("**/api/devices/*/sheet/pdf*", async (route) => {
+    requested.push(new URL(route.request().url()).pathname);
+    await new Promise((resolve) => setTimeout(resolve, 1_500));
+    await route.fulfill({ status: 200, contentType: "application/pdf", body: minimalPdf });
+  });
+  return requested;
+}
+
+const minimalPdf = Buffer.from(
+  "%PDF-1.4\n1 0 obj<</Type/Catalog/Pages 2 0 R>>endobj\n2 0 obj<</Type/Pages/Kids[3 0 R]/Count 1>>endobj\n" +
+    "3 0 obj<</Type/Page/Parent 2 0 R/MediaBox[0 0 595 842]>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n",
+);
+
+/** Opens a workspace tab; a click that lands before hydration is simply tried again. */
+async function openTab(page: Page, name: string, testId: string) {
+  await expect(async () => {
+    await page.getByRole("tab", { name }).click();
+    await expect(page.getByTestId(testId)).toBeVisible({ timeout: 2_000 });
+  }).toPass();
+}
+
+type GroupJson = { groupId: string; n: number; cpk: { text: string } };
+
+test("engineer: the sheet list, the preview with its banner and spec table, and the data behind a figure", async ({ page }) => {
+  await signInViaApi(page, kestrine.engineer);
+  const id = await demoDoublerId(page);
+
+  await page.goto("/sheets");
+  const row = page.getByTestId("sheet-row-KDX-2G4");
+  await expect(row.getByRole("link", { name: "KDX-2G4" })).toHaveAttribute("href", `/sheets/${id}`);
+  await expect(row.getByTestId("spec-rows")).toHaveText(/^[1-9]\d*$/);
+  await expect(row.getByTestId("approved-sets")).toHaveText(/^[1-9]\d*$/);
+
+  const pdfRequests = await stubDraftPdf(page);
+  await page.goto(`/sheets/${id}`);
+  const webSheet = page.getByTestId("web-sheet");
+  await expect(webSheet.getByRole("status").filter({ hasText: "PRELIMINARY" })).toBeVisible();
+  await expect(webSheet.getByRole("heading", { name: "Electrical specifications" })).toBeVisible();
+  const specTable = page.getByTestId("spec-data-table");
+  await expect(specTable).toBeVisible();
+  await expect(page.getByTestId("sheet-issues")).toBeVisible();
+
+  const value = specTable.getByTestId("spec-value").first();
+  const groupId = await value.locator("xpath=ancestor::tr[1]").getAttribute("data-group-id");
+  await value.click();
+  const panel = page.getByRole("dialog", { name: /./ });
+  await expect(panel).toBeVisible();
+
+  const model = (await (await page.request.get(`/api/devices/${id}/sheet`)).json()) as { sheet: { statistics: { groups: GroupJson[] } } };
+  const group = model.sheet.statistics.groups.find((g) => g.groupId === groupId)!;
+  expect(group, "the clicked row's statistics group").toBeTruthy();
+  await expect(panel.getByTestId("panel-n")).toHaveText(String(group.n));
+  await expect(panel.getByTestId("panel-cpk")).toContainText(group.cpk.text || "—");
+  await expect(panel.getByTestId("panel-cpk")).toContainText("threshold");
+  await expect(panel.getByTestId("panel-units").locator("tbody tr")).toHaveCount(group.n);
+  await expect(panel.getByTestId("panel-units").getByRole("link").first()).toHaveAttribute("href", new RegExp(`^/devices/${id}/measurements/\\d+$`));
+
+  await page.keyboard.press("Escape");
+  await expect(panel).toBeHidden();
+  await expect(value).toBeFocused();
+
+  // The PDF is asked for only when its frame comes near the screen, and says it is rendering meanwhile.
+  const pdf = page.getByTestId("pdf-preview");
+  await pdf.scrollIntoViewIfNeeded();
+  await expect(pdf.getByText("Rendering PDF…")).toBeVisible();
+  await expect(pdf.locator("iframe")).toBeVisible();
+  expect(pdfRequests.length).toBeGreaterThan(0);
+  expect(new Set(pdfRequests)).toEqual(new Set([`/api/devices/${id}/sheet/pdf`]));
+});
+
+test("engineer: a limit entered in the editor is judged (Cpk and flags), then taken out again", async ({ page }) => {
+  await signInViaApi(page, kestrine.engineer);
+  const id = await demoDoublerId(page);
+  await stubDraftPdf(page);
+  await page.goto(`/sheets/${id}`);
+  await openTab(page, "Spec limits", "spec-limits-editor");
+  const editor = page.getByTestId("spec-limits-editor");
+  const line = editor.getByTestId("limit-row").first();
+  const max = line.getByRole("textbox", { name: /^max / });
+  // Only a line nobody has limited is used, so putting it back is clearing it.
+  await expect(line.getByRole("textbox", { name: /^min / })).toHaveValue("");
+  await expect(line.getByRole("textbox", { name: /^typ / })).toHaveValue("");
+  await expect(max).toHaveValue("");
+  const statistics = line.getByTestId("limit-statistics");
+  const minText = (await statistics.locator("dt", { hasText: /^min$/ }).locator("xpath=following-sibling::dd[1]").textContent())!;
+
+  try {
+    // A maximum below the smallest unit: every unit fails and Cpk is negative, far below any threshold.
+    const tight = (Number(minText.replace("\u2212", "-")) - 1).toFixed(2);
+    await max.fill(tight);
+    await editor.getByRole("button", { name: "Save limits" }).click();
+    await expect(editor.getByRole("status").filter({ hasText: "Saved" })).toBeVisible();
+    await expect(line.getByTestId("flag-list")).toContainText("Cpk below threshold");
+    await expect(line.getByTestId("flag-list")).toContainText("Unit outside the guard-banded limit");
+    await expect(statistics.locator("dd").last()).toHaveText(/^\u2212\d/);
+
+    await page.getByRole("tab", { name: "Preview" }).click();
+    await page.getByTestId("spec-data-table").getByTestId("spec-data-button").first().click();
+    const panel = page.getByTestId("statistics-panel");
+    await expect(panel.getByTestId("panel-cpk")).toContainText("below the threshold");
+    await expect(panel.getByTestId("panel-units")).toContainText("fail");
+    await page.keyboard.press("Escape");
+
+    // A typed error comes back as words, and nothing is sent.
+    await page.getByRole("tab", { name: "Spec limits" }).click();
+    await line.getByRole("textbox", { name: /^min / }).fill("twelve");
+    await editor.getByRole("button", { name: "Save limits" }).click();
+    await expect(line.getByRole("alert")).toContainText("Min: not a number");
+    await line.getByRole("textbox", { name: /^min / }).fill("");
+  } finally {
+    await max.fill("");
+    await editor.getByRole("button", { name: "Save limits" }).click();
+    await expect(editor.getByRole("status").filter({ hasText: "Saved" })).toBeVisible();
+  }
+  await expect(line.getByTestId("flag-list")).toHaveCount(0);
+});
+
+test("engineer: prose full of script payloads is shown as text and runs nothing; the prose is put back", async ({ page }) => {
+  expect(xssPayloads.length).toBeGreaterThanOrEqual(20);
+  const dialogs: string[] = [];
+  page.on("dialog", async (dialog) => {
+    dialogs.push(dialog.message());
+    await dialog.dismiss();
+  });
+  await signInViaApi(page, kestrine.engineer);
+  const id = await demoDoublerId(page);
+
+  await stubDraftPdf(page);
+  await page.goto(`/sheets/${id}`);
+  await openTab(page, "Prose and ratings", "prose-editor");
+  const editor = page.getByTestId("prose-editor");
+  const applications = editor.getByTestId("prose-applications");
+  await expect(applications).toBeVisible();
+  const original = await applications.inputValue();
+  const marker = `xss-corpus-${Date.now().toString(36)}`;
+
+  try {
+    await applications.fill([marker, ...xssPayloads].join("\n\n"));
+    await editor.getByRole("button", { name: "Save text and ratings" }).click();
+    await expect(editor.getByRole("status").filter({ hasText: "Saved" })).toBeVisible();
+
+    await page.goto(`/sheets/${id}`);
+    const webSheet = page.getByTestId("web-sheet");
+    await expect(webSheet).toContainText(marker);
+    await expect(webSheet).toContainText("click me (markdown)");
+    // Give event handlers, autofocus, meta refresh and frames time to fire if any survived.
+    await page.waitForTimeout(2_000);
+
+    expect(dialogs, "no alert, confirm or prompt opened").toEqual([]);
+    expect(await page.evaluate(() => (window as unknown as { __xss?: unknown }).__xss), "window.__xss stays unset").toBeUndefined();
+    await expect(page).toHaveURL(new RegExp(`/sheets/${id}$`));
+
+    const found = await webSheet.evaluate((root) => {
+      const sheet = root.querySelector("article.sheet-view")!;
+      const handlers = Array.from(sheet.querySelectorAll("*")).filter((el) => Array.from(el.attributes).some((a) => /^on/i.test(a.name)));
+      const badLinks = Array.from(sheet.querySelectorAll("[href], [src], [action], [data], [srcdoc]")).filter((el) =>
+        ["href", "src", "action", "data", "srcdoc"].some((name) => /^\s*(javascript|data|vbscript):|<script/i.test(el.getAttribute(name) ?? "")),
+      );
+      return {
+        scripts: sheet.querySelectorAll("script").length,
+        frames: sheet.querySelectorAll("iframe, object, embed, form, input, meta, style:not(:first-child)").length,
+        styleAttributes: Array.from(sheet.querySelectorAll("[style]")).filter((el) => /expression|javascript/i.test(el.getAttribute("style") ?? "")).length,
+        handlers: handlers.map((el) => el.outerHTML.slice(0, 80)),
+        badLinks: badLinks.map((el) => el.outerHTML.slice(0, 80)),
+      };
+    });
+    expect(found).toEqual({ scripts: 0, frames: 0, styleAttributes: 0, handlers: [], badLinks: [] });
+    // Anywhere on the page: no script element carries a payload (the framework's own data scripts hold it only as escaped JSON).
+    const payloadScripts = await page.evaluate(() =>
+      Array.from(document.querySelectorAll("script")).filter((s) => !s.textContent?.includes("self.__next_f") && /__xss|alert\(/.test(s.textContent ?? "") || /^data:/i.test(s.getAttribute("src") ?? "")).length,
+    );
+    expect(payloadScripts).toBe(0);
+  } finally {
+    await page.goto(`/sheets/${id}`);
+    await openTab(page, "Prose and ratings", "prose-editor");
+    await applications.fill(original);
+    await editor.getByRole("button", { name: "Save text and ratings" }).click();
+    await expect(editor.getByRole("status").filter({ hasText: "Saved" })).toBeVisible();
+  }
+  await page.goto(`/sheets/${id}`);
+  await expect(page.getByTestId("web-sheet")).not.toContainText(marker);
+  expect(dialogs).toEqual([]);
+});
+
+test("reviewer reads the sheets without editors; a customer is refused", async ({ browser }) => {
+  const reviewerContext = await browser.newContext();
+  const reviewer = await reviewerContext.newPage();
+  await signInViaApi(reviewer, kestrine.reviewer);
+  const id = await demoDoublerId(reviewer);
+  await stubDraftPdf(reviewer);
+  await reviewer.goto("/sheets");
+  await expect(reviewer.getByTestId("sheet-row-KDX-2G4")).toBeVisible();
+  await reviewer.goto(`/sheets/${id}`);
+  await expect(reviewer.getByTestId("spec-data-table")).toBeVisible();
+  await expect(reviewer.getByTestId("sheet-issues")).toBeVisible();
+  await expect(reviewer.getByRole("tab")).toHaveCount(0);
+  await expect(reviewer.getByTestId("spec-limits-editor")).toHaveCount(0);
+  await expect(reviewer.getByTestId("prose-editor")).toHaveCount(0);
+  await expect(reviewer.getByRole("textbox")).toHaveCount(0);
+  const put = await reviewer.request.put(`/api/devices/${id}/sheet-content`, { data: { prose: {} } });
+  expect(put.status(), "the route refuses a reviewer's write too").toBe(403);
+  await reviewerContext.close();
+
+  const customerContext = await browser.newContext();
+  const page = await customerContext.newPage();
+  await signInViaApi(page, customer);
+  for (const path of ["/sheets", `/sheets/${id}`]) {
+    await page.goto(path);
+    await expect(page.getByTestId("forbidden")).toBeVisible();
+    await expect(page.getByTestId("sheet-workspace")).toHaveCount(0);
+  }
+  await customerContext.close();
+});
