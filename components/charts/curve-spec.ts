@@ -134,6 +134,14 @@ export function buildCurveSpec(curve: Curve, options: CurveSpecOptions = {}): To
   const xTitle = axisTitle(curve.x.label, x.unit);
   const yTitle = axisTitle(curve.y.label, yUnit);
 
+  // One look per harmonic order on every plot (the 2nd is always the dashed accent); other traces in turn.
+  const styleIndex = (name: string, position: number) => {
+    const original = curve.series.find((s) => seriesLabel(s.name) === name)?.name ?? name;
+    const order = /^order (\d+)$/.exec(original);
+    return order ? Number(order[1]) - 1 : position;
+  };
+  const styles = names.map((name, i) => styleIndex(name, i));
+  const pick = <T,>(list: T[]) => styles.map((k) => list[k % list.length]);
   const seriesScale = { domain: names };
   const legend = names.length > 1 ? { title: null, orient: "bottom" as const, direction: "horizontal" as const, symbolStrokeWidth: 1.5, symbolSize: 120, labelFont: fonts.text, labelFontSize: 12, labelLimit: 260 } : null;
   const xEncoding = {
@@ -154,9 +162,9 @@ export function buildCurveSpec(curve: Curve, options: CurveSpecOptions = {}): To
     { field: "xText", type: "nominal" as const, title: curve.x.label },
     { field: "yText", type: "nominal" as const, title: curve.y.label },
   ];
-  const colour = { field: "series", type: "nominal" as const, scale: { ...seriesScale, range: seriesColours }, legend };
-  const dash = { field: "series", type: "nominal" as const, scale: { ...seriesScale, range: seriesDashes }, legend };
-  const shape = { field: "series", type: "nominal" as const, scale: { ...seriesScale, range: seriesShapes }, legend };
+  const colour = { field: "series", type: "nominal" as const, scale: { ...seriesScale, range: pick(seriesColours) }, legend };
+  const dash = { field: "series", type: "nominal" as const, scale: { ...seriesScale, range: pick(seriesDashes) }, legend };
+  const shape = { field: "series", type: "nominal" as const, scale: { ...seriesScale, range: pick(seriesShapes) }, legend };
 
   // Dense traces (phase noise, VNA sweeps) get small points so the line stays legible.
   const pointSize = maxPoints > 120 ? 4 : maxPoints > 40 ? 14 : 30;
@@ -195,18 +203,15 @@ export function buildCurveSpec(curve: Curve, options: CurveSpecOptions = {}): To
         ],
       },
     });
-    // Labels stay inside the plot: a marker in the right half is labelled to its left.
-    const xs = data.map((d) => d.x);
-    const mid = logX ? Math.sqrt(Math.min(...xs) * Math.max(...xs)) : (Math.min(...xs) + Math.max(...xs)) / 2;
-    for (const side of ["left", "right"] as const) {
-      const values = markerData.filter((m) => m.text && (side === "left" ? m.x <= mid : m.x > mid));
-      if (values.length === 0) continue;
+    // Labelled markers (the optimum) are named in the plot's top-right corner, clear of the trace they sit on.
+    const labelled = markerData.filter((m) => m.text);
+    labelled.forEach((m, i) => {
       layers.push({
-        data: { values },
-        mark: { type: "text", align: side, dx: side === "left" ? 10 : -10, dy: -14, font: fonts.text, fontSize: 12, color: c["signal-deep"], fontWeight: 600 },
-        encoding: { x: { field: "x", type: "quantitative" }, y: { field: "y", type: "quantitative" }, text: { field: "text" } },
+        data: { values: [{ text: `\u25C7 ${m.text}` }] },
+        mark: { type: "text", align: "right", baseline: "top", x: "width", y: 8 + 16 * i, dx: -8, font: fonts.text, fontSize: 12, color: c["signal-deep"], fontWeight: 600 },
+        encoding: { text: { field: "text" } },
       });
-    }
+    });
   }
 
   if (options.thermalFloorDbcHz !== undefined && Number.isFinite(options.thermalFloorDbcHz)) {
@@ -236,6 +241,8 @@ export function buildCurveSpec(curve: Curve, options: CurveSpecOptions = {}): To
     layer: layers,
     resolve: { scale: { color: "shared", strokeDash: "shared", shape: "shared" } },
     config: {
+      // A true minus sign on every axis label, as in the tables (components/format-quantity).
+      locale: { number: { decimal: ".", thousands: "", grouping: [3], currency: ["", ""], minus: "\u2212" } },
       font: fonts.text,
       view: { stroke: c["rule-strong"], strokeWidth: 1 },
       axis: {

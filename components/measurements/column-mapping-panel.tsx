@@ -189,7 +189,7 @@ export function ColumnMappingPanel({ fileName, detail, conditions, onCancel, onS
                 Quantity
               </th>
               {detail.headers.map((h, i) => (
-                <td key={i} className="min-w-[11rem]">
+                <td key={i} className="min-w-[13rem]">
                   <label htmlFor={`${id}-t${i}`} className="sr-only">
                     Quantity in column {h}
                   </label>

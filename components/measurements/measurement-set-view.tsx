@@ -265,11 +265,19 @@ function labelOf(name: string): { label: string; description?: string } {
   return entry ? { label: entry.label, description: entry.description } : { label: name };
 }
 
+/** Two decimals, or three significant figures for a small value (an RMS phase error of 0.0042° is not "0°"). */
+function decimalsFor(value: number): number {
+  const magnitude = Math.abs(value);
+  if (magnitude === 0 || magnitude >= 1) return 2;
+  return Math.min(8, Math.ceil(-Math.log10(magnitude)) + 2);
+}
+
 function ParameterValue({ p }: { p: DerivedParameter }) {
   if (p.value === null) return <span className="text-ink-muted">not computed</span>;
-  if (p.unit === ":1") return <Quantity value={`${formatNumber(p.value, { maxDecimals: 2 })}:1`} />;
-  if (p.unit === "deg") return <Quantity value={`${formatNumber(p.value, { maxDecimals: 2 })}°`} />;
-  return <Quantity value={formatNumber(p.value, { maxDecimals: p.unit === "fs" ? 1 : 2, signed: p.unit === "dBm" })} unit={p.unit} />;
+  const text = formatNumber(p.value, { maxDecimals: decimalsFor(p.value), signed: p.unit === "dBm" });
+  if (p.unit === ":1") return <Quantity value={`${text}:1`} />;
+  if (p.unit === "deg") return <Quantity value={`${text}°`} />;
+  return <Quantity value={text} unit={p.unit} />;
 }
 
 /** Parameters that recur at every sweep step (conversion loss per drive step) fold away below the key figures. */

