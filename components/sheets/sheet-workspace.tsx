@@ -29,6 +29,12 @@ const tabs = [
 ] as const;
 type TabId = (typeof tabs)[number]["id"];
 
+// The site's own header and footer carry no print rule of their own; on this page the printout is the sheet.
+const printSheetOnly = `@media print {
+  body > header, body > footer, .skip-link { display: none !important; }
+  main#content { padding: 0 !important; max-width: none !important; }
+}`;
+
 /** The preview workspace of one draft sheet: issues, the figures and their data, web and PDF side by side, and the editors. */
 export function SheetWorkspace({ deviceId, canEdit, model, content, template, approvedSetCount, sheetView }: SheetWorkspaceProps) {
   const router = useRouter();
@@ -94,24 +100,28 @@ export function SheetWorkspace({ deviceId, canEdit, model, content, template, ap
   const { header, issues, statistics } = model;
   return (
     <div data-testid="sheet-workspace">
-      <PageHeader
-        runningHead={[header.organizationName, header.deviceClassLabel, header.revisionText === header.stateLabel ? header.revisionText : `${header.revisionText}, ${header.stateLabel.toLowerCase()}`].join(" · ")}
-        title={`${header.partNumber} — sheet draft`}
-        lead={
-          <>
-            {header.title}. Built just now from <span className="figure">{approvedSetCount}</span> approved measurement{" "}
-            {approvedSetCount === 1 ? "set" : "sets"}; nothing here is published until a revision is released.{" "}
-            <Link href={`/devices/${deviceId}`}>Device and measurement sets</Link>
-          </>
-        }
-        actions={
-          <Link href="/sheets" className="text-[0.9375rem]">
-            All sheets
-          </Link>
-        }
-      />
+      {/* Printing this page prints the web sheet alone, as the sheet's own print rules lay it out. */}
+      <style>{printSheetOnly}</style>
+      <div className="print:hidden">
+        <PageHeader
+          runningHead={[header.organizationName, header.deviceClassLabel, header.revisionText === header.stateLabel ? header.revisionText : `${header.revisionText}, ${header.stateLabel.toLowerCase()}`].join(" · ")}
+          title={`${header.partNumber} — sheet draft`}
+          lead={
+            <>
+              {header.title}. Built just now from <span className="figure">{approvedSetCount}</span> approved measurement{" "}
+              {approvedSetCount === 1 ? "set" : "sets"}; nothing here is published until a revision is released.{" "}
+              <Link href={`/devices/${deviceId}`}>Device and measurement sets</Link>
+            </>
+          }
+          actions={
+            <Link href="/sheets" className="text-[0.9375rem]">
+              All sheets
+            </Link>
+          }
+        />
+      </div>
 
-      <section aria-labelledby="issues-title" className="mb-8" data-testid="sheet-issues">
+      <section aria-labelledby="issues-title" className="mb-8 print:hidden" data-testid="sheet-issues">
         <h2 id="issues-title" className="running-head mb-2 text-ink">
           Before review · <span className="figure">{issues.length}</span> {issues.length === 1 ? "open issue" : "open issues"}
           {statistics.flaggedGroupCount > 0 ? (
@@ -136,7 +146,7 @@ export function SheetWorkspace({ deviceId, canEdit, model, content, template, ap
       </section>
 
       {visibleTabs.length > 1 ? (
-        <div className="mb-6 flex flex-wrap items-end justify-between gap-3 border-b border-rule">
+        <div className="mb-6 flex flex-wrap items-end justify-between gap-3 border-b border-rule print:hidden">
           <div role="tablist" aria-label="Sheet workspace" className="flex gap-1">
             {visibleTabs.map((t) => (
               <button
@@ -168,27 +178,28 @@ export function SheetWorkspace({ deviceId, canEdit, model, content, template, ap
         role={visibleTabs.length > 1 ? "tabpanel" : undefined}
         aria-labelledby={visibleTabs.length > 1 ? "sheet-tab-preview" : undefined}
         hidden={tab !== "preview"}
+        className="print:!block"
       >
-        <section aria-labelledby="spec-data-title" className="mb-10">
+        <section aria-labelledby="spec-data-title" className="mb-10 print:hidden">
           <h2 id="spec-data-title" className="mb-3 text-xl font-semibold">
             Specifications and the data behind them
           </h2>
           <SpecDataTable model={model} openGroupId={openGroupId} onOpen={openGroup} />
         </section>
 
-        <section aria-label="Web sheet and PDF, side by side" className="relative left-1/2 w-screen max-w-[120rem] -translate-x-1/2 px-4 sm:px-8">
-          <div className="grid gap-8 xl:grid-cols-2">
+        <section aria-label="Web sheet and PDF, side by side" className="relative left-1/2 w-screen max-w-[120rem] -translate-x-1/2 px-4 sm:px-8 print:static print:w-auto print:max-w-none print:translate-x-0 print:px-0">
+          <div className="grid gap-8 xl:grid-cols-2 print:block">
             <div className="min-w-0">
-              <p className="running-head mb-2">Web sheet · draft</p>
+              <p className="running-head mb-2 print:hidden">Web sheet · draft</p>
               <div
-                className="border border-rule bg-paper-bright [&_section[aria-labelledby=sheet-specifications]_tbody_tr]:cursor-pointer"
+                className="border border-rule bg-paper-bright print:border-0 print:bg-transparent [&_section[aria-labelledby=sheet-specifications]_tbody_tr]:cursor-pointer"
                 onClick={onSheetClick}
                 data-testid="web-sheet"
               >
                 {sheetView}
               </div>
             </div>
-            <div className="min-w-0 xl:sticky xl:top-4 xl:h-[calc(100dvh-2rem)]">
+            <div className="min-w-0 xl:sticky xl:top-4 xl:h-[calc(100dvh-2rem)] print:hidden">
               <PdfPreview deviceId={deviceId} version={pdfVersion} partNumber={header.partNumber} />
             </div>
           </div>
@@ -197,10 +208,10 @@ export function SheetWorkspace({ deviceId, canEdit, model, content, template, ap
 
       {canEdit ? (
         <>
-          <div id="sheet-panel-limits" role="tabpanel" aria-labelledby="sheet-tab-limits" hidden={tab !== "limits"}>
+          <div id="sheet-panel-limits" role="tabpanel" aria-labelledby="sheet-tab-limits" hidden={tab !== "limits"} className="print:hidden">
             <SpecLimitsEditor deviceId={deviceId} model={model} limits={content.limits} onSaved={refreshPreview} />
           </div>
-          <div id="sheet-panel-prose" role="tabpanel" aria-labelledby="sheet-tab-prose" hidden={tab !== "prose"}>
+          <div id="sheet-panel-prose" role="tabpanel" aria-labelledby="sheet-tab-prose" hidden={tab !== "prose"} className="print:hidden">
             <ProseEditor deviceId={deviceId} model={model} content={content} template={template} onSaved={refreshPreview} />
           </div>
         </>
