@@ -46,6 +46,11 @@ step "type check" node node_modules/typescript/bin/tsc --noEmit
 step "unit tests" node node_modules/vitest/vitest.mjs run --project unit \
   --reporter=default --reporter=json --outputFile.json="$RESULTS/unit.json"
 
+# A server left on the test port would answer instead of the one built here: refuse, do not test it.
+if curl -fsS -o /dev/null "$OCTAVO_TEST_URL/api/auth/csrf" 2>/dev/null; then
+  die "something already answers on port $PORT; stop it (or set TEST_PORT) so the tests reach this build"
+fi
+
 log "── build"
 if node node_modules/next/dist/bin/next build >"$OCTAVO_DATA_DIR/logs/next-build-test.log" 2>&1; then
   node node_modules/next/dist/bin/next start -p "$PORT" >"$OCTAVO_DATA_DIR/logs/next-test-server.log" 2>&1 &
