@@ -73,9 +73,12 @@ test("engineer: the sheet list, the preview with its banner and spec table, and 
 
   const value = specTable.getByTestId("spec-value").first();
   const groupId = await value.locator("xpath=ancestor::tr[1]").getAttribute("data-group-id");
-  await value.click();
   const panel = page.getByRole("dialog", { name: /./ });
-  await expect(panel).toBeVisible();
+  // A click that lands before hydration does nothing: try again until the panel opens.
+  await expect(async () => {
+    await value.click();
+    await expect(panel).toBeVisible({ timeout: 2_000 });
+  }).toPass();
 
   const model = (await (await page.request.get(`/api/devices/${id}/sheet`)).json()) as { sheet: { statistics: { groups: GroupJson[] } } };
   const group = model.sheet.statistics.groups.find((g) => g.groupId === groupId)!;
