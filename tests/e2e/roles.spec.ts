@@ -47,7 +47,7 @@ test.describe("each role sees its own workspace", () => {
   test("reviewer: devices, review queue and catalog; reads sheet drafts; no people admin", async ({ page }) => {
     await signInAs(page, "reviewer");
     await page.goto("/review");
-    await expect(mainNavigationLinks(page)).toHaveText(["Devices", "Review queue", "Catalog"]);
+    await expect(mainNavigationLinks(page)).toHaveText(["Devices", "Sheets", "Review queue", "Catalog"]);
     await expect(page.getByTestId("session-role")).toHaveText("Reviewer");
     await expect(page.getByRole("heading", { level: 1 })).toHaveText("Review queue");
     // Pending measurement sets, or a plain statement that none is waiting; sheet reviews are announced as not built yet.

@@ -41,12 +41,13 @@ export function isRole(value: unknown): value is Role {
   return typeof value === "string" && (roles as readonly string[]).includes(value);
 }
 
-export type NavItem = { href: string; label: string; permission: Permission | null };
+/** A link shows when the role holds one of its permissions (null: always). */
+export type NavItem = { href: string; label: string; permission: Permission | readonly Permission[] | null };
 
 /** Workspace navigation, in order; an item shows when the role holds its permission. */
 export const workspaceNav: readonly NavItem[] = [
   { href: "/devices", label: "Devices", permission: "device:read" },
-  { href: "/sheets", label: "Sheets", permission: "sheet:write" },
+  { href: "/sheets", label: "Sheets", permission: ["sheet:write", "sheet:review"] },
   { href: "/review", label: "Review queue", permission: "sheet:review" },
   { href: "/admin/users", label: "People", permission: "user:manage" },
   { href: "/admin/instruments", label: "Instruments", permission: "instrument:manage" },
@@ -57,5 +58,9 @@ export const workspaceNav: readonly NavItem[] = [
 
 export function navigationFor(role: Role | null): NavItem[] {
   if (!role) return [{ href: "/catalog", label: "Catalog", permission: null }];
-  return workspaceNav.filter((item) => item.permission === null || can(role, item.permission));
+  return workspaceNav.filter((item) => {
+    if (item.permission === null) return true;
+    const needed: readonly Permission[] = typeof item.permission === "string" ? [item.permission] : item.permission;
+    return needed.some((p) => can(role, p));
+  });
 }
