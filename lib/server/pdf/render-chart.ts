@@ -1,4 +1,5 @@
 import "server-only";
+import { createHash } from "node:crypto";
 import { Resvg } from "@resvg/resvg-js";
 import * as vega from "vega";
 import { compile, type TopLevelSpec } from "vega-lite";
@@ -42,8 +43,25 @@ export async function renderSheetChartSvgs(model: SheetModel): Promise<Record<st
   return Object.fromEntries(entries);
 }
 
+// Rasterising is a third of a PDF's time and a spec's picture never changes, so previews that
+// re-render the same sheet reuse it: a small content-addressed cache, oldest entry out first.
+const pngCache = new Map<string, Promise<Buffer>>();
+const PNG_CACHE_ENTRIES = 64;
+
+function cachedChartPng(vegaLite: Record<string, unknown>): Promise<Buffer> {
+  const key = createHash("sha256").update(JSON.stringify(vegaLite)).digest("hex");
+  let png = pngCache.get(key);
+  if (!png) {
+    png = renderChartPng(vegaLite);
+    png.catch(() => pngCache.delete(key));
+    pngCache.set(key, png);
+    if (pngCache.size > PNG_CACHE_ENTRIES) pngCache.delete(pngCache.keys().next().value!);
+  }
+  return png;
+}
+
 /** Every chart of a sheet as PNG, keyed by chart id, for the PDF. */
 export async function renderSheetChartPngs(model: SheetModel): Promise<Record<string, Buffer>> {
-  const entries = await Promise.all(model.charts.map(async (chart) => [chart.id, await renderChartPng(chart.vegaLite)] as const));
+  const entries = await Promise.all(model.charts.map(async (chart) => [chart.id, await cachedChartPng(chart.vegaLite)] as const));
   return Object.fromEntries(entries);
 }
