@@ -6,6 +6,7 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { MeasurementSetsTable } from "@/components/measurements/measurement-sets-table";
 import { UploadPanel } from "@/components/measurements/upload-panel";
+import { DeviceForm } from "./device-form";
 import { DeviceKeyConditions } from "./device-key-conditions";
 
 type DeviceViewProps = {
@@ -14,9 +15,11 @@ type DeviceViewProps = {
   sets: MeasurementSetSummary[];
   /** Present when the viewer may upload. */
   upload: { instruments: InstrumentSummary[] } | null;
+  /** The viewer may change the device's number, class, title and key conditions. */
+  canEdit: boolean;
 };
 
-export function DeviceView({ device, organizationName, sets, upload }: DeviceViewProps) {
+export function DeviceView({ device, organizationName, sets, upload, canEdit }: DeviceViewProps) {
   const supersedable = sets
     .filter((s) => !s.supersededById)
     .map((s) => ({ id: s.id, kind: s.kind, fileName: s.fileName, serial: s.conditions.serial }));
@@ -29,6 +32,14 @@ export function DeviceView({ device, organizationName, sets, upload }: DeviceVie
       <div className="-mt-4 mb-10 space-y-4">
         <DeviceKeyConditions device={device} />
         {device.description ? <p className="max-w-prose text-[0.9375rem] text-ink-muted">{device.description}</p> : null}
+        {canEdit ? (
+          <details className="max-w-3xl border-t border-rule pt-3" data-testid="edit-device">
+            <summary className="cursor-pointer text-[0.9375rem] font-semibold">Edit device</summary>
+            <div className="pt-4">
+              <DeviceForm device={device} />
+            </div>
+          </details>
+        ) : null}
       </div>
 
       <section aria-labelledby="sets-title" className="mb-12">

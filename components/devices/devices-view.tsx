@@ -8,7 +8,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { Quantity } from "@/components/ui/quantity";
 import { deviceClassLabels } from "./device-class-label";
 import { applyDeviceListQuery, deviceListHref, type DeviceListQuery, type DeviceSortKey } from "./device-list-query";
-import { NewDeviceForm } from "./new-device-form";
+import { DeviceForm } from "./device-form";
 
 function Range({ range }: { range?: { min: number; max: number } }) {
   if (!range) return <span className="text-ink-muted">—</span>;
@@ -140,7 +140,7 @@ export function DevicesView({ devices, organizationName, query, canCreate }: Dev
           <p className="mb-6 text-ink-muted">
             Register a part by its number; measurement sets are uploaded on its page. Frequencies are entered with their unit and stored in hertz.
           </p>
-          <NewDeviceForm />
+          <DeviceForm />
         </section>
       ) : null}
     </>

@@ -243,7 +243,7 @@ test("the device list searches, sorts and pages from the query string", async ({
   await expect(page.getByTestId("devices-no-match")).toBeVisible();
 });
 
-test("an engineer creates a device with frequencies entered in MHz and GHz", async ({ page }) => {
+test("an engineer creates a device with frequencies entered in MHz and GHz, then edits it", async ({ page }) => {
   await signInAs(page, "engineer");
   await page.goto("/devices");
   const form = page.getByTestId("new-device-form");
@@ -262,4 +262,15 @@ test("an engineer creates a device with frequencies entered in MHz and GHz", asy
   await expect(conditions).toContainText("1–3\u00a0GHz");
   await expect(conditions).toContainText("2–6\u00a0GHz");
   await expect(conditions).toContainText("+15\u00a0dBm");
+
+  // The same form edits the device: values come back in their units, changes show at once.
+  await page.getByTestId("edit-device").getByText("Edit device").click();
+  const edit = page.getByTestId("edit-device-form");
+  await expect(edit.getByLabel("Input frequency range, from")).toHaveValue("1");
+  await expect(edit.getByLabel("Input frequency range, unit")).toHaveValue("GHz");
+  await edit.getByLabel("Title").fill("Doubler, 2–6 GHz output, revised");
+  await edit.getByLabel("Drive level").fill("17");
+  await edit.getByRole("button", { name: "Save device" }).click();
+  await expect(page.getByTestId("device-key-conditions")).toContainText("+17\u00a0dBm", { timeout: 15_000 });
+  await expect(page.getByText("Doubler, 2–6 GHz output, revised").first()).toBeVisible();
 });

@@ -250,3 +250,18 @@ describe("column mapping for foreign CSV files", () => {
     expect(((await r.json()) as { error: { message: string } }).error.message).toMatch(/Fundamental output per tone/);
   });
 });
+
+describe("editing a device", () => {
+  it("lets an engineer of the organization edit it, refuses reviewers and other organizations, and audits the change", async () => {
+    const device = await makeDevice(org.organization.id);
+    const body = { partNumber: device.partNumber, deviceClass: "frequency-multiplier", title: "Edited doubler", description: "", keyConditions: { driveLevelDbm: 13, multiplicationFactor: 2 } };
+    expect((await as.reviewer.request(`/api/devices/${device.id}`, { method: "PATCH", json: body })).status).toBe(403);
+    expect((await as.otherEngineer.request(`/api/devices/${device.id}`, { method: "PATCH", json: body })).status).toBe(404);
+    const r = await as.engineer.request(`/api/devices/${device.id}`, { method: "PATCH", json: body });
+    expect(r.status).toBe(200);
+    expect(((await r.json()) as { device: { title: string; keyConditions: { driveLevelDbm: number } } }).device).toMatchObject({ title: "Edited doubler", keyConditions: { driveLevelDbm: 13 } });
+    const { AuditEvent } = await import("@/models");
+    const event = await AuditEvent.findOne({ where: { action: "device.update", subjectId: String(device.id) } });
+    expect((event!.before as { title: string }).title).toBe("Factory doubler");
+  });
+});

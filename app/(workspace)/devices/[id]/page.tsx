@@ -27,7 +27,15 @@ export default async function DevicePage({ params }: Props) {
       listDeviceMeasurementSets({ organizationId, deviceId }),
       canUpload ? listInstruments(organizationId) : Promise.resolve([]),
     ]);
-    return <DeviceView device={device} organizationName={access.user.organizationName} sets={sets} upload={canUpload ? { instruments } : null} />;
+    return (
+      <DeviceView
+        device={device}
+        organizationName={access.user.organizationName}
+        sets={sets}
+        upload={canUpload ? { instruments } : null}
+        canEdit={can(access.user.role, "device:write")}
+      />
+    );
   } catch (error) {
     if (isAppError(error) && error.code === "not-found") notFound();
     throw error;

@@ -3,6 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { deviceBodySchema } from "@/lib/schemas/measurements";
+import type { DeviceSummary } from "@/lib/server/devices/device-summary";
 import { ApiError, messageOf, requestJson } from "@/components/api-client";
 import { fieldErrorsOfApi } from "@/components/auth/zod-errors";
 import { buttonClass } from "@/components/ui/button";
@@ -16,6 +17,15 @@ type DeviceClass = keyof typeof deviceClassLabels;
 
 const emptyRange: FrequencyRangeValue = { min: "", max: "", unit: "GHz" };
 
+/** A stored range (Hz) shown in the largest unit that keeps the lower end at 1 or more. */
+function rangeValue(range: { min: number; max: number } | undefined): FrequencyRangeValue {
+  if (!range) return emptyRange;
+  const unit = range.min >= 1e9 ? "GHz" : range.min >= 1e6 ? "MHz" : range.min >= 1e3 ? "kHz" : "Hz";
+  const scale = { GHz: 1e9, MHz: 1e6, kHz: 1e3, Hz: 1 }[unit];
+  const text = (hz: number) => String(Number((hz / scale).toPrecision(12)));
+  return { min: text(range.min), max: text(range.max), unit };
+}
+
 /** Reads a range field: both ends or neither; in Hz; an error in words otherwise. */
 function readRange(value: FrequencyRangeValue, what: string): { range?: { min: number; max: number }; error?: string } {
   const min = toHz(value.min, value.unit);
@@ -28,16 +38,18 @@ function readRange(value: FrequencyRangeValue, what: string): { range?: { min: n
   return { range: { min, max } };
 }
 
-export function NewDeviceForm() {
+/** Creates a device, or edits `device` when given (same fields, same checks, PATCH instead of POST). */
+export function DeviceForm({ device }: { device?: DeviceSummary }) {
   const router = useRouter();
-  const [partNumber, setPartNumber] = useState("");
-  const [deviceClass, setDeviceClass] = useState<DeviceClass>("frequency-multiplier");
-  const [title, setTitle] = useState("");
-  const [description, setDescription] = useState("");
-  const [input, setInput] = useState<FrequencyRangeValue>(emptyRange);
-  const [output, setOutput] = useState<FrequencyRangeValue>(emptyRange);
-  const [drive, setDrive] = useState("");
-  const [factor, setFactor] = useState("2");
+  const editing = Boolean(device);
+  const [partNumber, setPartNumber] = useState(device?.partNumber ?? "");
+  const [deviceClass, setDeviceClass] = useState<DeviceClass>(device?.deviceClass ?? "frequency-multiplier");
+  const [title, setTitle] = useState(device?.title ?? "");
+  const [description, setDescription] = useState(device?.description ?? "");
+  const [input, setInput] = useState<FrequencyRangeValue>(rangeValue(device?.keyConditions.inputFrequencyHz));
+  const [output, setOutput] = useState<FrequencyRangeValue>(rangeValue(device?.keyConditions.outputFrequencyHz));
+  const [drive, setDrive] = useState(device?.keyConditions.driveLevelDbm !== undefined ? String(device.keyConditions.driveLevelDbm) : "");
+  const [factor, setFactor] = useState(String(device?.keyConditions.multiplicationFactor ?? 2));
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [result, setResult] = useState<string | null>(null);
   const [pending, setPending] = useState(false);
@@ -75,9 +87,17 @@ export function NewDeviceForm() {
     if (!parsed.success || Object.keys(found).length > 0) return;
     setPending(true);
     try {
-      const body = await requestJson<{ device: { id: number; partNumber: string } }>("/api/devices", { method: "POST", body: parsed.data });
+      const body = await requestJson<{ device: { id: number; partNumber: string } }>(editing ? `/api/devices/${device!.id}` : "/api/devices", {
+        method: editing ? "PATCH" : "POST",
+        body: parsed.data,
+      });
       setResult(null);
-      router.push(`/devices/${body.device.id}`);
+      if (editing) {
+        setPending(false);
+        router.refresh();
+      } else {
+        router.push(`/devices/${body.device.id}`);
+      }
     } catch (error) {
       if (error instanceof ApiError) setErrors(fieldErrorsOfApi(error));
       setResult(messageOf(error));
@@ -86,7 +106,7 @@ export function NewDeviceForm() {
   }
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-5" data-testid="new-device-form">
+    <form onSubmit={submit} noValidate className="space-y-5" data-testid={editing ? "edit-device-form" : "new-device-form"}>
       <div className="grid gap-5 sm:grid-cols-2">
         <Field label="Part number" name="partNumber" value={partNumber} onChange={setPartNumber} error={errors.partNumber} hint="Letters, digits and . _ - /" required />
         <div className="space-y-1.5">
@@ -161,7 +181,7 @@ export function NewDeviceForm() {
         {result ? <Notice tone="error">{result}</Notice> : null}
       </div>
       <button type="submit" disabled={pending} className={buttonClass.primary}>
-        {pending ? "Creating…" : "Create device"}
+        {editing ? (pending ? "Saving…" : "Save device") : pending ? "Creating…" : "Create device"}
       </button>
     </form>
   );
