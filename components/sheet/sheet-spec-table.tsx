@@ -1,6 +1,32 @@
 import { SheetHeading } from "./sheet-heading";
 import type { SheetModel } from "@/lib/sheet/types";
 
+/** The column heads every specifications table starts with: the web sheet's and the workspace's clickable one. */
+export function SpecHeadCells({ columns }: { columns: SheetModel["specifications"]["conditionColumns"] }) {
+  return (
+    <>
+      <th scope="col">Parameter</th>
+      <th scope="col">Symbol</th>
+      {columns.map((column) => (
+        <th key={column.id} scope="col">
+          <ConditionLabel label={column.label} />
+        </th>
+      ))}
+      <th scope="col" className="num">
+        Min
+      </th>
+      <th scope="col" className="num">
+        Typ
+      </th>
+      <th scope="col" className="num">
+        Max
+      </th>
+      <th scope="col">Unit</th>
+      <th scope="col">Basis</th>
+    </>
+  );
+}
+
 /** "T_A" → T<sub>A</sub>: the templates' notation for a subscript. */
 export function ConditionLabel({ label }: { label: string }) {
   const [main, sub] = label.split("_");
@@ -24,24 +50,7 @@ export function SheetSpecTable({ model }: { model: SheetModel }) {
         <table className="sheet-table">
           <thead>
             <tr>
-              <th scope="col">Parameter</th>
-              <th scope="col">Symbol</th>
-              {specifications.conditionColumns.map((column) => (
-                <th key={column.id} scope="col">
-                  <ConditionLabel label={column.label} />
-                </th>
-              ))}
-              <th scope="col" className="num">
-                Min
-              </th>
-              <th scope="col" className="num">
-                Typ
-              </th>
-              <th scope="col" className="num">
-                Max
-              </th>
-              <th scope="col">Unit</th>
-              <th scope="col">Basis</th>
+              <SpecHeadCells columns={specifications.conditionColumns} />
             </tr>
           </thead>
           <tbody>

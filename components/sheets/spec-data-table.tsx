@@ -1,7 +1,7 @@
 "use client";
 
 import type { StatisticsGroup } from "@/lib/sheet/types";
-import { ConditionLabel } from "@/components/sheet/sheet-spec-table";
+import { SpecHeadCells } from "@/components/sheet/sheet-spec-table";
 import type { WorkspaceModel } from "./workspace-types";
 
 type SpecDataTableProps = {
@@ -33,24 +33,7 @@ export function SpecDataTable({ model, openGroupId, onOpen }: SpecDataTableProps
         </caption>
         <thead>
           <tr>
-            <th scope="col">Parameter</th>
-            <th scope="col">Symbol</th>
-            {specifications.conditionColumns.map((column) => (
-              <th key={column.id} scope="col">
-                <ConditionLabel label={column.label} />
-              </th>
-            ))}
-            <th scope="col" className="num">
-              Min
-            </th>
-            <th scope="col" className="num">
-              Typ
-            </th>
-            <th scope="col" className="num">
-              Max
-            </th>
-            <th scope="col">Unit</th>
-            <th scope="col">Basis</th>
+            <SpecHeadCells columns={specifications.conditionColumns} />
             <th scope="col" className="num">
               n
             </th>
