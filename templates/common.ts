@@ -1,4 +1,4 @@
-import type { AbsoluteMaximumRatingTemplate, ConditionColumn, ProseTemplate } from "./types";
+import type { AbsoluteMaximumRatingTemplate, ConditionColumn, LimitBasis, ProseTemplate, SpecRowTemplate } from "./types";
 
 /** The cautions every class carries (DESIGN.md "Safety"); a class adds its own RF-power wording. */
 export function composeCautions(maximumInputPowerCaution: string): string[] {
@@ -19,6 +19,36 @@ export const temperatureColumn: ConditionColumn = {
   label: "T_A",
   sources: [{ key: "temperatureC", format: "temperature-c" }],
 };
+
+/** Condition keys of a figure taken over a whole band (lib/analysis "worst" and min/typ/max figures). */
+export const bandKeys = ["startHz", "stopHz"];
+
+export const bandColumn: ConditionColumn = {
+  id: "band",
+  label: "Band",
+  sources: [{ key: "startHz", stopKey: "stopHz", format: "frequency-range" }],
+};
+
+export const portColumn: ConditionColumn = {
+  id: "port",
+  label: "Port",
+  sources: [{ key: "port", format: "port" }],
+};
+
+/** The highest VSWR over the band, one line per port: every class measured with a network analyzer. */
+export function worstVswrRow(defaultBasis: LimitBasis): SpecRowTemplate {
+  return {
+    id: "vswr",
+    parameter: "vswr",
+    label: "VSWR, highest in band",
+    symbol: "VSWR",
+    unit: ":1",
+    decimals: 2,
+    match: { statistic: "worst" },
+    groupBy: ["port", ...bandKeys, "temperatureC"],
+    defaultBasis,
+  };
+}
 
 export const esdRating: AbsoluteMaximumRatingTemplate = {
   label: "ESD sensitivity, human-body model (ANSI/ESDA/JEDEC JS-001)",

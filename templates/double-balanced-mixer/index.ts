@@ -1,7 +1,16 @@
-import { composeCautions, composeProse, defaultHandlingProse, esdRating, temperatureColumn, temperatureRatings } from "../common";
+import {
+  bandKeys,
+  composeCautions,
+  composeProse,
+  defaultHandlingProse,
+  esdRating,
+  portColumn,
+  temperatureColumn,
+  temperatureRatings,
+  worstVswrRow,
+} from "../common";
 import type { SheetTemplate, SpecRowTemplate } from "../types";
 
-const bandKeys = ["startHz", "stopHz"];
 
 function isolationRow(path: "LO-RF" | "LO-IF" | "RF-IF", basis: SpecRowTemplate["defaultBasis"]): SpecRowTemplate {
   return {
@@ -34,11 +43,7 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
         label: "LO drive",
         sources: [{ key: "loPowerDbm", format: "power-dbm" }],
       },
-      {
-        id: "port",
-        label: "Port",
-        sources: [{ key: "port", format: "port" }],
-      },
+      portColumn,
       temperatureColumn,
     ],
     rows: [
@@ -89,17 +94,7 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
         groupBy: ["loPowerDbm", "temperatureC"],
         defaultBasis: "characterization",
       },
-      {
-        id: "vswr",
-        parameter: "vswr",
-        label: "VSWR, highest in band",
-        symbol: "VSWR",
-        unit: ":1",
-        decimals: 2,
-        match: { statistic: "worst" },
-        groupBy: ["port", ...bandKeys, "temperatureC"],
-        defaultBasis: "design",
-      },
+      worstVswrRow("design"),
     ],
     notes: [
       "Conversion loss is P_RF − P_IF (positive for a lossy mixer). Intercepts are per tone, from slope-1 and slope-3 fits over the small-signal points.",

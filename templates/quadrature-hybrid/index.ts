@@ -1,7 +1,17 @@
-import { composeCautions, composeProse, defaultHandlingProse, esdRating, temperatureColumn, temperatureRatings } from "../common";
+import {
+  bandColumn,
+  bandKeys,
+  composeCautions,
+  composeProse,
+  defaultHandlingProse,
+  esdRating,
+  portColumn,
+  temperatureColumn,
+  temperatureRatings,
+  worstVswrRow,
+} from "../common";
 import type { SheetTemplate, SpecRowTemplate } from "../types";
 
-const bandKeys = ["startHz", "stopHz"];
 
 function bandRow(row: Omit<SpecRowTemplate, "groupBy">): SpecRowTemplate {
   return { ...row, match: { statistic: "worst", ...row.match }, groupBy: [...bandKeys, "temperatureC"] };
@@ -14,16 +24,8 @@ export const quadratureHybridTemplate: SheetTemplate = {
   measurementKinds: ["touchstone"],
   specifications: {
     conditionColumns: [
-      {
-        id: "band",
-        label: "Band",
-        sources: [{ key: "startHz", stopKey: "stopHz", format: "frequency-range" }],
-      },
-      {
-        id: "port",
-        label: "Port",
-        sources: [{ key: "port", format: "port" }],
-      },
+      bandColumn,
+      portColumn,
       temperatureColumn,
     ],
     rows: [
@@ -75,17 +77,7 @@ export const quadratureHybridTemplate: SheetTemplate = {
         match: { path: "S41" },
         defaultBasis: "characterization",
       }),
-      {
-        id: "vswr",
-        parameter: "vswr",
-        label: "VSWR, highest in band",
-        symbol: "VSWR",
-        unit: ":1",
-        decimals: 2,
-        match: { statistic: "worst" },
-        groupBy: ["port", ...bandKeys, "temperatureC"],
-        defaultBasis: "characterization",
-      },
+      worstVswrRow("characterization"),
     ],
     notes: [
       "Insertion loss includes the ideal 3.01 dB split. Balance figures are the largest deviation over the band, sign kept.",
