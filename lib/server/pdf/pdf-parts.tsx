@@ -81,6 +81,13 @@ export function PdfTable({ columns, rows }: { columns: Column[]; rows: Cell[][] 
         <View key={r} style={r === 0 ? styles.firstRow : styles.row} wrap={false}>
           {cells.map((cell, i) => {
             const column = columns[i];
+            if (!Array.isArray(cell)) {
+              return (
+                <Text key={i} style={[styles.cell, column.mono ? styles.mono : {}, { width: column.width, textAlign: column.align ?? "left" }]}>
+                  {cell}
+                </Text>
+              );
+            }
             return (
               <View key={i} style={{ width: column.width }}>
                 {(Array.isArray(cell) ? cell : [cell]).map((line, j) => (

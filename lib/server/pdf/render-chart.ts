@@ -1,6 +1,7 @@
 import "server-only";
 import { createHash } from "node:crypto";
 import { Resvg } from "@resvg/resvg-js";
+import sharp from "sharp";
 import * as vega from "vega";
 import { compile, type TopLevelSpec } from "vega-lite";
 import type { SheetModel } from "../../sheet/types";
@@ -23,6 +24,11 @@ export async function renderChartSvg(vegaLite: Record<string, unknown>): Promise
 /**
  * SVG → PNG with resvg, given the sheet's own TTFs and no system fonts: resvg
  * draws no text at all for a family it cannot find (TOOLCHAIN.md).
+ *
+ * The PDF gets an opaque, palette PNG: pdfkit copies such a PNG's compressed data into the
+ * PDF as it is, while one with an alpha channel is decoded, split and compressed again on
+ * every render (that was a fifth of a warm PDF). A chart's few inks and their anti-aliasing
+ * fit 256 colours without visible loss at the 3× scale used here.
  */
 export async function renderChartPng(vegaLite: Record<string, unknown>, options: { scale?: number } = {}): Promise<Buffer> {
   const svg = await renderChartSvg(vegaLite);
@@ -34,7 +40,8 @@ export async function renderChartPng(vegaLite: Record<string, unknown>, options:
     },
     fitTo: { mode: "zoom", value: options.scale ?? 3 },
   });
-  return resvg.render().asPng();
+  const rgba = resvg.render().asPng();
+  return sharp(rgba).flatten({ background: "#ffffff" }).png({ palette: true, colours: 256, dither: 0, compressionLevel: 9 }).toBuffer();
 }
 
 /** Every chart of a sheet as SVG markup, keyed by chart id, for the web view. */

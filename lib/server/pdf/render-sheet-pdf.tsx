@@ -1,5 +1,6 @@
 import "server-only";
 import { Document, Font, Image, Page, renderToBuffer, Text, View } from "@react-pdf/renderer";
+import type { ReactNode } from "react";
 import type { SheetModel, StatisticsGroup } from "../../sheet/types";
 import { fontFiles, MONO_FAMILY, SANS_FAMILY } from "./fonts";
 import { type Cell, colors, type Column, PdfProse, PdfTable, SectionHeading, styles } from "./pdf-parts";
@@ -38,6 +39,35 @@ export async function renderSheetPdf(model: SheetModel): Promise<Buffer> {
 }
 
 const PAGE_MARGIN = 42;
+
+/**
+ * One A4 page sequence with the running head and foot and, until release, the diagonal mark.
+ * The sheet is several sequences (front matter, charts, traceability, annex), each starting a
+ * new page: react-pdf lays out what is left of a sequence again at every page break, so one
+ * long sequence cost about twice the time of these shorter ones. "Page x of y" counts across all.
+ */
+function SheetPage({ model, children }: { model: SheetModel; children: ReactNode }) {
+  return (
+    <Page
+      size="A4"
+      style={{
+        fontFamily: SANS_FAMILY,
+        fontSize: 8.8,
+        lineHeight: 1.35,
+        color: colors.ink,
+        paddingTop: 56,
+        paddingBottom: 50,
+        paddingHorizontal: PAGE_MARGIN,
+        backgroundColor: "#FFFFFF",
+      }}
+    >
+      {model.header.banner ? <Watermark text={model.header.banner} /> : null}
+      <RunningHead model={model} />
+      <RunningFoot model={model} />
+      {children}
+    </Page>
+  );
+}
 const A4_HEIGHT_PT = 841.89;
 
 function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<string, Buffer> }) {
@@ -55,23 +85,7 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
       producer="Octavo"
       language="en"
     >
-      <Page
-        size="A4"
-        style={{
-          fontFamily: SANS_FAMILY,
-          fontSize: 8.8,
-          lineHeight: 1.35,
-          color: colors.ink,
-          paddingTop: 56,
-          paddingBottom: 50,
-          paddingHorizontal: PAGE_MARGIN,
-          backgroundColor: "#FFFFFF",
-        }}
-      >
-        {header.banner ? <Watermark text={header.banner} /> : null}
-        <RunningHead model={model} />
-        <RunningFoot model={model} />
-
+      <SheetPage model={model}>
         <TitleBlock model={model} />
 
         <View style={{ flexDirection: "row", marginTop: 10 }}>
@@ -88,30 +102,34 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
         <SpecificationsTable model={model} />
         <AbsoluteMaximumRatings model={model} />
         <Cautions model={model} />
+      </SheetPage>
 
-        {model.charts.length > 0 ? (
-          <View break>
-            <SectionHeading>Typical performance</SectionHeading>
-            {model.charts.map((chart, i) => (
-              <View key={chart.id} wrap={false} style={{ marginBottom: 10 }}>
-                <Text style={{ fontWeight: 600, marginBottom: 2 }}>
-                  Figure {i + 1}. {chart.title}
-                </Text>
-                {charts[chart.id] ? <Image src={{ data: charts[chart.id], format: "png" }} style={{ width: 400, alignSelf: "flex-start" }} /> : null}
-                <Text style={styles.small}>{chart.caption}</Text>
-              </View>
-            ))}
-          </View>
-        ) : null}
+      {model.charts.length > 0 ? (
+        <SheetPage model={model}>
+          <SectionHeading>Typical performance</SectionHeading>
+          {model.charts.map((chart, i) => (
+            <View key={chart.id} wrap={false} style={{ marginBottom: 10 }}>
+              <Text style={{ fontWeight: 600, marginBottom: 2 }}>
+                Figure {i + 1}. {chart.title}
+              </Text>
+              {charts[chart.id] ? <Image src={{ data: charts[chart.id], format: "png" }} style={{ width: 400, alignSelf: "flex-start" }} /> : null}
+              <Text style={styles.small}>{chart.caption}</Text>
+            </View>
+          ))}
+        </SheetPage>
+      ) : null}
 
+      <SheetPage model={model}>
         {laterProse.map((section) => (
           <View key={section.id}>
             <SectionHeading>{section.title}</SectionHeading>
             <PdfProse blocks={section.blocks} />
           </View>
         ))}
-
         <Traceability model={model} />
+      </SheetPage>
+
+      <SheetPage model={model}>
         <StatisticsAnnex model={model} />
         <RevisionHistory model={model} />
         {!header.released && model.issues.length > 0 ? (
@@ -124,7 +142,7 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
             ))}
           </View>
         ) : null}
-      </Page>
+      </SheetPage>
     </Document>
   );
 }
@@ -335,7 +353,7 @@ function Cautions({ model }: { model: SheetModel }) {
 function Traceability({ model }: { model: SheetModel }) {
   const { traceability } = model;
   return (
-    <View break>
+    <View>
       <SectionHeading>Measurement traceability</SectionHeading>
       {traceability.statements.map((statement, i) => (
         <Text key={i} style={styles.paragraph}>
@@ -427,7 +445,7 @@ function StatisticsAnnex({ model }: { model: SheetModel }) {
     g.supported ? "" : <Text style={{ color: colors.signal, fontWeight: 700 }}>!</Text>,
   ]);
   return (
-    <View break>
+    <View>
       <SectionHeading>Statistics annex</SectionHeading>
       <Text style={styles.paragraph}>{statistics.method}</Text>
       <PdfTable columns={columns} rows={rows} />

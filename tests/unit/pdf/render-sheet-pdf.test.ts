@@ -41,6 +41,16 @@ describe("renderSheetPdf", () => {
     expect(pageCount(draft, "draft")).toBeGreaterThanOrEqual(2);
   });
 
+  it("numbers every page k of the real page count, across its page sequences", () => {
+    const pages = pageCount(draft, "draft");
+    // pdftotext separates pages with a form feed.
+    const texts = poppler("pdftotext", draft, "draft").split("\f").slice(0, pages);
+    texts.forEach((text, k) => {
+      expect(text).toContain(`Page ${k + 1} of ${pages}`);
+      expect(text).toContain("OCX-2D40");
+    });
+  });
+
   it("carries the part number, Ω, µ and ± as text", () => {
     const text = poppler("pdftotext", draft, "draft");
     expect(text).toContain("OCX-2D40");
@@ -78,6 +88,10 @@ describe("render-chart", () => {
     expect(svg).toContain("Per-port drive (dBm)");
     const png = await renderChartPng(chart.vegaLite, { scale: 1 });
     expect(png.subarray(1, 4).toString("latin1")).toBe("PNG");
+    // IHDR colour type (PNG spec §11.2.2) at byte 25: 3 = indexed, no alpha channel, which
+    // pdfkit embeds without decoding (types 4 and 6 carry alpha); no tRNS chunk either.
+    expect(png[25]).toBe(3);
+    expect(png.includes(Buffer.from("tRNS", "latin1"))).toBe(false);
   });
 });
 
