@@ -65,6 +65,26 @@ export interface CurveTemplate {
   selectSeries?: (seriesName: string) => boolean;
 }
 
+/**
+ * A chart of one derived parameter against a condition, across the approved sets: e.g.
+ * conversion loss at optimum drive vs input frequency, one line per unit through its points.
+ * Sets are grouped by temperature and the temperature with the most units is drawn.
+ */
+export interface TrendTemplate {
+  /** Stable chart id in the sheet. */
+  id: string;
+  /** lib/analysis parameter name (parameterCatalog key). */
+  parameter: string;
+  /** Conditions the parameter must carry, value for value (as SpecRowTemplate.match). */
+  match?: Record<string, string | number>;
+  /** The condition key on the x axis, with its axis words. */
+  x: { key: string; label: string; unit: string };
+  /** The y axis words; the unit is the parameter's. */
+  y: { label: string; unit: string };
+  title: string;
+  caption: string;
+}
+
 export interface ProseTemplate {
   id: ProseSectionId;
   title: string;
@@ -91,6 +111,8 @@ export interface SheetTemplate {
     notes: string[];
   };
   curves: CurveTemplate[];
+  /** Parameter-against-condition charts, drawn after the curves; none by default. */
+  trends?: TrendTemplate[];
   prose: ProseTemplate[];
   cautions: string[];
   absoluteMaximumRatings: AbsoluteMaximumRatingTemplate[];

@@ -20,6 +20,13 @@ export interface ChartSource {
   curve: Curve;
 }
 
+export interface ChartOptions {
+  /** Conditions shared by everything drawn, named in the caption ("2 GHz in, 25 °C"). */
+  conditionsLabel?: string;
+  /** Draw a dot at every point as well as the line (few, discrete x values). */
+  points?: boolean;
+}
+
 interface AxisScaling {
   title: string;
   factor: number;
@@ -39,7 +46,12 @@ function axisScaling(axis: { label: string; unit: string; scale?: "linear" | "lo
  * One Vega-Lite 6 line chart from the same curve of many units: each unit is a
  * line (detail), each series of the curve a dash pattern and colour with a legend.
  */
-export function buildChartSpec(template: CurveTemplate, sources: ChartSource[], conditionsLabel = ""): ChartSpec | null {
+export function buildChartSpec(
+  template: Pick<CurveTemplate, "id" | "title" | "caption" | "selectSeries">,
+  sources: ChartSource[],
+  options: ChartOptions = {},
+): ChartSpec | null {
+  const { conditionsLabel = "", points: drawPoints = false } = options;
   const sorted = [...sources].sort((a, b) => (a.serial < b.serial ? -1 : a.serial > b.serial ? 1 : 0));
   const seenSerials = new Set<string>();
   const chosen: ChartSource[] = [];
@@ -78,6 +90,21 @@ export function buildChartSpec(template: CurveTemplate, sources: ChartSource[], 
     }
   }
   if (values.length === 0) return null;
+
+  // Markers the engine put on a curve (each unit's optimum drive, a spur), drawn as open circles.
+  const markers: { x: number; y: number; label: string; unit: string }[] = [];
+  for (const { serial, curve } of drawn) {
+    for (const marker of curve.markers ?? []) {
+      if (!Number.isFinite(marker.x) || !Number.isFinite(marker.y) || (xScaling.log && marker.x <= 0)) continue;
+      markers.push({
+        x: roundStable(Number((marker.x * xScaling.factor).toPrecision(6))),
+        y: roundStable(Number((marker.y * yScaling.factor).toPrecision(6))),
+        label: marker.label,
+        unit: serial,
+      });
+    }
+  }
+  const markerLabels = [...new Set(markers.map((m) => m.label))].sort();
   const names = [...seriesNames].sort();
   const multiSeries = names.length > 1;
 
@@ -108,6 +135,23 @@ export function buildChartSpec(template: CurveTemplate, sources: ChartSource[], 
     };
   }
 
+  const lineLayer = {
+    mark: {
+      type: "line",
+      clip: true,
+      strokeWidth: multiSeries ? 1.25 : 1,
+      color: tokens.colors.ink,
+      opacity: multiSeries ? 0.9 : 0.6,
+      ...(drawPoints ? { point: { filled: true, size: 16 } } : {}),
+    },
+    encoding,
+  };
+  const markerLayer = {
+    data: { values: markers },
+    mark: { type: "point", shape: "circle", filled: false, size: 42, strokeWidth: 1.2, color: tokens.colors.signal, clip: true },
+    // The line layer's own x and y definitions, so the layers share scales, axes and titles.
+    encoding: { x: encoding.x, y: encoding.y },
+  };
   const vegaLite: Record<string, unknown> = {
     $schema: "https://vega.github.io/schema/vega-lite/v6.json",
     description: template.title,
@@ -116,27 +160,23 @@ export function buildChartSpec(template: CurveTemplate, sources: ChartSource[], 
     background: tokens.colors["paper-bright"],
     padding: 6,
     data: { values },
-    mark: {
-      type: "line",
-      clip: true,
-      strokeWidth: multiSeries ? 1.25 : 1,
-      color: tokens.colors.ink,
-      opacity: multiSeries ? 0.9 : 0.6,
-    },
-    encoding,
+    ...(markers.length > 0 ? { layer: [lineLayer, markerLayer] } : lineLayer),
     config: chartConfig(),
   };
 
   const unitWord = drawn.length === 1 ? "unit" : "units";
   const omitted = chosen.length - drawn.length;
   const at = conditionsLabel ? ` at ${conditionsLabel}` : "";
+  const markerText = markerLabels.length > 0 ? ` Open circles: ${markerLabels.join(", ")} (${markers.length}).` : "";
   const caption =
     `${template.caption} ${drawn.length} ${unitWord} drawn${at}` +
-    (omitted > 0 ? ` (first ${drawn.length} of ${chosen.length} by serial).` : ".");
+    (omitted > 0 ? ` (first ${drawn.length} of ${chosen.length} by serial).` : ".") +
+    markerText;
   const description =
     `${template.title}${at}: ${drawn.length} ${unitWord}` +
     (multiSeries ? `, series ${names.join(", ")}` : "") +
-    `; ${yScaling.title} from ${formatTrimmed(yMin, 2)} to ${formatTrimmed(yMax, 2)}.`;
+    `; ${yScaling.title} from ${formatTrimmed(yMin, 2)} to ${formatTrimmed(yMax, 2)}.` +
+    markerText;
   return { id: template.id, title: template.title, caption, description, unitCount: drawn.length, vegaLite };
 }
 

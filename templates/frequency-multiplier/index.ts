@@ -146,10 +146,36 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       caption: "Line style tells the orders apart.",
     },
     {
+      id: "harmonic-suppression-vs-drive",
+      curveId: "harmonic-suppression-vs-drive",
+      title: "Suppression of the unwanted orders vs per-port drive",
+      caption: "Relative to the wanted output; line style tells the orders apart.",
+    },
+    {
       id: "phase-noise",
       curveId: "phase-noise",
       title: "Residual phase noise L(f)",
       caption: "Single-sideband, at the output frequency; each line one unit.",
+    },
+  ],
+  trends: [
+    {
+      id: "conversion-loss-vs-input-frequency",
+      parameter: "conversion-loss",
+      match: { drive: "optimum" },
+      x: { key: "inputFrequencyHz", label: "Input frequency", unit: "Hz" },
+      y: { label: "Conversion loss", unit: "dB" },
+      title: "Conversion loss at optimum drive vs input frequency",
+      caption: "Each line one unit, through its measured frequencies.",
+    },
+    {
+      id: "fundamental-suppression-vs-input-frequency",
+      parameter: "harmonic-suppression",
+      match: { order: 1, drive: "optimum" },
+      x: { key: "inputFrequencyHz", label: "Input frequency", unit: "Hz" },
+      y: { label: "Fundamental suppression", unit: "dBc" },
+      title: "Fundamental suppression at optimum drive vs input frequency",
+      caption: "Each line one unit, through its measured frequencies.",
     },
   ],
   prose: composeProse({

@@ -109,7 +109,7 @@ describe("a fourth device class", () => {
       { template: combGeneratorTemplate },
     );
     expect(model.template.label).toBe("Comb generator");
-    expect(model.specifications.rows.map((r) => r.conditions[0])).toEqual(["2\u00a0GHz", "3\u00a0GHz"]);
+    expect(model.specifications.rows.map((r) => r.conditions[0])).toEqual(["1\u00a0GHz", "2\u00a0GHz", "3\u00a0GHz", "4\u00a0GHz"]);
     const pdf = await renderSheetPdf(model);
     const text = poppler("pdftotext", pdf, "comb");
     expect(text).toContain("TST-CMB9");

@@ -109,10 +109,48 @@ describe("buildSheetModel on the doubler fixture", () => {
   });
 
   it("carries charts as Vega-Lite specs with the data inlined", () => {
-    expect(model.charts.map((c) => c.id)).toEqual(["conversion-loss-vs-drive", "output-spectrum-vs-drive", "phase-noise"]);
+    expect(model.charts.map((c) => c.id)).toEqual([
+      "conversion-loss-vs-drive",
+      "output-spectrum-vs-drive",
+      "harmonic-suppression-vs-drive",
+      "phase-noise",
+      "conversion-loss-vs-input-frequency",
+      "fundamental-suppression-vs-input-frequency",
+    ]);
     const spec = model.charts[0].vegaLite as { $schema: string; data: { values: { unit: string }[] } };
     expect(spec.$schema).toContain("vega-lite/v6");
     expect(new Set(spec.data.values.map((v) => v.unit)).size).toBe(10);
+  });
+
+  it("marks each unit's optimum drive on the conversion-loss chart, at the engine's optimum", () => {
+    type Layered = { layer: { data?: { values: { x: number; y: number; label: string; unit: string }[] } }[] };
+    const chart = model.charts.find((c) => c.id === "conversion-loss-vs-drive")!;
+    const markers = (chart.vegaLite as Layered).layer[1].data!.values;
+    expect(markers).toHaveLength(10);
+    expect(new Set(markers.map((m) => m.label))).toEqual(new Set(["optimum drive"]));
+    expect(chart.caption).toContain("Open circles: optimum drive (10)");
+    // Four frequencies with ten units each at 25 °C: the chart shows the lower middle one.
+    expect(chart.caption).toContain("at 2\u00a0GHz in, 25\u00a0°C");
+    // Each circle sits at the optimum-drive and conversion-loss parameters of that unit's 2 GHz, 25 °C set.
+    for (const marker of markers) {
+      const set = input.approvedSets.find((s) => s.serial === marker.unit && s.temperatureC === 25 && s.parameters.some((p) => p.conditions.inputFrequencyHz === 2e9))!;
+      const optimum = set.parameters.find((p) => p.name === "optimum-drive")!.value!;
+      const loss = set.parameters.find((p) => p.name === "conversion-loss" && p.conditions.drive === "optimum")!.value!;
+      expect(marker.x).toBeCloseTo(optimum, 4);
+      expect(marker.y).toBeCloseTo(loss, 4);
+    }
+  });
+
+  it("draws conversion loss against input frequency from the same values as the statistics", () => {
+    const chart = model.charts.find((c) => c.id === "conversion-loss-vs-input-frequency")!;
+    const values = (chart.vegaLite as { data: { values: { x: number; y: number; unit: string }[] } }).data.values;
+    expect(chart.caption).toContain("at 25\u00a0°C");
+    for (const [key, xGhz] of [[CL_2GHZ, 2], [CL_3GHZ, 3]] as const) {
+      const g = group("conversion-loss-optimum", key);
+      const drawn = values.filter((v) => v.x === xGhz);
+      expect(drawn).toHaveLength(g.n);
+      for (const unit of g.units) expect(drawn.find((v) => v.unit === unit.serial)?.y).toBeCloseTo(unit.value.value!, 4);
+    }
   });
 
   it("shows the preliminary banner until released, and not after", () => {
@@ -126,7 +164,7 @@ describe("buildSheetModel on the doubler fixture", () => {
     const { instruments } = model.traceability;
     // Sorted by kind: phase-noise test set, signal generator, spectrum analyzer.
     expect(instruments.map((i) => i.serial)).toEqual(["QPN-0042", "TSG-2291", "CSA-0815"]);
-    expect(instruments.find((i) => i.serial === "CSA-0815")?.setCount).toBe(23);
+    expect(instruments.find((i) => i.serial === "CSA-0815")?.setCount).toBe(49);
     expect(instruments[1].uncertainty[0]).toBe("output level: ±0.5 dB (k = 2)");
     expect(instruments[1]).toMatchObject({ calibratedOn: "2025-09-02", calibrationDueOn: "2026-09-02", calibrationLapsed: false });
   });
@@ -161,10 +199,10 @@ describe("decisions per unit", () => {
   it("flags a limit that no data supports and keeps it in the table", () => {
     const input: SheetInput = {
       ...base,
-      limits: [...base.limits, { parameter: "optimum-drive", conditionsKey: "inputFrequencyHz=4000000000;temperatureC=25", max: 12, unit: "dBm", basis: "design" }],
+      limits: [...base.limits, { parameter: "optimum-drive", conditionsKey: "inputFrequencyHz=6000000000;temperatureC=25", max: 12, unit: "dBm", basis: "design" }],
     };
     const model = buildSheetModel(input);
-    const g = model.statistics.groups.find((x) => x.rowId === "optimum-drive" && x.conditionsKey.startsWith("inputFrequencyHz=4000000000"))!;
+    const g = model.statistics.groups.find((x) => x.rowId === "optimum-drive" && x.conditionsKey.startsWith("inputFrequencyHz=6000000000"))!;
     expect(g.n).toBe(0);
     expect(g.flags.map((f) => f.code)).toEqual(["limit-without-data"]);
     expect(model.specifications.rows.some((r) => r.groupId === g.groupId && r.max.text === "12.0")).toBe(true);
