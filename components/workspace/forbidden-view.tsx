@@ -15,7 +15,7 @@ export function ForbiddenView({ role }: { role: Role | null }) {
       </h1>
       {role ? (
         <p className="mt-4 text-[1.0625rem] text-ink-muted">
-          You are signed in as {/^[AEIOU]/.test(roleLabels[role]) ? "an" : "a"} {roleLabels[role].toLowerCase()}.{" "}
+          {`You are signed in as ${/^[AEIOU]/.test(roleLabels[role]) ? "an" : "a"} ${roleLabels[role].toLowerCase()}.`}{" "}
           {role === "customer"
             ? "Customer accounts see the public catalog and their change notices; workspace pages belong to the vendors and labs that write sheets."
             : "This page belongs to another role in your organization; if you need it, ask your administrator to change your role."}
@@ -23,7 +23,7 @@ export function ForbiddenView({ role }: { role: Role | null }) {
       ) : null}
       {home ? (
         <p className="mt-6">
-          <Link href={home.href}>Go to {home.label.toLowerCase()}</Link>
+          <Link href={home.href}>{`Go to ${home.label.toLowerCase()}`}</Link>
         </p>
       ) : null}
     </section>

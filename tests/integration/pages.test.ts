@@ -11,6 +11,7 @@ const everyone: Who[] = ["signed-out", "customer", "engineer", "reviewer", "admi
 let org: Awaited<ReturnType<typeof makeOrganization>>;
 let other: Awaited<ReturnType<typeof makeOrganization>>;
 let ownDeviceId: number;
+let ownPartNumber: string;
 let otherDeviceId: number;
 const clients = new Map<Who, TestClient>();
 
@@ -18,7 +19,9 @@ beforeAll(async () => {
   getSequelize();
   org = await makeOrganization();
   other = await makeOrganization();
-  ownDeviceId = (await makeDevice(org.organization.id)).id;
+  const ownDevice = await makeDevice(org.organization.id);
+  ownDeviceId = ownDevice.id;
+  ownPartNumber = ownDevice.partNumber;
   otherDeviceId = (await makeDevice(other.organization.id)).id;
   for (const who of everyone) {
     const client = new TestClient();
@@ -33,53 +36,56 @@ function get(who: Who, path: string): Promise<Response> {
 }
 
 // Each workspace page: the roles it opens for; every other signed-in role gets 403, signed out goes to /sign-in.
-const pages: { path: () => string; allowed: UserRole[] }[] = [
-  { path: () => "/devices", allowed: ["engineer", "reviewer", "admin"] },
-  { path: () => `/devices/${ownDeviceId}`, allowed: ["engineer", "reviewer", "admin"] },
-  { path: () => "/sheets", allowed: ["engineer", "reviewer"] },
-  { path: () => `/sheets/${ownDeviceId}`, allowed: ["engineer", "reviewer"] },
-  { path: () => "/review", allowed: ["reviewer"] },
-  { path: () => "/admin/users", allowed: ["admin"] },
-  { path: () => "/admin/instruments", allowed: ["admin"] },
-  { path: () => "/admin/bench-tokens", allowed: ["admin"] },
-  { path: () => "/subscriptions", allowed: ["customer"] },
+const pages: { name: string; path: () => string; allowed: UserRole[] }[] = [
+  { name: "/devices", path: () => "/devices", allowed: ["engineer", "reviewer", "admin"] },
+  { name: "/devices/:id", path: () => `/devices/${ownDeviceId}`, allowed: ["engineer", "reviewer", "admin"] },
+  { name: "/sheets", path: () => "/sheets", allowed: ["engineer", "reviewer"] },
+  { name: "/sheets/:id", path: () => `/sheets/${ownDeviceId}`, allowed: ["engineer", "reviewer"] },
+  { name: "/review", path: () => "/review", allowed: ["reviewer"] },
+  { name: "/admin/users", path: () => "/admin/users", allowed: ["admin"] },
+  { name: "/admin/instruments", path: () => "/admin/instruments", allowed: ["admin"] },
+  { name: "/admin/bench-tokens", path: () => "/admin/bench-tokens", allowed: ["admin"] },
+  { name: "/subscriptions", path: () => "/subscriptions", allowed: ["customer"] },
 ];
+
+// A page that calls forbidden() or notFound() is sent as an empty HTML shell with the React payload
+// inlined, and the browser draws the refusal from it (tests/e2e check what is seen). Next sends the
+// forbidden.tsx fallback with every page, so here the status is the proof of refusal; the words only
+// show that the fallback is Octavo's own page, written for the viewer's role.
 
 describe("workspace pages answer with the status their refusal means", () => {
   for (const page of pages) {
     for (const who of everyone) {
       const expected = page.allowed.includes(who as UserRole) ? 200 : who === "signed-out" ? "sign-in" : 403;
-      it(`${page.path().replace(/\d+/g, ":id")}: ${who} → ${expected}`, async () => {
+      it(`${page.name}: ${who} → ${expected}`, async () => {
         const response = await get(who, page.path());
         if (expected === "sign-in") {
           expect([302, 303, 307]).toContain(response.status);
           expect(new URL(response.headers.get("location") ?? "", baseUrl).pathname).toBe("/sign-in");
           return;
         }
-        const html = await response.text();
         expect(response.status).toBe(expected);
-        if (expected === 403) {
-          expect(html).toContain('data-testid="forbidden"');
-          expect(html).toContain("Your role does not open this page");
-        } else {
-          expect(html).not.toContain('data-testid="forbidden"');
-        }
+        if (expected === 403) expect(await response.text()).toContain("Your role does not open this page");
       });
     }
   }
 
-  it("a signed-out visitor is sent to sign in and comes back to the page afterwards", async () => {
-    const response = await get("signed-out", "/review");
+  it("a signed-out visitor is redirected to /sign-in and is sent nothing of the page", async () => {
+    const response = await get("signed-out", `/devices/${ownDeviceId}`);
+    expect(response.status).toBe(307);
     const location = new URL(response.headers.get("location") ?? "", baseUrl);
     expect(location.pathname).toBe("/sign-in");
-    // The workspace layout (plain /sign-in) and the page (?next=) both guard; whichever answers, nothing else is sent.
-    if (location.search) expect(location.searchParams.get("next")).toBe("/review");
+    // The workspace layout (plain /sign-in) and the page (?next=) both guard; whichever answers first, nothing else is sent.
+    if (location.search) expect(location.searchParams.get("next")).toBe(`/devices/${ownDeviceId}`);
+    const body = await response.text();
+    expect(body).not.toContain(ownPartNumber);
+    expect(body).not.toContain(org.organization.name);
   });
 
   it("the refusal tells a customer what their account is for and links to what it opens", async () => {
     const html = await (await get("customer", "/admin/users")).text();
     expect(html).toContain("You are signed in as a customer.");
-    expect(html).toContain('href="/catalog"');
+    expect(html).toContain("Go to catalog");
     expect(html).not.toContain(org.users.admin.email);
   });
 
@@ -87,6 +93,7 @@ describe("workspace pages answer with the status their refusal means", () => {
     const html = await (await get("reviewer", "/admin/bench-tokens")).text();
     expect(html).toContain("You are signed in as a reviewer.");
     expect(html).toContain("ask your administrator");
+    expect(html).toContain("Go to devices");
   });
 });
 
