@@ -14,6 +14,8 @@ const nextConfig = {
   poweredByHeader: false,
   reactStrictMode: true,
   typedRoutes: false,
+  // forbidden() from next/navigation: a page refused to a signed-in role answers HTTP 403 (app/forbidden.tsx).
+  experimental: { authInterrupts: true },
 };
 
 export default nextConfig;

@@ -37,7 +37,8 @@ export function mainNavigationLinks(page: Page) {
 }
 
 export async function expectRefused(page: Page, path: string): Promise<void> {
-  await page.goto(path);
+  const response = await page.goto(path);
+  expect(response?.status(), `${path} answers 403`).toBe(403);
   await expect(page).toHaveURL(new RegExp(`${path.replace(/\//g, "\\/")}$`));
   await expect(page.getByTestId("forbidden")).toBeVisible();
   await expect(page.getByRole("heading", { level: 1 })).toContainText("Your role does not open");

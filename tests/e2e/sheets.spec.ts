@@ -241,7 +241,7 @@ test("reviewer reads the sheets without editors; a customer is refused", async (
   const page = await customerContext.newPage();
   await signInViaApi(page, customer);
   for (const path of ["/sheets", `/sheets/${id}`]) {
-    await page.goto(path);
+    expect((await page.goto(path))?.status(), `${path} answers 403`).toBe(403);
     await expect(page.getByTestId("forbidden")).toBeVisible();
     await expect(page.getByTestId("sheet-workspace")).toHaveCount(0);
   }

@@ -1,16 +1,14 @@
 import type { Metadata } from "next";
-import { ForbiddenView } from "@/components/workspace/forbidden-view";
+import { requirePageUser } from "@/lib/server/auth/require-page-user";
 import { NotBuiltView } from "@/components/workspace/not-built-view";
-import { requirePageUser } from "@/components/workspace/require-page-user";
 
 export const metadata: Metadata = { title: "Change notices" };
 
 export default async function SubscriptionsPage() {
-  const access = await requirePageUser({ permission: "subscription:manage", path: "/subscriptions" });
-  if (!access.allowed) return <ForbiddenView role={access.user.role} pageName="change notices" />;
+  const user = await requirePageUser({ permission: "subscription:manage", path: "/subscriptions" });
   return (
     <NotBuiltView
-      runningHead={access.user.organizationName}
+      runningHead={user.organizationName}
       title="Change notices"
       lead="Parts you follow. When a new revision of one of their sheets is released, you hear about it by e-mail, with what changed."
       emptyTitle="You follow no parts yet"

@@ -33,6 +33,11 @@ export function can(role: Role, permission: Permission): boolean {
   return table[role].includes(permission);
 }
 
+/** True when the role holds the permission, or one of the permissions of a list. */
+export function canAny(role: Role, needed: Permission | readonly Permission[]): boolean {
+  return (typeof needed === "string" ? [needed] : needed).some((p) => can(role, p));
+}
+
 export function permissionsOf(role: Role): readonly Permission[] {
   return table[role];
 }
@@ -41,13 +46,16 @@ export function isRole(value: unknown): value is Role {
   return typeof value === "string" && (roles as readonly string[]).includes(value);
 }
 
+/** Sheet drafts are written by engineers and read by reviewers: either permission opens them. */
+export const sheetDraftReaders: readonly Permission[] = ["sheet:write", "sheet:review"];
+
 /** A link shows when the role holds one of its permissions (null: always). */
 export type NavItem = { href: string; label: string; permission: Permission | readonly Permission[] | null };
 
 /** Workspace navigation, in order; an item shows when the role holds its permission. */
 export const workspaceNav: readonly NavItem[] = [
   { href: "/devices", label: "Devices", permission: "device:read" },
-  { href: "/sheets", label: "Sheets", permission: ["sheet:write", "sheet:review"] },
+  { href: "/sheets", label: "Sheets", permission: sheetDraftReaders },
   { href: "/review", label: "Review queue", permission: "sheet:review" },
   { href: "/admin/users", label: "People", permission: "user:manage" },
   { href: "/admin/instruments", label: "Instruments", permission: "instrument:manage" },
@@ -58,9 +66,5 @@ export const workspaceNav: readonly NavItem[] = [
 
 export function navigationFor(role: Role | null): NavItem[] {
   if (!role) return [{ href: "/catalog", label: "Catalog", permission: null }];
-  return workspaceNav.filter((item) => {
-    if (item.permission === null) return true;
-    const needed: readonly Permission[] = typeof item.permission === "string" ? [item.permission] : item.permission;
-    return needed.some((p) => can(role, p));
-  });
+  return workspaceNav.filter((item) => item.permission === null || canAny(role, item.permission));
 }

@@ -2,12 +2,11 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { isAppError } from "@/lib/errors";
 import { can } from "@/lib/server/auth/permissions";
+import { requirePageUser } from "@/lib/server/auth/require-page-user";
 import { getDevice } from "@/lib/server/devices/get-device";
 import { listInstruments } from "@/lib/server/instruments/list-instruments";
 import { listDeviceMeasurementSets } from "@/lib/server/measurements/list-device-measurement-sets";
 import { DeviceView } from "@/components/devices/device-view";
-import { ForbiddenView } from "@/components/workspace/forbidden-view";
-import { requirePageUser } from "@/components/workspace/require-page-user";
 
 type Props = { params: Promise<{ id: string }> };
 
@@ -15,12 +14,11 @@ export const metadata: Metadata = { title: "Device" };
 
 export default async function DevicePage({ params }: Props) {
   const { id } = await params;
-  const access = await requirePageUser({ permission: "device:read", path: `/devices/${id}` });
-  if (!access.allowed) return <ForbiddenView role={access.user.role} pageName="this device" />;
+  const user = await requirePageUser({ permission: "device:read", path: `/devices/${id}` });
   const deviceId = Number(id);
   if (!Number.isInteger(deviceId) || deviceId <= 0) notFound();
-  const { organizationId } = access.user;
-  const canUpload = can(access.user.role, "measurement:upload");
+  const { organizationId } = user;
+  const canUpload = can(user.role, "measurement:upload");
   try {
     const [device, sets, instruments] = await Promise.all([
       getDevice({ organizationId, deviceId }),
@@ -30,10 +28,10 @@ export default async function DevicePage({ params }: Props) {
     return (
       <DeviceView
         device={device}
-        organizationName={access.user.organizationName}
+        organizationName={user.organizationName}
         sets={sets}
         upload={canUpload ? { instruments } : null}
-        canEdit={can(access.user.role, "device:write")}
+        canEdit={can(user.role, "device:write")}
       />
     );
   } catch (error) {

@@ -4,12 +4,12 @@ import { Suspense } from "react";
 import { isAppError } from "@/lib/errors";
 import { buildSheetModel, type SheetInput } from "@/lib/sheet";
 import { loadSheetInput } from "@/lib/server/sheets/load-sheet-input";
+import { can, sheetDraftReaders } from "@/lib/server/auth/permissions";
+import { requirePageUser } from "@/lib/server/auth/require-page-user";
 import { findSheetTemplate } from "@/templates";
 import { SheetView } from "@/components/sheet/sheet-view";
 import { SheetViewWithCharts } from "@/components/sheets/sheet-view-with-charts";
 import { SheetWorkspace } from "@/components/sheets/sheet-workspace";
-import { requireSheetReader } from "@/components/sheets/require-sheet-reader";
-import { ForbiddenView } from "@/components/workspace/forbidden-view";
 
 type Props = { params: Promise<{ deviceId: string }> };
 
@@ -17,14 +17,13 @@ export const metadata: Metadata = { title: "Sheet draft" };
 
 export default async function SheetPage({ params }: Props) {
   const { deviceId: idText } = await params;
-  const access = await requireSheetReader(`/sheets/${idText}`);
-  if (!access.allowed) return <ForbiddenView role={access.user.role} pageName="datasheet drafts" />;
+  const user = await requirePageUser({ permission: sheetDraftReaders, path: `/sheets/${idText}` });
   const deviceId = Number(idText);
   if (!Number.isInteger(deviceId) || deviceId <= 0) notFound();
   let input: SheetInput;
   try {
     // The same input buildDeviceSheet reads, loaded once: the model for the preview, the raw text for the editors.
-    input = await loadSheetInput({ organizationId: access.user.organizationId, deviceId, date: new Date().toISOString().slice(0, 10) });
+    input = await loadSheetInput({ organizationId: user.organizationId, deviceId, date: new Date().toISOString().slice(0, 10) });
   } catch (error) {
     if (isAppError(error) && error.code === "not-found") notFound();
     throw error;
@@ -34,7 +33,7 @@ export default async function SheetPage({ params }: Props) {
   return (
     <SheetWorkspace
       deviceId={deviceId}
-      canEdit={access.canEdit}
+      canEdit={can(user.role, "sheet:write")}
       approvedSetCount={model.traceability.measurementSets.length}
       model={{ header: model.header, specifications: model.specifications, statistics: model.statistics, issues: model.issues }}
       content={{

@@ -2,11 +2,10 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { isAppError } from "@/lib/errors";
 import { can } from "@/lib/server/auth/permissions";
+import { requirePageUser } from "@/lib/server/auth/require-page-user";
 import { getDevice } from "@/lib/server/devices/get-device";
 import { getMeasurementSet } from "@/lib/server/measurements/get-measurement-set";
 import { MeasurementSetView } from "@/components/measurements/measurement-set-view";
-import { ForbiddenView } from "@/components/workspace/forbidden-view";
-import { requirePageUser } from "@/components/workspace/require-page-user";
 
 type Props = { params: Promise<{ id: string; setId: string }> };
 
@@ -14,12 +13,11 @@ export const metadata: Metadata = { title: "Measurement set" };
 
 export default async function MeasurementSetPage({ params }: Props) {
   const { id, setId } = await params;
-  const access = await requirePageUser({ permission: "device:read", path: `/devices/${id}/measurements/${setId}` });
-  if (!access.allowed) return <ForbiddenView role={access.user.role} pageName="this measurement set" />;
+  const user = await requirePageUser({ permission: "device:read", path: `/devices/${id}/measurements/${setId}` });
   const deviceId = Number(id);
   const measurementSetId = Number(setId);
   if (!Number.isInteger(deviceId) || deviceId <= 0 || !Number.isInteger(measurementSetId) || measurementSetId <= 0) notFound();
-  const { organizationId } = access.user;
+  const { organizationId } = user;
   try {
     const [device, set] = await Promise.all([getDevice({ organizationId, deviceId }), getMeasurementSet({ organizationId, setId: measurementSetId })]);
     // A set is addressed under its own device only.
@@ -28,8 +26,8 @@ export default async function MeasurementSetPage({ params }: Props) {
       <MeasurementSetView
         device={device}
         set={set}
-        organizationName={access.user.organizationName}
-        viewer={{ id: access.user.id, canReview: can(access.user.role, "measurement:approve") }}
+        organizationName={user.organizationName}
+        viewer={{ id: user.id, canReview: can(user.role, "measurement:approve") }}
       />
     );
   } catch (error) {
