@@ -31,44 +31,60 @@ export async function renderChartSvg(vegaLite: Record<string, unknown>): Promise
  * fit 256 colours without visible loss at the 3× scale used here.
  */
 export async function renderChartPng(vegaLite: Record<string, unknown>, options: { scale?: number } = {}): Promise<Buffer> {
-  const svg = await renderChartSvg(vegaLite);
+  return svgToPng(await renderChartSvg(vegaLite), options.scale ?? 3);
+}
+
+async function svgToPng(svg: string, scale: number): Promise<Buffer> {
   const resvg = new Resvg(svg, {
     font: {
       fontFiles: [fontFiles.sansRegular, fontFiles.sansSemiBold, fontFiles.monoRegular],
       loadSystemFonts: false,
       defaultFontFamily: SANS_FAMILY,
     },
-    fitTo: { mode: "zoom", value: options.scale ?? 3 },
+    fitTo: { mode: "zoom", value: scale },
   });
   const rgba = resvg.render().asPng();
   return sharp(rgba).flatten({ background: "#ffffff" }).png({ palette: true, colours: 256, dither: 0, compressionLevel: 9 }).toBuffer();
 }
 
-/** Every chart of a sheet as SVG markup, keyed by chart id, for the web view. */
-export async function renderSheetChartSvgs(model: SheetModel): Promise<Record<string, string>> {
-  const entries = await Promise.all(model.charts.map(async (chart) => [chart.id, await renderChartSvg(chart.vegaLite)] as const));
-  return Object.fromEntries(entries);
+// A spec's picture never changes, and previews render the same sheet again and again: SVGs (web)
+// and PNGs (PDF) are kept in a small content-addressed cache, oldest entry out first.
+const CACHE_ENTRIES = 64;
+const svgCache = new Map<string, Promise<string>>();
+const pngCache = new Map<string, Promise<Buffer>>();
+
+function remember<T>(cache: Map<string, Promise<T>>, key: string, make: () => Promise<T>): Promise<T> {
+  let value = cache.get(key);
+  if (!value) {
+    value = make();
+    value.catch(() => cache.delete(key));
+    cache.set(key, value);
+    if (cache.size > CACHE_ENTRIES) cache.delete(cache.keys().next().value!);
+  }
+  return value;
 }
 
-// Rasterising is a third of a PDF's time and a spec's picture never changes, so previews that
-// re-render the same sheet reuse it: a small content-addressed cache, oldest entry out first.
-const pngCache = new Map<string, Promise<Buffer>>();
-const PNG_CACHE_ENTRIES = 64;
+function specKey(vegaLite: Record<string, unknown>): string {
+  return createHash("sha256").update(JSON.stringify(vegaLite)).digest("hex");
+}
 
-function cachedChartPng(vegaLite: Record<string, unknown>): Promise<Buffer> {
-  const key = createHash("sha256").update(JSON.stringify(vegaLite)).digest("hex");
-  let png = pngCache.get(key);
-  if (!png) {
-    png = renderChartPng(vegaLite);
-    png.catch(() => pngCache.delete(key));
-    pngCache.set(key, png);
-    if (pngCache.size > PNG_CACHE_ENTRIES) pngCache.delete(pngCache.keys().next().value!);
-  }
-  return png;
+function cachedChartSvg(key: string, vegaLite: Record<string, unknown>): Promise<string> {
+  return remember(svgCache, key, () => renderChartSvg(vegaLite));
+}
+
+/** Every chart of a sheet as SVG markup, keyed by chart id, for the web view. */
+export async function renderSheetChartSvgs(model: SheetModel): Promise<Record<string, string>> {
+  const entries = await Promise.all(model.charts.map(async (chart) => [chart.id, await cachedChartSvg(specKey(chart.vegaLite), chart.vegaLite)] as const));
+  return Object.fromEntries(entries);
 }
 
 /** Every chart of a sheet as PNG, keyed by chart id, for the PDF. */
 export async function renderSheetChartPngs(model: SheetModel): Promise<Record<string, Buffer>> {
-  const entries = await Promise.all(model.charts.map(async (chart) => [chart.id, await cachedChartPng(chart.vegaLite)] as const));
+  const entries = await Promise.all(
+    model.charts.map(async (chart) => {
+      const key = specKey(chart.vegaLite);
+      return [chart.id, await remember(pngCache, key, async () => svgToPng(await cachedChartSvg(key, chart.vegaLite), 3))] as const;
+    }),
+  );
   return Object.fromEntries(entries);
 }

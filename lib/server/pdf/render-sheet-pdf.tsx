@@ -5,6 +5,7 @@ import type { SheetModel, StatisticsGroup } from "../../sheet/types";
 import { fontFiles, MONO_FAMILY, SANS_FAMILY } from "./fonts";
 import { type Cell, colors, type Column, PdfProse, PdfTable, SectionHeading, styles } from "./pdf-parts";
 import { renderSheetChartPngs } from "./render-chart";
+import { stampPageNumbers } from "./stamp-page-numbers";
 
 let fontsRegistered = false;
 
@@ -35,7 +36,16 @@ function registerFonts(): void {
 export async function renderSheetPdf(model: SheetModel): Promise<Buffer> {
   registerFonts();
   const charts = await renderSheetChartPngs(model);
-  return renderToBuffer(<SheetDocument model={model} charts={charts} />);
+  const pdf = await renderToBuffer(<SheetDocument model={model} charts={charts} />);
+  // In the running foot's line, flush with its right edge (see RunningFoot).
+  return stampPageNumbers(pdf, {
+    right: A4_WIDTH_PT - PAGE_MARGIN,
+    baseline: FOOT_BASELINE_FROM_BOTTOM,
+    size: FOOT_FONT_SIZE,
+    color: colors["ink-muted"],
+    fontFile: fontFiles.sansRegular,
+    fontName: "SourceSans3-Regular",
+  });
 }
 
 const PAGE_MARGIN = 42;
@@ -68,7 +78,13 @@ function SheetPage({ model, children }: { model: SheetModel; children: ReactNode
     </Page>
   );
 }
+const A4_WIDTH_PT = 595.28;
 const A4_HEIGHT_PT = 841.89;
+const FOOT_TOP = A4_HEIGHT_PT - 40;
+const FOOT_FONT_SIZE = 7.5;
+// The foot's line sits 4 pt below its rule; its baseline, measured with pdftotext -bbox against
+// react-pdf's own text in that line, is 27.8 pt above the page's bottom edge.
+const FOOT_BASELINE_FROM_BOTTOM = 27.8;
 
 function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<string, Buffer> }) {
   const { header } = model;
@@ -206,7 +222,7 @@ function RunningFoot({ model }: { model: SheetModel }) {
       style={{
         position: "absolute",
         // Placed from the top: a bottom-anchored fixed view vanished from this layout in react-pdf 4.9.
-        top: A4_HEIGHT_PT - 40,
+        top: FOOT_TOP,
         left: PAGE_MARGIN,
         right: PAGE_MARGIN,
         flexDirection: "row",
@@ -214,14 +230,14 @@ function RunningFoot({ model }: { model: SheetModel }) {
         borderTopWidth: 0.5,
         borderTopColor: colors.rule,
         paddingTop: 4,
-        fontSize: 7.5,
+        fontSize: FOOT_FONT_SIZE,
         color: colors["ink-muted"],
       }}
     >
       <Text>
         {header.organizationName} · {header.partNumber} {header.revisionText}
       </Text>
-      <Text render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
+      {/* "Page k of N" is stamped at the right end of this line after layout (stampPageNumbers). */}
     </View>
   );
 }

@@ -51,6 +51,20 @@ describe("renderSheetPdf", () => {
     });
   });
 
+  it("stamps the page number on the running foot's line, flush with its right margin", () => {
+    const file = path.join(dir, "bbox.pdf");
+    writeFileSync(file, draft);
+    const words = [...execFileSync("pdftotext", ["-bbox", "-f", "2", "-l", "2", file, "-"], { encoding: "utf8" }).matchAll(
+      /xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">([^<]+)</g,
+    )].map((m) => ({ xMin: Number(m[1]), yMin: Number(m[2]), xMax: Number(m[3]), word: m[5] }));
+    const page = words.find((w) => w.word === "Page")!;
+    const organization = words.filter((w) => w.word === "Brightwater").at(-1)!; // the foot's first word
+    expect(Math.abs(page.yMin - organization.yMin)).toBeLessThan(0.2);
+    // A4 is 595.28 pt wide (ISO 216); the sheet's margins are 42 pt.
+    const last = words.filter((w) => Math.abs(w.yMin - page.yMin) < 0.2).sort((a, b) => b.xMax - a.xMax)[0];
+    expect(last.xMax).toBeCloseTo(595.28 - 42, 1);
+  });
+
   it("carries the part number, Ω, µ and ± as text", () => {
     const text = poppler("pdftotext", draft, "draft");
     expect(text).toContain("OCX-2D40");
