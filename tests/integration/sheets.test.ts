@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Device, Organization, User, closeSequelize, getSequelize } from "@/models";
+import { Device, Organization, SheetContent, SpecLimit, User, closeSequelize, getSequelize } from "@/models";
 import { demoPassword } from "@/models/seeders/demo-scenario";
 import type { SheetModel } from "@/lib/sheet";
 import { TestClient } from "./helpers/client";
@@ -44,6 +44,7 @@ describe("the draft sheet of a demo device", () => {
   });
 
   it("takes spec limits from engineers only, and flags a limit the data cannot support", async () => {
+    const before = await currentLimits();
     const model = await sheet(engineer);
     const cl = model.statistics.groups.find((g) => g.parameter === "conversion-loss")!;
     const tight = { parameter: cl.parameter, conditionsKey: cl.conditionsKey, max: (cl.mean.value ?? 0) + 0.01, unit: cl.unit, basis: "test" };
@@ -58,10 +59,11 @@ describe("the draft sheet of a demo device", () => {
     expect(group.limits?.max.value).toBeCloseTo(tight.max, 6);
     expect(group.supported).toBe(false);
     expect(group.flags.length).toBeGreaterThan(0);
-    await engineer.request(`/api/devices/${deviceId}/spec-limits`, { method: "PUT", json: { limits: [] } });
+    await putLimits(before);
   });
 
   it("renders the engineer's markdown sanitized", async () => {
+    const saved = await SheetContent.findOne({ where: { deviceId } });
     const r = await engineer.request(`/api/devices/${deviceId}/sheet-content`, {
       method: "PUT",
       json: { prose: { description: "A **passive** doubler.<script>alert(1)</script> [x](javascript:alert(2))" }, absoluteMaximumRatings: [{ label: "RF input power", value: "+23", unit: "dBm" }] },
@@ -72,6 +74,9 @@ describe("the draft sheet of a demo device", () => {
     expect(description.html).toContain("<strong>passive</strong>");
     expect(description.html).not.toMatch(/<script|javascript:/i);
     expect(model.absoluteMaximumRatings.find((a) => a.label === "RF input power")).toMatchObject({ value: "+23", unit: "dBm", missing: false });
+    // Put the demo sheet's own content back.
+    const back = { prose: saved?.prose ?? {}, absoluteMaximumRatings: saved?.absoluteMaximumRatings ?? [], measurementUncertainty: saved?.measurementUncertainty ?? {} };
+    expect((await engineer.request(`/api/devices/${deviceId}/sheet-content`, { method: "PUT", json: back })).status).toBe(200);
   });
 });
 
@@ -100,4 +105,44 @@ describe("the draft PDF", () => {
     expect((await outsider.request(`/api/devices/${deviceId}/sheet/pdf`)).status).toBe(404);
     expect((await new TestClient().request(`/api/devices/${deviceId}/sheet/pdf`)).status).toBe(401);
   });
+
+  it("answers 304 to the ETag of an unchanged draft, and a new ETag once the draft changes", { timeout: 120_000 }, async () => {
+    const first = await engineer.request(`/api/devices/${deviceId}/sheet/pdf`);
+    expect(first.status).toBe(200);
+    const etag = first.headers.get("etag")!;
+    expect(etag).toMatch(/^W\/"[0-9a-f]{64}"$/);
+    expect(first.headers.get("cache-control")).toBe("private, no-cache");
+    const again = await engineer.request(`/api/devices/${deviceId}/sheet/pdf`, { headers: { "if-none-match": etag } });
+    expect(again.status).toBe(304);
+    expect((await again.arrayBuffer()).byteLength).toBe(0);
+
+    const before = await currentLimits();
+    const cl = (await sheet(engineer)).statistics.groups.find((g) => g.parameter === "conversion-loss")!;
+    const limits = [{ parameter: cl.parameter, conditionsKey: cl.conditionsKey, max: 30, unit: cl.unit, basis: "design" }];
+    expect((await engineer.request(`/api/devices/${deviceId}/spec-limits`, { method: "PUT", json: { limits } })).status).toBe(200);
+    const changed = await engineer.request(`/api/devices/${deviceId}/sheet/pdf`, { headers: { "if-none-match": etag } });
+    expect(changed.status).toBe(200);
+    expect(changed.headers.get("etag")).not.toBe(etag);
+    expect(Buffer.from(await changed.arrayBuffer()).subarray(0, 5).toString()).toBe("%PDF-");
+    await putLimits(before);
+  });
 });
+
+/** The device's limits as the PUT body takes them, read from the database, to put back after a test. */
+async function currentLimits() {
+  const rows = await SpecLimit.findAll({ where: { deviceId }, order: [["id", "ASC"]] });
+  return rows.map((l) => ({
+    parameter: l.parameter,
+    conditionsKey: l.conditionsKey,
+    ...(l.minValue !== null ? { min: l.minValue } : {}),
+    ...(l.typValue !== null ? { typ: l.typValue } : {}),
+    ...(l.maxValue !== null ? { max: l.maxValue } : {}),
+    unit: l.unit,
+    basis: l.basis,
+    ...(l.footnote ? { footnote: l.footnote } : {}),
+  }));
+}
+
+async function putLimits(limits: unknown[]) {
+  expect((await engineer.request(`/api/devices/${deviceId}/spec-limits`, { method: "PUT", json: { limits } })).status).toBe(200);
+}

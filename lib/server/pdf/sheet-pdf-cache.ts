@@ -1,0 +1,30 @@
+import "server-only";
+import { createHash } from "node:crypto";
+import { serializeSheetModel, type SheetModel } from "../../sheet";
+import { renderSheetPdf } from "./render-sheet-pdf";
+
+/** The model's digest: the same model always gives the same PDF content, so it names the PDF. */
+export function sheetModelDigest(model: SheetModel): string {
+  return createHash("sha256").update(serializeSheetModel(model)).digest("hex");
+}
+
+// A PDF render holds the Node process for most of a second. The preview reloads the same draft
+// after every save and customers download the same revision again and again, so the last few
+// PDFs are kept by model digest (about 0.4 MB each), oldest out first.
+const ENTRIES = 16;
+const pdfs = new Map<string, Promise<Buffer>>();
+
+/** The sheet's PDF, rendered once per distinct model while it stays among the last few asked for. */
+export function sheetPdfFor(model: SheetModel, digest = sheetModelDigest(model)): Promise<Buffer> {
+  let pdf = pdfs.get(digest);
+  if (pdf) {
+    pdfs.delete(digest);
+    pdfs.set(digest, pdf);
+    return pdf;
+  }
+  pdf = renderSheetPdf(model);
+  pdf.catch(() => pdfs.delete(digest));
+  pdfs.set(digest, pdf);
+  if (pdfs.size > ENTRIES) pdfs.delete(pdfs.keys().next().value!);
+  return pdf;
+}
