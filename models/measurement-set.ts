@@ -1,19 +1,11 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import type { MeasurementConditions } from "../lib/ingest/upload-conditions";
 
 export const measurementSetStates = ["submitted", "approved", "rejected"] as const;
 export type MeasurementSetState = (typeof measurementSetStates)[number];
 
 /** Conditions stated at upload (or read from the file's metadata). Units in the names. */
-export type MeasurementConditions = {
-  serial: string;
-  lot?: string;
-  temperatureC?: number;
-  inputFrequencyHz?: number;
-  driveLevelDbm?: number;
-  splitterExcessLossDb?: number;
-  cableLossDb?: number;
-  notes?: string;
-};
+export type { MeasurementConditions };
 
 /** One derived parameter as the engine reports it. */
 export type DerivedParameter = { name: string; value: number | null; unit: string; conditions: Record<string, string | number> };

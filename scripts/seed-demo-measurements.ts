@@ -1,65 +1,19 @@
 /**
- * Fills the demo organizations with measurement sets through the real upload path: a bench
- * token (made for this run, revoked at the end) posts the example files to POST
- * /api/v1/measurements of the running app, and a demo reviewer approves some over HTTP.
+ * Fills the demo organizations through the app's own API, as people would: admins enter the
+ * instruments, a bench token (made for this run, revoked at the end) posts the demo files to
+ * POST /api/v1/measurements, a demo reviewer approves some, and engineers save their sheets'
+ * limits and prose. The data are in models/seeders/demo-measurements.ts and demo-sheets.ts.
  * Runs once per database (recorded in octavo_seeds). Needs the app at OCTAVO_APP_URL.
- *
- * Invented demo data: extra units of the example doubler are the example file with a
- * different serial and a small, seeded offset on every power reading.
  */
 import { randomBytes, createHash } from "node:crypto";
-import { readFileSync } from "node:fs";
-import path from "node:path";
 import { QueryTypes } from "sequelize";
-import { BenchToken, Organization, User, closeSequelize, getSequelize } from "../models";
+import { BenchToken, Device, Organization, User, closeSequelize, getSequelize } from "../models";
+import { demoInstruments, demoUploads } from "../models/seeders/demo-measurements";
 import { demoPassword } from "../models/seeders/demo-scenario";
+import { demoSheets } from "../models/seeders/demo-sheets";
 
 const appUrl = process.env.OCTAVO_APP_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
 const marker = "demo-measurements-via-bench-api";
-const examples = path.resolve(__dirname, "../fixtures/examples");
-
-type Upload = { org: string; part: string; file: string; fields?: Record<string, string>; bytes?: Buffer; approve?: boolean };
-
-function seeded(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-/** Another unit of the example doubler: new serial, every output power moved by up to ±0.6 dB. */
-function anotherDoublerUnit(serial: string, seed: number): Buffer {
-  const rand = seeded(seed);
-  const shift = (rand() - 0.5) * 1.2;
-  const lines = readFileSync(path.join(examples, "drive-sweep-doubler.csv"), "utf8").split("\n");
-  return Buffer.from(
-    lines
-      .map((line) => {
-        if (line.startsWith("# serial:")) return `# serial: ${serial}`;
-        if (!/^-?\d/.test(line)) return line;
-        const [input, ...outs] = line.split(",");
-        return [input, ...outs.map((v) => (Number(v) + shift + (rand() - 0.5) * 0.3).toFixed(2))].join(",");
-      })
-      .join("\n"),
-  );
-}
-
-const uploads: Upload[] = [
-  { org: "kestrine", part: "KDX-2G4", file: "drive-sweep-doubler.csv", approve: true },
-  ...["OCT-0002", "OCT-0003", "OCT-0004", "OCT-0005"].map((serial, i) => ({
-    org: "kestrine", part: "KDX-2G4", file: `drive-sweep-${serial.toLowerCase()}.csv`, bytes: anotherDoublerUnit(serial, 11 + i), approve: i < 3,
-  })),
-  { org: "kestrine", part: "KDX-2G4", file: "phase-noise-doubler.csv", approve: true },
-  { org: "kestrine", part: "KM-7H", file: "frequency-sweep-mixer.csv", approve: true },
-  { org: "kestrine", part: "KM-7H", file: "two-tone-mixer.tsv", approve: false },
-  { org: "kestrine", part: "KQH-2G", file: "hybrid-4port.s4p", fields: { serial: "OCT-0401", temperatureC: "25" }, approve: true },
-  { org: "pellacourt", part: "PS-2W", file: "splitter-3port.s3p", fields: { serial: "PS-0007", temperatureC: "25" }, approve: false },
-  { org: "wrenfield-lab", part: "WL-C2611-KDX", file: "drive-sweep-doubler.csv", approve: true },
-  { org: "wrenfield-lab", part: "WL-C2611-KDX", file: "phase-noise-doubler.csv", approve: false },
-];
 
 async function signIn(email: string): Promise<string> {
   const csrf = await fetch(`${appUrl}/api/auth/csrf`);
@@ -76,6 +30,21 @@ async function signIn(email: string): Promise<string> {
   return session;
 }
 
+async function userOf(slug: string, role: "admin" | "engineer" | "reviewer"): Promise<User> {
+  const org = await Organization.findOne({ where: { slug } });
+  return (await User.findOne({ where: { organizationId: org!.id, role } }))!;
+}
+
+async function call(session: string, method: string, url: string, body: unknown, expected: number): Promise<unknown> {
+  const r = await fetch(`${appUrl}${url}`, {
+    method,
+    headers: { "content-type": "application/json", cookie: session, origin: new URL(appUrl).origin },
+    body: JSON.stringify(body),
+  });
+  if (r.status !== expected) throw new Error(`${method} ${url}: ${r.status} ${await r.text()}`);
+  return r.json();
+}
+
 async function main() {
   const sequelize = getSequelize();
   await sequelize.query("CREATE TABLE IF NOT EXISTS octavo_seeds (name VARCHAR(255) NOT NULL PRIMARY KEY)");
@@ -84,45 +53,70 @@ async function main() {
     console.error("[octavo] demo measurements: already uploaded");
     return;
   }
+  const slugs = [...new Set(demoUploads.map((u) => u.org))];
+
+  // Instruments, entered by each organization's admin.
+  const instrumentIds = new Map<string, number>();
+  for (const [slug, instruments] of Object.entries(demoInstruments)) {
+    const session = await signIn((await userOf(slug, "admin")).email);
+    for (const { key, ...instrument } of instruments) {
+      const { instrument: saved } = (await call(session, "POST", "/api/admin/instruments", instrument, 201)) as { instrument: { id: number } };
+      instrumentIds.set(`${slug}/${key}`, saved.id);
+    }
+  }
+
+  // Files, through the bench API with a token made for this run and revoked at the end.
   const tokens = new Map<string, { token: string; row: BenchToken }>();
-  for (const slug of new Set(uploads.map((u) => u.org))) {
-    const org = await Organization.findOne({ where: { slug } });
-    const admin = await User.findOne({ where: { organizationId: org!.id, role: "admin" } });
+  for (const slug of slugs) {
+    const admin = await userOf(slug, "admin");
     const token = `oct_${randomBytes(30).toString("base64url")}`;
     const row = await BenchToken.create({
-      organizationId: org!.id, createdById: admin!.id, name: "Demo loader (revoked after use)", tokenPrefix: token.slice(0, 10),
+      organizationId: admin.organizationId, createdById: admin.id, name: "Demo loader (revoked after use)", tokenPrefix: token.slice(0, 10),
       tokenHash: createHash("sha256").update(token).digest("hex"),
     });
     tokens.set(slug, { token, row });
   }
   const toApprove = new Map<string, number[]>();
-  for (const u of uploads) {
+  for (const u of demoUploads) {
     const form = new FormData();
-    const bytes = u.bytes ?? readFileSync(path.join(examples, u.file));
-    form.set("file", new Blob([new Uint8Array(bytes)]), u.file);
+    form.set("file", new Blob([new Uint8Array(u.bytes())]), u.file);
     form.set("device", u.part);
-    for (const [k, v] of Object.entries(u.fields ?? {})) form.set(k, v);
+    for (const [k, v] of Object.entries(u.fields)) form.set(k, v);
+    form.set("instrumentIds", u.instruments.map((key) => instrumentIds.get(`${u.org}/${key}`)).join(","));
     const r = await fetch(`${appUrl}/api/v1/measurements`, { method: "POST", headers: { authorization: `Bearer ${tokens.get(u.org)!.token}` }, body: form });
     const body = (await r.json()) as { measurementSet?: { id: number }; error?: { message: string } };
     if (r.status !== 201) throw new Error(`demo upload ${u.file} → ${u.part}: ${r.status} ${body.error?.message}`);
     if (u.approve) toApprove.set(u.org, [...(toApprove.get(u.org) ?? []), body.measurementSet!.id]);
   }
+
+  // A second engineer (the organization's reviewer) approves some; the rest wait in the review queue.
   for (const [slug, ids] of toApprove) {
-    const org = await Organization.findOne({ where: { slug } });
-    const reviewer = await User.findOne({ where: { organizationId: org!.id, role: "reviewer" } });
-    const session = await signIn(reviewer!.email);
-    for (const id of ids) {
-      const r = await fetch(`${appUrl}/api/measurements/${id}/review`, {
-        method: "POST",
-        headers: { "content-type": "application/json", cookie: session, origin: new URL(appUrl).origin },
-        body: JSON.stringify({ decision: "approve" }),
-      });
-      if (r.status !== 200) throw new Error(`demo approval of set ${id}: ${r.status} ${await r.text()}`);
-    }
+    const session = await signIn((await userOf(slug, "reviewer")).email);
+    for (const id of ids) await call(session, "POST", `/api/measurements/${id}/review`, { decision: "approve" }, 200);
   }
   for (const { row } of tokens.values()) await row.update({ revokedAt: new Date() });
+
+  // What the engineers wrote on their sheets: limits, prose, ratings, stated uncertainty.
+  let sheets = 0;
+  for (const org of await Organization.findAll()) {
+    const content = Object.entries(demoSheets);
+    const devices = await Device.findAll({ where: { organizationId: org.id } });
+    const mine = content.filter(([part]) => devices.some((d) => d.partNumber === part));
+    if (mine.length === 0) continue;
+    const session = await signIn((await userOf(org.slug, "engineer")).email);
+    for (const [part, sheet] of mine) {
+      const id = devices.find((d) => d.partNumber === part)!.id;
+      await call(session, "PUT", `/api/devices/${id}/spec-limits`, { limits: sheet.limits }, 200);
+      await call(session, "PUT", `/api/devices/${id}/sheet-content`, { prose: sheet.prose, absoluteMaximumRatings: sheet.absoluteMaximumRatings, measurementUncertainty: sheet.measurementUncertainty }, 200);
+      sheets++;
+    }
+  }
+
   await sequelize.query("INSERT INTO octavo_seeds (name) VALUES (?)", { replacements: [marker] });
-  console.error(`[octavo] demo measurements: ${uploads.length} files uploaded through the bench API, ${[...toApprove.values()].flat().length} approved`);
+  console.error(
+    `[octavo] demo measurements: ${demoUploads.length} files uploaded through the bench API, ${[...toApprove.values()].flat().length} approved; ` +
+      `${instrumentIds.size} instruments; ${sheets} sheets with limits and prose`,
+  );
 }
 
 main()

@@ -109,12 +109,13 @@ test("engineer: a limit entered in the editor is judged (Cpk and flags), then ta
   await page.goto(`/sheets/${id}`);
   await openTab(page, "Spec limits", "spec-limits-editor");
   const editor = page.getByTestId("spec-limits-editor");
-  const line = editor.getByTestId("limit-row").first();
+  // The demo sheet states only a typical optimum drive: a line with no min or max, put back as found.
+  const line = editor.getByTestId("limit-row").filter({ hasText: "Optimum drive" }).first();
   const max = line.getByRole("textbox", { name: /^max / });
-  // Only a line nobody has limited is used, so putting it back is clearing it.
+  const typ = line.getByRole("textbox", { name: /^typ / });
   await expect(line.getByRole("textbox", { name: /^min / })).toHaveValue("");
-  await expect(line.getByRole("textbox", { name: /^typ / })).toHaveValue("");
   await expect(max).toHaveValue("");
+  const typBefore = await typ.inputValue();
   const statistics = line.getByTestId("limit-statistics");
   const minText = (await statistics.locator("dt", { hasText: /^min$/ }).locator("xpath=following-sibling::dd[1]").textContent())!;
 
@@ -129,7 +130,7 @@ test("engineer: a limit entered in the editor is judged (Cpk and flags), then ta
     await expect(statistics.locator("dd").last()).toHaveText(/^\u2212\d/);
 
     await page.getByRole("tab", { name: "Preview" }).click();
-    await page.getByTestId("spec-data-table").getByTestId("spec-data-button").first().click();
+    await page.getByTestId("spec-data-table").getByRole("button", { name: /^Data for Optimum drive/ }).first().click();
     const panel = page.getByTestId("statistics-panel");
     await expect(panel.getByTestId("panel-cpk")).toContainText("below the threshold");
     await expect(panel.getByTestId("panel-units")).toContainText("fail");
@@ -143,6 +144,7 @@ test("engineer: a limit entered in the editor is judged (Cpk and flags), then ta
     await line.getByRole("textbox", { name: /^min / }).fill("");
   } finally {
     await max.fill("");
+    await typ.fill(typBefore);
     await editor.getByRole("button", { name: "Save limits" }).click();
     await expect(editor.getByRole("status").filter({ hasText: "Saved" })).toBeVisible();
   }

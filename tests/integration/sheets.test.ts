@@ -31,6 +31,33 @@ async function sheet(client: TestClient): Promise<SheetModel> {
   return ((await r.json()) as { sheet: SheetModel }).sheet;
 }
 
+describe("the demo devices' sheets, as the server builds them", () => {
+  it("equal the reviewed snapshots of the unit tests (same parse, derivation and statistics through the database)", async () => {
+    const { readFileSync } = await import("node:fs");
+    const path = await import("node:path");
+    const { serializeSheetModel } = await import("@/lib/sheet");
+    const { demoOrganizations } = await import("@/models/seeders/demo-scenario");
+    for (const org of demoOrganizations) {
+      if (org.devices.length === 0) continue;
+      const organization = await Organization.findOne({ where: { slug: org.slug } });
+      const engineerOfOrg = (await User.findOne({ where: { organizationId: organization!.id, role: "engineer" } }))!;
+      const client = new TestClient();
+      expect((await client.signIn(engineerOfOrg.email, demoPassword)).ok).toBe(true);
+      for (const device of org.devices) {
+        const id = (await Device.findOne({ where: { organizationId: organization!.id, partNumber: device.partNumber } }))!.id;
+        const r = await client.request(`/api/devices/${id}/sheet`);
+        expect(r.status).toBe(200);
+        const model = ((await r.json()) as { sheet: SheetModel }).sheet;
+        // The server dates a draft today; the snapshots were built for 2026-12-01.
+        model.header.date = "2026-12-01";
+        const built = `${JSON.stringify(JSON.parse(serializeSheetModel(model)), null, 1)}\n`;
+        const recorded = readFileSync(path.resolve(__dirname, `../unit/sheet/__snapshots__/demo-${device.partNumber}.json`), "utf8");
+        expect(built, device.partNumber).toBe(recorded);
+      }
+    }
+  });
+});
+
 describe("the draft sheet of a demo device", () => {
   it("is built from the approved demo sets, marked preliminary", async () => {
     const model = await sheet(engineer);

@@ -5,10 +5,10 @@ import { deriveParameters } from "@/lib/analysis";
 import { AppError } from "@/lib/errors";
 import { isIngestError, parseMeasurementFile, type ParsedMeasurement } from "@/lib/ingest";
 import { mappingTargets, parseMappedFile, readForeignTable, type MappableKind } from "@/lib/ingest/column-mapping";
+import { mergeUploadConditions, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
 import type { UploadFields } from "@/lib/schemas/measurements";
 import { ColumnMapping, Device, Instrument, MeasurementSet, MeasurementSetInstrument, StoredFile, getSequelize } from "@/models";
 import { headerSignature } from "../column-mappings/save-column-mapping";
-import type { MeasurementConditions } from "@/models/measurement-set";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { loadMeasurementSets } from "./load-measurement-sets";
 import type { MeasurementSetSummary } from "./measurement-set-summary";
@@ -93,49 +93,6 @@ export async function parseUpload(opts: { organizationId: number; file: Uploaded
   }
 }
 
-/** Conditions from the file's own metadata, filled in (never overridden) by what the engineer stated. */
-function mergeConditions(parsed: ParsedMeasurement, fields: UploadFields, warnings: string[]): MeasurementConditions {
-  const fromFile: Partial<MeasurementConditions> = {};
-  if (parsed.kind !== "touchstone") {
-    const d = parsed.data;
-    if (d.serial) fromFile.serial = d.serial;
-    if (d.lot) fromFile.lot = d.lot;
-    if (d.temperatureC !== undefined) fromFile.temperatureC = d.temperatureC;
-    if (parsed.kind === "drive-sweep") {
-      fromFile.inputFrequencyHz = parsed.data.inputFrequencyHz;
-      fromFile.splitterExcessLossDb = parsed.data.splitterExcessLossDb;
-      fromFile.cableLossDb = parsed.data.cableLossDb;
-    }
-    if ((parsed.kind === "frequency-sweep" || parsed.kind === "two-tone") && parsed.data.loPowerDbm !== undefined) {
-      fromFile.driveLevelDbm = parsed.data.loPowerDbm;
-    }
-  }
-  const stated: Partial<MeasurementConditions> = {
-    serial: fields.serial || undefined,
-    lot: fields.lot || undefined,
-    temperatureC: fields.temperatureC,
-    inputFrequencyHz: fields.inputFrequencyHz,
-    driveLevelDbm: fields.driveLevelDbm,
-    splitterExcessLossDb: fields.splitterExcessLossDb,
-    cableLossDb: fields.cableLossDb,
-    notes: fields.notes || undefined,
-  };
-  const merged: Record<string, unknown> = {};
-  for (const key of Object.keys(stated) as (keyof MeasurementConditions)[]) {
-    const f = fromFile[key];
-    const s = stated[key];
-    if (f !== undefined && s !== undefined && String(f) !== String(s)) {
-      warnings.push(`${key}: the file says ${f}, the form said ${s}; the file's value is kept`);
-    }
-    merged[key] = f ?? s;
-  }
-  for (const key of Object.keys(fromFile) as (keyof MeasurementConditions)[]) merged[key] ??= fromFile[key];
-  if (!merged.serial) {
-    throw new AppError("invalid", 'State the unit serial: the file has no "# serial:" line and the form gave none.', { field: "serial" });
-  }
-  return Object.fromEntries(Object.entries(merged).filter(([, v]) => v !== undefined)) as MeasurementConditions;
-}
-
 /**
  * Parse → derive → store, in one transaction: the raw bytes with their SHA-256, the parsed
  * data, the derived parameters and the audit event. A bad file leaves nothing behind.
@@ -149,11 +106,11 @@ export async function ingestMeasurement(input: IngestInput): Promise<Measurement
 
   const parsed = await parseUpload({ organizationId, file, fields });
   const warnings = [...parsed.warnings];
-  const conditions = mergeConditions(parsed, fields, warnings);
+  const conditions = mergeUploadConditions(parsed, fields, warnings);
   const derived = deriveParameters(parsed);
   warnings.push(...derived.warnings);
   const sha256 = createHash("sha256").update(file.bytes).digest("hex");
-  const measuredOn = fields.measuredOn ?? (parsed.kind !== "touchstone" ? isoDateOrNull(parsed.data.metadata?.date) : null) ?? new Date().toISOString().slice(0, 10);
+  const measuredOn = uploadMeasuredOn(parsed, fields) ?? new Date().toISOString().slice(0, 10);
 
   try {
     const id = await sequelize.transaction(async (transaction) => {
@@ -241,8 +198,3 @@ export async function ingestMeasurement(input: IngestInput): Promise<Measurement
     throw error;
   }
 }
-
-function isoDateOrNull(value: string | undefined): string | null {
-  return value && /^\d{4}-\d{2}-\d{2}$/.test(value.trim()) ? value.trim() : null;
-}
-

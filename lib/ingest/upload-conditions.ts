@@ -1,0 +1,65 @@
+import { AppError } from "../errors";
+import type { UploadFields } from "../schemas/measurements";
+import type { ParsedMeasurement } from "./types";
+
+/** The conditions a measurement set is filed under: the unit, and what it was measured at. */
+export type MeasurementConditions = {
+  serial: string;
+  lot?: string;
+  temperatureC?: number;
+  inputFrequencyHz?: number;
+  driveLevelDbm?: number;
+  splitterExcessLossDb?: number;
+  cableLossDb?: number;
+  notes?: string;
+};
+
+/** Conditions from the file's own metadata, filled in (never overridden) by what the engineer stated. */
+export function mergeUploadConditions(parsed: ParsedMeasurement, fields: UploadFields, warnings: string[]): MeasurementConditions {
+  const fromFile: Partial<MeasurementConditions> = {};
+  if (parsed.kind !== "touchstone") {
+    const d = parsed.data;
+    if (d.serial) fromFile.serial = d.serial;
+    if (d.lot) fromFile.lot = d.lot;
+    if (d.temperatureC !== undefined) fromFile.temperatureC = d.temperatureC;
+    if (parsed.kind === "drive-sweep") {
+      fromFile.inputFrequencyHz = parsed.data.inputFrequencyHz;
+      fromFile.splitterExcessLossDb = parsed.data.splitterExcessLossDb;
+      fromFile.cableLossDb = parsed.data.cableLossDb;
+    }
+    if ((parsed.kind === "frequency-sweep" || parsed.kind === "two-tone") && parsed.data.loPowerDbm !== undefined) {
+      fromFile.driveLevelDbm = parsed.data.loPowerDbm;
+    }
+  }
+  const stated: Partial<MeasurementConditions> = {
+    serial: fields.serial || undefined,
+    lot: fields.lot || undefined,
+    temperatureC: fields.temperatureC,
+    inputFrequencyHz: fields.inputFrequencyHz,
+    driveLevelDbm: fields.driveLevelDbm,
+    splitterExcessLossDb: fields.splitterExcessLossDb,
+    cableLossDb: fields.cableLossDb,
+    notes: fields.notes || undefined,
+  };
+  const merged: Record<string, unknown> = {};
+  for (const key of Object.keys(stated) as (keyof MeasurementConditions)[]) {
+    const f = fromFile[key];
+    const s = stated[key];
+    if (f !== undefined && s !== undefined && String(f) !== String(s)) {
+      warnings.push(`${key}: the file says ${f}, the form said ${s}; the file's value is kept`);
+    }
+    merged[key] = f ?? s;
+  }
+  for (const key of Object.keys(fromFile) as (keyof MeasurementConditions)[]) merged[key] ??= fromFile[key];
+  if (!merged.serial) {
+    throw new AppError("invalid", 'State the unit serial: the file has no "# serial:" line and the form gave none.', { field: "serial" });
+  }
+  return Object.fromEntries(Object.entries(merged).filter(([, v]) => v !== undefined)) as MeasurementConditions;
+}
+
+/** The measurement date an upload states, else the file's own `# date:` line (YYYY-MM-DD); null if neither. */
+export function uploadMeasuredOn(parsed: ParsedMeasurement, fields: Pick<UploadFields, "measuredOn">): string | null {
+  if (fields.measuredOn) return fields.measuredOn;
+  const date = parsed.kind !== "touchstone" ? parsed.data.metadata?.date?.trim() : undefined;
+  return date && /^\d{4}-\d{2}-\d{2}$/.test(date) ? date : null;
+}

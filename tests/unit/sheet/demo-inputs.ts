@@ -1,0 +1,56 @@
+import { deriveParameters } from "@/lib/analysis";
+import { parseMeasurementFile } from "@/lib/ingest";
+import { mergeUploadConditions, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
+import { uploadFieldsSchema } from "@/lib/schemas/measurements";
+import type { ApprovedSetInput, SheetInput } from "@/lib/sheet";
+import { demoInstruments, demoUploads } from "@/models/seeders/demo-measurements";
+import { demoOrganizations } from "@/models/seeders/demo-scenario";
+import { demoSheets } from "@/models/seeders/demo-sheets";
+
+/**
+ * The sheet input each demo device gets on a fresh database, built without one: the demo files
+ * go through the same parser, condition merge and derivation as an upload, set ids follow the
+ * upload order (as auto-increment ids do on a fresh database), and the demo sheet content is
+ * what the demo loader saves. Organization settings are the defaults of the organizations table.
+ */
+export function demoSheetInputs(date: string): { partNumber: string; input: SheetInput }[] {
+  const setsByPart = new Map<string, ApprovedSetInput[]>();
+  demoUploads.forEach((upload, index) => {
+    const fields = uploadFieldsSchema.parse(upload.fields);
+    const parsed = parseMeasurementFile({ fileName: upload.file, bytes: new Uint8Array(upload.bytes()) });
+    const conditions = mergeUploadConditions(parsed, fields, []);
+    const derived = JSON.parse(JSON.stringify(deriveParameters(parsed))) as ReturnType<typeof deriveParameters>;
+    if (!upload.approve) return;
+    const instruments = upload.instruments.map((key) => demoInstruments[upload.org].find((i) => i.key === key)!);
+    const sets = setsByPart.get(upload.part) ?? [];
+    sets.push({
+      id: index + 1,
+      kind: parsed.kind,
+      serial: conditions.serial,
+      lot: conditions.lot,
+      temperatureC: conditions.temperatureC,
+      measuredOn: uploadMeasuredOn(parsed, fields) ?? date,
+      parameters: derived.parameters,
+      curves: derived.curves,
+      instruments: instruments.map(({ kind, model, serial, calibratedOn, calibrationDueOn, uncertainty }) => ({ kind, model, serial, calibratedOn, calibrationDueOn, uncertainty })),
+    });
+    setsByPart.set(upload.part, sets);
+  });
+  return demoOrganizations.flatMap((org) =>
+    org.devices.map((device) => {
+      const content = demoSheets[device.partNumber];
+      return {
+        partNumber: device.partNumber,
+        input: {
+          device: { ...device, organizationName: org.name },
+          revision: { label: null, state: "draft", date, history: [] },
+          approvedSets: setsByPart.get(device.partNumber) ?? [],
+          limits: content?.limits ?? [],
+          prose: content?.prose ?? {},
+          absoluteMaximumRatings: content?.absoluteMaximumRatings ?? [],
+          settings: { cpkThreshold: 1.33, toleranceCoverage: 0.99, toleranceConfidence: 0.95, measurementUncertainty: content?.measurementUncertainty ?? {} },
+        },
+      };
+    }),
+  );
+}
