@@ -1,4 +1,6 @@
 import type { SheetModel } from "@/lib/sheet/types";
+import { NoDataNotice } from "./no-data-notice";
+import { Notation } from "./notation";
 import { SheetHeading } from "./sheet-heading";
 
 export function SheetTraceability({ model }: { model: SheetModel }) {
@@ -11,6 +13,9 @@ export function SheetTraceability({ model }: { model: SheetModel }) {
           <p key={i}>{statement}</p>
         ))}
       </div>
+      {model.noDataNotice ? (
+        <NoDataNotice text={model.noDataNotice} />
+      ) : (
       <div className="mt-4 overflow-x-auto">
         <table className="sheet-table">
           <caption>Instruments</caption>
@@ -49,6 +54,8 @@ export function SheetTraceability({ model }: { model: SheetModel }) {
           </tbody>
         </table>
       </div>
+      )}
+      {model.noDataNotice ? null : (
       <div className="mt-6 overflow-x-auto">
         <table className="sheet-table">
           <caption>Approved measurement sets</caption>
@@ -82,6 +89,7 @@ export function SheetTraceability({ model }: { model: SheetModel }) {
           </tbody>
         </table>
       </div>
+      )}
     </section>
   );
 }
@@ -93,6 +101,9 @@ export function SheetStatistics({ model }: { model: SheetModel }) {
     <section aria-labelledby="sheet-statistics" className="mt-10">
       <SheetHeading id="sheet-statistics">Statistics annex</SheetHeading>
       <p className="max-w-prose">{statistics.method}</p>
+      {model.noDataNotice ? (
+        <NoDataNotice text={model.noDataNotice} />
+      ) : (
       <div className="mt-4 overflow-x-auto">
         <table className="sheet-table">
           <thead>
@@ -111,7 +122,9 @@ export function SheetStatistics({ model }: { model: SheetModel }) {
                 <th scope="row">
                   {g.label} <span className="unit">({g.unit})</span>
                   {!g.supported ? <span className="ml-1 font-semibold text-signal">!</span> : null}
-                  <div className="text-sm text-ink-muted">{g.conditionsText}</div>
+                  <div className="text-sm text-ink-muted">
+                    <Notation text={g.conditionsText} />
+                  </div>
                 </th>
                 <td className="num figure">{g.n}</td>
                 <td className="num figure">{g.mean.text}</td>
@@ -129,6 +142,7 @@ export function SheetStatistics({ model }: { model: SheetModel }) {
           </tbody>
         </table>
       </div>
+      )}
       {flagged.length > 0 ? (
         <div className="sheet-keep mt-6">
           <h3 className="font-semibold">Limits the data do not support</h3>
@@ -136,7 +150,7 @@ export function SheetStatistics({ model }: { model: SheetModel }) {
             {flagged.map((g) => (
               <li key={g.groupId} className="border-l-2 border-signal pl-3">
                 <span className="font-semibold">
-                  {g.label}, {g.conditionsText}:
+                  {g.label}, <Notation text={g.conditionsText} />:
                 </span>{" "}
                 {g.flags.map((f) => f.message).join(" ")}
                 {g.units.some((u) => u.decision === "fail") ? (

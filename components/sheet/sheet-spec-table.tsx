@@ -1,3 +1,5 @@
+import { NoDataNotice } from "./no-data-notice";
+import { Notation } from "./notation";
 import { SheetHeading } from "./sheet-heading";
 import type { SheetModel } from "@/lib/sheet/types";
 
@@ -9,7 +11,7 @@ export function SpecHeadCells({ columns }: { columns: SheetModel["specifications
       <th scope="col">Symbol</th>
       {columns.map((column) => (
         <th key={column.id} scope="col">
-          <ConditionLabel label={column.label} />
+          <Notation text={column.label} />
         </th>
       ))}
       <th scope="col" className="num">
@@ -27,25 +29,15 @@ export function SpecHeadCells({ columns }: { columns: SheetModel["specifications
   );
 }
 
-/** "T_A" → T<sub>A</sub>: the templates' notation for a subscript. */
-export function ConditionLabel({ label }: { label: string }) {
-  const [main, sub] = label.split("_");
-  return sub ? (
-    <>
-      {main}
-      <sub>{sub}</sub>
-    </>
-  ) : (
-    <>{label}</>
-  );
-}
-
 export function SheetSpecTable({ model }: { model: SheetModel }) {
   const { specifications } = model;
   const legend = new Map(specifications.basisLegend.map((b) => [b.mark, b.text]));
   return (
     <section aria-labelledby="sheet-specifications" className="mt-10">
       <SheetHeading id="sheet-specifications">Electrical specifications</SheetHeading>
+      {specifications.rows.length === 0 && model.noDataNotice ? (
+        <NoDataNotice text={model.noDataNotice} />
+      ) : (
       <div className="overflow-x-auto">
         <table className="sheet-table">
           <thead>
@@ -56,7 +48,7 @@ export function SheetSpecTable({ model }: { model: SheetModel }) {
           <tbody>
             {specifications.rows.map((row) => (
               <tr key={row.groupId}>
-                <th scope="row">
+                <th scope="row" className="min-w-[9rem]">
                   {row.label}
                   {row.footnoteMarks.map((mark) => (
                     <sup key={mark} className="ml-0.5 text-ink-muted">
@@ -71,7 +63,9 @@ export function SheetSpecTable({ model }: { model: SheetModel }) {
                     </span>
                   ) : null}
                 </th>
-                <td className="whitespace-nowrap">{row.symbol}</td>
+                <td className="whitespace-nowrap">
+                  <Notation text={row.symbol} />
+                </td>
                 {row.conditions.map((cell, i) => (
                   <td key={i} className="figure whitespace-nowrap">
                     {cell}
@@ -91,9 +85,12 @@ export function SheetSpecTable({ model }: { model: SheetModel }) {
           </tbody>
         </table>
       </div>
+      )}
       <div className="mt-3 space-y-1 text-sm text-ink-muted">
         {specifications.notes.map((note, i) => (
-          <p key={i}>{note}</p>
+          <p key={i}>
+            <Notation text={note} />
+          </p>
         ))}
         <dl className="flex flex-wrap gap-x-5 gap-y-1">
           {specifications.basisLegend.map((entry) => (

@@ -104,7 +104,7 @@ export function SheetWorkspace({ deviceId, canEdit, model, content, template, ap
       <style>{printSheetOnly}</style>
       <div className="print:hidden">
         <PageHeader
-          runningHead={[header.organizationName, header.deviceClassLabel, header.revisionText === header.stateLabel ? header.revisionText : `${header.revisionText}, ${header.stateLabel.toLowerCase()}`].join(" · ")}
+          runningHead={[header.organizationName, header.deviceClassLabel, `${header.revisionText}, ${header.stateLabel.toLowerCase()}`].join(" · ")}
           title={`${header.partNumber} — sheet draft`}
           lead={
             <>

@@ -1,5 +1,7 @@
 "use client";
 
+import { Notation } from "@/components/sheet/notation";
+
 import type { StatisticsGroup } from "@/lib/sheet/types";
 import { SpecHeadCells } from "@/components/sheet/sheet-spec-table";
 import type { WorkspaceModel } from "./workspace-types";
@@ -80,7 +82,9 @@ export function SpecDataTable({ model, openGroupId, onOpen }: SpecDataTableProps
                     </span>
                   ) : null}
                 </th>
-                <td className="whitespace-nowrap">{row.symbol}</td>
+                <td className="whitespace-nowrap">
+                  <Notation text={row.symbol} />
+                </td>
                 {row.conditions.map((c, i) => (
                   <td key={i} className="figure whitespace-nowrap">
                     {c}

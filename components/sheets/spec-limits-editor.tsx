@@ -7,7 +7,7 @@ import { formatNumber } from "@/components/format-quantity";
 import { buttonClass } from "@/components/ui/button";
 import { selectClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { ConditionsText } from "./conditions-text";
+import { Notation } from "@/components/sheet/notation";
 import { FlagList } from "./flag-list";
 import { figureInputText, parseFigure } from "./parse-figure";
 import type { WorkspaceModel } from "./workspace-types";
@@ -212,7 +212,7 @@ export function SpecLimitsEditor({ deviceId, model, limits, onSaved }: SpecLimit
                 className={`grid gap-x-6 gap-y-3 border-b border-rule py-3 lg:grid-cols-[minmax(11rem,1fr)_minmax(26rem,2.2fr)_minmax(15rem,1.4fr)] ${errors ? "bg-signal-wash/50" : ""}`}
               >
                 <div>
-                  <p className="font-semibold">{row.conditionsText ? <ConditionsText text={row.conditionsText} /> : "No conditions"}</p>
+                  <p className="font-semibold">{row.conditionsText ? <Notation text={row.conditionsText} /> : "No conditions"}</p>
                   <p className="text-sm text-ink-muted">
                     in <span className="unit">{row.unit}</span>
                     {dirty ? <span className="ml-2 font-semibold text-ink">· changed, not saved</span> : null}

@@ -4,7 +4,7 @@ import Link from "next/link";
 import { useEffect, useRef } from "react";
 import type { StatisticsGroup } from "@/lib/sheet/types";
 import { formatNumber } from "@/components/format-quantity";
-import { ConditionsText } from "./conditions-text";
+import { Notation } from "@/components/sheet/notation";
 import { FlagList } from "./flag-list";
 
 type StatisticsPanelProps = {
@@ -68,7 +68,7 @@ export function StatisticsPanel({ group: g, deviceId, coverage, confidence, cpkT
           <h2 id="statistics-panel-title" ref={headingRef} tabIndex={-1} className="mt-1 text-xl font-semibold leading-tight outline-none">
             {g.label} <span className="font-normal text-ink-muted">({g.symbol})</span>
           </h2>
-          <p className="mt-1 text-sm text-ink-muted">{g.conditionsText ? <ConditionsText text={g.conditionsText} /> : "No conditions"}</p>
+          <p className="mt-1 text-sm text-ink-muted">{g.conditionsText ? <Notation text={g.conditionsText} /> : "No conditions"}</p>
         </div>
         <button type="button" onClick={onClose} className="rounded border border-rule-strong px-2 py-1 text-sm font-semibold hover:border-signal">
           Close<span className="sr-only"> the data panel</span>

@@ -203,7 +203,7 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
       organizationName: input.device.organizationName,
       deviceClassLabel: template.label,
       description: input.device.description,
-      revisionText: revisionLabel ? `Rev. ${revisionLabel}` : "Draft",
+      revisionText: revisionLabel ? `Rev. ${revisionLabel}` : "Unreleased",
       revisionLabel,
       state: input.revision.state,
       stateLabel: STATE_LABELS[input.revision.state],
@@ -212,6 +212,10 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
       banner: released ? null : PRELIMINARY_BANNER,
     },
     keyFacts: buildKeyFacts(input.device.keyConditions),
+    noDataNotice:
+      sets.length === 0
+        ? "No measurement set of this device has been approved yet. The electrical specifications, the charts, the traceability and the statistics fill in once a reviewer approves measurements."
+        : null,
     specifications: {
       conditionColumns: template.specifications.conditionColumns.map(({ id, label }) => ({ id, label })),
       rows,

@@ -3,3 +3,4 @@ export { buildSheetModel, PRELIMINARY_BANNER, type BuildSheetModelOptions } from
 export { serializeSheetModel } from "./serialize";
 export { renderProse, proseToPlainText, type RenderedProse } from "./render-prose";
 export { makeConditionsKey, parseConditionsKey } from "./conditions";
+export { notationSegments, type NotationSegment } from "./notation";

@@ -225,7 +225,7 @@ export interface SheetModel {
     organizationName: string;
     deviceClassLabel: string;
     description: string;
-    /** "Rev. B", or "Draft" before release. */
+    /** "Rev. B", or "Unreleased" before a revision letter is given at release. */
     revisionText: string;
     revisionLabel: string | null;
     state: RevisionState;
@@ -236,6 +236,11 @@ export interface SheetModel {
     banner: string | null;
   };
   keyFacts: { label: string; value: string; unit: string }[];
+  /**
+   * Said where the tables would be when no approved measurement set feeds the sheet yet
+   * (the specifications, the traceability and the annex); null once data exist.
+   */
+  noDataNotice: string | null;
   specifications: {
     conditionColumns: { id: string; label: string }[];
     rows: SpecTableRow[];

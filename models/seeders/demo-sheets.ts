@@ -135,9 +135,16 @@ export const demoSheets: Record<string, DemoSheetContent> = {
     "- +13 dBm LO drive\n- 10–3000 MHz RF and LO",
     [{ label: "RF input power", value: "+20", unit: "dBm" }, { label: "LO input power", value: "+23", unit: "dBm" }, { label: "IF current", value: "50", unit: "mA" }, ...temperatures("−40 to +85", "−55 to +100"), esd("1A")],
   ),
-  "PS-2W": shell(
-    "The **PS-2W** splits 0.5–3 GHz into two in-phase outputs. Its first measurement set is waiting for review.",
-    "- In-phase (0°) two-way split\n- Resistive-reactive design for wide bandwidth",
-    [{ label: "Input power, CW", value: "1", unit: "W" }, ...temperatures("−55 to +85", "−55 to +125"), esd("2")],
-  ),
+  "PS-2W": {
+    ...shell(
+      "The **PS-2W** splits 0.5–3 GHz into two in-phase outputs. Its first measurement set is waiting for review.",
+      "- In-phase (0°) two-way split\n- Resistive-reactive design for wide bandwidth",
+      [{ label: "Input power, CW", value: "1", unit: "W" }, ...temperatures("−55 to +85", "−55 to +125"), esd("2")],
+    ),
+    prose: {
+      description: "The **PS-2W** splits 0.5–3 GHz into two in-phase outputs. Its first measurement set is waiting for review.",
+      features: "- In-phase (0°) two-way split\n- Resistive-reactive design for wide bandwidth",
+      applications: "- Local-oscillator distribution\n- Feeding both ports of a mixer used as a doubler\n- Power combining",
+    },
+  },
 };

@@ -20,7 +20,7 @@ function bandRow(row: Omit<SpecRowTemplate, "groupBy">): SpecRowTemplate {
 /** 90° hybrids from 4-port Touchstone files (ports: 1 in, 2 through, 3 coupled, 4 isolated). */
 export const quadratureHybridTemplate: SheetTemplate = {
   deviceClass: "quadrature-hybrid",
-  label: "Quadrature hybrid",
+  label: "Quadrature hybrid or power splitter",
   measurementKinds: ["touchstone"],
   specifications: {
     conditionColumns: [

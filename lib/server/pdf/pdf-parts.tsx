@@ -2,6 +2,7 @@ import "server-only";
 import { Link, StyleSheet, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
 import { tokens } from "../../../tailwind.config";
+import { notationSegments } from "../../sheet/notation";
 import type { ProseBlock, ProseInline } from "../../sheet/types";
 import { MONO_FAMILY, SANS_FAMILY } from "./fonts";
 
@@ -55,14 +56,20 @@ export interface Column {
 /** A cell is one line, or several lines given as an array (never "\n" inside a Text: the line break falls back to Helvetica). */
 export type Cell = ReactNode | ReactNode[];
 
-function HeadLabel({ label }: { label: string }) {
-  // "T_A" → T with a lowered, smaller A: the sheet's notation for subscripts.
-  const [main, sub] = label.split("_");
-  if (!sub) return <>{label}</>;
+/** A model string in the sheet's notation ("T_A", "P_opt"): the subscript set smaller (lib/sheet/notation.ts). */
+export function PdfNotation({ text, subSize = 5.6 }: { text: string; subSize?: number }) {
   return (
     <>
-      {main}
-      <Text style={{ fontSize: 5.2 }}>{sub}</Text>
+      {notationSegments(text).map((segment, i) =>
+        segment.sub === undefined ? (
+          segment.text
+        ) : (
+          <Text key={i}>
+            {segment.text}
+            <Text style={{ fontSize: subSize, verticalAlign: "sub" }}>{segment.sub}</Text>
+          </Text>
+        ),
+      )}
     </>
   );
 }
@@ -73,7 +80,7 @@ export function PdfTable({ columns, rows }: { columns: Column[]; rows: Cell[][] 
       <View style={styles.headRow} fixed>
         {columns.map((column, i) => (
           <Text key={i} style={[styles.headCell, { width: column.width, textAlign: column.align ?? "left" }]}>
-            <HeadLabel label={column.header} />
+            <PdfNotation text={column.header} subSize={5.2} />
           </Text>
         ))}
       </View>

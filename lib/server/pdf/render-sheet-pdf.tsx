@@ -3,7 +3,7 @@ import { Document, Font, Image, Page, renderToBuffer, Text, View } from "@react-
 import type { ReactNode } from "react";
 import type { SheetModel, StatisticsGroup } from "../../sheet/types";
 import { fontFiles, MONO_FAMILY, SANS_FAMILY } from "./fonts";
-import { type Cell, colors, type Column, PdfProse, PdfTable, SectionHeading, styles } from "./pdf-parts";
+import { type Cell, colors, type Column, PdfNotation, PdfProse, PdfTable, SectionHeading, styles } from "./pdf-parts";
 import { renderSheetChartPngs } from "./render-chart";
 import { stampPageNumbers } from "./stamp-page-numbers";
 
@@ -52,8 +52,8 @@ const PAGE_MARGIN = 42;
 
 /**
  * One A4 page sequence with the running head and foot and, until release, the diagonal mark.
- * The sheet is several sequences (front matter, charts, traceability, annex), each starting a
- * new page: react-pdf lays out what is left of a sequence again at every page break, so one
+ * The sheet is three sequences (front matter with the charts, prose and traceability, annex),
+ * each starting a new page: react-pdf lays out what is left of a sequence again at every page break, so one
  * long sequence cost about twice the time of these shorter ones. "Page x of y" counts across all.
  */
 function SheetPage({ model, children }: { model: SheetModel; children: ReactNode }) {
@@ -118,22 +118,23 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
         <SpecificationsTable model={model} />
         <AbsoluteMaximumRatings model={model} />
         <Cautions model={model} />
-      </SheetPage>
 
-      {model.charts.length > 0 ? (
-        <SheetPage model={model}>
-          <SectionHeading>Typical performance</SectionHeading>
-          {model.charts.map((chart, i) => (
-            <View key={chart.id} wrap={false} style={{ marginBottom: 10 }}>
-              <Text style={{ fontWeight: 600, marginBottom: 2 }}>
-                Figure {i + 1}. {chart.title}
-              </Text>
-              {charts[chart.id] ? <Image src={{ data: charts[chart.id], format: "png" }} style={{ width: 400, alignSelf: "flex-start" }} /> : null}
-              <Text style={styles.small}>{chart.caption}</Text>
-            </View>
-          ))}
-        </SheetPage>
-      ) : null}
+        {/* Charts follow on: a figure is a picture and two lines, cheap to lay out again at a break. */}
+        {model.charts.length > 0 ? (
+          <View>
+            <SectionHeading>Typical performance</SectionHeading>
+            {model.charts.map((chart, i) => (
+              <View key={chart.id} wrap={false} style={{ marginBottom: 10 }}>
+                <Text style={{ fontWeight: 600, marginBottom: 2 }}>
+                  Figure {i + 1}. {chart.title}
+                </Text>
+                {charts[chart.id] ? <Image src={{ data: charts[chart.id], format: "png" }} style={{ width: 400, alignSelf: "flex-start" }} /> : null}
+                <Text style={styles.small}>{chart.caption}</Text>
+              </View>
+            ))}
+          </View>
+        ) : null}
+      </SheetPage>
 
       <SheetPage model={model}>
         {laterProse.map((section) => (
@@ -295,10 +296,10 @@ function SpecificationsTable({ model }: { model: SheetModel }) {
   const rows = specifications.rows.map((row): Cell[] => [
     <>
       {row.label}
-      {row.footnoteMarks.length > 0 ? <Text style={{ fontSize: 5.8, color: colors["ink-muted"] }}> {row.footnoteMarks.join(",")}</Text> : null}
+      {row.footnoteMarks.length > 0 ? <Text style={{ fontSize: 5.8, color: colors["ink-muted"], verticalAlign: "super" }}> {row.footnoteMarks.join(",")}</Text> : null}
       {!row.supported ? <Text style={{ color: colors.signal, fontWeight: 700 }}> !</Text> : null}
     </>,
-    row.symbol,
+    <PdfNotation text={row.symbol} />,
     ...row.conditions,
     row.min.text,
     row.typIsMeasuredMean ? <Text style={{ color: colors["ink-muted"] }}>{row.typ.text}</Text> : row.typ.text,
@@ -309,11 +310,11 @@ function SpecificationsTable({ model }: { model: SheetModel }) {
   return (
     <View>
       <SectionHeading>Electrical specifications</SectionHeading>
-      <PdfTable columns={columns} rows={rows} />
+      {rows.length === 0 && model.noDataNotice ? <PdfNoDataNotice text={model.noDataNotice} /> : <PdfTable columns={columns} rows={rows} />}
       <View style={{ marginTop: 4 }}>
         {specifications.notes.map((note, i) => (
           <Text key={i} style={styles.small}>
-            {note}
+            <PdfNotation text={note} subSize={5.4} />
           </Text>
         ))}
         <Text style={[styles.small, { marginTop: 3 }]}>
@@ -354,10 +355,10 @@ function AbsoluteMaximumRatings({ model }: { model: SheetModel }) {
 
 function Cautions({ model }: { model: SheetModel }) {
   return (
-    <View wrap={false}>
+    <View>
       <SectionHeading>Cautions</SectionHeading>
       {model.cautions.map((caution, i) => (
-        <View key={i} style={styles.listItem}>
+        <View key={i} style={styles.listItem} wrap={false}>
           <Text style={styles.bullet}>{i + 1}.</Text>
           <Text style={{ flex: 1 }}>{caution}</Text>
         </View>
@@ -376,42 +377,52 @@ function Traceability({ model }: { model: SheetModel }) {
           {statement}
         </Text>
       ))}
-      <Text style={styles.subHeading}>Instruments</Text>
-      <PdfTable
-        columns={[
-          { header: "Instrument", width: "20%" },
-          { header: "Model", width: "15%" },
-          { header: "Serial", width: "11%", mono: true },
-          { header: "Calibrated", width: "11%", mono: true },
-          { header: "Due", width: "11%", mono: true },
-          { header: "Stated uncertainty", width: "26%" },
-          { header: "Sets", width: "6%", align: "right", mono: true },
-        ]}
-        rows={traceability.instruments.map((instrument) => [
-          instrument.kind,
-          instrument.model,
-          instrument.serial,
-          instrument.calibratedOn,
-          instrument.calibrationLapsed ? <Text style={{ color: colors.signal }}>{instrument.calibrationDueOn} lapsed</Text> : instrument.calibrationDueOn,
-          instrument.uncertainty,
-          String(instrument.setCount),
-        ])}
-      />
-      <Text style={styles.subHeading}>Approved measurement sets, by unit</Text>
-      <PdfTable
-        columns={[
-          { header: "Serial", width: "14%", mono: true },
-          { header: "Lot", width: "12%", mono: true },
-          { header: "Sets: id, kind, temperature, measured on", width: "74%" },
-        ]}
-        rows={unitsOf(traceability.measurementSets).map((unit) => [
-          unit.serial,
-          unit.lot,
-          unit.sets.map((set) => `${set.id}  ${set.kind}, ${set.temperature || "temperature not stated"}, ${set.measuredOn}`),
-        ])}
-      />
+      {model.noDataNotice ? (
+        <PdfNoDataNotice text={model.noDataNotice} />
+      ) : (
+        <>
+          <Text style={styles.subHeading}>Instruments</Text>
+          <PdfTable
+            columns={[
+              { header: "Instrument", width: "20%" },
+              { header: "Model", width: "15%" },
+              { header: "Serial", width: "11%", mono: true },
+              { header: "Calibrated", width: "11%", mono: true },
+              { header: "Due", width: "11%", mono: true },
+              { header: "Stated uncertainty", width: "26%" },
+              { header: "Sets", width: "6%", align: "right", mono: true },
+            ]}
+            rows={traceability.instruments.map((instrument) => [
+              instrument.kind,
+              instrument.model,
+              instrument.serial,
+              instrument.calibratedOn,
+              instrument.calibrationLapsed ? <Text style={{ color: colors.signal }}>{instrument.calibrationDueOn} lapsed</Text> : instrument.calibrationDueOn,
+              instrument.uncertainty,
+              String(instrument.setCount),
+            ])}
+          />
+          <Text style={styles.subHeading}>Approved measurement sets, by unit</Text>
+          <PdfTable
+            columns={[
+              { header: "Serial", width: "14%", mono: true },
+              { header: "Lot", width: "12%", mono: true },
+              { header: "Sets: id, kind, temperature, measured on", width: "74%" },
+            ]}
+            rows={unitsOf(traceability.measurementSets).map((unit) => [
+              unit.serial,
+              unit.lot,
+              unit.sets.map((set) => `${set.id}  ${set.kind}, ${set.temperature || "temperature not stated"}, ${set.measuredOn}`),
+            ])}
+          />
+        </>
+      )}
     </View>
   );
+}
+
+function PdfNoDataNotice({ text }: { text: string }) {
+  return <Text style={{ marginTop: 4, paddingLeft: 6, borderLeftWidth: 1.5, borderLeftColor: colors["rule-strong"], color: colors["ink-muted"] }}>{text}</Text>;
 }
 
 function unitsOf(sets: SheetModel["traceability"]["measurementSets"]) {
@@ -446,7 +457,9 @@ function StatisticsAnnex({ model }: { model: SheetModel }) {
       <>
         {g.label} <Text style={{ color: colors["ink-muted"] }}>({g.unit})</Text>
       </>,
-      <Text style={{ color: colors["ink-muted"], fontSize: 6.8 }}>{g.conditionsText}</Text>,
+      <Text style={{ color: colors["ink-muted"], fontSize: 6.8 }}>
+        <PdfNotation text={g.conditionsText} subSize={5} />
+      </Text>,
     ],
     String(g.n),
     g.mean.text,
@@ -464,7 +477,7 @@ function StatisticsAnnex({ model }: { model: SheetModel }) {
     <View>
       <SectionHeading>Statistics annex</SectionHeading>
       <Text style={styles.paragraph}>{statistics.method}</Text>
-      <PdfTable columns={columns} rows={rows} />
+      {model.noDataNotice ? <PdfNoDataNotice text={model.noDataNotice} /> : <PdfTable columns={columns} rows={rows} />}
       {flagged.length > 0 ? (
         <View>
           <Text style={styles.subHeading}>Limits the data do not support</Text>
@@ -473,7 +486,7 @@ function StatisticsAnnex({ model }: { model: SheetModel }) {
               <Text style={[styles.bullet, { color: colors.signal }]}>!</Text>
               <Text style={{ flex: 1 }}>
                 <Text style={{ fontWeight: 600 }}>
-                  {g.label}, {g.conditionsText}:
+                  {g.label}, <PdfNotation text={g.conditionsText} />:
                 </Text>{" "}
                 {g.flags.map((f) => f.message).join(" ")}
               </Text>

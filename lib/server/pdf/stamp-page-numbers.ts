@@ -1,6 +1,9 @@
 import "server-only";
+import { EventEmitter } from "node:events";
 import { readFileSync } from "node:fs";
-import fontkit from "@pdf-lib/fontkit";
+// fontkit 2 (react-pdf's own) has no type declarations.
+// @ts-expect-error no types
+import * as fontkit from "fontkit";
 import { PDFArray, PDFDict, PDFDocument, PDFName, rgb } from "pdf-lib";
 
 export interface PageNumberStyle {
@@ -22,6 +25,39 @@ const SUBSET_TAG = "OCTPGN";
 
 const fontBytes = new Map<string, Uint8Array>();
 
+type Subset = { encode(): Uint8Array; encodeStream?: () => EventEmitter };
+type FontkitFont = { createSubset(): Subset };
+
+/**
+ * pdf-lib lays out and subsets text with a fontkit it is given. Its usual companion package
+ * drew the wrong glyphs from Source Sans 3's subset (checked with pdftoppm), so it gets
+ * fontkit 2, the one react-pdf embeds with, and the one method it expects of fontkit 1:
+ * `encodeStream()` on a subset, served from fontkit 2's `encode()`.
+ */
+const fontkitForPdfLib = {
+  create(data: Uint8Array) {
+    const font = (fontkit as { create(data: Buffer): FontkitFont }).create(Buffer.from(data));
+    const createSubset = font.createSubset.bind(font);
+    font.createSubset = () => {
+      const subset = createSubset();
+      subset.encodeStream = () => {
+        const stream = new EventEmitter();
+        queueMicrotask(() => {
+          try {
+            stream.emit("data", subset.encode());
+            stream.emit("end");
+          } catch (error) {
+            stream.emit("error", error);
+          }
+        });
+        return stream;
+      };
+      return subset;
+    };
+    return font;
+  },
+};
+
 function hexColor(hex: string) {
   const n = Number.parseInt(hex.replace("#", ""), 16);
   return rgb(((n >> 16) & 255) / 255, ((n >> 8) & 255) / 255, (n & 255) / 255);
@@ -34,7 +70,7 @@ function hexColor(hex: string) {
  */
 export async function stampPageNumbers(pdf: Uint8Array, style: PageNumberStyle): Promise<Buffer> {
   const doc = await PDFDocument.load(pdf, { updateMetadata: false });
-  doc.registerFontkit(fontkit);
+  doc.registerFontkit(fontkitForPdfLib as unknown as Parameters<typeof doc.registerFontkit>[0]);
   let bytes = fontBytes.get(style.fontFile);
   if (!bytes) fontBytes.set(style.fontFile, (bytes = readFileSync(style.fontFile)));
   const font = await doc.embedFont(bytes, { subset: true });

@@ -63,6 +63,21 @@ describe("renderSheetPdf", () => {
     // A4 is 595.28 pt wide (ISO 216); the sheet's margins are 42 pt.
     const last = words.filter((w) => Math.abs(w.yMin - page.yMin) < 0.2).sort((a, b) => b.xMax - a.xMax)[0];
     expect(last.xMax).toBeCloseTo(595.28 - 42, 1);
+
+    // The glyphs drawn are the right ones, not only the text layer: poppler rasterises the foot
+    // (2 px per pt) and the ink spans "Page … of N" from its first letter to its last figure.
+    const [x0, y0, w, h] = [Math.floor(page.xMin * 2) - 60, Math.floor(page.yMin * 2) - 4, Math.ceil((last.xMax - page.xMin) * 2) + 120, 30];
+    const pgm = execFileSync("pdftoppm", ["-r", "144", "-gray", "-f", "2", "-l", "2", "-x", String(x0), "-y", String(y0), "-W", String(w), "-H", String(h), file]);
+    const header = /^P5\s+(\d+)\s+(\d+)\s+255\s/.exec(pgm.subarray(0, 40).toString("latin1"))!;
+    const [width, height] = [Number(header[1]), Number(header[2])];
+    const pixels = pgm.subarray(header[0].length);
+    const inked: number[] = [];
+    for (let x = 0; x < width; x++) {
+      for (let y = 0; y < height; y++) if (pixels[y * width + x] < 160) { inked.push(x); break; }
+    }
+    expect(inked.length).toBeGreaterThan(20);
+    expect(Math.abs(x0 + inked[0] - page.xMin * 2)).toBeLessThan(4);
+    expect(Math.abs(x0 + inked[inked.length - 1] - last.xMax * 2)).toBeLessThan(4);
   });
 
   it("carries the part number, Ω, µ and ± as text", () => {

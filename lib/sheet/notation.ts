@@ -1,0 +1,19 @@
+/**
+ * The sheet's notation for subscripts in plain strings: "T_A", "P_opt", "P_in − P_out". A word
+ * joined to letters or digits by "_" is set with those as a subscript. Both renderers draw the
+ * segments; the strings in the model stay plain text (searchable, and readable in the JSON).
+ */
+export type NotationSegment = { text: string; sub?: undefined } | { text: string; sub: string };
+
+export function notationSegments(text: string): NotationSegment[] {
+  const segments: NotationSegment[] = [];
+  const pattern = /\b([A-Za-z]+)_([A-Za-z0-9]+)\b/g;
+  let last = 0;
+  for (const match of text.matchAll(pattern)) {
+    if (match.index > last) segments.push({ text: text.slice(last, match.index) });
+    segments.push({ text: match[1], sub: match[2] });
+    last = match.index + match[0].length;
+  }
+  if (last < text.length) segments.push({ text: text.slice(last) });
+  return segments;
+}
