@@ -52,8 +52,8 @@ const PAGE_MARGIN = 42;
 
 /**
  * One A4 page sequence with the running head and foot and, until release, the diagonal mark.
- * The sheet is three sequences (front matter with the charts, prose and traceability, annex),
- * each starting a new page: react-pdf lays out what is left of a sequence again at every page break, so one
+ * The sheet is four sequences (front matter; ratings, cautions and charts; prose and
+ * traceability; annex), each starting a new page: react-pdf lays out what is left of a sequence again at every page break, so one
  * long sequence cost about twice the time of these shorter ones. "Page x of y" counts across all.
  */
 function SheetPage({ model, children }: { model: SheetModel; children: ReactNode }) {
@@ -116,11 +116,20 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
         </View>
 
         <SpecificationsTable model={model} />
-        <AbsoluteMaximumRatings model={model} />
-        <Cautions model={model} />
+        {model.charts.length === 0 ? (
+          <>
+            <AbsoluteMaximumRatings model={model} />
+            <Cautions model={model} />
+          </>
+        ) : null}
+      </SheetPage>
 
-        {/* Charts follow on: a figure is a picture and two lines, cheap to lay out again at a break. */}
-        {model.charts.length > 0 ? (
+      {/* Ratings and cautions open the charts' page sequence: one sequence carrying both the long
+          specification table and the charts cost 15 % more to lay out. */}
+      {model.charts.length > 0 ? (
+        <SheetPage model={model}>
+          <AbsoluteMaximumRatings model={model} />
+          <Cautions model={model} />
           <View>
             <SectionHeading>Typical performance</SectionHeading>
             {model.charts.map((chart, i) => (
@@ -133,8 +142,8 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
               </View>
             ))}
           </View>
-        ) : null}
-      </SheetPage>
+        </SheetPage>
+      ) : null}
 
       <SheetPage model={model}>
         {laterProse.map((section) => (
