@@ -64,6 +64,13 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
     }
   }
 
+  if (sets.length === 0) {
+    issues.push({
+      code: "no-approved-data",
+      message: `No approved ${template.measurementKinds.join(" or ")} measurement set feeds this sheet: it has no specifications, charts or statistics yet.`,
+    });
+  }
+
   const { limits, duplicateIssues } = indexLimits(input.limits);
   issues.push(...duplicateIssues);
   const usedLimits = new Set<string>();
