@@ -54,6 +54,7 @@ function initModels(sequelize: Sequelize): Sequelize {
   MeasurementSet.belongsTo(StoredFile, { foreignKey: "storedFileId" });
   MeasurementSet.belongsTo(User, { as: "uploadedBy", foreignKey: "uploadedById" });
   MeasurementSet.belongsTo(User, { as: "reviewedBy", foreignKey: "reviewedById" });
+  MeasurementSet.belongsTo(BenchToken, { as: "benchToken", foreignKey: "benchTokenId" });
   MeasurementSet.belongsToMany(Instrument, { through: MeasurementSetInstrument, foreignKey: "measurementSetId", otherKey: "instrumentId" });
   Instrument.belongsToMany(MeasurementSet, { through: MeasurementSetInstrument, foreignKey: "instrumentId", otherKey: "measurementSetId" });
   return sequelize;

@@ -57,7 +57,7 @@ export function MeasurementSetsTable({ deviceId, sets }: { deviceId: number; set
                 <StateBadge state={set.state} />
               </td>
               <td className="whitespace-nowrap text-[0.875rem]">
-                {set.uploadedBy ?? (set.source === "bench-api" ? "Bench API" : "—")}
+                {set.uploadedBy ?? (set.source === "bench-api" ? `Bench token “${set.benchTokenName ?? "removed"}”` : "—")}
                 <br />
                 <span className="figure text-ink-muted">{formatDateTime(set.createdAt)}</span>
               </td>

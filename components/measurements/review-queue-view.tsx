@@ -58,7 +58,7 @@ export function ReviewQueueView({ organizationName, sets, devices }: ReviewQueue
                         <span className="figure text-[0.875rem]">{set.fileName}</span>
                       </td>
                       <td className="whitespace-nowrap text-[0.875rem]">
-                        {set.uploadedBy ?? (set.source === "bench-api" ? "Bench API" : "—")}
+                        {set.uploadedBy ?? (set.source === "bench-api" ? `Bench token “${set.benchTokenName ?? "removed"}”` : "—")}
                         <br />
                         <span className="figure text-ink-muted">{formatDateTime(set.createdAt)}</span>
                       </td>

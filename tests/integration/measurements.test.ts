@@ -178,7 +178,8 @@ describe("instruments and bench tokens", () => {
     };
     const r = await upload();
     expect(r.status).toBe(201);
-    expect(((await r.json()) as { measurementSet: { source: string } }).measurementSet.source).toBe("bench-api");
+    const posted = ((await r.json()) as { measurementSet: { source: string; benchTokenName: string | null; uploadedBy: string | null } }).measurementSet;
+    expect(posted).toMatchObject({ source: "bench-api", benchTokenName: "Bench 3 sweep script", uploadedBy: null });
     const dup = await upload();
     expect(dup.status).toBe(409);
     const bad = await bench.request("/api/v1/measurements", {

@@ -1,6 +1,6 @@
 import "server-only";
 import type { WhereOptions } from "sequelize";
-import { Instrument, MeasurementSet, StoredFile, User, getSequelize } from "@/models";
+import { BenchToken, Instrument, MeasurementSet, StoredFile, User, getSequelize } from "@/models";
 import { toMeasurementSetSummary, type MeasurementSetSummary } from "./measurement-set-summary";
 
 /** The one query behind every list and detail of measurement sets; the caller's `where` carries the organization. */
@@ -12,6 +12,7 @@ export async function loadMeasurementSets(where: WhereOptions<MeasurementSet>): 
       { model: StoredFile, attributes: ["originalName", "sizeBytes"] },
       { model: User, as: "uploadedBy", attributes: ["name"] },
       { model: User, as: "reviewedBy", attributes: ["name"] },
+      { model: BenchToken, as: "benchToken", attributes: ["name"] },
       { model: Instrument, attributes: ["id", "kind", "model", "serial", "calibrationDueOn"], through: { attributes: ["calibrationLapsed"] } },
     ],
     order: [["createdAt", "DESC"], ["id", "DESC"]],

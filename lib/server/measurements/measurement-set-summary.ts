@@ -19,6 +19,8 @@ export type MeasurementSetSummary = {
   source: "browser" | "bench-api";
   uploadedBy: string | null;
   uploadedById: number | null;
+  /** The bench token's name for a bench-API upload (who posted it), else null. */
+  benchTokenName: string | null;
   reviewedBy: string | null;
   reviewedAt: string | null;
   rejectionReason: string | null;
@@ -31,6 +33,7 @@ export type MeasurementSetSummary = {
 type Loaded = MeasurementSet & {
   StoredFile?: { originalName: string; sizeBytes: number };
   uploadedBy?: { name: string } | null;
+  benchToken?: { name: string } | null;
   reviewedBy?: { name: string } | null;
   Instruments?: { id: number; kind: string; model: string; serial: string; calibrationDueOn: string; MeasurementSetInstrument?: { calibrationLapsed: boolean } }[];
 };
@@ -52,6 +55,7 @@ export function toMeasurementSetSummary(row: MeasurementSet): MeasurementSetSumm
     source: r.source,
     uploadedBy: r.uploadedBy?.name ?? null,
     uploadedById: r.uploadedById,
+    benchTokenName: r.benchToken?.name ?? null,
     reviewedBy: r.reviewedBy?.name ?? null,
     reviewedAt: r.reviewedAt ? r.reviewedAt.toISOString() : null,
     rejectionReason: r.rejectionReason ?? null,
