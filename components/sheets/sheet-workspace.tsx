@@ -86,7 +86,7 @@ export function SheetWorkspace({ deviceId, canEdit, model, content, template, ap
   const groups = useMemo(() => new Map(model.statistics.groups.map((g) => [g.groupId, g])), [model.statistics.groups]);
   const openGroupModel = openGroupId ? groups.get(openGroupId) : undefined;
 
-  /** The web sheet's own table has no click hook: a click on one of its rows opens the same data, by row order. */
+  /** The web sheet is drawn as published, without the table's row hook: a click on one of its rows opens the same data, by row order. */
   const onSheetClick = (event: MouseEvent<HTMLDivElement>) => {
     const target = event.target as HTMLElement;
     if (target.closest("a, button")) return;
