@@ -2,10 +2,9 @@
 
 import { useId, useState } from "react";
 import type { InstrumentSummary } from "@/lib/server/instruments/instrument-summary";
-import { instrumentBodySchema } from "@/lib/schemas/measurements";
-import { ApiError, messageOf, requestJson } from "@/components/api-client";
-import { fieldErrorsOfApi } from "@/components/auth/zod-errors";
+import { instrumentBodySchema, type InstrumentBody } from "@/lib/schemas/measurements";
 import { formatDate, formatNumber } from "@/components/format-quantity";
+import { useJsonForm, type FormCheck } from "@/components/use-json-form";
 import { useJsonResource } from "@/components/use-json-resource";
 import { buttonClass } from "@/components/ui/button";
 import { Field, selectClass } from "@/components/ui/field";
@@ -169,42 +168,31 @@ function InstrumentForm({
 }) {
   const id = useId();
   const [draft, setDraft] = useState<Draft>(instrument ? draftOf(instrument) : emptyDraft);
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const [error, setError] = useState<string | null>(null);
-  const [pending, setPending] = useState(false);
   const set = <K extends keyof Draft>(key: K, value: Draft[K]) => setDraft((d) => ({ ...d, [key]: value }));
   const setRow = (index: number, change: Partial<UncertaintyRow>) => set("uncertainty", draft.uncertainty.map((r, i) => (i === index ? { ...r, ...change } : r)));
 
-  async function submit(event: React.FormEvent) {
-    event.preventDefault();
-    setError(null);
+  function check(): FormCheck<InstrumentBody> {
     const parsed = instrumentBodySchema.safeParse({
       ...draft,
       uncertainty: draft.uncertainty.map((r) => ({ quantity: r.quantity, value: Number(r.value), unit: r.unit, coverageFactor: r.coverageFactor.trim() === "" ? 2 : Number(r.coverageFactor) })),
     });
-    if (!parsed.success) {
-      const found: Record<string, string> = {};
-      for (const issue of parsed.error.issues) {
-        const key = issue.path[0] === "uncertainty" ? "uncertainty" : String(issue.path[0] ?? "");
-        if (!found[key]) found[key] = issue.path[0] === "uncertainty" ? `Uncertainty row ${Number(issue.path[1]) + 1}, ${String(issue.path[2] ?? "")}: ${issue.message}` : issue.message;
-      }
-      setErrors(found);
-      return;
+    if (parsed.success) return { body: parsed.data };
+    const found: Record<string, string> = {};
+    for (const issue of parsed.error.issues) {
+      const key = issue.path[0] === "uncertainty" ? "uncertainty" : String(issue.path[0] ?? "");
+      if (!found[key]) found[key] = issue.path[0] === "uncertainty" ? `Uncertainty row ${Number(issue.path[1]) + 1}, ${String(issue.path[2] ?? "")}: ${issue.message}` : issue.message;
     }
-    setErrors({});
-    setPending(true);
-    try {
-      const body = await requestJson<{ instrument: InstrumentSummary }>(instrument ? `/api/admin/instruments/${instrument.id}` : "/api/admin/instruments", {
-        method: instrument ? "PATCH" : "POST",
-        body: parsed.data,
-      });
-      onSaved(body.instrument, !instrument);
-    } catch (e) {
-      if (e instanceof ApiError) setErrors(fieldErrorsOfApi(e));
-      setError(messageOf(e));
-      setPending(false);
-    }
+    return { errors: found };
   }
+
+  // Saving remounts the form (a new key), so the button stays pending until then.
+  const { errors, formError: error, pending, submit } = useJsonForm<InstrumentBody, { instrument: InstrumentSummary }>({
+    url: instrument ? `/api/admin/instruments/${instrument.id}` : "/api/admin/instruments",
+    method: instrument ? "PATCH" : "POST",
+    check,
+    onSuccess: (result) => onSaved(result.instrument, !instrument),
+    keepPendingOnSuccess: true,
+  });
 
   return (
     <form onSubmit={submit} noValidate className="space-y-5" data-testid="instrument-form">

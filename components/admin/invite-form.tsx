@@ -1,47 +1,39 @@
 "use client";
 
 import { useState } from "react";
-import { inviteUserBodySchema } from "@/lib/schemas/accounts";
+import { inviteUserBodySchema, type InviteUserBody } from "@/lib/schemas/accounts";
 import type { Role } from "@/lib/server/auth/permissions";
-import { ApiError, messageOf, requestJson } from "@/components/api-client";
 import { roleLabels } from "@/components/role-label";
 import { buttonClass } from "@/components/ui/button";
 import { Field, selectClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { checkInput, useJsonForm } from "@/components/use-json-form";
 
 export function InviteForm({ onInvited }: { onInvited: () => void }) {
   const [email, setEmail] = useState("");
   const [role, setRole] = useState<Role>("engineer");
-  const [pending, setPending] = useState(false);
-  const [fieldError, setFieldError] = useState<string | undefined>();
-  const [result, setResult] = useState<{ tone: "error" | "success"; text: string } | null>(null);
-
-  async function submit(event: React.FormEvent) {
-    event.preventDefault();
-    setResult(null);
-    setFieldError(undefined);
-    const parsed = inviteUserBodySchema.safeParse({ email, role });
-    if (!parsed.success) {
-      setFieldError(parsed.error.issues[0]?.message);
-      return;
-    }
-    setPending(true);
-    try {
-      await requestJson("/api/admin/invitations", { method: "POST", body: parsed.data });
-      setResult({ tone: "success", text: `Invitation sent to ${parsed.data.email} as ${roleLabels[role].toLowerCase()}.` });
+  const [sent, setSent] = useState<string | null>(null);
+  const { errors, formError, pending, submit } = useJsonForm<InviteUserBody>({
+    url: "/api/admin/invitations",
+    check: () => checkInput(inviteUserBodySchema, { email, role }),
+    onSuccess: (_, body) => {
+      setSent(`Invitation sent to ${body.email} as ${roleLabels[body.role].toLowerCase()}.`);
       setEmail("");
       onInvited();
-    } catch (error) {
-      if (error instanceof ApiError && error.fieldError("email")) setFieldError(error.fieldError("email"));
-      setResult({ tone: "error", text: messageOf(error) });
-    } finally {
-      setPending(false);
-    }
-  }
+    },
+  });
 
   return (
-    <form onSubmit={submit} noValidate className="space-y-5" data-testid="invite-form">
-      <Field label="E-mail address" name="email" type="email" autoComplete="off" value={email} onChange={setEmail} error={fieldError} required />
+    <form
+      onSubmit={(event) => {
+        setSent(null);
+        void submit(event);
+      }}
+      noValidate
+      className="space-y-5"
+      data-testid="invite-form"
+    >
+      <Field label="E-mail address" name="email" type="email" autoComplete="off" value={email} onChange={setEmail} error={errors.email} required />
       <div className="space-y-1.5">
         <label htmlFor="invite-role" className="block text-[0.9375rem] font-semibold">
           Role
@@ -55,7 +47,7 @@ export function InviteForm({ onInvited }: { onInvited: () => void }) {
         </select>
       </div>
       <div aria-live="polite" className="empty:hidden">
-        {result ? <Notice tone={result.tone}>{result.text}</Notice> : null}
+        {formError ? <Notice tone="error">{formError}</Notice> : sent ? <Notice tone="success">{sent}</Notice> : null}
       </div>
       <button type="submit" disabled={pending} className={buttonClass.primary}>
         {pending ? "Sending…" : "Send invitation"}

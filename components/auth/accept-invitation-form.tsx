@@ -1,42 +1,26 @@
 "use client";
 
 import { signIn } from "next-auth/react";
-import { useState } from "react";
-import { acceptInvitationBodySchema } from "@/lib/schemas/accounts";
-import { ApiError, messageOf, requestJson } from "@/components/api-client";
+import { acceptInvitationBodySchema, type AcceptInvitationBody } from "@/lib/schemas/accounts";
 import { buttonClass } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { checkInput, useJsonForm } from "@/components/use-json-form";
 import { PasswordFields, readPasswordPair } from "./password-fields";
-import { fieldErrorsOf, fieldErrorsOfApi } from "./zod-errors";
 
 export function AcceptInvitationForm({ token, email }: { token: string; email: string }) {
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const [formError, setFormError] = useState<string | null>(null);
-  const [pending, setPending] = useState(false);
-
-  async function submit(event: React.FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    setFormError(null);
-    const form = new FormData(event.currentTarget);
-    const { password, confirmError } = readPasswordPair(form);
-    const parsed = acceptInvitationBodySchema.safeParse({ token, name: form.get("name"), password });
-    const nextErrors = parsed.success ? {} : fieldErrorsOf(parsed.error);
-    if (confirmError) nextErrors.confirm = confirmError;
-    setErrors(nextErrors);
-    if (!parsed.success || confirmError) return;
-
-    setPending(true);
-    try {
-      await requestJson("/api/invitations/accept", { method: "POST", body: parsed.data });
-      const result = await signIn("credentials", { email, password, redirect: false });
+  const { errors, formError, pending, submit } = useJsonForm<AcceptInvitationBody>({
+    url: "/api/invitations/accept",
+    check: (form) => {
+      const { password, confirmError } = readPasswordPair(form);
+      return checkInput(acceptInvitationBodySchema, { token, name: form.get("name"), password }, { confirm: confirmError });
+    },
+    onSuccess: async (_, body) => {
+      const result = await signIn("credentials", { email, password: body.password, redirect: false });
       window.location.assign("/sign-in" + (result?.ok ? "" : "?welcome=1"));
-    } catch (error) {
-      if (error instanceof ApiError) setErrors(fieldErrorsOfApi(error));
-      setFormError(messageOf(error));
-      setPending(false);
-    }
-  }
+    },
+    keepPendingOnSuccess: true,
+  });
 
   return (
     <form onSubmit={submit} noValidate className="space-y-5" data-testid="accept-invitation-form">

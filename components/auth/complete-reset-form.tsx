@@ -2,43 +2,25 @@
 
 import Link from "next/link";
 import { useState } from "react";
-import { resetPasswordBodySchema } from "@/lib/schemas/accounts";
-import { ApiError, messageOf, requestJson } from "@/components/api-client";
+import { resetPasswordBodySchema, type ResetPasswordBody } from "@/lib/schemas/accounts";
+import { ApiError, messageOf } from "@/components/api-client";
 import { buttonClass } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
+import { checkInput, useJsonForm } from "@/components/use-json-form";
 import { PasswordFields, readPasswordPair } from "./password-fields";
-import { fieldErrorsOf, fieldErrorsOfApi } from "./zod-errors";
 
 export function CompleteResetForm({ token }: { token: string }) {
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const [formError, setFormError] = useState<string | null>(null);
   const [done, setDone] = useState(false);
-  const [pending, setPending] = useState(false);
-
-  async function submit(event: React.FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    setFormError(null);
-    const { password, confirmError } = readPasswordPair(new FormData(event.currentTarget));
-    const parsed = resetPasswordBodySchema.safeParse({ token, password });
-    const nextErrors = parsed.success ? {} : fieldErrorsOf(parsed.error);
-    if (confirmError) nextErrors.confirm = confirmError;
-    setErrors(nextErrors);
-    if (!parsed.success || confirmError) return;
-    setPending(true);
-    try {
-      await requestJson("/api/password-resets/complete", { method: "POST", body: parsed.data });
-      setDone(true);
-    } catch (error) {
-      if (error instanceof ApiError) {
-        setErrors(fieldErrorsOfApi(error));
-        setFormError(error.status === 404 ? "This link is unknown, used or expired. Ask for a new one." : error.message);
-      } else {
-        setFormError(messageOf(error));
-      }
-    } finally {
-      setPending(false);
-    }
-  }
+  const { errors, formError, pending, submit } = useJsonForm<ResetPasswordBody>({
+    url: "/api/password-resets/complete",
+    check: (form) => {
+      const { password, confirmError } = readPasswordPair(form);
+      return checkInput(resetPasswordBodySchema, { token, password }, { confirm: confirmError });
+    },
+    onSuccess: () => setDone(true),
+    errorMessage: (error) =>
+      error instanceof ApiError && error.status === 404 ? "This link is unknown, used or expired. Ask for a new one." : messageOf(error),
+  });
 
   if (done) {
     return (

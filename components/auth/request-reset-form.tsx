@@ -1,34 +1,19 @@
 "use client";
 
 import { useState } from "react";
-import { requestPasswordResetBodySchema } from "@/lib/schemas/accounts";
-import { messageOf, requestJson } from "@/components/api-client";
+import { requestPasswordResetBodySchema, type RequestPasswordResetBody } from "@/lib/schemas/accounts";
 import { buttonClass } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { checkInput, useJsonForm } from "@/components/use-json-form";
 
 export function RequestResetForm() {
-  const [error, setError] = useState<string | undefined>();
-  const [formError, setFormError] = useState<string | null>(null);
   const [sentTo, setSentTo] = useState<string | null>(null);
-  const [pending, setPending] = useState(false);
-
-  async function submit(event: React.FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    setFormError(null);
-    const parsed = requestPasswordResetBodySchema.safeParse({ email: new FormData(event.currentTarget).get("email") });
-    setError(parsed.success ? undefined : parsed.error.issues[0]?.message);
-    if (!parsed.success) return;
-    setPending(true);
-    try {
-      await requestJson("/api/password-resets", { method: "POST", body: parsed.data });
-      setSentTo(parsed.data.email);
-    } catch (e) {
-      setFormError(messageOf(e));
-    } finally {
-      setPending(false);
-    }
-  }
+  const { errors, formError, pending, submit } = useJsonForm<RequestPasswordResetBody>({
+    url: "/api/password-resets",
+    check: (form) => checkInput(requestPasswordResetBodySchema, { email: form.get("email") }),
+    onSuccess: (_, body) => setSentTo(body.email),
+  });
 
   if (sentTo) {
     return (
@@ -40,7 +25,7 @@ export function RequestResetForm() {
 
   return (
     <form onSubmit={submit} noValidate className="space-y-5" data-testid="request-reset-form">
-      <Field label="E-mail address" name="email" type="email" autoComplete="email" error={error} required />
+      <Field label="E-mail address" name="email" type="email" autoComplete="email" error={errors.email} required />
       <div aria-live="assertive" className="empty:hidden">
         {formError ? <Notice tone="error">{formError}</Notice> : null}
       </div>

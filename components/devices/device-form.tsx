@@ -2,13 +2,12 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { deviceBodySchema } from "@/lib/schemas/measurements";
+import { deviceBodySchema, type DeviceBody } from "@/lib/schemas/measurements";
 import type { DeviceSummary } from "@/lib/server/devices/device-summary";
-import { ApiError, messageOf, requestJson } from "@/components/api-client";
-import { fieldErrorsOfApi } from "@/components/auth/zod-errors";
 import { buttonClass } from "@/components/ui/button";
 import { Field, selectClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { useJsonForm, type FormCheck } from "@/components/use-json-form";
 import { deviceClassLabels } from "./device-class-label";
 import { FrequencyRangeField, type FrequencyRangeValue } from "./frequency-range-field";
 import { toHz } from "./frequency-units";
@@ -50,13 +49,8 @@ export function DeviceForm({ device }: { device?: DeviceSummary }) {
   const [output, setOutput] = useState<FrequencyRangeValue>(rangeValue(device?.keyConditions.outputFrequencyHz));
   const [drive, setDrive] = useState(device?.keyConditions.driveLevelDbm !== undefined ? String(device.keyConditions.driveLevelDbm) : "");
   const [factor, setFactor] = useState(String(device?.keyConditions.multiplicationFactor ?? 2));
-  const [errors, setErrors] = useState<Record<string, string>>({});
-  const [result, setResult] = useState<string | null>(null);
-  const [pending, setPending] = useState(false);
 
-  async function submit(event: React.FormEvent) {
-    event.preventDefault();
-    setResult(null);
+  function check(): FormCheck<DeviceBody> {
     const found: Record<string, string> = {};
     const inputRange = readRange(input, "input range");
     const outputRange = readRange(output, "output range");
@@ -83,27 +77,19 @@ export function DeviceForm({ device }: { device?: DeviceSummary }) {
         if (key && !found[key]) found[key] = issue.message;
       }
     }
-    setErrors(found);
-    if (!parsed.success || Object.keys(found).length > 0) return;
-    setPending(true);
-    try {
-      const body = await requestJson<{ device: { id: number; partNumber: string } }>(editing ? `/api/devices/${device!.id}` : "/api/devices", {
-        method: editing ? "PATCH" : "POST",
-        body: parsed.data,
-      });
-      setResult(null);
-      if (editing) {
-        setPending(false);
-        router.refresh();
-      } else {
-        router.push(`/devices/${body.device.id}`);
-      }
-    } catch (error) {
-      if (error instanceof ApiError) setErrors(fieldErrorsOfApi(error));
-      setResult(messageOf(error));
-      setPending(false);
-    }
+    return parsed.success && Object.keys(found).length === 0 ? { body: parsed.data } : { errors: found };
   }
+
+  const { errors, formError, pending, submit } = useJsonForm<DeviceBody, { device: { id: number } }>({
+    url: editing ? `/api/devices/${device!.id}` : "/api/devices",
+    method: editing ? "PATCH" : "POST",
+    check,
+    onSuccess: (result) => {
+      if (editing) router.refresh();
+      else router.push(`/devices/${result.device.id}`);
+    },
+    keepPendingOnSuccess: !editing,
+  });
 
   return (
     <form onSubmit={submit} noValidate className="space-y-5" data-testid={editing ? "edit-device-form" : "new-device-form"}>
@@ -178,7 +164,7 @@ export function DeviceForm({ device }: { device?: DeviceSummary }) {
         ) : null}
       </div>
       <div aria-live="polite" className="empty:hidden">
-        {result ? <Notice tone="error">{result}</Notice> : null}
+        {formError ? <Notice tone="error">{formError}</Notice> : null}
       </div>
       <button type="submit" disabled={pending} className={buttonClass.primary}>
         {editing ? (pending ? "Saving…" : "Save device") : pending ? "Creating…" : "Create device"}
