@@ -17,7 +17,12 @@ function bandRow(row: Omit<SpecRowTemplate, "groupBy">): SpecRowTemplate {
   return { ...row, match: { statistic: "worst", ...row.match }, groupBy: [...bandKeys, "temperatureC"] };
 }
 
-/** 90° hybrids from 4-port Touchstone files (ports: 1 in, 2 through, 3 coupled, 4 isolated). */
+/**
+ * 90° hybrids from 4-port Touchstone files (ports: 1 in, 2 through, 3 coupled, 4 isolated) and
+ * in-phase power splitters from 3-port files (1 common, 2 and 3 outputs). Rows are named by
+ * port so one table serves both; a row shows only where the file gives its figure (S41 only
+ * for a hybrid; S32, between the outputs, for both).
+ */
 export const quadratureHybridTemplate: SheetTemplate = {
   deviceClass: "quadrature-hybrid",
   label: "Quadrature hybrid or power splitter",
@@ -32,7 +37,7 @@ export const quadratureHybridTemplate: SheetTemplate = {
       bandRow({
         id: "insertion-loss-through",
         parameter: "insertion-loss",
-        label: "Insertion loss, input to through (S21)",
+        label: "Insertion loss, port 1 to 2 (S21)",
         symbol: "IL",
         unit: "dB",
         decimals: 2,
@@ -42,7 +47,7 @@ export const quadratureHybridTemplate: SheetTemplate = {
       bandRow({
         id: "insertion-loss-coupled",
         parameter: "insertion-loss",
-        label: "Insertion loss, input to coupled (S31)",
+        label: "Insertion loss, port 1 to 3 (S31)",
         symbol: "IL",
         unit: "dB",
         decimals: 2,
@@ -61,7 +66,7 @@ export const quadratureHybridTemplate: SheetTemplate = {
       bandRow({
         id: "phase-balance",
         parameter: "phase-balance",
-        label: "Phase balance, from 90°",
+        label: "Phase balance, from nominal",
         symbol: "Δφ",
         unit: "°",
         decimals: 1,
@@ -70,24 +75,35 @@ export const quadratureHybridTemplate: SheetTemplate = {
       bandRow({
         id: "isolation-input",
         parameter: "isolation",
-        label: "Isolation, input to isolated (S41)",
+        label: "Isolation, port 1 to 4 (S41)",
         symbol: "ISO",
         unit: "dB",
         decimals: 1,
         match: { path: "S41" },
         defaultBasis: "characterization",
       }),
+      bandRow({
+        id: "isolation-outputs",
+        parameter: "isolation",
+        label: "Isolation, port 2 to 3 (S32)",
+        symbol: "ISO",
+        unit: "dB",
+        decimals: 1,
+        match: { path: "S32" },
+        defaultBasis: "characterization",
+      }),
       worstVswrRow("characterization"),
     ],
     notes: [
-      "Insertion loss includes the ideal 3.01 dB split. Balance figures are the largest deviation over the band, sign kept.",
+      "Ports: hybrid 1 input, 2 through, 3 coupled, 4 isolated; splitter 1 common, 2 and 3 outputs.",
+      "Insertion loss includes the ideal 3.01 dB split. Balance figures are the largest deviation over the band, sign kept; the nominal phase difference is 90° for a quadrature hybrid and 0° for an in-phase splitter.",
       "Measured with a vector network analyzer, all ports terminated in 50 Ω.",
     ],
   },
   curves: [
     { id: "transmission", curveId: "transmission", title: "Insertion loss and isolation vs frequency", caption: "Line style tells the paths apart." },
     { id: "amplitude-balance", curveId: "amplitude-balance", title: "Amplitude balance vs frequency", caption: "Each line one unit." },
-    { id: "phase-balance", curveId: "phase-balance", title: "Phase balance vs frequency", caption: "Deviation from 90°; each line one unit." },
+    { id: "phase-balance", curveId: "phase-balance", title: "Phase balance vs frequency", caption: "Deviation from the nominal 90° (hybrid) or 0° (splitter); each line one unit." },
     { id: "return-loss", curveId: "return-loss", title: "Return loss vs frequency", caption: "Line style tells the ports apart." },
   ],
   prose: composeProse({
