@@ -1,7 +1,1 @@
-import type { DeviceClass } from "@/models/device";
-
-export const deviceClassLabels: Record<DeviceClass, string> = {
-  "frequency-multiplier": "Frequency multiplier",
-  "double-balanced-mixer": "Double-balanced mixer",
-  "quadrature-hybrid": "Hybrid / splitter",
-};
+export { deviceClassLabels } from "@/lib/devices/class-labels";

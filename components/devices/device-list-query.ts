@@ -1,12 +1,8 @@
-import type { DeviceSummary } from "@/lib/server/devices/device-summary";
-import { deviceClassLabels } from "./device-class-label";
 
 /** The device list's search, sort and page, all from the query string so a view can be linked. */
-export const deviceSortKeys = ["part", "class", "updated"] as const;
-export type DeviceSortKey = (typeof deviceSortKeys)[number];
-export type DeviceListQuery = { q: string; sort: DeviceSortKey; dir: "asc" | "desc"; page: number };
+import { deviceSortKeys, type DeviceListQuery, type DeviceSortKey } from "@/lib/devices/list-query";
 
-export const devicesPerPage = 25;
+export { deviceSortKeys, devicesPerPage, type DeviceListQuery, type DeviceSortKey } from "@/lib/devices/list-query";
 
 type Params = Record<string, string | string[] | undefined>;
 
@@ -32,21 +28,4 @@ export function deviceListHref(query: DeviceListQuery, change: Partial<DeviceLis
   if (next.page > 1) search.set("page", String(next.page));
   const text = search.toString();
   return text ? `/devices?${text}` : "/devices";
-}
-
-const collator = new Intl.Collator("en", { numeric: true, sensitivity: "base" });
-
-export function applyDeviceListQuery(devices: DeviceSummary[], query: DeviceListQuery) {
-  const needle = query.q.toLowerCase();
-  const matching = needle
-    ? devices.filter((d) => d.partNumber.toLowerCase().includes(needle) || d.title.toLowerCase().includes(needle))
-    : devices;
-  const key = (d: DeviceSummary) => (query.sort === "class" ? deviceClassLabels[d.deviceClass] : query.sort === "updated" ? d.updatedAt : d.partNumber);
-  const sorted = [...matching].sort((a, b) => {
-    const order = collator.compare(key(a), key(b)) || collator.compare(a.partNumber, b.partNumber);
-    return query.dir === "asc" ? order : -order;
-  });
-  const pageCount = Math.max(1, Math.ceil(sorted.length / devicesPerPage));
-  const page = Math.min(query.page, pageCount);
-  return { total: sorted.length, page, pageCount, rows: sorted.slice((page - 1) * devicesPerPage, page * devicesPerPage) };
 }

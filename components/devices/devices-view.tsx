@@ -1,5 +1,5 @@
 import Link from "next/link";
-import type { DeviceSummary } from "@/lib/server/devices/list-devices";
+import type { DevicePage } from "@/lib/server/devices/find-device-page";
 import { formatDate, formatFrequencyRange, formatNumber } from "@/components/format-quantity";
 import { buttonClass } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -7,7 +7,7 @@ import { selectClass } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { Quantity } from "@/components/ui/quantity";
 import { deviceClassLabels } from "./device-class-label";
-import { applyDeviceListQuery, deviceListHref, type DeviceListQuery, type DeviceSortKey } from "./device-list-query";
+import { deviceListHref, type DeviceListQuery, type DeviceSortKey } from "./device-list-query";
 import { DeviceForm } from "./device-form";
 
 function Range({ range }: { range?: { min: number; max: number } }) {
@@ -16,10 +16,10 @@ function Range({ range }: { range?: { min: number; max: number } }) {
   return <Quantity value={value} unit={unit} />;
 }
 
-type DevicesViewProps = { devices: DeviceSummary[]; organizationName: string; query: DeviceListQuery; canCreate: boolean };
+type DevicesViewProps = { devicePage: DevicePage; organizationName: string; query: DeviceListQuery; canCreate: boolean };
 
-export function DevicesView({ devices, organizationName, query, canCreate }: DevicesViewProps) {
-  const { rows, total, page, pageCount } = applyDeviceListQuery(devices, query);
+export function DevicesView({ devicePage, organizationName, query, canCreate }: DevicesViewProps) {
+  const { rows, total, page, pageCount, organizationTotal } = devicePage;
   return (
     <>
       <PageHeader
@@ -34,7 +34,7 @@ export function DevicesView({ devices, organizationName, query, canCreate }: Dev
           ) : null
         }
       />
-      {devices.length === 0 ? (
+      {organizationTotal === 0 ? (
         <EmptyState title="No devices yet">
           <p>Devices your engineers register appear here, one row per part number.</p>
         </EmptyState>

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { can } from "@/lib/server/auth/permissions";
 import { requirePageUser } from "@/lib/server/auth/require-page-user";
-import { listDevices } from "@/lib/server/devices/list-devices";
+import { findDevicePage } from "@/lib/server/devices/find-device-page";
 import { readDeviceListQuery } from "@/components/devices/device-list-query";
 import { DevicesView } from "@/components/devices/devices-view";
 
@@ -9,12 +9,13 @@ export const metadata: Metadata = { title: "Devices" };
 
 export default async function DevicesPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await requirePageUser({ permission: "device:read", path: "/devices" });
-  const [devices, params] = await Promise.all([listDevices(user.organizationId), searchParams]);
+  const query = readDeviceListQuery(await searchParams);
+  const devicePage = await findDevicePage(user.organizationId, query);
   return (
     <DevicesView
-      devices={devices}
+      devicePage={devicePage}
       organizationName={user.organizationName}
-      query={readDeviceListQuery(params)}
+      query={query}
       canCreate={can(user.role, "device:write")}
     />
   );

@@ -1,0 +1,51 @@
+import "server-only";
+import { Op, Sequelize, type Order, type WhereOptions } from "sequelize";
+import { deviceClassLabels } from "@/lib/devices/class-labels";
+import { devicesPerPage, type DeviceListQuery } from "@/lib/devices/list-query";
+import { Device, getSequelize } from "@/models";
+import { toDeviceSummary, type DeviceSummary } from "./device-summary";
+
+export type DevicePage = {
+  rows: DeviceSummary[];
+  /** Devices matching the search. */
+  total: number;
+  /** Devices of the organization, searched or not (0 shows the empty state). */
+  organizationTotal: number;
+  page: number;
+  pageCount: number;
+};
+
+/** `%`, `_` and `\` typed into the search match themselves, not LIKE patterns. */
+function likePattern(text: string): string {
+  return `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}
+
+/**
+ * One page of an organization's devices, searched (part number or title contain the text,
+ * case-insensitive by the column collation), sorted and counted in MariaDB. Part numbers sort
+ * naturally (NATURAL_SORT_KEY, MariaDB ≥ 10.7: "KDX-9" before "KDX-10"); classes by their label.
+ */
+export async function findDevicePage(organizationId: number, query: DeviceListQuery): Promise<DevicePage> {
+  getSequelize();
+  const where: WhereOptions<Device> = query.q
+    ? { organizationId, [Op.or]: [{ partNumber: { [Op.like]: likePattern(query.q) } }, { title: { [Op.like]: likePattern(query.q) } }] }
+    : { organizationId };
+  const dir = query.dir === "asc" ? "ASC" : "DESC";
+  const naturalPart = Sequelize.fn("NATURAL_SORT_KEY", Sequelize.col("part_number"));
+  const classesByLabel = Object.entries(deviceClassLabels)
+    .sort((a, b) => a[1].localeCompare(b[1], "en"))
+    .map(([deviceClass]) => deviceClass);
+  const first =
+    query.sort === "class"
+      ? Sequelize.fn("FIELD", Sequelize.col("device_class"), ...classesByLabel)
+      : query.sort === "updated"
+        ? Sequelize.col("updated_at")
+        : naturalPart;
+  const order: Order = [[first, dir], [naturalPart, dir], ["id", dir]];
+
+  const [total, organizationTotal] = await Promise.all([Device.count({ where }), query.q ? Device.count({ where: { organizationId } }) : null]);
+  const pageCount = Math.max(1, Math.ceil(total / devicesPerPage));
+  const page = Math.min(query.page, pageCount);
+  const rows = await Device.findAll({ where, order, limit: devicesPerPage, offset: (page - 1) * devicesPerPage });
+  return { rows: rows.map(toDeviceSummary), total, organizationTotal: organizationTotal ?? total, page, pageCount };
+}
