@@ -10,6 +10,7 @@ import {
   interpolatePhaseNoiseDbcHz,
   REFERENCE_TEMPERATURE_K,
 } from "../rf";
+import { lowerBound } from "../rf/sorted-search";
 import { computeMedian } from "../stats";
 import { errorMessage, makeParameter, makeSeries } from "./curves";
 import type { Section } from "./section";
@@ -131,15 +132,4 @@ export function analyzePhaseNoise(data: PhaseNoiseTrace, options: DeriveOptions,
 
 function sliceTrace(data: PhaseNoiseTrace, from: number, to: number) {
   return { offsetHz: data.offsetHz.slice(from, to), phaseNoiseDbcHz: data.lDbcHz.slice(from, to) };
-}
-
-function lowerBound(sorted: ArrayLike<number>, value: number): number {
-  let lo = 0;
-  let hi = sorted.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (sorted[mid] < value) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
 }

@@ -5,6 +5,8 @@
  * interpolation of dBc/Hz in log10(offset).
  */
 
+import { lowerBound, upperBound } from "./sorted-search";
+
 export interface PhaseNoiseTrace {
   offsetHz: ArrayLike<number>;
   phaseNoiseDbcHz: ArrayLike<number>;
@@ -183,28 +185,4 @@ export function sortTrace(trace: PhaseNoiseTrace): TracePoint[] {
     points.push({ offsetHz: sorted.offsetHz[i], phaseNoiseDbcHz: sorted.phaseNoiseDbcHz[i] });
   }
   return points;
-}
-
-/** First index whose value is ≥ value (the length when none is). */
-function lowerBound(sorted: ArrayLike<number>, value: number): number {
-  let lo = 0;
-  let hi = sorted.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (sorted[mid] < value) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
-
-/** First index whose value is > value (the length when none is). */
-function upperBound(sorted: ArrayLike<number>, value: number): number {
-  let lo = 0;
-  let hi = sorted.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (sorted[mid] <= value) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
 }

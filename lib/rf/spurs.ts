@@ -1,4 +1,5 @@
 import { type PhaseNoiseTrace, readSortedTrace } from "./phase-noise";
+import { lowerBound } from "./sorted-search";
 
 export interface FindSpursOptions {
   trace: PhaseNoiseTrace;
@@ -127,15 +128,4 @@ class LevelCounts {
     this.add(point, 1);
     return median;
   }
-}
-
-function lowerBound(sorted: ArrayLike<number>, value: number): number {
-  let lo = 0;
-  let hi = sorted.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (sorted[mid] < value) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
 }
