@@ -14,15 +14,9 @@ import type { WorkspaceModel } from "./workspace-types";
 
 type LimitDraft = { min: string; typ: string; max: string; basis: LimitBasis; footnote: string };
 
-type EditorRow = {
+/** A statistics group's identity and words, plus the group itself when the data fill it. */
+type EditorRow = Pick<StatisticsGroup, "parameter" | "conditionsKey" | "label" | "symbol" | "unit" | "conditionsText" | "rowId"> & {
   key: string;
-  parameter: string;
-  conditionsKey: string;
-  label: string;
-  symbol: string;
-  unit: string;
-  conditionsText: string;
-  rowId: string;
   group: StatisticsGroup | null;
 };
 

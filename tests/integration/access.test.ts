@@ -1,28 +1,21 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeSequelize } from "@/models";
-import type { UserRole } from "@/models/user";
 import { TestClient } from "./helpers/client";
-import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
+import { clientsByRole, everyone, makeDevice, makeOrganization, type Who } from "./helpers/factories";
 
-type Who = UserRole | "signed-out";
-const everyone: Who[] = ["signed-out", "customer", "engineer", "reviewer", "admin"];
 
 let org: Awaited<ReturnType<typeof makeOrganization>>;
 let other: Awaited<ReturnType<typeof makeOrganization>>;
 let otherDeviceId: number;
 let ownDeviceId: number;
-const clients = new Map<Who, TestClient>();
+let clients: Map<Who, TestClient>;
 
 beforeAll(async () => {
   org = await makeOrganization();
   other = await makeOrganization();
   ownDeviceId = (await makeDevice(org.organization.id)).id;
   otherDeviceId = (await makeDevice(other.organization.id)).id;
-  for (const who of everyone) {
-    const client = new TestClient();
-    if (who !== "signed-out") expect((await client.signIn(org.users[who].email, factoryPassword)).ok).toBe(true);
-    clients.set(who, client);
-  }
+  clients = await clientsByRole(org);
 });
 afterAll(() => closeSequelize());
 

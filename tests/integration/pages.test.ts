@@ -3,17 +3,15 @@ import { MeasurementSet, closeSequelize, getSequelize } from "@/models";
 import type { UserRole } from "@/models/user";
 import { TestClient } from "./helpers/client";
 import { baseUrl } from "./helpers/loopback";
-import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
+import { clientsByRole, everyone, makeDevice, makeOrganization, type Who } from "./helpers/factories";
 
-type Who = UserRole | "signed-out";
-const everyone: Who[] = ["signed-out", "customer", "engineer", "reviewer", "admin"];
 
 let org: Awaited<ReturnType<typeof makeOrganization>>;
 let other: Awaited<ReturnType<typeof makeOrganization>>;
 let ownDeviceId: number;
 let ownPartNumber: string;
 let otherDeviceId: number;
-const clients = new Map<Who, TestClient>();
+let clients: Map<Who, TestClient>;
 
 beforeAll(async () => {
   getSequelize();
@@ -23,11 +21,7 @@ beforeAll(async () => {
   ownDeviceId = ownDevice.id;
   ownPartNumber = ownDevice.partNumber;
   otherDeviceId = (await makeDevice(other.organization.id)).id;
-  for (const who of everyone) {
-    const client = new TestClient();
-    if (who !== "signed-out") expect((await client.signIn(org.users[who].email, factoryPassword)).ok).toBe(true);
-    clients.set(who, client);
-  }
+  clients = await clientsByRole(org);
 });
 afterAll(() => closeSequelize());
 

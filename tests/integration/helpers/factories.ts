@@ -2,6 +2,7 @@ import bcrypt from "bcryptjs";
 import { randomBytes } from "node:crypto";
 import { Device, Organization, User, getSequelize } from "@/models";
 import type { UserRole } from "@/models/user";
+import { TestClient } from "./client";
 import { assertLoopbackDatabase } from "./loopback";
 
 export const factoryPassword = "factory-password-1";
@@ -35,3 +36,21 @@ export async function makeDevice(organizationId: number, partNumber = `FX-${rand
     keyConditions: { multiplicationFactor: 2 },
   });
 }
+
+export type Who = UserRole | "signed-out";
+export const everyone: Who[] = ["signed-out", "customer", "engineer", "reviewer", "admin"];
+
+/** One client per role of the organization, signed in (and one signed out), each with its own cookies. */
+export async function clientsByRole(made: Made): Promise<Map<Who, TestClient>> {
+  const clients = new Map<Who, TestClient>();
+  for (const who of everyone) {
+    const client = new TestClient();
+    if (who !== "signed-out") {
+      const signedIn = await client.signIn(made.users[who].email, factoryPassword);
+      if (!signedIn.ok) throw new Error(`factory ${who} could not sign in`);
+    }
+    clients.set(who, client);
+  }
+  return clients;
+}
+
