@@ -9,7 +9,7 @@ export default defineConfig({
   retries: 0,
   timeout: 30_000,
   use: {
-    baseURL: process.env.OCTAVO_TEST_URL ?? "http://localhost:3100",
+    baseURL: process.env.BENCHFOLD_TEST_URL ?? "http://localhost:3100",
     screenshot: "only-on-failure",
     trace: "retain-on-failure",
     launchOptions: {

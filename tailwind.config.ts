@@ -1,5 +1,5 @@
 /**
- * Octavo's design tokens, documented in one place.
+ * Benchfold's design tokens, documented in one place.
  *
  * Tailwind 4 reads its theme from CSS: the live copy of these values is the
  * `@theme` block in app/globals.css, which mirrors this object name for name

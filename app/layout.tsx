@@ -28,7 +28,7 @@ const figureFont = localFont({
 });
 
 export const metadata: Metadata = {
-  title: { default: "Octavo — characterization datasheets", template: "%s · Octavo" },
+  title: { default: "Benchfold — characterization datasheets", template: "%s · Benchfold" },
   description:
     "From bench measurements of mixers, frequency multipliers and hybrids to reviewed, released datasheets your customers can trust.",
 };

@@ -35,7 +35,7 @@ export async function requestJson<T>(url: string, init: { method?: string; body?
       cache: "no-store",
     });
   } catch {
-    throw new ApiError(0, "network", "Octavo could not be reached. Check your connection and try again.");
+    throw new ApiError(0, "network", "Benchfold could not be reached. Check your connection and try again.");
   }
   const text = await response.text();
   let json: unknown = null;

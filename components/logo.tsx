@@ -1,5 +1,5 @@
 /**
- * Octavo's mark: a sheet with its corner folded, carrying a fundamental and,
+ * Benchfold's mark: a sheet with its corner folded, carrying a fundamental and,
  * beneath it in the signal colour, its octave (twice the frequency).
  */
 type LogoMarkProps = { size?: number; className?: string; title?: string };
@@ -33,7 +33,7 @@ export function Logo({ className }: { className?: string }) {
   return (
     <span className={`inline-flex items-center gap-2 text-ink ${className ?? ""}`}>
       <LogoMark size={28} />
-      <span className="text-[1.3rem] font-semibold leading-none tracking-[0.01em]">Octavo</span>
+      <span className="text-[1.3rem] font-semibold leading-none tracking-[0.01em]">Benchfold</span>
     </span>
   );
 }

@@ -4,7 +4,7 @@ export function SiteFooter() {
   return (
     <footer data-site className="border-t border-rule">
       <div className="mx-auto flex w-full max-w-page flex-wrap items-baseline justify-between gap-3 px-5 py-6 text-sm text-ink-muted sm:px-8">
-        <p>Octavo — bench data in, signed datasheets out. Limits apply only under the stated conditions.</p>
+        <p>Benchfold — bench data in, signed datasheets out. Limits apply only under the stated conditions.</p>
         <p>
           <Link href="/catalog">Released sheets</Link>
         </p>

@@ -13,7 +13,7 @@ export async function SiteHeader() {
   return (
     <header data-site className="border-b border-rule">
       <div className="mx-auto flex w-full max-w-page flex-wrap items-center justify-between gap-x-8 gap-y-3 px-5 pt-4 sm:px-8">
-        <Link href="/" className="no-underline" aria-label="Octavo, home">
+        <Link href="/" className="no-underline" aria-label="Benchfold, home">
           <Logo />
         </Link>
         {user ? (

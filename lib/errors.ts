@@ -1,5 +1,5 @@
 /**
- * The one error class of Octavo. Every failure a caller may see carries a code;
+ * The one error class of Benchfold. Every failure a caller may see carries a code;
  * the code decides the HTTP status, and clients map codes to their own wording.
  */
 export const errorStatus = {

@@ -13,9 +13,9 @@ export function readDatabaseSettings(env: NodeJS.ProcessEnv = process.env): Data
   return {
     host: env.DB_HOST ?? "127.0.0.1",
     port: Number(env.DB_PORT ?? 3407),
-    database: env.DB_NAME ?? "octavo",
-    user: env.DB_USER ?? "octavo",
-    password: env.DB_PASSWORD ?? "octavo-local-only",
+    database: env.DB_NAME ?? "benchfold",
+    user: env.DB_USER ?? "benchfold",
+    password: env.DB_PASSWORD ?? "benchfold-local-only",
   };
 }
 

@@ -28,5 +28,5 @@ function createRunner(sequelize: Sequelize, folder: "migrations" | "seeders", le
   });
 }
 
-export const createMigrator = (sequelize: Sequelize) => createRunner(sequelize, "migrations", "octavo_migrations");
-export const createSeeder = (sequelize: Sequelize) => createRunner(sequelize, "seeders", "octavo_seeds");
+export const createMigrator = (sequelize: Sequelize) => createRunner(sequelize, "migrations", "benchfold_migrations");
+export const createSeeder = (sequelize: Sequelize) => createRunner(sequelize, "seeders", "benchfold_seeds");

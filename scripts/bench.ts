@@ -142,7 +142,7 @@ function main(): void {
 
   const random = mulberry32(20261201);
   const cases = [makePhaseNoiseCase(random), makeTouchstoneCase(random), makeDriveSweepCase(random)];
-  console.log(`Octavo engine benchmark: median of ${reps} runs after 2 warm-ups, node ${process.version}\n`);
+  console.log(`Benchfold engine benchmark: median of ${reps} runs after 2 warm-ups, node ${process.version}\n`);
   const header = ["input", "MB", "engine ms", "parse ms", "derive ms", "plain ms", "engine Mpts/s", "engine MB/s", "plain MB/s", "parse/plain", "engine/plain"];
   const rows: string[][] = [];
   for (const c of cases) {

@@ -1,15 +1,15 @@
 #!/usr/bin/env bash
-# A private MariaDB instance for Octavo: own data directory (.data/mariadb), own port and
+# A private MariaDB instance for Benchfold: own data directory (.data/mariadb), own port and
 # socket, bound to 127.0.0.1. Usage: scripts/db.sh start|stop|status|reset <database>
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 load_env
 
-DATADIR="$OCTAVO_DATA_DIR/mariadb"
-RUNDIR="$OCTAVO_DATA_DIR/run"
+DATADIR="$BENCHFOLD_DATA_DIR/mariadb"
+RUNDIR="$BENCHFOLD_DATA_DIR/run"
 SOCK="$RUNDIR/mariadb.sock"
 PIDFILE="$RUNDIR/mariadb.pid"
-LOGFILE="$OCTAVO_DATA_DIR/logs/mariadb.log"
+LOGFILE="$BENCHFOLD_DATA_DIR/logs/mariadb.log"
 
 client() { mariadb --no-defaults --socket="$SOCK" -uroot "$@"; }
 ping_db() { mariadb-admin --no-defaults --socket="$SOCK" -uroot ping >/dev/null 2>&1; }
@@ -40,8 +40,8 @@ start() {
   if [ ! -d "$DATADIR/mysql" ]; then
     log "initialising MariaDB data directory in $DATADIR"
     mariadb-install-db --no-defaults "${userflag[@]}" --datadir="$DATADIR" \
-      --skip-test-db --skip-name-resolve >"$OCTAVO_DATA_DIR/logs/mariadb-install.log" 2>&1 \
-      || die "mariadb-install-db failed: see $OCTAVO_DATA_DIR/logs/mariadb-install.log"
+      --skip-test-db --skip-name-resolve >"$BENCHFOLD_DATA_DIR/logs/mariadb-install.log" 2>&1 \
+      || die "mariadb-install-db failed: see $BENCHFOLD_DATA_DIR/logs/mariadb-install.log"
   fi
   if ping_db; then
     log "MariaDB already running on 127.0.0.1:$DB_PORT"

@@ -1,7 +1,7 @@
 /**
  * The local fake SMTP server for development and tests: accepts every message on
  * 127.0.0.1:$SMTP_PORT, keeps the newest 500 in memory and shows them as JSON on
- * 127.0.0.1:$OCTAVO_MAILBOX_PORT (GET /messages, DELETE /messages, GET /health).
+ * 127.0.0.1:$BENCHFOLD_MAILBOX_PORT (GET /messages, DELETE /messages, GET /health).
  * Never started in production: the scripts start it only when no SMTP_HOST is configured.
  */
 import { createServer } from "node:http";
@@ -12,7 +12,7 @@ import { SMTPServer } from "smtp-server";
 type Caught = { id: string; from: string; to: string; subject: string; text: string; html: string | null; date: string };
 
 const smtpPort = Number(process.env.SMTP_PORT ?? 2525);
-const httpPort = Number(process.env.OCTAVO_MAILBOX_PORT ?? 2580);
+const httpPort = Number(process.env.BENCHFOLD_MAILBOX_PORT ?? 2580);
 const messages: Caught[] = [];
 const maxMessages = 500;
 const maxMessageBytes = 5 * 1024 * 1024;

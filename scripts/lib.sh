@@ -1,11 +1,11 @@
-# Shared shell helpers for Octavo's scripts. Source it; do not run it.
+# Shared shell helpers for Benchfold's scripts. Source it; do not run it.
 # Everything here is idempotent: it checks before it installs or starts.
 
-OCTAVO_ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
-export OCTAVO_ROOT
+BENCHFOLD_ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+export BENCHFOLD_ROOT
 
-log() { printf '\033[2m[octavo]\033[0m %s\n' "$*" >&2; }
-die() { printf '[octavo] error: %s\n' "$*" >&2; exit 1; }
+log() { printf '\033[2m[benchfold]\033[0m %s\n' "$*" >&2; }
+die() { printf '[benchfold] error: %s\n' "$*" >&2; exit 1; }
 
 as_root() {
   if [ "$(id -u)" -eq 0 ]; then "$@"; elif command -v sudo >/dev/null 2>&1; then sudo "$@"; else
@@ -36,33 +36,33 @@ ensure_debian_packages() {
 
 # npm ci when node_modules is missing or older than the lock file.
 ensure_node_modules() {
-  local stamp="$OCTAVO_ROOT/node_modules/.package-lock.json"
-  if [ ! -f "$stamp" ] || [ "$OCTAVO_ROOT/package-lock.json" -nt "$stamp" ]; then
+  local stamp="$BENCHFOLD_ROOT/node_modules/.package-lock.json"
+  if [ ! -f "$stamp" ] || [ "$BENCHFOLD_ROOT/package-lock.json" -nt "$stamp" ]; then
     log "installing npm packages (npm ci)"
-    (cd "$OCTAVO_ROOT" && npm ci --no-audit --no-fund --loglevel=error) || die "npm ci failed"
+    (cd "$BENCHFOLD_ROOT" && npm ci --no-audit --no-fund --loglevel=error) || die "npm ci failed"
   fi
 }
 
 # Loads .env (if present) without overriding variables already set, then fills defaults.
 load_env() {
-  if [ -f "$OCTAVO_ROOT/.env" ]; then
+  if [ -f "$BENCHFOLD_ROOT/.env" ]; then
     while IFS='=' read -r key value; do
       [[ -z "$key" || "$key" == \#* ]] && continue
       [ -z "${!key+x}" ] && export "$key=$value"
-    done < "$OCTAVO_ROOT/.env"
+    done < "$BENCHFOLD_ROOT/.env"
   fi
   export DB_HOST="${DB_HOST:-127.0.0.1}"
   export DB_PORT="${DB_PORT:-3407}"
-  export DB_NAME="${DB_NAME:-octavo}"
-  export DB_USER="${DB_USER:-octavo}"
-  export DB_PASSWORD="${DB_PASSWORD:-octavo-local-only}"
-  export OCTAVO_DATA_DIR="${OCTAVO_DATA_DIR:-$OCTAVO_ROOT/.data}"
+  export DB_NAME="${DB_NAME:-benchfold}"
+  export DB_USER="${DB_USER:-benchfold}"
+  export DB_PASSWORD="${DB_PASSWORD:-benchfold-local-only}"
+  export BENCHFOLD_DATA_DIR="${BENCHFOLD_DATA_DIR:-$BENCHFOLD_ROOT/.data}"
   export PORT="${PORT:-3000}"
   export NEXTAUTH_URL="${NEXTAUTH_URL:-http://localhost:$PORT}"
   if [ -z "${NEXTAUTH_SECRET:-}" ]; then
-    mkdir -p "$OCTAVO_DATA_DIR"
-    [ -s "$OCTAVO_DATA_DIR/nextauth-secret" ] || node -e 'process.stdout.write(require("crypto").randomBytes(32).toString("base64url"))' > "$OCTAVO_DATA_DIR/nextauth-secret"
-    NEXTAUTH_SECRET="$(cat "$OCTAVO_DATA_DIR/nextauth-secret")"
+    mkdir -p "$BENCHFOLD_DATA_DIR"
+    [ -s "$BENCHFOLD_DATA_DIR/nextauth-secret" ] || node -e 'process.stdout.write(require("crypto").randomBytes(32).toString("base64url"))' > "$BENCHFOLD_DATA_DIR/nextauth-secret"
+    NEXTAUTH_SECRET="$(cat "$BENCHFOLD_DATA_DIR/nextauth-secret")"
     export NEXTAUTH_SECRET
   fi
 }
@@ -72,25 +72,25 @@ load_env() {
 start_fake_smtp() {
   export SMTP_HOST="${SMTP_HOST:-127.0.0.1}"
   export SMTP_PORT="${SMTP_PORT:-2525}"
-  export OCTAVO_MAILBOX_PORT="${OCTAVO_MAILBOX_PORT:-2580}"
-  export OCTAVO_MAILBOX_URL="http://127.0.0.1:$OCTAVO_MAILBOX_PORT"
-  export OCTAVO_FAKE_SMTP=1
+  export BENCHFOLD_MAILBOX_PORT="${BENCHFOLD_MAILBOX_PORT:-2580}"
+  export BENCHFOLD_MAILBOX_URL="http://127.0.0.1:$BENCHFOLD_MAILBOX_PORT"
+  export BENCHFOLD_FAKE_SMTP=1
   FAKE_SMTP_PID=""
-  if curl -fsS "$OCTAVO_MAILBOX_URL/health" >/dev/null 2>&1; then
+  if curl -fsS "$BENCHFOLD_MAILBOX_URL/health" >/dev/null 2>&1; then
     log "fake SMTP already answering on $SMTP_PORT"
     return 0
   fi
-  mkdir -p "$OCTAVO_DATA_DIR/logs"
-  node "$OCTAVO_ROOT/node_modules/tsx/dist/cli.mjs" "$OCTAVO_ROOT/scripts/fake-smtp.ts" \
-    >"$OCTAVO_DATA_DIR/logs/fake-smtp-$SMTP_PORT.log" 2>&1 &
+  mkdir -p "$BENCHFOLD_DATA_DIR/logs"
+  node "$BENCHFOLD_ROOT/node_modules/tsx/dist/cli.mjs" "$BENCHFOLD_ROOT/scripts/fake-smtp.ts" \
+    >"$BENCHFOLD_DATA_DIR/logs/fake-smtp-$SMTP_PORT.log" 2>&1 &
   FAKE_SMTP_PID=$!
   local i
   for i in $(seq 1 100); do
-    curl -fsS "$OCTAVO_MAILBOX_URL/health" >/dev/null 2>&1 && { log "fake SMTP on 127.0.0.1:$SMTP_PORT"; return 0; }
-    kill -0 "$FAKE_SMTP_PID" 2>/dev/null || die "fake SMTP did not start: $(tail -5 "$OCTAVO_DATA_DIR/logs/fake-smtp-$SMTP_PORT.log")"
+    curl -fsS "$BENCHFOLD_MAILBOX_URL/health" >/dev/null 2>&1 && { log "fake SMTP on 127.0.0.1:$SMTP_PORT"; return 0; }
+    kill -0 "$FAKE_SMTP_PID" 2>/dev/null || die "fake SMTP did not start: $(tail -5 "$BENCHFOLD_DATA_DIR/logs/fake-smtp-$SMTP_PORT.log")"
     sleep 0.1
   done
   die "fake SMTP did not answer in 10 s"
 }
 
-run_tsx() { node "$OCTAVO_ROOT/node_modules/tsx/dist/cli.mjs" "$@"; }
+run_tsx() { node "$BENCHFOLD_ROOT/node_modules/tsx/dist/cli.mjs" "$@"; }

@@ -5,12 +5,12 @@ import { createMigrator } from "../models/migrator";
 async function main() {
   const sequelize = getSequelize();
   const done = await createMigrator(sequelize).up();
-  console.error(`[octavo] migrations: ${done.length ? done.map((m) => m.name).join(", ") : "up to date"}`);
+  console.error(`[benchfold] migrations: ${done.length ? done.map((m) => m.name).join(", ") : "up to date"}`);
   await closeSequelize();
 }
 
 main().catch(async (error) => {
-  console.error("[octavo] migration failed:", error);
+  console.error("[benchfold] migration failed:", error);
   await closeSequelize();
   process.exit(1);
 });

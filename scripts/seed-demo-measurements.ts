@@ -3,7 +3,7 @@
  * instruments, a bench token (made for this run, revoked at the end) posts the demo files to
  * POST /api/v1/measurements, a demo reviewer approves some, and engineers save their sheets'
  * limits and prose. The data are in models/seeders/demo-measurements.ts and demo-sheets.ts.
- * Runs once per database (recorded in octavo_seeds). Needs the app at OCTAVO_APP_URL.
+ * Runs once per database (recorded in benchfold_seeds). Needs the app at BENCHFOLD_APP_URL.
  */
 import { randomBytes, createHash } from "node:crypto";
 import { QueryTypes } from "sequelize";
@@ -12,7 +12,7 @@ import { demoInstruments, demoUploads } from "../models/seeders/demo-measurement
 import { demoPassword } from "../models/seeders/demo-scenario";
 import { demoSheets } from "../models/seeders/demo-sheets";
 
-const appUrl = process.env.OCTAVO_APP_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
+const appUrl = process.env.BENCHFOLD_APP_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
 const marker = "demo-measurements-via-bench-api";
 
 async function signIn(email: string): Promise<string> {
@@ -47,10 +47,10 @@ async function call(session: string, method: string, url: string, body: unknown,
 
 async function main() {
   const sequelize = getSequelize();
-  await sequelize.query("CREATE TABLE IF NOT EXISTS octavo_seeds (name VARCHAR(255) NOT NULL PRIMARY KEY)");
-  const done = await sequelize.query("SELECT name FROM octavo_seeds WHERE name = ?", { replacements: [marker], type: QueryTypes.SELECT });
+  await sequelize.query("CREATE TABLE IF NOT EXISTS benchfold_seeds (name VARCHAR(255) NOT NULL PRIMARY KEY)");
+  const done = await sequelize.query("SELECT name FROM benchfold_seeds WHERE name = ?", { replacements: [marker], type: QueryTypes.SELECT });
   if (done.length) {
-    console.error("[octavo] demo measurements: already uploaded");
+    console.error("[benchfold] demo measurements: already uploaded");
     return;
   }
   const slugs = [...new Set(demoUploads.map((u) => u.org))];
@@ -69,7 +69,7 @@ async function main() {
   const tokens = new Map<string, { token: string; row: BenchToken }>();
   for (const slug of slugs) {
     const admin = await userOf(slug, "admin");
-    const token = `oct_${randomBytes(30).toString("base64url")}`;
+    const token = `bfd_${randomBytes(30).toString("base64url")}`;
     const row = await BenchToken.create({
       organizationId: admin.organizationId, createdById: admin.id, name: "Demo loader (revoked after use)", tokenPrefix: token.slice(0, 10),
       tokenHash: createHash("sha256").update(token).digest("hex"),
@@ -112,16 +112,16 @@ async function main() {
     }
   }
 
-  await sequelize.query("INSERT INTO octavo_seeds (name) VALUES (?)", { replacements: [marker] });
+  await sequelize.query("INSERT INTO benchfold_seeds (name) VALUES (?)", { replacements: [marker] });
   console.error(
-    `[octavo] demo measurements: ${demoUploads.length} files uploaded through the bench API, ${[...toApprove.values()].flat().length} approved; ` +
+    `[benchfold] demo measurements: ${demoUploads.length} files uploaded through the bench API, ${[...toApprove.values()].flat().length} approved; ` +
       `${instrumentIds.size} instruments; ${sheets} sheets with limits and prose`,
   );
 }
 
 main()
   .catch((error) => {
-    console.error("[octavo] demo measurements failed:", error instanceof Error ? error.message : error);
+    console.error("[benchfold] demo measurements failed:", error instanceof Error ? error.message : error);
     process.exitCode = 1;
   })
   .finally(() => closeSequelize());

@@ -3,7 +3,7 @@
 # `npm run dev` (--dev) serves with hot reload instead of a production build.
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
-cd "$OCTAVO_ROOT"
+cd "$BENCHFOLD_ROOT"
 
 MODE="${1:-}"
 started=$(date +%s)
@@ -25,14 +25,14 @@ if [ "$MODE" = "--dev" ]; then
   node node_modules/next/dist/bin/next dev -p "$PORT"
 else
   log "building"
-  node node_modules/next/dist/bin/next build >"$OCTAVO_DATA_DIR/logs/next-build.log" 2>&1 \
-    || { tail -40 "$OCTAVO_DATA_DIR/logs/next-build.log"; die "next build failed (full log: $OCTAVO_DATA_DIR/logs/next-build.log)"; }
+  node node_modules/next/dist/bin/next build >"$BENCHFOLD_DATA_DIR/logs/next-build.log" 2>&1 \
+    || { tail -40 "$BENCHFOLD_DATA_DIR/logs/next-build.log"; die "next build failed (full log: $BENCHFOLD_DATA_DIR/logs/next-build.log)"; }
   node node_modules/next/dist/bin/next start -p "$PORT" &
   SERVER_PID=$!
   trap 'kill "$SERVER_PID" 2>/dev/null; [ -n "${FAKE_SMTP_PID:-}" ] && kill "$FAKE_SMTP_PID" 2>/dev/null; true' EXIT INT TERM
   for _ in $(seq 1 150); do curl -fsS "http://127.0.0.1:$PORT/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done
   # The demo's measurement sets go in through the real bench upload path, once per database.
-  OCTAVO_APP_URL="http://127.0.0.1:$PORT" run_tsx scripts/seed-demo-measurements.ts || log "demo measurements were not loaded (see above)"
+  BENCHFOLD_APP_URL="http://127.0.0.1:$PORT" run_tsx scripts/seed-demo-measurements.ts || log "demo measurements were not loaded (see above)"
   log "set-up took $(( $(date +%s) - started )) s; serving http://localhost:$PORT (demo password: bench-demo-2026)"
   wait "$SERVER_PID"
 fi

@@ -1,30 +1,30 @@
 #!/usr/bin/env bash
-# npm test: the same set-up as npm start against a separate database (octavo_test, reset
+# npm test: the same set-up as npm start against a separate database (benchfold_test, reset
 # each run), then every test: types, unit, integration (HTTP against the built app and the
 # real MariaDB) and browser tests (Debian's chromium). One build, one DB, one server per run.
 set -uo pipefail
 source "$(dirname "$0")/lib.sh"
-cd "$OCTAVO_ROOT"
+cd "$BENCHFOLD_ROOT"
 
 started=$(date +%s)
 ensure_debian_packages mariadbd:mariadb-server curl:curl /usr/bin/chromium:chromium pdftoppm:poppler-utils \
   /usr/lib/python3/dist-packages/skrf:python3-scikit-rf
 ensure_node_modules
 
-export DB_NAME="${TEST_DB_NAME:-octavo_test}"
+export DB_NAME="${TEST_DB_NAME:-benchfold_test}"
 export PORT="${TEST_PORT:-3100}"
 export SMTP_PORT="${TEST_SMTP_PORT:-2526}"
-export OCTAVO_MAILBOX_PORT="${TEST_MAILBOX_PORT:-2581}"
+export BENCHFOLD_MAILBOX_PORT="${TEST_MAILBOX_PORT:-2581}"
 export NEXTAUTH_URL="http://localhost:$PORT"
-export OCTAVO_TEST_URL="http://localhost:$PORT"
+export BENCHFOLD_TEST_URL="http://localhost:$PORT"
 # Tests give each client its own address through X-Forwarded-For, as a trusted proxy would.
-export OCTAVO_TRUST_PROXY=1
+export BENCHFOLD_TRUST_PROXY=1
 unset SMTP_HOST
 load_env
 export NEXTAUTH_SECRET="test-secret-$(date +%s%N)"
 
-RESULTS="$OCTAVO_DATA_DIR/test-results"
-rm -rf "$RESULTS"; mkdir -p "$RESULTS" "$OCTAVO_DATA_DIR/logs"
+RESULTS="$BENCHFOLD_DATA_DIR/test-results"
+rm -rf "$RESULTS"; mkdir -p "$RESULTS" "$BENCHFOLD_DATA_DIR/logs"
 
 bash scripts/db.sh start || die "MariaDB did not start"
 bash scripts/db.sh reset "$DB_NAME" || die "could not reset $DB_NAME"
@@ -47,27 +47,27 @@ step "unit tests" node node_modules/vitest/vitest.mjs run --project unit \
   --reporter=default --reporter=json --outputFile.json="$RESULTS/unit.json"
 
 # A server left on the test port would answer instead of the one built here: refuse, do not test it.
-if curl -fsS -o /dev/null "$OCTAVO_TEST_URL/api/auth/csrf" 2>/dev/null; then
+if curl -fsS -o /dev/null "$BENCHFOLD_TEST_URL/api/auth/csrf" 2>/dev/null; then
   die "something already answers on port $PORT; stop it (or set TEST_PORT) so the tests reach this build"
 fi
 
 log "── build"
-if node node_modules/next/dist/bin/next build >"$OCTAVO_DATA_DIR/logs/next-build-test.log" 2>&1; then
-  node node_modules/next/dist/bin/next start -p "$PORT" >"$OCTAVO_DATA_DIR/logs/next-test-server.log" 2>&1 &
+if node node_modules/next/dist/bin/next build >"$BENCHFOLD_DATA_DIR/logs/next-build-test.log" 2>&1; then
+  node node_modules/next/dist/bin/next start -p "$PORT" >"$BENCHFOLD_DATA_DIR/logs/next-test-server.log" 2>&1 &
   SERVER_PID=$!
-  for _ in $(seq 1 150); do curl -fsS "$OCTAVO_TEST_URL/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done
-  if curl -fsS "$OCTAVO_TEST_URL/api/auth/csrf" >/dev/null 2>&1; then
-    step "demo measurements through the bench API" env OCTAVO_APP_URL="$OCTAVO_TEST_URL" \
+  for _ in $(seq 1 150); do curl -fsS "$BENCHFOLD_TEST_URL/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done
+  if curl -fsS "$BENCHFOLD_TEST_URL/api/auth/csrf" >/dev/null 2>&1; then
+    step "demo measurements through the bench API" env BENCHFOLD_APP_URL="$BENCHFOLD_TEST_URL" \
       node node_modules/tsx/dist/cli.mjs scripts/seed-demo-measurements.ts
     step "integration tests" node node_modules/vitest/vitest.mjs run --project integration \
       --reporter=default --reporter=json --outputFile.json="$RESULTS/integration.json"
     step "browser tests" env PLAYWRIGHT_JSON_OUTPUT_NAME="$RESULTS/e2e.json" \
       node node_modules/@playwright/test/cli.js test --reporter=list,json
   else
-    tail -20 "$OCTAVO_DATA_DIR/logs/next-test-server.log"; log "✗ the app server did not start"; status=1
+    tail -20 "$BENCHFOLD_DATA_DIR/logs/next-test-server.log"; log "✗ the app server did not start"; status=1
   fi
 else
-  tail -40 "$OCTAVO_DATA_DIR/logs/next-build-test.log"; log "✗ build failed"; status=1
+  tail -40 "$BENCHFOLD_DATA_DIR/logs/next-build-test.log"; log "✗ build failed"; status=1
 fi
 
 node scripts/summarize-tests.mjs "$RESULTS" || status=1

@@ -5,7 +5,7 @@ import type { SheetTemplate } from "./types";
 
 export type * from "./types";
 
-/** Every device class Octavo ships; a new class is a new folder plus one line here. */
+/** Every device class Benchfold ships; a new class is a new folder plus one line here. */
 export const sheetTemplates: Readonly<Record<string, SheetTemplate>> = {
   [frequencyMultiplierTemplate.deviceClass]: frequencyMultiplierTemplate,
   [doubleBalancedMixerTemplate.deviceClass]: doubleBalancedMixerTemplate,

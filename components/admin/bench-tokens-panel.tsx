@@ -153,7 +153,7 @@ function CreatedToken({ created, appOrigin, onDone }: { created: Created; appOri
     `  -H "Authorization: Bearer ${created.token}" \\`,
     `  -F device=WL-C2611-KDX \\`,
     `  -F file=@drive-sweep.csv \\`,
-    `  -F serial=OCT-0001 -F temperatureC=25 -F measuredOn=${new Date().toISOString().slice(0, 10)}`,
+    `  -F serial=BFD-0001 -F temperatureC=25 -F measuredOn=${new Date().toISOString().slice(0, 10)}`,
   ].join("\n");
 
   async function copy(text: string, what: string) {
@@ -168,7 +168,7 @@ function CreatedToken({ created, appOrigin, onDone }: { created: Created; appOri
   return (
     <div className="mt-6 space-y-4 border-l-2 border-signal bg-paper-bright px-5 py-4" data-testid="created-token" role="status">
       <p className="font-semibold">
-        Token for “{created.benchToken.name}”: copy it now. Octavo keeps only its hash and will not show it again.
+        Token for “{created.benchToken.name}”: copy it now. Benchfold keeps only its hash and will not show it again.
       </p>
       <div className="flex flex-wrap items-center gap-3">
         <code className="figure select-all break-all border border-rule-strong bg-paper px-3 py-2 text-[0.875rem]" data-testid="created-token-value">

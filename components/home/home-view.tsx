@@ -35,7 +35,7 @@ export function HomeView({ start }: { start: { href: string; label: string } | n
             From the bench to a datasheet your customers can hold you to.
           </h1>
           <p className="mt-6 max-w-prose text-[1.1875rem] leading-relaxed text-ink-muted">
-            Octavo keeps the measurements, the statistics, the sheet, its review and every released revision in one place, for the makers
+            Benchfold keeps the measurements, the statistics, the sheet, its review and every released revision in one place, for the makers
             of mixers, frequency multipliers and hybrids and for the labs that characterize them.
           </p>
           <div className="mt-8 flex flex-wrap items-center gap-4">
@@ -55,7 +55,7 @@ export function HomeView({ start }: { start: { href: string; label: string } | n
         </div>
         <figure className="self-end border-y-[1.5px] border-ink py-5" aria-labelledby="sample-caption">
           <figcaption id="sample-caption" className="running-head mb-3">
-            A line from a sheet, as Octavo sets it
+            A line from a sheet, as Benchfold sets it
           </figcaption>
           <table className="w-full text-[0.9375rem]">
             <thead>
@@ -181,7 +181,7 @@ export function HomeView({ start }: { start: { href: string; label: string } | n
 
       <section aria-labelledby="who-title" className="grid gap-8 md:grid-cols-3">
         <h2 id="who-title" className="sr-only">
-          Who works in Octavo
+          Who works in Benchfold
         </h2>
         <div className="border-t border-rule pt-4">
           <h3 className="font-semibold">Component makers and test labs</h3>

@@ -30,7 +30,7 @@ export function MailboxView({ messages }: { messages: CaughtMessage[] }) {
       <PageHeader
         runningHead="Development only"
         title="Caught mail"
-        lead="What Octavo sent while the local fake mail server was running. Nothing here left this machine."
+        lead="What Benchfold sent while the local fake mail server was running. Nothing here left this machine."
       />
       {newestFirst.length === 0 ? (
         <EmptyState title="No mail caught yet">

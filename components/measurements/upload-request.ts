@@ -53,7 +53,7 @@ export function sendUpload(options: {
       }
       resolve({ status: xhr.status, body });
     };
-    xhr.onerror = () => reject(new Error("Octavo could not be reached. Check your connection and try again."));
+    xhr.onerror = () => reject(new Error("Benchfold could not be reached. Check your connection and try again."));
     xhr.onabort = () => reject(new Error("Upload cancelled."));
     options.signal?.addEventListener("abort", () => xhr.abort());
     xhr.send(options.form);

@@ -5,10 +5,10 @@ export type CliCommand =
   | { command: "analyze"; file: string; kind?: MeasurementKind; json: boolean }
   | { command: "error"; message: string };
 
-export const CLI_USAGE = `Usage: octavo analyze <file> [--kind <kind>] [--json]
-       octavo --help
+export const CLI_USAGE = `Usage: benchfold analyze <file> [--kind <kind>] [--json]
+       benchfold --help
 
-Parses a bench measurement file and prints the parameters Octavo derives from it.
+Parses a bench measurement file and prints the parameters Benchfold derives from it.
 
   --kind <kind>  skip detection: ${MEASUREMENT_KINDS.join(", ")}
   --json         print {"kind", "parameters", "warnings"} as JSON

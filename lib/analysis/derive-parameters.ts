@@ -9,7 +9,7 @@ import { analyzeTwoTone } from "./two-tone";
 import type { AnalysisResult, DeriveOptions } from "./types";
 
 /**
- * Everything Octavo derives from one parsed measurement file: named parameters
+ * Everything Benchfold derives from one parsed measurement file: named parameters
  * with their conditions, plot-ready curves, and the parser's warnings followed
  * by the analysis's own.
  */

@@ -33,7 +33,7 @@ export function openCsv(fileName: string, content: FileContent, kind: Measuremen
 }
 
 export function readUnitConditions(doc: CsvDocument, warnings: string[]): UnitConditions {
-  const serial = metaString(doc, "serial", true, "OCT-0001");
+  const serial = metaString(doc, "serial", true, "BFD-0001");
   const lot = metaString(doc, "lot", false, "L2405");
   const temperatureC = metaQuantity(doc, "temperature", "temperature", RANGES.temperatureC, false, "25 C");
   if (temperatureC === undefined) warnings.push('no "# temperature:" metadata; the measurement temperature is unknown');

@@ -1,5 +1,5 @@
 /**
- * Octavo's CSV conventions (described in fixtures/FORMATS.md):
+ * Benchfold's CSV conventions (described in fixtures/FORMATS.md):
  *   # key: value          metadata lines at the top (lines starting "#"
  *                          without a colon are comments)
  *   name [unit],...       one header row; units in square brackets

@@ -1,7 +1,7 @@
 import { pairSweep } from "./sweep";
 
 /**
- * Harmonic suppression, sign convention used throughout Octavo:
+ * Harmonic suppression, sign convention used throughout Benchfold:
  *   suppressionDbc = P_wanted − P_harmonic
  * so a positive dBc figure means the harmonic lies that many dB BELOW the wanted
  * output (a doubler with 2f at −3 dBm and f at −33 dBm has 30 dBc fundamental

@@ -12,7 +12,7 @@ export interface FindSpursOptions {
 /**
  * A discrete spur. Its level is the trace's peak value in dBc/Hz as plotted: a
  * spur is a discrete tone, so its true power in dBc depends on the analyzer's
- * resolution bandwidth, which a trace does not carry. Octavo reports the peak
+ * resolution bandwidth, which a trace does not carry. Benchfold reports the peak
  * dBc/Hz reading and says so.
  */
 export interface Spur {

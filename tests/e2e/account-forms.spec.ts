@@ -1,7 +1,7 @@
 import { expect, test } from "@playwright/test";
 
 // The fake SMTP server's read-out, as the integration tests use it (scripts/fake-smtp.ts).
-const mailboxUrl = `http://127.0.0.1:${process.env.OCTAVO_MAILBOX_PORT ?? 2581}`;
+const mailboxUrl = `http://127.0.0.1:${process.env.BENCHFOLD_MAILBOX_PORT ?? 2581}`;
 
 async function waitForMail(to: string): Promise<{ subject: string; text: string }> {
   const until = Date.now() + 15_000;
@@ -15,7 +15,7 @@ async function waitForMail(to: string): Promise<{ subject: string; text: string 
 }
 
 test("a visitor signs up as a customer through the form, forgets the password and sets a new one from the mailed link", async ({ page }) => {
-  const email = `buyer-${Date.now()}-${Math.random().toString(36).slice(2, 8)}@octavo-tests.example`;
+  const email = `buyer-${Date.now()}-${Math.random().toString(36).slice(2, 8)}@benchfold-tests.example`;
   await page.goto("/sign-up");
   const form = page.getByTestId("sign-up-form");
   await form.getByLabel("Your name").fill("Iris Halloran");

@@ -13,7 +13,7 @@ test("an administrator creates a bench token, sees it once with a curl example, 
 
   const created = page.getByTestId("created-token");
   const token = (await created.getByTestId("created-token-value").textContent())?.trim() ?? "";
-  expect(token).toMatch(/^oct_[A-Za-z0-9_-]{20,}$/);
+  expect(token).toMatch(/^bfd_[A-Za-z0-9_-]{20,}$/);
   await expect(created).toContainText(`Authorization: Bearer ${token}`);
   await expect(created).toContainText("/api/v1/measurements");
 

@@ -87,7 +87,7 @@ test.describe("measurement upload on the device page", () => {
     // The table is re-read from the server after the batch.
     const table = page.getByTestId("measurement-sets-table");
     await expect(table).toContainText("drive-sweep-doubler.csv");
-    await expect(table).toContainText("OCT-0001");
+    await expect(table).toContainText("BFD-0001");
     await expect(table).toContainText("Awaiting review");
 
     const href = await link.getAttribute("href");

@@ -19,7 +19,7 @@ test("signing in through the form lands on the role's first page, and signing ou
 
 test("a wrong password is refused with a message, and the person stays signed out", async ({ page }) => {
   // A fresh address, so this test never counts against a demo account's attempt limit.
-  const email = `nobody-${Date.now()}-${Math.random().toString(36).slice(2, 8)}@octavo-tests.example`;
+  const email = `nobody-${Date.now()}-${Math.random().toString(36).slice(2, 8)}@benchfold-tests.example`;
   await page.goto("/sign-in?next=%2Fdevices");
   await page.getByLabel("E-mail address").fill(email);
   await page.getByLabel("Password").fill("not-the-password");

@@ -11,8 +11,8 @@ afterAll(() => closeSequelize());
 describe("migrations and demo seed on MariaDB", () => {
   it("applied every migration and seeder once", async () => {
     const sequelize = getSequelize();
-    const migrations = await sequelize.query<{ name: string }>("SELECT name FROM octavo_migrations", { type: QueryTypes.SELECT });
-    const seeds = await sequelize.query<{ name: string }>("SELECT name FROM octavo_seeds", { type: QueryTypes.SELECT });
+    const migrations = await sequelize.query<{ name: string }>("SELECT name FROM benchfold_migrations", { type: QueryTypes.SELECT });
+    const seeds = await sequelize.query<{ name: string }>("SELECT name FROM benchfold_seeds", { type: QueryTypes.SELECT });
     expect(migrations.map((m) => m.name)).toContain("20261201-0001-accounts-and-devices.ts");
     expect(seeds.map((s) => s.name)).toContain("20261201-0001-demo-organizations.ts");
   });
@@ -73,6 +73,6 @@ describe("demo measurement sets", () => {
     expect(sets.filter((s) => s.state === "submitted").length).toBeGreaterThan(0);
     const doubler = await Device.findOne({ where: { organizationId: kestrine!.id, partNumber: "KDX-2G4" } });
     const serials = sets.filter((s) => s.deviceId === doubler!.id && s.kind === "drive-sweep").map((s) => s.conditions.serial);
-    expect(serials.sort()).toEqual(["OCT-0001", "OCT-0002", "OCT-0003", "OCT-0004", "OCT-0005"]);
+    expect(serials.sort()).toEqual(["BFD-0001", "BFD-0002", "BFD-0003", "BFD-0004", "BFD-0005"]);
   });
 });

@@ -43,7 +43,7 @@ describe("upload", () => {
     expect(r.status, JSON.stringify(body)).toBe(201);
     const bytes = readFileSync(path.join(fixturesDir, "examples/drive-sweep-doubler.csv"));
     expect(body.measurementSet).toMatchObject({ state: "submitted", kind: "drive-sweep", sha256: createHash("sha256").update(bytes).digest("hex") });
-    expect(body.measurementSet.conditions.serial).toBe("OCT-0001");
+    expect(body.measurementSet.conditions.serial).toBe("BFD-0001");
     expect(body.measurementSet.parameters.map((p) => p.name)).toContain("conversion-loss");
     const stored = await StoredFile.unscoped().findOne({ where: { sha256: body.measurementSet.sha256, organizationId: org.organization.id } });
     expect(Buffer.compare(stored!.bytes, bytes)).toBe(0);
@@ -60,14 +60,14 @@ describe("upload", () => {
     const r = await as.engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload("examples/attenuator-2port.s2p") });
     expect(r.status).toBe(422);
     expect(((await r.json()) as { error: { details: { field: string } } }).error.details.field).toBe("serial");
-    const ok = await as.engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload("examples/attenuator-2port.s2p", { serial: "OCT-0200" }) });
+    const ok = await as.engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload("examples/attenuator-2port.s2p", { serial: "BFD-0200" }) });
     expect(ok.status).toBe(201);
   });
 
   const malformed = readdirSync(path.join(fixturesDir, "malformed")).sort();
   it.each(malformed)("malformed %s → 422 with the engine's message, nothing stored", async (file) => {
     const before = await counts();
-    const r = await as.engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload(`malformed/${file}`, { serial: "OCT-X" }) });
+    const r = await as.engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload(`malformed/${file}`, { serial: "BFD-X" }) });
     const body = (await r.json()) as { error: { code: string; message: string; details?: { ingest?: { fileName: string } } } };
     expect(r.status, body.error.message).toBe(422);
     expect(body.error.message.startsWith(file)).toBe(true);
@@ -91,7 +91,7 @@ describe("who may read, upload and approve", () => {
     expect((await as.customer.request(`/api/devices/${deviceId}/measurements`)).status).toBe(403);
     const foreign = await as.otherEngineer.request(`/api/devices/${deviceId}/measurements`);
     expect(foreign.status).toBe(404);
-    expect(await foreign.text()).not.toContain("OCT-0001");
+    expect(await foreign.text()).not.toContain("BFD-0001");
     const upload = await as.otherEngineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload("examples/two-tone-mixer.tsv") });
     expect(upload.status).toBe(404);
     expect((await as.customer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload("examples/two-tone-mixer.tsv") })).status).toBe(403);
@@ -133,10 +133,10 @@ describe("who may read, upload and approve", () => {
   });
 
   it("keeps both sets when a correction supersedes an approved one", async () => {
-    const first = (await (await as.engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload("examples/splitter-3port.s3p", { serial: "OCT-0301" }) })).json()) as { measurementSet: { id: number } };
+    const first = (await (await as.engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload("examples/splitter-3port.s3p", { serial: "BFD-0301" }) })).json()) as { measurementSet: { id: number } };
     await as.reviewer.request(`/api/measurements/${first.measurementSet.id}/review`, { json: { decision: "approve" } });
     const corrected = await as.engineer.request(`/api/devices/${deviceId}/measurements`, {
-      multipart: fixtureUpload("examples/hybrid-4port.s4p", { serial: "OCT-0301", supersedesId: String(first.measurementSet.id) }),
+      multipart: fixtureUpload("examples/hybrid-4port.s4p", { serial: "BFD-0301", supersedesId: String(first.measurementSet.id) }),
     });
     expect(corrected.status).toBe(201);
     const second = (await corrected.json()) as { measurementSet: { id: number; supersedesId: number } };
@@ -155,7 +155,7 @@ describe("instruments and bench tokens", () => {
     const { instrument } = (await created.json()) as { instrument: { id: number } };
     expect((await as.engineer.request("/api/admin/instruments", { json: {} })).status).toBe(403);
     const r = await as.engineer.request(`/api/devices/${deviceId}/measurements`, {
-      multipart: fixtureUpload("examples/hybrid-4port-v2.ts", { serial: "OCT-0400", measuredOn: "2026-06-01", instrumentIds: String(instrument.id) }),
+      multipart: fixtureUpload("examples/hybrid-4port-v2.ts", { serial: "BFD-0400", measuredOn: "2026-06-01", instrumentIds: String(instrument.id) }),
     });
     expect(r.status).toBe(201);
     const { measurementSet } = (await r.json()) as { measurementSet: { warnings: string[]; instruments: { calibrationLapsed: boolean }[] } };
@@ -201,7 +201,7 @@ describe("column mapping for foreign CSV files", () => {
   const foreign = (rows: string[]) =>
     new TextEncoder().encode(["# exported by bench script v3", "Pin_dBm;Fund (dBm);Harm2 (dBm);Harm3 (dBm);Temp_F", ...rows].join("\n") + "\n");
   const goodRows = ["-2;-40.1;-24.0;-55.2;77", "0;-38.0;-21.5;-52.8;77", "2;-35.9;-19.3;-50.1;77", "4;-33.5;-17.9;-47.7;77"];
-  const fields = { serial: `OCT-MAP-${Date.now()}`, inputFrequencyHz: "1000000000" };
+  const fields = { serial: `BFD-MAP-${Date.now()}`, inputFrequencyHz: "1000000000" };
 
   it("offers the mapping step, saves a mapping, and maps the next file with the same headers automatically", async () => {
     const first = await as.engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload("bench-export.csv", fields, foreign(goodRows)) });

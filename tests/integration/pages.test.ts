@@ -45,7 +45,7 @@ const pages: { name: string; path: () => string; allowed: UserRole[] }[] = [
 // A page that calls forbidden() or notFound() is sent as an empty HTML shell with the React payload
 // inlined, and the browser draws the refusal from it (tests/e2e check what is seen). Next sends the
 // forbidden.tsx fallback with every page, so here the status is the proof of refusal; the words only
-// show that the fallback is Octavo's own page, written for the viewer's role.
+// show that the fallback is Benchfold's own page, written for the viewer's role.
 
 describe("workspace pages answer with the status their refusal means", () => {
   for (const page of pages) {

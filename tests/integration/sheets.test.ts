@@ -120,7 +120,7 @@ describe("the draft PDF", () => {
     expect(r.headers.get("content-disposition")).toBe('attachment; filename="KDX-2G4-draft.pdf"');
     const bytes = Buffer.from(await r.arrayBuffer());
     expect(bytes.subarray(0, 5).toString()).toBe("%PDF-");
-    const file = path.join(mkdtempSync(path.join(tmpdir(), "octavo-pdf-")), "sheet.pdf");
+    const file = path.join(mkdtempSync(path.join(tmpdir(), "benchfold-pdf-")), "sheet.pdf");
     writeFileSync(file, bytes);
     // poppler's pdftotext reads the PDF independently of the renderer that wrote it.
     const text = execFileSync("pdftotext", ["-layout", file, "-"], { encoding: "utf8" }).replace(/\s+/g, " ");

@@ -14,7 +14,7 @@ export async function signUpCustomer(input: SignUpBody): Promise<{ userId: numbe
   const passwordHash = await bcrypt.hash(input.password, 11);
   return getSequelize().transaction(async (transaction) => {
     if (await User.findOne({ where: { email: input.email }, transaction })) {
-      throw new AppError("conflict", `${input.email} already has an Octavo account. Sign in or reset the password.`, { field: "email" });
+      throw new AppError("conflict", `${input.email} already has a Benchfold account. Sign in or reset the password.`, { field: "email" });
     }
     const base = input.company.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 40) || "customer";
     const organization = await Organization.create(

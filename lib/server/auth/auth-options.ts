@@ -11,7 +11,7 @@ import { clientAddress, isSignInThrottled, recordSignInAttempt } from "./rate-li
 export const signInErrors = { invalid: "invalid-credentials", throttled: "too-many-attempts" } as const;
 
 // Compared against when the account does not exist, so timing does not reveal which e-mails are registered.
-const decoyHash = bcrypt.hashSync("octavo-decoy-password", 10);
+const decoyHash = bcrypt.hashSync("benchfold-decoy-password", 10);
 
 export const authOptions: NextAuthOptions = {
   secret: process.env.NEXTAUTH_SECRET,

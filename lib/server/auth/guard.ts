@@ -45,7 +45,7 @@ export async function requireAccess(access: Exclude<Access, "public">): Promise<
 export function errorResponse(error: unknown): Response {
   if (isAppError(error)) return Response.json(error.toJSON(), { status: error.status });
   if (error instanceof ZodError) return Response.json(validationError(error).toJSON(), { status: 422 });
-  console.error("[octavo] unexpected error", error);
+  console.error("[benchfold] unexpected error", error);
   return Response.json(new AppError("internal", "Something went wrong on our side.").toJSON(), { status: 500 });
 }
 
@@ -116,7 +116,7 @@ export async function runAction<B, R>(
   } catch (error) {
     const appError = isAppError(error) ? error : error instanceof ZodError ? validationError(error) : null;
     if (!appError) {
-      console.error("[octavo] unexpected error in action", error);
+      console.error("[benchfold] unexpected error in action", error);
       return { ok: false, code: "internal", message: "Something went wrong on our side." };
     }
     return { ok: false, code: appError.code, message: appError.message };

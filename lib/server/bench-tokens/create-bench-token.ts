@@ -8,7 +8,7 @@ import { toBenchTokenSummary, type BenchTokenSummary } from "./bench-token-summa
 
 /** The plaintext token is returned once, here; the database keeps its SHA-256 and a short prefix to recognise it by. */
 export async function createBenchToken(opts: { actor: SessionUser; name: string }): Promise<{ token: string; benchToken: BenchTokenSummary }> {
-  const token = `oct_${randomBytes(30).toString("base64url")}`;
+  const token = `bfd_${randomBytes(30).toString("base64url")}`;
   return getSequelize().transaction(async (transaction) => {
     const row = await BenchToken.create(
       { organizationId: opts.actor.organizationId, createdById: opts.actor.id, name: opts.name, tokenPrefix: token.slice(0, 10), tokenHash: hashToken(token) },

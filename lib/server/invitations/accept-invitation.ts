@@ -11,7 +11,7 @@ export async function acceptInvitation(input: AcceptInvitationBody): Promise<{ u
   return getSequelize().transaction(async (transaction) => {
     const { invitation } = await findOpenInvitation(input.token, transaction);
     if (await User.findOne({ where: { email: invitation.email }, transaction })) {
-      throw new AppError("conflict", `${invitation.email} already has an Octavo account.`);
+      throw new AppError("conflict", `${invitation.email} already has a Benchfold account.`);
     }
     const user = await User.create(
       { organizationId: invitation.organizationId, email: invitation.email, name: input.name, role: invitation.role, passwordHash },

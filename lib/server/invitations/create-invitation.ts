@@ -24,7 +24,7 @@ export async function createInvitation(opts: { actor: SessionUser; input: Invite
   const sequelize = getSequelize();
   return sequelize.transaction(async (transaction) => {
     if (await User.findOne({ where: { email: input.email }, transaction })) {
-      throw new AppError("conflict", `${input.email} already has an Octavo account.`, { field: "email" });
+      throw new AppError("conflict", `${input.email} already has a Benchfold account.`, { field: "email" });
     }
     const pending = await Invitation.findOne({
       where: { organizationId: actor.organizationId, email: input.email, acceptedAt: null, expiresAt: { [Op.gt]: new Date() } },
@@ -45,7 +45,7 @@ export async function createInvitation(opts: { actor: SessionUser; input: Invite
     try {
       await sendMail(invitationMail({ to: input.email, organizationName: actor.organizationName, inviterName: actor.name, role: input.role, link, expiresAt }));
     } catch (error) {
-      console.error("[octavo] invitation mail failed", error);
+      console.error("[benchfold] invitation mail failed", error);
       throw new AppError("unavailable", "The invitation e-mail could not be sent; nothing was saved. Try again later.");
     }
     return { id: invitation.id, email: invitation.email, role: invitation.role, expiresAt: expiresAt.toISOString() };

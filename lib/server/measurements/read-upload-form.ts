@@ -2,9 +2,9 @@ import "server-only";
 import { AppError } from "@/lib/errors";
 import { uploadFieldsSchema, type UploadFields } from "@/lib/schemas/measurements";
 
-/** Largest measurement file accepted, in bytes (OCTAVO_MAX_UPLOAD_BYTES overrides). */
+/** Largest measurement file accepted, in bytes (BENCHFOLD_MAX_UPLOAD_BYTES overrides). */
 export function maxUploadBytes(): number {
-  return Number(process.env.OCTAVO_MAX_UPLOAD_BYTES ?? 10 * 1024 * 1024);
+  return Number(process.env.BENCHFOLD_MAX_UPLOAD_BYTES ?? 10 * 1024 * 1024);
 }
 
 export type UploadedFile = { name: string; contentType: string; bytes: Uint8Array };

@@ -97,8 +97,8 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
       title={`${header.partNumber} ${header.title} (${header.revisionText})`}
       author={header.organizationName}
       subject={`${header.deviceClassLabel} characterization sheet`}
-      creator="Octavo"
-      producer="Octavo"
+      creator="Benchfold"
+      producer="Benchfold"
       language="en"
     >
       <SheetPage model={model}>

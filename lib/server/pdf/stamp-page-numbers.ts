@@ -21,7 +21,7 @@ export interface PageNumberStyle {
 }
 
 // PDF 32000-1:2008 §9.6.4: a subset font's name starts with six upper-case letters and "+".
-const SUBSET_TAG = "OCTPGN";
+const SUBSET_TAG = "BFDPGN";
 
 const fontBytes = new Map<string, Uint8Array>();
 

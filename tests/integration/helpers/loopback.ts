@@ -9,4 +9,4 @@ export function assertLoopbackDatabase(): void {
   if (!database.includes("test")) throw new Error(`refusing to run tests against database '${database}': its name must contain 'test'`);
 }
 
-export const baseUrl = process.env.OCTAVO_TEST_URL ?? "http://localhost:3100";
+export const baseUrl = process.env.BENCHFOLD_TEST_URL ?? "http://localhost:3100";

@@ -1,4 +1,4 @@
-const mailboxUrl = `http://127.0.0.1:${process.env.OCTAVO_MAILBOX_PORT ?? 2581}`;
+const mailboxUrl = `http://127.0.0.1:${process.env.BENCHFOLD_MAILBOX_PORT ?? 2581}`;
 
 export type CaughtMail = { to: string; subject: string; text: string };
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { parseCliArgs } from "@/lib/analysis";
 
-describe("octavo CLI arguments", () => {
+describe("benchfold CLI arguments", () => {
   it.each([
     [["analyze", "a.csv"], { command: "analyze", file: "a.csv", kind: undefined, json: false }],
     [["analyze", "a.csv", "--json"], { command: "analyze", file: "a.csv", kind: undefined, json: true }],

@@ -106,7 +106,7 @@ describe("submitJsonForm", () => {
     vi.stubGlobal("fetch", vi.fn(async () => Promise.reject(new TypeError("Failed to fetch"))));
     const first = recorder();
     await submitJsonForm(options(), new FormData(), first.setters);
-    expect(first.state).toEqual({ errors: {}, formError: "Octavo could not be reached. Check your connection and try again.", pending: [true, false] });
+    expect(first.state).toEqual({ errors: {}, formError: "Benchfold could not be reached. Check your connection and try again.", pending: [true, false] });
 
     answer(201, { id: 7 });
     const second = recorder();

@@ -69,7 +69,7 @@ describe("CSV conventions", () => {
 
   it("converts units to Hz, dBm and °C", () => {
     const text = [
-      "# serial: OCT-0009",
+      "# serial: BFD-0009",
       "# temperature: 298.15 K",
       "# lo_power: 0.005 W",
       "frequency [kHz],output_power [mW],conversion_loss [dB]",
@@ -86,7 +86,7 @@ describe("CSV conventions", () => {
 
   it("warns about defaulted corrections, ignored columns and unknown metadata", () => {
     const text = [
-      "# serial: OCT-0001",
+      "# serial: BFD-0001",
       "# input_frequency: 1 GHz",
       "# wanted_order: 2",
       "# operator_note: x",
@@ -106,7 +106,7 @@ describe("CSV conventions", () => {
   });
 
   it("skips # comment lines between data rows", () => {
-    const text = "# serial: OCT-1\n# carrier_frequency: 1 GHz\noffset [Hz],L [dBc/Hz]\n10,-100\n# marker moved\n100,-110\n";
+    const text = "# serial: BFD-1\n# carrier_frequency: 1 GHz\noffset [Hz],L [dBc/Hz]\n10,-100\n# marker moved\n100,-110\n";
     expect(parsePhaseNoise("c.csv", text).data.offsetHz).toEqual([10, 100]);
   });
 

@@ -12,7 +12,7 @@ describe("good examples parse with exact values", () => {
     if (r.kind !== "drive-sweep") throw new Error(r.kind);
     const d = r.data;
     expect(r.warnings).toEqual([]);
-    expect(d.serial).toBe("OCT-0001");
+    expect(d.serial).toBe("BFD-0001");
     expect(d.lot).toBe("L2405");
     expect(d.temperatureC).toBe(25);
     expect(d.inputFrequencyHz).toBe(1e9);
@@ -33,7 +33,7 @@ describe("good examples parse with exact values", () => {
     const r = parseExample("frequency-sweep-mixer.csv");
     if (r.kind !== "frequency-sweep") throw new Error(r.kind);
     const d = r.data;
-    expect(d.serial).toBe("OCT-0107");
+    expect(d.serial).toBe("BFD-0107");
     expect(d.loPowerDbm).toBe(7);
     expect(d.ifFrequencyHz).toBe(70e6);
     expect(d.frequencyHz).toHaveLength(26);

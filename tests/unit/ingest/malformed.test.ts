@@ -39,7 +39,7 @@ const CASES: Case[] = [
   { file: "drive-metadata-unknown-unit.csv", code: "unknown-unit", line: 3, field: "input_frequency", says: 'unknown unit "GHzz"' },
   { file: "drive-metadata-no-unit.csv", code: "bad-metadata", line: 5, field: "splitter_excess_loss", says: '"0.4" has no unit' },
   { file: "drive-bad-wanted-order.csv", code: "bad-metadata", line: 4, field: "wanted_order", says: 'whole number from 1 to 16, found "two"' },
-  { file: "drive-missing-serial.csv", code: "missing-metadata", field: "serial", says: '"# serial: OCT-0001"' },
+  { file: "drive-missing-serial.csv", code: "missing-metadata", field: "serial", says: '"# serial: BFD-0001"' },
   { file: "drive-missing-input-frequency.csv", code: "missing-metadata", field: "input_frequency", says: 'required metadata "input_frequency" is missing' },
   { file: "duplicate-metadata.csv", code: "duplicate-metadata", line: 8, field: "serial", says: "appears twice (first on line 2)" },
   { file: "temperature-absurd.csv", code: "out-of-range", line: 7, field: "temperature", says: "900 C is outside the plausible range for a temperature" },

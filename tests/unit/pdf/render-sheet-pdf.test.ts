@@ -12,7 +12,7 @@ import { renderSheetPdf } from "@/lib/server/pdf/render-sheet-pdf";
 import { combGeneratorTemplate } from "../sheet/fourth-template";
 import { loadDoublerInput } from "../sheet/fixture";
 
-const dir = mkdtempSync(path.join(tmpdir(), "octavo-pdf-"));
+const dir = mkdtempSync(path.join(tmpdir(), "benchfold-pdf-"));
 
 function poppler(tool: "pdftotext" | "pdffonts" | "pdfinfo", pdf: Buffer, name: string): string {
   const file = path.join(dir, `${name}.pdf`);

@@ -10,7 +10,7 @@ function main(argv: string[]): number {
     return 0;
   }
   if (command.command === "error") {
-    process.stderr.write(`octavo: ${command.message}\n\n${CLI_USAGE}\n`);
+    process.stderr.write(`benchfold: ${command.message}\n\n${CLI_USAGE}\n`);
     return 2;
   }
 
@@ -18,7 +18,7 @@ function main(argv: string[]): number {
   try {
     bytes = readFileSync(command.file);
   } catch (error) {
-    process.stderr.write(`octavo: cannot read ${command.file}: ${(error as NodeJS.ErrnoException).code ?? String(error)}\n`);
+    process.stderr.write(`benchfold: cannot read ${command.file}: ${(error as NodeJS.ErrnoException).code ?? String(error)}\n`);
     return 2;
   }
   let parsed;

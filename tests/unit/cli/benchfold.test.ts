@@ -7,9 +7,9 @@ const ROOT = path.resolve(__dirname, "../../..");
 const TSX = path.join(ROOT, "node_modules/tsx/dist/cli.mjs");
 
 /** Runs the CLI as a user would; asynchronous so the cases below run side by side. */
-function octavo(...args: string[]): Promise<{ status: number | null; stdout: string; stderr: string }> {
+function benchfold(...args: string[]): Promise<{ status: number | null; stdout: string; stderr: string }> {
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, [TSX, "scripts/octavo.ts", ...args], { cwd: ROOT });
+    const child = spawn(process.execPath, [TSX, "scripts/benchfold.ts", ...args], { cwd: ROOT });
     let stdout = "";
     let stderr = "";
     child.stdout.setEncoding("utf8").on("data", (chunk: string) => (stdout += chunk));
@@ -21,9 +21,9 @@ function octavo(...args: string[]): Promise<{ status: number | null; stdout: str
 
 const EXAMPLES = readdirSync(path.join(ROOT, "fixtures/examples")).sort();
 
-describe.concurrent("octavo analyze on every example", () => {
+describe.concurrent("benchfold analyze on every example", () => {
   it.each(EXAMPLES)("%s --json", async (name) => {
-    const run = await octavo("analyze", `fixtures/examples/${name}`, "--json");
+    const run = await benchfold("analyze", `fixtures/examples/${name}`, "--json");
     expect(run.stderr).toBe("");
     expect(run.status).toBe(0);
     const output = JSON.parse(run.stdout);
@@ -41,7 +41,7 @@ describe.concurrent("octavo analyze on every example", () => {
   }, 60_000);
 
   it("prints an aligned table with units and the warnings", async () => {
-    const run = await octavo("analyze", "fixtures/examples/drive-sweep-doubler.csv");
+    const run = await benchfold("analyze", "fixtures/examples/drive-sweep-doubler.csv");
     expect(run.status).toBe(0);
     const lines = run.stdout.split("\n");
     const optimum = lines.find((l) => l.startsWith("optimum-drive"))!;
@@ -55,20 +55,20 @@ describe.concurrent("octavo analyze on every example", () => {
   }, 60_000);
 
   it("honours --kind", async () => {
-    const run = await octavo("analyze", "fixtures/examples/two-tone-mixer.tsv", "--kind", "two-tone", "--json");
+    const run = await benchfold("analyze", "fixtures/examples/two-tone-mixer.tsv", "--kind", "two-tone", "--json");
     expect(run.status).toBe(0);
     expect(JSON.parse(run.stdout).kind).toBe("two-tone");
   }, 60_000);
 });
 
-describe.concurrent("octavo analyze on bad input", () => {
+describe.concurrent("benchfold analyze on bad input", () => {
   it.each([
     ["drive-text-in-number.csv", "line 10, column 3"],
     ["touchstone-text-in-data.s2p", "line 3, column 5"],
     ["phase-noise-non-monotonic.csv", "line 9"],
     ["freq-too-many-cells.csv", "line"],
   ])("%s exits 2 naming the file and the line", async (name, where) => {
-    const run = await octavo("analyze", `fixtures/malformed/${name}`, "--json");
+    const run = await benchfold("analyze", `fixtures/malformed/${name}`, "--json");
     expect(run.status).toBe(2);
     expect(run.stdout).toBe("");
     expect(run.stderr).toContain(`fixtures/malformed/${name}`);
@@ -78,21 +78,21 @@ describe.concurrent("octavo analyze on bad input", () => {
   it.each([[["analyse", "x.csv"]], [["analyze", "fixtures/examples/two-tone-mixer.tsv", "--bogus"]], [[]]])(
     "%j prints usage on stderr and exits 2",
     async (args) => {
-      const run = await octavo(...args);
+      const run = await benchfold(...args);
       expect(run.status).toBe(2);
-      expect(run.stderr).toContain("Usage: octavo analyze");
+      expect(run.stderr).toContain("Usage: benchfold analyze");
     },
     60_000,
   );
 
   it("--help prints usage on stdout and exits 0", async () => {
-    const run = await octavo("--help");
+    const run = await benchfold("--help");
     expect(run.status).toBe(0);
-    expect(run.stdout).toContain("Usage: octavo analyze");
+    expect(run.stdout).toContain("Usage: benchfold analyze");
   }, 60_000);
 
   it("a missing file exits 2", async () => {
-    const run = await octavo("analyze", "fixtures/examples/no-such-file.csv");
+    const run = await benchfold("analyze", "fixtures/examples/no-such-file.csv");
     expect(run.status).toBe(2);
     expect(run.stderr).toContain("no-such-file.csv");
   }, 60_000);
