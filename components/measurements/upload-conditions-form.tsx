@@ -1,0 +1,185 @@
+"use client";
+
+import { useId } from "react";
+import type { InstrumentSummary } from "@/lib/server/instruments/instrument-summary";
+import { formatDate } from "@/components/format-quantity";
+import { frequencyUnitNames, type FrequencyUnit } from "@/components/devices/frequency-units";
+import { selectClass } from "@/components/ui/field";
+import { kindLabel, measurementKindLabels } from "./measurement-labels";
+import type { SupersedableSet, UploadConditions } from "./upload-form-data";
+
+type UploadConditionsFormProps = {
+  conditions: UploadConditions;
+  onChange: <K extends keyof UploadConditions>(key: K, value: UploadConditions[K]) => void;
+  disabled: boolean;
+  instruments: InstrumentSummary[];
+  supersedable: SupersedableSet[];
+};
+
+/** The conditions that apply to every file of a batch: unit, environment, set-up, instruments, notes. */
+export function UploadConditionsForm({ conditions, onChange: set, disabled, instruments, supersedable }: UploadConditionsFormProps) {
+  const id = useId();
+  return (
+    <fieldset className="space-y-4" disabled={disabled} data-testid="upload-conditions">
+      <legend className="running-head mb-3">Conditions for this batch</legend>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextInput label="Serial" value={conditions.serial} onChange={(v) => set("serial", v)} hint="Used when the file has no # serial: line" mono />
+        <TextInput label="Lot" value={conditions.lot} onChange={(v) => set("lot", v)} mono />
+        <UnitInput label="Temperature" unit="°C" value={conditions.temperatureC} onChange={(v) => set("temperatureC", v)} />
+        <div className="space-y-1.5">
+          <label htmlFor={`${id}-fin`} className="block text-[0.9375rem] font-semibold">
+            Input frequency
+          </label>
+          <div className="flex items-center gap-2">
+            <input
+              id={`${id}-fin`}
+              inputMode="decimal"
+              value={conditions.inputFrequency}
+              onChange={(e) => set("inputFrequency", e.target.value)}
+              className={`${selectClass} figure !w-28`}
+            />
+            <label htmlFor={`${id}-fin-unit`} className="sr-only">
+              Input frequency unit
+            </label>
+            <select
+              id={`${id}-fin-unit`}
+              value={conditions.inputFrequencyUnit}
+              onChange={(e) => set("inputFrequencyUnit", e.target.value as FrequencyUnit)}
+              className={`${selectClass} !w-24`}
+            >
+              {frequencyUnitNames.map((u) => (
+                <option key={u}>{u}</option>
+              ))}
+            </select>
+          </div>
+        </div>
+        <UnitInput label="Drive level" unit="dBm" value={conditions.driveLevelDbm} onChange={(v) => set("driveLevelDbm", v)} />
+        <UnitInput label="Splitter excess loss" unit="dB" value={conditions.splitterExcessLossDb} onChange={(v) => set("splitterExcessLossDb", v)} hint="Beyond the ideal 3.01 dB split" />
+        <UnitInput label="Cable loss" unit="dB" value={conditions.cableLossDb} onChange={(v) => set("cableLossDb", v)} />
+        <div className="space-y-1.5">
+          <label htmlFor={`${id}-date`} className="block text-[0.9375rem] font-semibold">
+            Measured on
+          </label>
+          <input id={`${id}-date`} type="date" value={conditions.measuredOn} onChange={(e) => set("measuredOn", e.target.value)} className={`${selectClass} figure`} />
+        </div>
+        <div className="space-y-1.5">
+          <label htmlFor={`${id}-kind`} className="block text-[0.9375rem] font-semibold">
+            Kind
+          </label>
+          <select id={`${id}-kind`} value={conditions.kind} onChange={(e) => set("kind", e.target.value)} className={selectClass}>
+            <option value="">Detect from the file</option>
+            {Object.entries(measurementKindLabels).map(([value, label]) => (
+              <option key={value} value={value}>
+                {label}
+              </option>
+            ))}
+          </select>
+        </div>
+        <div className="space-y-1.5">
+          <label htmlFor={`${id}-supersedes`} className="block text-[0.9375rem] font-semibold">
+            Supersedes set
+          </label>
+          <select id={`${id}-supersedes`} value={conditions.supersedesId} onChange={(e) => set("supersedesId", e.target.value)} className={selectClass}>
+            <option value="">None — a new set</option>
+            {supersedable.map((s) => (
+              <option key={s.id} value={String(s.id)}>
+                #{s.id} · {kindLabel(s.kind)} · {s.serial ?? "no serial"} · {s.fileName}
+              </option>
+            ))}
+          </select>
+          <p className="text-sm text-ink-muted">For a correction: the older set stays on record, marked superseded.</p>
+        </div>
+      </div>
+
+      <InstrumentChoice instruments={instruments} chosen={conditions.instrumentIds} onChange={(ids) => set("instrumentIds", ids)} />
+
+      <div className="space-y-1.5">
+        <label htmlFor={`${id}-notes`} className="block text-[0.9375rem] font-semibold">
+          Notes
+        </label>
+        <textarea id={`${id}-notes`} value={conditions.notes} onChange={(e) => set("notes", e.target.value)} rows={2} className={selectClass} />
+      </div>
+    </fieldset>
+  );
+}
+
+/** The organization's instruments, ticked for the ones used; calibration state beside each. */
+function InstrumentChoice({ instruments, chosen, onChange }: { instruments: InstrumentSummary[]; chosen: number[]; onChange: (ids: number[]) => void }) {
+  return (
+    <fieldset className="space-y-2">
+      <legend className="text-[0.9375rem] font-semibold">Instruments</legend>
+      {instruments.length === 0 ? (
+        <p className="text-sm text-ink-muted">Your administrator has listed no instruments yet.</p>
+      ) : (
+        <ul className="max-h-52 space-y-1 overflow-y-auto border-y border-rule py-2" data-testid="upload-instruments">
+          {instruments.map((instrument) => {
+            const checked = chosen.includes(instrument.id);
+            return (
+              <li key={instrument.id}>
+                <label className="flex items-baseline gap-2 text-[0.9375rem]">
+                  <input
+                    type="checkbox"
+                    checked={checked}
+                    onChange={() =>
+                      onChange(checked ? chosen.filter((x) => x !== instrument.id) : [...chosen, instrument.id])
+                    }
+                    className="translate-y-px accent-[var(--color-signal)]"
+                  />
+                  <span>
+                    {instrument.kind} · {instrument.model} <span className="figure text-ink-muted">{instrument.serial}</span>
+                    {instrument.calibrationOverdue ? (
+                      <span className="ml-1.5 font-semibold text-signal-deep">
+                        · calibration overdue since <span className="figure">{formatDate(instrument.calibrationDueOn)}</span>
+                      </span>
+                    ) : (
+                      <span className="ml-1.5 text-sm text-ink-muted">
+                        · due <span className="figure">{formatDate(instrument.calibrationDueOn)}</span>
+                      </span>
+                    )}
+                  </span>
+                </label>
+              </li>
+            );
+          })}
+        </ul>
+      )}
+    </fieldset>
+  );
+}
+
+function TextInput({ label, value, onChange, hint, mono }: { label: string; value: string; onChange: (v: string) => void; hint?: string; mono?: boolean }) {
+  const id = useId();
+  return (
+    <div className="space-y-1.5">
+      <label htmlFor={id} className="block text-[0.9375rem] font-semibold">
+        {label}
+      </label>
+      <input id={id} value={value} onChange={(e) => onChange(e.target.value)} className={`${selectClass} ${mono ? "figure" : ""}`} aria-describedby={hint ? `${id}-hint` : undefined} />
+      {hint ? (
+        <p id={`${id}-hint`} className="text-sm text-ink-muted">
+          {hint}
+        </p>
+      ) : null}
+    </div>
+  );
+}
+
+function UnitInput({ label, unit, value, onChange, hint }: { label: string; unit: string; value: string; onChange: (v: string) => void; hint?: string }) {
+  const id = useId();
+  return (
+    <div className="space-y-1.5">
+      <label htmlFor={id} className="block text-[0.9375rem] font-semibold">
+        {label}
+      </label>
+      <div className="flex items-center gap-2">
+        <input id={id} inputMode="decimal" value={value} onChange={(e) => onChange(e.target.value)} className={`${selectClass} figure !w-28`} aria-describedby={hint ? `${id}-hint` : undefined} />
+        <span className="unit">{unit}</span>
+      </div>
+      {hint ? (
+        <p id={`${id}-hint`} className="text-sm text-ink-muted">
+          {hint}
+        </p>
+      ) : null}
+    </div>
+  );
+}
