@@ -68,82 +68,136 @@ export function computeGroupStatistics(options: GroupStatisticsOptions): GroupSt
   const { label, unit, decimals, values, limit, expandedUncertainty, cpkThreshold, coverage, confidence } = options;
   const statDecimals = decimals + 1;
   const flags: StatisticsFlag[] = [];
-  const hasLimit = limit !== undefined && (limit.min !== undefined || limit.max !== undefined);
-  const n = values.length;
-  const lots = new Set(values.map((v) => v.lot ?? "")).size;
-
-  let mean = emptyValue;
-  let standardDeviation = emptyValue;
-  let median = emptyValue;
-  let min = emptyValue;
-  let max = emptyValue;
-  let meanValue: number | null = null;
-  let toleranceInterval: GroupStatistics["toleranceInterval"] = null;
-  let cpk = emptyValue;
-  let s = Number.NaN;
-
-  if (n > 0) {
-    const summary = summarizeSample(values.map((v) => v.value));
-    meanValue = summary.mean;
-    s = summary.standardDeviation;
-    mean = formatValue(summary.mean, statDecimals);
-    standardDeviation = formatValue(Number.isFinite(s) ? s : null, statDecimals);
-    median = formatValue(summary.median, statDecimals);
-    min = formatValue(summary.min, statDecimals);
-    max = formatValue(summary.max, statDecimals);
-    if (n >= 2 && s > 0) {
-      const factor = toleranceFactor(n, coverage, confidence);
-      toleranceInterval = {
-        lower: formatValue(summary.mean - factor * s, statDecimals),
-        upper: formatValue(summary.mean + factor * s, statDecimals),
-        factor: formatValue(factor, 3),
-      };
-    }
-  }
+  const stated = limit !== undefined && (limit.min !== undefined || limit.max !== undefined) ? limit : undefined;
+  const sample = describeSample(values, statDecimals, coverage, confidence);
 
   if (limit && limit.unit !== unit) {
     flags.push({ code: "limit-unit-mismatch", message: `The limit is stated in ${limit.unit || "no unit"}, the parameter in ${unit}.` });
   }
+  const cpk = stated ? judgeCapability(sample, stated, cpkThreshold, flags) : emptyValue;
+  const known = expandedUncertainty !== undefined && expandedUncertainty >= 0 ? expandedUncertainty : undefined;
+  const decisions = decideUnits({ values, limit: stated, expandedUncertainty: known, unit, statDecimals, flags });
 
-  if (hasLimit && n === 0) {
+  return {
+    n: sample.n,
+    lots: new Set(values.map((v) => v.lot ?? "")).size,
+    mean: sample.mean,
+    standardDeviation: sample.standardDeviation,
+    median: sample.median,
+    min: sample.min,
+    max: sample.max,
+    meanValue: sample.meanValue === null ? null : roundStable(sample.meanValue),
+    toleranceInterval: sample.toleranceInterval,
+    cpk,
+    expandedUncertainty: known !== undefined ? formatValue(known, statDecimals) : emptyValue,
+    decisionRule: decisions.decisionRule,
+    ruleStatement: decisions.ruleStatement ? `${label}: ${decisions.ruleStatement}` : null,
+    acceptance: decisions.acceptance,
+    units: decisions.units,
+    passCount: decisions.passCount,
+    failCount: decisions.failCount,
+    flags,
+  };
+}
+
+type SampleDescription = Pick<GroupStatistics, "n" | "mean" | "standardDeviation" | "median" | "min" | "max" | "meanValue" | "toleranceInterval"> & {
+  /** The sample standard deviation, NaN below two values. */
+  s: number;
+};
+
+/** n, mean, s, median, extremes and the tolerance interval of the values. */
+function describeSample(values: UnitValue[], statDecimals: number, coverage: number, confidence: number): SampleDescription {
+  const n = values.length;
+  if (n === 0) {
+    return { n, mean: emptyValue, standardDeviation: emptyValue, median: emptyValue, min: emptyValue, max: emptyValue, meanValue: null, toleranceInterval: null, s: Number.NaN };
+  }
+  const summary = summarizeSample(values.map((v) => v.value));
+  const s = summary.standardDeviation;
+  let toleranceInterval: GroupStatistics["toleranceInterval"] = null;
+  if (n >= 2 && s > 0) {
+    const factor = toleranceFactor(n, coverage, confidence);
+    toleranceInterval = {
+      lower: formatValue(summary.mean - factor * s, statDecimals),
+      upper: formatValue(summary.mean + factor * s, statDecimals),
+      factor: formatValue(factor, 3),
+    };
+  }
+  return {
+    n,
+    mean: formatValue(summary.mean, statDecimals),
+    standardDeviation: formatValue(Number.isFinite(s) ? s : null, statDecimals),
+    median: formatValue(summary.median, statDecimals),
+    min: formatValue(summary.min, statDecimals),
+    max: formatValue(summary.max, statDecimals),
+    meanValue: summary.mean,
+    toleranceInterval,
+    s,
+  };
+}
+
+/** Cpk against the stated limits, flagging a limit the data cannot judge or do not support. */
+function judgeCapability(sample: SampleDescription, limit: SpecLimitInput, cpkThreshold: number, flags: StatisticsFlag[]): FormattedValue {
+  const { n, s, meanValue } = sample;
+  if (n === 0) {
     flags.push({ code: "limit-without-data", message: "A limit is stated but no approved measurement supports it." });
-  } else if (hasLimit && (n < 2 || !(s > 0))) {
+    return emptyValue;
+  }
+  if (n < 2 || !(s > 0) || meanValue === null) {
     flags.push({
       code: "insufficient-data",
       message: n < 2 ? `Only ${n} unit measured: Cpk and a tolerance interval need at least 2.` : "All units read the same value: Cpk is undefined.",
     });
-  } else if (hasLimit && meanValue !== null) {
-    try {
-      const capability = computeCapability({ mean: meanValue, standardDeviation: s, lowerSpecLimit: limit.min, upperSpecLimit: limit.max });
-      cpk = formatValue(capability.cpk, 2);
-      if (capability.cpk < cpkThreshold) {
-        flags.push({
-          code: "cpk-below-threshold",
-          message: `Cpk ${formatTrimmed(capability.cpk, 2)} is below the threshold ${formatTrimmed(cpkThreshold, 2)}: the data do not support this limit.`,
-        });
-      }
-    } catch (error) {
-      flags.push({ code: "insufficient-data", message: error instanceof Error ? error.message : String(error) });
-    }
+    return emptyValue;
   }
+  try {
+    const capability = computeCapability({ mean: meanValue, standardDeviation: s, lowerSpecLimit: limit.min, upperSpecLimit: limit.max });
+    if (capability.cpk < cpkThreshold) {
+      flags.push({
+        code: "cpk-below-threshold",
+        message: `Cpk ${formatTrimmed(capability.cpk, 2)} is below the threshold ${formatTrimmed(cpkThreshold, 2)}: the data do not support this limit.`,
+      });
+    }
+    return formatValue(capability.cpk, 2);
+  } catch (error) {
+    flags.push({ code: "insufficient-data", message: error instanceof Error ? error.message : String(error) });
+    return emptyValue;
+  }
+}
 
-  let decisionRule: GroupStatistics["decisionRule"] = null;
-  let ruleStatement: string | null = null;
-  let acceptance: GroupStatistics["acceptance"] = null;
-  const units: UnitResult[] = [];
-  let passCount = 0;
-  let failCount = 0;
-  const known = expandedUncertainty !== undefined && expandedUncertainty >= 0;
-  if (hasLimit) {
-    decisionRule = known ? "guard-band" : "simple-acceptance";
-    const u = known ? expandedUncertainty : 0;
-    ruleStatement = known
+interface UnitDecisions {
+  decisionRule: GroupStatistics["decisionRule"];
+  ruleStatement: string | null;
+  acceptance: GroupStatistics["acceptance"];
+  units: UnitResult[];
+  passCount: number;
+  failCount: number;
+}
+
+/**
+ * Each unit judged against the limit under the stated decision rule: the acceptance zone is the
+ * limit moved inwards by U when U is known (guarded acceptance), the limit itself otherwise.
+ */
+function decideUnits(options: {
+  values: UnitValue[];
+  limit: SpecLimitInput | undefined;
+  expandedUncertainty: number | undefined;
+  unit: string;
+  statDecimals: number;
+  flags: StatisticsFlag[];
+}): UnitDecisions {
+  const { values, limit, expandedUncertainty, unit, statDecimals, flags } = options;
+  const known = expandedUncertainty !== undefined;
+  const u = expandedUncertainty ?? 0;
+  const result: UnitDecisions = { decisionRule: null, ruleStatement: null, acceptance: null, units: [], passCount: 0, failCount: 0 };
+  if (limit) {
+    result.decisionRule = known ? "guard-band" : "simple-acceptance";
+    result.ruleStatement = known
       ? describeDecisionRule("guard-band", u, unit)
       : "Simple acceptance (ILAC-G8:09/2019 §4.2.1, guard band w = 0): no measurement uncertainty is stated for this " +
         "parameter, so a unit passes when its measured value lies within the specification limits.";
-    const guardLower = limit.min === undefined ? null : limit.min + (known ? u : 0);
-    const guardUpper = limit.max === undefined ? null : limit.max - (known ? u : 0);
-    acceptance = { lower: formatValue(guardLower, statDecimals), upper: formatValue(guardUpper, statDecimals) };
+    const guardLower = limit.min === undefined ? null : limit.min + u;
+    const guardUpper = limit.max === undefined ? null : limit.max - u;
+    result.acceptance = { lower: formatValue(guardLower, statDecimals), upper: formatValue(guardUpper, statDecimals) };
     if (guardLower !== null && guardUpper !== null && guardLower > guardUpper) {
       flags.push({
         code: "guard-band-closes-acceptance",
@@ -155,56 +209,36 @@ export function computeGroupStatistics(options: GroupStatisticsOptions): GroupSt
   for (const v of values) {
     let decision: UnitResult["decision"] = null;
     let conditional = false;
-    if (hasLimit) {
+    if (limit) {
       try {
-        const result = decideConformity({
+        const judged = decideConformity({
           measuredValue: v.value,
           lowerLimit: limit.min,
           upperLimit: limit.max,
-          expandedUncertainty: known ? expandedUncertainty : 0,
+          expandedUncertainty: u,
           rule: known ? "guard-band" : "simple-acceptance",
           unit,
         });
-        decision = result.decision;
-        conditional = result.conditional;
+        decision = judged.decision;
+        conditional = judged.conditional;
       } catch {
         // The zone is closed (flagged above): no unit can be accepted.
         decision = "fail";
       }
-      if (decision === "pass") passCount++;
-      else failCount++;
+      if (decision === "pass") result.passCount++;
+      else result.failCount++;
     }
-    units.push({ serial: v.serial, lot: v.lot, setId: v.setId, value: formatValue(v.value, statDecimals), decision, conditional });
+    result.units.push({ serial: v.serial, lot: v.lot, setId: v.setId, value: formatValue(v.value, statDecimals), decision, conditional });
   }
-  if (failCount > 0) {
-    const rule = decisionRule === "guard-band" ? "the guard-banded limit" : "the limit";
+  if (result.failCount > 0) {
+    const rule = result.decisionRule === "guard-band" ? "the guard-banded limit" : "the limit";
     flags.push({
       code: "unit-outside-acceptance",
-      message: `${failCount} of ${n} units fall outside ${rule}: ${units
-        .filter((u) => u.decision === "fail")
-        .map((u) => u.serial)
+      message: `${result.failCount} of ${values.length} units fall outside ${rule}: ${result.units
+        .filter((unitResult) => unitResult.decision === "fail")
+        .map((unitResult) => unitResult.serial)
         .join(", ")}.`,
     });
   }
-
-  return {
-    n,
-    lots,
-    mean,
-    standardDeviation,
-    median,
-    min,
-    max,
-    meanValue: meanValue === null ? null : roundStable(meanValue),
-    toleranceInterval,
-    cpk,
-    expandedUncertainty: known ? formatValue(expandedUncertainty, statDecimals) : emptyValue,
-    decisionRule,
-    ruleStatement: ruleStatement ? `${label}: ${ruleStatement}` : null,
-    acceptance,
-    units,
-    passCount,
-    failCount,
-    flags,
-  };
+  return result;
 }
