@@ -1,4 +1,4 @@
-import type { Role } from "@/lib/server/auth/permissions";
+import type { Role } from "@/lib/domain/permissions";
 
 export const roleLabels: Record<Role, string> = {
   admin: "Administrator",

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { getSessionUser } from "@/lib/server/auth/session";
-import { navigationFor } from "@/lib/server/auth/permissions";
+import { navigationFor } from "@/lib/domain/permissions";
 import { Logo } from "./logo";
 import { NavLinks } from "./nav-links";
 import { roleLabels } from "./role-label";

@@ -1,5 +1,5 @@
 import { getSessionUser } from "@/lib/server/auth/session";
-import { navigationFor } from "@/lib/server/auth/permissions";
+import { navigationFor } from "@/lib/domain/permissions";
 import { HomeView } from "@/components/home/home-view";
 
 export default async function HomePage() {

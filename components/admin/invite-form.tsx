@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { inviteUserBodySchema, type InviteUserBody } from "@/lib/schemas/accounts";
-import type { Role } from "@/lib/server/auth/permissions";
+import type { Role } from "@/lib/domain/permissions";
 import { roleLabels } from "@/components/role-label";
 import { buttonClass } from "@/components/ui/button";
 import { Field, selectClass } from "@/components/ui/field";

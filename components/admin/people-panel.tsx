@@ -1,7 +1,7 @@
 "use client";
 
 import { useState } from "react";
-import type { Role } from "@/lib/server/auth/permissions";
+import type { Role } from "@/lib/domain/permissions";
 import { messageOf, requestJson } from "@/components/api-client";
 import { formatDate, formatDateTime } from "@/components/format-quantity";
 import { roleLabels } from "@/components/role-label";

@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { isRole } from "@/lib/server/auth/permissions";
+import { isRole } from "@/lib/domain/permissions";
 import { formatDateTime } from "@/components/format-quantity";
 import { roleLabels } from "@/components/role-label";
 import { AcceptInvitationForm } from "./accept-invitation-form";

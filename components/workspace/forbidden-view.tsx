@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { navigationFor, type Role } from "@/lib/server/auth/permissions";
+import { navigationFor, type Role } from "@/lib/domain/permissions";
 import { roleLabels } from "@/components/role-label";
 
 /** What a signed-in person sees on a page their role does not open (served with HTTP 403). */

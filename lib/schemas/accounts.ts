@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { roles } from "@/lib/server/auth/permissions";
+import { roles } from "@/lib/domain/permissions";
 
 /** Shared by the forms and the route handlers. */
 const email = z.string().trim().toLowerCase().email("Enter a valid e-mail address.").max(254);

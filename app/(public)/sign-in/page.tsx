@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { redirect } from "next/navigation";
 import { getSessionUser } from "@/lib/server/auth/session";
-import { navigationFor } from "@/lib/server/auth/permissions";
+import { navigationFor } from "@/lib/domain/permissions";
 import { AuthFrame } from "@/components/auth/auth-frame";
 import { safeNextPath } from "@/components/auth/safe-next";
 import { SignInForm } from "@/components/auth/sign-in-form";

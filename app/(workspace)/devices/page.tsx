@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { can } from "@/lib/server/auth/permissions";
+import { can } from "@/lib/domain/permissions";
 import { requirePageUser } from "@/lib/server/auth/require-page-user";
 import { findDevicePage } from "@/lib/server/devices/find-device-page";
 import { readDeviceListQuery } from "@/components/devices/device-list-query";

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { listDevices } from "@/lib/server/devices/list-devices";
-import { can, sheetDraftReaders } from "@/lib/server/auth/permissions";
+import { can, sheetDraftReaders } from "@/lib/domain/permissions";
 import { requirePageUser } from "@/lib/server/auth/require-page-user";
 import { SheetsIndexView } from "@/components/sheets/sheets-index-view";
 

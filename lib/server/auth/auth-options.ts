@@ -4,7 +4,7 @@ import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { User, getSequelize } from "@/models";
 import { serverConfig } from "../config";
-import { isRole } from "./permissions";
+import { isRole } from "@/lib/domain/permissions";
 import { clientAddress, isSignInThrottled, recordSignInAttempt } from "./rate-limit";
 
 /** Codes the sign-in form turns into words (next-auth passes the thrown message through as `error`). */

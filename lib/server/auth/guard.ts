@@ -3,7 +3,7 @@ import { headers } from "next/headers";
 import { ZodError, type ZodType } from "zod";
 import { AppError, isAppError } from "@/lib/errors";
 import { serverConfig } from "../config";
-import { can, type Permission } from "./permissions";
+import { can, type Permission } from "@/lib/domain/permissions";
 import { getSessionUser, type SessionUser } from "./session";
 
 /** Who may call: anyone, any signed-in user, or a role holding this permission. */

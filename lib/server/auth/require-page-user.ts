@@ -1,7 +1,7 @@
 import "server-only";
 import { forbidden, redirect } from "next/navigation";
 import { getSessionUser, type SessionUser } from "./session";
-import { canAny, type Permission } from "./permissions";
+import { canAny, type Permission } from "@/lib/domain/permissions";
 
 /**
  * Every workspace page asks for itself (a layout is not re-run on client navigation):

@@ -1,4 +1,4 @@
-import type { Role } from "./permissions";
+import type { Role } from "@/lib/domain/permissions";
 
 /** The signed-in person as every server function sees it: always read fresh from the database. */
 export type SessionUser = {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { can, navigationFor, roles } from "@/lib/server/auth/permissions";
+import { can, navigationFor, roles } from "@/lib/domain/permissions";
 
 describe("navigation follows the role → permission table", () => {
   it.each([

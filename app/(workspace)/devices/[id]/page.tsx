@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { isAppError } from "@/lib/errors";
-import { can } from "@/lib/server/auth/permissions";
+import { can } from "@/lib/domain/permissions";
 import { requirePageUser } from "@/lib/server/auth/require-page-user";
 import { getDevice } from "@/lib/server/devices/get-device";
 import { listInstruments } from "@/lib/server/instruments/list-instruments";

@@ -4,7 +4,7 @@ import { Suspense } from "react";
 import { isAppError } from "@/lib/errors";
 import { buildSheetModel, type SheetInput } from "@/lib/sheet";
 import { loadSheetInput } from "@/lib/server/sheets/load-sheet-input";
-import { can, sheetDraftReaders } from "@/lib/server/auth/permissions";
+import { can, sheetDraftReaders } from "@/lib/domain/permissions";
 import { requirePageUser } from "@/lib/server/auth/require-page-user";
 import { findSheetTemplate } from "@/templates";
 import { SheetView } from "@/components/sheet/sheet-view";
