@@ -11,6 +11,8 @@ const nextConfig = {
     "nodemailer",
     "mailparser",
   ],
+  // Inlined at build time; only `npm test` sets it, to offer the test-only device classes (lib/domain/device-classes.ts).
+  env: { BENCHFOLD_TEST_DEVICE_CLASSES: process.env.BENCHFOLD_TEST_DEVICE_CLASSES ?? "" },
   poweredByHeader: false,
   reactStrictMode: true,
   typedRoutes: false,

@@ -2,6 +2,7 @@ import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
 import { SiteFooter } from "@/components/site-footer";
 import { SiteHeader } from "@/components/site-header";
+import { getSessionUser } from "@/lib/server/auth/session";
 import "./globals.css";
 
 // Full TTFs from the installed packages: nothing is fetched at build or run time.
@@ -35,14 +36,15 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { themeColor: "#FAF7F0" };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  const user = await getSessionUser();
   return (
     <html lang="en" className={`${textFont.variable} ${figureFont.variable}`}>
       <body className="flex min-h-dvh flex-col bg-paper text-ink antialiased">
         <a href="#content" className="skip-link">
           Skip to content
         </a>
-        <SiteHeader />
+        <SiteHeader user={user} />
         <main id="content" tabIndex={-1} className="mx-auto w-full max-w-page flex-1 px-5 pb-20 pt-10 outline-none sm:px-8">
           {children}
         </main>

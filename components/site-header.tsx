@@ -1,13 +1,14 @@
 import Link from "next/link";
-import { getSessionUser } from "@/lib/server/auth/session";
-import { navigationFor } from "@/lib/domain/permissions";
+import { navigationFor, type Role } from "@/lib/domain/permissions";
 import { Logo } from "./logo";
 import { NavLinks } from "./nav-links";
-import { roleLabels } from "./role-label";
+import { roleLabels } from "@/lib/domain/accounts";
 import { SignOutButton } from "./auth/sign-out-button";
 
-export async function SiteHeader() {
-  const user = await getSessionUser();
+/** Who is signed in (the layout reads the session), or null. */
+export type HeaderUser = { name: string; role: Role; organizationName: string } | null;
+
+export function SiteHeader({ user }: { user: HeaderUser }) {
   const items = navigationFor(user?.role ?? null).map(({ href, label }) => ({ href, label }));
 
   return (

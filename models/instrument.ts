@@ -1,7 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import type { InstrumentUncertainty } from "../lib/domain/instruments";
 
-/** A stated uncertainty for one quantity, as on the calibration certificate. */
-export type InstrumentUncertainty = { quantity: string; value: number; unit: string; coverageFactor: number };
+export type { InstrumentUncertainty };
 
 export class Instrument extends Model<InferAttributes<Instrument>, InferCreationAttributes<Instrument>> {
   declare id: CreationOptional<number>;

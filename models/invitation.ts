@@ -1,7 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { Organization } from "./organization";
-import type { User, UserRole } from "./user";
-import { userRoles } from "./user";
+import type { User } from "./user";
+import { roles, type Role } from "../lib/domain/permissions";
 
 /** An invitation to join an organization; only the SHA-256 of its token is stored. */
 export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
@@ -9,7 +9,7 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
   declare organizationId: ForeignKey<Organization["id"]>;
   declare invitedById: ForeignKey<User["id"]>;
   declare email: string;
-  declare role: UserRole;
+  declare role: Role;
   declare tokenHash: string;
   declare expiresAt: Date;
   declare acceptedAt: CreationOptional<Date | null>;
@@ -23,7 +23,7 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
         organizationId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         invitedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         email: { type: DataTypes.STRING(254), allowNull: false },
-        role: { type: DataTypes.ENUM(...userRoles), allowNull: false },
+        role: { type: DataTypes.ENUM(...roles), allowNull: false },
         tokenHash: { type: DataTypes.CHAR(64), allowNull: false, unique: true },
         expiresAt: { type: DataTypes.DATE(3), allowNull: false },
         acceptedAt: { type: DataTypes.DATE(3), allowNull: true },

@@ -1,14 +1,14 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
-import type { MeasurementConditions } from "../lib/ingest/upload-conditions";
+import {
+  measurementSetStates,
+  measurementSources,
+  type DerivedParameter,
+  type MeasurementConditions,
+  type MeasurementSetState,
+  type MeasurementSource,
+} from "../lib/domain/measurements";
 
-export const measurementSetStates = ["submitted", "approved", "rejected"] as const;
-export type MeasurementSetState = (typeof measurementSetStates)[number];
-
-/** Conditions stated at upload (or read from the file's metadata). Units in the names. */
-export type { MeasurementConditions };
-
-/** One derived parameter as the engine reports it. */
-export type DerivedParameter = { name: string; value: number | null; unit: string; conditions: Record<string, string | number> };
+export type { DerivedParameter, MeasurementConditions, MeasurementSetState };
 
 export class MeasurementSet extends Model<InferAttributes<MeasurementSet>, InferCreationAttributes<MeasurementSet>> {
   declare id: CreationOptional<number>;
@@ -27,7 +27,7 @@ export class MeasurementSet extends Model<InferAttributes<MeasurementSet>, Infer
   declare curves: unknown;
   declare warnings: string[];
   declare measuredOn: string | null;
-  declare source: "browser" | "bench-api";
+  declare source: MeasurementSource;
   declare uploadedById: number | null;
   declare benchTokenId: number | null;
   declare reviewedById: CreationOptional<number | null>;
@@ -54,7 +54,7 @@ export class MeasurementSet extends Model<InferAttributes<MeasurementSet>, Infer
         curves: { type: DataTypes.JSON, allowNull: false },
         warnings: { type: DataTypes.JSON, allowNull: false },
         measuredOn: { type: DataTypes.DATEONLY, allowNull: true },
-        source: { type: DataTypes.ENUM("browser", "bench-api"), allowNull: false },
+        source: { type: DataTypes.ENUM(...measurementSources), allowNull: false },
         uploadedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         benchTokenId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         reviewedById: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },

@@ -1,7 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { organizationKinds, type OrganizationKind } from "../lib/domain/accounts";
 
-export const organizationKinds = ["vendor", "lab", "customer"] as const;
-export type OrganizationKind = (typeof organizationKinds)[number];
+export type { OrganizationKind };
 
 export class Organization extends Model<InferAttributes<Organization>, InferCreationAttributes<Organization>> {
   declare id: CreationOptional<number>;

@@ -1,7 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
-
-export const limitBases = ["test", "characterization", "design"] as const;
-export type LimitBasis = (typeof limitBases)[number];
+import { limitBases, type LimitBasis } from "../lib/domain/sheets";
 
 /** A min/typ/max line of the electrical specifications, for one parameter under one condition group. */
 export class SpecLimit extends Model<InferAttributes<SpecLimit>, InferCreationAttributes<SpecLimit>> {

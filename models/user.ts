@@ -1,8 +1,9 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import type { Organization } from "./organization";
+import { roles, type Role } from "../lib/domain/permissions";
 
-export const userRoles = ["admin", "engineer", "reviewer", "customer"] as const;
-export type UserRole = (typeof userRoles)[number];
+/** The role column holds one of the roles of the permission table. */
+export type UserRole = Role;
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>;
@@ -10,7 +11,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare email: string;
   declare name: string;
   declare passwordHash: string;
-  declare role: UserRole;
+  declare role: Role;
   declare disabledAt: CreationOptional<Date | null>;
   /** Bumped to end every session of the user (disable, password change). */
   declare tokenVersion: CreationOptional<number>;
@@ -26,7 +27,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
         name: { type: DataTypes.STRING(120), allowNull: false },
         passwordHash: { type: DataTypes.STRING(100), allowNull: false },
-        role: { type: DataTypes.ENUM(...userRoles), allowNull: false },
+        role: { type: DataTypes.ENUM(...roles), allowNull: false },
         disabledAt: { type: DataTypes.DATE(3), allowNull: true },
         tokenVersion: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         lastSignInAt: { type: DataTypes.DATE(3), allowNull: true },

@@ -52,7 +52,8 @@ if curl -fsS -o /dev/null "$BENCHFOLD_TEST_URL/api/auth/csrf" 2>/dev/null; then
 fi
 
 log "── build"
-if node node_modules/next/dist/bin/next build >"$BENCHFOLD_DATA_DIR/logs/next-build-test.log" 2>&1; then
+# This build also offers the test-only device classes (lib/domain/device-classes.ts); npm start's never does.
+if BENCHFOLD_TEST_DEVICE_CLASSES=1 node node_modules/next/dist/bin/next build >"$BENCHFOLD_DATA_DIR/logs/next-build-test.log" 2>&1; then
   node node_modules/next/dist/bin/next start -p "$PORT" >"$BENCHFOLD_DATA_DIR/logs/next-test-server.log" 2>&1 &
   SERVER_PID=$!
   for _ in $(seq 1 150); do curl -fsS "$BENCHFOLD_TEST_URL/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done

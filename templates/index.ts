@@ -1,3 +1,6 @@
+import type { DeviceClass } from "../lib/domain/device-classes";
+import { isDeviceClass } from "../lib/domain/device-classes";
+import { combGeneratorTemplate } from "./comb-generator-test-only";
 import { doubleBalancedMixerTemplate } from "./double-balanced-mixer";
 import { frequencyMultiplierTemplate } from "./frequency-multiplier";
 import { quadratureHybridTemplate } from "./quadrature-hybrid";
@@ -5,15 +8,20 @@ import type { SheetTemplate } from "./types";
 
 export type * from "./types";
 
-/** Every device class Benchfold ships; a new class is a new folder plus one line here. */
-export const sheetTemplates: Readonly<Record<string, SheetTemplate>> = {
-  [frequencyMultiplierTemplate.deviceClass]: frequencyMultiplierTemplate,
-  [doubleBalancedMixerTemplate.deviceClass]: doubleBalancedMixerTemplate,
-  [quadratureHybridTemplate.deviceClass]: quadratureHybridTemplate,
+/**
+ * The template of each class of lib/domain/device-classes.ts. The type asks for one entry per
+ * class there, so a class added to the list and not here fails the type check.
+ */
+const sheetTemplates: Readonly<Record<DeviceClass, SheetTemplate>> = {
+  "frequency-multiplier": frequencyMultiplierTemplate,
+  "double-balanced-mixer": doubleBalancedMixerTemplate,
+  "quadrature-hybrid": quadratureHybridTemplate,
+  "comb-generator-test-only": combGeneratorTemplate,
 };
 
+/** The template of a class this build offers (a test-only class only in the test build). */
 export function findSheetTemplate(deviceClass: string): SheetTemplate | undefined {
-  return Object.hasOwn(sheetTemplates, deviceClass) ? sheetTemplates[deviceClass] : undefined;
+  return isDeviceClass(deviceClass) ? sheetTemplates[deviceClass] : undefined;
 }
 
-export { doubleBalancedMixerTemplate, frequencyMultiplierTemplate, quadratureHybridTemplate };
+export { combGeneratorTemplate, doubleBalancedMixerTemplate, frequencyMultiplierTemplate, quadratureHybridTemplate };

@@ -3,12 +3,11 @@
  * Data plus a few small functions; lib/sheet reads it, the renderers never do.
  */
 
-import type { MeasurementKind } from "../lib/ingest/types";
+import type { DeviceClass } from "../lib/domain/device-classes";
+import type { MeasurementKind } from "../lib/domain/measurements";
+import type { LimitBasis, ProseSectionId } from "../lib/domain/sheets";
 
-/** Where a published limit comes from; printed as a mark beside the limit. */
-export type LimitBasis = "test" | "characterization" | "design";
-
-export type ProseSectionId = "description" | "features" | "applications" | "handling" | "test-fixture";
+export type { DeviceClass, LimitBasis, ProseSectionId };
 
 /** How one condition value is written in a table cell. */
 export type ConditionFormat =
@@ -99,9 +98,8 @@ export interface AbsoluteMaximumRatingTemplate {
 }
 
 export interface SheetTemplate {
-  deviceClass: string;
-  /** Human name of the class, e.g. "Frequency multiplier". */
-  label: string;
+  /** A name from lib/domain/device-classes.ts, which also holds the class's human name. */
+  deviceClass: DeviceClass;
   /** Measurement kinds whose approved sets feed the sheet. */
   measurementKinds: MeasurementKind[];
   specifications: {

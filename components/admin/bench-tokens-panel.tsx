@@ -1,7 +1,7 @@
 "use client";
 
 import { useState } from "react";
-import type { BenchTokenSummary } from "@/lib/server/bench-tokens/bench-token-summary";
+import type { BenchTokenSummary } from "@/lib/domain/instruments";
 import { benchTokenBodySchema } from "@/lib/schemas/measurements";
 import { messageOf, requestJson } from "@/components/api-client";
 import { formatDateTime } from "@/components/format-quantity";

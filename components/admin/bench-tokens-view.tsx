@@ -1,4 +1,4 @@
-import type { BenchTokenSummary } from "@/lib/server/bench-tokens/bench-token-summary";
+import type { BenchTokenSummary } from "@/lib/domain/instruments";
 import { PageHeader } from "@/components/ui/page-header";
 import { BenchTokensPanel } from "./bench-tokens-panel";
 

@@ -1,7 +1,7 @@
 "use client";
 
 import { useId, useState } from "react";
-import type { InstrumentSummary } from "@/lib/server/instruments/instrument-summary";
+import type { InstrumentSummary } from "@/lib/domain/instruments";
 import { instrumentBodySchema, type InstrumentBody } from "@/lib/schemas/measurements";
 import { formatDate, formatNumber } from "@/components/format-quantity";
 import { useJsonForm, type FormCheck } from "@/components/use-json-form";

@@ -1,4 +1,4 @@
-import type { InstrumentSummary } from "@/lib/server/instruments/instrument-summary";
+import type { InstrumentSummary } from "@/lib/domain/instruments";
 import { PageHeader } from "@/components/ui/page-header";
 import { InstrumentsPanel } from "./instruments-panel";
 

@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { inviteUserBodySchema, type InviteUserBody } from "@/lib/schemas/accounts";
 import type { Role } from "@/lib/domain/permissions";
-import { roleLabels } from "@/components/role-label";
+import { roleLabels } from "@/lib/domain/accounts";
 import { buttonClass } from "@/components/ui/button";
 import { Field, selectClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";

@@ -4,7 +4,7 @@ import { useState } from "react";
 import type { Role } from "@/lib/domain/permissions";
 import { messageOf, requestJson } from "@/components/api-client";
 import { formatDate, formatDateTime } from "@/components/format-quantity";
-import { roleLabels } from "@/components/role-label";
+import { roleLabels } from "@/lib/domain/accounts";
 import { useJsonResource } from "@/components/use-json-resource";
 import { buttonClass } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { isRole } from "@/lib/domain/permissions";
 import { formatDateTime } from "@/components/format-quantity";
-import { roleLabels } from "@/components/role-label";
+import { roleLabels } from "@/lib/domain/accounts";
 import { AcceptInvitationForm } from "./accept-invitation-form";
 import { AuthFrame } from "./auth-frame";
 

@@ -3,16 +3,14 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { deviceBodySchema, type DeviceBody } from "@/lib/schemas/measurements";
-import type { DeviceSummary } from "@/lib/server/devices/device-summary";
+import type { DeviceSummary } from "@/lib/domain/devices";
 import { buttonClass } from "@/components/ui/button";
 import { Field, selectClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { useJsonForm, type FormCheck } from "@/components/use-json-form";
-import { deviceClassLabels } from "./device-class-label";
+import { deviceClasses, deviceClassLabels, type DeviceClass } from "@/lib/domain/device-classes";
 import { FrequencyRangeField, type FrequencyRangeValue } from "./frequency-range-field";
 import { toHz } from "./frequency-units";
-
-type DeviceClass = keyof typeof deviceClassLabels;
 
 const emptyRange: FrequencyRangeValue = { min: "", max: "", unit: "GHz" };
 
@@ -100,9 +98,9 @@ export function DeviceForm({ device }: { device?: DeviceSummary }) {
             Class
           </label>
           <select id="new-device-class" value={deviceClass} onChange={(e) => setDeviceClass(e.target.value as DeviceClass)} className={selectClass}>
-            {(Object.entries(deviceClassLabels) as [DeviceClass, string][]).map(([value, label]) => (
+            {deviceClasses.map((value) => (
               <option key={value} value={value}>
-                {label}
+                {deviceClassLabels[value]}
               </option>
             ))}
           </select>

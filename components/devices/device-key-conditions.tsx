@@ -1,7 +1,7 @@
-import type { DeviceSummary } from "@/lib/server/devices/device-summary";
+import type { DeviceSummary } from "@/lib/domain/devices";
 import { formatFrequencyRange, formatNumber } from "@/components/format-quantity";
 import { Quantity } from "@/components/ui/quantity";
-import { deviceClassLabels } from "./device-class-label";
+import { deviceClassLabels } from "@/lib/domain/device-classes";
 
 /** The identifying conditions of a part, as a ruled definition list. */
 export function DeviceKeyConditions({ device }: { device: DeviceSummary }) {

@@ -1,8 +1,8 @@
 
 /** The device list's search, sort and page, all from the query string so a view can be linked. */
-import { deviceSortKeys, type DeviceListQuery, type DeviceSortKey } from "@/lib/devices/list-query";
+import { deviceSortKeys, type DeviceListQuery, type DeviceSortKey } from "@/lib/domain/devices";
 
-export { deviceSortKeys, devicesPerPage, type DeviceListQuery, type DeviceSortKey } from "@/lib/devices/list-query";
+export { deviceSortKeys, devicesPerPage, type DeviceListQuery, type DeviceSortKey } from "@/lib/domain/devices";
 
 type Params = Record<string, string | string[] | undefined>;
 

@@ -1,7 +1,7 @@
 import Link from "next/link";
-import type { DeviceSummary } from "@/lib/server/devices/device-summary";
-import type { InstrumentSummary } from "@/lib/server/instruments/instrument-summary";
-import type { MeasurementSetSummary } from "@/lib/server/measurements/measurement-set-summary";
+import type { DeviceSummary } from "@/lib/domain/devices";
+import type { InstrumentSummary } from "@/lib/domain/instruments";
+import type { MeasurementSetSummary } from "@/lib/domain/measurements";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { MeasurementSetsTable } from "@/components/measurements/measurement-sets-table";

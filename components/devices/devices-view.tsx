@@ -1,12 +1,12 @@
 import Link from "next/link";
-import type { DevicePage } from "@/lib/server/devices/find-device-page";
+import type { DevicePage } from "@/lib/domain/devices";
 import { formatDate, formatFrequencyRange, formatNumber } from "@/components/format-quantity";
 import { buttonClass } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { selectClass } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { Quantity } from "@/components/ui/quantity";
-import { deviceClassLabels } from "./device-class-label";
+import { deviceClassLabels } from "@/lib/domain/device-classes";
 import { deviceListHref, type DeviceListQuery, type DeviceSortKey } from "./device-list-query";
 import { DeviceForm } from "./device-form";
 

@@ -1,4 +1,4 @@
-import type { CaughtMessage } from "@/lib/server/mail/read-dev-mailbox";
+import type { CaughtMessage } from "@/lib/domain/dev-mailbox";
 import { formatDateTime } from "@/components/format-quantity";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";

@@ -5,7 +5,7 @@ import { messageOf, requestJson } from "@/components/api-client";
 import { buttonClass } from "@/components/ui/button";
 import { selectClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { kindLabel } from "./measurement-labels";
+import { kindLabel } from "@/lib/domain/measurements";
 import { findMappingProblems, guessTarget, likeliestKind, metadataFor, type Choice, type MappingMetadata } from "./column-mapping-choices";
 import { MappingTable, MissingMetadataFields } from "./column-mapping-fields";
 import type { UploadConditions } from "./upload-form-data";

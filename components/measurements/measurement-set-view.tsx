@@ -1,15 +1,15 @@
 import Link from "next/link";
 import { parameterCatalog } from "@/lib/analysis/catalog";
 import type { Curve, DerivedParameter } from "@/lib/analysis/types";
-import type { DeviceSummary } from "@/lib/server/devices/device-summary";
-import type { MeasurementSetDetail } from "@/lib/server/measurements/get-measurement-set";
+import type { DeviceSummary } from "@/lib/domain/devices";
+import type { MeasurementSetDetail } from "@/lib/domain/measurements";
 import { curvesForDisplay, thermalFloorFromParameters } from "@/components/charts/curve-spec";
 import { CurveFigure } from "@/components/charts/curve-figure";
 import { formatDate, formatDateTime, formatFrequency, formatNumber } from "@/components/format-quantity";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { Quantity } from "@/components/ui/quantity";
-import { kindLabel } from "./measurement-labels";
+import { kindLabel } from "@/lib/domain/measurements";
 import { describeConditions } from "./parameter-conditions";
 import { ReviewActions } from "./review-actions";
 import { StateBadge } from "./state-badge";

@@ -1,8 +1,8 @@
 import Link from "next/link";
-import type { MeasurementSetSummary } from "@/lib/server/measurements/measurement-set-summary";
+import type { MeasurementSetSummary } from "@/lib/domain/measurements";
 import { formatDateTime, formatNumber } from "@/components/format-quantity";
 import { Quantity } from "@/components/ui/quantity";
-import { kindLabel } from "./measurement-labels";
+import { kindLabel } from "@/lib/domain/measurements";
 import { StateBadge } from "./state-badge";
 
 /** Every set of one device, newest first: what was measured, on which unit, and where it stands. */

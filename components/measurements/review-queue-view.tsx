@@ -1,11 +1,11 @@
 import Link from "next/link";
-import type { DeviceSummary } from "@/lib/server/devices/device-summary";
-import type { MeasurementSetSummary } from "@/lib/server/measurements/measurement-set-summary";
+import type { DeviceSummary } from "@/lib/domain/devices";
+import type { MeasurementSetSummary } from "@/lib/domain/measurements";
 import { formatDateTime } from "@/components/format-quantity";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
-import { kindLabel } from "./measurement-labels";
+import { kindLabel } from "@/lib/domain/measurements";
 
 type ReviewQueueViewProps = { organizationName: string; sets: MeasurementSetSummary[]; devices: DeviceSummary[] };
 

@@ -1,9 +1,9 @@
-import { stateLabels, type SetState } from "./measurement-labels";
+import { measurementSetStateLabels, type MeasurementSetState } from "@/lib/domain/measurements";
 
-const marks: Record<SetState, string> = { submitted: "○", approved: "●", rejected: "×" };
+const marks: Record<MeasurementSetState, string> = { submitted: "○", approved: "●", rejected: "×" };
 
 /** A set's state in words, with a mark and a rule; colour only adds to what the word says. */
-export function StateBadge({ state }: { state: SetState }) {
+export function StateBadge({ state }: { state: MeasurementSetState }) {
   const tone =
     state === "approved"
       ? "border-ink text-ink"
@@ -13,7 +13,7 @@ export function StateBadge({ state }: { state: SetState }) {
   return (
     <span className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded border px-1.5 py-px text-[0.8125rem] font-semibold ${tone}`} data-state={state}>
       <span aria-hidden="true">{marks[state]}</span>
-      {stateLabels[state]}
+      {measurementSetStateLabels[state]}
     </span>
   );
 }

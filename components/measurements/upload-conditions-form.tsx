@@ -1,11 +1,11 @@
 "use client";
 
 import { useId } from "react";
-import type { InstrumentSummary } from "@/lib/server/instruments/instrument-summary";
+import type { InstrumentSummary } from "@/lib/domain/instruments";
 import { formatDate } from "@/components/format-quantity";
 import { frequencyUnitNames, type FrequencyUnit } from "@/components/devices/frequency-units";
 import { selectClass } from "@/components/ui/field";
-import { kindLabel, measurementKindLabels } from "./measurement-labels";
+import { kindLabel, measurementKindLabels } from "@/lib/domain/measurements";
 import type { SupersedableSet, UploadConditions } from "./upload-form-data";
 
 type UploadConditionsFormProps = {

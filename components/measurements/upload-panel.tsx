@@ -1,7 +1,7 @@
 "use client";
 
 import { useId, useState } from "react";
-import type { InstrumentSummary } from "@/lib/server/instruments/instrument-summary";
+import type { InstrumentSummary } from "@/lib/domain/instruments";
 import { buttonClass } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { ColumnMappingPanel } from "./column-mapping-panel";

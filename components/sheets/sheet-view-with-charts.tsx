@@ -1,9 +1,10 @@
 import type { SheetModel } from "@/lib/sheet/types";
-import { renderSheetChartSvgs } from "@/lib/server/pdf/render-chart";
 import { SheetView } from "@/components/sheet/sheet-view";
 
-/** The web sheet with its charts drawn on the server from the model's own Vega-Lite specs. */
-export async function SheetViewWithCharts({ model }: { model: SheetModel }) {
-  const chartSvgs = await renderSheetChartSvgs(model);
-  return <SheetView model={model} chartSvgs={chartSvgs} />;
+/**
+ * The web sheet with its charts, once the page's server-side drawing of the model's Vega-Lite
+ * specs (a promise, so the sheet streams in behind a Suspense fallback) has finished.
+ */
+export async function SheetViewWithCharts({ model, chartSvgs }: { model: SheetModel; chartSvgs: Promise<Record<string, string>> }) {
+  return <SheetView model={model} chartSvgs={await chartSvgs} />;
 }

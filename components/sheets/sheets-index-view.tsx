@@ -1,15 +1,21 @@
 import Link from "next/link";
 import { Suspense } from "react";
-import type { DeviceSummary } from "@/lib/server/devices/list-devices";
-import { buildDeviceSheet } from "@/lib/server/sheets/build-device-sheet";
-import { deviceClassLabels } from "@/components/devices/device-class-label";
+import type { DeviceSummary } from "@/lib/domain/devices";
+import type { SheetModel } from "@/lib/sheet/types";
+import { deviceClassLabels } from "@/lib/domain/device-classes";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 
-type SheetsIndexViewProps = { devices: DeviceSummary[]; organizationId: number; organizationName: string; canEdit: boolean };
+type SheetsIndexViewProps = {
+  devices: DeviceSummary[];
+  /** Builds one device's draft model on the server (the page passes lib/server's buildDeviceSheet). */
+  loadDraft: (deviceId: number) => Promise<SheetModel>;
+  organizationName: string;
+  canEdit: boolean;
+};
 
 /** Every device of the organization with the state of its draft sheet; each count streams in as its model is built. */
-export function SheetsIndexView({ devices, organizationId, organizationName, canEdit }: SheetsIndexViewProps) {
+export function SheetsIndexView({ devices, loadDraft, organizationName, canEdit }: SheetsIndexViewProps) {
   return (
     <>
       <PageHeader
@@ -60,7 +66,7 @@ export function SheetsIndexView({ devices, organizationId, organizationName, can
                   <td className="whitespace-nowrap">{deviceClassLabels[device.deviceClass]}</td>
                   <td className="min-w-[14rem]">{device.title}</td>
                   <Suspense fallback={<PendingCells />}>
-                    <SheetStatusCells organizationId={organizationId} deviceId={device.id} />
+                    <SheetStatusCells loadDraft={loadDraft} deviceId={device.id} />
                   </Suspense>
                 </tr>
               ))}
@@ -84,10 +90,10 @@ function PendingCells() {
   );
 }
 
-async function SheetStatusCells({ organizationId, deviceId }: { organizationId: number; deviceId: number }) {
+async function SheetStatusCells({ loadDraft, deviceId }: { loadDraft: SheetsIndexViewProps["loadDraft"]; deviceId: number }) {
   let model;
   try {
-    model = await buildDeviceSheet({ organizationId, deviceId });
+    model = await loadDraft(deviceId);
   } catch (error) {
     return (
       <td colSpan={4} className="num text-sm text-signal-deep">

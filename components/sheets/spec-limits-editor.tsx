@@ -1,7 +1,8 @@
 "use client";
 
 import { useMemo, useState, type FormEvent } from "react";
-import type { LimitBasis, SpecLimitInput, StatisticsGroup } from "@/lib/sheet/types";
+import { limitBases, limitBasisWords, type LimitBasis } from "@/lib/domain/sheets";
+import type { SpecLimitInput, StatisticsGroup } from "@/lib/sheet/types";
 import { ApiError, requestJson } from "@/components/api-client";
 import { formatNumber } from "@/components/format-quantity";
 import { buttonClass } from "@/components/ui/button";
@@ -20,11 +21,7 @@ type EditorRow = Pick<StatisticsGroup, "parameter" | "conditionsKey" | "label" |
   group: StatisticsGroup | null;
 };
 
-const basisOptions: { value: LimitBasis; label: string }[] = [
-  { value: "test", label: "Guaranteed by test" },
-  { value: "characterization", label: "Guaranteed by characterization" },
-  { value: "design", label: "Guaranteed by design" },
-];
+const basisOptions = limitBases.map((value) => ({ value, label: limitBasisWords[value].choice }));
 
 const limitKey = (parameter: string, conditionsKey: string) => `${parameter}|${conditionsKey}`;
 

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { navigationFor, type Role } from "@/lib/domain/permissions";
-import { roleLabels } from "@/components/role-label";
+import { roleLabels } from "@/lib/domain/accounts";
 
 /** What a signed-in person sees on a page their role does not open (served with HTTP 403). */
 export function ForbiddenView({ role }: { role: Role | null }) {

@@ -1,4 +1,4 @@
-import { MEASUREMENT_KINDS, type MeasurementKind } from "../ingest/types";
+import { measurementKinds, type MeasurementKind } from "../domain/measurements";
 
 export type CliCommand =
   | { command: "help" }
@@ -10,7 +10,7 @@ export const CLI_USAGE = `Usage: benchfold analyze <file> [--kind <kind>] [--jso
 
 Parses a bench measurement file and prints the parameters Benchfold derives from it.
 
-  --kind <kind>  skip detection: ${MEASUREMENT_KINDS.join(", ")}
+  --kind <kind>  skip detection: ${measurementKinds.join(", ")}
   --json         print {"kind", "parameters", "warnings"} as JSON
   --help, -h     show this help
 
@@ -34,8 +34,8 @@ export function parseCliArgs(argv: readonly string[]): CliCommand {
     } else if (arg === "--kind" || arg.startsWith("--kind=")) {
       const value = arg === "--kind" ? rest[++i] : arg.slice("--kind=".length);
       if (value === undefined || value === "") return { command: "error", message: "--kind needs a value" };
-      if (!(MEASUREMENT_KINDS as readonly string[]).includes(value)) {
-        return { command: "error", message: `Unknown kind "${value}"; expected one of ${MEASUREMENT_KINDS.join(", ")}` };
+      if (!(measurementKinds as readonly string[]).includes(value)) {
+        return { command: "error", message: `Unknown kind "${value}"; expected one of ${measurementKinds.join(", ")}` };
       }
       kind = value as MeasurementKind;
     } else if (arg.startsWith("-") && arg !== "-") {

@@ -7,9 +7,10 @@
 import { decodeInput } from "./text-guards";
 import { IngestError } from "./errors";
 import { parseMeasurementFile } from "./parse-measurement-file";
-import type { MeasurementKind, ParsedMeasurement } from "./types";
+import type { MappableKind } from "../domain/measurements";
+import type { ParsedMeasurement } from "./types";
 
-export type MappableKind = Exclude<MeasurementKind, "touchstone">;
+export type { MappableKind };
 
 /** Our column names per kind, with the units each accepts (the parser converts them). */
 export const mappingTargets: Record<MappableKind, { target: string; label: string; units: string[]; required: boolean }[]> = {

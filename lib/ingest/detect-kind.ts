@@ -1,7 +1,8 @@
 import { normalizeName } from "./csv-table";
 import { IngestError, shortenFound } from "./errors";
 import { portsFromExtension } from "./touchstone";
-import { MEASUREMENT_KINDS, type MeasurementKind } from "./types";
+import { measurementKinds } from "../domain/measurements";
+import type { MeasurementKind } from "./types";
 
 /** Only the start of a file is looked at: metadata and the header come first. */
 const DETECT_WINDOW_CHARS = 64 * 1024;
@@ -59,15 +60,15 @@ export function detectKind(fileName: string, text: string): MeasurementKind {
       }
       if (normalizeName(body.slice(0, colon)) === "kind") {
         const value = body.slice(colon + 1).trim().toLowerCase();
-        if ((MEASUREMENT_KINDS as readonly string[]).includes(value)) return value as MeasurementKind;
+        if ((measurementKinds as readonly string[]).includes(value)) return value as MeasurementKind;
         throw new IngestError({
           fileName,
           code: "unknown-kind",
           line: lineNo,
           field: "kind",
-          expected: MEASUREMENT_KINDS.join(", "),
+          expected: measurementKinds.join(", "),
           found: shortenFound(value),
-          detail: `unknown kind "${shortenFound(value)}"; expected one of ${MEASUREMENT_KINDS.join(", ")}`,
+          detail: `unknown kind "${shortenFound(value)}"; expected one of ${measurementKinds.join(", ")}`,
         });
       }
       continue;

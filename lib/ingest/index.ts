@@ -1,6 +1,5 @@
 export { IngestError, isIngestError, type IngestErrorCode, type IngestErrorDetails } from "./errors";
 export type * from "./types";
-export { MEASUREMENT_KINDS } from "./types";
 export type { FileContent, ParseOptions } from "./csv-common";
 export { DEFAULT_MAX_BYTES } from "./text-guards";
 export { parseDriveSweep } from "./drive-sweep";

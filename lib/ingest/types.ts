@@ -3,15 +3,10 @@
  * unit is in each property name), so lib/rf can use them directly.
  */
 
-export type MeasurementKind = "drive-sweep" | "frequency-sweep" | "two-tone" | "phase-noise" | "touchstone";
+import type { MeasurementKind } from "../domain/measurements";
 
-export const MEASUREMENT_KINDS: readonly MeasurementKind[] = [
-  "drive-sweep",
-  "frequency-sweep",
-  "two-tone",
-  "phase-noise",
-  "touchstone",
-];
+/** The kinds are listed once, in lib/domain/measurements.ts. */
+export type { MeasurementKind };
 
 /** What every CSV measurement says about the unit under test. */
 export interface UnitConditions {

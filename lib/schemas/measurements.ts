@@ -1,4 +1,6 @@
 import { z } from "zod";
+import { deviceClasses } from "@/lib/domain/device-classes";
+import { mappableKinds, measurementKinds } from "@/lib/domain/measurements";
 
 /** Shared by the upload form, the browser upload route and the bench API. */
 const optionalNumber = (min: number, max: number, what: string) =>
@@ -25,7 +27,7 @@ export const measurementConditionsSchema = z.object({
 export type MeasurementConditionsInput = z.infer<typeof measurementConditionsSchema>;
 
 export const uploadFieldsSchema = measurementConditionsSchema.extend({
-  kind: z.enum(["drive-sweep", "frequency-sweep", "two-tone", "phase-noise", "touchstone"]).optional().or(z.literal("").transform(() => undefined)),
+  kind: z.enum(measurementKinds).optional().or(z.literal("").transform(() => undefined)),
   instrumentIds: z.array(z.coerce.number().int().positive()).max(20).default([]),
   supersedesId: optionalNumber(1, 2 ** 31, "supersedes"),
   mappingId: optionalNumber(1, 2 ** 31, "column mapping"),
@@ -66,7 +68,7 @@ export const benchTokenBodySchema = z.object({ name: z.string().trim().min(2, "N
 
 export const deviceBodySchema = z.object({
   partNumber: z.string().trim().min(1).max(64).regex(/^[A-Za-z0-9][A-Za-z0-9._\-/]*$/, "Use letters, digits, . _ - /"),
-  deviceClass: z.enum(["frequency-multiplier", "double-balanced-mixer", "quadrature-hybrid"]),
+  deviceClass: z.enum(deviceClasses, { error: "Choose one of the device classes." }),
   title: z.string().trim().min(3).max(200),
   description: z.string().trim().max(2000).default(""),
   keyConditions: z
@@ -82,7 +84,7 @@ export type DeviceBody = z.infer<typeof deviceBodySchema>;
 
 export const columnMappingBodySchema = z.object({
   name: z.string().trim().min(2).max(120),
-  kind: z.enum(["drive-sweep", "frequency-sweep", "two-tone", "phase-noise"]),
+  kind: z.enum(mappableKinds),
   headers: z.array(z.string().max(200)).min(1).max(64),
   mapping: z
     .array(z.object({ column: z.string().max(200), target: z.string().regex(/^[a-z0-9_]+$/).max(40), unit: z.string().max(16) }))

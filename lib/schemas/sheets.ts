@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { limitBases, proseSectionIds } from "@/lib/domain/sheets";
 
 const finite = z.number().refine(Number.isFinite, "must be a finite number");
 
@@ -14,7 +15,7 @@ export const specLimitsBodySchema = z.object({
           typ: finite.nullable().optional(),
           max: finite.nullable().optional(),
           unit: z.string().trim().min(1).max(16),
-          basis: z.enum(["test", "characterization", "design"]),
+          basis: z.enum(limitBases),
           footnote: z.string().trim().max(500).optional(),
         })
         .refine((l) => l.min != null || l.typ != null || l.max != null, "Give at least one of min, typ, max.")
@@ -23,8 +24,6 @@ export const specLimitsBodySchema = z.object({
     .max(400),
 });
 export type SpecLimitsBody = z.infer<typeof specLimitsBodySchema>;
-
-export const proseSectionIds = ["description", "features", "applications", "handling", "test-fixture"] as const;
 
 export const sheetContentBodySchema = z.object({
   prose: z.partialRecord(z.enum(proseSectionIds), z.string().max(20_000)).default({}),

@@ -1,5 +1,7 @@
+import { deviceClassLabels } from "../domain/device-classes";
+import { limitBases, limitBasisWords, revisionStateLabels } from "../domain/sheets";
 import { findSheetTemplate } from "../../templates";
-import type { LimitBasis, SheetTemplate, SpecRowTemplate, TrendTemplate } from "../../templates/types";
+import type { SheetTemplate, SpecRowTemplate, TrendTemplate } from "../../templates/types";
 import { buildChartSpec, type ChartSource } from "./charts";
 import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
 import { EN_DASH, formatFrequency, formatFrequencyRange, formatTemperature, formatTrimmed, formatValue, pickFrequencyUnit } from "./format";
@@ -8,7 +10,6 @@ import { computeGroupStatistics, type UnitValue } from "./statistics";
 import type {
   ApprovedSetInput,
   ChartSpec,
-  RevisionState,
   SheetInput,
   SheetModel,
   SpecLimitInput,
@@ -18,19 +19,7 @@ import type {
 
 export const PRELIMINARY_BANNER = "PRELIMINARY — NOT RELEASED";
 
-const STATE_LABELS: Record<RevisionState, string> = {
-  draft: "Draft",
-  "in-review": "In review",
-  "changes-requested": "Changes requested",
-  approved: "Approved, not released",
-  released: "Released",
-};
-
-const BASIS_LEGEND: { basis: LimitBasis; mark: string; text: string }[] = [
-  { basis: "test", mark: "T", text: "Tested on every unit before shipment." },
-  { basis: "characterization", mark: "C", text: "Set from the characterization data in the statistics annex; not tested on every unit." },
-  { basis: "design", mark: "D", text: "Guaranteed by design; not tested on every unit." },
-];
+const BASIS_LEGEND = limitBases.map((basis) => ({ basis, mark: limitBasisWords[basis].mark, text: limitBasisWords[basis].legend }));
 
 const MEASURED_MEAN_FOOTNOTE =
   "No typical value is stated: the figure is the mean of the units measured (n in the statistics annex).";
@@ -48,6 +37,7 @@ export interface BuildSheetModelOptions {
 export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptions = {}): SheetModel {
   const template = options.template ?? findSheetTemplate(input.device.deviceClass);
   if (!template) throw new RangeError(`No sheet template for device class "${input.device.deviceClass}"`);
+  const classLabel = deviceClassLabels[template.deviceClass];
   if (!/^\d{4}-\d{2}-\d{2}$/.test(input.revision.date)) {
     throw new RangeError(`Revision date must be an ISO date (YYYY-MM-DD), got "${input.revision.date}"`);
   }
@@ -59,7 +49,7 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
     if (!kinds.has(set.kind)) {
       issues.push({
         code: "set-kind-not-used",
-        message: `Measurement set ${String(set.id)} (${set.kind}, ${set.serial}) is not used: a ${template.label.toLowerCase()} sheet takes ${template.measurementKinds.join(", ")}.`,
+        message: `Measurement set ${String(set.id)} (${set.kind}, ${set.serial}) is not used: a ${classLabel.toLowerCase()} sheet takes ${template.measurementKinds.join(", ")}.`,
       });
     }
   }
@@ -176,7 +166,7 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
         max: formatValue(limit?.max, row.decimals),
         typIsMeasuredMean,
         basis,
-        basisMark: BASIS_LEGEND.find((b) => b.basis === basis)?.mark ?? "",
+        basisMark: limitBasisWords[basis].mark,
         footnoteMarks: marks,
         n: stats.n,
         supported,
@@ -187,7 +177,7 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
     if (!usedLimits.has(key)) {
       issues.push({
         code: "limit-not-shown",
-        message: `The limit for ${limit.parameter} at "${limit.conditionsKey}" matches no row of the ${template.label.toLowerCase()} template.`,
+        message: `The limit for ${limit.parameter} at "${limit.conditionsKey}" matches no row of the ${classLabel.toLowerCase()} template.`,
       });
     }
   }
@@ -203,17 +193,17 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
 
   return {
     schemaVersion: 1,
-    template: { deviceClass: template.deviceClass, label: template.label },
+    template: { deviceClass: template.deviceClass, label: classLabel },
     header: {
       partNumber: input.device.partNumber,
       title: input.device.title,
       organizationName: input.device.organizationName,
-      deviceClassLabel: template.label,
+      deviceClassLabel: classLabel,
       description: input.device.description,
       revisionText: revisionLabel ? `Rev. ${revisionLabel}` : "Unreleased",
       revisionLabel,
       state: input.revision.state,
-      stateLabel: STATE_LABELS[input.revision.state],
+      stateLabel: revisionStateLabels[input.revision.state],
       date: input.revision.date,
       released,
       banner: released ? null : PRELIMINARY_BANNER,

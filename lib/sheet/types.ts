@@ -5,11 +5,9 @@
  */
 
 import type { Curve, DerivedParameter } from "../analysis/types";
-import type { LimitBasis, ProseSectionId } from "../../templates/types";
+import type { LimitBasis, ProseSectionId, RevisionState } from "../domain/sheets";
 
-export type { LimitBasis, ProseSectionId };
-
-export type RevisionState = "draft" | "in-review" | "changes-requested" | "approved" | "released";
+export type { LimitBasis, ProseSectionId, RevisionState };
 
 /** As on a calibration certificate: one stated uncertainty of one quantity. */
 export interface InstrumentUncertaintyInput {

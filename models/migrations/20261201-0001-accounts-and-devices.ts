@@ -1,7 +1,10 @@
 import { DataTypes, type QueryInterface } from "sequelize";
-import { organizationKinds } from "../organization";
-import { userRoles } from "../user";
-import { deviceClasses } from "../device";
+
+// The lists as they stood when this step was written: a migration describes the schema of its
+// day, so it copies the values instead of importing the live lists (lib/domain), which grow.
+const organizationKinds = ["vendor", "lab", "customer"];
+const userRoles = ["admin", "engineer", "reviewer", "customer"];
+const deviceClasses = ["frequency-multiplier", "double-balanced-mixer", "quadrature-hybrid"];
 
 const id = { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true, allowNull: false };
 const timestamps = {

@@ -29,7 +29,6 @@ function isolationRow(path: "LO-RF" | "LO-IF" | "RF-IF", basis: SpecRowTemplate[
 /** Passive double-balanced diode mixers. */
 export const doubleBalancedMixerTemplate: SheetTemplate = {
   deviceClass: "double-balanced-mixer",
-  label: "Double-balanced mixer",
   measurementKinds: ["frequency-sweep", "two-tone", "touchstone"],
   specifications: {
     conditionColumns: [

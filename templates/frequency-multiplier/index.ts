@@ -13,7 +13,6 @@ const frequencyColumn = {
 /** Frequency multipliers, including a double-balanced mixer driven on both ports as a doubler. */
 export const frequencyMultiplierTemplate: SheetTemplate = {
   deviceClass: "frequency-multiplier",
-  label: "Frequency multiplier",
   measurementKinds: ["drive-sweep", "phase-noise"],
   specifications: {
     conditionColumns: [

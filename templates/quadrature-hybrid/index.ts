@@ -25,7 +25,6 @@ function bandRow(row: Omit<SpecRowTemplate, "groupBy">): SpecRowTemplate {
  */
 export const quadratureHybridTemplate: SheetTemplate = {
   deviceClass: "quadrature-hybrid",
-  label: "Quadrature hybrid or power splitter",
   measurementKinds: ["touchstone"],
   specifications: {
     conditionColumns: [

@@ -53,7 +53,7 @@ describe("the device list, searched, sorted and paged by the database", () => {
   it("sorts by class label, then part number", async () => {
     const byClass = await listed("?sort=class&q=SRT-1");
     // SRT-1, SRT-10…SRT-19: classes by i % 3 (1 → mixer, 2 → hybrid, 0 → multiplier); labels
-    // "Double-balanced mixer" < "Frequency multiplier" < "Hybrid / splitter".
+    // "Double-balanced mixer" < "Frequency multiplier" < "Quadrature hybrid or power splitter".
     expect(byClass).toEqual(["SRT-1", "SRT-10", "SRT-13", "SRT-16", "SRT-19", "SRT-12", "SRT-15", "SRT-18", "SRT-11", "SRT-14", "SRT-17"]);
   });
 });

@@ -1,3 +1,4 @@
+import type { OrganizationKind } from "@/lib/domain/accounts";
 import type { Role } from "@/lib/domain/permissions";
 
 /** The signed-in person as every server function sees it: always read fresh from the database. */
@@ -8,5 +9,5 @@ export type SessionUser = {
   role: Role;
   organizationId: number;
   organizationName: string;
-  organizationKind: "vendor" | "lab" | "customer";
+  organizationKind: OrganizationKind;
 };

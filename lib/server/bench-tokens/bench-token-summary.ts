@@ -1,7 +1,8 @@
 import "server-only";
 import type { BenchToken } from "@/models";
+import type { BenchTokenSummary } from "@/lib/domain/instruments";
 
-export type BenchTokenSummary = { id: number; name: string; prefix: string; createdAt: string; lastUsedAt: string | null; revokedAt: string | null };
+export type { BenchTokenSummary };
 
 export function toBenchTokenSummary(t: BenchToken): BenchTokenSummary {
   return {

@@ -1,16 +1,8 @@
 import "server-only";
 import { Device } from "@/models";
-import type { DeviceClass, KeyConditions } from "@/models/device";
+import type { DeviceSummary } from "@/lib/domain/devices";
 
-export type DeviceSummary = {
-  id: number;
-  partNumber: string;
-  deviceClass: DeviceClass;
-  title: string;
-  description: string;
-  keyConditions: KeyConditions;
-  updatedAt: string;
-};
+export type { DeviceSummary };
 
 export function toDeviceSummary(d: Device): DeviceSummary {
   return {

@@ -1,19 +1,11 @@
 import "server-only";
 import { Op, Sequelize, type Order, type WhereOptions } from "sequelize";
-import { deviceClassLabels } from "@/lib/devices/class-labels";
-import { devicesPerPage, type DeviceListQuery } from "@/lib/devices/list-query";
+import { deviceClassLabels } from "@/lib/domain/device-classes";
+import { devicesPerPage, type DeviceListQuery, type DevicePage } from "@/lib/domain/devices";
 import { Device, getSequelize } from "@/models";
-import { toDeviceSummary, type DeviceSummary } from "./device-summary";
+import { toDeviceSummary } from "./device-summary";
 
-export type DevicePage = {
-  rows: DeviceSummary[];
-  /** Devices matching the search. */
-  total: number;
-  /** Devices of the organization, searched or not (0 shows the empty state). */
-  organizationTotal: number;
-  page: number;
-  pageCount: number;
-};
+export type { DevicePage };
 
 /** `%`, `_` and `\` typed into the search match themselves, not LIKE patterns. */
 function likePattern(text: string): string {

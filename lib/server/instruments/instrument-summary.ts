@@ -1,18 +1,8 @@
 import "server-only";
 import type { Instrument } from "@/models";
-import type { InstrumentUncertainty } from "@/models/instrument";
+import type { InstrumentSummary } from "@/lib/domain/instruments";
 
-export type InstrumentSummary = {
-  id: number;
-  kind: string;
-  model: string;
-  serial: string;
-  calibratedOn: string;
-  calibrationDueOn: string;
-  /** Due date already passed today. */
-  calibrationOverdue: boolean;
-  uncertainty: InstrumentUncertainty[];
-};
+export type { InstrumentSummary };
 
 export function toInstrumentSummary(i: Instrument, today = new Date().toISOString().slice(0, 10)): InstrumentSummary {
   return {

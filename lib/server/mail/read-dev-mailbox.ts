@@ -1,7 +1,8 @@
 import "server-only";
 import { serverConfig } from "../config";
+import type { CaughtMessage } from "@/lib/domain/dev-mailbox";
 
-export type CaughtMessage = { id: string; from: string; to: string; subject: string; text: string; html: string | null; date: string };
+export type { CaughtMessage };
 
 /** What the local fake SMTP server caught; null when it is not running (never in production). */
 export async function readDevMailbox(): Promise<CaughtMessage[] | null> {

@@ -2,9 +2,9 @@ import "server-only";
 import { AppError } from "@/lib/errors";
 import { MeasurementSet, getSequelize } from "@/models";
 import { loadMeasurementSets } from "./load-measurement-sets";
-import type { MeasurementSetSummary } from "./measurement-set-summary";
+import type { MeasurementSetDetail } from "@/lib/domain/measurements";
 
-export type MeasurementSetDetail = MeasurementSetSummary & { curves: unknown };
+export type { MeasurementSetDetail };
 
 /** One set of the caller's organization with its plot-ready curves; another organization's is not found. */
 export async function getMeasurementSet(opts: { organizationId: number; setId: number }): Promise<MeasurementSetDetail> {

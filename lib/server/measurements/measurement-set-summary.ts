@@ -1,34 +1,8 @@
 import "server-only";
 import type { MeasurementSet } from "@/models";
-import type { DerivedParameter, MeasurementConditions, MeasurementSetState } from "@/models/measurement-set";
+import type { InstrumentUse, MeasurementSetSummary } from "@/lib/domain/measurements";
 
-export type InstrumentUse = { id: number; kind: string; model: string; serial: string; calibrationDueOn: string; calibrationLapsed: boolean };
-
-export type MeasurementSetSummary = {
-  id: number;
-  deviceId: number;
-  kind: string;
-  state: MeasurementSetState;
-  fileName: string;
-  sizeBytes: number;
-  sha256: string;
-  conditions: MeasurementConditions;
-  measuredOn: string | null;
-  parameters: DerivedParameter[];
-  warnings: string[];
-  source: "browser" | "bench-api";
-  uploadedBy: string | null;
-  uploadedById: number | null;
-  /** The bench token's name for a bench-API upload (who posted it), else null. */
-  benchTokenName: string | null;
-  reviewedBy: string | null;
-  reviewedAt: string | null;
-  rejectionReason: string | null;
-  supersedesId: number | null;
-  supersededById: number | null;
-  instruments: InstrumentUse[];
-  createdAt: string;
-};
+export type { InstrumentUse, MeasurementSetSummary };
 
 type Loaded = MeasurementSet & {
   StoredFile?: { originalName: string; sizeBytes: number };

@@ -9,7 +9,7 @@ vi.mock("server-only", () => ({}));
 import { buildSheetModel, type SheetModel } from "@/lib/sheet";
 import { renderChartPng, renderChartSvg } from "@/lib/server/pdf/render-chart";
 import { renderSheetPdf } from "@/lib/server/pdf/render-sheet-pdf";
-import { combGeneratorTemplate } from "../sheet/fourth-template";
+import { combGeneratorTemplate } from "@/templates";
 import { loadDoublerInput } from "../sheet/fixture";
 
 const dir = mkdtempSync(path.join(tmpdir(), "benchfold-pdf-"));

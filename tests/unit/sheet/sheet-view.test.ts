@@ -4,7 +4,7 @@ import { describe, expect, it } from "vitest";
 import { SheetView } from "@/components/sheet/sheet-view";
 import { buildSheetModel } from "@/lib/sheet";
 import { loadDoublerInput } from "./fixture";
-import { combGeneratorTemplate } from "./fourth-template";
+import { combGeneratorTemplate } from "@/templates";
 
 describe("SheetView", () => {
   const input = loadDoublerInput();

@@ -4,6 +4,7 @@ import { Suspense } from "react";
 import { isAppError } from "@/lib/errors";
 import { buildSheetModel, type SheetInput } from "@/lib/sheet";
 import { loadSheetInput } from "@/lib/server/sheets/load-sheet-input";
+import { renderSheetChartSvgs } from "@/lib/server/pdf/render-chart";
 import { can, sheetDraftReaders } from "@/lib/domain/permissions";
 import { requirePageUser } from "@/lib/server/auth/require-page-user";
 import { findSheetTemplate } from "@/templates";
@@ -54,7 +55,7 @@ export default async function SheetPage({ params }: Props) {
       sheetView={
         // The charts' SVG is drawn on the server; until it arrives the sheet shows each chart's description.
         <Suspense fallback={<SheetView model={model} />}>
-          <SheetViewWithCharts model={model} />
+          <SheetViewWithCharts model={model} chartSvgs={renderSheetChartSvgs(model)} />
         </Suspense>
       }
     />

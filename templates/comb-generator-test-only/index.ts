@@ -1,12 +1,13 @@
-import type { SheetTemplate } from "@/templates";
+import type { SheetTemplate } from "../types";
 
 /**
- * A class the product does not ship: a step-recovery comb generator. Used only
- * to show that a new template needs no change in either renderer.
+ * A class the product does not ship: a step-recovery comb generator, added by the recipe in
+ * DEVELOPERS.md ("Adding a device class") to prove it. Its line in lib/domain/device-classes.ts
+ * is marked testOnly, so only the build `npm test` makes offers it; the unit tests render it
+ * through both renderers, tests/integration/new-device-class.test.ts takes it through the app.
  */
 export const combGeneratorTemplate: SheetTemplate = {
   deviceClass: "comb-generator-test-only",
-  label: "Comb generator",
   measurementKinds: ["drive-sweep"],
   specifications: {
     conditionColumns: [{ id: "frequency", label: "f_IN", sources: [{ key: "inputFrequencyHz", format: "frequency" }] }],

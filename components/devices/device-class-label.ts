@@ -1,1 +1,0 @@
-export { deviceClassLabels } from "@/lib/devices/class-labels";

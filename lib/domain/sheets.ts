@@ -1,0 +1,36 @@
+/**
+ * The fixed lists of a sheet: where a limit comes from, which prose sections a sheet has, and
+ * the states of a sheet revision. Models, schemas, templates, editors and the sheet model derive
+ * from these. Pure data: server code and client components both import it.
+ */
+
+/** Where a published limit comes from; printed as a mark beside the limit. */
+export const limitBases = ["test", "characterization", "design"] as const;
+export type LimitBasis = (typeof limitBases)[number];
+
+/** The mark beside a limit and the legend under the table (the sheet), and the editor's words. */
+export const limitBasisWords: Record<LimitBasis, { mark: string; legend: string; choice: string }> = {
+  test: { mark: "T", legend: "Tested on every unit before shipment.", choice: "Guaranteed by test" },
+  characterization: {
+    mark: "C",
+    legend: "Set from the characterization data in the statistics annex; not tested on every unit.",
+    choice: "Guaranteed by characterization",
+  },
+  design: { mark: "D", legend: "Guaranteed by design; not tested on every unit.", choice: "Guaranteed by design" },
+};
+
+/** The prose sections of a sheet, in the order the sheet prints them. */
+export const proseSectionIds = ["description", "features", "applications", "handling", "test-fixture"] as const;
+export type ProseSectionId = (typeof proseSectionIds)[number];
+
+/** The states of a sheet revision, in the order a revision passes through them. */
+export const revisionStates = ["draft", "in-review", "changes-requested", "approved", "released"] as const;
+export type RevisionState = (typeof revisionStates)[number];
+
+export const revisionStateLabels: Record<RevisionState, string> = {
+  draft: "Draft",
+  "in-review": "In review",
+  "changes-requested": "Changes requested",
+  approved: "Approved, not released",
+  released: "Released",
+};
