@@ -5,6 +5,7 @@ import type { SheetModel, StatisticsGroup } from "../../sheet/types";
 import { fontFiles, MONO_FAMILY, SANS_FAMILY } from "./fonts";
 import { type Cell, colors, type Column, PdfNotation, PdfProse, PdfTable, SectionHeading, styles } from "./pdf-parts";
 import { renderSheetChartPngs } from "./render-chart";
+import { settleGlyphCodePoints } from "./settle-glyph-code-points";
 import { stampPageNumbers } from "./stamp-page-numbers";
 
 let fontsRegistered = false;
@@ -35,6 +36,7 @@ function registerFonts(): void {
 /** The sheet model as a paginated A4 PDF: the same content as the web view, charts from the same Vega-Lite specs. */
 export async function renderSheetPdf(model: SheetModel): Promise<Buffer> {
   registerFonts();
+  await settleGlyphCodePoints();
   const charts = await renderSheetChartPngs(model);
   const pdf = await renderToBuffer(<SheetDocument model={model} charts={charts} />);
   // In the running foot's line, flush with its right edge (see RunningFoot).
