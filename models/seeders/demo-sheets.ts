@@ -4,9 +4,11 @@
  * demo scenario; saved through the app's API by scripts/seed-demo-measurements.ts. The limits'
  * condition keys are those of the sheet's statistics groups for the demo measurements.
  */
+import type { LimitBasis, ProseSectionId } from "../../lib/domain/sheets";
+
 export interface DemoSheetContent {
-  limits: { parameter: string; conditionsKey: string; min?: number; typ?: number; max?: number; unit: string; basis: "test" | "characterization" | "design"; footnote?: string }[];
-  prose: Partial<Record<"description" | "features" | "applications" | "handling" | "test-fixture", string>>;
+  limits: { parameter: string; conditionsKey: string; min?: number; typ?: number; max?: number; unit: string; basis: LimitBasis; footnote?: string }[];
+  prose: Partial<Record<ProseSectionId, string>>;
   absoluteMaximumRatings: { label: string; value: string; unit: string }[];
   measurementUncertainty: Record<string, number>;
 }

@@ -5,8 +5,6 @@ import { devicesPerPage, type DeviceListQuery, type DevicePage } from "@/lib/dom
 import { Device, getSequelize } from "@/models";
 import { toDeviceSummary } from "./device-summary";
 
-export type { DevicePage };
-
 /** `%`, `_` and `\` typed into the search match themselves, not LIKE patterns. */
 function likePattern(text: string): string {
   return `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;

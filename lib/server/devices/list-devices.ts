@@ -2,8 +2,6 @@ import "server-only";
 import { Device, getSequelize } from "@/models";
 import { toDeviceSummary, type DeviceSummary } from "./device-summary";
 
-export type { DeviceSummary };
-
 export async function listDevices(organizationId: number): Promise<DeviceSummary[]> {
   getSequelize();
   const rows = await Device.findAll({ where: { organizationId }, order: [["partNumber", "ASC"]] });

@@ -2,8 +2,6 @@ import "server-only";
 import { serverConfig } from "../config";
 import type { CaughtMessage } from "@/lib/domain/dev-mailbox";
 
-export type { CaughtMessage };
-
 /** What the local fake SMTP server caught; null when it is not running (never in production). */
 export async function readDevMailbox(): Promise<CaughtMessage[] | null> {
   const url = serverConfig.mailboxUrl;

@@ -4,8 +4,6 @@ import { MeasurementSet, getSequelize } from "@/models";
 import { loadMeasurementSets } from "./load-measurement-sets";
 import type { MeasurementSetDetail } from "@/lib/domain/measurements";
 
-export type { MeasurementSetDetail };
-
 /** One set of the caller's organization with its plot-ready curves; another organization's is not found. */
 export async function getMeasurementSet(opts: { organizationId: number; setId: number }): Promise<MeasurementSetDetail> {
   getSequelize();

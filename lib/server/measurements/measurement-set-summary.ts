@@ -1,8 +1,8 @@
 import "server-only";
 import type { MeasurementSet } from "@/models";
-import type { InstrumentUse, MeasurementSetSummary } from "@/lib/domain/measurements";
+import type { MeasurementSetSummary } from "@/lib/domain/measurements";
 
-export type { InstrumentUse, MeasurementSetSummary };
+export type { MeasurementSetSummary };
 
 type Loaded = MeasurementSet & {
   StoredFile?: { originalName: string; sizeBytes: number };
