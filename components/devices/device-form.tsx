@@ -40,7 +40,7 @@ export function DeviceForm({ device }: { device?: DeviceSummary }) {
   const router = useRouter();
   const editing = Boolean(device);
   const [partNumber, setPartNumber] = useState(device?.partNumber ?? "");
-  const [deviceClass, setDeviceClass] = useState<DeviceClass>(device?.deviceClass ?? "frequency-multiplier");
+  const [deviceClass, setDeviceClass] = useState<DeviceClass>(device?.deviceClass ?? deviceClasses[0]);
   const [title, setTitle] = useState(device?.title ?? "");
   const [description, setDescription] = useState(device?.description ?? "");
   const [input, setInput] = useState<FrequencyRangeValue>(rangeValue(device?.keyConditions.inputFrequencyHz));
