@@ -76,3 +76,10 @@ describe("client-importable code stays away from the server", () => {
     expect(forbiddenImports(readFileSync(path.join(root, file), "utf8"), file, notPure)).toEqual([]);
   });
 });
+
+describe("frozen migrations", () => {
+  // A migration describes the schema of its day: it copies the values of a list instead of importing the live one.
+  it.each(sourceFiles("models/migrations"))("%s imports nothing but Sequelize", (file) => {
+    expect(moduleSpecifiers(readFileSync(path.join(root, file), "utf8")).filter((s) => s !== "sequelize")).toEqual([]);
+  });
+});
