@@ -134,17 +134,25 @@ export function prepareRequestHeaders(req, trusted) {
   const clientAddress = resolveClientAddress({ peer, forwardedFor: joined(req.headers["x-forwarded-for"]), trusted });
 
   const drop = new Set(isTrustedPeer ? internalHeaders : [...internalHeaders, ...forwardingHeaders]);
+  // Node builds `headers` and `headersDistinct` lazily from `rawHeaders`, counting the pairs it
+  // parsed: both are built here, before `rawHeaders` changes length, and all three are edited alike.
+  const headers = req.headers;
+  const distinct = req.headersDistinct;
   /** @type {string[]} */
   const raw = [];
   for (let i = 0; i + 1 < req.rawHeaders.length; i += 2) {
     if (!drop.has(req.rawHeaders[i].toLowerCase())) raw.push(req.rawHeaders[i], req.rawHeaders[i + 1]);
   }
-  for (const name of drop) delete req.headers[name];
+  for (const name of drop) {
+    delete headers[name];
+    delete distinct[name];
+  }
 
   /** @type {Record<string, string>} */
   const set = { "x-benchfold-peer": peer, "x-benchfold-client-address": clientAddress, "x-benchfold-proxied": proxied ? "1" : "0" };
   for (const [name, value] of Object.entries(set)) {
-    req.headers[name] = value;
+    headers[name] = value;
+    distinct[name] = [value];
     raw.push(name, value);
   }
   req.rawHeaders = raw;

@@ -1,15 +1,18 @@
-import type { IncomingMessage } from "node:http";
+import { createServer, type IncomingMessage } from "node:http";
+import { connect, type AddressInfo } from "node:net";
 import { describe, expect, it } from "vitest";
 import { normalizeAddress, parseTrustedProxies, prepareRequestHeaders, resolveClientAddress } from "@/scripts/server.mjs";
 
 /** A request as Node's HTTP parser leaves it: lower-cased `headers` (duplicates joined) and `rawHeaders`. */
 function fakeRequest(remoteAddress: string, raw: [string, string][]): IncomingMessage {
   const headers: Record<string, string> = {};
+  const headersDistinct: Record<string, string[]> = {};
   for (const [name, value] of raw) {
     const key = name.toLowerCase();
     headers[key] = headers[key] === undefined ? value : `${headers[key]}, ${value}`;
+    headersDistinct[key] = [...(headersDistinct[key] ?? []), value];
   }
-  return { socket: { remoteAddress }, headers, rawHeaders: raw.flat() } as unknown as IncomingMessage;
+  return { socket: { remoteAddress }, headers, headersDistinct, rawHeaders: raw.flat() } as unknown as IncomingMessage;
 }
 
 const rawPairs = (req: IncomingMessage) =>
@@ -117,5 +120,48 @@ describe("prepareRequestHeaders", () => {
     const req = fakeRequest("::1", [["Host", "localhost:3000"]]);
     prepareRequestHeaders(req, loopbackProxy);
     expect(req.headers).toMatchObject({ "x-benchfold-peer": "::1", "x-benchfold-client-address": "::1", "x-benchfold-proxied": "0" });
+  });
+});
+
+describe("prepareRequestHeaders on a real Node socket", () => {
+  it("leaves no client copy of an internal header in headers, rawHeaders or headersDistinct", async () => {
+    const server = createServer((req, res) => {
+      prepareRequestHeaders(req, none);
+      res.end(JSON.stringify({ headers: req.headers, rawHeaders: req.rawHeaders, distinct: req.headersDistinct }));
+    });
+    await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
+    const { port } = server.address() as AddressInfo;
+    // Written by hand: duplicate and oddly cased copies, which fetch would merge or refuse.
+    const raw = [
+      "GET / HTTP/1.1",
+      `Host: 127.0.0.1:${port}`,
+      "X-Benchfold-Peer: 10.0.0.1",
+      "x-benchfold-peer: 10.0.0.2",
+      "X-BENCHFOLD-CLIENT-ADDRESS: 10.0.0.3",
+      "X-Benchfold-Proxied: 0",
+      "X-Forwarded-For: 10.0.0.4",
+      "Connection: close",
+      "",
+      "",
+    ].join("\r\n");
+    const answer = await new Promise<string>((resolve, reject) => {
+      let text = "";
+      const socket = connect(port, "127.0.0.1", () => socket.write(raw));
+      socket.on("data", (chunk) => (text += chunk.toString()));
+      socket.on("end", () => resolve(text));
+      socket.on("error", reject);
+    });
+    server.close();
+    const seen = JSON.parse(answer.slice(answer.indexOf("\r\n\r\n") + 4)) as {
+      headers: Record<string, string>;
+      rawHeaders: string[];
+      distinct: Record<string, string[]>;
+    };
+    expect(seen.headers).toMatchObject({ "x-benchfold-peer": "127.0.0.1", "x-benchfold-client-address": "127.0.0.1", "x-benchfold-proxied": "1" });
+    expect(seen.headers["x-forwarded-for"]).toBeUndefined();
+    expect(seen.distinct["x-benchfold-peer"]).toEqual(["127.0.0.1"]);
+    expect(seen.distinct["x-forwarded-for"]).toBeUndefined();
+    const internal = seen.rawHeaders.filter((_, i) => i % 2 === 0 && seen.rawHeaders[i].toLowerCase().startsWith("x-benchfold-"));
+    expect(internal).toEqual(["x-benchfold-peer", "x-benchfold-client-address", "x-benchfold-proxied"]);
   });
 });
