@@ -27,7 +27,8 @@
  */
 import { createServer } from "node:http";
 import { BlockList, isIP } from "node:net";
-import { pathToFileURL } from "node:url";
+import { realpathSync } from "node:fs";
+import { fileURLToPath } from "node:url";
 
 /** Headers only this server may set; a client's copy is removed. */
 export const internalHeaders = Object.freeze(["x-benchfold-peer", "x-benchfold-client-address", "x-benchfold-proxied"]);
@@ -173,7 +174,14 @@ async function main() {
   await app.prepare();
 
   httpServer.on("request", (req, res) => {
-    prepareRequestHeaders(req, trusted);
+    try {
+      prepareRequestHeaders(req, trusted);
+    } catch (error) {
+      console.error("[benchfold] unreadable request headers", error);
+      res.statusCode = 400;
+      res.end();
+      return;
+    }
     handle(req, res).catch((error) => {
       console.error("[benchfold] request failed", error);
       if (!res.headersSent) res.statusCode = 500;
@@ -182,7 +190,17 @@ async function main() {
   });
   // Registered before Next's own upgrade listener (added on the first request), so an upgrade
   // request (dev hot reload) is rewritten the same way before Next sees it.
-  httpServer.on("upgrade", (req) => prepareRequestHeaders(req, trusted));
+  httpServer.on("upgrade", (req, socket) => {
+    try {
+      prepareRequestHeaders(req, trusted);
+    } catch {
+      socket.destroy();
+    }
+  });
+  httpServer.on("error", (error) => {
+    console.error(`[benchfold] could not serve on port ${port}:`, error.message);
+    process.exit(1);
+  });
 
   const stop = () => {
     httpServer.close();
@@ -205,7 +223,8 @@ async function main() {
   });
 }
 
-if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
+// Run as a program (not imported by a test); compared by real path so a symlinked checkout still starts.
+if (process.argv[1] && realpathSync(process.argv[1]) === realpathSync(fileURLToPath(import.meta.url))) {
   main().catch((error) => {
     console.error("[benchfold] the server did not start:", error);
     process.exit(1);
