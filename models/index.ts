@@ -12,6 +12,7 @@ import { Device } from "./device";
 import { Invitation } from "./invitation";
 import { Organization } from "./organization";
 import { PasswordReset } from "./password-reset";
+import { RevokedSession } from "./revoked-session";
 import { SignInAttempt } from "./sign-in-attempt";
 import { User } from "./user";
 
@@ -26,6 +27,7 @@ export {
   MeasurementSetInstrument,
   Organization,
   PasswordReset,
+  RevokedSession,
   SheetContent,
   SignInAttempt,
   SpecLimit,
@@ -38,7 +40,7 @@ function initModels(sequelize: Sequelize): Sequelize {
   for (const model of [
     Organization, User, Invitation, PasswordReset, SignInAttempt, AuditEvent, Device,
     StoredFile, Instrument, BenchToken, ColumnMapping, MeasurementSet, MeasurementSetInstrument,
-    SpecLimit, SheetContent,
+    SpecLimit, SheetContent, RevokedSession,
   ]) {
     model.initModel(sequelize);
   }

@@ -3,8 +3,11 @@
  * 127.0.0.1:$SMTP_PORT, keeps the newest 500 in memory and shows them as JSON on
  * 127.0.0.1:$BENCHFOLD_MAILBOX_PORT (GET /messages, DELETE /messages, GET /health).
  * Never started in production: the scripts start it only when no SMTP_HOST is configured.
+ * Both listen on 127.0.0.1 only; the read-out also refuses a request relayed by a proxy or
+ * naming another host (a web page reaching it through DNS rebinding), since the caught mail
+ * holds password-reset and invitation links.
  */
-import { createServer } from "node:http";
+import { createServer, type IncomingMessage } from "node:http";
 import { randomUUID } from "node:crypto";
 import { simpleParser } from "mailparser";
 import { SMTPServer } from "smtp-server";
@@ -41,11 +44,21 @@ const smtp = new SMTPServer({
   },
 });
 
+const loopbackHosts = new Set(["127.0.0.1", "localhost", "[::1]"]);
+const forwardingHeaders = ["forwarded", "x-forwarded-for", "x-forwarded-host", "x-real-ip", "via"];
+
+function fromThisMachine(req: IncomingMessage): boolean {
+  const peer = (req.socket.remoteAddress ?? "").replace(/^::ffff:/, "");
+  const hostname = (req.headers.host ?? "").replace(/:\d+$/, "").toLowerCase();
+  return (peer === "::1" || peer.startsWith("127.")) && loopbackHosts.has(hostname) && !forwardingHeaders.some((h) => req.headers[h] !== undefined);
+}
+
 const http = createServer((req, res) => {
   const send = (status: number, body: unknown) => {
-    res.writeHead(status, { "content-type": "application/json" });
+    res.writeHead(status, { "content-type": "application/json", "cache-control": "no-store" });
     res.end(JSON.stringify(body));
   };
+  if (!fromThisMachine(req)) return send(404, { error: "not found" });
   if (req.url === "/health") return send(200, { ok: true, smtpPort });
   if (req.url === "/messages" && req.method === "GET") return send(200, { messages });
   if (req.url === "/messages" && req.method === "DELETE") {

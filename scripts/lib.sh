@@ -93,4 +93,11 @@ start_fake_smtp() {
   die "fake SMTP did not answer in 10 s"
 }
 
+# Said when the fake SMTP server is in use, so nobody mistakes it for a working mail set-up.
+warn_mail_not_delivered() {
+  log "MAIL IS NOT BEING DELIVERED: no SMTP_HOST is set, so invitations and password-reset links are caught"
+  log "by the local fake SMTP server. Read them at http://localhost:$PORT/dev/mailbox (only from this machine:"
+  log "the page answers 404 to any other address or through a proxy). Set SMTP_HOST in .env to deliver mail."
+}
+
 run_tsx() { node "$BENCHFOLD_ROOT/node_modules/tsx/dist/cli.mjs" "$@"; }

@@ -18,21 +18,23 @@ run_tsx scripts/seed.ts
 if [ -z "${SMTP_HOST:-}" ]; then
   start_fake_smtp
   [ -n "$FAKE_SMTP_PID" ] && trap 'kill "$FAKE_SMTP_PID" 2>/dev/null || true' EXIT
+  warn_mail_not_delivered
 fi
 
 if [ "$MODE" = "--dev" ]; then
   log "ready in $(( $(date +%s) - started )) s of set-up; dev server on http://localhost:$PORT"
-  node node_modules/next/dist/bin/next dev -p "$PORT"
+  node scripts/server.mjs --dev
 else
   log "building"
   node node_modules/next/dist/bin/next build >"$BENCHFOLD_DATA_DIR/logs/next-build.log" 2>&1 \
     || { tail -40 "$BENCHFOLD_DATA_DIR/logs/next-build.log"; die "next build failed (full log: $BENCHFOLD_DATA_DIR/logs/next-build.log)"; }
-  node node_modules/next/dist/bin/next start -p "$PORT" &
+  node scripts/server.mjs &
   SERVER_PID=$!
   trap 'kill "$SERVER_PID" 2>/dev/null; [ -n "${FAKE_SMTP_PID:-}" ] && kill "$FAKE_SMTP_PID" 2>/dev/null; true' EXIT INT TERM
   for _ in $(seq 1 150); do curl -fsS "http://127.0.0.1:$PORT/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done
   # The demo's measurement sets go in through the real bench upload path, once per database.
   BENCHFOLD_APP_URL="http://127.0.0.1:$PORT" run_tsx scripts/seed-demo-measurements.ts || log "demo measurements were not loaded (see above)"
   log "set-up took $(( $(date +%s) - started )) s; serving http://localhost:$PORT (demo password: bench-demo-2026)"
+  [ "${BENCHFOLD_FAKE_SMTP:-}" = 1 ] && warn_mail_not_delivered
   wait "$SERVER_PID"
 fi

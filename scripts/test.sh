@@ -17,8 +17,9 @@ export SMTP_PORT="${TEST_SMTP_PORT:-2526}"
 export BENCHFOLD_MAILBOX_PORT="${TEST_MAILBOX_PORT:-2581}"
 export NEXTAUTH_URL="http://localhost:$PORT"
 export BENCHFOLD_TEST_URL="http://localhost:$PORT"
-# Tests give each client its own address through X-Forwarded-For, as a trusted proxy would.
-export BENCHFOLD_TRUST_PROXY=1
+# Tests give each client its own address through X-Forwarded-For: the test server treats loopback
+# as its trusted proxy, so a test client on this machine counts as the right-most hop it sends.
+export BENCHFOLD_TRUSTED_PROXIES="127.0.0.1,::1"
 unset SMTP_HOST
 load_env
 export NEXTAUTH_SECRET="test-secret-$(date +%s%N)"
@@ -54,7 +55,7 @@ fi
 log "── build"
 # This build also offers the test-only device classes (lib/domain/device-classes.ts); npm start's never does.
 if BENCHFOLD_TEST_DEVICE_CLASSES=1 node node_modules/next/dist/bin/next build >"$BENCHFOLD_DATA_DIR/logs/next-build-test.log" 2>&1; then
-  node node_modules/next/dist/bin/next start -p "$PORT" >"$BENCHFOLD_DATA_DIR/logs/next-test-server.log" 2>&1 &
+  node scripts/server.mjs >"$BENCHFOLD_DATA_DIR/logs/next-test-server.log" 2>&1 &
   SERVER_PID=$!
   for _ in $(seq 1 150); do curl -fsS "$BENCHFOLD_TEST_URL/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done
   if curl -fsS "$BENCHFOLD_TEST_URL/api/auth/csrf" >/dev/null 2>&1; then

@@ -2,7 +2,7 @@ import type { Role } from "@/lib/domain/permissions";
 
 declare module "next-auth" {
   interface Session {
-    user: { id: number; email: string; name: string; role: Role; organizationId: number; tokenVersion: number };
+    user: { id: number; email: string; name: string; role: Role; organizationId: number; tokenVersion: number; sessionId: string; sessionStartedAt: number };
   }
   interface User {
     id: string;
@@ -20,5 +20,9 @@ declare module "next-auth/jwt" {
     role?: Role;
     organizationId?: number;
     tokenVersion?: number;
+    /** One id per sign-in; sign-out lists it in revoked_sessions. */
+    sessionId?: string;
+    /** Sign-in time (Unix seconds): the session ends sessionMaxAgeSeconds later, however often the cookie is renewed. */
+    sessionStartedAt?: number;
   }
 }

@@ -8,11 +8,20 @@ export const serverConfig = {
   get fakeSmtp(): boolean {
     return process.env.BENCHFOLD_FAKE_SMTP === "1";
   },
+  /**
+   * The fake SMTP server's read-out, only while mail is caught on this machine: the fake is on,
+   * and both the SMTP host the app sends to and the read-out are loopback addresses.
+   */
   get mailboxUrl(): string | null {
-    return this.fakeSmtp ? (process.env.BENCHFOLD_MAILBOX_URL ?? null) : null;
-  },
-  get trustProxy(): boolean {
-    return process.env.BENCHFOLD_TRUST_PROXY === "1";
+    const url = process.env.BENCHFOLD_MAILBOX_URL;
+    if (!this.fakeSmtp || !url) return null;
+    const loopback = (host: string) => ["127.0.0.1", "localhost", "::1", "[::1]"].includes(host.toLowerCase());
+    if (!loopback(process.env.SMTP_HOST ?? "127.0.0.1")) return null;
+    try {
+      return loopback(new URL(url).hostname) ? url : null;
+    } catch {
+      return null;
+    }
   },
   mailFrom: process.env.MAIL_FROM ?? "Benchfold <no-reply@benchfold.example>",
   /** Sign-in rate limit: failures allowed per window, per account and per address. */

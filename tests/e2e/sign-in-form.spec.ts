@@ -1,5 +1,5 @@
 import { expect, test } from "@playwright/test";
-import { demoPassword, demoUsers, mainNavigationLinks } from "./helpers";
+import { demoPassword, demoUsers, mainNavigationLinks, signInViaApi } from "./helpers";
 
 test("signing in through the form lands on the role's first page, and signing out ends the session", async ({ page }) => {
   await page.goto("/sign-in");
@@ -12,9 +12,29 @@ test("signing in through the form lands on the role's first page, and signing ou
   await expect(page.getByTestId("session-name")).toHaveText(demoUsers.engineer.name);
   await expect(mainNavigationLinks(page)).toHaveText(["Devices", "Sheets", "Catalog"]);
 
+  const signedInCookies = await page.context().cookies();
   await page.getByRole("button", { name: "Sign out" }).click();
   await expect(page.getByRole("banner").getByRole("link", { name: "Sign in" })).toBeVisible();
   expect((await page.request.get("/api/me")).status()).toBe(401);
+  // The server ended the session: the old cookie, put back, is refused.
+  await page.context().addCookies(signedInCookies);
+  expect((await page.request.get("/api/me")).status()).toBe(401);
+});
+
+test.describe("before the page's scripts have run", () => {
+  // A click that lands before React hydrates the header must still sign out: Sign out is a plain
+  // form. (A script-only button ignored such a click, and the header kept the person signed in.)
+  test.use({ javaScriptEnabled: false });
+
+  test("Sign out ends the session", async ({ page }) => {
+    await signInViaApi(page, demoUsers.reviewer.email);
+    await page.goto("/devices");
+    await expect(page.getByTestId("session-name")).toHaveText(demoUsers.reviewer.name);
+    await page.getByRole("button", { name: "Sign out" }).click();
+    await expect(page.getByRole("banner").getByRole("link", { name: "Sign in" })).toBeVisible();
+    await expect(page).toHaveURL(/\/$/);
+    expect((await page.request.get("/api/me")).status()).toBe(401);
+  });
 });
 
 test("a wrong password is refused with a message, and the person stays signed out", async ({ page }) => {

@@ -1,8 +1,9 @@
 import { afterAll, describe, expect, it } from "vitest";
-import { AuditEvent, User, closeSequelize } from "@/models";
+import { AuditEvent, SignInAttempt, User, closeSequelize } from "@/models";
 import { TestClient } from "./helpers/client";
 import { factoryPassword, makeOrganization, uniqueEmail } from "./helpers/factories";
 import { firstLink, waitForMail } from "./helpers/mailbox";
+import { nonLoopbackBaseUrl } from "./helpers/network";
 
 afterAll(() => closeSequelize());
 
@@ -29,6 +30,108 @@ describe("sign-in", () => {
     const { users } = await makeOrganization();
     expect((await client.signIn(users.admin.email, factoryPassword)).error).toBe("too-many-attempts");
     expect((await new TestClient().signIn(users.admin.email, factoryPassword)).ok).toBe(true);
+  });
+});
+
+describe("the address the sign-in limit counts", () => {
+  const attemptsFrom = async (email: string) => (await SignInAttempt.findAll({ where: { email }, order: [["id", "ASC"]] })).map((a) => a.ipAddress);
+
+  it("is the socket's address for a peer that is not a trusted proxy, whatever X-Forwarded-For it sends", async () => {
+    const remote = nonLoopbackBaseUrl();
+    const peer = new URL(remote).hostname.replace(/^\[|\]$/g, "");
+    const email = uniqueEmail("spoof");
+    for (const spoofed of ["10.1.1.1", "127.0.0.1", "10.2.2.2, 10.3.3.3"]) {
+      const client = new TestClient({ baseUrl: remote });
+      const csrf = (await (await client.request("/api/auth/csrf")).json()) as { csrfToken: string };
+      const response = await client.request("/api/auth/callback/credentials", {
+        form: { csrfToken: csrf.csrfToken, email, password: "not-the-password", json: "true" },
+        headers: { "x-forwarded-for": spoofed, "x-benchfold-client-address": spoofed },
+      });
+      expect(response.status).toBeLessThan(500);
+    }
+    expect(await attemptsFrom(email)).toEqual([peer, peer, peer]);
+  });
+
+  it("is the right-most X-Forwarded-For hop when the peer is the trusted proxy (loopback in tests)", async () => {
+    const email = uniqueEmail("proxied");
+    const client = new TestClient();
+    await client.signIn(email, "not-the-password");
+    await client.request("/api/auth/callback/credentials", {
+      form: { csrfToken: ((await (await client.request("/api/auth/csrf")).json()) as { csrfToken: string }).csrfToken, email, password: "nope-nope-1", json: "true" },
+      headers: { "x-forwarded-for": "127.0.0.1, 10.250.0.7" },
+    });
+    expect(await attemptsFrom(email)).toEqual([client.address, "10.250.0.7"]);
+  });
+
+  it("throttles a non-proxy peer after the per-address limit even if it changes X-Forwarded-For on every try", async () => {
+    const remote = nonLoopbackBaseUrl();
+    const { users } = await makeOrganization();
+    const limit = Number(process.env.BENCHFOLD_SIGNIN_LIMIT_ADDRESS ?? 30);
+    let result = { ok: true as boolean, error: null as string | null };
+    for (let i = 0; i <= limit; i += 1) {
+      const client = new TestClient({ baseUrl: remote });
+      const email = i < limit ? uniqueEmail("spray") : users.admin.email;
+      const password = i < limit ? "whatever-password" : factoryPassword;
+      // TestClient sends its own random X-Forwarded-For on every request.
+      result = await client.signIn(email, password);
+    }
+    expect(result).toEqual({ ok: false, error: "too-many-attempts" });
+    expect((await new TestClient().signIn(users.admin.email, factoryPassword)).ok).toBe(true);
+  });
+});
+
+describe("signing out ends the session on the server", () => {
+  const copyOf = (client: TestClient) => {
+    const copy = new TestClient();
+    for (const [name, value] of client.cookies) copy.cookies.set(name, value);
+    return copy;
+  };
+
+  it("refuses a copy of the signed-out cookie on the API and on a workspace page; the person's other sessions stay", async () => {
+    const { users } = await makeOrganization();
+    const laptop = new TestClient();
+    const benchPc = new TestClient();
+    expect((await laptop.signIn(users.engineer.email, factoryPassword)).ok).toBe(true);
+    expect((await benchPc.signIn(users.engineer.email, factoryPassword)).ok).toBe(true);
+    const stolen = copyOf(laptop);
+    expect((await stolen.request("/api/me")).status).toBe(200);
+    expect((await stolen.request("/devices")).status).toBe(200);
+
+    const out = await laptop.request("/api/auth/sign-out", { method: "POST" });
+    expect(out.status).toBe(303);
+    expect(out.headers.get("location")).toBe("/");
+    expect(out.headers.getSetCookie().some((c) => /^next-auth\.session-token=;.*Max-Age=0/i.test(c))).toBe(true);
+    expect([...laptop.cookies.keys()].some((k) => k.endsWith("session-token"))).toBe(false);
+
+    expect((await stolen.request("/api/me")).status).toBe(401);
+    expect((await stolen.request("/api/devices")).status).toBe(401);
+    const page = await stolen.request("/devices");
+    expect(page.status).toBe(307);
+    expect(page.headers.get("location")).toContain("/sign-in");
+
+    expect((await benchPc.request("/api/me")).status).toBe(200);
+    expect((await benchPc.request("/devices")).status).toBe(200);
+    expect((await new TestClient().signIn(users.engineer.email, factoryPassword)).ok).toBe(true);
+  });
+
+  it("next-auth's own sign-out endpoint revokes the session too", async () => {
+    const { users } = await makeOrganization();
+    const client = new TestClient();
+    expect((await client.signIn(users.reviewer.email, factoryPassword)).ok).toBe(true);
+    const stolen = copyOf(client);
+    const { csrfToken } = (await (await client.request("/api/auth/csrf")).json()) as { csrfToken: string };
+    const out = await client.request("/api/auth/signout", { form: { csrfToken, json: "true" } });
+    expect(out.status).toBeLessThan(400);
+    expect((await stolen.request("/api/me")).status).toBe(401);
+  });
+
+  it("refuses a sign-out posted from another site, and the session stays", async () => {
+    const { users } = await makeOrganization();
+    const client = new TestClient();
+    expect((await client.signIn(users.admin.email, factoryPassword)).ok).toBe(true);
+    const out = await client.request("/api/auth/sign-out", { method: "POST", origin: "https://elsewhere.example" });
+    expect(out.status).toBe(403);
+    expect((await client.request("/api/me")).status).toBe(200);
   });
 });
 
@@ -141,12 +244,5 @@ describe("password reset and customer sign-up", () => {
     expect((await client.request("/api/devices")).status).toBe(403);
     const dup = await new TestClient().request("/api/accounts", { json: { name: "Again", email, password: "buyer-password-1", company: "X Co" } });
     expect(dup.status).toBe(409);
-  });
-});
-
-describe("dev mailbox", () => {
-  it("is served while the fake SMTP server runs", async () => {
-    const r = await new TestClient().request("/api/dev/mailbox");
-    expect(r.status).toBe(200);
   });
 });

@@ -1,4 +1,5 @@
 import "server-only";
+import { randomUUID } from "node:crypto";
 import bcrypt from "bcryptjs";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
@@ -6,6 +7,7 @@ import { User, getSequelize } from "@/models";
 import { serverConfig } from "../config";
 import { isRole } from "@/lib/domain/permissions";
 import { clientAddress, isSignInThrottled, recordSignInAttempt } from "./rate-limit";
+import { revokeSession } from "./revoke-session";
 
 /** Codes the sign-in form turns into words (next-auth passes the thrown message through as `error`). */
 export const signInErrors = { invalid: "invalid-credentials", throttled: "too-many-attempts" } as const;
@@ -52,6 +54,8 @@ export const authOptions: NextAuthOptions = {
         token.role = user.role;
         token.organizationId = user.organizationId;
         token.tokenVersion = user.tokenVersion;
+        token.sessionId = randomUUID();
+        token.sessionStartedAt = Math.floor(Date.now() / 1000);
       }
       return token;
     },
@@ -64,9 +68,20 @@ export const authOptions: NextAuthOptions = {
           role: token.role,
           organizationId: token.organizationId ?? 0,
           tokenVersion: token.tokenVersion ?? 0,
+          sessionId: token.sessionId ?? "",
+          sessionStartedAt: token.sessionStartedAt ?? 0,
         };
       }
       return session;
+    },
+  },
+  events: {
+    // next-auth's own sign-out endpoint (POST /api/auth/signout) ends the session on the server
+    // too, as app/api/auth/sign-out does for the Sign out button.
+    async signOut({ token }) {
+      if (token?.sessionId && token.userId && token.sessionStartedAt) {
+        await revokeSession({ sessionId: token.sessionId, userId: token.userId, startedAt: token.sessionStartedAt });
+      }
     },
   },
 };

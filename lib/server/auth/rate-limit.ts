@@ -2,6 +2,7 @@ import "server-only";
 import { Op } from "sequelize";
 import { SignInAttempt } from "@/models";
 import { serverConfig } from "../config";
+import { readRequestNetwork } from "./request-network";
 
 /** True when recent failures for this account or this address have reached the limit. */
 export async function isSignInThrottled(email: string, ipAddress: string): Promise<boolean> {
@@ -17,17 +18,11 @@ export async function recordSignInAttempt(email: string, ipAddress: string, succ
   await SignInAttempt.create({ email, ipAddress, succeeded });
 }
 
-/** The client address: the proxy's header only when a trusted proxy sets it. */
-export function clientAddress(headers: Headers | Record<string, string | string[] | undefined> | undefined): string {
-  const get = (name: string): string | undefined => {
-    if (!headers) return undefined;
-    if (headers instanceof Headers) return headers.get(name) ?? undefined;
-    const value = headers[name];
-    return Array.isArray(value) ? value[0] : value;
-  };
-  const forwarded = get("x-forwarded-for");
-  if (!forwarded) return "unknown";
-  const hops = forwarded.split(",").map((s) => s.trim()).filter(Boolean);
-  // Without a trusted proxy the nearest hop (appended by the Next server itself) is the only honest one.
-  return (serverConfig.trustProxy ? hops[0] : hops[hops.length - 1]) ?? "unknown";
+/**
+ * The address the per-address limit counts: the socket peer, or the hop a trusted proxy
+ * appended (BENCHFOLD_TRUSTED_PROXIES), as scripts/server.mjs resolved it. A client's own
+ * X-Forwarded-For never changes it.
+ */
+export function clientAddress(headers: Parameters<typeof readRequestNetwork>[0]): string {
+  return readRequestNetwork(headers).clientAddress;
 }

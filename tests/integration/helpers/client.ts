@@ -3,11 +3,17 @@ import { baseUrl } from "./loopback";
 
 /**
  * A tiny HTTP client with its own cookie jar and its own client address (sent as
- * X-Forwarded-For; the test server trusts it), so tests never share rate-limit counters.
+ * X-Forwarded-For; the test server trusts loopback as its proxy), so tests never share
+ * rate-limit counters. `baseUrl` reaches the server another way (e.g. a non-loopback address).
  */
 export class TestClient {
   readonly cookies = new Map<string, string>();
   readonly address = `10.${randomInt(256)}.${randomInt(256)}.${randomInt(1, 255)}`;
+  readonly baseUrl: string;
+
+  constructor(options: { baseUrl?: string } = {}) {
+    this.baseUrl = options.baseUrl ?? baseUrl;
+  }
 
   private cookieHeader(): string {
     return [...this.cookies].map(([k, v]) => `${k}=${v}`).join("; ");
@@ -31,7 +37,7 @@ export class TestClient {
     const method = init.method ?? (init.json !== undefined || init.form || init.multipart ? "POST" : "GET");
     const headers: Record<string, string> = { "x-forwarded-for": this.address, ...init.headers };
     if (this.cookies.size) headers.cookie = this.cookieHeader();
-    if (method !== "GET" && init.origin !== null) headers.origin = init.origin ?? new URL(baseUrl).origin;
+    if (method !== "GET" && init.origin !== null) headers.origin = init.origin ?? new URL(this.baseUrl).origin;
     let body: string | FormData | undefined;
     if (init.multipart) {
       body = init.multipart;
@@ -42,7 +48,7 @@ export class TestClient {
       headers["content-type"] = "application/x-www-form-urlencoded";
       body = new URLSearchParams(init.form).toString();
     }
-    const response = await fetch(`${baseUrl}${path}`, { method, headers, body, redirect: "manual" });
+    const response = await fetch(`${this.baseUrl}${path}`, { method, headers, body, redirect: "manual" });
     this.keepCookies(response);
     return response;
   }
@@ -52,12 +58,12 @@ export class TestClient {
     const csrf = await this.request("/api/auth/csrf");
     const { csrfToken } = (await csrf.json()) as { csrfToken: string };
     const response = await this.request("/api/auth/callback/credentials", {
-      form: { csrfToken, email, password, json: "true", callbackUrl: `${baseUrl}/devices` },
+      form: { csrfToken, email, password, json: "true", callbackUrl: `${this.baseUrl}/devices` },
     });
     const location = response.headers.get("location") ?? "";
     let url = location;
     if (!url && response.headers.get("content-type")?.includes("json")) url = ((await response.json()) as { url?: string }).url ?? "";
-    const error = url ? new URL(url, baseUrl).searchParams.get("error") : null;
+    const error = url ? new URL(url, this.baseUrl).searchParams.get("error") : null;
     const ok = !error && [...this.cookies.keys()].some((k) => k.endsWith("next-auth.session-token"));
     return { ok, error };
   }

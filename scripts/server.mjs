@@ -1,0 +1,232 @@
+// @ts-check
+/**
+ * Benchfold's HTTP server: Next.js (its documented custom-server API) behind a few lines that
+ * tell the app where each request really came from. `npm start`, `npm run dev` and `npm test`
+ * run this file instead of `next start` / `next dev`:
+ *
+ *   node scripts/server.mjs [--dev]        PORT (3000), BENCHFOLD_TRUSTED_PROXIES (none)
+ *
+ * Why: a Next.js route handler cannot see the TCP peer (request.ip is gone), and Next only
+ * fills X-Forwarded-For when the client did not send one (`??=` in base-server.js), so every
+ * header the app could read about the client is the client's own word. Here, before Next sees
+ * a request, any client-supplied copy of our internal headers is removed (from `headers` and
+ * `rawHeaders`) and they are set from the socket:
+ *
+ *   x-benchfold-peer            the socket's remote address
+ *   x-benchfold-client-address  the peer, or the hop a trusted proxy appended to X-Forwarded-For
+ *   x-benchfold-proxied         "1" when the request carries a forwarding header (it came through
+ *                               a proxy, even a local one), else "0"
+ *
+ * From a peer that is not a trusted proxy the forwarding headers themselves are dropped too,
+ * so Next fills them from the socket and nothing downstream reads a client's claim.
+ * lib/server/auth/request-network.ts is the one reader; it refuses to trust the headers unless
+ * this file marked the process (a server started with plain `next start` would pass them on).
+ *
+ * Plain JavaScript, type-checked by tsc (`// @ts-check`): the long-running server needs no
+ * loader (tsx) in front of Next's own module hooks and runs wherever `node` does.
+ */
+import { createServer } from "node:http";
+import { BlockList, isIP } from "node:net";
+import { realpathSync } from "node:fs";
+import { fileURLToPath } from "node:url";
+
+/** Headers only this server may set; a client's copy is removed. */
+export const internalHeaders = Object.freeze(["x-benchfold-peer", "x-benchfold-client-address", "x-benchfold-proxied"]);
+
+/** Headers a proxy adds. Their presence means the request did not come straight from its peer. */
+export const forwardingHeaders = Object.freeze([
+  "forwarded",
+  "x-forwarded-for",
+  "x-forwarded-host",
+  "x-forwarded-proto",
+  "x-forwarded-port",
+  "x-real-ip",
+  "via",
+]);
+
+/** The global the app checks to know these headers were set here (see request-network.ts). */
+export const serverMarker = Symbol.for("benchfold.request-network-headers");
+
+/** `::ffff:127.0.0.1` (an IPv4 peer on a dual-stack socket) → `127.0.0.1`; lower case. */
+export function normalizeAddress(/** @type {string | undefined} */ address) {
+  if (!address) return "";
+  const lower = address.trim().toLowerCase();
+  const mapped = /^::ffff:(\d+\.\d+\.\d+\.\d+)$/.exec(lower);
+  return mapped ? mapped[1] : lower;
+}
+
+export function isLoopbackAddress(/** @type {string} */ address) {
+  const a = normalizeAddress(address);
+  return a === "::1" || (isIP(a) === 4 && a.startsWith("127."));
+}
+
+/**
+ * BENCHFOLD_TRUSTED_PROXIES: addresses or CIDR ranges, separated by commas or spaces
+ * (`127.0.0.1,::1`, `10.0.0.0/8`). Empty: no proxy is trusted. A malformed entry throws.
+ * @param {string | undefined} setting
+ */
+export function parseTrustedProxies(setting) {
+  const list = new BlockList();
+  /** @type {string[]} */
+  const entries = [];
+  for (const entry of (setting ?? "").split(/[\s,]+/).filter(Boolean)) {
+    const [rawAddress, prefix, extra] = entry.split("/");
+    const address = normalizeAddress(rawAddress);
+    const family = isIP(address);
+    const bits = prefix === undefined ? null : Number(prefix);
+    const maxBits = family === 6 ? 128 : 32;
+    if (!family || extra !== undefined || (bits !== null && !(Number.isInteger(bits) && bits >= 0 && bits <= maxBits && /^\d+$/.test(prefix)))) {
+      throw new Error(`BENCHFOLD_TRUSTED_PROXIES: "${entry}" is not an IP address or CIDR range`);
+    }
+    const type = family === 6 ? "ipv6" : "ipv4";
+    if (bits === null) list.addAddress(address, type);
+    else list.addSubnet(address, bits, type);
+    entries.push(entry);
+  }
+  return {
+    entries,
+    /** @param {string} address */
+    has(address) {
+      const a = normalizeAddress(address);
+      const family = isIP(a);
+      return family !== 0 && list.check(a, family === 6 ? "ipv6" : "ipv4");
+    },
+  };
+}
+
+/** `203.0.113.7`, `203.0.113.7:5100`, `[2001:db8::1]:443` or `2001:db8::1` → the bare address; "" if none. */
+function addressOfHop(/** @type {string} */ hop) {
+  let value = hop.trim().replace(/^"|"$/g, "");
+  const bracketed = /^\[([^\]]+)\](?::\d+)?$/.exec(value);
+  if (bracketed) value = bracketed[1];
+  else if (/^\d+\.\d+\.\d+\.\d+:\d+$/.test(value)) value = value.slice(0, value.lastIndexOf(":"));
+  value = normalizeAddress(value);
+  return isIP(value) ? value : "";
+}
+
+/**
+ * The client's address: the socket peer, unless the peer is a trusted proxy; then the
+ * right-most X-Forwarded-For entry, the one that proxy appended (the entries left of it are
+ * whatever the client sent). A trusted proxy that appended nothing usable leaves the peer.
+ * @param {{ peer: string, forwardedFor: string | undefined, trusted: { has(address: string): boolean } }} input
+ */
+export function resolveClientAddress({ peer, forwardedFor, trusted }) {
+  const address = normalizeAddress(peer);
+  if (!forwardedFor || !trusted.has(address)) return address;
+  const hops = forwardedFor.split(",").map((hop) => hop.trim()).filter(Boolean);
+  const appended = hops.length ? addressOfHop(hops[hops.length - 1]) : "";
+  return appended || address;
+}
+
+/** @param {string | string[] | undefined} value */
+function joined(value) {
+  return Array.isArray(value) ? value.join(", ") : value;
+}
+
+/**
+ * Rewrites a request's headers in place before Next sees it (see the top of this file).
+ * @param {import("node:http").IncomingMessage} req
+ * @param {{ has(address: string): boolean }} trusted
+ */
+export function prepareRequestHeaders(req, trusted) {
+  const peer = normalizeAddress(req.socket.remoteAddress);
+  const isTrustedPeer = trusted.has(peer);
+  const proxied = forwardingHeaders.some((name) => req.headers[name] !== undefined);
+  const clientAddress = resolveClientAddress({ peer, forwardedFor: joined(req.headers["x-forwarded-for"]), trusted });
+
+  const drop = new Set(isTrustedPeer ? internalHeaders : [...internalHeaders, ...forwardingHeaders]);
+  // Node builds `headers` and `headersDistinct` lazily from `rawHeaders`, counting the pairs it
+  // parsed: both are built here, before `rawHeaders` changes length, and all three are edited alike.
+  const headers = req.headers;
+  const distinct = req.headersDistinct;
+  /** @type {string[]} */
+  const raw = [];
+  for (let i = 0; i + 1 < req.rawHeaders.length; i += 2) {
+    if (!drop.has(req.rawHeaders[i].toLowerCase())) raw.push(req.rawHeaders[i], req.rawHeaders[i + 1]);
+  }
+  for (const name of drop) {
+    delete headers[name];
+    delete distinct[name];
+  }
+
+  /** @type {Record<string, string>} */
+  const set = { "x-benchfold-peer": peer, "x-benchfold-client-address": clientAddress, "x-benchfold-proxied": proxied ? "1" : "0" };
+  for (const [name, value] of Object.entries(set)) {
+    headers[name] = value;
+    distinct[name] = [value];
+    raw.push(name, value);
+  }
+  req.rawHeaders = raw;
+}
+
+async function main() {
+  const dev = process.argv.includes("--dev");
+  // Before Next (and React) load: they pick their production or development builds from it.
+  Object.assign(process.env, { NODE_ENV: dev ? "development" : "production" });
+  const port = Number(process.env.PORT ?? 3000);
+  const trusted = parseTrustedProxies(process.env.BENCHFOLD_TRUSTED_PROXIES);
+  /** @type {Record<symbol, unknown>} */ (globalThis)[serverMarker] = true;
+
+  const { default: next } = await import("next");
+  const httpServer = createServer();
+  const app = next({ dev, hostname: "localhost", port, httpServer });
+  const handle = app.getRequestHandler();
+  await app.prepare();
+
+  httpServer.on("request", (req, res) => {
+    try {
+      prepareRequestHeaders(req, trusted);
+    } catch (error) {
+      console.error("[benchfold] unreadable request headers", error);
+      res.statusCode = 400;
+      res.end();
+      return;
+    }
+    handle(req, res).catch((error) => {
+      console.error("[benchfold] request failed", error);
+      if (!res.headersSent) res.statusCode = 500;
+      res.end();
+    });
+  });
+  // Registered before Next's own upgrade listener (added on the first request), so an upgrade
+  // request (dev hot reload) is rewritten the same way before Next sees it.
+  httpServer.on("upgrade", (req, socket) => {
+    try {
+      prepareRequestHeaders(req, trusted);
+    } catch {
+      socket.destroy();
+    }
+  });
+  httpServer.on("error", (error) => {
+    console.error(`[benchfold] could not serve on port ${port}:`, error.message);
+    process.exit(1);
+  });
+
+  const stop = () => {
+    httpServer.close();
+    httpServer.closeAllConnections();
+    void app.close().finally(() => process.exit(0));
+  };
+  process.on("SIGTERM", stop);
+  process.on("SIGINT", stop);
+
+  // No host: every interface, as `next start` does.
+  httpServer.listen(port, () => {
+    const proxies = trusted.entries.length ? trusted.entries.join(", ") : "none (the client address is the socket's)";
+    console.log(`[benchfold] ${dev ? "dev server" : "server"} on http://localhost:${port} (all interfaces); trusted proxies: ${proxies}`);
+    if (process.env.BENCHFOLD_FAKE_SMTP === "1") {
+      console.log(
+        `[benchfold] MAIL IS NOT BEING DELIVERED: it is caught by the local fake SMTP server. ` +
+          `Read it at http://localhost:${port}/dev/mailbox, only from this machine.`,
+      );
+    }
+  });
+}
+
+// Run as a program (not imported by a test); compared by real path so a symlinked checkout still starts.
+if (process.argv[1] && realpathSync(process.argv[1]) === realpathSync(fileURLToPath(import.meta.url))) {
+  main().catch((error) => {
+    console.error("[benchfold] the server did not start:", error);
+    process.exit(1);
+  });
+}
