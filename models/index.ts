@@ -13,6 +13,7 @@ import { Invitation } from "./invitation";
 import { Organization } from "./organization";
 import { PasswordReset } from "./password-reset";
 import { SignInAttempt } from "./sign-in-attempt";
+import { SignUpRequest } from "./sign-up-request";
 import { User } from "./user";
 
 export {
@@ -28,6 +29,7 @@ export {
   PasswordReset,
   SheetContent,
   SignInAttempt,
+  SignUpRequest,
   SpecLimit,
   StoredFile,
   User,
@@ -38,7 +40,7 @@ function initModels(sequelize: Sequelize): Sequelize {
   for (const model of [
     Organization, User, Invitation, PasswordReset, SignInAttempt, AuditEvent, Device,
     StoredFile, Instrument, BenchToken, ColumnMapping, MeasurementSet, MeasurementSetInstrument,
-    SpecLimit, SheetContent,
+    SpecLimit, SheetContent, SignUpRequest,
   ]) {
     model.initModel(sequelize);
   }

@@ -1,6 +1,6 @@
 import { Field } from "@/components/ui/field";
 
-/** New password twice; the length rule comes from the shared schema's message. */
+/** New password twice; the length and strength rules come from the shared schema (lib/schemas/password.ts), checked again on the server. */
 export function PasswordFields({ errors }: { errors: { password?: string; confirm?: string } }) {
   return (
     <>
@@ -9,7 +9,7 @@ export function PasswordFields({ errors }: { errors: { password?: string; confir
         name="password"
         type="password"
         autoComplete="new-password"
-        hint="At least 10 characters. A short sentence works well."
+        hint="At least 8 characters; common and easily guessed passwords are refused. A short sentence of uncommon words works well."
         error={errors.password}
         required
       />
