@@ -37,6 +37,8 @@ test("a visitor signs up as a customer through the form, forgets the password an
   await expect(form).toContainText("commonly used password");
 
   await form.getByLabel("New password").fill("a long sentence for a password");
+  // The estimator's verdict shows while typing; the server applies the same schema.
+  await expect(form).toContainText("Strong enough (estimated strength 4 of 4).");
   await form.getByLabel("Repeat the password").fill("a long sentence for a password");
   await form.getByRole("button", { name: "Create customer account" }).click();
   // The answer is the same for any address; the mailed link creates the account.
