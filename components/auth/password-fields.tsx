@@ -2,13 +2,14 @@
 
 import { useDeferredValue, useState } from "react";
 import { Field } from "@/components/ui/field";
-import { judgePassword, maxPasswordLength, minPasswordLength } from "@/lib/schemas/password";
+import { judgePassword, maxPasswordBytes, minPasswordLength, passwordBytes } from "@/lib/schemas/password";
 
 const baseHint = `At least ${minPasswordLength} characters; common and easily guessed passwords are refused. A short sentence of uncommon words works well.`;
 
 /** What the strength estimator says while the password is typed; the server checks the same rule again. */
 function strengthHint(password: string): string {
-  if (password.length < minPasswordLength || password.length > maxPasswordLength) return baseHint;
+  if (password.length < minPasswordLength) return baseHint;
+  if (passwordBytes(password) > maxPasswordBytes) return `Too long: at most ${maxPasswordBytes} bytes (${maxPasswordBytes} plain letters, fewer accented ones).`;
   const verdict = judgePassword(password);
   return verdict.ok ? `Strong enough (estimated strength ${verdict.score} of 4).` : `${verdict.message} (estimated strength ${verdict.score} of 4)`;
 }

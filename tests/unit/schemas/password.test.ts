@@ -20,7 +20,9 @@ describe("new passwords", () => {
     ["a sequence", "abcdefgh12345678", "easy to guess"],
     ["a date", "31.12.1999", "easy to guess"],
     ["the service's name and a year", "benchfold2026", "easy to guess"],
-    ["129 characters", "x".repeat(129), "Use at most 128 characters."],
+    // bcrypt reads 72 bytes; §5.1.1.2: "Truncation of the secret SHALL NOT be performed."
+    ["73 ASCII characters (73 bytes)", "a quiet lab at dawn, the analyzer warming and the coffee cold; then noise", "Use at most 72 bytes"],
+    ["40 two-byte characters (80 bytes)", "ü".repeat(40), "Use at most 72 bytes"],
   ])("refuses %s", (_, password, says) => {
     const result = newPasswordSchema.safeParse(password);
     expect(result.success).toBe(false);
@@ -32,7 +34,7 @@ describe("new passwords", () => {
     ["the test factories' password", factoryPassword],
     ["a random 9-character password", "vK8#qz!Tp"],
     ["a 64-character passphrase", "the kettle sang twice before the bench supply finally settled ok"],
-    ["a 128-character passphrase", "a quiet lab at dawn, the analyzer warming and the coffee cold; ".repeat(3).slice(0, 128)],
+    ["a 72-byte passphrase", "a quiet lab at dawn, the analyzer warming and the coffee cold; then nois"],
     ["spaces and non-ASCII letters", "größere Brücke über der Förde"],
     ["passwords the tests set", "a long sentence for a password"],
     ["", "another long sentence, new"],
