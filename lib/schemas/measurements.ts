@@ -46,7 +46,7 @@ export const instrumentBodySchema = z
       .array(
         z.object({
           quantity: z.string().trim().min(1).max(64),
-          value: z.number().positive(),
+          value: z.number({ error: "Enter the uncertainty as a number." }).positive("The uncertainty must be above 0."),
           unit: z.string().trim().min(1).max(16),
           coverageFactor: z.number().positive().max(5).default(2),
         }),

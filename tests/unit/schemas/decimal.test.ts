@@ -113,3 +113,14 @@ describe("parseRecordId: ids in paths and query strings", () => {
     expect(parseRecordId(text)).toBeUndefined();
   });
 });
+
+describe("an instrument's uncertainty row", () => {
+  it("says a blank value (sent as NaN by the form) is not a number, rather than zod's wording", async () => {
+    const { instrumentBodySchema } = await import("@/lib/schemas/measurements");
+    const body = { kind: "power meter", model: "M", serial: "S", calibratedOn: "2026-01-05", calibrationDueOn: "2027-01-05" };
+    const row = (value: number) => ({ ...body, uncertainty: [{ quantity: "power", value, unit: "dB" }] });
+    expect(instrumentBodySchema.safeParse(row(Number.NaN)).error?.issues[0].message).toBe("Enter the uncertainty as a number.");
+    expect(instrumentBodySchema.safeParse(row(0)).error?.issues[0].message).toBe("The uncertainty must be above 0.");
+    expect(instrumentBodySchema.safeParse(row(0.3)).success).toBe(true);
+  });
+});
