@@ -14,6 +14,7 @@ import { Organization } from "./organization";
 import { PasswordReset } from "./password-reset";
 import { RevokedSession } from "./revoked-session";
 import { SignInAttempt } from "./sign-in-attempt";
+import { SignUpRequest } from "./sign-up-request";
 import { User } from "./user";
 
 export {
@@ -30,6 +31,7 @@ export {
   RevokedSession,
   SheetContent,
   SignInAttempt,
+  SignUpRequest,
   SpecLimit,
   StoredFile,
   User,
@@ -40,7 +42,7 @@ function initModels(sequelize: Sequelize): Sequelize {
   for (const model of [
     Organization, User, Invitation, PasswordReset, SignInAttempt, AuditEvent, Device,
     StoredFile, Instrument, BenchToken, ColumnMapping, MeasurementSet, MeasurementSetInstrument,
-    SpecLimit, SheetContent, RevokedSession,
+    SpecLimit, SheetContent, RevokedSession, SignUpRequest,
   ]) {
     model.initModel(sequelize);
   }

@@ -9,6 +9,7 @@ import { useJsonResource } from "@/components/use-json-resource";
 import { buttonClass } from "@/components/ui/button";
 import { Field, selectClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { parseDecimalText } from "@/lib/ingest/number";
 
 type UncertaintyRow = { quantity: string; value: string; unit: string; coverageFactor: string };
 type Draft = { kind: string; model: string; serial: string; calibratedOn: string; calibrationDueOn: string; uncertainty: UncertaintyRow[] };
@@ -174,7 +175,7 @@ function InstrumentForm({
   function check(): FormCheck<InstrumentBody> {
     const parsed = instrumentBodySchema.safeParse({
       ...draft,
-      uncertainty: draft.uncertainty.map((r) => ({ quantity: r.quantity, value: Number(r.value), unit: r.unit, coverageFactor: r.coverageFactor.trim() === "" ? 2 : Number(r.coverageFactor) })),
+      uncertainty: draft.uncertainty.map((r) => ({ quantity: r.quantity, value: parseDecimalText(r.value) ?? Number.NaN, unit: r.unit, coverageFactor: parseDecimalText(r.coverageFactor) ?? 2 })),
     });
     if (parsed.success) return { body: parsed.data };
     const found: Record<string, string> = {};

@@ -1,7 +1,23 @@
-import { Field } from "@/components/ui/field";
+"use client";
 
-/** New password twice; the length rule comes from the shared schema's message. */
+import { useDeferredValue, useState } from "react";
+import { Field } from "@/components/ui/field";
+import { judgePassword, maxPasswordBytes, minPasswordLength, passwordBytes } from "@/lib/schemas/password";
+
+const baseHint = `At least ${minPasswordLength} characters; common and easily guessed passwords are refused. A short sentence of uncommon words works well.`;
+
+/** What the strength estimator says while the password is typed; the server checks the same rule again. */
+function strengthHint(password: string): string {
+  if (password.length < minPasswordLength) return baseHint;
+  if (passwordBytes(password) > maxPasswordBytes) return `Too long: at most ${maxPasswordBytes} bytes (${maxPasswordBytes} plain letters, fewer accented ones).`;
+  const verdict = judgePassword(password);
+  return verdict.ok ? `Strong enough (estimated strength ${verdict.score} of 4).` : `${verdict.message} (estimated strength ${verdict.score} of 4)`;
+}
+
+/** New password twice; the length and strength rules come from the shared schema (lib/schemas/password.ts). */
 export function PasswordFields({ errors }: { errors: { password?: string; confirm?: string } }) {
+  const [password, setPassword] = useState("");
+  const typed = useDeferredValue(password);
   return (
     <>
       <Field
@@ -9,8 +25,10 @@ export function PasswordFields({ errors }: { errors: { password?: string; confir
         name="password"
         type="password"
         autoComplete="new-password"
-        hint="At least 10 characters. A short sentence works well."
+        hint={strengthHint(typed)}
         error={errors.password}
+        value={password}
+        onChange={setPassword}
         required
       />
       <Field label="Repeat the password" name="confirm" type="password" autoComplete="new-password" error={errors.confirm} required />

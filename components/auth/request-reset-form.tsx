@@ -18,7 +18,7 @@ export function RequestResetForm() {
   if (sentTo) {
     return (
       <Notice tone="success">
-        If an account uses <strong>{sentTo}</strong>, a link to choose a new password is on its way. It works once, for a limited time.
+        A message is on its way to <strong>{sentTo}</strong>: if an active account uses the address, a link to choose a new password is on its way. It works once, for a limited time.
       </Notice>
     );
   }

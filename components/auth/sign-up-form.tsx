@@ -1,6 +1,6 @@
 "use client";
 
-import { signIn } from "next-auth/react";
+import { useState } from "react";
 import { signUpBodySchema, type SignUpBody } from "@/lib/schemas/accounts";
 import { buttonClass } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
@@ -9,6 +9,7 @@ import { checkInput, useJsonForm } from "@/components/use-json-form";
 import { PasswordFields, readPasswordPair } from "./password-fields";
 
 export function SignUpForm() {
+  const [sentTo, setSentTo] = useState<string | null>(null);
   const { errors, formError, pending, submit } = useJsonForm<SignUpBody>({
     url: "/api/accounts",
     check: (form) => {
@@ -19,12 +20,17 @@ export function SignUpForm() {
         { confirm: confirmError },
       );
     },
-    onSuccess: async (_, body) => {
-      const result = await signIn("credentials", { email: body.email, password: body.password, redirect: false });
-      window.location.assign(result?.ok ? "/catalog" : "/sign-in");
-    },
-    keepPendingOnSuccess: true,
+    // The same answer whether or not the address has an account: the mail says which it is.
+    onSuccess: (_, body) => setSentTo(body.email),
   });
+
+  if (sentTo) {
+    return (
+      <Notice tone="success">
+        A message is on its way to <strong>{sentTo}</strong>. Follow its link to confirm the address and finish; it works once, within 24 hours.
+      </Notice>
+    );
+  }
 
   return (
     <form onSubmit={submit} noValidate className="space-y-5" data-testid="sign-up-form">

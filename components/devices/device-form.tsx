@@ -11,6 +11,7 @@ import { useJsonForm, type FormCheck } from "@/components/use-json-form";
 import { deviceClasses, deviceClassLabels, type DeviceClass } from "@/lib/domain/device-classes";
 import { FrequencyRangeField, type FrequencyRangeValue } from "./frequency-range-field";
 import { toHz } from "./frequency-units";
+import { parseDecimalText } from "@/lib/ingest/number";
 
 const emptyRange: FrequencyRangeValue = { min: "", max: "", unit: "GHz" };
 
@@ -54,9 +55,9 @@ export function DeviceForm({ device }: { device?: DeviceSummary }) {
     const outputRange = readRange(output, "output range");
     if (inputRange.error) found.inputFrequencyHz = inputRange.error;
     if (outputRange.error) found.outputFrequencyHz = outputRange.error;
-    const driveDbm = drive.trim() === "" ? undefined : Number(drive.trim().replace("\u2212", "-"));
+    const driveDbm = parseDecimalText(drive);
     if (driveDbm !== undefined && !Number.isFinite(driveDbm)) found.driveLevelDbm = "The drive level must be a number in dBm.";
-    const multiplicationFactor = deviceClass === "frequency-multiplier" && factor.trim() !== "" ? Number(factor) : undefined;
+    const multiplicationFactor = deviceClass === "frequency-multiplier" && factor.trim() !== "" ? parseDecimalText(factor) : undefined;
     const parsed = deviceBodySchema.safeParse({
       partNumber,
       deviceClass,

@@ -1,6 +1,7 @@
 
 /** The device list's search, sort and page, all from the query string so a view can be linked. */
 import { deviceSortKeys, type DeviceListQuery, type DeviceSortKey } from "@/lib/domain/devices";
+import { parseRecordId } from "@/lib/schemas/decimal";
 
 export { deviceSortKeys, devicesPerPage, type DeviceListQuery, type DeviceSortKey } from "@/lib/domain/devices";
 
@@ -15,7 +16,7 @@ export function readDeviceListQuery(params: Params): DeviceListQuery {
   const sort = (deviceSortKeys as readonly string[]).includes(sortText) ? (sortText as DeviceSortKey) : "part";
   const dirText = first(params.dir);
   const dir = dirText === "asc" || dirText === "desc" ? dirText : sort === "updated" ? "desc" : "asc";
-  const page = Math.max(1, Math.floor(Number(first(params.page)) || 1));
+  const page = parseRecordId(first(params.page)) ?? 1;
   return { q: first(params.q).trim().slice(0, 100), sort, dir, page };
 }
 

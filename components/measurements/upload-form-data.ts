@@ -1,6 +1,7 @@
 import type { IngestDetail, MappingDetail } from "./upload-request";
 import type { FrequencyUnit } from "@/components/devices/frequency-units";
 import { toHz } from "@/components/devices/frequency-units";
+import { parseDecimalText } from "@/lib/ingest/number";
 
 /** What the upload form holds for a batch: strings as typed, converted when the form is sent. */
 export type SupersedableSet = { id: number; kind: string; fileName: string; serial?: string };
@@ -78,7 +79,7 @@ export function checkConditions(c: UploadConditions, fileCount: number): string 
     ["Cable loss", c.cableLossDb],
   ];
   for (const [label, value] of numbers) {
-    if (value.trim() !== "" && !Number.isFinite(Number(value.trim().replace("\u2212", "-")))) return `${label} must be a number.`;
+    if (Number.isNaN(parseDecimalText(value))) return `${label} must be a decimal number.`;
   }
   const hz = toHz(c.inputFrequency, c.inputFrequencyUnit);
   if (hz !== undefined && !(hz > 0)) return "Input frequency must be a number above 0.";

@@ -1,4 +1,4 @@
-import { metaQuantity, metaString, rawMetadata, unknownMetadataKeys } from "./csv-metadata";
+import { metaDate, metaQuantity, metaString, rawMetadata, unknownMetadataKeys } from "./csv-metadata";
 import { readCsvDocument, unusedColumns, type ColumnRequest, type CsvDocument } from "./csv-table";
 import { IngestError } from "./errors";
 import { readParserInput } from "./text-guards";
@@ -37,6 +37,7 @@ export function readUnitConditions(doc: CsvDocument, warnings: string[]): UnitCo
   const lot = metaString(doc, "lot", false, "L2405");
   const temperatureC = metaQuantity(doc, "temperature", "temperature", RANGES.temperatureC, false, "25 C");
   if (temperatureC === undefined) warnings.push('no "# temperature:" metadata; the measurement temperature is unknown');
+  metaDate(doc, "date");
   return { serial, lot, temperatureC, metadata: rawMetadata(doc) };
 }
 

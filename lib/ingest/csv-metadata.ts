@@ -1,3 +1,4 @@
+import { calendarDateProblem } from "../schemas/calendar-date";
 import type { CsvDocument, MetadataEntry } from "./csv-table";
 import { IngestError, shortenFound } from "./errors";
 import { parseNumberAt } from "./number";
@@ -34,6 +35,15 @@ export function metaString(doc: CsvDocument, key: string, required: boolean, exa
   const entry = doc.metadata.get(key);
   if (!entry) return required ? missing(doc, key, example) : undefined;
   if (entry.value === "") bad(doc, entry, example, `metadata "${key}" is empty; expected e.g. "${example}"`);
+  return entry.value;
+}
+
+/** "# date: 2026-03-31": a calendar date as YYYY-MM-DD, by the same rule as every date field of the app. */
+export function metaDate(doc: CsvDocument, key: string): string | undefined {
+  const entry = doc.metadata.get(key);
+  if (!entry) return undefined;
+  const problem = calendarDateProblem(entry.value);
+  if (problem) bad(doc, entry, "a calendar date as YYYY-MM-DD, e.g. 2026-03-31", problem);
   return entry.value;
 }
 

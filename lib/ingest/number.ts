@@ -100,3 +100,16 @@ export function looksNonFinite(cell: string): boolean {
   const t = cell.trim().toLowerCase().replace(/^[+-]/, "");
   return t === "nan" || t === "inf" || t === "infinity" || t === "∞";
 }
+
+/**
+ * A whole field typed or sent as text: surrounding whitespace is ignored, a blank field is
+ * `undefined` (missing, never 0), a leading U+2212 minus sign counts as "-", and anything but a
+ * finite decimal number ("0x10", "0b1", "0o7", "Infinity", "NaN", "1,5", "1_0", "1e400") is NaN.
+ */
+export function parseDecimalText(text: string): number | undefined {
+  const t = text.trim();
+  if (t === "") return undefined;
+  const normalized = t.charCodeAt(0) === 0x2212 ? `-${t.slice(1)}` : t;
+  const x = parseNumberAt(normalized, 0, normalized.length);
+  return Number.isFinite(x) ? x : NaN;
+}

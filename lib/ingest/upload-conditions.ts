@@ -1,4 +1,5 @@
 import { AppError } from "../errors";
+import { isCalendarDate } from "../schemas/calendar-date";
 import type { UploadFields } from "../schemas/measurements";
 import type { ParsedMeasurement } from "./types";
 
@@ -61,5 +62,6 @@ export function mergeUploadConditions(parsed: ParsedMeasurement, fields: UploadF
 export function uploadMeasuredOn(parsed: ParsedMeasurement, fields: Pick<UploadFields, "measuredOn">): string | null {
   if (fields.measuredOn) return fields.measuredOn;
   const date = parsed.kind !== "touchstone" ? parsed.data.metadata?.date?.trim() : undefined;
-  return date && /^\d{4}-\d{2}-\d{2}$/.test(date) ? date : null;
+  // The parser refused an impossible `# date:` already; this only keeps a non-date out of the database.
+  return date && isCalendarDate(date) ? date : null;
 }

@@ -1,13 +1,12 @@
 import { z } from "zod";
 import { deviceClasses } from "@/lib/domain/device-classes";
 import { mappableKinds, measurementKinds } from "@/lib/domain/measurements";
+import { calendarDateSchema, optionalCalendarDateSchema } from "./calendar-date";
+import { minNotAboveMax, optionalDecimal, requiredDecimal } from "./decimal";
 
 /** Shared by the upload form, the browser upload route and the bench API. */
-const optionalNumber = (min: number, max: number, what: string) =>
-  z.preprocess(
-    (v) => (v === "" || v === null || v === undefined ? undefined : typeof v === "string" ? Number(v) : v),
-    z.number({ error: `${what} must be a number` }).min(min, `${what} must be at least ${min}`).max(max, `${what} must be at most ${max}`).optional(),
-  );
+const optionalNumber = (min: number, max: number, label: string) => optionalDecimal({ label, min, max });
+const optionalId = (label: string) => optionalDecimal({ label, min: 1, max: 2 ** 32, integer: true });
 
 export const measurementConditionsSchema = z.object({
   serial: z.string().trim().max(64).optional(),
@@ -17,20 +16,16 @@ export const measurementConditionsSchema = z.object({
   driveLevelDbm: optionalNumber(-200, 60, "drive level (dBm)"),
   splitterExcessLossDb: optionalNumber(0, 30, "splitter excess loss (dB)"),
   cableLossDb: optionalNumber(0, 30, "cable loss (dB)"),
-  measuredOn: z
-    .string()
-    .regex(/^\d{4}-\d{2}-\d{2}$/, "measured on must be a date as YYYY-MM-DD")
-    .optional()
-    .or(z.literal("").transform(() => undefined)),
+  measuredOn: optionalCalendarDateSchema,
   notes: z.string().trim().max(2000).optional(),
 });
 export type MeasurementConditionsInput = z.infer<typeof measurementConditionsSchema>;
 
 export const uploadFieldsSchema = measurementConditionsSchema.extend({
   kind: z.enum(measurementKinds).optional().or(z.literal("").transform(() => undefined)),
-  instrumentIds: z.array(z.coerce.number().int().positive()).max(20).default([]),
-  supersedesId: optionalNumber(1, 2 ** 31, "supersedes"),
-  mappingId: optionalNumber(1, 2 ** 31, "column mapping"),
+  instrumentIds: z.array(requiredDecimal({ label: "instrument id", min: 1, max: 2 ** 32, integer: true })).max(20).default([]),
+  supersedesId: optionalId("supersedes"),
+  mappingId: optionalId("column mapping"),
 });
 export type UploadFields = z.infer<typeof uploadFieldsSchema>;
 
@@ -40,20 +35,18 @@ export const reviewMeasurementBodySchema = z.discriminatedUnion("decision", [
 ]);
 export type ReviewMeasurementBody = z.infer<typeof reviewMeasurementBodySchema>;
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date as YYYY-MM-DD.");
-
 export const instrumentBodySchema = z
   .object({
     kind: z.string().trim().min(2).max(64),
     model: z.string().trim().min(1).max(160),
     serial: z.string().trim().min(1).max(64),
-    calibratedOn: isoDate,
-    calibrationDueOn: isoDate,
+    calibratedOn: calendarDateSchema,
+    calibrationDueOn: calendarDateSchema,
     uncertainty: z
       .array(
         z.object({
           quantity: z.string().trim().min(1).max(64),
-          value: z.number().positive(),
+          value: z.number({ error: "Enter the uncertainty as a number." }).positive("The uncertainty must be above 0."),
           unit: z.string().trim().min(1).max(16),
           coverageFactor: z.number().positive().max(5).default(2),
         }),
@@ -66,6 +59,9 @@ export type InstrumentBody = z.infer<typeof instrumentBodySchema>;
 
 export const benchTokenBodySchema = z.object({ name: z.string().trim().min(2, "Name the bench or script.").max(120) });
 
+const frequencyBand = (label: string) =>
+  z.object({ min: z.number().positive(), max: z.number().positive() }).superRefine(minNotAboveMax(label));
+
 export const deviceBodySchema = z.object({
   partNumber: z.string().trim().min(1).max(64).regex(/^[A-Za-z0-9][A-Za-z0-9._\-/]*$/, "Use letters, digits, . _ - /"),
   deviceClass: z.enum(deviceClasses, { error: "Choose one of the device classes." }),
@@ -73,8 +69,8 @@ export const deviceBodySchema = z.object({
   description: z.string().trim().max(2000).default(""),
   keyConditions: z
     .object({
-      inputFrequencyHz: z.object({ min: z.number().positive(), max: z.number().positive() }).optional(),
-      outputFrequencyHz: z.object({ min: z.number().positive(), max: z.number().positive() }).optional(),
+      inputFrequencyHz: frequencyBand("input frequency band").optional(),
+      outputFrequencyHz: frequencyBand("output frequency band").optional(),
       driveLevelDbm: z.number().min(-50).max(40).optional(),
       multiplicationFactor: z.number().int().min(2).max(16).optional(),
     })

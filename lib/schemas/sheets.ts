@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { limitBases, proseSectionIds } from "@/lib/domain/sheets";
+import { minNotAboveMax } from "./decimal";
 
 const finite = z.number().refine(Number.isFinite, "must be a finite number");
 
@@ -19,7 +20,7 @@ export const specLimitsBodySchema = z.object({
           footnote: z.string().trim().max(500).optional(),
         })
         .refine((l) => l.min != null || l.typ != null || l.max != null, "Give at least one of min, typ, max.")
-        .refine((l) => l.min == null || l.max == null || l.min <= l.max, { message: "min must not exceed max", path: ["max"] }),
+        .superRefine(minNotAboveMax("limits")),
     )
     .max(400),
 });

@@ -4,7 +4,8 @@ import { Device, Organization, User } from "..";
 import { demoOrganizations, demoPassword } from "./demo-scenario";
 
 export async function up({ context: qi }: { context: QueryInterface }) {
-  const passwordHash = await bcrypt.hash(demoPassword, 10);
+  // The cost of every stored password (lib/server/accounts/hash-password.ts) and of the sign-in decoy.
+  const passwordHash = await bcrypt.hash(demoPassword, 11);
   await qi.sequelize.transaction(async (transaction) => {
     for (const spec of demoOrganizations) {
       const [organization] = await Organization.findOrCreate({

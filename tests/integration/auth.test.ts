@@ -205,7 +205,7 @@ describe("invitations by e-mail", () => {
     expect(again.status).toBe(404);
   });
 
-  it("refuses to invite an address that already has an account", async () => {
+  it("refuses to invite a member of the organization (an account elsewhere: account-privacy.test.ts)", async () => {
     const { users } = await makeOrganization();
     const admin = new TestClient();
     await admin.signIn(users.admin.email, factoryPassword);
@@ -214,7 +214,7 @@ describe("invitations by e-mail", () => {
   });
 });
 
-describe("password reset and customer sign-up", () => {
+describe("password reset", () => {
   it("resets a password through the e-mailed link and ends old sessions", async () => {
     const { users } = await makeOrganization();
     const old = new TestClient();
@@ -231,18 +231,5 @@ describe("password reset and customer sign-up", () => {
     expect((await old.request("/api/me")).status).toBe(401);
     expect((await new TestClient().signIn(users.customer.email, "brand-new-password")).ok).toBe(true);
     expect((await new TestClient().request("/api/password-resets/complete", { json: { token, password: "another-password" } })).status).toBe(404);
-  });
-
-  it("lets a customer sign up into an organization of their own", async () => {
-    const email = uniqueEmail("buyer");
-    const client = new TestClient();
-    const r = await client.request("/api/accounts", { json: { name: "Buyer", email, password: "buyer-password-1", company: "Imaginary Radio Works" } });
-    expect(r.status).toBe(201);
-    expect((await client.signIn(email, "buyer-password-1")).ok).toBe(true);
-    const me = (await (await client.request("/api/me")).json()) as { user: { role: string; organizationName: string; organizationKind: string } };
-    expect(me.user).toMatchObject({ role: "customer", organizationName: "Imaginary Radio Works", organizationKind: "customer" });
-    expect((await client.request("/api/devices")).status).toBe(403);
-    const dup = await new TestClient().request("/api/accounts", { json: { name: "Again", email, password: "buyer-password-1", company: "X Co" } });
-    expect(dup.status).toBe(409);
   });
 });

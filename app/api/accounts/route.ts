@@ -2,6 +2,8 @@ import { signUpBodySchema } from "@/lib/schemas/accounts";
 import { signUpCustomer } from "@/lib/server/accounts/sign-up-customer";
 import { route } from "@/lib/server/auth/guard";
 
-export const POST = route({ access: "public", body: signUpBodySchema }, async ({ body }) =>
-  Response.json(await signUpCustomer(body), { status: 201 }),
-);
+// Always 202 with the same body: the answer never tells whether the address has an account.
+export const POST = route({ access: "public", body: signUpBodySchema }, async ({ body }) => {
+  await signUpCustomer(body);
+  return Response.json({ ok: true }, { status: 202 });
+});

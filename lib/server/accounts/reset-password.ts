@@ -1,15 +1,15 @@
 import "server-only";
-import bcrypt from "bcryptjs";
 import { Op } from "sequelize";
 import { AppError } from "@/lib/errors";
 import type { ResetPasswordBody } from "@/lib/schemas/accounts";
 import { PasswordReset, User, getSequelize } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { hashToken } from "../crypto";
+import { hashPassword } from "./hash-password";
 
 /** Sets the new password, spends the token and ends every existing session of the user. */
 export async function resetPassword(input: ResetPasswordBody): Promise<void> {
-  const passwordHash = await bcrypt.hash(input.password, 11);
+  const passwordHash = await hashPassword(input.password);
   await getSequelize().transaction(async (transaction) => {
     const reset = await PasswordReset.findOne({
       where: { tokenHash: hashToken(input.token), usedAt: null, expiresAt: { [Op.gt]: new Date() } },

@@ -1,34 +1,35 @@
 import "server-only";
-import bcrypt from "bcryptjs";
-import { randomBytes } from "node:crypto";
-import { AppError } from "@/lib/errors";
 import type { SignUpBody } from "@/lib/schemas/accounts";
-import { Organization, User, getSequelize } from "@/models";
-import { recordAuditEvent } from "../audit/record-audit-event";
+import { SignUpRequest, User, getSequelize } from "@/models";
+import { serverConfig } from "../config";
+import { createOneTimeToken } from "../crypto";
+import { signUpConfirmationMail, signUpExistingAccountMail } from "../mail/messages";
+import { sendMail } from "../mail/send-mail";
+import { hashPassword } from "./hash-password";
+
+export const signUpLifetimeMs = 24 * 60 * 60 * 1000;
 
 /**
- * A customer signs up alone: a customer organization named after their company is made
- * for them, so they never land inside a vendor's or a lab's organization.
+ * A customer asks for an account. The answer never says whether the address has one: a new
+ * address gets a link that creates the account (confirmSignUp), an address with an account gets
+ * a notice telling its owner to sign in or reset the password, and nothing else changes. Both
+ * paths hash the password and send one mail, so they also take about as long.
  */
-export async function signUpCustomer(input: SignUpBody): Promise<{ userId: number; email: string }> {
-  const passwordHash = await bcrypt.hash(input.password, 11);
-  return getSequelize().transaction(async (transaction) => {
-    if (await User.findOne({ where: { email: input.email }, transaction })) {
-      throw new AppError("conflict", `${input.email} already has a Benchfold account. Sign in or reset the password.`, { field: "email" });
-    }
-    const base = input.company.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 40) || "customer";
-    const organization = await Organization.create(
-      { slug: `${base}-${randomBytes(3).toString("hex")}`, name: input.company, kind: "customer" },
-      { transaction },
-    );
-    const user = await User.create(
-      { organizationId: organization.id, email: input.email, name: input.name, role: "customer", passwordHash },
-      { transaction },
-    );
-    await recordAuditEvent(
-      { organizationId: organization.id, actorUserId: user.id, action: "account.sign-up", subjectType: "user", subjectId: user.id, after: { email: user.email, role: "customer" } },
-      transaction,
-    );
-    return { userId: user.id, email: user.email };
-  });
+export async function signUpCustomer(input: SignUpBody): Promise<void> {
+  getSequelize();
+  const passwordHash = await hashPassword(input.password);
+  const existing = await User.findOne({ where: { email: input.email }, attributes: ["id"] });
+  if (existing) {
+    await sendMail(signUpExistingAccountMail({ to: input.email, signInLink: `${serverConfig.appUrl}/sign-in`, resetLink: `${serverConfig.appUrl}/password-reset` }));
+    return;
+  }
+  const { token, tokenHash } = createOneTimeToken();
+  const expiresAt = new Date(Date.now() + signUpLifetimeMs);
+  const request = await SignUpRequest.create({ email: input.email, name: input.name, company: input.company, passwordHash, tokenHash, expiresAt });
+  try {
+    await sendMail(signUpConfirmationMail({ to: input.email, link: `${serverConfig.appUrl}/sign-up/confirm/${token}`, expiresAt }));
+  } catch (error) {
+    await request.destroy();
+    throw error;
+  }
 }

@@ -1,13 +1,13 @@
 import "server-only";
-import bcrypt from "bcryptjs";
 import { AppError } from "@/lib/errors";
 import type { AcceptInvitationBody } from "@/lib/schemas/accounts";
 import { User, getSequelize } from "@/models";
+import { hashPassword } from "../accounts/hash-password";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { findOpenInvitation } from "./find-open-invitation";
 
 export async function acceptInvitation(input: AcceptInvitationBody): Promise<{ userId: number; email: string }> {
-  const passwordHash = await bcrypt.hash(input.password, 11);
+  const passwordHash = await hashPassword(input.password);
   return getSequelize().transaction(async (transaction) => {
     const { invitation } = await findOpenInvitation(input.token, transaction);
     if (await User.findOne({ where: { email: invitation.email }, transaction })) {

@@ -7,14 +7,16 @@ import { recordAuditEvent } from "../audit/record-audit-event";
 import type { SessionUser } from "../auth/session-user";
 import { serverConfig } from "../config";
 import { createOneTimeToken } from "../crypto";
-import { invitationMail } from "../mail/messages";
+import { invitationExistingAccountMail, invitationMail } from "../mail/messages";
 import { sendMail } from "../mail/send-mail";
 
 export const invitationLifetimeMs = 7 * 24 * 60 * 60 * 1000;
 
 /**
  * Invites a colleague into the admin's organization and e-mails the link. The row and the
- * audit event commit only when the mail was handed to the SMTP server.
+ * audit event commit only when the mail was handed to the SMTP server. An address with an
+ * account in another organization gets the same answer, row and audit event, but its mail
+ * explains that an address holds one account and carries no link.
  */
 export async function createInvitation(opts: { actor: SessionUser; input: InviteUserBody }): Promise<{ id: number; email: string; role: string; expiresAt: string }> {
   const { actor, input } = opts;
@@ -23,8 +25,11 @@ export async function createInvitation(opts: { actor: SessionUser; input: Invite
   }
   const sequelize = getSequelize();
   return sequelize.transaction(async (transaction) => {
-    if (await User.findOne({ where: { email: input.email }, transaction })) {
-      throw new AppError("conflict", `${input.email} already has a Benchfold account.`, { field: "email" });
+    // Someone of this organization is on the admin's people list anyway; an account elsewhere is
+    // not the admin's to learn of: it is invited like a new address and only its owner is told.
+    const existing = await User.findOne({ where: { email: input.email }, attributes: ["id", "organizationId"], transaction });
+    if (existing && existing.organizationId === actor.organizationId) {
+      throw new AppError("conflict", `${input.email} is a member of your organization already.`, { field: "email" });
     }
     const pending = await Invitation.findOne({
       where: { organizationId: actor.organizationId, email: input.email, acceptedAt: null, expiresAt: { [Op.gt]: new Date() } },
@@ -43,7 +48,8 @@ export async function createInvitation(opts: { actor: SessionUser; input: Invite
     );
     const link = `${serverConfig.appUrl}/invitations/${token}`;
     try {
-      await sendMail(invitationMail({ to: input.email, organizationName: actor.organizationName, inviterName: actor.name, role: input.role, link, expiresAt }));
+      const about = { to: input.email, organizationName: actor.organizationName, inviterName: actor.name, role: input.role };
+      await sendMail(existing ? invitationExistingAccountMail(about) : invitationMail({ ...about, link, expiresAt }));
     } catch (error) {
       console.error("[benchfold] invitation mail failed", error);
       throw new AppError("unavailable", "The invitation e-mail could not be sent; nothing was saved. Try again later.");

@@ -5,7 +5,9 @@ import type { UserRole } from "@/models/user";
 import { TestClient } from "./client";
 import { assertLoopbackDatabase } from "./loopback";
 
-export const factoryPassword = "factory-password-1";
+import { factoryPassword } from "./factory-password";
+
+export { factoryPassword };
 const passwordHash = bcrypt.hashSync(factoryPassword, 4);
 
 export const uniqueEmail = (label: string) => `${label}-${randomBytes(5).toString("hex")}@factory.example`;

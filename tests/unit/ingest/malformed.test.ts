@@ -38,6 +38,8 @@ const CASES: Case[] = [
   { file: "drive-bad-metadata.csv", code: "bad-metadata", line: 3, field: "input_frequency", says: 'expected a frequency with its unit, e.g. "1 GHz", found "fast"' },
   { file: "drive-metadata-unknown-unit.csv", code: "unknown-unit", line: 3, field: "input_frequency", says: 'unknown unit "GHzz"' },
   { file: "drive-metadata-no-unit.csv", code: "bad-metadata", line: 5, field: "splitter_excess_loss", says: '"0.4" has no unit' },
+  { file: "drive-date-february-30.csv", code: "bad-metadata", line: 5, field: "date", says: "2026-02-30 is not a date: February 2026 has 28 days" },
+  { file: "phase-noise-zero-date.csv", code: "bad-metadata", line: 3, field: "date", says: "0000-00-00 is not a date: the year must be from 1900 to 9999" },
   { file: "drive-bad-wanted-order.csv", code: "bad-metadata", line: 4, field: "wanted_order", says: 'whole number from 1 to 16, found "two"' },
   { file: "drive-missing-serial.csv", code: "missing-metadata", field: "serial", says: '"# serial: BFD-0001"' },
   { file: "drive-missing-input-frequency.csv", code: "missing-metadata", field: "input_frequency", says: 'required metadata "input_frequency" is missing' },

@@ -7,6 +7,7 @@ import { getDevice } from "@/lib/server/devices/get-device";
 import { listInstruments } from "@/lib/server/instruments/list-instruments";
 import { listDeviceMeasurementSets } from "@/lib/server/measurements/list-device-measurement-sets";
 import { DeviceView } from "@/components/devices/device-view";
+import { parseRecordId } from "@/lib/schemas/decimal";
 
 type Props = { params: Promise<{ id: string }> };
 
@@ -15,8 +16,8 @@ export const metadata: Metadata = { title: "Device" };
 export default async function DevicePage({ params }: Props) {
   const { id } = await params;
   const user = await requirePageUser({ permission: "device:read", path: `/devices/${id}` });
-  const deviceId = Number(id);
-  if (!Number.isInteger(deviceId) || deviceId <= 0) notFound();
+  const deviceId = parseRecordId(id);
+  if (deviceId === undefined) notFound();
   const { organizationId } = user;
   const canUpload = can(user.role, "measurement:upload");
   try {

@@ -11,6 +11,7 @@ import { findSheetTemplate } from "@/templates";
 import { SheetView } from "@/components/sheet/sheet-view";
 import { SheetViewWithCharts } from "@/components/sheets/sheet-view-with-charts";
 import { SheetWorkspace } from "@/components/sheets/sheet-workspace";
+import { parseRecordId } from "@/lib/schemas/decimal";
 
 type Props = { params: Promise<{ deviceId: string }> };
 
@@ -19,8 +20,8 @@ export const metadata: Metadata = { title: "Sheet draft" };
 export default async function SheetPage({ params }: Props) {
   const { deviceId: idText } = await params;
   const user = await requirePageUser({ permission: sheetDraftReaders, path: `/sheets/${idText}` });
-  const deviceId = Number(idText);
-  if (!Number.isInteger(deviceId) || deviceId <= 0) notFound();
+  const deviceId = parseRecordId(idText);
+  if (deviceId === undefined) notFound();
   let input: SheetInput;
   try {
     // The same input buildDeviceSheet reads, loaded once: the model for the preview, the raw text for the editors.

@@ -6,6 +6,7 @@ import { requirePageUser } from "@/lib/server/auth/require-page-user";
 import { getDevice } from "@/lib/server/devices/get-device";
 import { getMeasurementSet } from "@/lib/server/measurements/get-measurement-set";
 import { MeasurementSetView } from "@/components/measurements/measurement-set-view";
+import { parseRecordId } from "@/lib/schemas/decimal";
 
 type Props = { params: Promise<{ id: string; setId: string }> };
 
@@ -14,9 +15,9 @@ export const metadata: Metadata = { title: "Measurement set" };
 export default async function MeasurementSetPage({ params }: Props) {
   const { id, setId } = await params;
   const user = await requirePageUser({ permission: "device:read", path: `/devices/${id}/measurements/${setId}` });
-  const deviceId = Number(id);
-  const measurementSetId = Number(setId);
-  if (!Number.isInteger(deviceId) || deviceId <= 0 || !Number.isInteger(measurementSetId) || measurementSetId <= 0) notFound();
+  const deviceId = parseRecordId(id);
+  const measurementSetId = parseRecordId(setId);
+  if (deviceId === undefined || measurementSetId === undefined) notFound();
   const { organizationId } = user;
   try {
     const [device, set] = await Promise.all([getDevice({ organizationId, deviceId }), getMeasurementSet({ organizationId, setId: measurementSetId })]);
