@@ -7,7 +7,7 @@
  */
 import type { TopLevelSpec } from "vega-lite";
 import type { Curve, CurveSeries, DerivedParameter } from "@/lib/analysis/types";
-import { formatNumber } from "@/components/format-quantity";
+import { formatQuantity } from "@/lib/format";
 import { tokens } from "@/tailwind.config";
 
 export type ChartFonts = { text: string; figures: string };
@@ -43,10 +43,7 @@ export function displayUnit(unit: string): string {
 }
 
 function withUnit(value: number, unit: string, maxDecimals = 3): string {
-  const text = formatNumber(value, { maxDecimals });
-  if (unit === ":1") return `${text}:1`;
-  if (unit === "deg" || unit === "°") return `${text}°`;
-  return unit ? `${text}\u00a0${unit}` : text;
+  return formatQuantity(value, unit, { digits: { maxDecimals }, prefix: false });
 }
 
 /** "order 2" → "2nd harmonic"; order 1 is the fundamental. */

@@ -2,7 +2,8 @@ import { decimateSeries } from "../analysis/curves";
 import type { Curve } from "../analysis/types";
 import type { CurveTemplate } from "../../templates/types";
 import { tokens } from "../../tailwind.config";
-import { formatTrimmed, pickFrequencyUnit, roundStable } from "./format";
+import { chooseScale, formatNumber } from "../format/quantity";
+import { roundStable } from "./format";
 import type { ChartSpec } from "./types";
 
 /** Lines per chart beyond which more units add ink, not information. */
@@ -36,8 +37,8 @@ interface AxisScaling {
 function axisScaling(axis: { label: string; unit: string; scale?: "linear" | "log" }, maxAbs: number): AxisScaling {
   const log = axis.scale === "log";
   if (axis.unit === "Hz" && !log) {
-    const { unit, scale } = pickFrequencyUnit(maxAbs);
-    return { title: `${axis.label} (${unit})`, factor: 1 / scale, log };
+    const { unit, factor } = chooseScale(maxAbs, axis.unit);
+    return { title: `${axis.label} (${unit})`, factor, log };
   }
   return { title: axis.unit ? `${axis.label} (${axis.unit === "deg" ? "°" : axis.unit})` : axis.label, factor: 1, log };
 }
@@ -175,7 +176,7 @@ export function buildChartSpec(
   const description =
     `${template.title}${at}: ${drawn.length} ${unitWord}` +
     (multiSeries ? `, series ${names.join(", ")}` : "") +
-    `; ${yScaling.title} from ${formatTrimmed(yMin, 2)} to ${formatTrimmed(yMax, 2)}.` +
+    `; ${yScaling.title} from ${formatNumber(yMin, { digits: { maxDecimals: 2 } })} to ${formatNumber(yMax, { digits: { maxDecimals: 2 } })}.` +
     markerText;
   return { id: template.id, title: template.title, caption, description, unitCount: drawn.length, vegaLite };
 }
