@@ -39,8 +39,9 @@ export default function CurveChart({ curve, thermalFloorDbcHz }: { curve: Curve;
 
 /** vega-tooltip's "custom" theme, in the page's paper and ink. */
 const tooltipCss = `
-#vg-tooltip-element.custom-theme { background: #FFFDF8; color: #1C1A17; border: 1px solid #8C8273; border-radius: 2px;
-  box-shadow: 0 2px 6px rgb(28 26 23 / 0.12); font-family: var(--font-text), sans-serif; font-size: 13px; padding: 6px 9px; }
-#vg-tooltip-element.custom-theme td.key { color: #6E685E; padding-right: 8px; }
+#vg-tooltip-element.custom-theme { background: var(--color-paper-bright); color: var(--color-ink); border: 1px solid var(--color-rule-strong);
+  border-radius: var(--radius); box-shadow: 0 2px 6px color-mix(in srgb, var(--color-ink) 12%, transparent);
+  font-family: var(--font-text), sans-serif; font-size: 13px; padding: 6px 9px; }
+#vg-tooltip-element.custom-theme td.key { color: var(--color-ink-muted); padding-right: 8px; }
 #vg-tooltip-element.custom-theme td.value { font-family: var(--font-figures), monospace; font-variant-numeric: tabular-nums; }
 `;

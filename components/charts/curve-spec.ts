@@ -8,7 +8,7 @@
 import type { TopLevelSpec } from "vega-lite";
 import type { Curve, CurveSeries, DerivedParameter } from "@/lib/analysis/types";
 import { formatQuantity } from "@/lib/format";
-import { tokens } from "@/tailwind.config";
+import { tokens } from "@/lib/design/tokens";
 
 export type ChartFonts = { text: string; figures: string };
 
@@ -23,7 +23,7 @@ export type CurveSpecOptions = {
 
 const c = tokens.colors;
 /** Ink first, the accent second, then warm greys: readable on paper, distinct in print. */
-export const seriesColours = [c.ink, c.signal, "#5B6B7A", "#7A5B2E", c["ink-muted"], "#2F5D50"];
+export const seriesColours = [c.ink, c.signal, c["trace-slate"], c["trace-umber"], c["ink-muted"], c["trace-pine"]];
 export const seriesDashes: number[][] = [[], [7, 3], [2, 2], [9, 3, 2, 3], [4, 4], [12, 4]];
 export const seriesShapes = ["circle", "square", "triangle-up", "diamond", "cross", "triangle-down"];
 

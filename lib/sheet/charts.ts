@@ -1,7 +1,7 @@
 import { decimateSeries } from "../analysis/curves";
 import type { Curve } from "../analysis/types";
 import type { CurveTemplate } from "../../templates/types";
-import { tokens } from "../../tailwind.config";
+import { tokens } from "../design/tokens";
 import { chooseScale, formatNumber } from "../format/quantity";
 import { roundStable } from "./format";
 import type { ChartSpec } from "./types";
