@@ -3,7 +3,7 @@ import { parameterCatalog } from "@/lib/analysis/catalog";
 import type { Curve, DerivedParameter } from "@/lib/analysis/types";
 import type { DeviceSummary } from "@/lib/domain/devices";
 import type { MeasurementSetDetail } from "@/lib/domain/measurements";
-import { curvesForDisplay, thermalFloorFromParameters } from "@/components/charts/curve-spec";
+import { curvesForDisplay, thermalFloorFromParameters } from "@/lib/charts";
 import { CurveFigure } from "@/components/charts/curve-figure";
 import { formatDate, formatDateTime } from "@/lib/format";
 import { Notice } from "@/components/ui/notice";
