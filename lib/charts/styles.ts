@@ -107,7 +107,9 @@ export function chartConfig(medium: ChartMedium, fonts: ChartFonts = CHART_FONTS
       labelFont: fonts.text,
       labelFontSize: size.legendLabel,
       labelColor: c.ink,
-      labelLimit: 260,
+      labelLimit: medium === "print" ? 150 : 260,
+      // Printed charts are narrow: three entries a row, so a long legend wraps instead of shrinking the plot.
+      ...(medium === "print" ? { columns: 3 } : {}),
       symbolType: "stroke",
       symbolStrokeWidth: 1.5,
       symbolSize: medium === "print" ? 220 : 160,
