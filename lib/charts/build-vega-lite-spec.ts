@@ -137,7 +137,8 @@ export function buildVegaLiteSpec(data: ChartData, look: ChartLook): BuiltChart 
       if (!Number.isFinite(xRaw) || !Number.isFinite(yRaw) || (logX && xRaw <= 0) || (logY && yRaw <= 0)) continue;
       const x = plotValue(xRaw * xScale.factor);
       const y = plotValue(yRaw);
-      values.push(screen ? { x, y, series: label, unit, xText: xText(x), yText: yText(y) } : { x, y, series: label, unit });
+      // Tooltips print the value itself, not the plotted one: rounding twice can move a last digit.
+      values.push(screen ? { x, y, series: label, unit, xText: xText(xRaw * xScale.factor), yText: yText(yRaw) } : { x, y, series: label, unit });
       present.add(trace.series);
       units.add(unit);
       yMin = Math.min(yMin, y);
@@ -198,9 +199,8 @@ export function buildVegaLiteSpec(data: ChartData, look: ChartLook): BuiltChart 
   const markers = (data.markers ?? []).filter((m) => Number.isFinite(m.x) && Number.isFinite(m.y) && !(logX && m.x <= 0));
   if (markers.length > 0) {
     const markerValues = markers.map((m) => {
-      const mx = plotValue(m.x * xScale.factor);
-      const my = plotValue(m.y);
-      return screen ? { x: mx, y: my, label: m.label, unit: m.unit ?? "", xText: xText(mx), yText: yText(my) } : { x: mx, y: my, label: m.label, unit: m.unit ?? "" };
+      const point = { x: plotValue(m.x * xScale.factor), y: plotValue(m.y), label: m.label, unit: m.unit ?? "" };
+      return screen ? { ...point, xText: xText(m.x * xScale.factor), yText: yText(m.y) } : point;
     });
     layers.push({
       data: { values: markerValues },
@@ -223,11 +223,12 @@ export function buildVegaLiteSpec(data: ChartData, look: ChartLook): BuiltChart 
     // On screen, a labelled marker (the optimum) is named in the plot's top-right corner, clear of its trace;
     // the printed sheet names markers in the caption.
     if (screen) {
-      markerValues
+      markers
         .filter((m) => m.label !== "spur")
         .forEach((m, i) => {
+          const at = formatQuantity(m.x * xScale.factor, xScale.unit, { digits: { maxDecimals: 2 }, prefix: false });
           layers.push({
-            data: { values: [{ text: `\u25CB ${m.label}: ${formatQuantity(m.x, xScale.unit, { digits: { maxDecimals: 2 }, prefix: false })}, ${yText(m.y)}` }] },
+            data: { values: [{ text: `\u25CB ${m.label}: ${at}, ${yText(m.y)}` }] },
             mark: { type: "text", align: "right", baseline: "top", x: "width", y: 8 + 16 * i, dx: -8, font: fonts.text, fontSize: size.legendLabel, color: MARKER_STYLE.labelColour, fontWeight: 600 },
             encoding: { text: { field: "text" } },
           });

@@ -5,7 +5,7 @@ import { describe, expect, it, vi } from "vitest";
 vi.mock("server-only", () => ({}));
 
 import { deriveParameters } from "@/lib/analysis";
-import { buildCurveSpec, chartConfig, SERIES_STYLES } from "@/lib/charts";
+import { buildCurveSpec, chartConfig, SERIES_STYLES, seriesStyleIndex } from "@/lib/charts";
 import { tokens } from "@/lib/design/tokens";
 import { parseMeasurementFile } from "@/lib/ingest";
 import { buildSheetModel } from "@/lib/sheet";
@@ -84,5 +84,32 @@ describe("the sheet and the workspace draw a series kind alike", () => {
     expect(sheetConfig).toEqual(printConfig);
     expect((printConfig.axis as Record<string, string>).gridColor).toBe(tokens.colors.rule);
     expect((chartConfig("screen").axis as Record<string, string>).labelColor).toBe(tokens.colors.ink);
+  });
+});
+
+describe("a series' style", () => {
+  it.each<[string, string[], number]>([
+    ["order 1", ["order 1", "order 3", "order 4"], 0],
+    ["order 3", ["order 1", "order 3", "order 4"], 2], // by its order, not its place in the list
+    ["order 2", ["order 2"], 1],
+    ["port 4", ["port 1", "port 4"], 3],
+    ["isolation S41", ["insertion loss S21", "insertion loss S31", "isolation S41"], 2],
+    ["IM3", ["tone", "IM3"], 1],
+  ])("%s among %j is style %d", (name, names, index) => {
+    expect(seriesStyleIndex(name, names)).toBe(index);
+  });
+
+  it("a lone series is drawn in ink, leaving the accent to the markers", () => {
+    const spec = buildCurveSpec({
+      id: "c",
+      title: "Conversion loss",
+      x: { label: "Drive", unit: "dBm", scale: "linear" },
+      y: { label: "Loss", unit: "dB", scale: "linear" },
+      series: [{ name: "order 2", points: [[0, 10], [1, 9]] }],
+      markers: [{ x: 1, y: 9, label: "optimum drive" }],
+    });
+    expect(looksOf(spec).get("2nd harmonic (×2)")).toMatchObject({ colour: tokens.colors.ink, dash: "[]" });
+    const markerLayer = (spec.layer as { mark: { type: string; filled?: boolean; color?: string } }[]).find((l) => l.mark.type === "point" && l.mark.filled === false);
+    expect(markerLayer?.mark.color).toBe(tokens.colors.signal);
   });
 });
