@@ -1,3 +1,4 @@
+import { LOGO_PATHS } from "./logo";
 import { tokens as designTokens } from "./tokens";
 
 /** The shape of the tokens, without their literal values (a test feeds in a changed colour). */
@@ -8,8 +9,9 @@ export type ThemeSource = {
   containers: Readonly<Record<string, string>>;
 };
 
-/** The path, from the repository root, of the generated file globals.css imports. */
+/** The paths, from the repository root, of the generated theme globals.css imports and of the favicon. */
 export const THEME_CSS_PATH = "app/theme.css";
+export const ICON_SVG_PATH = "app/icon.svg";
 
 /**
  * The `@theme` block Tailwind 4 builds its utilities and CSS variables from, written out of the
@@ -34,4 +36,18 @@ export function themeCss(tokens: ThemeSource = designTokens): string {
     "}",
   ];
   return `${lines.join("\n")}\n`;
+}
+
+/** The favicon: the mark in the token colours (a favicon cannot read the page's CSS variables). */
+export function iconSvg(tokens: ThemeSource = designTokens): string {
+  const c = tokens.colors;
+  return [
+    '<svg xmlns="http://www.w3.org/2000/svg" width="32" height="32" viewBox="0 0 32 32" fill="none">',
+    `  <path d="${LOGO_PATHS.sheet}" fill="${c["paper-bright"]}" stroke="${c.ink}" stroke-width="2" stroke-linejoin="round"/>`,
+    `  <path d="${LOGO_PATHS.fold}" stroke="${c.ink}" stroke-width="2" stroke-linejoin="round"/>`,
+    `  <path d="${LOGO_PATHS.fundamental}" stroke="${c.ink}" stroke-width="2" stroke-linecap="round"/>`,
+    `  <path d="${LOGO_PATHS.octave}" stroke="${c.signal}" stroke-width="2" stroke-linecap="round"/>`,
+    "</svg>",
+    "",
+  ].join("\n");
 }

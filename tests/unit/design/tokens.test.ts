@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { execFileSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
-import { THEME_CSS_PATH, themeCss } from "@/lib/design/theme-css";
+import { ICON_SVG_PATH, iconSvg, THEME_CSS_PATH, themeCss } from "@/lib/design/theme-css";
 import { tokens } from "@/lib/design/tokens";
 
 const ROOT = path.resolve(__dirname, "../../..");
@@ -30,6 +30,10 @@ describe("design tokens have one source", () => {
     expect(read(THEME_CSS_PATH)).toBe(themeCss());
   });
 
+  it("app/icon.svg, the favicon, is the mark in the token colours", () => {
+    expect(read(ICON_SVG_PATH)).toBe(iconSvg());
+  });
+
   it("the generator writes every token, so a changed colour reaches the page", () => {
     const changed = themeCss({ ...tokens, colors: { ...tokens.colors, signal: "#123456" } });
     expect(changed).toContain("--color-signal: #123456;");
@@ -52,7 +56,8 @@ describe("design tokens have one source", () => {
   });
 
   it("no colour is written out by hand in the page, the charts or the PDF", () => {
-    const files = trackedFiles(["app", "components", "lib"], /\.(css|tsx?)$/).filter((f) => f !== THEME_CSS_PATH && f !== "lib/design/tokens.ts");
+    const generated = [THEME_CSS_PATH, ICON_SVG_PATH, "lib/design/tokens.ts"];
+    const files = trackedFiles(["app", "components", "lib"], /\.(css|svg|tsx?)$/).filter((f) => !generated.includes(f));
     // The printed page's white (PDF page, print stylesheet, raster background) is the paper it is printed on, not a theme colour.
     const hand = files.flatMap((f) => [...read(f).matchAll(/#[0-9a-fA-F]{6}\b|#[0-9a-fA-F]{3}\b(?![\w-])/g)].map((m) => `${m[0]} in ${f}`));
     expect(hand.filter((h) => !/^#(fff|ffffff) in /i.test(h))).toEqual([]);
