@@ -2,6 +2,7 @@ import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
 import { SiteFooter } from "@/components/site-footer";
 import { SiteHeader } from "@/components/site-header";
+import { tokens } from "@/lib/design/tokens";
 import { getSessionUser } from "@/lib/server/auth/session";
 import "./globals.css";
 
@@ -34,7 +35,7 @@ export const metadata: Metadata = {
     "From bench measurements of mixers, frequency multipliers and hybrids to reviewed, released datasheets your customers can trust.",
 };
 
-export const viewport: Viewport = { themeColor: "#FAF7F0" };
+export const viewport: Viewport = { themeColor: tokens.colors.paper };
 
 export default async function RootLayout({ children }: { children: React.ReactNode }) {
   const user = await getSessionUser();

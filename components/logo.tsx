@@ -1,3 +1,5 @@
+import { LOGO_PATHS } from "@/lib/design/logo";
+
 /**
  * Benchfold's mark: a sheet with its corner folded, carrying a fundamental and,
  * beneath it in the signal colour, its octave (twice the frequency).
@@ -16,12 +18,12 @@ export function LogoMark({ size = 28, className, title }: LogoMarkProps) {
       aria-hidden={title ? undefined : true}
       aria-label={title}
     >
-      <path d="M6.5 2.75h13.75l5.5 5.5v21H6.5z" fill="var(--color-paper-bright, #fffdf8)" stroke="currentColor" strokeWidth="1.75" strokeLinejoin="round" />
-      <path d="M20.25 2.75v5.5h5.5" stroke="currentColor" strokeWidth="1.75" strokeLinejoin="round" />
-      <path d="M9.75 15.5c1.6-3.6 4.9-3.6 6.5 0s4.9 3.6 6.5 0" stroke="currentColor" strokeWidth="1.75" strokeLinecap="round" />
+      <path d={LOGO_PATHS.sheet} fill="var(--color-paper-bright)" stroke="currentColor" strokeWidth="1.75" strokeLinejoin="round" />
+      <path d={LOGO_PATHS.fold} stroke="currentColor" strokeWidth="1.75" strokeLinejoin="round" />
+      <path d={LOGO_PATHS.fundamental} stroke="currentColor" strokeWidth="1.75" strokeLinecap="round" />
       <path
-        d="M9.75 23c.8-2.6 2.45-2.6 3.25 0s2.45 2.6 3.25 0 2.45-2.6 3.25 0 2.45 2.6 3.25 0"
-        stroke="var(--color-signal, #b3361c)"
+        d={LOGO_PATHS.octave}
+        stroke="var(--color-signal)"
         strokeWidth="1.75"
         strokeLinecap="round"
       />

@@ -4,7 +4,7 @@ import { useState } from "react";
 import type { BenchTokenSummary } from "@/lib/domain/instruments";
 import { benchTokenBodySchema } from "@/lib/schemas/measurements";
 import { messageOf, requestJson } from "@/components/api-client";
-import { formatDateTime } from "@/components/format-quantity";
+import { formatDateTime } from "@/lib/format";
 import { useJsonResource } from "@/components/use-json-resource";
 import { buttonClass } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";

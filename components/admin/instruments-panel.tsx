@@ -3,7 +3,7 @@
 import { useId, useState } from "react";
 import type { InstrumentSummary } from "@/lib/domain/instruments";
 import { instrumentBodySchema, type InstrumentBody } from "@/lib/schemas/measurements";
-import { formatDate, formatNumber } from "@/components/format-quantity";
+import { formatDate, formatNumber } from "@/lib/format";
 import { useJsonForm, type FormCheck } from "@/components/use-json-form";
 import { useJsonResource } from "@/components/use-json-resource";
 import { buttonClass } from "@/components/ui/button";

@@ -3,7 +3,7 @@
 import { useState } from "react";
 import type { Role } from "@/lib/domain/permissions";
 import { messageOf, requestJson } from "@/components/api-client";
-import { formatDate, formatDateTime } from "@/components/format-quantity";
+import { formatDate, formatDateTime } from "@/lib/format";
 import { roleLabels } from "@/lib/domain/accounts";
 import { useJsonResource } from "@/components/use-json-resource";
 import { buttonClass } from "@/components/ui/button";

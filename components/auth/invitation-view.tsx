@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { isRole } from "@/lib/domain/permissions";
-import { formatDateTime } from "@/components/format-quantity";
+import { formatDateTime } from "@/lib/format";
 import { roleLabels } from "@/lib/domain/accounts";
 import { AcceptInvitationForm } from "./accept-invitation-form";
 import { AuthFrame } from "./auth-frame";

@@ -10,18 +10,19 @@ import { Notice } from "@/components/ui/notice";
 import { useJsonForm, type FormCheck } from "@/components/use-json-form";
 import { deviceClasses, deviceClassLabels, type DeviceClass } from "@/lib/domain/device-classes";
 import { FrequencyRangeField, type FrequencyRangeValue } from "./frequency-range-field";
-import { toHz } from "./frequency-units";
+import { rangeScale } from "@/lib/format";
 import { parseDecimalText } from "@/lib/ingest/number";
+import { toHz, type FrequencyUnit } from "./frequency-units";
 
 const emptyRange: FrequencyRangeValue = { min: "", max: "", unit: "GHz" };
 
-/** A stored range (Hz) shown in the largest unit that keeps the lower end at 1 or more. */
+/** A stored range (Hz) offered for editing in the unit the pages print it in ("0.2–2 GHz", lib/format). */
 function rangeValue(range: { min: number; max: number } | undefined): FrequencyRangeValue {
   if (!range) return emptyRange;
-  const unit = range.min >= 1e9 ? "GHz" : range.min >= 1e6 ? "MHz" : range.min >= 1e3 ? "kHz" : "Hz";
-  const scale = { GHz: 1e9, MHz: 1e6, kHz: 1e3, Hz: 1 }[unit];
-  const text = (hz: number) => String(Number((hz / scale).toPrecision(12)));
-  return { min: text(range.min), max: text(range.max), unit };
+  const { unit, factor } = rangeScale(range.min, range.max, "Hz");
+  // Twelve significant figures: the stored hertz back exactly, without float noise (2.4000000000000004).
+  const text = (hz: number) => String(Number((hz * factor).toPrecision(12)));
+  return { min: text(range.min), max: text(range.max), unit: unit as FrequencyUnit };
 }
 
 /** Reads a range field: both ends or neither; in Hz; an error in words otherwise. */

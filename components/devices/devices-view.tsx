@@ -1,19 +1,18 @@
 import Link from "next/link";
 import type { DevicePage } from "@/lib/domain/devices";
-import { formatDate, formatFrequencyRange, formatNumber } from "@/components/format-quantity";
+import { formatDate, formatNumber } from "@/lib/format";
 import { buttonClass } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { selectClass } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
-import { Quantity } from "@/components/ui/quantity";
+import { NumberQuantity, RangeQuantity } from "@/components/ui/quantity";
 import { deviceClassLabels } from "@/lib/domain/device-classes";
 import { deviceListHref, type DeviceListQuery, type DeviceSortKey } from "./device-list-query";
 import { DeviceForm } from "./device-form";
 
 function Range({ range }: { range?: { min: number; max: number } }) {
   if (!range) return <span className="text-ink-muted">—</span>;
-  const { value, unit } = formatFrequencyRange(range);
-  return <Quantity value={value} unit={unit} />;
+  return <RangeQuantity {...range} unit="Hz" />;
 }
 
 type DevicesViewProps = { devicePage: DevicePage; organizationName: string; query: DeviceListQuery; canCreate: boolean };
@@ -116,7 +115,7 @@ export function DevicesView({ devicePage, organizationName, query, canCreate }: 
                           {k.driveLevelDbm === undefined ? (
                             <span className="text-ink-muted">—</span>
                           ) : (
-                            <Quantity value={formatNumber(k.driveLevelDbm, { signed: true })} unit="dBm" />
+                            <NumberQuantity value={k.driveLevelDbm} unit="dBm" signed />
                           )}
                         </td>
                         <td className="num whitespace-nowrap">

@@ -1,5 +1,5 @@
 import type { CaughtMessage } from "@/lib/domain/dev-mailbox";
-import { formatDateTime } from "@/components/format-quantity";
+import { formatDateTime } from "@/lib/format";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 

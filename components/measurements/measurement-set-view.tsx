@@ -3,17 +3,17 @@ import { parameterCatalog } from "@/lib/analysis/catalog";
 import type { Curve, DerivedParameter } from "@/lib/analysis/types";
 import type { DeviceSummary } from "@/lib/domain/devices";
 import type { MeasurementSetDetail } from "@/lib/domain/measurements";
-import { curvesForDisplay, thermalFloorFromParameters } from "@/components/charts/curve-spec";
+import { curvesForDisplay, thermalFloorFromParameters } from "@/lib/charts";
 import { CurveFigure } from "@/components/charts/curve-figure";
-import { formatDate, formatDateTime, formatFrequency, formatNumber } from "@/components/format-quantity";
+import { formatDate, formatDateTime } from "@/lib/format";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
-import { Quantity } from "@/components/ui/quantity";
+import { NumberQuantity, Quantity } from "@/components/ui/quantity";
 import { kindLabel } from "@/lib/domain/measurements";
 import { describeConditions } from "./parameter-conditions";
 import { ReviewActions } from "./review-actions";
 import { StateBadge } from "./state-badge";
-import { formatByteSize } from "./upload-request";
+import { formatByteSize } from "@/lib/format";
 
 type MeasurementSetViewProps = {
   device: DeviceSummary;
@@ -238,11 +238,11 @@ function ConditionsList({ set }: { set: MeasurementSetDetail }) {
   const items: [string, React.ReactNode][] = [
     ["Serial", k.serial ? <span className="figure">{k.serial}</span> : "—"],
     ["Lot", k.lot ? <span className="figure">{k.lot}</span> : "—"],
-    ["Temperature", k.temperatureC === undefined ? "—" : <Quantity value={formatNumber(k.temperatureC)} unit="°C" />],
-    ["Input frequency", k.inputFrequencyHz === undefined ? "—" : <Quantity {...formatFrequency(k.inputFrequencyHz)} />],
-    ["Drive level", k.driveLevelDbm === undefined ? "—" : <Quantity value={formatNumber(k.driveLevelDbm, { signed: true })} unit="dBm" />],
-    ["Splitter excess loss", k.splitterExcessLossDb === undefined ? "—" : <Quantity value={formatNumber(k.splitterExcessLossDb)} unit="dB" />],
-    ["Cable loss", k.cableLossDb === undefined ? "—" : <Quantity value={formatNumber(k.cableLossDb)} unit="dB" />],
+    ["Temperature", k.temperatureC === undefined ? "—" : <NumberQuantity value={k.temperatureC} unit="°C" />],
+    ["Input frequency", k.inputFrequencyHz === undefined ? "—" : <NumberQuantity value={k.inputFrequencyHz} unit="Hz" />],
+    ["Drive level", k.driveLevelDbm === undefined ? "—" : <NumberQuantity value={k.driveLevelDbm} unit="dBm" signed />],
+    ["Splitter excess loss", k.splitterExcessLossDb === undefined ? "—" : <NumberQuantity value={k.splitterExcessLossDb} unit="dB" />],
+    ["Cable loss", k.cableLossDb === undefined ? "—" : <NumberQuantity value={k.cableLossDb} unit="dB" />],
     ["Measured on", set.measuredOn ? <span className="figure">{formatDate(set.measuredOn)}</span> : "—"],
   ];
   return (
@@ -265,19 +265,10 @@ function labelOf(name: string): { label: string; description?: string } {
   return entry ? { label: entry.label, description: entry.description } : { label: name };
 }
 
-/** Two decimals, or three significant figures for a small value (an RMS phase error of 0.0042° is not "0°"). */
-function decimalsFor(value: number): number {
-  const magnitude = Math.abs(value);
-  if (magnitude === 0 || magnitude >= 1) return 2;
-  return Math.min(8, Math.ceil(-Math.log10(magnitude)) + 2);
-}
-
 function ParameterValue({ p }: { p: DerivedParameter }) {
   if (p.value === null) return <span className="text-ink-muted">not computed</span>;
-  const text = formatNumber(p.value, { maxDecimals: decimalsFor(p.value), signed: p.unit === "dBm" });
-  if (p.unit === ":1") return <Quantity value={`${text}:1`} />;
-  if (p.unit === "deg") return <Quantity value={`${text}°`} />;
-  return <Quantity value={text} unit={p.unit} />;
+  // Two decimals, or three significant figures for a small value (an RMS phase error of 0.0042° is not "0°").
+  return <NumberQuantity value={p.value} unit={p.unit} digits={{ maxDecimals: 2, minSignificant: 3 }} signed={p.unit === "dBm"} />;
 }
 
 /** Parameters that recur at every sweep step (conversion loss per drive step) fold away below the key figures. */

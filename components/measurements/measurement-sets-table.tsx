@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { MeasurementSetSummary } from "@/lib/domain/measurements";
-import { formatDateTime, formatNumber } from "@/components/format-quantity";
-import { Quantity } from "@/components/ui/quantity";
+import { formatDateTime } from "@/lib/format";
+import { NumberQuantity } from "@/components/ui/quantity";
 import { kindLabel } from "@/lib/domain/measurements";
 import { StateBadge } from "./state-badge";
 
@@ -50,7 +50,7 @@ export function MeasurementSetsTable({ deviceId, sets }: { deviceId: number; set
                 {set.conditions.temperatureC === undefined ? (
                   <span className="text-ink-muted">—</span>
                 ) : (
-                  <Quantity value={formatNumber(set.conditions.temperatureC, { signed: set.conditions.temperatureC < 0 })} unit="°C" />
+                  <NumberQuantity value={set.conditions.temperatureC} unit="°C" />
                 )}
               </td>
               <td>

@@ -1,4 +1,4 @@
-import { formatFrequency, formatNumber } from "@/components/format-quantity";
+import { formatNumber, quantityParts } from "@/lib/format";
 
 /**
  * A derived parameter's conditions in words with units: `inputFrequencyHz: 1e9` → "input frequency 1 GHz".
@@ -49,16 +49,15 @@ export function describeConditions(conditions: Record<string, string | number>):
       continue;
     }
     if (key === "ktDbmHz") {
-      parts.push({ label, value: formatNumber(raw, { maxDecimals: 1 }), unit: "dBm/Hz" });
+      parts.push({ label, ...quantityParts(raw, "dBm/Hz", { digits: { maxDecimals: 1 } }) });
       continue;
     }
     if (/Hz$/.test(key) && !/DbcHz$|DbmHz$/.test(key)) {
-      const f = formatFrequency(raw);
-      parts.push({ label, value: f.value, unit: f.unit });
+      parts.push({ label, ...quantityParts(raw, "Hz") });
       continue;
     }
     const suffix = suffixes.find(([re]) => re.test(key));
-    parts.push({ label, value: formatNumber(raw, { signed: suffix?.[1] === "dBm" && raw > 0 }), unit: suffix?.[1] });
+    parts.push({ label, value: formatNumber(raw, { signed: suffix?.[1] === "dBm" }), unit: suffix?.[1] });
   }
   return parts;
 }

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { DeviceSummary } from "@/lib/domain/devices";
 import type { MeasurementSetSummary } from "@/lib/domain/measurements";
-import { formatDateTime } from "@/components/format-quantity";
+import { formatDateTime } from "@/lib/format";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";

@@ -2,7 +2,7 @@
 
 import { useId } from "react";
 import type { InstrumentSummary } from "@/lib/domain/instruments";
-import { formatDate } from "@/components/format-quantity";
+import { formatDate } from "@/lib/format";
 import { frequencyUnitNames, type FrequencyUnit } from "@/components/devices/frequency-units";
 import { selectClass } from "@/components/ui/field";
 import { kindLabel, measurementKindLabels } from "@/lib/domain/measurements";

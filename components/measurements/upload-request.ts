@@ -59,9 +59,3 @@ export function sendUpload(options: {
     xhr.send(options.form);
   });
 }
-
-export function formatByteSize(n: number): string {
-  if (n >= 1024 * 1024) return `${(n / (1024 * 1024)).toFixed(1)} MB`;
-  if (n >= 1024) return `${(n / 1024).toFixed(1)} kB`;
-  return `${n} bytes`;
-}

@@ -3,7 +3,7 @@
 import Link from "next/link";
 import { buttonClass } from "@/components/ui/button";
 import type { Row, RowState } from "./upload-form-data";
-import { formatByteSize } from "./upload-request";
+import { formatByteSize } from "@/lib/format";
 
 export type UploadRowViewProps = {
   row: Row;

@@ -9,7 +9,7 @@ export interface SheetViewProps {
   model: SheetModel;
   /**
    * Chart SVG markup by chart id, made on the server from the model's own
-   * Vega-Lite specs (lib/server/pdf/render-chart.ts renderSheetChartSvgs).
+   * Vega-Lite specs (lib/server/charts/render-chart.ts renderSheetChartSvgs).
    * A chart without markup shows its text description.
    */
   chartSvgs?: Record<string, string>;

@@ -4,7 +4,7 @@ import { useMemo, useState, type FormEvent } from "react";
 import { limitBases, limitBasisWords, type LimitBasis } from "@/lib/domain/sheets";
 import type { SpecLimitInput, StatisticsGroup } from "@/lib/sheet/types";
 import { ApiError, requestJson } from "@/components/api-client";
-import { formatNumber } from "@/components/format-quantity";
+import { formatNumber } from "@/lib/format";
 import { buttonClass } from "@/components/ui/button";
 import { selectClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -183,7 +183,7 @@ export function SpecLimitsEditor({ deviceId, model, limits, onSaved }: SpecLimit
       </h2>
       <p className="mt-1 max-w-prose text-ink-muted">
         One line per parameter under one set of conditions. Leave min, typ and max empty to publish the measured mean as typical. Flags are
-        computed from the saved limits: Cpk below <span className="figure">{formatNumber(statistics.cpkThreshold, { maxDecimals: 2 })}</span>, or a
+        computed from the saved limits: Cpk below <span className="figure">{formatNumber(statistics.cpkThreshold, { digits: { maxDecimals: 2 } })}</span>, or a
         unit outside the guard-banded limit. Saving replaces the whole set.
       </p>
 

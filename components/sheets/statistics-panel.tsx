@@ -3,7 +3,7 @@
 import Link from "next/link";
 import { useEffect, useRef } from "react";
 import type { StatisticsGroup } from "@/lib/sheet/types";
-import { formatNumber } from "@/components/format-quantity";
+import { formatNumber, formatQuantity } from "@/lib/format";
 import { Notation } from "@/components/sheet/notation";
 import { FlagList } from "./flag-list";
 
@@ -30,7 +30,7 @@ function Figure({ text, unit }: { text: string; unit?: string }) {
 }
 
 function percent(fraction: number): string {
-  return `${formatNumber(fraction * 100, { maxDecimals: 1 })}\u00a0%`;
+  return formatQuantity(fraction * 100, "%", { digits: { maxDecimals: 1 } });
 }
 
 /** The data behind one figure of the specifications table: the statistics group, its flags and every unit's result. */
@@ -137,12 +137,12 @@ export function StatisticsPanel({ group: g, deviceId, coverage, confidence, cpkT
                   <span className="figure">{g.cpk.text}</span>
                   <span className="text-sm">
                     {" "}
-                    {cpkLow ? "below" : "meets"} the threshold <span className="figure">{formatNumber(cpkThreshold, { maxDecimals: 2 })}</span>
+                    {cpkLow ? "below" : "meets"} the threshold <span className="figure">{formatNumber(cpkThreshold, { digits: { maxDecimals: 2 } })}</span>
                   </span>
                 </span>
               ) : (
                 <span className="text-ink-muted">
-                  — <span className="text-sm">(needs a limit; threshold {formatNumber(cpkThreshold, { maxDecimals: 2 })})</span>
+                  — <span className="text-sm">(needs a limit; threshold {formatNumber(cpkThreshold, { digits: { maxDecimals: 2 } })})</span>
                 </span>
               )}
             </dd>

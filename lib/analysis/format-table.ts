@@ -1,37 +1,31 @@
+import { formatNumber, formatQuantity, formatScientific, MISSING } from "../format/quantity";
 import type { DerivedParameter } from "./types";
 
-const SI_PREFIXES: [number, string][] = [
-  [1e9, "G"],
-  [1e6, "M"],
-  [1e3, "k"],
-];
+/** The CLI prints for a terminal: a hyphen-minus and plain spaces, the figures as everywhere else. */
+const PLAIN = { plain: true } as const;
+/** Condition values: up to six significant figures, trailing zeros dropped. */
+const CONDITION_DIGITS = { digits: { maxSignificant: 6 }, ...PLAIN } as const;
 
 /** 1e9 → "1 GHz", 70e6 → "70 MHz", 12.59 → "12.59 Hz". */
-export function formatFrequency(hz: number): string {
-  for (const [scale, prefix] of SI_PREFIXES) {
-    if (Math.abs(hz) >= scale) return `${trimNumber(hz / scale)} ${prefix}Hz`;
-  }
-  return `${trimNumber(hz)} Hz`;
+function formatFrequency(hz: number): string {
+  return formatQuantity(hz, "Hz", CONDITION_DIGITS);
 }
 
-function trimNumber(value: number): string {
-  return String(Number(value.toPrecision(6)));
-}
-
-export function formatValue(value: number | null): string {
-  if (value === null) return "—";
+/** The value column: three decimals (one from 1000 up), scientific outside 1e-3 … 1e7. */
+function formatValue(value: number | null): string {
+  if (value === null) return MISSING;
   const magnitude = Math.abs(value);
-  if (magnitude !== 0 && (magnitude < 1e-3 || magnitude >= 1e7)) return value.toExponential(3);
-  return value.toFixed(magnitude >= 1000 ? 1 : 3);
+  if (magnitude !== 0 && (magnitude < 1e-3 || magnitude >= 1e7)) return formatScientific(value, 3, PLAIN);
+  return formatNumber(value, { digits: { decimals: magnitude >= 1000 ? 1 : 3 }, ...PLAIN });
 }
 
 export function formatConditions(conditions: Record<string, string | number>): string {
   return Object.entries(conditions)
     .map(([key, value]) => {
       if (typeof value !== "number") return `${key}=${value}`;
-      if (key.endsWith("DbmHz")) return `${key}=${trimNumber(value)} dBm/Hz`;
+      if (key.endsWith("DbmHz")) return `${key}=${formatQuantity(value, "dBm/Hz", CONDITION_DIGITS)}`;
       if (key.endsWith("Hz")) return `${key}=${formatFrequency(value)}`;
-      if (key.endsWith("Dbm")) return `${key}=${trimNumber(value)} dBm`;
+      if (key.endsWith("Dbm")) return `${key}=${formatQuantity(value, "dBm", CONDITION_DIGITS)}`;
       return `${key}=${value}`;
     })
     .join(", ");

@@ -16,6 +16,7 @@ import { computeMedian } from "../stats";
 import { errorMessage, makeParameter, makeSeries } from "./curves";
 import type { Section } from "./section";
 import type { Curve, DeriveOptions, DerivedParameter } from "./types";
+import { formatNumber } from "../format/quantity";
 
 export const DEFAULT_INTEGRATION_START_HZ = 10;
 export const DEFAULT_INTEGRATION_STOP_HZ = 1e6;
@@ -103,7 +104,7 @@ function addMultiplicationExcess(out: Derivation, spots: SpotPhaseNoise[]): void
     const penaltyDb = computeMultiplicationPenaltyDb(n);
     out.parameters.push(makeParameter("ideal-multiplication-penalty", penaltyDb, { multiplicationFactor: n }));
     out.warnings.push(
-      `No input reference trace: the excess over ideal ×${n} multiplication cannot be derived; an ideal ×${n} adds 20·log10(${n}) = ${penaltyDb.toFixed(2)} dB`,
+      `No input reference trace: the excess over ideal ×${n} multiplication cannot be derived; an ideal ×${n} adds 20·log10(${n}) = ${formatNumber(penaltyDb, { digits: { decimals: 2 } })} dB`,
     );
     return;
   }

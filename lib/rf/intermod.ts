@@ -1,4 +1,5 @@
 import { fitLine, fitLineWithSlope, pairSweep } from "./sweep";
+import { formatNumber } from "../format/quantity";
 
 /**
  * Two-tone third-order intercept (Kundert, "Accurate and Rapid Measurement of IP2
@@ -101,6 +102,6 @@ export function fitInterceptPoint(options: InterceptFitOptions): InterceptFit {
 }
 
 function formatSlope(slope: number): string {
-  return slope.toFixed(2);
+  return formatNumber(slope, { digits: { decimals: 2 } });
 }
 

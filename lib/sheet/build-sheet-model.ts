@@ -4,7 +4,8 @@ import { findSheetTemplate } from "../../templates";
 import type { SheetTemplate, SpecRowTemplate, TrendTemplate } from "../../templates/types";
 import { buildChartSpec, type ChartSource } from "./charts";
 import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
-import { EN_DASH, formatFrequency, formatFrequencyRange, formatTemperature, formatTrimmed, formatValue, pickFrequencyUnit } from "./format";
+import { formatNumber, formatQuantity, formatRange, quantityParts, rangeParts } from "../format/quantity";
+import { formatTemperature, formatValue } from "./format";
 import { renderProse } from "./render-prose";
 import { computeGroupStatistics, type UnitValue } from "./statistics";
 import type {
@@ -237,11 +238,11 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
       cpkThreshold: settings.cpkThreshold,
       method:
         `Per parameter and condition group across units: n, mean, sample standard deviation s (n − 1), median, min, max. ` +
-        `Proposed limits are the two-sided normal tolerance interval mean ± k·s covering ${formatTrimmed(settings.toleranceCoverage * 100, 2)} % ` +
-        `of units with ${formatTrimmed(settings.toleranceConfidence * 100, 2)} % confidence, exact factor k ` +
+        `Proposed limits are the two-sided normal tolerance interval mean ± k·s covering ${formatQuantity(settings.toleranceCoverage * 100, "%", { digits: { maxDecimals: 2 } })} ` +
+        `of units with ${formatQuantity(settings.toleranceConfidence * 100, "%", { digits: { maxDecimals: 2 } })} confidence, exact factor k ` +
         `(NIST/SEMATECH e-Handbook of Statistical Methods §7.2.6.3; Odeh & Owen 1980). ` +
         `Cpk = min[(USL − mean)/(3s), (mean − LSL)/(3s)] (NIST/SEMATECH §6.1.6). A limit is flagged as not supported by the data ` +
-        `when Cpk < ${formatTrimmed(settings.cpkThreshold, 2)} or when any unit falls outside the guard-banded limit.`,
+        `when Cpk < ${formatNumber(settings.cpkThreshold, { digits: { maxDecimals: 2 } })} or when any unit falls outside the guard-banded limit.`,
       decisionRules: [...decisionRules].sort(),
       groups,
       flaggedGroupCount: groups.filter((g) => !g.supported).length,
@@ -474,9 +475,9 @@ function describeSetConditions(set: ApprovedSetInput): string {
   const carrier = setCondition(set, "carrierFrequencyHz");
   const start = setCondition(set, "startHz");
   const stop = setCondition(set, "stopHz", "max");
-  if (input !== undefined) parts.push(`${formatFrequency(input)} in`);
-  else if (carrier !== undefined) parts.push(`${formatFrequency(carrier)} out`);
-  else if (start !== undefined && stop !== undefined) parts.push(formatFrequencyRange(start, stop));
+  if (input !== undefined) parts.push(`${formatQuantity(input, "Hz")} in`);
+  else if (carrier !== undefined) parts.push(`${formatQuantity(carrier, "Hz")} out`);
+  else if (start !== undefined && stop !== undefined) parts.push(formatRange(start, stop, "Hz"));
   if (set.temperatureC !== undefined) parts.push(formatTemperature(set.temperatureC));
   return parts.join(", ");
 }
@@ -535,7 +536,7 @@ function buildTraceability(sets: ApprovedSetInput[], issues: SheetModel["issues"
         calibrationDueOn: instrument.calibrationDueOn,
         uncertainty: [...instrument.uncertainty]
           .sort((a, b) => compareStrings(a.quantity, b.quantity))
-          .map((u) => `${u.quantity}: ±${formatTrimmed(u.value, 4)} ${u.unit} (k = ${formatTrimmed(u.coverageFactor, 2)})`),
+          .map((u) => `${u.quantity}: ±${formatQuantity(u.value, u.unit, { digits: { maxDecimals: 4 } })} (k = ${formatNumber(u.coverageFactor, { digits: { maxDecimals: 2 } })})`),
         setCount: 1,
         calibrationLapsed: lapsed,
       });
@@ -547,7 +548,7 @@ function buildTraceability(sets: ApprovedSetInput[], issues: SheetModel["issues"
       kind: set.kind,
       serial: set.serial,
       lot: set.lot ?? null,
-      temperature: set.temperatureC === undefined ? "" : `${formatTrimmed(set.temperatureC, 1)} °C`,
+      temperature: set.temperatureC === undefined ? "" : formatTemperature(set.temperatureC),
       measuredOn: set.measuredOn,
     })),
     instruments: [...instruments.values()].sort(
@@ -565,17 +566,15 @@ function buildKeyFacts(conditions: SheetInput["device"]["keyConditions"]): Sheet
   const facts: SheetModel["keyFacts"] = [];
   const range = (label: string, r: { min: number; max: number } | undefined) => {
     if (!r) return;
-    let choice = pickFrequencyUnit(r.max);
-    if (r.min / choice.scale < 0.1) choice = pickFrequencyUnit(r.min);
-    facts.push({ label, value: `${formatTrimmed(r.min / choice.scale)}${EN_DASH}${formatTrimmed(r.max / choice.scale)}`, unit: choice.unit });
+    facts.push({ label, ...rangeParts(r.min, r.max, "Hz") });
   };
   range("Input frequency", conditions.inputFrequencyHz);
   range("Output frequency", conditions.outputFrequencyHz);
   if (conditions.driveLevelDbm !== undefined) {
-    facts.push({ label: "Drive level", value: `${conditions.driveLevelDbm > 0 ? "+" : ""}${formatTrimmed(conditions.driveLevelDbm, 1)}`, unit: "dBm" });
+    facts.push({ label: "Drive level", ...quantityParts(conditions.driveLevelDbm, "dBm", { signed: true, digits: { maxDecimals: 1 } }) });
   }
   if (conditions.multiplicationFactor !== undefined) {
-    facts.push({ label: "Multiplication factor", value: `×${formatTrimmed(conditions.multiplicationFactor, 0)}`, unit: "" });
+    facts.push({ label: "Multiplication factor", value: `×${formatNumber(conditions.multiplicationFactor, { digits: { maxDecimals: 0 } })}`, unit: "" });
   }
   return facts;
 }

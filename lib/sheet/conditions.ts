@@ -1,5 +1,6 @@
 import type { ConditionColumn, ConditionSource } from "../../templates/types";
-import { formatFrequency, formatFrequencyRange, formatSignedDbm, formatTemperature, formatTrimmed } from "./format";
+import { formatNumber, formatQuantity, formatRange } from "../format/quantity";
+import { formatDrive, formatTemperature } from "./format";
 
 export type Conditions = Record<string, string | number>;
 
@@ -41,19 +42,19 @@ function formatSource(source: ConditionSource, conditions: Conditions): string |
   if (value === undefined) return null;
   switch (source.format) {
     case "frequency":
-      return typeof value === "number" ? formatFrequency(value) : String(value);
+      return typeof value === "number" ? formatQuantity(value, "Hz") : String(value);
     case "frequency-range": {
       const stop = source.stopKey ? conditions[source.stopKey] : undefined;
-      if (typeof value === "number" && typeof stop === "number") return formatFrequencyRange(value, stop);
-      return typeof value === "number" ? formatFrequency(value) : String(value);
+      if (typeof value === "number" && typeof stop === "number") return formatRange(value, stop, "Hz");
+      return typeof value === "number" ? formatQuantity(value, "Hz") : String(value);
     }
     case "power-dbm":
-      return typeof value === "number" ? formatSignedDbm(value) : String(value);
+      return typeof value === "number" ? formatDrive(value) : String(value);
     case "temperature-c":
       return typeof value === "number" ? formatTemperature(value) : String(value);
     case "port":
       return String(value);
     case "text":
-      return typeof value === "number" ? formatTrimmed(value) : String(value);
+      return typeof value === "number" ? formatNumber(value) : String(value);
   }
 }

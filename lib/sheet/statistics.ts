@@ -1,5 +1,6 @@
 import { computeCapability, computeToleranceFactorExact, decideConformity, describeDecisionRule, summarizeSample } from "../stats";
-import { emptyValue, formatTrimmed, formatValue, roundStable } from "./format";
+import { formatNumber, formatQuantity } from "../format/quantity";
+import { emptyValue, formatValue, roundStable } from "./format";
 import type { FormattedValue, SpecLimitInput, StatisticsFlag, UnitResult } from "./types";
 
 export interface UnitValue {
@@ -154,7 +155,7 @@ function judgeCapability(sample: SampleDescription, limit: SpecLimitInput, cpkTh
     if (capability.cpk < cpkThreshold) {
       flags.push({
         code: "cpk-below-threshold",
-        message: `Cpk ${formatTrimmed(capability.cpk, 2)} is below the threshold ${formatTrimmed(cpkThreshold, 2)}: the data do not support this limit.`,
+        message: `Cpk ${formatNumber(capability.cpk, { digits: { maxDecimals: 2 } })} is below the threshold ${formatNumber(cpkThreshold, { digits: { maxDecimals: 2 } })}: the data do not support this limit.`,
       });
     }
     return formatValue(capability.cpk, 2);
@@ -201,7 +202,7 @@ function decideUnits(options: {
     if (guardLower !== null && guardUpper !== null && guardLower > guardUpper) {
       flags.push({
         code: "guard-band-closes-acceptance",
-        message: `Guard bands of U = ${formatTrimmed(u, 3)} ${unit} leave no acceptance zone between the limits.`,
+        message: `Guard bands of U = ${formatQuantity(u, unit)} leave no acceptance zone between the limits.`,
       });
     }
   }

@@ -1,3 +1,4 @@
+import { formatQuantity } from "../format/quantity";
 /**
  * Conformity decisions against specification limits, with the decision rule
  * stated beside each result as ISO/IEC 17025:2017 §7.8.6 requires. Rules follow
@@ -45,7 +46,7 @@ export function decideConformity(options: ConformityOptions): ConformityDecision
   const acceptanceUpperLimit = upperLimit === undefined ? null : upperLimit - guardBand;
   if (acceptanceLowerLimit !== null && acceptanceUpperLimit !== null && acceptanceLowerLimit > acceptanceUpperLimit) {
     throw new RangeError(
-      `Guard bands of U = ${u}${formatUnit(unit)} close the acceptance zone between ${lowerLimit} and ${upperLimit}`,
+      `Guard bands of U = ${formatQuantity(u, unit, { digits: { maxSignificant: 6 } })} close the acceptance zone between ${lowerLimit} and ${upperLimit}`,
     );
   }
   const passes =
@@ -67,7 +68,7 @@ export function decideConformity(options: ConformityOptions): ConformityDecision
 
 /** The decision rule in words, for the sheet and for each per-unit result. */
 export function describeDecisionRule(rule: DecisionRule, expandedUncertainty: number, unit = ""): string {
-  const uText = `U = ${formatNumber(expandedUncertainty)}${formatUnit(unit)} (k = 2)`;
+  const uText = `U = ${formatQuantity(expandedUncertainty, unit, { digits: { maxSignificant: 3 } })} (k = 2)`;
   if (rule === "simple-acceptance") {
     return (
       `Simple acceptance (ILAC-G8:09/2019 §4.2.1, guard band w = 0): a unit passes when its measured value lies ` +
@@ -81,10 +82,3 @@ export function describeDecisionRule(rule: DecisionRule, expandedUncertainty: nu
   );
 }
 
-function formatUnit(unit: string): string {
-  return unit ? ` ${unit}` : "";
-}
-
-function formatNumber(value: number): string {
-  return Number(value.toPrecision(3)).toString();
-}

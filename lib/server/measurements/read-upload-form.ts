@@ -1,6 +1,7 @@
 import "server-only";
 import { AppError } from "@/lib/errors";
 import { uploadFieldsSchema, type UploadFields } from "@/lib/schemas/measurements";
+import { formatByteSize } from "@/lib/format";
 
 /** Largest measurement file accepted, in bytes (BENCHFOLD_MAX_UPLOAD_BYTES overrides). */
 export function maxUploadBytes(): number {
@@ -21,7 +22,7 @@ export async function readUploadForm(
   const declared = Number(request.headers.get("content-length") ?? NaN);
   // The multipart envelope adds a little around the file.
   if (Number.isFinite(declared) && declared > limit + 64 * 1024) {
-    throw new AppError("payload-too-large", `The upload is ${formatBytes(declared)}; the limit is ${formatBytes(limit)} per file.`);
+    throw new AppError("payload-too-large", `The upload is ${formatByteSize(declared)}; the limit is ${formatByteSize(limit)} per file.`);
   }
   if (!(request.headers.get("content-type") ?? "").includes("multipart/form-data")) {
     throw new AppError("unsupported-media-type", "Send the file as multipart/form-data with a field named \"file\".");
@@ -35,7 +36,7 @@ export async function readUploadForm(
   const file = form.get("file");
   if (!(file instanceof File)) throw new AppError("invalid", "Attach the measurement file in a field named \"file\".", { field: "file" });
   if (file.size > limit) {
-    throw new AppError("payload-too-large", `${file.name} is ${formatBytes(file.size)}; the limit is ${formatBytes(limit)} per file.`);
+    throw new AppError("payload-too-large", `${file.name} is ${formatByteSize(file.size)}; the limit is ${formatByteSize(limit)} per file.`);
   }
   const raw: Record<string, unknown> = {};
   const extra: Record<string, string> = {};
@@ -51,10 +52,4 @@ export async function readUploadForm(
   const fields = uploadFieldsSchema.parse(raw);
   const name = (file.name || "upload").replace(/[\\/]/g, "_").slice(0, 255);
   return { file: { name, contentType: file.type || "application/octet-stream", bytes: new Uint8Array(await file.arrayBuffer()) }, fields, extra };
-}
-
-export function formatBytes(n: number): string {
-  if (n >= 1024 * 1024) return `${(n / (1024 * 1024)).toFixed(1)} MB`;
-  if (n >= 1024) return `${(n / 1024).toFixed(1)} kB`;
-  return `${n} bytes`;
 }

@@ -1,7 +1,7 @@
 import "server-only";
 import { Link, StyleSheet, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
-import { tokens } from "../../../tailwind.config";
+import { tokens } from "../../design/tokens";
 import { notationSegments } from "../../sheet/notation";
 import type { ProseBlock, ProseInline } from "../../sheet/types";
 import { MONO_FAMILY, SANS_FAMILY } from "./fonts";

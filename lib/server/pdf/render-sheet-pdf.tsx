@@ -4,7 +4,7 @@ import type { ReactNode } from "react";
 import type { SheetModel, StatisticsGroup } from "../../sheet/types";
 import { fontFiles, MONO_FAMILY, SANS_FAMILY } from "./fonts";
 import { type Cell, colors, type Column, PdfNotation, PdfProse, PdfTable, SectionHeading, styles } from "./pdf-parts";
-import { renderSheetChartPngs } from "./render-chart";
+import { renderSheetChartPngs } from "../charts/render-chart";
 import { settleGlyphCodePoints } from "./settle-glyph-code-points";
 import { stampPageNumbers } from "./stamp-page-numbers";
 

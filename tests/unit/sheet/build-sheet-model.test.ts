@@ -165,7 +165,7 @@ describe("buildSheetModel on the doubler fixture", () => {
     // Sorted by kind: phase-noise test set, signal generator, spectrum analyzer.
     expect(instruments.map((i) => i.serial)).toEqual(["QPN-0042", "TSG-2291", "CSA-0815"]);
     expect(instruments.find((i) => i.serial === "CSA-0815")?.setCount).toBe(49);
-    expect(instruments[1].uncertainty[0]).toBe("output level: ±0.5 dB (k = 2)");
+    expect(instruments[1].uncertainty[0]).toBe("output level: ±0.5\u00a0dB (k = 2)");
     expect(instruments[1]).toMatchObject({ calibratedOn: "2025-09-02", calibrationDueOn: "2026-09-02", calibrationLapsed: false });
   });
 });

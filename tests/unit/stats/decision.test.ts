@@ -31,7 +31,7 @@ describe("conformity decisions", () => {
   it("states the rule in words (ISO/IEC 17025:2017 §7.8.6)", () => {
     const simple = decideConformity({ measuredValue: 7, upperLimit: 8, expandedUncertainty: u, rule: "simple-acceptance", unit: "dB" });
     expect(simple.ruleStatement).toContain("ILAC-G8:09/2019 §4.2.1");
-    expect(simple.ruleStatement).toContain("U = 0.435 dB (k = 2)");
+    expect(simple.ruleStatement).toContain("U = 0.435\u00a0dB (k = 2)");
     const guarded = decideConformity({ measuredValue: 7, upperLimit: 8, expandedUncertainty: u, rule: "guard-band", unit: "dB" });
     expect(guarded.ruleStatement).toContain("§4.2.2");
   });

@@ -4,7 +4,7 @@ import { Suspense } from "react";
 import { isAppError } from "@/lib/errors";
 import { buildSheetModel, type SheetInput } from "@/lib/sheet";
 import { loadSheetInput } from "@/lib/server/sheets/load-sheet-input";
-import { renderSheetChartSvgs } from "@/lib/server/pdf/render-chart";
+import { renderSheetChartSvgs } from "@/lib/server/charts/render-chart";
 import { can, sheetDraftReaders } from "@/lib/domain/permissions";
 import { requirePageUser } from "@/lib/server/auth/require-page-user";
 import { findSheetTemplate } from "@/templates";

@@ -5,7 +5,7 @@ import sharp from "sharp";
 import * as vega from "vega";
 import { compile, type TopLevelSpec } from "vega-lite";
 import type { SheetModel } from "../../sheet/types";
-import { fontFiles, SANS_FAMILY } from "./fonts";
+import { fontFiles, SANS_FAMILY } from "../pdf/fonts";
 
 /**
  * Vega-Lite spec → SVG with Vega's headless view (renderer "none", no canvas):

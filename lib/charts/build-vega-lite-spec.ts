@@ -1,0 +1,268 @@
+/**
+ * The one Vega-Lite spec builder: a measurement set's curves in the workspace and the sheet's charts
+ * (web SVG and PDF raster) are all drawn from here. Pure: no React, no DOM, no server.
+ *
+ * A chart is one or more traces, each a series of one unit; a series keeps its colour, dash and point
+ * shape wherever it is drawn (styles.ts); several units of one series share its look and are separate
+ * lines (Vega-Lite `detail`). Axis titles carry units; a frequency axis reads in the prefix its largest
+ * value needs (lib/format); on screen every point has a tooltip with its value and unit.
+ */
+import { decimateSeries } from "../analysis/curves";
+import { chooseScale, formatQuantity } from "../format/quantity";
+import { tokens } from "../design/tokens";
+import {
+  CHART_FONTS,
+  chartConfig,
+  chartSizes,
+  MARKER_STYLE,
+  RULE_STYLE,
+  SERIES_STYLES,
+  seriesLabel,
+  seriesStyle,
+  type ChartFonts,
+  type ChartMedium,
+} from "./styles";
+
+export interface ChartAxis {
+  label: string;
+  unit: string;
+  scale?: "linear" | "log";
+}
+
+export interface ChartTrace {
+  /** The engine's series name ("order 2", "insertion loss S21"). */
+  series: string;
+  /** The unit (serial) the trace was measured on; traces of one series on several units are separate lines. */
+  unit?: string;
+  points: readonly (readonly [number, number])[];
+}
+
+export interface ChartMarker {
+  x: number;
+  y: number;
+  label: string;
+  unit?: string;
+}
+
+/** A horizontal reference line with its label (the thermal phase-noise floor). */
+export interface ChartRule {
+  y: number;
+  label: string;
+}
+
+export interface ChartData {
+  title: string;
+  x: ChartAxis;
+  y: ChartAxis;
+  /** Every series of the curve, in the engine's order: fixes each series' style (styles.ts). */
+  seriesNames: readonly string[];
+  traces: readonly ChartTrace[];
+  markers?: readonly ChartMarker[];
+  rules?: readonly ChartRule[];
+}
+
+export interface ChartLook {
+  medium: ChartMedium;
+  /** Pixels, or "container" to follow the element's width (screen). */
+  width: number | "container";
+  height: number;
+  fonts?: ChartFonts;
+  /** A point at every datum: "auto" sizes them by density; true for a few discrete x values. */
+  points?: boolean | "auto";
+  /** Min/max decimation per trace beyond this many points (lib/analysis decimateSeries). */
+  maxPointsPerTrace?: number;
+}
+
+export interface BuiltChart {
+  vegaLite: Record<string, unknown>;
+  xTitle: string;
+  yTitle: string;
+  /** Series labels in legend order. */
+  seriesLabels: string[];
+  unitCount: number;
+  markerCount: number;
+  yMin: number;
+  yMax: number;
+}
+
+/** Six significant figures: plenty for a plot, and the JSON stays small and stable. */
+function plotValue(value: number): number {
+  const rounded = Number(value.toPrecision(6));
+  return Object.is(rounded, -0) ? 0 : rounded;
+}
+
+function axisTitle(label: string, unit: string): string {
+  if (!unit || unit === ":1") return label;
+  return `${label} (${unit === "deg" ? "°" : unit})`;
+}
+
+/** One grid line and label per decade on a log axis: the minor lines crowd a printed chart. */
+function decades(xs: number[]): number[] {
+  const low = Math.floor(Math.log10(Math.min(...xs)) + 1e-9);
+  const high = Math.ceil(Math.log10(Math.max(...xs)) - 1e-9);
+  const out: number[] = [];
+  for (let e = low; e <= high; e++) out.push(10 ** e);
+  return out;
+}
+
+export function buildVegaLiteSpec(data: ChartData, look: ChartLook): BuiltChart | null {
+  const screen = look.medium === "screen";
+  const size = chartSizes(look.medium);
+  const fonts = look.fonts ?? CHART_FONTS;
+  const logX = data.x.scale === "log";
+  const logY = data.y.scale === "log";
+
+  let maxX = 0;
+  for (const trace of data.traces) for (const [x] of trace.points) if (Number.isFinite(x)) maxX = Math.max(maxX, Math.abs(x));
+  const xScale = logX ? { unit: data.x.unit, factor: 1 } : chooseScale(maxX, data.x.unit);
+  const xTitle = axisTitle(data.x.label, xScale.unit);
+  const yTitle = axisTitle(data.y.label, data.y.unit);
+  const xText = (x: number) => formatQuantity(x, xScale.unit, { digits: { maxDecimals: 4 }, prefix: false });
+  const yText = (y: number) => formatQuantity(y, data.y.unit, { digits: { maxDecimals: 2 }, prefix: false });
+
+  const values: Record<string, string | number>[] = [];
+  const present = new Set<string>();
+  const units = new Set<string>();
+  let yMin = Infinity;
+  let yMax = -Infinity;
+  let densest = 0;
+  for (const trace of data.traces) {
+    const xs = trace.points.map((p) => p[0]);
+    const ys = trace.points.map((p) => p[1]);
+    const points = look.maxPointsPerTrace ? decimateSeries(xs, ys, { maxPoints: look.maxPointsPerTrace, logX }) : trace.points;
+    densest = Math.max(densest, points.length);
+    const label = seriesLabel(trace.series);
+    const unit = trace.unit ?? "";
+    for (const [xRaw, yRaw] of points) {
+      if (!Number.isFinite(xRaw) || !Number.isFinite(yRaw) || (logX && xRaw <= 0) || (logY && yRaw <= 0)) continue;
+      const x = plotValue(xRaw * xScale.factor);
+      const y = plotValue(yRaw);
+      // Tooltips print the value itself, not the plotted one: rounding twice can move a last digit.
+      values.push(screen ? { x, y, series: label, unit, xText: xText(xRaw * xScale.factor), yText: yText(yRaw) } : { x, y, series: label, unit });
+      present.add(trace.series);
+      units.add(unit);
+      yMin = Math.min(yMin, y);
+      yMax = Math.max(yMax, y);
+    }
+  }
+  if (values.length === 0) return null;
+
+  // Legend order: the engine's series order, then anything it did not list.
+  const ordered = [...data.seriesNames.filter((n) => present.has(n)), ...[...present].filter((n) => !data.seriesNames.includes(n)).sort()];
+  const labels = ordered.map(seriesLabel);
+  // A lone series has nothing to be told apart from: it is drawn in ink, and the accent stays free for markers.
+  const styles = ordered.length === 1 ? [SERIES_STYLES[0]] : ordered.map((name) => seriesStyle(name, data.seriesNames));
+  const legend = labels.length > 1 ? {} : null;
+  const byStyle = <T,>(pick: (s: (typeof styles)[number]) => T) => ({
+    field: "series",
+    type: "nominal" as const,
+    scale: { domain: labels, range: styles.map(pick) },
+    legend,
+  });
+
+  const x = {
+    field: "x",
+    type: "quantitative" as const,
+    title: xTitle,
+    scale: logX ? { type: "log" as const, nice: false } : { zero: false, nice: screen },
+    axis: logX ? { format: "~s", values: decades(values.map((v) => v.x as number)), grid: true } : { grid: true },
+  };
+  const y = {
+    field: "y",
+    type: "quantitative" as const,
+    title: yTitle,
+    scale: { zero: false, nice: true, ...(logY ? { type: "log" as const } : {}) },
+  };
+  const tooltip = [
+    ...(labels.length > 1 ? [{ field: "series", type: "nominal", title: "Trace" }] : []),
+    ...(units.size > 1 ? [{ field: "unit", type: "nominal", title: "Unit" }] : []),
+    { field: "xText", type: "nominal", title: data.x.label },
+    { field: "yText", type: "nominal", title: data.y.label },
+  ];
+
+  const layers: Record<string, unknown>[] = [
+    {
+      mark: { type: "line", clip: true, interpolate: "linear", strokeWidth: size.strokeWidth, opacity: units.size > 1 ? 0.8 : 1 },
+      encoding: { x, y, color: byStyle((s) => s.colour), strokeDash: byStyle((s) => s.dash), detail: { field: "unit", type: "nominal" } },
+    },
+  ];
+  const points = look.points ?? false;
+  if (points) {
+    // Dense traces (phase noise, VNA sweeps) get small points so the line stays legible.
+    const pointSize = points === "auto" ? (densest > 120 ? 4 : densest > 40 ? 14 : 30) : 16;
+    layers.push({
+      mark: { type: "point", filled: true, clip: true, size: pointSize, opacity: 0.95 },
+      encoding: { x, y, color: byStyle((s) => s.colour), shape: byStyle((s) => s.shape), ...(screen ? { tooltip } : {}) },
+    });
+  }
+
+  const markers = (data.markers ?? []).filter((m) => Number.isFinite(m.x) && Number.isFinite(m.y) && !(logX && m.x <= 0));
+  if (markers.length > 0) {
+    const markerValues = markers.map((m) => {
+      const point = { x: plotValue(m.x * xScale.factor), y: plotValue(m.y), label: m.label, unit: m.unit ?? "" };
+      return screen ? { ...point, xText: xText(m.x * xScale.factor), yText: yText(m.y) } : point;
+    });
+    layers.push({
+      data: { values: markerValues },
+      mark: { type: "point", shape: MARKER_STYLE.shape, filled: false, size: screen ? 110 : 42, strokeWidth: MARKER_STYLE.strokeWidth, color: MARKER_STYLE.colour, clip: true },
+      // The line layer's x and y definitions, so the layers share scales, axes and titles.
+      encoding: {
+        x,
+        y,
+        ...(screen
+          ? {
+              tooltip: [
+                { field: "label", type: "nominal", title: "Marker" },
+                { field: "xText", type: "nominal", title: data.x.label },
+                { field: "yText", type: "nominal", title: data.y.label },
+              ],
+            }
+          : {}),
+      },
+    });
+    // On screen, a labelled marker (the optimum) is named in the plot's top-right corner, clear of its trace;
+    // the printed sheet names markers in the caption.
+    if (screen) {
+      markers
+        .filter((m) => m.label !== "spur")
+        .forEach((m, i) => {
+          const at = formatQuantity(m.x * xScale.factor, xScale.unit, { digits: { maxDecimals: 2 }, prefix: false });
+          layers.push({
+            data: { values: [{ text: `\u25CB ${m.label}: ${at}, ${yText(m.y)}` }] },
+            mark: { type: "text", align: "right", baseline: "top", x: "width", y: 8 + 16 * i, dx: -8, font: fonts.text, fontSize: size.legendLabel, color: MARKER_STYLE.labelColour, fontWeight: 600 },
+            encoding: { text: { field: "text" } },
+          });
+        });
+    }
+  }
+
+  for (const rule of data.rules ?? []) {
+    if (!Number.isFinite(rule.y)) continue;
+    const label = `${rule.label}: ${formatQuantity(rule.y, data.y.unit, { digits: { maxDecimals: 1 } })}`;
+    layers.push({
+      data: { values: [{ y: rule.y, text: label }] },
+      mark: { type: "rule", strokeDash: RULE_STYLE.dash, strokeWidth: RULE_STYLE.strokeWidth, color: RULE_STYLE.colour },
+      encoding: { y: { field: "y", type: "quantitative" }, ...(screen ? { tooltip: { field: "text", type: "nominal" } } : {}) },
+    });
+    layers.push({
+      data: { values: [{ y: rule.y, text: label }] },
+      mark: { type: "text", align: "right", baseline: "bottom", x: "width", dx: -4, dy: -3, font: fonts.text, fontSize: size.annotation, color: RULE_STYLE.colour },
+      encoding: { y: { field: "y", type: "quantitative" }, text: { field: "text" } },
+    });
+  }
+
+  const description = `${data.title}: ${yTitle} against ${xTitle}${labels.length > 1 ? `, traces ${labels.join(", ")}` : ""}.`;
+  const vegaLite = {
+    $schema: "https://vega.github.io/schema/vega-lite/v6.json",
+    description,
+    width: look.width,
+    height: look.height,
+    background: screen ? "transparent" : tokens.colors["paper-bright"],
+    padding: screen ? { left: 4, right: 12, top: 8, bottom: 4 } : 6,
+    data: { values },
+    layer: layers,
+    resolve: { scale: { color: "shared", strokeDash: "shared", shape: "shared" } },
+    config: chartConfig(look.medium, fonts),
+  };
+  return { vegaLite, xTitle, yTitle, seriesLabels: labels, unitCount: units.size, markerCount: markers.length, yMin, yMax };
+}

@@ -1,0 +1,3 @@
+export * from "./quantity";
+export * from "./date";
+export * from "./byte-size";
