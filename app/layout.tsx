@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from "next";
 import localFont from "next/font/local";
+import { connection } from "next/server";
 import { SiteFooter } from "@/components/site-footer";
 import { SiteHeader } from "@/components/site-header";
 import { tokens } from "@/lib/design/tokens";
@@ -38,6 +39,10 @@ export const metadata: Metadata = {
 export const viewport: Viewport = { themeColor: tokens.colors.paper };
 
 export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page renders per request, so Next can stamp the request's CSP nonce (proxy.ts) on
+  // its scripts; a page prerendered at build time would ship scripts the policy blocks. (The
+  // session read makes pages dynamic too; this keeps it so if that ever moves.)
+  await connection();
   const user = await getSessionUser();
   return (
     <html lang="en" className={`${textFont.variable} ${figureFont.variable}`}>

@@ -2,6 +2,7 @@
 
 import { useMemo, useState, useSyncExternalStore } from "react";
 import { VegaEmbed } from "react-vega";
+import { expressionInterpreter } from "vega-interpreter";
 import type { Curve } from "@/lib/analysis/types";
 import { buildCurveSpec, CHART_FONTS, type ChartFonts } from "@/lib/charts";
 
@@ -28,7 +29,9 @@ export default function CurveChart({ curve, thermalFloorDbcHz }: { curve: Curve;
       <style>{tooltipCss}</style>
       <VegaEmbed
       spec={spec}
-      options={{ renderer: "svg", actions: false, tooltip: { theme: "custom" } }}
+      // ast + interpreter: Vega evaluates its expressions without new Function, so the page's
+      // Content-Security-Policy needs no 'unsafe-eval' (vega-embed README, options `ast` and `expr`).
+      options={{ renderer: "svg", actions: false, tooltip: { theme: "custom" }, ast: true, expr: expressionInterpreter }}
       onError={(e) => setFailed(e instanceof Error ? e.message : String(e))}
       className="w-full"
       data-testid={`chart-${curve.id}`}

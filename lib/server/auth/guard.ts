@@ -42,11 +42,27 @@ export async function requireAccess(access: Exclude<Access, "public">): Promise<
   return user;
 }
 
+const noStore = { "cache-control": "no-store" };
+
 export function errorResponse(error: unknown): Response {
-  if (isAppError(error)) return Response.json(error.toJSON(), { status: error.status });
-  if (error instanceof ZodError) return Response.json(validationError(error).toJSON(), { status: 422 });
+  if (isAppError(error)) return Response.json(error.toJSON(), { status: error.status, headers: noStore });
+  if (error instanceof ZodError) return Response.json(validationError(error).toJSON(), { status: 422, headers: noStore });
   console.error("[benchfold] unexpected error", error);
-  return Response.json(new AppError("internal", "Something went wrong on our side.").toJSON(), { status: 500 });
+  return Response.json(new AppError("internal", "Something went wrong on our side.").toJSON(), { status: 500, headers: noStore });
+}
+
+/**
+ * What a route handler answers is private unless it says otherwise: JSON behind a session or
+ * a bench token, and the public routes' answers too (invitation details, sign-up and reset
+ * results). A handler that sets its own Cache-Control keeps it (the PDF: private, revalidated
+ * by ETag).
+ */
+function withDefaultCaching(response: Response): Response {
+  if (response.headers.has("cache-control")) return response;
+  // A copy: the headers of a Response.redirect() cannot be changed in place.
+  const headers = new Headers(response.headers);
+  headers.set("cache-control", noStore["cache-control"]);
+  return new Response(response.body, { status: response.status, statusText: response.statusText, headers });
 }
 
 function validationError(error: ZodError): AppError {
@@ -78,8 +94,21 @@ export function route<B = undefined, A extends Access = Access>(
       const raw = (await context?.params) ?? {};
       const params = Object.fromEntries(Object.entries(raw).map(([k, v]) => [k, Array.isArray(v) ? v.join("/") : v]));
       const result = await handler({ user: user as never, body, params, request });
-      if (result instanceof Response) return result;
-      return Response.json(result ?? { ok: true });
+      return withDefaultCaching(result instanceof Response ? result : Response.json(result ?? { ok: true }));
+    } catch (error) {
+      return errorResponse(error);
+    }
+  };
+}
+
+/**
+ * For route handlers that authenticate without a session (the bench API's bearer token, which
+ * the handler checks itself): the same error answers and caching as route().
+ */
+export function tokenRoute(handler: (request: Request) => Promise<Response>) {
+  return async (request: Request): Promise<Response> => {
+    try {
+      return withDefaultCaching(await handler(request));
     } catch (error) {
       return errorResponse(error);
     }

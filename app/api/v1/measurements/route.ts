@@ -1,5 +1,5 @@
 import { AppError } from "@/lib/errors";
-import { errorResponse } from "@/lib/server/auth/guard";
+import { tokenRoute } from "@/lib/server/auth/guard";
 import { authenticateBenchToken } from "@/lib/server/bench-tokens/authenticate-bench-token";
 import { findDeviceByPartNumber } from "@/lib/server/devices/find-device-by-part-number";
 import { ingestMeasurement } from "@/lib/server/measurements/ingest-measurement";
@@ -10,16 +10,12 @@ import { readUploadForm } from "@/lib/server/measurements/read-upload-form";
  * (the part number) and the same condition fields as the browser upload. No cookies,
  * so no cross-site risk; the token decides the organization.
  */
-export async function POST(request: Request): Promise<Response> {
-  try {
-    const { organizationId, tokenId } = await authenticateBenchToken(request);
-    const { file, fields, extra } = await readUploadForm(request, ["device"]);
-    const part = extra.device?.trim();
-    if (!part) throw new AppError("invalid", "Name the device by its part number in a field named \"device\".", { field: "device" });
-    const device = await findDeviceByPartNumber({ organizationId, partNumber: part });
-    const set = await ingestMeasurement({ organizationId, deviceId: device.id, file, fields, actor: { kind: "bench-token", tokenId } });
-    return Response.json({ measurementSet: set }, { status: 201 });
-  } catch (error) {
-    return errorResponse(error);
-  }
-}
+export const POST = tokenRoute(async (request) => {
+  const { organizationId, tokenId } = await authenticateBenchToken(request);
+  const { file, fields, extra } = await readUploadForm(request, ["device"]);
+  const part = extra.device?.trim();
+  if (!part) throw new AppError("invalid", "Name the device by its part number in a field named \"device\".", { field: "device" });
+  const device = await findDeviceByPartNumber({ organizationId, partNumber: part });
+  const set = await ingestMeasurement({ organizationId, deviceId: device.id, file, fields, actor: { kind: "bench-token", tokenId } });
+  return Response.json({ measurementSet: set }, { status: 201 });
+});
