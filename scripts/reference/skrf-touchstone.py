@@ -16,7 +16,7 @@ warnings.filterwarnings("ignore")
 ROOT = os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "..")
 EXAMPLES = os.path.join(ROOT, "fixtures", "examples")
 OUT = os.path.join(ROOT, "tests", "unit", "ingest", "reference", "touchstone-skrf.json")
-FILES = ["attenuator-2port.s2p", "splitter-3port.s3p", "hybrid-4port.s4p", "hybrid-4port-v2.ts"]
+FILES = ["attenuator-2port.s2p", "splitter-3port.s3p", "hybrid-4port.s4p", "hybrid-4port-v2.s4p"]
 
 
 def main():

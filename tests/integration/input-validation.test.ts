@@ -120,7 +120,7 @@ describe("numbers parse strictly: blank is missing, only decimal notation", () =
   ])("upload %s = %j → 422 naming the field, nothing stored", async (field, value) => {
     const before = await counts();
     const r = await engineer.request(`/api/devices/${deviceId}/measurements`, {
-      multipart: fixtureUpload("examples/hybrid-4port-v2.ts", { serial: `BFD-NUM-${field}`, [field]: value }),
+      multipart: fixtureUpload("examples/hybrid-4port-v2.s4p", { serial: `BFD-NUM-${field}`, [field]: value }),
     });
     await expectFieldError(r, field);
     expect(await counts()).toEqual(before);

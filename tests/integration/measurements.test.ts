@@ -155,7 +155,7 @@ describe("instruments and bench tokens", () => {
     const { instrument } = (await created.json()) as { instrument: { id: number } };
     expect((await as.engineer.request("/api/admin/instruments", { json: {} })).status).toBe(403);
     const r = await as.engineer.request(`/api/devices/${deviceId}/measurements`, {
-      multipart: fixtureUpload("examples/hybrid-4port-v2.ts", { serial: "BFD-0400", measuredOn: "2026-06-01", instrumentIds: String(instrument.id) }),
+      multipart: fixtureUpload("examples/hybrid-4port-v2.s4p", { serial: "BFD-0400", measuredOn: "2026-06-01", instrumentIds: String(instrument.id) }),
     });
     expect(r.status).toBe(201);
     const { measurementSet } = (await r.json()) as { measurementSet: { warnings: string[]; instruments: { calibrationLapsed: boolean }[] } };

@@ -48,7 +48,7 @@ describe("3-port splitter (splitter-3port.s3p, dB/angle)", () => {
 });
 
 describe("4-port quadrature hybrid (ports 1 in, 2 through, 3 coupled, 4 isolated)", () => {
-  const v2 = analyzeExample("hybrid-4port-v2.ts");
+  const v2 = analyzeExample("hybrid-4port-v2.s4p");
   const v1 = analyzeExample("hybrid-4port.s4p");
 
   it("gives insertion loss, amplitude and phase balance vs 90° at 2 GHz (v2, MA)", () => {
@@ -71,16 +71,16 @@ describe("4-port quadrature hybrid (ports 1 in, 2 through, 3 coupled, 4 isolated
   });
 
   it("follows a different port convention given as an option", () => {
-    const swapped = analyzeExample("hybrid-4port-v2.ts", {
+    const swapped = analyzeExample("hybrid-4port-v2.s4p", {
       touchstone: { hybridPorts: { input: 1, through: 3, coupled: 2, isolated: 4 } },
     });
     const at = { frequencyHz: 2e9 };
     expect(valueOf(swapped.parameters, "amplitude-balance", at)).toBeCloseTo(-valueOf(v2.parameters, "amplitude-balance", at), 9);
     expect(pick(swapped.parameters, "phase-balance", at).conditions.nominalDeg).toBe(-90);
     expect(() =>
-      analyzeExample("hybrid-4port-v2.ts", { touchstone: { hybridPorts: { input: 1, through: 1, coupled: 2, isolated: 4 } } }),
+      analyzeExample("hybrid-4port-v2.s4p", { touchstone: { hybridPorts: { input: 1, through: 1, coupled: 2, isolated: 4 } } }),
     ).not.toThrow();
-    const bad = analyzeExample("hybrid-4port-v2.ts", { touchstone: { hybridPorts: { input: 1, through: 1, coupled: 2, isolated: 4 } } });
+    const bad = analyzeExample("hybrid-4port-v2.s4p", { touchstone: { hybridPorts: { input: 1, through: 1, coupled: 2, isolated: 4 } } });
     expect(bad.warnings.join("\n")).toContain("not distinct");
   });
 });

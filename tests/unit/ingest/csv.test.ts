@@ -121,9 +121,13 @@ describe("kind detection", () => {
     ["frequency-sweep-mixer.csv", "frequency-sweep"],
     ["two-tone-mixer.tsv", "two-tone"],
     ["phase-noise-doubler.csv", "phase-noise"],
-    ["hybrid-4port-v2.ts", "touchstone"],
+    ["hybrid-4port-v2.s4p", "touchstone"],
   ] as const)("%s is %s", (name, kind) => {
     expect(detectKind(name, fixtureText("examples", name))).toBe(kind);
+  });
+
+  it("takes a .ts name (the Touchstone 2.0 extension) as Touchstone", () => {
+    expect(detectKind("network.ts", fixtureText("examples", "hybrid-4port-v2.s4p"))).toBe("touchstone");
   });
 
   it("reads the kind from the header columns without a # kind line", () => {

@@ -108,7 +108,7 @@ describe("good examples parse with exact values", () => {
 
   it("4-port v1 quadrature hybrid (.s4p, RI) and the same network in v2 (MA) agree", () => {
     const v1 = parseExample("hybrid-4port.s4p");
-    const v2 = parseExample("hybrid-4port-v2.ts");
+    const v2 = parseExample("hybrid-4port-v2.s4p");
     if (v1.kind !== "touchstone" || v2.kind !== "touchstone") throw new Error("kind");
     expect(v1.data.portCount).toBe(4);
     expect(v2.data.version).toBe(2);
