@@ -59,7 +59,7 @@ test("engineer: the sheet list, the preview with its banner and spec table, and 
   await page.goto("/sheets");
   const row = page.getByTestId("sheet-row-KDX-2G4");
   await expect(row.getByRole("link", { name: "KDX-2G4" })).toHaveAttribute("href", `/sheets/${id}`);
-  await expect(row.getByTestId("spec-rows")).toHaveText(/^[1-9]\d*$/);
+  await expect(row.getByTestId("limits-set")).toHaveText(/^[1-9]\d*$/);
   await expect(row.getByTestId("approved-sets")).toHaveText(/^[1-9]\d*$/);
 
   const pdfRequests = await stubDraftPdf(page);
