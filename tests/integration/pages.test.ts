@@ -13,6 +13,7 @@ let org: Awaited<ReturnType<typeof makeOrganization>>;
 let other: Awaited<ReturnType<typeof makeOrganization>>;
 let ownDeviceId: number;
 let ownSetId: number;
+let secondOwnDeviceId: number;
 let ownPartNumber: string;
 let otherDeviceId: number;
 let clients: Map<Who, TestClient>;
@@ -25,6 +26,7 @@ beforeAll(async () => {
   ownDeviceId = ownDevice.id;
   ownPartNumber = ownDevice.partNumber;
   otherDeviceId = (await makeDevice(other.organization.id)).id;
+  secondOwnDeviceId = (await makeDevice(org.organization.id)).id;
   clients = await clientsByRole(org);
   const upload = await clients.get("engineer")!.request(`/api/devices/${ownDeviceId}/measurements`, { multipart: fixtureUpload("examples/drive-sweep-doubler.csv") });
   expect(upload.status).toBe(201);
@@ -139,6 +141,7 @@ describe("a record that is missing or belongs to another organization answers 40
     { name: "a device that does not exist", who: "engineer", path: () => "/devices/2147483000" },
     { name: "a device id that is not a number", who: "engineer", path: () => "/devices/abc" },
     { name: "a measurement set that does not exist", who: "engineer", path: () => `/devices/${ownDeviceId}/measurements/2147483000` },
+    { name: "a set addressed under another device of the organization", who: "reviewer", path: () => `/devices/${secondOwnDeviceId}/measurements/${ownSetId}` },
   ];
   for (const c of cases) {
     it(`${c.name} → 404`, async () => {

@@ -17,11 +17,10 @@ export default async function MeasurementSetPage({ params }: Props) {
   const deviceId = parseRecordId(id);
   const measurementSetId = parseRecordId(setId);
   if (deviceId === undefined || measurementSetId === undefined) notFound();
+  // A set is addressed under its own device only: under another, it is not found.
   const [device, set] = await loadForPage(() =>
-    Promise.all([getDevice({ viewer: user, deviceId }), getMeasurementSet({ viewer: user, setId: measurementSetId })]),
+    Promise.all([getDevice({ viewer: user, deviceId }), getMeasurementSet({ viewer: user, setId: measurementSetId, deviceId })]),
   );
-  // A set is addressed under its own device only.
-  if (set.deviceId !== device.id) notFound();
   return (
     <MeasurementSetView
       device={device}
