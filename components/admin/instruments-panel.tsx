@@ -28,7 +28,7 @@ function draftOf(i: InstrumentSummary): Draft {
 }
 
 export function InstrumentsPanel({ initialInstruments }: { initialInstruments: InstrumentSummary[] }) {
-  const instruments = useJsonResource("/api/instruments", initialInstruments, (body: { instruments: InstrumentSummary[] }) => body.instruments);
+  const instruments = useJsonResource("/api/admin/instruments", initialInstruments, (body: { instruments: InstrumentSummary[] }) => body.instruments);
   const [editing, setEditing] = useState<InstrumentSummary | null>(null);
   const [formKey, setFormKey] = useState(0);
   const [message, setMessage] = useState<string | null>(null);

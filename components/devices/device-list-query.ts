@@ -1,5 +1,5 @@
 
-/** The device list's search, sort and page, all from the query string so a view can be linked. */
+/** The device list's search, sort and page (the sheets index's too), all from the query string so a view can be linked. */
 import { deviceSortKeys, type DeviceListQuery, type DeviceSortKey } from "@/lib/domain/devices";
 import { parseRecordId } from "@/lib/schemas/decimal";
 
@@ -20,7 +20,8 @@ export function readDeviceListQuery(params: Params): DeviceListQuery {
   return { q: first(params.q).trim().slice(0, 100), sort, dir, page };
 }
 
-export function deviceListHref(query: DeviceListQuery, change: Partial<DeviceListQuery>): string {
+/** The link to the list at `basePath` (the device list, or the sheets index that pages the same way) after a change. */
+export function deviceListHref(query: DeviceListQuery, change: Partial<DeviceListQuery>, basePath = "/devices"): string {
   const next = { ...query, ...change };
   const search = new URLSearchParams();
   if (next.q) search.set("q", next.q);
@@ -28,5 +29,5 @@ export function deviceListHref(query: DeviceListQuery, change: Partial<DeviceLis
   if (next.dir !== (next.sort === "updated" ? "desc" : "asc")) search.set("dir", next.dir);
   if (next.page > 1) search.set("page", String(next.page));
   const text = search.toString();
-  return text ? `/devices?${text}` : "/devices";
+  return text ? `${basePath}?${text}` : basePath;
 }

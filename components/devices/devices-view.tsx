@@ -3,11 +3,11 @@ import type { DevicePage } from "@/lib/domain/devices";
 import { formatDate, formatNumber } from "@/lib/format";
 import { buttonClass } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
-import { selectClass } from "@/components/ui/field";
 import { PageHeader } from "@/components/ui/page-header";
 import { NumberQuantity, RangeQuantity } from "@/components/ui/quantity";
 import { deviceClassLabels } from "@/lib/domain/device-classes";
-import { deviceListHref, type DeviceListQuery, type DeviceSortKey } from "./device-list-query";
+import { DeviceListSearch, Pager, SortHeader } from "./device-list-controls";
+import type { DeviceListQuery, DeviceSortKey } from "./device-list-query";
 import { DeviceForm } from "./device-form";
 
 function Range({ range }: { range?: { min: number; max: number } }) {
@@ -39,24 +39,7 @@ export function DevicesView({ devicePage, organizationName, query, canCreate }: 
         </EmptyState>
       ) : (
         <>
-          <form method="get" action="/devices" role="search" className="mb-6 flex flex-wrap items-end gap-3" data-testid="devices-search">
-            <div className="min-w-[16rem] flex-1 space-y-1.5 sm:max-w-md">
-              <label htmlFor="device-search" className="block text-[0.9375rem] font-semibold">
-                Search part number or title
-              </label>
-              <input id="device-search" name="q" type="search" defaultValue={query.q} className={selectClass} placeholder="e.g. C2611 or doubler" />
-            </div>
-            {query.sort !== "part" ? <input type="hidden" name="sort" value={query.sort} /> : null}
-            {query.dir !== (query.sort === "updated" ? "desc" : "asc") ? <input type="hidden" name="dir" value={query.dir} /> : null}
-            <button type="submit" className={buttonClass.secondary}>
-              Search
-            </button>
-            {query.q ? (
-              <Link href={deviceListHref(query, { q: "", page: 1 })} className={buttonClass.quiet}>
-                Clear search
-              </Link>
-            ) : null}
-          </form>
+          <DeviceListSearch query={query} basePath="/devices" label="Search part number or title" testId="devices-search" />
           {total === 0 ? (
             <p className="border-y border-rule py-4 text-ink-muted" data-testid="devices-no-match">
               No device matches “{query.q}”.
@@ -77,15 +60,15 @@ export function DevicesView({ devicePage, organizationName, query, canCreate }: 
                 </caption>
                 <thead>
                   <tr>
-                    <SortHeader label="Part number" sortKey="part" query={query} />
-                    <SortHeader label="Class" sortKey="class" query={query} />
+                    <SortHeader label="Part number" sortKey="part" query={query} basePath="/devices" />
+                    <SortHeader label="Class" sortKey="class" query={query} basePath="/devices" />
                     <th scope="col">Title</th>
                     <th scope="col">Input range</th>
                     <th scope="col">Output range</th>
                     <th scope="col" className="num">
                       Drive
                     </th>
-                    <SortHeader label="Updated" sortKey="updated" query={query} numeric />
+                    <SortHeader label="Updated" sortKey="updated" query={query} basePath="/devices" numeric />
                   </tr>
                 </thead>
                 <tbody>
@@ -128,7 +111,9 @@ export function DevicesView({ devicePage, organizationName, query, canCreate }: 
               </table>
             </div>
           )}
-          {pageCount > 1 ? <Pager query={query} page={page} pageCount={pageCount} /> : null}
+          {pageCount > 1 ? (
+            <Pager query={query} basePath="/devices" page={page} pageCount={pageCount} label="Pages of the device list" testId="devices-pager" />
+          ) : null}
         </>
       )}
       {canCreate ? (
@@ -147,46 +132,3 @@ export function DevicesView({ devicePage, organizationName, query, canCreate }: 
 }
 
 const sortWords: Record<DeviceSortKey, string> = { part: "part number", class: "class", updated: "last update" };
-
-function SortHeader({ label, sortKey, query, numeric }: { label: string; sortKey: DeviceSortKey; query: DeviceListQuery; numeric?: boolean }) {
-  const active = query.sort === sortKey;
-  const nextDir = active ? (query.dir === "asc" ? "desc" : "asc") : sortKey === "updated" ? "desc" : "asc";
-  return (
-    <th scope="col" className={numeric ? "num" : undefined} aria-sort={active ? (query.dir === "asc" ? "ascending" : "descending") : undefined}>
-      <Link
-        href={deviceListHref(query, { sort: sortKey, dir: nextDir, page: 1 })}
-        className={`no-underline hover:text-ink ${active ? "text-ink" : ""}`}
-        aria-label={`Sort by ${label.toLowerCase()}${active ? `, now ${query.dir === "asc" ? "ascending" : "descending"}` : ""}`}
-      >
-        {label}
-        <span aria-hidden="true" className="ml-1 inline-block w-2.5">
-          {active ? (query.dir === "asc" ? "↑" : "↓") : ""}
-        </span>
-      </Link>
-    </th>
-  );
-}
-
-function Pager({ query, page, pageCount }: { query: DeviceListQuery; page: number; pageCount: number }) {
-  return (
-    <nav aria-label="Pages of the device list" className="mt-5 flex items-center gap-5 text-[0.9375rem]" data-testid="devices-pager">
-      {page > 1 ? (
-        <Link href={deviceListHref(query, { page: page - 1 })} rel="prev">
-          ← Previous
-        </Link>
-      ) : (
-        <span className="text-ink-muted">← Previous</span>
-      )}
-      <span className="text-ink-muted">
-        Page <span className="figure text-ink">{page}</span> of <span className="figure text-ink">{pageCount}</span>
-      </span>
-      {page < pageCount ? (
-        <Link href={deviceListHref(query, { page: page + 1 })} rel="next">
-          Next →
-        </Link>
-      ) : (
-        <span className="text-ink-muted">Next →</span>
-      )}
-    </nav>
-  );
-}

@@ -1,5 +1,4 @@
 import Link from "next/link";
-import type { DeviceSummary } from "@/lib/domain/devices";
 import type { MeasurementSetSummary } from "@/lib/domain/measurements";
 import { formatDateTime } from "@/lib/format";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -7,11 +6,10 @@ import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { kindLabel } from "@/lib/domain/measurements";
 
-type ReviewQueueViewProps = { organizationName: string; sets: MeasurementSetSummary[]; devices: DeviceSummary[] };
+type ReviewQueueViewProps = { organizationName: string; sets: MeasurementSetSummary[] };
 
 /** The reviewer's queue: submitted measurement sets, oldest first, never their own uploads. */
-export function ReviewQueueView({ organizationName, sets, devices }: ReviewQueueViewProps) {
-  const byId = new Map(devices.map((d) => [d.id, d]));
+export function ReviewQueueView({ organizationName, sets }: ReviewQueueViewProps) {
   return (
     <>
       <PageHeader
@@ -44,7 +42,6 @@ export function ReviewQueueView({ organizationName, sets, devices }: ReviewQueue
               </thead>
               <tbody>
                 {sets.map((set) => {
-                  const device = byId.get(set.deviceId);
                   return (
                     <tr key={set.id} data-testid={`review-row-${set.id}`}>
                       <th scope="row">
@@ -52,7 +49,7 @@ export function ReviewQueueView({ organizationName, sets, devices }: ReviewQueue
                           #{set.id}
                         </Link>
                       </th>
-                      <td className="figure whitespace-nowrap">{device?.partNumber ?? `device ${set.deviceId}`}</td>
+                      <td className="figure whitespace-nowrap">{set.partNumber}</td>
                       <td className="whitespace-nowrap">{kindLabel(set.kind)}</td>
                       <td className="max-w-[18rem] truncate" title={set.fileName}>
                         <span className="figure text-[0.875rem]">{set.fileName}</span>

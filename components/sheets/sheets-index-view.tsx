@@ -1,21 +1,24 @@
 import Link from "next/link";
-import { Suspense } from "react";
-import type { DeviceSummary } from "@/lib/domain/devices";
-import type { SheetModel } from "@/lib/sheet/types";
 import { deviceClassLabels } from "@/lib/domain/device-classes";
+import type { DeviceListQuery, DeviceSortKey } from "@/lib/domain/devices";
+import type { SheetPage } from "@/lib/domain/sheets";
+import { DeviceListSearch, Pager, SortHeader } from "@/components/devices/device-list-controls";
+import { formatDate } from "@/lib/format";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 
-type SheetsIndexViewProps = {
-  devices: DeviceSummary[];
-  /** Builds one device's draft model on the server (the page passes lib/server's buildDeviceSheet). */
-  loadDraft: (deviceId: number) => Promise<SheetModel>;
-  organizationName: string;
-  canEdit: boolean;
-};
+type SheetsIndexViewProps = { sheetPage: SheetPage; query: DeviceListQuery; organizationName: string; canEdit: boolean };
 
-/** Every device of the organization with the state of its draft sheet; each count streams in as its model is built. */
-export function SheetsIndexView({ devices, loadDraft, organizationName, canEdit }: SheetsIndexViewProps) {
+const basePath = "/sheets";
+const sortWords: Record<DeviceSortKey, string> = { part: "part number", class: "class", updated: "last change" };
+
+/**
+ * The organization's draft sheets, one row per device, searched, sorted and paged like the device
+ * list. Every figure is a count the database gives; what only the built draft knows (flagged
+ * groups, open issues) is on the draft's own page.
+ */
+export function SheetsIndexView({ sheetPage, query, organizationName, canEdit }: SheetsIndexViewProps) {
+  const { rows, total, page, pageCount, organizationTotal } = sheetPage;
   return (
     <>
       <PageHeader
@@ -27,97 +30,87 @@ export function SheetsIndexView({ devices, loadDraft, organizationName, canEdit 
             : "Draft datasheets built from each device’s approved measurement sets. You can read each draft and the data behind its figures; engineers edit them."
         }
       />
-      {devices.length === 0 ? (
+      {organizationTotal === 0 ? (
         <EmptyState title="No devices yet" testId="sheets-empty">
           <p>A sheet belongs to a device. Once a device is registered and its measurement sets approved, its draft sheet appears here.</p>
         </EmptyState>
       ) : (
-        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Draft sheets table, scrolls sideways on narrow screens">
-          <table className="sheet-table" data-testid="sheets-table">
-            <caption>
-              <span className="figure">{devices.length}</span> {devices.length === 1 ? "device" : "devices"}, by part number. Counts are
-              computed from the draft as it stands now.
-            </caption>
-            <thead>
-              <tr>
-                <th scope="col">Part number</th>
-                <th scope="col">Class</th>
-                <th scope="col">Title</th>
-                <th scope="col" className="num">
-                  Approved sets
-                </th>
-                <th scope="col" className="num">
-                  Spec rows
-                </th>
-                <th scope="col" className="num">
-                  Flagged groups
-                </th>
-                <th scope="col" className="num">
-                  Open issues
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {devices.map((device) => (
-                <tr key={device.id} data-testid={`sheet-row-${device.partNumber}`}>
-                  <th scope="row" className="figure whitespace-nowrap font-semibold">
-                    <Link href={`/sheets/${device.id}`}>{device.partNumber}</Link>
-                  </th>
-                  <td className="whitespace-nowrap">{deviceClassLabels[device.deviceClass]}</td>
-                  <td className="min-w-[14rem]">{device.title}</td>
-                  <Suspense fallback={<PendingCells />}>
-                    <SheetStatusCells loadDraft={loadDraft} deviceId={device.id} />
-                  </Suspense>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <>
+          <DeviceListSearch query={query} basePath={basePath} label="Search part number or title" testId="sheets-search" />
+          {total === 0 ? (
+            <p className="border-y border-rule py-4 text-ink-muted" data-testid="sheets-no-match">
+              No sheet matches “{query.q}”.
+            </p>
+          ) : (
+            <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Draft sheets table, scrolls sideways on narrow screens">
+              <table className="sheet-table" data-testid="sheets-table">
+                <caption>
+                  <span className="figure">{total}</span> {total === 1 ? "draft" : "drafts"}
+                  {query.q ? <> matching “{query.q}”</> : null}, by {sortWords[query.sort]}
+                  {query.dir === "desc" ? " (descending)" : ""}
+                  {pageCount > 1 ? (
+                    <>
+                      {" "}
+                      · page <span className="figure">{page}</span> of <span className="figure">{pageCount}</span>
+                    </>
+                  ) : null}
+                </caption>
+                <thead>
+                  <tr>
+                    <SortHeader label="Part number" sortKey="part" query={query} basePath={basePath} />
+                    <SortHeader label="Class" sortKey="class" query={query} basePath={basePath} />
+                    <th scope="col">Title</th>
+                    <th scope="col" className="num">
+                      Approved sets
+                    </th>
+                    <th scope="col" className="num">
+                      Units
+                    </th>
+                    <th scope="col" className="num">
+                      Awaiting review
+                    </th>
+                    <th scope="col" className="num">
+                      Limits set
+                    </th>
+                    <SortHeader label="Last change" sortKey="updated" query={query} basePath={basePath} numeric />
+                  </tr>
+                </thead>
+                <tbody>
+                  {rows.map((sheet) => (
+                    <tr key={sheet.deviceId} data-testid={`sheet-row-${sheet.partNumber}`}>
+                      <th scope="row" className="figure whitespace-nowrap font-semibold">
+                        <Link href={`/sheets/${sheet.deviceId}`}>{sheet.partNumber}</Link>
+                      </th>
+                      <td className="whitespace-nowrap">{deviceClassLabels[sheet.deviceClass]}</td>
+                      <td className="min-w-[14rem]">{sheet.title}</td>
+                      <Count value={sheet.approvedSetCount} testId="approved-sets" />
+                      <Count value={sheet.unitCount} testId="units" />
+                      <Count value={sheet.awaitingReviewCount} testId="awaiting-review" strong />
+                      <Count value={sheet.limitCount} testId="limits-set" />
+                      <td className="num whitespace-nowrap" data-testid="last-change">
+                        <span className="figure">{formatDate(sheet.lastChangeAt)}</span>
+                      </td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
+          )}
+          {pageCount > 1 ? <Pager query={query} basePath={basePath} page={page} pageCount={pageCount} label="Pages of the sheets index" testId="sheets-pager" /> : null}
+        </>
       )}
       <p className="mt-4 max-w-prose text-sm text-ink-muted">
-        A flagged group is a parameter under one set of conditions whose stated limit the data do not support (Cpk below the organization’s
-        threshold, or a unit outside the guard-banded limit). Open issues are what a reviewer must see before approving.
+        Units are the distinct serials among the approved sets. Limits set counts the spec limits stated on the device. Whether the data support
+        those limits, and what a reviewer must see before approving, is worked out on each draft’s page.
       </p>
     </>
   );
 }
 
-function PendingCells() {
+function Count({ value, testId, strong }: { value: number; testId: string; strong?: boolean }) {
   return (
-    <td colSpan={4} className="num text-sm text-ink-muted">
-      <span aria-live="polite">building draft…</span>
+    <td className="num figure" data-testid={testId}>
+      {value === 0 ? <span className="text-ink-muted">0</span> : strong ? <span className="font-semibold">{value}</span> : value}
     </td>
-  );
-}
-
-async function SheetStatusCells({ loadDraft, deviceId }: { loadDraft: SheetsIndexViewProps["loadDraft"]; deviceId: number }) {
-  let model;
-  try {
-    model = await loadDraft(deviceId);
-  } catch (error) {
-    return (
-      <td colSpan={4} className="num text-sm text-signal-deep">
-        The draft could not be built: {error instanceof Error ? error.message : "unknown error"}
-      </td>
-    );
-  }
-  const sets = model.traceability.measurementSets.length;
-  const flagged = model.statistics.flaggedGroupCount;
-  const issues = model.issues.length;
-  return (
-    <>
-      <td className="num figure" data-testid="approved-sets">
-        {sets === 0 ? <span className="text-ink-muted">0</span> : sets}
-      </td>
-      <td className="num figure" data-testid="spec-rows">
-        {model.specifications.rows.length}
-      </td>
-      <td className="num figure" data-testid="flagged-groups">
-        {flagged > 0 ? <span className="font-semibold text-signal-deep">{flagged}</span> : flagged}
-      </td>
-      <td className="num figure" data-testid="open-issues">
-        {issues > 0 ? <span className="font-semibold">{issues}</span> : <span className="text-ink-muted">0</span>}
-      </td>
-    </>
   );
 }

@@ -29,8 +29,9 @@ export type DeviceListQuery = { q: string; sort: DeviceSortKey; dir: "asc" | "de
 
 export const devicesPerPage = 25;
 
-export type DevicePage = {
-  rows: DeviceSummary[];
+/** One page of a searched, sorted list of an organization's devices (the device list, the sheets index). */
+export type ListPage<Row> = {
+  rows: Row[];
   /** Devices matching the search. */
   total: number;
   /** Devices of the organization, searched or not (0 shows the empty state). */
@@ -38,3 +39,5 @@ export type DevicePage = {
   page: number;
   pageCount: number;
 };
+
+export type DevicePage = ListPage<DeviceSummary>;

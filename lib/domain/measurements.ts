@@ -53,6 +53,7 @@ export type InstrumentUse = { id: number; kind: string; model: string; serial: s
 export type MeasurementSetSummary = {
   id: number;
   deviceId: number;
+  partNumber: string;
   kind: string;
   state: MeasurementSetState;
   fileName: string;

@@ -56,7 +56,7 @@ export type NavItem = { href: string; label: string; permission: Permission | re
 export const workspaceNav: readonly NavItem[] = [
   { href: "/devices", label: "Devices", permission: "device:read" },
   { href: "/sheets", label: "Sheets", permission: sheetDraftReaders },
-  { href: "/review", label: "Review queue", permission: "sheet:review" },
+  { href: "/review", label: "Review queue", permission: "measurement:approve" },
   { href: "/admin/users", label: "People", permission: "user:manage" },
   { href: "/admin/instruments", label: "Instruments", permission: "instrument:manage" },
   { href: "/admin/bench-tokens", label: "Bench tokens", permission: "token:manage" },

@@ -3,6 +3,8 @@
  * the states of a sheet revision. Models, schemas, templates, editors and the sheet model derive
  * from these. Pure data: server code and client components both import it.
  */
+import type { DeviceClass } from "./device-classes";
+import type { ListPage } from "./devices";
 
 /** Where a published limit comes from; printed as a mark beside the limit. */
 export const limitBases = ["test", "characterization", "design"] as const;
@@ -34,3 +36,23 @@ export const revisionStateLabels: Record<RevisionState, string> = {
   approved: "Approved, not released",
   released: "Released",
 };
+
+/** What the sheets index shows of a draft, counted by the database without building its model. */
+export type SheetSummary = {
+  deviceId: number;
+  partNumber: string;
+  deviceClass: DeviceClass;
+  title: string;
+  /** Approved, not superseded measurement sets: what the draft is built from. */
+  approvedSetCount: number;
+  /** Distinct unit serials among those sets. */
+  unitCount: number;
+  /** Sets submitted and waiting for a reviewer. */
+  awaitingReviewCount: number;
+  /** Spec limits set on the device. */
+  limitCount: number;
+  /** The latest change to the device, its sets, its limits or its prose (ISO 8601). */
+  lastChangeAt: string;
+};
+
+export type SheetPage = ListPage<SheetSummary>;

@@ -56,10 +56,10 @@ test("engineer: the sheet list, the preview with its banner and spec table, and 
   await signInViaApi(page, kestrine.engineer);
   const id = await demoDoublerId(page);
 
-  await page.goto("/sheets");
+  await page.goto("/sheets?q=KDX-2G4");
   const row = page.getByTestId("sheet-row-KDX-2G4");
   await expect(row.getByRole("link", { name: "KDX-2G4" })).toHaveAttribute("href", `/sheets/${id}`);
-  await expect(row.getByTestId("spec-rows")).toHaveText(/^[1-9]\d*$/);
+  await expect(row.getByTestId("limits-set")).toHaveText(/^[1-9]\d*$/);
   await expect(row.getByTestId("approved-sets")).toHaveText(/^[1-9]\d*$/);
 
   const pdfRequests = await stubDraftPdf(page);
@@ -226,7 +226,7 @@ test("reviewer reads the sheets without editors; a customer is refused", async (
   await signInViaApi(reviewer, kestrine.reviewer);
   const id = await demoDoublerId(reviewer);
   await stubDraftPdf(reviewer);
-  await reviewer.goto("/sheets");
+  await reviewer.goto("/sheets?q=KDX-2G4");
   await expect(reviewer.getByTestId("sheet-row-KDX-2G4")).toBeVisible();
   await reviewer.goto(`/sheets/${id}`);
   await expect(reviewer.getByTestId("spec-data-table")).toBeVisible();

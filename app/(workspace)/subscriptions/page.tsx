@@ -5,7 +5,7 @@ import { NotBuiltView } from "@/components/workspace/not-built-view";
 export const metadata: Metadata = { title: "Change notices" };
 
 export default async function SubscriptionsPage() {
-  const user = await requirePageUser({ permission: "subscription:manage", path: "/subscriptions" });
+  const user = await requirePageUser({ resource: "subscriptions", path: "/subscriptions" });
   return (
     <NotBuiltView
       runningHead={user.organizationName}

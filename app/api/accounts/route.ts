@@ -3,7 +3,7 @@ import { signUpCustomer } from "@/lib/server/accounts/sign-up-customer";
 import { route } from "@/lib/server/auth/guard";
 
 // Always 202 with the same body: the answer never tells whether the address has an account.
-export const POST = route({ access: "public", body: signUpBodySchema }, async ({ body }) => {
+export const POST = route({ resource: "account", body: signUpBodySchema }, async ({ body }) => {
   await signUpCustomer(body);
   return Response.json({ ok: true }, { status: 202 });
 });

@@ -3,8 +3,8 @@ import { route } from "@/lib/server/auth/guard";
 import { listDevices } from "@/lib/server/devices/list-devices";
 import { saveDevice } from "@/lib/server/devices/save-device";
 
-export const GET = route({ access: "device:read" }, async ({ user }) => ({ devices: await listDevices(user.organizationId) }));
+export const GET = route({ resource: "devices" }, async ({ user }) => ({ devices: await listDevices(user) }));
 
-export const POST = route({ access: "device:write", body: deviceBodySchema }, async ({ user, body }) =>
+export const POST = route({ resource: "device-edit", body: deviceBodySchema }, async ({ user, body }) =>
   Response.json({ device: await saveDevice({ actor: user, input: body }) }, { status: 201 }),
 );

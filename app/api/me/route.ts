@@ -1,4 +1,4 @@
 import { route } from "@/lib/server/auth/guard";
 import { permissionsOf } from "@/lib/domain/permissions";
 
-export const GET = route({ access: "signed-in" }, async ({ user }) => ({ user, permissions: permissionsOf(user.role) }));
+export const GET = route({ resource: "session" }, async ({ user }) => ({ user, permissions: permissionsOf(user.role) }));

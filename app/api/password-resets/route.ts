@@ -3,7 +3,7 @@ import { requestPasswordReset } from "@/lib/server/accounts/request-password-res
 import { route } from "@/lib/server/auth/guard";
 
 // Always 202: the answer never tells whether an account exists.
-export const POST = route({ access: "public", body: requestPasswordResetBodySchema }, async ({ body }) => {
+export const POST = route({ resource: "account", body: requestPasswordResetBodySchema }, async ({ body }) => {
   await requestPasswordReset(body.email);
   return Response.json({ ok: true }, { status: 202 });
 });

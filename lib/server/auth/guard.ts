@@ -2,12 +2,10 @@ import "server-only";
 import { headers } from "next/headers";
 import { ZodError, type ZodType } from "zod";
 import { AppError, isAppError } from "@/lib/errors";
+import { isPublic, resources, type Resource } from "@/lib/access/matrix";
 import { serverConfig } from "../config";
-import { can, type Permission } from "@/lib/domain/permissions";
+import { authorize } from "./authorize";
 import { getSessionUser, type SessionUser } from "./session";
-
-/** Who may call: anyone, any signed-in user, or a role holding this permission. */
-export type Access = "public" | "signed-in" | Permission;
 
 const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
 
@@ -32,14 +30,9 @@ export function assertSameOrigin(method: string, requestHeaders: Headers): void 
   if (!allowed.has(origin)) throw new AppError("forbidden", `Cross-site request from ${origin} refused.`);
 }
 
-/** Session → permission. Throws 401 when signed out, 403 when the role lacks the permission. */
-export async function requireAccess(access: Exclude<Access, "public">): Promise<SessionUser> {
-  const user = await getSessionUser();
-  if (!user) throw new AppError("unauthenticated", "Sign in to continue.");
-  if (access !== "signed-in" && !can(user.role, access)) {
-    throw new AppError("forbidden", "Your role does not allow this.");
-  }
-  return user;
+/** Session → the resource's permission. Throws 401 when signed out, 403 when the role may not use it. */
+export async function requireAccess(resource: Resource): Promise<SessionUser> {
+  return authorize(await getSessionUser(), resource);
 }
 
 const noStore = { "cache-control": "no-store" };
@@ -75,21 +68,25 @@ type RouteContext = { params: Promise<Record<string, string | string[]>> };
 
 type HandlerArgs<B, U> = { user: U; body: B; params: Record<string, string>; request: Request };
 
-type RouteOptions<B> = { access: Access; body?: ZodType<B>; maxBodyBytes?: number };
+type RouteOptions<B, R extends Resource> = { resource: R; body?: ZodType<B>; maxBodyBytes?: number };
+
+/** A public resource's handler may be called signed out. */
+type UserOf<R extends Resource> = (typeof resources)[R]["access"] extends "public" ? SessionUser | null : SessionUser;
 
 /**
- * The one wrapper for route handlers: origin check → session → permission →
- * validated input → the handler. Organization scope is the handler's `where`,
- * using `user.organizationId`. A returned plain object becomes JSON.
+ * The one wrapper for route handlers: origin check → session → the resource's permission
+ * (lib/access/matrix.ts, the row the route tree test holds this file to) → validated input →
+ * the handler. Organization scope is the handler's `where`, using `user.organizationId`.
+ * A returned plain object becomes JSON.
  */
-export function route<B = undefined, A extends Access = Access>(
-  options: RouteOptions<B> & { access: A },
-  handler: (args: HandlerArgs<B, A extends "public" ? SessionUser | null : SessionUser>) => Promise<unknown>,
+export function route<B = undefined, R extends Resource = Resource>(
+  options: RouteOptions<B, R>,
+  handler: (args: HandlerArgs<B, UserOf<R>>) => Promise<unknown>,
 ) {
   return async (request: Request, context: RouteContext): Promise<Response> => {
     try {
       assertSameOrigin(request.method, request.headers);
-      const user = options.access === "public" ? await getSessionUser() : await requireAccess(options.access);
+      const user = isPublic(options.resource) ? await getSessionUser() : await requireAccess(options.resource);
       const body = options.body ? await readJsonBody(request, options.body, options.maxBodyBytes ?? 64 * 1024) : (undefined as B);
       const raw = (await context?.params) ?? {};
       const params = Object.fromEntries(Object.entries(raw).map(([k, v]) => [k, Array.isArray(v) ? v.join("/") : v]));
@@ -133,13 +130,13 @@ async function readJsonBody<B>(request: Request, schema: ZodType<B>, maxBytes: n
 
 /** The same chain for server actions: errors come back as a value the form can show. */
 export async function runAction<B, R>(
-  options: { access: Exclude<Access, "public">; input: unknown; schema: ZodType<B> },
+  options: { resource: Resource; input: unknown; schema: ZodType<B> },
   fn: (args: { user: SessionUser; input: B }) => Promise<R>,
 ): Promise<{ ok: true; value: R } | { ok: false; code: string; message: string }> {
   try {
     const h = await headers();
     assertSameOrigin("POST", h);
-    const user = await requireAccess(options.access);
+    const user = await requireAccess(options.resource);
     const input = options.schema.parse(options.input);
     return { ok: true, value: await fn({ user, input }) };
   } catch (error) {

@@ -2,12 +2,14 @@ import "server-only";
 import { randomBytes } from "node:crypto";
 import { BenchToken, getSequelize } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
+import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { hashToken } from "../crypto";
 import { toBenchTokenSummary, type BenchTokenSummary } from "./bench-token-summary";
 
 /** The plaintext token is returned once, here; the database keeps its SHA-256 and a short prefix to recognise it by. */
 export async function createBenchToken(opts: { actor: SessionUser; name: string }): Promise<{ token: string; benchToken: BenchTokenSummary }> {
+  authorize(opts.actor, "bench-tokens");
   const token = `bfd_${randomBytes(30).toString("base64url")}`;
   return getSequelize().transaction(async (transaction) => {
     const row = await BenchToken.create(

@@ -2,10 +2,12 @@ import "server-only";
 import { AppError } from "@/lib/errors";
 import { BenchToken, getSequelize } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
+import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { toBenchTokenSummary, type BenchTokenSummary } from "./bench-token-summary";
 
 export async function revokeBenchToken(opts: { actor: SessionUser; tokenId: number }): Promise<BenchTokenSummary> {
+  authorize(opts.actor, "bench-tokens");
   return getSequelize().transaction(async (transaction) => {
     const row = await BenchToken.findOne({ where: { id: opts.tokenId, organizationId: opts.actor.organizationId }, lock: transaction.LOCK.UPDATE, transaction });
     if (!row) throw new AppError("not-found", "No such bench token in your organization.");

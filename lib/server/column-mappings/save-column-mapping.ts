@@ -5,6 +5,7 @@ import { findMappingProblems, headerKey } from "@/lib/ingest/column-mapping";
 import type { ColumnMappingBody } from "@/lib/schemas/measurements";
 import { ColumnMapping, getSequelize } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
+import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 
 export function headerSignature(headers: string[]): string {
@@ -14,6 +15,7 @@ export function headerSignature(headers: string[]): string {
 /** Saves (or replaces) the organization's mapping for files with exactly these headers. */
 export async function saveColumnMapping(opts: { actor: SessionUser; input: ColumnMappingBody }): Promise<{ id: number; name: string; kind: string }> {
   const { actor, input } = opts;
+  authorize(actor, "measurement-upload");
   const problems = findMappingProblems(input.kind, input.headers, input.mapping);
   if (problems.length) throw new AppError("invalid", `The mapping does not fit: ${problems.join("; ")}.`, { field: "mapping", problems });
   const signature = headerSignature(input.headers);

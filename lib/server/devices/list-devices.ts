@@ -1,8 +1,12 @@
 import "server-only";
 import { Device, getSequelize } from "@/models";
+import { authorize } from "../auth/authorize";
+import type { SessionUser } from "../auth/session-user";
 import { toDeviceSummary, type DeviceSummary } from "./device-summary";
 
-export async function listDevices(organizationId: number): Promise<DeviceSummary[]> {
+/** Every device of the viewer's organization, by part number (the API's list; the page pages through findDevicePage). */
+export async function listDevices(viewer: SessionUser): Promise<DeviceSummary[]> {
+  const { organizationId } = authorize(viewer, "devices");
   getSequelize();
   const rows = await Device.findAll({ where: { organizationId }, order: [["partNumber", "ASC"]] });
   return rows.map(toDeviceSummary);

@@ -4,12 +4,14 @@ import { AppError } from "@/lib/errors";
 import type { DeviceBody } from "@/lib/schemas/measurements";
 import { Device, getSequelize } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
+import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { toDeviceSummary, type DeviceSummary } from "./device-summary";
 
 /** Creates a device, or edits one of the engineer's organization when `deviceId` is given. */
 export async function saveDevice(opts: { actor: SessionUser; input: DeviceBody; deviceId?: number }): Promise<DeviceSummary> {
   const { actor, input, deviceId } = opts;
+  authorize(actor, "device-edit");
   try {
     return await getSequelize().transaction(async (transaction) => {
       let row: Device | null;

@@ -4,12 +4,14 @@ import { AppError } from "@/lib/errors";
 import type { InstrumentBody } from "@/lib/schemas/measurements";
 import { Instrument, getSequelize } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
+import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { toInstrumentSummary, type InstrumentSummary } from "./instrument-summary";
 
 /** Creates an instrument, or updates one of the admin's organization when `instrumentId` is given. */
 export async function saveInstrument(opts: { actor: SessionUser; input: InstrumentBody; instrumentId?: number }): Promise<InstrumentSummary> {
   const { actor, input, instrumentId } = opts;
+  authorize(actor, "instrument-admin");
   try {
     return await getSequelize().transaction(async (transaction) => {
       let row: Instrument | null = null;

@@ -4,6 +4,7 @@ import { AppError } from "@/lib/errors";
 import type { InviteUserBody } from "@/lib/schemas/accounts";
 import { Invitation, User, getSequelize } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
+import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { serverConfig } from "../config";
 import { createOneTimeToken } from "../crypto";
@@ -20,6 +21,7 @@ export const invitationLifetimeMs = 7 * 24 * 60 * 60 * 1000;
  */
 export async function createInvitation(opts: { actor: SessionUser; input: InviteUserBody }): Promise<{ id: number; email: string; role: string; expiresAt: string }> {
   const { actor, input } = opts;
+  authorize(actor, "people");
   if (input.role === "customer") {
     throw new AppError("invalid", "Customers sign up themselves; invite admins, engineers or reviewers.", { field: "role" });
   }

@@ -1,12 +1,15 @@
 import "server-only";
 import { AppError } from "@/lib/errors";
 import { Device, getSequelize } from "@/models";
+import { authorize } from "../auth/authorize";
+import type { SessionUser } from "../auth/session-user";
 import { loadMeasurementSets } from "./load-measurement-sets";
 import type { MeasurementSetSummary } from "./measurement-set-summary";
 
-export async function listDeviceMeasurementSets(opts: { organizationId: number; deviceId: number }): Promise<MeasurementSetSummary[]> {
+export async function listDeviceMeasurementSets(opts: { viewer: SessionUser; deviceId: number }): Promise<MeasurementSetSummary[]> {
+  const { organizationId } = authorize(opts.viewer, "devices");
   getSequelize();
-  const device = await Device.findOne({ where: { id: opts.deviceId, organizationId: opts.organizationId }, attributes: ["id"] });
+  const device = await Device.findOne({ where: { id: opts.deviceId, organizationId }, attributes: ["id"] });
   if (!device) throw new AppError("not-found", "No such device in your organization.");
-  return loadMeasurementSets({ deviceId: opts.deviceId, organizationId: opts.organizationId });
+  return loadMeasurementSets({ deviceId: opts.deviceId, organizationId });
 }

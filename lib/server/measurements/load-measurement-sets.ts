@@ -1,6 +1,6 @@
 import "server-only";
 import type { WhereOptions } from "sequelize";
-import { BenchToken, Instrument, MeasurementSet, StoredFile, User, getSequelize } from "@/models";
+import { BenchToken, Device, Instrument, MeasurementSet, StoredFile, User, getSequelize } from "@/models";
 import { toMeasurementSetSummary, type MeasurementSetSummary } from "./measurement-set-summary";
 
 /** The one query behind every list and detail of measurement sets; the caller's `where` carries the organization. */
@@ -9,6 +9,7 @@ export async function loadMeasurementSets(where: WhereOptions<MeasurementSet>): 
   const rows = await MeasurementSet.findAll({
     where,
     include: [
+      { model: Device, attributes: ["partNumber"] },
       { model: StoredFile, attributes: ["originalName", "sizeBytes"] },
       { model: User, as: "uploadedBy", attributes: ["name"] },
       { model: User, as: "reviewedBy", attributes: ["name"] },

@@ -5,6 +5,7 @@ import type { MeasurementSetSummary } from "@/lib/domain/measurements";
 export type { MeasurementSetSummary };
 
 type Loaded = MeasurementSet & {
+  Device?: { partNumber: string };
   StoredFile?: { originalName: string; sizeBytes: number };
   uploadedBy?: { name: string } | null;
   benchToken?: { name: string } | null;
@@ -17,6 +18,7 @@ export function toMeasurementSetSummary(row: MeasurementSet): MeasurementSetSumm
   return {
     id: r.id,
     deviceId: r.deviceId,
+    partNumber: r.Device?.partNumber ?? "",
     kind: r.kind,
     state: r.state,
     fileName: r.StoredFile?.originalName ?? "",

@@ -3,6 +3,7 @@ import { AppError } from "@/lib/errors";
 import type { ReviewMeasurementBody } from "@/lib/schemas/measurements";
 import { MeasurementSet, getSequelize } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
+import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { loadMeasurementSets } from "./load-measurement-sets";
 import type { MeasurementSetSummary } from "./measurement-set-summary";
@@ -13,6 +14,7 @@ import type { MeasurementSetSummary } from "./measurement-set-summary";
  */
 export async function reviewMeasurementSet(opts: { reviewer: SessionUser; setId: number; body: ReviewMeasurementBody }): Promise<MeasurementSetSummary> {
   const { reviewer, setId, body } = opts;
+  authorize(reviewer, "measurement-review");
   await getSequelize().transaction(async (transaction) => {
     const set = await MeasurementSet.findOne({
       where: { id: setId, organizationId: reviewer.organizationId },

@@ -3,11 +3,13 @@ import { AppError } from "@/lib/errors";
 import type { SpecLimitsBody } from "@/lib/schemas/sheets";
 import { Device, SpecLimit, getSequelize } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
+import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 
 /** Replaces the device's spec limits as one change, with the old and new set in the audit trail. */
 export async function saveSpecLimits(opts: { actor: SessionUser; deviceId: number; input: SpecLimitsBody }): Promise<number> {
   const { actor, deviceId, input } = opts;
+  authorize(actor, "sheet-edit");
   const seen = new Set<string>();
   for (const l of input.limits) {
     const key = `${l.parameter}|${l.conditionsKey}`;

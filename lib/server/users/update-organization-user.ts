@@ -4,6 +4,7 @@ import { AppError } from "@/lib/errors";
 import type { UpdateUserBody } from "@/lib/schemas/accounts";
 import { User, getSequelize } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
+import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import type { UserSummary } from "./list-organization-users";
 
@@ -13,6 +14,7 @@ import type { UserSummary } from "./list-organization-users";
  */
 export async function updateOrganizationUser(opts: { actor: SessionUser; userId: number; changes: UpdateUserBody }): Promise<UserSummary> {
   const { actor, userId, changes } = opts;
+  authorize(actor, "people");
   const sequelize = getSequelize();
   return sequelize.transaction(async (transaction) => {
     const user = await User.findOne({

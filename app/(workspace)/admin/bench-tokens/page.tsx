@@ -7,7 +7,7 @@ import { BenchTokensView } from "@/components/admin/bench-tokens-view";
 export const metadata: Metadata = { title: "Bench tokens" };
 
 export default async function BenchTokensPage() {
-  const user = await requirePageUser({ permission: "token:manage", path: "/admin/bench-tokens" });
+  const user = await requirePageUser({ resource: "bench-tokens", path: "/admin/bench-tokens" });
   const tokens = await listBenchTokens(user.organizationId);
   return <BenchTokensView organizationName={user.organizationName} tokens={tokens} appOrigin={new URL(serverConfig.appUrl).origin} />;
 }

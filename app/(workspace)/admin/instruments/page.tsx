@@ -6,7 +6,7 @@ import { InstrumentsView } from "@/components/admin/instruments-view";
 export const metadata: Metadata = { title: "Instruments" };
 
 export default async function InstrumentsPage() {
-  const user = await requirePageUser({ permission: "instrument:manage", path: "/admin/instruments" });
+  const user = await requirePageUser({ resource: "instrument-admin", path: "/admin/instruments" });
   const instruments = await listInstruments(user.organizationId);
   return <InstrumentsView organizationName={user.organizationName} instruments={instruments} />;
 }

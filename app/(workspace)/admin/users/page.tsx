@@ -7,7 +7,7 @@ import { PeopleView } from "@/components/admin/people-view";
 export const metadata: Metadata = { title: "People" };
 
 export default async function PeoplePage() {
-  const user = await requirePageUser({ permission: "user:manage", path: "/admin/users" });
+  const user = await requirePageUser({ resource: "people", path: "/admin/users" });
   const { organizationId } = user;
   const [users, invitations] = await Promise.all([listOrganizationUsers(organizationId), listPendingInvitations(organizationId)]);
   return <PeopleView organizationName={user.organizationName} currentUserId={user.id} users={users} invitations={invitations} />;

@@ -1,8 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { isAppError } from "@/lib/errors";
-import { can } from "@/lib/domain/permissions";
-import { requirePageUser } from "@/lib/server/auth/require-page-user";
+import { allows } from "@/lib/access/matrix";
+import { loadForPage, requirePageUser } from "@/lib/server/auth/require-page-user";
 import { getDevice } from "@/lib/server/devices/get-device";
 import { listInstruments } from "@/lib/server/instruments/list-instruments";
 import { listDeviceMeasurementSets } from "@/lib/server/measurements/list-device-measurement-sets";
@@ -15,28 +14,25 @@ export const metadata: Metadata = { title: "Device" };
 
 export default async function DevicePage({ params }: Props) {
   const { id } = await params;
-  const user = await requirePageUser({ permission: "device:read", path: `/devices/${id}` });
+  const user = await requirePageUser({ resource: "devices", path: `/devices/${id}` });
   const deviceId = parseRecordId(id);
   if (deviceId === undefined) notFound();
-  const { organizationId } = user;
-  const canUpload = can(user.role, "measurement:upload");
-  try {
-    const [device, sets, instruments] = await Promise.all([
-      getDevice({ organizationId, deviceId }),
-      listDeviceMeasurementSets({ organizationId, deviceId }),
-      canUpload ? listInstruments(organizationId) : Promise.resolve([]),
-    ]);
-    return (
-      <DeviceView
-        device={device}
-        organizationName={user.organizationName}
-        sets={sets}
-        upload={canUpload ? { instruments } : null}
-        canEdit={can(user.role, "device:write")}
-      />
-    );
-  } catch (error) {
-    if (isAppError(error) && error.code === "not-found") notFound();
-    throw error;
-  }
+  // What the page offers is what the API would accept from this role.
+  const canUpload = allows(user.role, "measurement-upload");
+  const [device, sets, instruments] = await loadForPage(() =>
+    Promise.all([
+      getDevice({ viewer: user, deviceId }),
+      listDeviceMeasurementSets({ viewer: user, deviceId }),
+      canUpload ? listInstruments(user.organizationId) : Promise.resolve([]),
+    ]),
+  );
+  return (
+    <DeviceView
+      device={device}
+      organizationName={user.organizationName}
+      sets={sets}
+      upload={canUpload ? { instruments } : null}
+      canEdit={allows(user.role, "device-edit")}
+    />
+  );
 }

@@ -1,12 +1,11 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { Suspense } from "react";
-import { isAppError } from "@/lib/errors";
-import { buildSheetModel, type SheetInput } from "@/lib/sheet";
-import { loadSheetInput } from "@/lib/server/sheets/load-sheet-input";
+import { allows } from "@/lib/access/matrix";
+import { buildSheetModel } from "@/lib/sheet";
+import { loadForPage, requirePageUser } from "@/lib/server/auth/require-page-user";
 import { renderSheetChartSvgs } from "@/lib/server/charts/render-chart";
-import { can, sheetDraftReaders } from "@/lib/domain/permissions";
-import { requirePageUser } from "@/lib/server/auth/require-page-user";
+import { loadDraftSheet } from "@/lib/server/sheets/load-draft-sheet";
 import { findSheetTemplate } from "@/templates";
 import { SheetView } from "@/components/sheet/sheet-view";
 import { SheetViewWithCharts } from "@/components/sheets/sheet-view-with-charts";
@@ -19,23 +18,17 @@ export const metadata: Metadata = { title: "Sheet draft" };
 
 export default async function SheetPage({ params }: Props) {
   const { deviceId: idText } = await params;
-  const user = await requirePageUser({ permission: sheetDraftReaders, path: `/sheets/${idText}` });
+  const user = await requirePageUser({ resource: "sheet-drafts", path: `/sheets/${idText}` });
   const deviceId = parseRecordId(idText);
   if (deviceId === undefined) notFound();
-  let input: SheetInput;
-  try {
-    // The same input buildDeviceSheet reads, loaded once: the model for the preview, the raw text for the editors.
-    input = await loadSheetInput({ organizationId: user.organizationId, deviceId, date: new Date().toISOString().slice(0, 10) });
-  } catch (error) {
-    if (isAppError(error) && error.code === "not-found") notFound();
-    throw error;
-  }
+  // The same input the JSON and PDF routes build from, loaded once: the model for the preview, the raw text for the editors.
+  const input = await loadForPage(() => loadDraftSheet(user, deviceId));
   const model = buildSheetModel(input);
   const template = findSheetTemplate(input.device.deviceClass);
   return (
     <SheetWorkspace
       deviceId={deviceId}
-      canEdit={can(user.role, "sheet:write")}
+      canEdit={allows(user.role, "sheet-edit")}
       approvedSetCount={model.traceability.measurementSets.length}
       model={{ header: model.header, specifications: model.specifications, statistics: model.statistics, issues: model.issues }}
       content={{

@@ -3,8 +3,8 @@ import { route } from "@/lib/server/auth/guard";
 import { createBenchToken } from "@/lib/server/bench-tokens/create-bench-token";
 import { listBenchTokens } from "@/lib/server/bench-tokens/list-bench-tokens";
 
-export const GET = route({ access: "token:manage" }, async ({ user }) => ({ benchTokens: await listBenchTokens(user.organizationId) }));
+export const GET = route({ resource: "bench-tokens" }, async ({ user }) => ({ benchTokens: await listBenchTokens(user.organizationId) }));
 
-export const POST = route({ access: "token:manage", body: benchTokenBodySchema }, async ({ user, body }) =>
+export const POST = route({ resource: "bench-tokens", body: benchTokenBodySchema }, async ({ user, body }) =>
   Response.json(await createBenchToken({ actor: user, name: body.name }), { status: 201 }),
 );

@@ -7,4 +7,4 @@ export const dynamic = "force-dynamic";
  * The Sign out button's form posts here (a plain HTML form: it works before the page's scripts
  * have loaded). Ends this session on the server, clears the cookie and sends the browser home.
  */
-export const POST = route({ access: "public" }, async ({ request }) => signOutResponse(request));
+export const POST = route({ resource: "account" }, async ({ request }) => signOutResponse(request));

@@ -4,11 +4,11 @@ import { listDeviceMeasurementSets } from "@/lib/server/measurements/list-device
 import { readUploadForm } from "@/lib/server/measurements/read-upload-form";
 import { readIdParam } from "@/lib/server/route-params";
 
-export const GET = route({ access: "device:read" }, async ({ user, params }) => ({
-  measurementSets: await listDeviceMeasurementSets({ organizationId: user.organizationId, deviceId: readIdParam(params.id, "device") }),
+export const GET = route({ resource: "devices" }, async ({ user, params }) => ({
+  measurementSets: await listDeviceMeasurementSets({ viewer: user, deviceId: readIdParam(params.id, "device") }),
 }));
 
-export const POST = route({ access: "measurement:upload" }, async ({ user, params, request }) => {
+export const POST = route({ resource: "measurement-upload" }, async ({ user, params, request }) => {
   const deviceId = readIdParam(params.id, "device");
   const { file, fields } = await readUploadForm(request);
   const set = await ingestMeasurement({ organizationId: user.organizationId, deviceId, file, fields, actor: { kind: "user", userId: user.id } });

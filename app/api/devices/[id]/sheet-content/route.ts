@@ -3,7 +3,7 @@ import { route } from "@/lib/server/auth/guard";
 import { readIdParam } from "@/lib/server/route-params";
 import { saveSheetContent } from "@/lib/server/sheets/save-sheet-content";
 
-export const PUT = route({ access: "sheet:write", body: sheetContentBodySchema, maxBodyBytes: 256 * 1024 }, async ({ user, params, body }) => {
+export const PUT = route({ resource: "sheet-edit", body: sheetContentBodySchema, maxBodyBytes: 256 * 1024 }, async ({ user, params, body }) => {
   await saveSheetContent({ actor: user, deviceId: readIdParam(params.id, "device"), input: body });
   return { ok: true };
 });

@@ -1,7 +1,7 @@
 import { route } from "@/lib/server/auth/guard";
 import { readIdParam } from "@/lib/server/route-params";
-import { buildDeviceSheet } from "@/lib/server/sheets/build-device-sheet";
+import { buildDraftSheet } from "@/lib/server/sheets/load-draft-sheet";
 
-export const GET = route({ access: "device:read" }, async ({ user, params }) => ({
-  sheet: await buildDeviceSheet({ organizationId: user.organizationId, deviceId: readIdParam(params.id, "device") }),
+export const GET = route({ resource: "sheet-drafts" }, async ({ user, params }) => ({
+  sheet: await buildDraftSheet(user, readIdParam(params.id, "device")),
 }));

@@ -1,8 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { isAppError } from "@/lib/errors";
-import { can } from "@/lib/domain/permissions";
-import { requirePageUser } from "@/lib/server/auth/require-page-user";
+import { allows } from "@/lib/access/matrix";
+import { loadForPage, requirePageUser } from "@/lib/server/auth/require-page-user";
 import { getDevice } from "@/lib/server/devices/get-device";
 import { getMeasurementSet } from "@/lib/server/measurements/get-measurement-set";
 import { MeasurementSetView } from "@/components/measurements/measurement-set-view";
@@ -14,25 +13,20 @@ export const metadata: Metadata = { title: "Measurement set" };
 
 export default async function MeasurementSetPage({ params }: Props) {
   const { id, setId } = await params;
-  const user = await requirePageUser({ permission: "device:read", path: `/devices/${id}/measurements/${setId}` });
+  const user = await requirePageUser({ resource: "devices", path: `/devices/${id}/measurements/${setId}` });
   const deviceId = parseRecordId(id);
   const measurementSetId = parseRecordId(setId);
   if (deviceId === undefined || measurementSetId === undefined) notFound();
-  const { organizationId } = user;
-  try {
-    const [device, set] = await Promise.all([getDevice({ organizationId, deviceId }), getMeasurementSet({ organizationId, setId: measurementSetId })]);
-    // A set is addressed under its own device only.
-    if (set.deviceId !== device.id) notFound();
-    return (
-      <MeasurementSetView
-        device={device}
-        set={set}
-        organizationName={user.organizationName}
-        viewer={{ id: user.id, canReview: can(user.role, "measurement:approve") }}
-      />
-    );
-  } catch (error) {
-    if (isAppError(error) && error.code === "not-found") notFound();
-    throw error;
-  }
+  // A set is addressed under its own device only: under another, it is not found.
+  const [device, set] = await loadForPage(() =>
+    Promise.all([getDevice({ viewer: user, deviceId }), getMeasurementSet({ viewer: user, setId: measurementSetId, deviceId })]),
+  );
+  return (
+    <MeasurementSetView
+      device={device}
+      set={set}
+      organizationName={user.organizationName}
+      viewer={{ id: user.id, canReview: allows(user.role, "measurement-review") }}
+    />
+  );
 }

@@ -1,7 +1,7 @@
 import { route } from "@/lib/server/auth/guard";
 import { sheetModelDigest, sheetPdfFor } from "@/lib/server/pdf/sheet-pdf-cache";
 import { readIdParam } from "@/lib/server/route-params";
-import { buildDeviceSheet } from "@/lib/server/sheets/build-device-sheet";
+import { buildDraftSheet } from "@/lib/server/sheets/load-draft-sheet";
 import { sheetPdfFileName } from "@/lib/sheet/file-name";
 
 export const dynamic = "force-dynamic";
@@ -11,8 +11,8 @@ export const dynamic = "force-dynamic";
  * digest is the ETag (weak: the bytes carry their creation time), so an unchanged draft
  * answers 304 and the browser keeps its copy.
  */
-export const GET = route({ access: "device:read" }, async ({ user, params, request }) => {
-  const model = await buildDeviceSheet({ organizationId: user.organizationId, deviceId: readIdParam(params.id, "device") });
+export const GET = route({ resource: "sheet-drafts" }, async ({ user, params, request }) => {
+  const model = await buildDraftSheet(user, readIdParam(params.id, "device"));
   const digest = sheetModelDigest(model);
   const etag = `W/"${digest}"`;
   const inline = new URL(request.url).searchParams.get("download") !== "1";

@@ -1,0 +1,78 @@
+import Link from "next/link";
+import { buttonClass } from "@/components/ui/button";
+import { selectClass } from "@/components/ui/field";
+import { deviceListHref, type DeviceListQuery, type DeviceSortKey } from "./device-list-query";
+
+/**
+ * The search box, sortable column headers and pager of a list paged like the device list
+ * (the device list at /devices, the sheets index at /sheets): the same query string, the same
+ * controls, each pointing at its own `basePath`.
+ */
+type ListControlProps = { query: DeviceListQuery; basePath: string };
+
+export function DeviceListSearch({ query, basePath, label, testId }: ListControlProps & { label: string; testId: string }) {
+  const inputId = `${testId}-input`;
+  return (
+    <form method="get" action={basePath} role="search" className="mb-6 flex flex-wrap items-end gap-3" data-testid={testId}>
+      <div className="min-w-[16rem] flex-1 space-y-1.5 sm:max-w-md">
+        <label htmlFor={inputId} className="block text-[0.9375rem] font-semibold">
+          {label}
+        </label>
+        <input id={inputId} name="q" type="search" defaultValue={query.q} className={selectClass} placeholder="e.g. C2611 or doubler" />
+      </div>
+      {query.sort !== "part" ? <input type="hidden" name="sort" value={query.sort} /> : null}
+      {query.dir !== (query.sort === "updated" ? "desc" : "asc") ? <input type="hidden" name="dir" value={query.dir} /> : null}
+      <button type="submit" className={buttonClass.secondary}>
+        Search
+      </button>
+      {query.q ? (
+        <Link href={deviceListHref(query, { q: "", page: 1 }, basePath)} className={buttonClass.quiet}>
+          Clear search
+        </Link>
+      ) : null}
+    </form>
+  );
+}
+
+export function SortHeader({ label, sortKey, query, basePath, numeric }: ListControlProps & { label: string; sortKey: DeviceSortKey; numeric?: boolean }) {
+  const active = query.sort === sortKey;
+  const nextDir = active ? (query.dir === "asc" ? "desc" : "asc") : sortKey === "updated" ? "desc" : "asc";
+  return (
+    <th scope="col" className={numeric ? "num" : undefined} aria-sort={active ? (query.dir === "asc" ? "ascending" : "descending") : undefined}>
+      <Link
+        href={deviceListHref(query, { sort: sortKey, dir: nextDir, page: 1 }, basePath)}
+        className={`no-underline hover:text-ink ${active ? "text-ink" : ""}`}
+        aria-label={`Sort by ${label.toLowerCase()}${active ? `, now ${query.dir === "asc" ? "ascending" : "descending"}` : ""}`}
+      >
+        {label}
+        <span aria-hidden="true" className="ml-1 inline-block w-2.5">
+          {active ? (query.dir === "asc" ? "↑" : "↓") : ""}
+        </span>
+      </Link>
+    </th>
+  );
+}
+
+export function Pager({ query, basePath, page, pageCount, label, testId }: ListControlProps & { page: number; pageCount: number; label: string; testId: string }) {
+  return (
+    <nav aria-label={label} className="mt-5 flex items-center gap-5 text-[0.9375rem]" data-testid={testId}>
+      {page > 1 ? (
+        <Link href={deviceListHref(query, { page: page - 1 }, basePath)} rel="prev">
+          ← Previous
+        </Link>
+      ) : (
+        <span className="text-ink-muted">← Previous</span>
+      )}
+      <span className="text-ink-muted">
+        Page <span className="figure text-ink">{page}</span> of <span className="figure text-ink">{pageCount}</span>
+      </span>
+      {page < pageCount ? (
+        <Link href={deviceListHref(query, { page: page + 1 }, basePath)} rel="next">
+          Next →
+        </Link>
+      ) : (
+        <span className="text-ink-muted">Next →</span>
+      )}
+    </nav>
+  );
+}
