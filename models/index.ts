@@ -17,7 +17,7 @@ import { SignInAttempt } from "./sign-in-attempt";
 import { SignUpRequest } from "./sign-up-request";
 import { User } from "./user";
 
-export {
+export type {
   AuditEvent,
   BenchToken,
   ColumnMapping,
@@ -64,19 +64,47 @@ function initModels(sequelize: Sequelize): Sequelize {
   return sequelize;
 }
 
+const models = {
+  AuditEvent,
+  BenchToken,
+  ColumnMapping,
+  Device,
+  Instrument,
+  Invitation,
+  MeasurementSet,
+  MeasurementSetInstrument,
+  Organization,
+  PasswordReset,
+  RevokedSession,
+  SheetContent,
+  SignInAttempt,
+  SignUpRequest,
+  SpecLimit,
+  StoredFile,
+  User,
+};
+
+/** The connection and every model, initialised on it. */
+export type Database = typeof models & { sequelize: Sequelize };
+
 // Next bundles this module separately into route handlers and pages, each with its own copy of
 // the model classes; every copy needs its own initialised Sequelize, so the instance lives here,
 // in the module, not on globalThis.
-let instance: Sequelize | undefined;
+let instance: Database | undefined;
 
-export function getSequelize(): Sequelize {
-  instance ??= initModels(createSequelize());
+/**
+ * The one way to a model: `const { Device, sequelize } = db()`. The models come only from here
+ * (the module exports them as types alone), so no query can run on a model before its
+ * connection is set up.
+ */
+export function db(): Database {
+  instance ??= { ...models, sequelize: initModels(createSequelize()) };
   return instance;
 }
 
-export async function closeSequelize(): Promise<void> {
+export async function closeDb(): Promise<void> {
   if (instance) {
-    const closing = instance;
+    const closing = instance.sequelize;
     instance = undefined;
     await closing.close();
   }

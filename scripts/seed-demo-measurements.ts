@@ -7,7 +7,8 @@
  */
 import { randomBytes, createHash } from "node:crypto";
 import { QueryTypes } from "sequelize";
-import { BenchToken, Device, Organization, User, closeSequelize, getSequelize } from "../models";
+import { db, closeDb } from "../models";
+import type { User, BenchToken } from "../models";
 import { demoInstruments, demoUploads } from "../models/seeders/demo-measurements";
 import { demoPassword } from "../models/seeders/demo-scenario";
 import { demoSheets } from "../models/seeders/demo-sheets";
@@ -31,6 +32,7 @@ async function signIn(email: string): Promise<string> {
 }
 
 async function userOf(slug: string, role: "admin" | "engineer" | "reviewer"): Promise<User> {
+  const { Organization, User } = db();
   const org = await Organization.findOne({ where: { slug } });
   return (await User.findOne({ where: { organizationId: org!.id, role } }))!;
 }
@@ -46,7 +48,7 @@ async function call(session: string, method: string, url: string, body: unknown,
 }
 
 async function main() {
-  const sequelize = getSequelize();
+  const { BenchToken, Device, Organization, sequelize } = db();
   await sequelize.query("CREATE TABLE IF NOT EXISTS benchfold_seeds (name VARCHAR(255) NOT NULL PRIMARY KEY)");
   const done = await sequelize.query("SELECT name FROM benchfold_seeds WHERE name = ?", { replacements: [marker], type: QueryTypes.SELECT });
   if (done.length) {
@@ -124,4 +126,4 @@ main()
     console.error("[benchfold] demo measurements failed:", error instanceof Error ? error.message : error);
     process.exitCode = 1;
   })
-  .finally(() => closeSequelize());
+  .finally(() => closeDb());

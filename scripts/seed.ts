@@ -1,15 +1,16 @@
 // Adds the demo scenario once (each seeder is recorded in benchfold_seeds and never runs twice).
-import { closeSequelize, getSequelize } from "../models";
+import { db, closeDb } from "../models";
 import { createSeeder } from "../models/migrator";
 
 async function main() {
-  const done = await createSeeder(getSequelize()).up();
+  const { sequelize } = db();
+  const done = await createSeeder(sequelize).up();
   console.error(`[benchfold] seeds: ${done.length ? done.map((m) => m.name).join(", ") : "already present"}`);
-  await closeSequelize();
+  await closeDb();
 }
 
 main().catch(async (error) => {
   console.error("[benchfold] seeding failed:", error);
-  await closeSequelize();
+  await closeDb();
   process.exit(1);
 });

@@ -1,9 +1,10 @@
 import bcrypt from "bcryptjs";
 import type { QueryInterface } from "sequelize";
-import { Device, Organization, User } from "..";
+import { db } from "..";
 import { demoOrganizations, demoPassword } from "./demo-scenario";
 
 export async function up({ context: qi }: { context: QueryInterface }) {
+  const { Device, Organization, User } = db();
   // The cost of every stored password (lib/server/accounts/hash-password.ts) and of the sign-in decoy.
   const passwordHash = await bcrypt.hash(demoPassword, 11);
   await qi.sequelize.transaction(async (transaction) => {

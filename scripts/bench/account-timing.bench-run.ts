@@ -36,10 +36,10 @@ it("times known against unknown addresses on sign-up, reset, sign-in and invitat
   process.env.BENCHFOLD_FAKE_SMTP = "1";
   process.env.DB_NAME ??= "benchfold_test";
 
-  const models = await import("@/models");
-  const { Organization, User, SignUpRequest, getSequelize, closeSequelize } = models;
+  const { db, closeDb } = await import("@/models");
+  const { Organization, User, SignUpRequest, sequelize } = db();
   try {
-    await getSequelize().authenticate();
+    await sequelize.authenticate();
     await SignUpRequest.count();
   } catch (error) {
     console.log(`account timing skipped: no migrated database ${process.env.DB_NAME} (${(error as Error).message.split("\n")[0]}); run npm run db:start, and npm test once`);
@@ -105,9 +105,9 @@ it("times known against unknown addresses on sign-up, reset, sign-in and invitat
       rows.push([c.name, k.toFixed(1), u.toFixed(1), factor.toFixed(2), factor <= looseFactor ? "yes" : "NO"]);
     }
   } finally {
-    await getSequelize().query("DELETE FROM sign_in_attempts WHERE ip_address LIKE '198.18.%'");
+    await sequelize.query("DELETE FROM sign_in_attempts WHERE ip_address LIKE '198.18.%'");
     smtp.close();
-    await closeSequelize();
+    await closeDb();
   }
 
   const header = ["case", "known ms", "unknown ms", "factor", `within ${looseFactor}×`];

@@ -1,6 +1,6 @@
 import bcrypt from "bcryptjs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { User, closeSequelize } from "@/models";
+import { db, closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { clientsByRole, factoryPassword, makeDevice, makeOrganization, uniqueEmail, type Who } from "./helpers/factories";
 import { fixtureUpload } from "./helpers/uploads";
@@ -18,7 +18,7 @@ beforeAll(async () => {
   deviceId = (await makeDevice(org.organization.id)).id;
   clients = await clientsByRole(org);
 });
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 describe("an administrator reads no sheet draft, on the page or through the API", () => {
   for (const path of [() => `/sheets/${deviceId}`, () => `/api/devices/${deviceId}/sheet`, () => `/api/devices/${deviceId}/sheet/pdf`]) {
@@ -34,6 +34,7 @@ describe("an administrator reads no sheet draft, on the page or through the API"
 });
 
 describe("four eyes: a reviewer's own upload is never in their queue", () => {
+  const { User } = db();
   let setId: number;
   let promoted: TestClient;
 

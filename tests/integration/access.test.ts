@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { closeSequelize } from "@/models";
+import { closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { apiResources, type ApiRoute, type Resource } from "@/lib/access/matrix";
 import { verdictFor } from "./helpers/access";
@@ -24,7 +24,7 @@ beforeAll(async () => {
   expect(upload.status).toBe(201);
   ownSetId = ((await upload.json()) as { measurementSet: { id: number } }).measurementSet.id;
 });
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 /**
  * One request per row of the access matrix (lib/access/matrix.ts), keyed like it, so a new route

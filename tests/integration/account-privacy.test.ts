@@ -1,5 +1,5 @@
 import { afterAll, describe, expect, it } from "vitest";
-import { Invitation, User, closeSequelize } from "@/models";
+import { db, closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { factoryPassword, makeOrganization, uniqueEmail } from "./helpers/factories";
 import { firstLink, waitForMail } from "./helpers/mailbox";
@@ -8,7 +8,7 @@ import { firstLink, waitForMail } from "./helpers/mailbox";
 // known and an unknown address on sign-up, password reset, sign-in and invitation. The timing of
 // the two cases is compared in `npm run bench` (scripts/bench.ts), never here.
 
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 const strongPassword = "a long sentence for a password";
 
@@ -17,6 +17,7 @@ async function answer(r: Response): Promise<{ status: number; body: string }> {
 }
 
 describe("sign-up", () => {
+  const { User } = db();
   const signUp = (email: string) =>
     new TestClient().request("/api/accounts", { json: { name: "Probe Person", email, password: strongPassword, company: "Probe Instruments" } });
 
@@ -110,6 +111,7 @@ describe("sign-in", () => {
 });
 
 describe("invitations", () => {
+  const { Invitation, User } = db();
   it("inviting an address that has an account elsewhere answers as for a new address and tells only its owner", async () => {
     const elsewhere = await makeOrganization();
     const { users } = await makeOrganization();

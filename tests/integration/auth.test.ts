@@ -1,11 +1,11 @@
 import { afterAll, describe, expect, it } from "vitest";
-import { AuditEvent, SignInAttempt, User, closeSequelize } from "@/models";
+import { db, closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { factoryPassword, makeOrganization, uniqueEmail } from "./helpers/factories";
 import { firstLink, waitForMail } from "./helpers/mailbox";
 import { nonLoopbackBaseUrl } from "./helpers/network";
 
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 describe("sign-in", () => {
   it("signs in with the right password and refuses a wrong one", async () => {
@@ -34,6 +34,7 @@ describe("sign-in", () => {
 });
 
 describe("the address the sign-in limit counts", () => {
+  const { SignInAttempt } = db();
   const attemptsFrom = async (email: string) => (await SignInAttempt.findAll({ where: { email }, order: [["id", "ASC"]] })).map((a) => a.ipAddress);
 
   it("is the socket's address for a peer that is not a trusted proxy, whatever X-Forwarded-For it sends", async () => {
@@ -136,6 +137,7 @@ describe("signing out ends the session on the server", () => {
 });
 
 describe("sessions follow the database", () => {
+  const { AuditEvent } = db();
   it("a disabled user's existing session is refused on the next request", async () => {
     const { users } = await makeOrganization();
     const engineer = new TestClient();
@@ -175,6 +177,7 @@ describe("sessions follow the database", () => {
 });
 
 describe("invitations by e-mail", () => {
+  const { User } = db();
   it("sends an invitation the fake SMTP server catches, whose link creates the account once", async () => {
     const { organization, users } = await makeOrganization();
     const admin = new TestClient();

@@ -1,16 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
-import { AuditEvent, Device, Organization, User, closeSequelize, getSequelize } from "@/models";
+import { db, closeDb } from "@/models";
 import { demoOrganizations } from "@/models/seeders/demo-scenario";
 import { assertLoopbackDatabase } from "./helpers/loopback";
 import { makeOrganization } from "./helpers/factories";
 
 beforeAll(() => assertLoopbackDatabase());
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 describe("migrations and demo seed on MariaDB", () => {
+  const { AuditEvent, Device, Organization, User, sequelize } = db();
   it("applied every migration and seeder once", async () => {
-    const sequelize = getSequelize();
     const migrations = await sequelize.query<{ name: string }>("SELECT name FROM benchfold_migrations", { type: QueryTypes.SELECT });
     const seeds = await sequelize.query<{ name: string }>("SELECT name FROM benchfold_seeds", { type: QueryTypes.SELECT });
     expect(migrations.map((m) => m.name)).toContain("20261201-0001-accounts-and-devices.ts");
@@ -30,7 +30,7 @@ describe("migrations and demo seed on MariaDB", () => {
   });
 
   it("returns counts and ids as numbers, so JSON serialisation never meets a BigInt", async () => {
-    const [row] = await getSequelize().query<{ n: unknown }>("SELECT COUNT(*) AS n FROM users", { type: QueryTypes.SELECT });
+    const [row] = await sequelize.query<{ n: unknown }>("SELECT COUNT(*) AS n FROM users", { type: QueryTypes.SELECT });
     expect(typeof row.n).toBe("number");
     expect(() => JSON.stringify(row)).not.toThrow();
   });
@@ -49,8 +49,8 @@ describe("migrations and demo seed on MariaDB", () => {
 
   it("keeps the audit trail append-only in the database itself", async () => {
     const event = await AuditEvent.create({ organizationId: null, actorUserId: null, action: "test.append", subjectType: "test", subjectId: "2", before: null, after: null });
-    await expect(getSequelize().query("UPDATE audit_events SET action = 'x' WHERE id = ?", { replacements: [event.id] })).rejects.toThrow(/append-only/);
-    await expect(getSequelize().query("DELETE FROM audit_events WHERE id = ?", { replacements: [event.id] })).rejects.toThrow(/append-only/);
+    await expect(sequelize.query("UPDATE audit_events SET action = 'x' WHERE id = ?", { replacements: [event.id] })).rejects.toThrow(/append-only/);
+    await expect(sequelize.query("DELETE FROM audit_events WHERE id = ?", { replacements: [event.id] })).rejects.toThrow(/append-only/);
   });
 
   it("enforces a unique part number per organization", async () => {
@@ -63,8 +63,9 @@ describe("migrations and demo seed on MariaDB", () => {
 });
 
 describe("demo measurement sets", () => {
+  const { Device, Organization } = db();
   it("went in through the bench upload API, some approved and some pending", async () => {
-    const { MeasurementSet } = await import("@/models");
+    const { MeasurementSet } = (await import("@/models")).db();
     const kestrine = await Organization.findOne({ where: { slug: "kestrine" } });
     const sets = await MeasurementSet.findAll({ where: { organizationId: kestrine!.id } });
     expect(sets.length).toBeGreaterThanOrEqual(8);

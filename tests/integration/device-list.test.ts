@@ -1,11 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Device, closeSequelize } from "@/models";
+import { db, closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { factoryPassword, makeOrganization } from "./helpers/factories";
 
 let engineer: TestClient;
 
 beforeAll(async () => {
+  const { Device } = db();
   const made = await makeOrganization();
   const classes = ["frequency-multiplier", "double-balanced-mixer", "quadrature-hybrid"] as const;
   // 30 parts: SRT-1 … SRT-30 (natural order differs from text order), one with "%_" in its title.
@@ -23,7 +24,7 @@ beforeAll(async () => {
   engineer = new TestClient();
   expect((await engineer.signIn(made.users.engineer.email, factoryPassword)).ok).toBe(true);
 });
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 /** Part numbers in the order the devices table lists them. */
 async function listed(query: string): Promise<string[]> {

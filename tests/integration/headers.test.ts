@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Device, Organization, User, closeSequelize, getSequelize } from "@/models";
+import { db, closeDb } from "@/models";
+import type { Device } from "@/models";
 import { demoPassword } from "@/models/seeders/demo-scenario";
 import { TestClient } from "./helpers/client";
 import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
@@ -18,7 +19,7 @@ let deviceId: number;
 let factoryDevice: Device;
 
 beforeAll(async () => {
-  getSequelize();
+  const { Device, Organization, User } = db();
   const made = await makeOrganization();
   factoryDevice = await makeDevice(made.organization.id);
   anonymous = new TestClient();
@@ -33,7 +34,7 @@ beforeAll(async () => {
   demoEngineer = new TestClient();
   expect((await demoEngineer.signIn(demoEngineerEmail, demoPassword)).ok).toBe(true);
 });
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 /** `directive → sources`, as a browser splits a policy (CSP Level 3, "parse a serialized CSP"). */
 function parsePolicy(header: string | null): Map<string, string[]> {

@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { MeasurementSet, StoredFile, closeSequelize } from "@/models";
+import { db, closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
 import { fixtureUpload, fixturesDir } from "./helpers/uploads";
@@ -28,9 +28,10 @@ beforeAll(async () => {
   const created = await admin.request("/api/admin/bench-tokens", { json: { name: "Validation bench" } });
   benchToken = ((await created.json()) as { token: string }).token;
 });
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 async function counts() {
+  const { MeasurementSet, StoredFile } = db();
   return { sets: await MeasurementSet.count(), files: await StoredFile.count() };
 }
 

@@ -1,12 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { closeSequelize } from "@/models";
+import { closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { makeOrganization } from "./helpers/factories";
 import { baseUrl } from "./helpers/loopback";
 import { firstLink, waitForMail } from "./helpers/mailbox";
 import { nonLoopbackBaseUrl, rawRequest } from "./helpers/network";
 
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 // The caught mail holds password-reset links: whoever reads it can take the account.
 // It is served only to a request made on this machine, judged by the socket's address.

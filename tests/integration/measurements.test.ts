@@ -2,7 +2,7 @@ import { createHash } from "node:crypto";
 import { readFileSync, readdirSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { MeasurementSet, StoredFile, User, closeSequelize } from "@/models";
+import { db, closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
 import { fixtureUpload, fixturesDir } from "./helpers/uploads";
@@ -30,13 +30,15 @@ beforeAll(async () => {
     expect((await as[key].signIn(email, factoryPassword)).ok).toBe(true);
   }
 });
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 async function counts() {
+  const { MeasurementSet, StoredFile } = db();
   return { sets: await MeasurementSet.count(), files: await StoredFile.count() };
 }
 
 describe("upload", () => {
+  const { StoredFile } = db();
   it("stores a good file raw with its SHA-256, parsed, with derived parameters, as submitted", async () => {
     const r = await as.engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload("examples/drive-sweep-doubler.csv") });
     const body = (await r.json()) as { measurementSet: { id: number; state: string; sha256: string; kind: string; parameters: { name: string }[]; conditions: { serial: string } } };
@@ -85,6 +87,7 @@ describe("upload", () => {
 });
 
 describe("who may read, upload and approve", () => {
+  const { MeasurementSet, User } = db();
   it("refuses customers, signed-out visitors and other organizations, returning no data", async () => {
     const signedOut = new TestClient();
     expect((await signedOut.request(`/api/devices/${deviceId}/measurements`)).status).toBe(401);
@@ -261,7 +264,7 @@ describe("editing a device", () => {
     const r = await as.engineer.request(`/api/devices/${device.id}`, { method: "PATCH", json: body });
     expect(r.status).toBe(200);
     expect(((await r.json()) as { device: { title: string; keyConditions: { driveLevelDbm: number } } }).device).toMatchObject({ title: "Edited doubler", keyConditions: { driveLevelDbm: 13 } });
-    const { AuditEvent } = await import("@/models");
+    const { AuditEvent } = (await import("@/models")).db();
     const event = await AuditEvent.findOne({ where: { action: "device.update", subjectId: String(device.id) } });
     expect((event!.before as { title: string }).title).toBe("Factory doubler");
   });

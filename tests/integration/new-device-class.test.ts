@@ -5,7 +5,7 @@ import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { QueryTypes } from "sequelize";
 import type { SheetModel } from "@/lib/sheet";
-import { closeSequelize, getSequelize } from "@/models";
+import { db, closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { factoryPassword, makeOrganization } from "./helpers/factories";
 import { fixtureUpload } from "./helpers/uploads";
@@ -28,7 +28,7 @@ beforeAll(async () => {
   expect((await engineer.signIn(org.users.engineer.email, factoryPassword)).ok).toBe(true);
   expect((await reviewer.signIn(org.users.reviewer.email, factoryPassword)).ok).toBe(true);
 });
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 async function sheetOf(id: number): Promise<SheetModel> {
   const r = await engineer.request(`/api/devices/${id}/sheet`);
@@ -37,8 +37,9 @@ async function sheetOf(id: number): Promise<SheetModel> {
 }
 
 describe("a device class added by the recipe", () => {
+  const { sequelize } = db();
   it("is stored as text, so the class needed no migration", async () => {
-    const [column] = await getSequelize().query<{ DATA_TYPE: string }>(
+    const [column] = await sequelize.query<{ DATA_TYPE: string }>(
       "SELECT DATA_TYPE FROM information_schema.COLUMNS WHERE TABLE_SCHEMA = DATABASE() AND TABLE_NAME = 'devices' AND COLUMN_NAME = 'device_class'",
       { type: QueryTypes.SELECT },
     );

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { MeasurementSet, closeSequelize, getSequelize } from "@/models";
+import { db, closeDb } from "@/models";
 import type { UserRole } from "@/models/user";
 import { isPublic, pageResources, type PageRoute, type Resource } from "@/lib/access/matrix";
 import { verdictFor } from "./helpers/access";
@@ -19,7 +19,6 @@ let otherDeviceId: number;
 let clients: Map<Who, TestClient>;
 
 beforeAll(async () => {
-  getSequelize();
   org = await makeOrganization();
   other = await makeOrganization();
   const ownDevice = await makeDevice(org.organization.id);
@@ -32,7 +31,7 @@ beforeAll(async () => {
   expect(upload.status).toBe(201);
   ownSetId = ((await upload.json()) as { measurementSet: { id: number } }).measurementSet.id;
 });
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 function get(who: Who, path: string): Promise<Response> {
   return clients.get(who)!.request(path, { headers: { accept: "text/html" } });
@@ -134,6 +133,7 @@ describe("every page answers with the status its row in the access matrix means"
 });
 
 describe("a record that is missing or belongs to another organization answers 404", () => {
+  const { MeasurementSet } = db();
   const cases: { name: string; who: UserRole; path: () => string }[] = [
     { name: "another organization's device", who: "engineer", path: () => `/devices/${otherDeviceId}` },
     { name: "another organization's device, to a reviewer", who: "reviewer", path: () => `/devices/${otherDeviceId}` },

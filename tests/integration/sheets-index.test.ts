@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Device, closeSequelize } from "@/models";
+import { db, closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
 import { fixtureUpload } from "./helpers/uploads";
@@ -25,6 +25,7 @@ async function putLimits(deviceId: number, parameters: string[]): Promise<void> 
 }
 
 beforeAll(async () => {
+  const { Device } = db();
   const made = await makeOrganization();
   const other = await makeOrganization();
   foreignPart = (await makeDevice(other.organization.id, "SHX-9999")).partNumber;
@@ -54,7 +55,7 @@ beforeAll(async () => {
   // SHX-17 changes last of all.
   await putLimits(ids["SHX-17"], ["conversion-loss"]);
 });
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 type Row = { part: string; cells: Record<string, string> };
 

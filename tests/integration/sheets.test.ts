@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { Device, Organization, SheetContent, SpecLimit, User, closeSequelize, getSequelize } from "@/models";
+import { db, closeDb } from "@/models";
 import { demoPassword } from "@/models/seeders/demo-scenario";
 import type { SheetModel } from "@/lib/sheet";
 import { TestClient } from "./helpers/client";
@@ -11,7 +11,7 @@ let outsider: TestClient;
 let deviceId: number;
 
 beforeAll(async () => {
-  getSequelize();
+  const { Device, Organization, User } = db();
   const kestrine = await Organization.findOne({ where: { slug: "kestrine" } });
   deviceId = (await Device.findOne({ where: { organizationId: kestrine!.id, partNumber: "KDX-2G4" } }))!.id;
   const users = await User.findAll({ where: { organizationId: kestrine!.id } });
@@ -23,7 +23,7 @@ beforeAll(async () => {
   outsider = new TestClient();
   expect((await outsider.signIn(other.users.engineer.email, factoryPassword)).ok).toBe(true);
 });
-afterAll(() => closeSequelize());
+afterAll(() => closeDb());
 
 async function sheet(client: TestClient): Promise<SheetModel> {
   const r = await client.request(`/api/devices/${deviceId}/sheet`);
@@ -32,6 +32,7 @@ async function sheet(client: TestClient): Promise<SheetModel> {
 }
 
 describe("the demo devices' sheets, as the server builds them", () => {
+  const { Device, Organization, User } = db();
   it("equal the reviewed snapshots of the unit tests (same parse, derivation and statistics through the database)", async () => {
     const { readFileSync } = await import("node:fs");
     const path = await import("node:path");
@@ -59,6 +60,7 @@ describe("the demo devices' sheets, as the server builds them", () => {
 });
 
 describe("the draft sheet of a demo device", () => {
+  const { SheetContent } = db();
   it("is built from the approved demo sets, marked preliminary", async () => {
     const model = await sheet(engineer);
     expect(model.header).toMatchObject({ partNumber: "KDX-2G4", released: false, state: "draft" });
@@ -157,6 +159,7 @@ describe("the draft PDF", () => {
 
 /** The device's limits as the PUT body takes them, read from the database, to put back after a test. */
 async function currentLimits() {
+  const { SpecLimit } = db();
   const rows = await SpecLimit.findAll({ where: { deviceId }, order: [["id", "ASC"]] });
   return rows.map((l) => ({
     parameter: l.parameter,

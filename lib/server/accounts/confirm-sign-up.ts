@@ -2,7 +2,7 @@ import "server-only";
 import { randomBytes } from "node:crypto";
 import { Op, UniqueConstraintError } from "sequelize";
 import { AppError } from "@/lib/errors";
-import { Organization, SignUpRequest, User, getSequelize } from "@/models";
+import { db } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { hashToken } from "../crypto";
 
@@ -15,8 +15,9 @@ const alreadyThere = () =>
  * the holder of the link, who reads the address's mail, learns whether the address was taken.
  */
 export async function confirmSignUp(token: string): Promise<{ email: string }> {
+  const { Organization, SignUpRequest, User, sequelize } = db();
   try {
-    return await getSequelize().transaction(async (transaction) => {
+    return await sequelize.transaction(async (transaction) => {
       const request = await SignUpRequest.findOne({
         where: { tokenHash: hashToken(token), usedAt: null, expiresAt: { [Op.gt]: new Date() } },
         lock: transaction.LOCK.UPDATE,

@@ -1,5 +1,5 @@
 import "server-only";
-import { PasswordReset, User, getSequelize } from "@/models";
+import { db } from "@/models";
 import { serverConfig } from "../config";
 import { createOneTimeToken } from "../crypto";
 import { passwordResetMail, passwordResetNoAccountMail } from "../mail/messages";
@@ -13,7 +13,7 @@ export const passwordResetLifetimeMs = 60 * 60 * 1000;
  * paths send one mail, so neither the answer nor its timing tells whether the account exists.
  */
 export async function requestPasswordReset(email: string): Promise<void> {
-  getSequelize();
+  const { PasswordReset, User } = db();
   const user = await User.findOne({ where: { email } });
   if (!user || user.disabledAt) {
     await sendMail(passwordResetNoAccountMail({ to: email, signUpLink: `${serverConfig.appUrl}/sign-up` }));

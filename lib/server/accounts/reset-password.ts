@@ -2,15 +2,16 @@ import "server-only";
 import { Op } from "sequelize";
 import { AppError } from "@/lib/errors";
 import type { ResetPasswordBody } from "@/lib/schemas/accounts";
-import { PasswordReset, User, getSequelize } from "@/models";
+import { db } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { hashToken } from "../crypto";
 import { hashPassword } from "./hash-password";
 
 /** Sets the new password, spends the token and ends every existing session of the user. */
 export async function resetPassword(input: ResetPasswordBody): Promise<void> {
+  const { PasswordReset, User, sequelize } = db();
   const passwordHash = await hashPassword(input.password);
-  await getSequelize().transaction(async (transaction) => {
+  await sequelize.transaction(async (transaction) => {
     const reset = await PasswordReset.findOne({
       where: { tokenHash: hashToken(input.token), usedAt: null, expiresAt: { [Op.gt]: new Date() } },
       lock: transaction.LOCK.UPDATE,

@@ -1,6 +1,6 @@
 import "server-only";
 import type { SignUpBody } from "@/lib/schemas/accounts";
-import { SignUpRequest, User, getSequelize } from "@/models";
+import { db } from "@/models";
 import { serverConfig } from "../config";
 import { createOneTimeToken } from "../crypto";
 import { signUpConfirmationMail, signUpExistingAccountMail } from "../mail/messages";
@@ -16,7 +16,7 @@ export const signUpLifetimeMs = 24 * 60 * 60 * 1000;
  * paths hash the password and send one mail, so they also take about as long.
  */
 export async function signUpCustomer(input: SignUpBody): Promise<void> {
-  getSequelize();
+  const { SignUpRequest, User } = db();
   const passwordHash = await hashPassword(input.password);
   const existing = await User.findOne({ where: { email: input.email }, attributes: ["id"] });
   if (existing) {

@@ -1,6 +1,6 @@
 import "server-only";
 import type { Transaction } from "sequelize";
-import { AuditEvent } from "@/models";
+import { db } from "@/models";
 
 export type AuditInput = {
   organizationId: number | null;
@@ -14,6 +14,7 @@ export type AuditInput = {
 
 /** Appends one event to the audit trail, inside the caller's transaction when given. */
 export async function recordAuditEvent(input: AuditInput, transaction?: Transaction): Promise<void> {
+  const { AuditEvent } = db();
   await AuditEvent.create(
     {
       organizationId: input.organizationId,

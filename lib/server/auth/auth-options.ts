@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import bcrypt from "bcryptjs";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
-import { User, getSequelize } from "@/models";
+import { db } from "@/models";
 import { passwordHashCost } from "../accounts/hash-password";
 import { serverConfig } from "../config";
 import { isRole } from "@/lib/domain/permissions";
@@ -30,7 +30,7 @@ export const authOptions: NextAuthOptions = {
       name: "E-mail and password",
       credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
       async authorize(credentials, req) {
-        getSequelize();
+        const { User } = db();
         const email = String(credentials?.email ?? "").trim().toLowerCase();
         const password = String(credentials?.password ?? "");
         if (!email || !password) throw new Error(signInErrors.invalid);

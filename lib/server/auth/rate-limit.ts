@@ -1,11 +1,12 @@
 import "server-only";
 import { Op } from "sequelize";
-import { SignInAttempt } from "@/models";
+import { db } from "@/models";
 import { serverConfig } from "../config";
 import { readRequestNetwork } from "./request-network";
 
 /** True when recent failures for this account or this address have reached the limit. */
 export async function isSignInThrottled(email: string, ipAddress: string): Promise<boolean> {
+  const { SignInAttempt } = db();
   const since = new Date(Date.now() - serverConfig.signInLimit.windowMs);
   const [byAccount, byAddress] = await Promise.all([
     SignInAttempt.count({ where: { email, succeeded: false, createdAt: { [Op.gte]: since } } }),
@@ -15,6 +16,7 @@ export async function isSignInThrottled(email: string, ipAddress: string): Promi
 }
 
 export async function recordSignInAttempt(email: string, ipAddress: string, succeeded: boolean): Promise<void> {
+  const { SignInAttempt } = db();
   await SignInAttempt.create({ email, ipAddress, succeeded });
 }
 

@@ -1,6 +1,6 @@
 import "server-only";
 import { Op } from "sequelize";
-import { RevokedSession, getSequelize } from "@/models";
+import { db } from "@/models";
 import { serverConfig } from "../config";
 
 /**
@@ -9,13 +9,13 @@ import { serverConfig } from "../config";
  * until the session would have expired anyway; expired rows are pruned here.
  */
 export async function revokeSession(session: { sessionId: string; userId: number; startedAt: number }): Promise<void> {
-  getSequelize();
+  const { RevokedSession } = db();
   const expiresAt = new Date((session.startedAt + serverConfig.sessionMaxAgeSeconds) * 1000);
   await RevokedSession.bulkCreate([{ sessionId: session.sessionId, userId: session.userId, expiresAt }], { ignoreDuplicates: true });
   await RevokedSession.destroy({ where: { expiresAt: { [Op.lt]: new Date() } } });
 }
 
 export async function isSessionRevoked(sessionId: string): Promise<boolean> {
-  getSequelize();
+  const { RevokedSession } = db();
   return (await RevokedSession.count({ where: { sessionId } })) > 0;
 }

@@ -1,7 +1,8 @@
 import "server-only";
 import { cache } from "react";
 import { getServerSession } from "next-auth";
-import { Organization, User, getSequelize } from "@/models";
+import { db } from "@/models";
+import type { User, Organization } from "@/models";
 import { serverConfig } from "../config";
 import { authOptions } from "./auth-options";
 import { isSessionRevoked } from "./revoke-session";
@@ -20,11 +21,11 @@ export type CurrentSession = { user: SessionUser; sessionId: string; startedAt: 
  * is refused, since it could never be ended.
  */
 export const getCurrentSession = cache(async (): Promise<CurrentSession | null> => {
+  const { Organization, User } = db();
   const session = await getServerSession(authOptions);
   const claims = session?.user;
   if (!claims?.id || !claims.sessionId || !claims.sessionStartedAt) return null;
   if (claims.sessionStartedAt + serverConfig.sessionMaxAgeSeconds <= Date.now() / 1000) return null;
-  getSequelize();
   const [user, revoked] = await Promise.all([User.findByPk(claims.id, { include: [Organization] }), isSessionRevoked(claims.sessionId)]);
   if (revoked || !user || user.disabledAt || user.tokenVersion !== claims.tokenVersion) return null;
   const organization = (user as User & { Organization?: Organization }).Organization;

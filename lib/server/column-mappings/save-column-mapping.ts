@@ -3,7 +3,7 @@ import { createHash } from "node:crypto";
 import { AppError } from "@/lib/errors";
 import { findMappingProblems, headerKey } from "@/lib/ingest/column-mapping";
 import type { ColumnMappingBody } from "@/lib/schemas/measurements";
-import { ColumnMapping, getSequelize } from "@/models";
+import { db } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
@@ -14,12 +14,13 @@ export function headerSignature(headers: string[]): string {
 
 /** Saves (or replaces) the organization's mapping for files with exactly these headers. */
 export async function saveColumnMapping(opts: { actor: SessionUser; input: ColumnMappingBody }): Promise<{ id: number; name: string; kind: string }> {
+  const { ColumnMapping, sequelize } = db();
   const { actor, input } = opts;
   authorize(actor, "measurement-upload");
   const problems = findMappingProblems(input.kind, input.headers, input.mapping);
   if (problems.length) throw new AppError("invalid", `The mapping does not fit: ${problems.join("; ")}.`, { field: "mapping", problems });
   const signature = headerSignature(input.headers);
-  return getSequelize().transaction(async (transaction) => {
+  return sequelize.transaction(async (transaction) => {
     const existing = await ColumnMapping.findOne({ where: { organizationId: actor.organizationId, headerSignature: signature }, lock: transaction.LOCK.UPDATE, transaction });
     const stored = { entries: input.mapping, metadata: input.metadata };
     const row = existing

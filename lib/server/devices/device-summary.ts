@@ -1,5 +1,5 @@
 import "server-only";
-import { Device } from "@/models";
+import type { Device } from "@/models";
 import type { DeviceSummary } from "@/lib/domain/devices";
 
 export type { DeviceSummary };

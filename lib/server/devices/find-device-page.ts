@@ -2,7 +2,8 @@ import "server-only";
 import { Op, Sequelize, type FindAttributeOptions, type Order, type WhereOptions } from "sequelize";
 import { deviceClassLabels } from "@/lib/domain/device-classes";
 import { devicesPerPage, type DeviceListQuery, type DevicePage, type ListPage } from "@/lib/domain/devices";
-import { Device, getSequelize } from "@/models";
+import { db } from "@/models";
+import type { Device } from "@/models";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { toDeviceSummary } from "./device-summary";
@@ -26,8 +27,8 @@ export async function pageDevices<Row>(opts: {
   attributes?: FindAttributeOptions;
   updatedOrder?: ReturnType<typeof Sequelize.literal>;
 }): Promise<ListPage<Row>> {
+  const { Device } = db();
   const { organizationId, query } = opts;
-  getSequelize();
   const where: WhereOptions<Device> = query.q
     ? { organizationId, [Op.or]: [{ partNumber: { [Op.like]: likePattern(query.q) } }, { title: { [Op.like]: likePattern(query.q) } }] }
     : { organizationId };

@@ -2,7 +2,8 @@ import "server-only";
 import { UniqueConstraintError } from "sequelize";
 import { AppError } from "@/lib/errors";
 import type { DeviceBody } from "@/lib/schemas/measurements";
-import { Device, getSequelize } from "@/models";
+import { db } from "@/models";
+import type { Device } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
@@ -10,10 +11,11 @@ import { toDeviceSummary, type DeviceSummary } from "./device-summary";
 
 /** Creates a device, or edits one of the engineer's organization when `deviceId` is given. */
 export async function saveDevice(opts: { actor: SessionUser; input: DeviceBody; deviceId?: number }): Promise<DeviceSummary> {
+  const { Device, sequelize } = db();
   const { actor, input, deviceId } = opts;
   authorize(actor, "device-edit");
   try {
-    return await getSequelize().transaction(async (transaction) => {
+    return await sequelize.transaction(async (transaction) => {
       let row: Device | null;
       let before: unknown = null;
       if (deviceId) {

@@ -2,7 +2,8 @@ import "server-only";
 import { UniqueConstraintError } from "sequelize";
 import { AppError } from "@/lib/errors";
 import type { InstrumentBody } from "@/lib/schemas/measurements";
-import { Instrument, getSequelize } from "@/models";
+import { db } from "@/models";
+import type { Instrument } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
@@ -10,10 +11,11 @@ import { toInstrumentSummary, type InstrumentSummary } from "./instrument-summar
 
 /** Creates an instrument, or updates one of the admin's organization when `instrumentId` is given. */
 export async function saveInstrument(opts: { actor: SessionUser; input: InstrumentBody; instrumentId?: number }): Promise<InstrumentSummary> {
+  const { Instrument, sequelize } = db();
   const { actor, input, instrumentId } = opts;
   authorize(actor, "instrument-admin");
   try {
-    return await getSequelize().transaction(async (transaction) => {
+    return await sequelize.transaction(async (transaction) => {
       let row: Instrument | null = null;
       let before: unknown = null;
       if (instrumentId) {

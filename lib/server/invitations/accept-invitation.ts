@@ -1,14 +1,15 @@
 import "server-only";
 import { AppError } from "@/lib/errors";
 import type { AcceptInvitationBody } from "@/lib/schemas/accounts";
-import { User, getSequelize } from "@/models";
+import { db } from "@/models";
 import { hashPassword } from "../accounts/hash-password";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { findOpenInvitation } from "./find-open-invitation";
 
 export async function acceptInvitation(input: AcceptInvitationBody): Promise<{ userId: number; email: string }> {
+  const { User, sequelize } = db();
   const passwordHash = await hashPassword(input.password);
-  return getSequelize().transaction(async (transaction) => {
+  return sequelize.transaction(async (transaction) => {
     const { invitation } = await findOpenInvitation(input.token, transaction);
     if (await User.findOne({ where: { email: invitation.email }, transaction })) {
       throw new AppError("conflict", `${invitation.email} already has a Benchfold account.`);

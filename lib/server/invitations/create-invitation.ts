@@ -2,7 +2,7 @@ import "server-only";
 import { Op } from "sequelize";
 import { AppError } from "@/lib/errors";
 import type { InviteUserBody } from "@/lib/schemas/accounts";
-import { Invitation, User, getSequelize } from "@/models";
+import { db } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
@@ -20,12 +20,12 @@ export const invitationLifetimeMs = 7 * 24 * 60 * 60 * 1000;
  * explains that an address holds one account and carries no link.
  */
 export async function createInvitation(opts: { actor: SessionUser; input: InviteUserBody }): Promise<{ id: number; email: string; role: string; expiresAt: string }> {
+  const { Invitation, User, sequelize } = db();
   const { actor, input } = opts;
   authorize(actor, "people");
   if (input.role === "customer") {
     throw new AppError("invalid", "Customers sign up themselves; invite admins, engineers or reviewers.", { field: "role" });
   }
-  const sequelize = getSequelize();
   return sequelize.transaction(async (transaction) => {
     // Someone of this organization is on the admin's people list anyway; an account elsewhere is
     // not the admin's to learn of: it is invited like a new address and only its owner is told.

@@ -1,12 +1,13 @@
 import "server-only";
 import { Op, type Transaction } from "sequelize";
 import { AppError } from "@/lib/errors";
-import { Invitation, Organization, getSequelize } from "@/models";
+import { db } from "@/models";
+import type { Invitation, Organization } from "@/models";
 import { hashToken } from "../crypto";
 
 /** The unused, unexpired invitation behind a token, or a 404 that does not say which of the three it was. */
 export async function findOpenInvitation(token: string, transaction?: Transaction) {
-  getSequelize();
+  const { Invitation, Organization } = db();
   const invitation = await Invitation.findOne({
     where: { tokenHash: hashToken(token), acceptedAt: null, expiresAt: { [Op.gt]: new Date() } },
     include: [Organization],

@@ -1,11 +1,12 @@
 import "server-only";
 import { Op } from "sequelize";
-import { Invitation, User, getSequelize } from "@/models";
+import { db } from "@/models";
+import type { Invitation, User } from "@/models";
 
 export type PendingInvitation = { id: number; email: string; role: string; expiresAt: string; invitedBy: string };
 
 export async function listPendingInvitations(organizationId: number): Promise<PendingInvitation[]> {
-  getSequelize();
+  const { Invitation, User } = db();
   const rows = await Invitation.findAll({
     where: { organizationId, acceptedAt: null, expiresAt: { [Op.gt]: new Date() } },
     include: [{ model: User, as: "invitedBy", attributes: ["name"] }],

@@ -1,6 +1,6 @@
 import "server-only";
 import { AppError } from "@/lib/errors";
-import { MeasurementSet, getSequelize } from "@/models";
+import { db } from "@/models";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { loadMeasurementSets } from "./load-measurement-sets";
@@ -12,8 +12,8 @@ import type { MeasurementSetDetail } from "@/lib/domain/measurements";
  * address names it).
  */
 export async function getMeasurementSet(opts: { viewer: SessionUser; setId: number; deviceId?: number }): Promise<MeasurementSetDetail> {
+  const { MeasurementSet } = db();
   const { organizationId } = authorize(opts.viewer, "devices");
-  getSequelize();
   const [summary] = await loadMeasurementSets({ id: opts.setId, organizationId, ...(opts.deviceId === undefined ? {} : { deviceId: opts.deviceId }) });
   if (!summary) throw new AppError("not-found", "No such measurement set in your organization.");
   const row = await MeasurementSet.unscoped().findOne({ where: { id: opts.setId, organizationId }, attributes: ["curves"] });

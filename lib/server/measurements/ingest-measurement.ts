@@ -7,7 +7,8 @@ import { isIngestError, parseMeasurementFile, type ParsedMeasurement } from "@/l
 import { mappingTargets, parseMappedFile, readForeignTable, type MappableKind } from "@/lib/ingest/column-mapping";
 import { mergeUploadConditions, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
 import type { UploadFields } from "@/lib/schemas/measurements";
-import { ColumnMapping, Device, Instrument, MeasurementSet, MeasurementSetInstrument, StoredFile, getSequelize } from "@/models";
+import { db } from "@/models";
+import type { ColumnMapping, MeasurementSet, StoredFile } from "@/models";
 import { headerSignature } from "../column-mappings/save-column-mapping";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { loadMeasurementSets } from "./load-measurement-sets";
@@ -70,6 +71,7 @@ async function parseWithMapping(opts: { organizationId: number; file: UploadedFi
  * so the upload form can open the mapping step. Errors name file, line, column and field.
  */
 export async function parseUpload(opts: { organizationId: number; file: UploadedFile; fields: UploadFields }): Promise<ParsedMeasurement> {
+  const { ColumnMapping } = db();
   const { organizationId, file, fields } = opts;
   if (fields.mappingId) {
     const mapping = await ColumnMapping.findOne({ where: { id: fields.mappingId, organizationId } });
@@ -99,8 +101,8 @@ export async function parseUpload(opts: { organizationId: number; file: Uploaded
  * Shared by the browser upload and the bench API.
  */
 export async function ingestMeasurement(input: IngestInput): Promise<MeasurementSetSummary> {
+  const { Device, Instrument, MeasurementSet, MeasurementSetInstrument, StoredFile, sequelize } = db();
   const { organizationId, deviceId, file, fields, actor } = input;
-  const sequelize = getSequelize();
   const device = await Device.findOne({ where: { id: deviceId, organizationId } });
   if (!device) throw new AppError("not-found", "No such device in your organization.");
 

@@ -1,11 +1,12 @@
 import "server-only";
 import type { WhereOptions } from "sequelize";
-import { BenchToken, Device, Instrument, MeasurementSet, StoredFile, User, getSequelize } from "@/models";
+import { db } from "@/models";
+import type { MeasurementSet } from "@/models";
 import { toMeasurementSetSummary, type MeasurementSetSummary } from "./measurement-set-summary";
 
 /** The one query behind every list and detail of measurement sets; the caller's `where` carries the organization. */
 export async function loadMeasurementSets(where: WhereOptions<MeasurementSet>): Promise<MeasurementSetSummary[]> {
-  getSequelize();
+  const { BenchToken, Device, Instrument, MeasurementSet, StoredFile, User } = db();
   const rows = await MeasurementSet.findAll({
     where,
     include: [

@@ -1,7 +1,7 @@
 import "server-only";
 import { AppError } from "@/lib/errors";
 import type { ReviewMeasurementBody } from "@/lib/schemas/measurements";
-import { MeasurementSet, getSequelize } from "@/models";
+import { db } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
@@ -13,9 +13,10 @@ import type { MeasurementSetSummary } from "./measurement-set-summary";
  * Organization, state and uploader are checked on the locked row inside the transaction.
  */
 export async function reviewMeasurementSet(opts: { reviewer: SessionUser; setId: number; body: ReviewMeasurementBody }): Promise<MeasurementSetSummary> {
+  const { MeasurementSet, sequelize } = db();
   const { reviewer, setId, body } = opts;
   authorize(reviewer, "measurement-review");
-  await getSequelize().transaction(async (transaction) => {
+  await sequelize.transaction(async (transaction) => {
     const set = await MeasurementSet.findOne({
       where: { id: setId, organizationId: reviewer.organizationId },
       lock: transaction.LOCK.UPDATE,

@@ -3,7 +3,8 @@ import { Op } from "sequelize";
 import { AppError } from "@/lib/errors";
 import type { SheetInput } from "@/lib/sheet";
 import type { Curve } from "@/lib/analysis";
-import { Device, Instrument, MeasurementSet, Organization, SheetContent, SpecLimit, getSequelize } from "@/models";
+import { db } from "@/models";
+import type { MeasurementSet, Instrument, Device, Organization } from "@/models";
 
 type SetWithInstruments = MeasurementSet & { Instruments?: Instrument[] };
 
@@ -13,7 +14,7 @@ type SetWithInstruments = MeasurementSet & { Instruments?: Instrument[] };
  * limits, the engineer's prose and ratings, and the organization's statistical settings.
  */
 export async function loadSheetInput(opts: { organizationId: number; deviceId: number; date: string }): Promise<SheetInput> {
-  getSequelize();
+  const { Device, Instrument, MeasurementSet, Organization, SheetContent, SpecLimit } = db();
   const device = await Device.findOne({ where: { id: opts.deviceId, organizationId: opts.organizationId }, include: [Organization] });
   if (!device) throw new AppError("not-found", "No such device in your organization.");
   const organization = (device as Device & { Organization?: Organization }).Organization!;

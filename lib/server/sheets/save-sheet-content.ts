@@ -1,15 +1,16 @@
 import "server-only";
 import { AppError } from "@/lib/errors";
 import type { SheetContentBody } from "@/lib/schemas/sheets";
-import { Device, SheetContent, getSequelize } from "@/models";
+import { db } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 
 export async function saveSheetContent(opts: { actor: SessionUser; deviceId: number; input: SheetContentBody }): Promise<void> {
+  const { Device, SheetContent, sequelize } = db();
   const { actor, deviceId, input } = opts;
   authorize(actor, "sheet-edit");
-  await getSequelize().transaction(async (transaction) => {
+  await sequelize.transaction(async (transaction) => {
     const device = await Device.findOne({ where: { id: deviceId, organizationId: actor.organizationId }, lock: transaction.LOCK.UPDATE, transaction });
     if (!device) throw new AppError("not-found", "No such device in your organization.");
     const existing = await SheetContent.findOne({ where: { deviceId }, transaction });

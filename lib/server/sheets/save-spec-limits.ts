@@ -1,13 +1,14 @@
 import "server-only";
 import { AppError } from "@/lib/errors";
 import type { SpecLimitsBody } from "@/lib/schemas/sheets";
-import { Device, SpecLimit, getSequelize } from "@/models";
+import { db } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 
 /** Replaces the device's spec limits as one change, with the old and new set in the audit trail. */
 export async function saveSpecLimits(opts: { actor: SessionUser; deviceId: number; input: SpecLimitsBody }): Promise<number> {
+  const { Device, SpecLimit, sequelize } = db();
   const { actor, deviceId, input } = opts;
   authorize(actor, "sheet-edit");
   const seen = new Set<string>();
@@ -16,7 +17,7 @@ export async function saveSpecLimits(opts: { actor: SessionUser; deviceId: numbe
     if (seen.has(key)) throw new AppError("invalid", `Two limits for ${l.parameter} under the same conditions (${l.conditionsKey || "none"}).`, { field: "limits" });
     seen.add(key);
   }
-  return getSequelize().transaction(async (transaction) => {
+  return sequelize.transaction(async (transaction) => {
     const device = await Device.findOne({ where: { id: deviceId, organizationId: actor.organizationId }, lock: transaction.LOCK.UPDATE, transaction });
     if (!device) throw new AppError("not-found", "No such device in your organization.");
     const before = await SpecLimit.findAll({ where: { deviceId }, transaction });

@@ -1,10 +1,11 @@
 import "server-only";
-import { User, getSequelize } from "@/models";
+import { db } from "@/models";
+import type { User } from "@/models";
 
 export type UserSummary = { id: number; name: string; email: string; role: User["role"]; disabled: boolean; lastSignInAt: string | null };
 
 export async function listOrganizationUsers(organizationId: number): Promise<UserSummary[]> {
-  getSequelize();
+  const { User } = db();
   const users = await User.findAll({ where: { organizationId }, order: [["name", "ASC"]] });
   return users.map((u) => ({
     id: u.id,

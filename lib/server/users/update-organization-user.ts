@@ -2,7 +2,7 @@ import "server-only";
 import { Op } from "sequelize";
 import { AppError } from "@/lib/errors";
 import type { UpdateUserBody } from "@/lib/schemas/accounts";
-import { User, getSequelize } from "@/models";
+import { db } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
@@ -13,9 +13,9 @@ import type { UserSummary } from "./list-organization-users";
  * token version, so every session of that user ends on its next request.
  */
 export async function updateOrganizationUser(opts: { actor: SessionUser; userId: number; changes: UpdateUserBody }): Promise<UserSummary> {
+  const { User, sequelize } = db();
   const { actor, userId, changes } = opts;
   authorize(actor, "people");
-  const sequelize = getSequelize();
   return sequelize.transaction(async (transaction) => {
     const user = await User.findOne({
       where: { id: userId, organizationId: actor.organizationId },

@@ -1,6 +1,7 @@
 import bcrypt from "bcryptjs";
 import { randomBytes } from "node:crypto";
-import { Device, Organization, User, getSequelize } from "@/models";
+import { db } from "@/models";
+import type { Organization, User, Device } from "@/models";
 import type { UserRole } from "@/models/user";
 import { TestClient } from "./client";
 import { assertLoopbackDatabase } from "./loopback";
@@ -16,8 +17,8 @@ type Made = { organization: Organization; users: Record<UserRole, User> };
 
 /** An organization of its own with one user per role (random e-mails), for one test file. */
 export async function makeOrganization(kind: "vendor" | "lab" = "vendor"): Promise<Made> {
+  const { Organization, User } = db();
   assertLoopbackDatabase();
-  getSequelize();
   const tag = randomBytes(4).toString("hex");
   const organization = await Organization.create({ slug: `factory-${tag}`, name: `Factory Org ${tag}`, kind });
   const users = {} as Record<UserRole, User>;
@@ -28,6 +29,7 @@ export async function makeOrganization(kind: "vendor" | "lab" = "vendor"): Promi
 }
 
 export async function makeDevice(organizationId: number, partNumber = `FX-${randomBytes(3).toString("hex")}`): Promise<Device> {
+  const { Device } = db();
   return Device.create({
     organizationId,
     createdById: null,

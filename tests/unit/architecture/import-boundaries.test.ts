@@ -83,3 +83,29 @@ describe("frozen migrations", () => {
     expect(moduleSpecifiers(readFileSync(path.join(root, file), "utf8")).filter((s) => s !== "sequelize")).toEqual([]);
   });
 });
+
+describe("models are reached through db() only", () => {
+  // models/index.ts exports the model classes as types alone (a value import of one fails the type
+  // check); this covers the other way round it: a value import straight from a model's own file.
+  const valueImports = (source: string) =>
+    [...source.matchAll(/\bimport\s+(?!type\b)([^"';]*?)\s+from\s*["']([^"']+)["']/g)].map((m) => ({ what: m[1], from: m[2] }));
+
+  it("finds a value import from a model file, and lets a type import pass", () => {
+    const sample = 'import { Device } from "@/models/device";\nimport type { User } from "@/models/user";\nimport { db } from "@/models";';
+    expect(valueImports(sample).filter((i) => /models\/[a-z-]+$/.test(i.from)).map((i) => i.from)).toEqual(["@/models/device"]);
+  });
+
+  it("no file outside models/ imports a model class as a value", () => {
+    const offenders = ["lib", "app", "components", "scripts", "tests", "templates"].flatMap((dir) =>
+      sourceFiles(dir)
+        .filter((file) => file !== path.join("tests", "unit", "architecture", "import-boundaries.test.ts"))
+        .flatMap((file) =>
+        valueImports(readFileSync(path.join(root, file), "utf8"))
+          .map((i) => ({ ...i, target: resolveSpecifier(i.from, file).split(path.sep).join("/") }))
+          .filter((i) => /^models\/(?!index$|connection$|migrator$|seeders\/)[a-z-]+$/.test(i.target) && !/^\{\s*type\b/.test(i.what))
+          .map((i) => `${file}: ${i.what} from ${i.from}`),
+      ),
+    );
+    expect(offenders).toEqual([]);
+  });
+});
