@@ -42,7 +42,7 @@ function pdfText(bytes: Buffer): string {
   const file = path.join(mkdtempSync(path.join(tmpdir(), "benchfold-isolation-")), "sheet.pdf");
   writeFileSync(file, bytes);
   // poppler's pdftotext reads the PDF independently of the renderer that wrote it.
-  return execFileSync("pdftotext", ["-layout", file, "-"], { encoding: "utf8" }).replace(/\s+/g, " ");
+  return execFileSync("pdftotext", [file, "-"], { encoding: "utf8" }).replace(/\s+/g, " ");
 }
 
 async function expectPdf(client: TestClient, device: Device): Promise<string> {
