@@ -216,8 +216,16 @@ function spawnRenderWorker(resourceLimits: ResourceLimits): Worker {
 
 const POOL = Symbol.for("benchfold.pdf-render-pool");
 
-/** The server's one pool (shared by every bundled copy of this module). */
+/**
+ * The server's one pool, shared by every bundled copy of this module. In development a copy
+ * reloaded after an edit brings a rebuilt worker file, so its pool replaces the one before.
+ */
 export function sheetPdfRenderPool(): PdfRenderPool {
-  const holder = globalThis as { [POOL]?: PdfRenderPool };
-  return (holder[POOL] ??= new PdfRenderPool(spawnRenderWorker, pdfRenderLimitsFromEnv()));
+  const holder = globalThis as { [POOL]?: { pool: PdfRenderPool; spawn: SpawnRenderWorker } };
+  const held = holder[POOL];
+  if (held && (held.spawn === spawnRenderWorker || process.env.NODE_ENV === "production")) return held.pool;
+  void held?.pool.close();
+  const pool = new PdfRenderPool(spawnRenderWorker, pdfRenderLimitsFromEnv());
+  holder[POOL] = { pool, spawn: spawnRenderWorker };
+  return pool;
 }
