@@ -73,7 +73,14 @@ export class PdfRenderPool {
   }
 
   private start(): void {
-    const worker = this.spawn({ maxOldGenerationSizeMb: this.limits.heapMb });
+    let worker: Worker;
+    try {
+      worker = this.spawn({ maxOldGenerationSizeMb: this.limits.heapMb });
+    } catch (error) {
+      console.error("[benchfold] PDF render worker could not be started", error);
+      if (this.slots.size === 0) this.refuseWaiting();
+      return;
+    }
     // An idle pool must not keep a script or a test run alive; a server stays up for its own reasons.
     worker.unref();
     const slot: Slot = { worker, ready: false, job: null, timer: null, retired: false };
@@ -153,9 +160,11 @@ export class PdfRenderPool {
     // starting workers in a loop.
     const replace = slot.ready;
     void this.retire(slot, { replace });
-    if (!replace && this.slots.size === 0) {
-      for (const waiting of this.queue.splice(0)) waiting.reject(new AppError("internal", "The PDF renderer could not start; the web sheet is not affected.", { pdf: "no-renderer" }));
-    }
+    if (!replace && this.slots.size === 0) this.refuseWaiting();
+  }
+
+  private refuseWaiting(): void {
+    for (const waiting of this.queue.splice(0)) waiting.reject(new AppError("internal", "The PDF renderer could not start; the web sheet is not affected.", { pdf: "no-renderer" }));
   }
 
   private async retire(slot: Slot, opts: { replace: boolean }): Promise<void> {

@@ -137,6 +137,11 @@ describe("PdfRenderPool", () => {
     expect(refused.message).toMatch(/could not start/);
     expect(spawned).toBe(1);
     expect(pool.workerCount).toBe(0);
+    const unstartable = new PdfRenderPool(() => {
+      throw new Error("no worker file");
+    }, limits);
+    pools.push(unstartable);
+    expect((await refusal(unstartable.render(ask({ depth: 3 })))).message).toMatch(/could not start/);
   });
 });
 
