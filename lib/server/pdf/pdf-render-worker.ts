@@ -4,6 +4,7 @@
  * caches; the pool in pdf-render-pool.ts throws the whole worker away after a failed render, so
  * whatever state a failure leaves behind dies with it.
  */
+import os from "node:os";
 import { parentPort } from "node:worker_threads";
 import type { SheetModel } from "../../sheet/types";
 import type { RenderReply, RenderRequest } from "./pdf-render-protocol";
@@ -11,6 +12,14 @@ import { renderSheetPdf } from "./render-sheet-pdf";
 
 const port = parentPort;
 if (!port) throw new Error("pdf-render-worker runs as a worker thread only.");
+
+// Requests to the web server go first: on Linux a thread's nice value is its own, and pid 0 is
+// this thread, so only the renderer yields the processor.
+try {
+  os.setPriority(0, os.constants.priority.PRIORITY_BELOW_NORMAL);
+} catch {
+  // Without the right (or on a system without per-thread priority) it renders at normal priority.
+}
 
 port.on("message", async (request: RenderRequest) => {
   let reply: RenderReply;
