@@ -1,6 +1,12 @@
+import { proseLimits } from "@/lib/sheet/prose-limits";
 import type { ProseBlock, ProseInline } from "@/lib/sheet/types";
 
-function Inlines({ nodes }: { nodes: ProseInline[] }) {
+// The model's prose is within proseLimits when renderProse made it; a model from elsewhere (a
+// stored release, a hand-made one) still never makes these components recurse deeper than that.
+const TOO_DEEP = "[nested too deeply to show]";
+
+function Inlines({ nodes, depth }: { nodes: ProseInline[]; depth: number }) {
+  if (depth > proseLimits.maxNestingDepth) return TOO_DEEP;
   return (
     <>
       {nodes.map((node, i) => {
@@ -14,19 +20,19 @@ function Inlines({ nodes }: { nodes: ProseInline[] }) {
           case "strong":
             return (
               <strong key={i}>
-                <Inlines nodes={node.children} />
+                <Inlines nodes={node.children} depth={depth + 1} />
               </strong>
             );
           case "emphasis":
             return (
               <em key={i}>
-                <Inlines nodes={node.children} />
+                <Inlines nodes={node.children} depth={depth + 1} />
               </em>
             );
           case "link":
             return (
               <a key={i} href={node.href} rel="noopener noreferrer nofollow">
-                <Inlines nodes={node.children} />
+                <Inlines nodes={node.children} depth={depth + 1} />
               </a>
             );
         }
@@ -36,7 +42,8 @@ function Inlines({ nodes }: { nodes: ProseInline[] }) {
 }
 
 /** The sheet model's prose blocks as React elements: the same tree the PDF draws, no raw HTML. */
-export function SheetProse({ blocks }: { blocks: ProseBlock[] }) {
+export function SheetProse({ blocks, depth = 0 }: { blocks: ProseBlock[]; depth?: number }) {
+  if (depth > proseLimits.maxNestingDepth) return <p className="mb-2 text-ink-muted">{TOO_DEEP}</p>;
   return (
     <>
       {blocks.map((block, i) => {
@@ -44,13 +51,13 @@ export function SheetProse({ blocks }: { blocks: ProseBlock[] }) {
           case "paragraph":
             return (
               <p key={i} className="mb-2">
-                <Inlines nodes={block.children} />
+                <Inlines nodes={block.children} depth={depth} />
               </p>
             );
           case "heading":
             return (
               <h4 key={i} className="mt-3 mb-1 font-semibold">
-                <Inlines nodes={block.children} />
+                <Inlines nodes={block.children} depth={depth} />
               </h4>
             );
           case "code":
@@ -62,7 +69,7 @@ export function SheetProse({ blocks }: { blocks: ProseBlock[] }) {
           case "quote":
             return (
               <blockquote key={i} className="mb-2 border-l border-rule pl-3">
-                <SheetProse blocks={block.children} />
+                <SheetProse blocks={block.children} depth={depth + 1} />
               </blockquote>
             );
           case "list": {
@@ -71,7 +78,7 @@ export function SheetProse({ blocks }: { blocks: ProseBlock[] }) {
               <List key={i} className={`mb-2 pl-5 ${block.ordered ? "list-decimal" : "list-disc"}`}>
                 {block.items.map((item, j) => (
                   <li key={j} className="mb-1">
-                    <SheetProse blocks={item} />
+                    <SheetProse blocks={item} depth={depth + 1} />
                   </li>
                 ))}
               </List>

@@ -1,5 +1,6 @@
 import { z } from "zod";
-import { limitBases, proseSectionIds } from "@/lib/domain/sheets";
+import { limitBases, type ProseSectionId, proseSectionIds } from "@/lib/domain/sheets";
+import { findProseLimitBreach } from "@/lib/sheet/render-prose";
 import { minNotAboveMax } from "./decimal";
 
 const finite = z.number().refine(Number.isFinite, "must be a finite number");
@@ -26,8 +27,26 @@ export const specLimitsBodySchema = z.object({
 });
 export type SpecLimitsBody = z.infer<typeof specLimitsBodySchema>;
 
+/** Section names for messages, as the templates title them. */
+const proseSectionTitles: Record<ProseSectionId, string> = {
+  description: "Description",
+  features: "Key features",
+  applications: "Applications",
+  handling: "Handling and mounting",
+  "test-fixture": "Test fixture",
+};
+
+/** Each section within the prose limits (lib/sheet/prose-limits.ts), refused with the section and the limit named. */
+const proseSchema = z.partialRecord(z.enum(proseSectionIds), z.string()).superRefine((prose, ctx) => {
+  for (const id of proseSectionIds) {
+    const markdown = prose[id];
+    const breach = markdown === undefined ? null : findProseLimitBreach(markdown);
+    if (breach) ctx.addIssue({ code: "custom", path: [id], message: `The section “${proseSectionTitles[id]}” ${breach.reason}; ${breach.remedy}.`, params: { limit: breach.limit } });
+  }
+});
+
 export const sheetContentBodySchema = z.object({
-  prose: z.partialRecord(z.enum(proseSectionIds), z.string().max(20_000)).default({}),
+  prose: proseSchema.default({}),
   absoluteMaximumRatings: z
     .array(z.object({ label: z.string().trim().min(1).max(120), value: z.string().trim().min(1).max(40), unit: z.string().trim().max(16) }))
     .max(40)

@@ -228,6 +228,9 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
       const fromDevice = section.id === "description" && input.device.description.trim() ? input.device.description : undefined;
       const markdown = own?.trim() ? own : (fromDevice ?? section.markdown);
       const rendered = renderProse(markdown);
+      if (rendered.breach) {
+        issues.push({ code: "prose-over-limit", message: `The section “${section.title}” is not shown: it ${rendered.breach.reason}.` });
+      }
       return { id: section.id, title: section.title, html: rendered.html, blocks: rendered.blocks, isDefault: !own?.trim() && !fromDevice };
     }),
     cautions: [...template.cautions],

@@ -1,6 +1,7 @@
 export * from "./types";
 export { buildSheetModel, PRELIMINARY_BANNER, type BuildSheetModelOptions } from "./build-sheet-model";
 export { serializeSheetModel } from "./serialize";
-export { renderProse, proseToPlainText, type RenderedProse } from "./render-prose";
+export { renderProse, proseToPlainText, findProseLimitBreach, proseOverLimitNotice, type RenderedProse } from "./render-prose";
+export { proseLimits, type ProseLimit, type ProseLimitBreach } from "./prose-limits";
 export { makeConditionsKey, parseConditionsKey } from "./conditions";
 export { notationSegments, type NotationSegment } from "./notation";

@@ -4,6 +4,7 @@ import rehypeStringify from "rehype-stringify";
 import remarkParse from "remark-parse";
 import remarkRehype from "remark-rehype";
 import { unified } from "unified";
+import { checkProseSource, checkProseTree, type ProseLimitBreach } from "./prose-limits";
 import type { ProseBlock, ProseInline } from "./types";
 
 /** No raw HTML: remark-rehype drops it (no allowDangerousHtml), and rehype-sanitize's GitHub schema cleans the rest. */
@@ -12,16 +13,41 @@ const processor = unified().use(remarkParse).use(remarkRehype).use(rehypeSanitiz
 export interface RenderedProse {
   html: string;
   blocks: ProseBlock[];
+  /** Set when the section is over a limit (proseLimits): html and blocks then carry a notice in its place. */
+  breach?: ProseLimitBreach;
 }
 
 /**
  * Markdown → sanitized HTML (for API consumers) and, from the same sanitized
- * tree, the small block/inline structure both sheet renderers draw.
+ * tree, the small block/inline structure both sheet renderers draw. A section
+ * over a limit is never handed to the recursive steps (mdast → hast, sanitize,
+ * stringify, the block tree): a plain notice takes its place, so text stored
+ * before the limits existed cannot break the sheet.
  */
 export function renderProse(markdown: string): RenderedProse {
-  const tree = processor.runSync(processor.parse(markdown)) as Root;
+  let breach = checkProseSource(markdown);
+  const mdast = breach ? null : processor.parse(markdown);
+  if (mdast) breach = checkProseTree(mdast);
+  if (breach || !mdast) return overLimit(breach!);
+  const tree = processor.runSync(mdast) as Root;
   const html = String(processor.stringify(tree)).trim();
   return { html, blocks: toBlocks(tree.children) };
+}
+
+/** The first limit a section's markdown breaks, or null: checked when prose is saved. */
+export function findProseLimitBreach(markdown: string): ProseLimitBreach | null {
+  return checkProseSource(markdown) ?? checkProseTree(processor.parse(markdown));
+}
+
+/** What a sheet prints in place of a section over a limit. */
+export function proseOverLimitNotice(breach: ProseLimitBreach): string {
+  return `This section is not shown: it ${breach.reason}; ${breach.remedy} to show it.`;
+}
+
+function overLimit(breach: ProseLimitBreach): RenderedProse {
+  const notice = proseOverLimitNotice(breach);
+  const html = `<p>${notice.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;")}</p>`;
+  return { html, blocks: [{ type: "paragraph", children: [{ type: "text", value: notice }] }], breach };
 }
 
 /** Plain text of inline content, for alt texts and tests. */

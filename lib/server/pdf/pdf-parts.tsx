@@ -3,6 +3,7 @@ import { Link, StyleSheet, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
 import { tokens } from "../../design/tokens";
 import { notationSegments } from "../../sheet/notation";
+import { proseLimits } from "../../sheet/prose-limits";
 import type { ProseBlock, ProseInline } from "../../sheet/types";
 import { MONO_FAMILY, SANS_FAMILY } from "./fonts";
 
@@ -111,7 +112,13 @@ export function PdfTable({ columns, rows }: { columns: Column[]; rows: Cell[][] 
   );
 }
 
-function Inlines({ nodes }: { nodes: ProseInline[] }) {
+// The model's prose is within proseLimits when renderProse made it; a model from elsewhere (a
+// stored release, a hand-made one) still never nests views deeper than that: react-pdf's layout
+// engine broke for the whole process on about 800 nested views.
+const TOO_DEEP = "[nested too deeply to show]";
+
+function Inlines({ nodes, depth }: { nodes: ProseInline[]; depth: number }) {
+  if (depth > proseLimits.maxNestingDepth) return TOO_DEEP;
   return (
     <>
       {nodes.map((node, i) => {
@@ -129,19 +136,19 @@ function Inlines({ nodes }: { nodes: ProseInline[] }) {
           case "strong":
             return (
               <Text key={i} style={{ fontWeight: 600 }}>
-                <Inlines nodes={node.children} />
+                <Inlines nodes={node.children} depth={depth + 1} />
               </Text>
             );
           case "emphasis":
             return (
               <Text key={i} style={{ fontStyle: "italic" }}>
-                <Inlines nodes={node.children} />
+                <Inlines nodes={node.children} depth={depth + 1} />
               </Text>
             );
           case "link":
             return (
               <Link key={i} src={node.href} style={{ color: colors.ink }}>
-                <Inlines nodes={node.children} />
+                <Inlines nodes={node.children} depth={depth + 1} />
               </Link>
             );
         }
@@ -161,7 +168,8 @@ function splitAtBreaks(nodes: ProseInline[]): ProseInline[][] {
 }
 
 /** The sheet model's prose blocks, drawn with react-pdf primitives (the PDF cannot draw HTML). */
-export function PdfProse({ blocks }: { blocks: ProseBlock[] }) {
+export function PdfProse({ blocks, depth = 0 }: { blocks: ProseBlock[]; depth?: number }) {
+  if (depth > proseLimits.maxNestingDepth) return <Text style={[styles.paragraph, styles.muted]}>{TOO_DEEP}</Text>;
   return (
     <>
       {blocks.map((block, i) => {
@@ -171,7 +179,7 @@ export function PdfProse({ blocks }: { blocks: ProseBlock[] }) {
               <View key={i} style={styles.paragraph}>
                 {splitAtBreaks(block.children).map((line, j) => (
                   <Text key={j}>
-                    <Inlines nodes={line} />
+                    <Inlines nodes={line} depth={depth} />
                   </Text>
                 ))}
               </View>
@@ -179,7 +187,7 @@ export function PdfProse({ blocks }: { blocks: ProseBlock[] }) {
           case "heading":
             return (
               <Text key={i} style={styles.subHeading}>
-                <Inlines nodes={block.children} />
+                <Inlines nodes={block.children} depth={depth} />
               </Text>
             );
           case "code":
@@ -191,7 +199,7 @@ export function PdfProse({ blocks }: { blocks: ProseBlock[] }) {
           case "quote":
             return (
               <View key={i} style={{ paddingLeft: 8, borderLeftWidth: 1, borderLeftColor: colors.rule }}>
-                <PdfProse blocks={block.children} />
+                <PdfProse blocks={block.children} depth={depth + 1} />
               </View>
             );
           case "list":
@@ -201,7 +209,7 @@ export function PdfProse({ blocks }: { blocks: ProseBlock[] }) {
                   <View key={j} style={styles.listItem} wrap={false}>
                     <Text style={styles.bullet}>{block.ordered ? `${j + 1}.` : "•"}</Text>
                     <View style={{ flex: 1 }}>
-                      <PdfProse blocks={item} />
+                      <PdfProse blocks={item} depth={depth + 1} />
                     </View>
                   </View>
                 ))}

@@ -1,16 +1,16 @@
 import "server-only";
 import { createHash } from "node:crypto";
 import { serializeSheetModel, type SheetModel } from "../../sheet";
-import { renderSheetPdf } from "./render-sheet-pdf";
+import { sheetPdfRenderPool } from "./pdf-render-pool";
 
 /** The model's digest: the same model always gives the same PDF content, so it names the PDF. */
 export function sheetModelDigest(model: SheetModel): string {
   return createHash("sha256").update(serializeSheetModel(model)).digest("hex");
 }
 
-// A PDF render holds the Node process for most of a second. The preview reloads the same draft
-// after every save and customers download the same revision again and again, so the last few
-// PDFs are kept by model digest (about 0.4 MB each), oldest out first.
+// A PDF render costs a worker most of a second. The preview reloads the same draft after every
+// save and customers download the same revision again and again, so the last few PDFs are kept by
+// model digest (about 0.4 MB each), oldest out first. A failed render is not kept.
 const ENTRIES = 16;
 const pdfs = new Map<string, Promise<Buffer>>();
 
@@ -22,7 +22,7 @@ export function sheetPdfFor(model: SheetModel, digest = sheetModelDigest(model))
     pdfs.set(digest, pdf);
     return pdf;
   }
-  pdf = renderSheetPdf(model);
+  pdf = sheetPdfRenderPool().render(model);
   pdf.catch(() => pdfs.delete(digest));
   pdfs.set(digest, pdf);
   if (pdfs.size > ENTRIES) pdfs.delete(pdfs.keys().next().value!);
