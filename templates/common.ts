@@ -1,6 +1,6 @@
 import type { AbsoluteMaximumRatingTemplate, ConditionColumn, LimitBasis, ProseTemplate, SpecRowTemplate } from "./types";
 
-/** The cautions every class carries (DESIGN.md "Safety"); a class adds its own RF-power wording. */
+/** The cautions every class carries (the usual datasheet cautions: ESD, maximum RF input, limits only under the stated conditions; sign-off defers to the organization's own procedures); a class adds its own RF-power wording. */
 export function composeCautions(maximumInputPowerCaution: string): string[] {
   return [
     "Electrostatic-discharge-sensitive device. Handle it at an ESD-protected workstation with grounded wrist straps and " +

@@ -23,7 +23,7 @@ export async function renderChartSvg(vegaLite: Record<string, unknown>): Promise
 
 /**
  * SVG → PNG with resvg, given the sheet's own TTFs and no system fonts: resvg
- * draws no text at all for a family it cannot find (TOOLCHAIN.md).
+ * draws no text at all for a family it cannot find (resvg-js font options: fontFiles, loadSystemFonts, defaultFontFamily).
  *
  * The PDF gets an opaque, palette PNG: pdfkit copies such a PNG's compressed data into the
  * PDF as it is, while one with an alpha channel is decoded, split and compressed again on

@@ -3,7 +3,7 @@ import path from "node:path";
 
 /**
  * Full TTFs (Latin and Greek) from the @expo-google-fonts packages: subset web
- * fonts lack glyphs such as Ω and µ and would fall back silently (TOOLCHAIN.md).
+ * fonts lack glyphs such as Ω and µ and would fall back silently (checked with pdffonts and pdftotext).
  * Resolved from the working directory, where `next start` and the tests run.
  */
 const root = path.join(process.cwd(), "node_modules", "@expo-google-fonts");

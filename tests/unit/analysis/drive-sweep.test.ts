@@ -26,7 +26,7 @@ describe("drive sweep of a doubler (drive-sweep-doubler.csv)", () => {
   });
 
   it("gives harmonic suppression in dBc at the step nearest the optimum (P_wanted − P_order)", () => {
-    // Row at 14 dBm: p1 −22.60, p2 3.47, p3 −26.05, p4 −20.30 (REFERENCES.md sign convention: positive = below 2f).
+    // Row at 14 dBm: p1 −22.60, p2 3.47, p3 −26.05, p4 −20.30 (sign convention of lib/rf/harmonics.ts, common practice: positive dBc = below the wanted 2f output).
     expect(valueOf(p, "harmonic-suppression", { order: 1 })).toBeCloseTo(3.47 - -22.6, 9);
     expect(valueOf(p, "harmonic-suppression", { order: 3 })).toBeCloseTo(3.47 - -26.05, 9);
     expect(valueOf(p, "harmonic-suppression", { order: 4 })).toBeCloseTo(3.47 - -20.3, 9);

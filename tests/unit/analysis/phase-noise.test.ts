@@ -56,7 +56,7 @@ describe("phase noise of a doubler (phase-noise-doubler.csv)", () => {
     const last = trace.lDbcHz.filter((_, i) => trace.offsetHz[i] >= 1e6).sort((a, b) => a - b);
     expect(last).toHaveLength(11);
     expect(valueOf(p, "noise-floor")).toBe(last[5]);
-    // kT = −173.975 dBm/Hz (REFERENCES.md, k exact); PM floor = kT − 3.01 dB − P_carrier (3.2 dBm).
+    // kT = −173.975 dBm/Hz (k = 1.380649e-23 J/K exact, SI Brochure 9th ed. 2019; T0 = 290 K) [computed]; PM floor = kT − 3.01 dB − P_carrier (3.2 dBm).
     const ktDbmHz = 10 * log10(1.380649e-23 * 290 * 1000);
     expect(ktDbmHz).toBeCloseTo(-173.975, 3);
     expect(valueOf(p, "noise-floor-above-kt")).toBeCloseTo(-165.53 - (ktDbmHz - 10 * log10(2) - 3.2), 9);
@@ -76,7 +76,7 @@ describe("phase noise of a doubler (phase-noise-doubler.csv)", () => {
   });
 
   it("reports only the ideal ×2 penalty without an input reference, and the excess with one", () => {
-    // 20·log10(2) = 6.021 dB (REFERENCES.md).
+    // 20·log10(2) = 6.021 dB (ideal ×N adds 20·log10 N, IEEE Std 1139-2008) [computed].
     expect(valueOf(p, "ideal-multiplication-penalty")).toBeCloseTo(6.021, 3);
     expect(p.some((x) => x.name === "excess-over-ideal-multiplication")).toBe(false);
     const withReference = analyzeExample("phase-noise-doubler.csv", {

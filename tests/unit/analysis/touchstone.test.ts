@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { analyzeExample, log10, pick, valueOf } from "./helpers";
 
-// Mismatch formulas (Pozar, Microwave Engineering §2.3; REFERENCES.md): RL = −20·log10|Γ|, VSWR = (1+|Γ|)/(1−|Γ|).
+// Mismatch formulas (Pozar, Microwave Engineering §2.3): RL = −20·log10|Γ|, VSWR = (1+|Γ|)/(1−|Γ|).
 const returnLoss = (gamma: number) => -20 * log10(gamma);
 const vswr = (gamma: number) => (1 + gamma) / (1 - gamma);
 

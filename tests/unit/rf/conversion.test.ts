@@ -9,7 +9,7 @@ import {
 describe("conversion loss", () => {
   // CL = P_in − P_out: Wentworth, Applied Electromagnetics (Wiley 2007), eq. 10.87.
   it.each([
-    // Doubler worked example, REFERENCES.md [computed]: +10 dBm in, 2f at −3 dBm → 13 dB.
+    // Doubler worked example computed from CL = P_in − P_out (Wentworth, Applied Electromagnetics, Wiley 2007, eq. 10.87): +10 dBm in, 2f at −3 dBm → 13 dB.
     { inputPowerDbm: 10, outputPowerDbm: -3, lossDb: 13 },
     // A +7 dBm-class mixer: −10 dBm RF, −16.5 dBm IF → 6.5 dB, inside the 4.5–9 dB trade range (common practice).
     { inputPowerDbm: -10, outputPowerDbm: -16.5, lossDb: 6.5 },
@@ -21,11 +21,11 @@ describe("conversion loss", () => {
 
 describe("per-port drive through a split", () => {
   it("uses 10·log10(2) = 3.0103 dB for the ideal two-way split", () => {
-    // 10·log10(2) = 3.0103 dB: REFERENCES.md "Per-port drive through an ideal two-way split" (common practice).
+    // 10·log10(2) = 3.0103 dB: per-port drive through an ideal two-way split (common practice) [computed].
     expect(TWO_WAY_SPLIT_LOSS_DB).toBeCloseTo(3.0103, 4);
   });
 
-  // total − 3.0103 dB − excess − cable: common practice, REFERENCES.md "Mixers and multipliers".
+  // total − 3.0103 dB − excess − cable: common practice.
   it.each([
     { totalInputPowerDbm: 16, splitterExcessLossDb: 0, cableLossDb: 0, perPortDbm: 12.9897 },
     { totalInputPowerDbm: 16, splitterExcessLossDb: 0.4, cableLossDb: 0.25, perPortDbm: 12.3397 },

@@ -4,7 +4,7 @@ import { computeConversionLossDb } from "@/lib/rf/conversion";
 
 describe("harmonic suppression (positive dBc = below the wanted output)", () => {
   it("reproduces the doubler worked example", () => {
-    // REFERENCES.md doubler example [computed]: +10 dBm in, 2f −3 dBm, f −33 dBm, 3f −28 dBm
+    // Doubler example computed from the dBc definition (suppression = P(2f) − P(nf), common practice): +10 dBm in, 2f −3 dBm, f −33 dBm, 3f −28 dBm
     // → CL 13 dB, fundamental 30 dBc, 3rd 25 dBc.
     const levels = [
       { order: 3, outputPowerDbm: -28 },

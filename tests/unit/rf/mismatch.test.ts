@@ -15,7 +15,7 @@ import {
 
 describe("port match", () => {
   it("25 Ω on 50 Ω (an unmatched tee feeding two 50 Ω ports)", () => {
-    // REFERENCES.md "Mismatch" [computed]: |Γ| 1/3, VSWR 2.000, RL 9.5424 dB, ML 0.5115 dB.
+    // Computed from Γ = (ZL − Z0)/(ZL + Z0), VSWR = (1+|Γ|)/(1−|Γ|), RL = −20·log|Γ|, ML = −10·log(1−|Γ|²) (Pozar, Microwave Engineering §2.3): |Γ| 1/3, VSWR 2.000, RL 9.5424 dB, ML 0.5115 dB.
     const gamma = computeReflectionCoefficient(25);
     expect(gamma.re).toBeCloseTo(-1 / 3, 14);
     expect(gamma.im).toBe(0);
@@ -28,7 +28,7 @@ describe("port match", () => {
   });
 
   it("VSWR 1.5", () => {
-    // REFERENCES.md [source: calculator reference pages]: |Γ| 0.2, RL 13.979 dB, ML 0.1773 dB.
+    // Published VSWR conversion tables (from memory; the same values follow from Pozar §2.3): |Γ| 0.2, RL 13.979 dB, ML 0.1773 dB.
     const magnitude = convertVswrToReflectionMagnitude(1.5);
     expect(magnitude).toBeCloseTo(0.2, 14);
     expect(computeReturnLossDb(magnitude)).toBeCloseTo(13.979, 3);

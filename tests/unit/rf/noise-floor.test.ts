@@ -13,7 +13,7 @@ describe("thermal noise floor", () => {
     expect(BOLTZMANN_J_PER_K).toBe(1.380649e-23);
   });
 
-  // 10·log10(k·T/1 mW): REFERENCES.md [computed] −173.975 dBm/Hz at 290 K, −173.828 at 300 K.
+  // 10·log10(k·T/1 mW): k exact (SI Brochure 9th ed. 2019) [computed] −173.975 dBm/Hz at 290 K, −173.828 at 300 K.
   it.each([
     { temperatureK: 290, densityDbmHz: -173.975 },
     { temperatureK: 300, densityDbmHz: -173.828 },
@@ -37,7 +37,7 @@ describe("thermal noise floor", () => {
     expect(floor.phaseNoiseDbcHz).toBeCloseTo(-186.985, 3);
   });
 
-  it("reads L(f) from a noise marker (REFERENCES.md: marker − carrier)", () => {
+  it("reads L(f) from a noise marker (noise marker − carrier, common practice)", () => {
     expect(computePhaseNoiseFromMarkerDbcHz(-142.5, 3)).toBe(-145.5);
   });
 });

@@ -8,7 +8,7 @@ import {
 } from "@/lib/rf/phase-noise";
 
 describe("ideal multiplication", () => {
-  // 20·log10(N): REFERENCES.md "Phase noise" [computed].
+  // 20·log10(N): ideal multiplication, IEEE Std 1139-2008 [computed].
   it.each([
     { factor: 2, penaltyDb: 6.021 },
     { factor: 3, penaltyDb: 9.542 },
@@ -69,7 +69,7 @@ describe("integrated phase noise and jitter", () => {
   });
 
   it("flat −120 dBc/Hz from 10 kHz to 1 MHz at 100 MHz", () => {
-    // REFERENCES.md [computed]: A = 1e-12·990e3 → −60.04 dBc, 1.4071 mrad, 2.2395 ps.
+    // [computed from the power-law integral]: A = 1e-12·990e3 → −60.04 dBc, 1.4071 mrad, 2.2395 ps.
     const result = integratePhaseNoise({
       trace: { offsetHz: [1e3, 1e7], phaseNoiseDbcHz: [-120, -120] },
       startOffsetHz: 1e4,
@@ -104,7 +104,7 @@ describe("integrated phase noise and jitter", () => {
     expect(10 ** (result.integratedPhaseNoiseDbc / 10) / 9.9e-7).toBeCloseTo(1, 12);
   });
 
-  it("jitter is unchanged by ideal multiplication (REFERENCES.md, IEEE Std 1139-2008)", () => {
+  it("jitter is unchanged by ideal multiplication (IEEE Std 1139-2008)", () => {
     const base = { offsetHz: [1e3, 1e6], phaseNoiseDbcHz: [-120, -140] };
     const doubled = { offsetHz: base.offsetHz, phaseNoiseDbcHz: base.phaseNoiseDbcHz.map((l) => l + 20 * Math.log10(2)) };
     const options = { startOffsetHz: 1e3, stopOffsetHz: 1e6 };

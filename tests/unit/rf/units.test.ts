@@ -15,14 +15,14 @@ import {
 } from "@/lib/rf/units";
 
 describe("power and voltage units", () => {
-  // Vrms = √(P·Z) and dBµV = dBm + 10·log10(Z·1e-3) + 120: REFERENCES.md "Power, voltage, noise" [computed].
+  // Vrms = √(P·Z) and dBµV = dBm + 10·log10(Z·1e-3) + 120: the units' definitions [computed].
   it.each([
     { powerDbm: 0, impedanceOhm: 50, vrms: 0.22361, dbuv: 106.99, digits: 5 },
-    // −20 dBm = 0.02236 Vrms = 86.99 dBµV in 50 Ω: instrument maker's FAQ, via REFERENCES.md [source].
+    // −20 dBm = 0.02236 Vrms = 86.99 dBµV in 50 Ω: a test-equipment maker's published conversion FAQ (from memory).
     { powerDbm: -20, impedanceOhm: 50, vrms: 0.02236, dbuv: 86.99, digits: 5 },
-    // 0 dBm = 108.751 dBµV in 75 Ω: REFERENCES.md [computed].
+    // 0 dBm = 108.751 dBµV in 75 Ω: [computed].
     { powerDbm: 0, impedanceOhm: 75, vrms: Math.sqrt(0.075), dbuv: 108.751, digits: 3 },
-    // LO drive classes in 50 Ω: +7 dBm = 0.5006 V, +13 dBm = 0.9988 V, REFERENCES.md "Device conventions" [computed].
+    // LO drive classes in 50 Ω: +7 dBm = 0.5006 V, +13 dBm = 0.9988 V, [computed] (LO drive classes: common practice).
     { powerDbm: 7, impedanceOhm: 50, vrms: 0.5006, dbuv: 113.99, digits: 4 },
     { powerDbm: 13, impedanceOhm: 50, vrms: 0.9988, dbuv: 119.99, digits: 4 },
   ])("$powerDbm dBm in $impedanceOhm Ω", ({ powerDbm, impedanceOhm, vrms, dbuv, digits }) => {

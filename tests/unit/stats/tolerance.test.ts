@@ -6,7 +6,7 @@ import {
   computeToleranceInterval,
 } from "@/lib/stats/tolerance";
 
-// n = 10, 95 % confidence, coverage 90/95/99 %: exact factors 2.8563 / 3.3934 / 4.4369 (REFERENCES.md [computed]);
+// n = 10, 95 % confidence, coverage 90/95/99 %: exact factors 2.8563 / 3.3934 / 4.4369 (computed by the exact method of NIST/SEMATECH e-Handbook §7.2.6.3);
 // Berthouex & Brown, Statistics for Environmental Engineers, Table 21.1: 2.86 / 3.39 / 4.44 [source].
 const n10 = [
   { coverage: 0.9, exact: 2.8563, table: 2.86 },

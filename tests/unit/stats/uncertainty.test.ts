@@ -17,7 +17,7 @@ describe("GUM uncertainty budget", () => {
   });
 
   it("combines by root-sum-square (GUM eq. 10) and expands with k = 2", () => {
-    // REFERENCES.md [computed]: 0.3 dB rectangular, 0.172 dB U-shaped, 0.05 dB normal → u_c 0.2175 dB, U 0.435 dB.
+    // Computed per GUM (JCGM 100:2008) eq. 10, rectangular a/√3, U-shaped a/√2: 0.3 dB rectangular, 0.172 dB U-shaped, 0.05 dB normal → u_c 0.2175 dB, U 0.435 dB.
     const budget = combineUncertainty([
       { name: "power sensor", bound: 0.3, distribution: "rectangular" },
       { name: "mismatch", bound: 0.172, distribution: "u-shaped" },
