@@ -32,15 +32,18 @@ export class TestClient {
 
   async request(
     path: string,
-    init: { method?: string; json?: unknown; form?: Record<string, string>; multipart?: FormData; origin?: string | null; headers?: Record<string, string> } = {},
+    init: { method?: string; json?: unknown; raw?: { body: string; contentType: string }; form?: Record<string, string>; multipart?: FormData; origin?: string | null; headers?: Record<string, string> } = {},
   ): Promise<Response> {
-    const method = init.method ?? (init.json !== undefined || init.form || init.multipart ? "POST" : "GET");
+    const method = init.method ?? (init.json !== undefined || init.raw || init.form || init.multipart ? "POST" : "GET");
     const headers: Record<string, string> = { "x-forwarded-for": this.address, ...init.headers };
     if (this.cookies.size) headers.cookie = this.cookieHeader();
     if (method !== "GET" && init.origin !== null) headers.origin = init.origin ?? new URL(this.baseUrl).origin;
     let body: string | FormData | undefined;
     if (init.multipart) {
       body = init.multipart;
+    } else if (init.raw) {
+      headers["content-type"] = init.raw.contentType;
+      body = init.raw.body;
     } else if (init.json !== undefined) {
       headers["content-type"] = "application/json";
       body = JSON.stringify(init.json);
