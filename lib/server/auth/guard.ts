@@ -6,6 +6,7 @@ import { isPublic, resources, type Resource } from "@/lib/access/matrix";
 import { serverConfig } from "../config";
 import { authorize } from "./authorize";
 import { getSessionUser, type SessionUser } from "./session";
+import { databaseUnavailable, isDatabaseUnavailable } from "../db/database-unavailable";
 
 const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
 
@@ -40,6 +41,10 @@ const noStore = { "cache-control": "no-store" };
 export function errorResponse(error: unknown): Response {
   if (isAppError(error)) return Response.json(error.toJSON(), { status: error.status, headers: noStore });
   if (error instanceof ZodError) return Response.json(validationError(error).toJSON(), { status: 422, headers: noStore });
+  if (isDatabaseUnavailable(error)) {
+    console.error("[benchfold] database unavailable:", error instanceof Error ? error.message : error);
+    return Response.json(databaseUnavailable().toJSON(), { status: 503, headers: { ...noStore, "retry-after": "30" } });
+  }
   console.error("[benchfold] unexpected error", error);
   return Response.json(new AppError("internal", "Something went wrong on our side.").toJSON(), { status: 500, headers: noStore });
 }

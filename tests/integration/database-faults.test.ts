@@ -1,0 +1,142 @@
+/**
+ * The fault suite's database part: the private MariaDB is killed (SIGKILL, no shutdown) in the
+ * middle of an upload, 20 times at seeded moments. Each time: the upload answers 201 (it committed
+ * first) or 503 in a plain sentence, never 500; while the database is down the API answers 503;
+ * once it is started again the same app process serves again; and the tables hold no partial
+ * upload — every measurement set has its stored file, every stored file its set, and each trial
+ * added at most the one set it sent.
+ *
+ * It stops and starts the MariaDB instance the whole run shares, so it runs alone in its file
+ * (integration files run one at a time) and always leaves the database running.
+ */
+import { execFile } from "node:child_process";
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import { promisify } from "node:util";
+import { QueryTypes } from "sequelize";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { closeDb, db } from "@/models";
+import { TestClient } from "./helpers/client";
+import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
+
+const run = promisify(execFile);
+const ROOT = path.resolve(__dirname, "../..");
+const DATA_DIR = process.env.BENCHFOLD_DATA_DIR ?? path.join(ROOT, ".data");
+const TRIALS = 20;
+
+/** A phase-noise trace of 30,000 offsets: big enough that parsing, deriving and storing take a while. */
+function bigTrace(serial: string): Uint8Array<ArrayBuffer> {
+  const lines = ["# kind: phase-noise", `# serial: ${serial}`, "# carrier_frequency: 2 GHz", "# carrier_power: 3 dBm", "offset [Hz],L [dBc/Hz]"];
+  const points = 30_000;
+  for (let i = 0; i < points; i++) {
+    const offsetHz = 10 ** ((7 * i) / (points - 1));
+    lines.push(`${offsetHz.toPrecision(8)},${(-110 - 10 * Math.log10(offsetHz) * 0.8).toFixed(3)}`);
+  }
+  return new TextEncoder().encode(`${lines.join("\n")}\n`) as Uint8Array<ArrayBuffer>;
+}
+
+/** mulberry32: the same kill moments on every run. */
+function seeded(seed: number) {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = Math.imul(a ^ (a >>> 15), a | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const killDatabase = () => process.kill(Number(readFileSync(path.join(DATA_DIR, "run/mariadb.pid"), "utf8").trim()), "SIGKILL");
+const startDatabase = () => run("bash", [path.join(ROOT, "scripts/db.sh"), "start"], { cwd: ROOT, env: process.env });
+
+async function waitUntil(check: () => Promise<boolean>, timeoutMs: number): Promise<number> {
+  const started = Date.now();
+  while (Date.now() - started < timeoutMs) {
+    if (await check().catch(() => false)) return Date.now() - started;
+    await new Promise((resolve) => setTimeout(resolve, 200));
+  }
+  throw new Error(`not within ${timeoutMs} ms`);
+}
+
+let engineer: TestClient;
+let deviceId = 0;
+let organizationId = 0;
+const outcomes: { status: number; killAfterMs: number; recoveredMs: number }[] = [];
+
+async function consistency() {
+  await closeDb();
+  const { sequelize } = db();
+  const [row] = await sequelize.query<{ sets: number; orphanFiles: number; setsWithoutFile: number }>(
+    `SELECT
+       (SELECT COUNT(*) FROM measurement_sets WHERE device_id = :deviceId) AS sets,
+       (SELECT COUNT(*) FROM stored_files f WHERE f.organization_id = :organizationId
+          AND NOT EXISTS (SELECT 1 FROM measurement_sets s WHERE s.stored_file_id = f.id)) AS orphanFiles,
+       (SELECT COUNT(*) FROM measurement_sets s WHERE s.organization_id = :organizationId
+          AND NOT EXISTS (SELECT 1 FROM stored_files f WHERE f.id = s.stored_file_id)) AS setsWithoutFile`,
+    { type: QueryTypes.SELECT, replacements: { deviceId, organizationId } },
+  );
+  return { sets: Number(row.sets), orphanFiles: Number(row.orphanFiles), setsWithoutFile: Number(row.setsWithoutFile) };
+}
+
+beforeAll(async () => {
+  const made = await makeOrganization();
+  organizationId = made.organization.id;
+  deviceId = (await makeDevice(made.organization.id)).id;
+  engineer = new TestClient();
+  expect((await engineer.signIn(made.users.engineer.email, factoryPassword)).ok).toBe(true);
+});
+
+afterAll(async () => {
+  await startDatabase();
+  await closeDb();
+  const counts = new Map<number, number>();
+  if (outcomes.length === 0) return;
+  for (const o of outcomes) counts.set(o.status, (counts.get(o.status) ?? 0) + 1);
+  const recovery = outcomes.map((o) => o.recoveredMs).sort((a, b) => a - b);
+  console.log(
+    `[database faults] ${outcomes.length} kills mid-upload: ${[...counts].map(([s, n]) => `${s}×${n}`).join(", ")}; ` +
+      `app serving again ${recovery[0]}–${recovery[recovery.length - 1]} ms after the restart began`,
+  );
+}, 60_000);
+
+describe("MariaDB killed in the middle of an upload", () => {
+  it(`loses nothing and leaves nothing half-written, ${TRIALS} trials`, async () => {
+    const random = seeded(20261202);
+    // One upload undisturbed, to learn how long one takes: each kill falls at a seeded moment within that time.
+    const calibration = new FormData();
+    calibration.set("file", new Blob([bigTrace("BFD-KILL-TIMING")]), "kill-timing.csv");
+    const started = Date.now();
+    expect((await engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: calibration })).status).toBe(201);
+    const uploadMs = Date.now() - started;
+    let expectedMaxSets = (await consistency()).sets;
+    for (let trial = 0; trial < TRIALS; trial++) {
+      const form = new FormData();
+      form.set("file", new Blob([bigTrace(`BFD-KILL-${trial}`)]), `kill-${trial}.csv`);
+      const upload = engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: form });
+      const killAfterMs = Math.round(random() * uploadMs);
+      await new Promise((resolve) => setTimeout(resolve, killAfterMs));
+      killDatabase();
+
+      const response = await upload;
+      const body = (await response.json()) as { error?: { message: string } };
+      expect([201, 503], `trial ${trial}: ${JSON.stringify(body).slice(0, 200)}`).toContain(response.status);
+      if (response.status === 503) expect(body.error?.message).toMatch(/cannot reach its database/);
+
+      const whileDown = await engineer.request(`/api/devices/${deviceId}`);
+      expect(whileDown.status).toBe(503);
+      expect(((await whileDown.json()) as { error: { message: string } }).error.message).toMatch(/cannot reach its database/);
+
+      const restart = startDatabase();
+      const recoveredMs = await waitUntil(async () => (await engineer.request(`/api/devices/${deviceId}`)).status === 200, 60_000);
+      await restart;
+      outcomes.push({ status: response.status, killAfterMs, recoveredMs });
+
+      const state = await consistency();
+      expect(state.orphanFiles, `trial ${trial}: stored files without a set`).toBe(0);
+      expect(state.setsWithoutFile, `trial ${trial}: sets without their file`).toBe(0);
+      expect(state.sets, `trial ${trial}: more sets than uploads`).toBeLessThanOrEqual(expectedMaxSets + 1);
+      if (response.status === 201) expect(state.sets).toBe(expectedMaxSets + 1);
+      expectedMaxSets = state.sets;
+    }
+  }, 600_000);
+});
