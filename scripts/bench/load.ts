@@ -1,0 +1,168 @@
+/**
+ * Load benchmark (the last part of `npm run bench`): concurrent clients against a running
+ * instance — `npm start` on BENCHFOLD_BENCH_URL (default http://localhost:3000) with the demo
+ * loaded. For a workspace page, a JSON list and a sheet PDF already cached: requests per second,
+ * p50/p95 latency, errors, and the server's resident memory before, right after and a few
+ * seconds after the run. The PDF's reference run in the same process is a fresh render (a changed
+ * device description makes a new model; the description is put back afterwards). Nothing is asserted:
+ * timings live here, never in the tests. Skipped with a note when no server answers.
+ *
+ *   BENCH_LOAD_CLIENTS (50), BENCH_LOAD_SECONDS (60), BENCH_LOAD_FRESH_RENDERS (4)
+ */
+import { execFileSync } from "node:child_process";
+import { readFileSync } from "node:fs";
+
+const baseUrl = process.env.BENCHFOLD_BENCH_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
+const clients = Number(process.env.BENCH_LOAD_CLIENTS ?? 50);
+const seconds = Number(process.env.BENCH_LOAD_SECONDS ?? 60);
+const freshRenders = Number(process.env.BENCH_LOAD_FRESH_RENDERS ?? 4);
+const demoEngineer = { email: "elena.marchetti@kestrine.example", password: "bench-demo-2026" };
+
+/** A cookie jar of one signed-in person (next-auth's CSRF token, then the credentials callback). */
+async function signIn(): Promise<string> {
+  const jar = new Map<string, string>();
+  const keep = (response: Response) => {
+    for (const line of response.headers.getSetCookie()) {
+      const [pair] = line.split(";");
+      const eq = pair.indexOf("=");
+      jar.set(pair.slice(0, eq), pair.slice(eq + 1));
+    }
+  };
+  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
+  const csrf = await fetch(`${baseUrl}/api/auth/csrf`);
+  keep(csrf);
+  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
+  const signedIn = await fetch(`${baseUrl}/api/auth/callback/credentials`, {
+    method: "POST",
+    redirect: "manual",
+    headers: { "content-type": "application/x-www-form-urlencoded", cookie: cookie(), origin: baseUrl },
+    body: new URLSearchParams({ csrfToken, ...demoEngineer, json: "true" }).toString(),
+  });
+  keep(signedIn);
+  if (![...jar.keys()].some((k) => k.includes("session-token"))) throw new Error(`the demo engineer could not sign in (${signedIn.status})`);
+  return cookie();
+}
+
+/** The resident memory of the process listening on the server's port, from /proc (Linux). */
+function serverRssMb(): number | null {
+  try {
+    const port = new URL(baseUrl).port || "80";
+    const line = execFileSync("ss", ["-ltnpH", `sport = :${port}`], { encoding: "utf8" });
+    const pid = /pid=(\d+)/.exec(line)?.[1];
+    if (!pid) return null;
+    const rssKb = Number(/VmRSS:\s+(\d+)/.exec(readFileSync(`/proc/${pid}/status`, "utf8"))?.[1]);
+    return Math.round(rssKb / 1024);
+  } catch {
+    return null;
+  }
+}
+
+const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))];
+
+async function hammer(path: string, cookie: string) {
+  const latencies: number[] = [];
+  const failures = new Map<string, number>();
+  const deadline = performance.now() + seconds * 1000;
+  const client = async () => {
+    while (performance.now() < deadline) {
+      const started = performance.now();
+      try {
+        const response = await fetch(`${baseUrl}${path}`, { headers: { cookie } });
+        await response.arrayBuffer();
+        if (!response.ok) failures.set(String(response.status), (failures.get(String(response.status)) ?? 0) + 1);
+      } catch (error) {
+        const key = (error as Error).message;
+        failures.set(key, (failures.get(key) ?? 0) + 1);
+      }
+      latencies.push(performance.now() - started);
+    }
+  };
+  const started = performance.now();
+  await Promise.all(Array.from({ length: clients }, client));
+  const elapsedS = (performance.now() - started) / 1000;
+  latencies.sort((a, b) => a - b);
+  return { requests: latencies.length, perSecond: latencies.length / elapsedS, p50: percentile(latencies, 50), p95: percentile(latencies, 95), failures };
+}
+
+async function freshPdfSeconds(cookie: string, deviceId: number): Promise<number> {
+  const deviceUrl = `${baseUrl}/api/devices/${deviceId}`;
+  const { device } = (await (await fetch(deviceUrl, { headers: { cookie } })).json()) as {
+    device: { partNumber: string; deviceClass: string; title: string; description: string; keyConditions: unknown };
+  };
+  const patch = (description: string) =>
+    fetch(deviceUrl, {
+      method: "PATCH",
+      headers: { cookie, origin: baseUrl, "content-type": "application/json" },
+      body: JSON.stringify({ partNumber: device.partNumber, deviceClass: device.deviceClass, title: device.title, description, keyConditions: device.keyConditions }),
+    });
+  const times: number[] = [];
+  try {
+    for (let i = 1; i <= freshRenders; i++) {
+      // A new description is a new sheet model, so the next PDF is rendered, not served from the cache.
+      if (!(await patch(`${device.description} (load benchmark ${i})`)).ok) throw new Error("could not change the device for a fresh render");
+      const started = performance.now();
+      const pdf = await fetch(`${baseUrl}/api/devices/${deviceId}/sheet/pdf`, { headers: { cookie } });
+      await pdf.arrayBuffer();
+      times.push((performance.now() - started) / 1000);
+    }
+  } finally {
+    await patch(device.description);
+  }
+  times.sort((a, b) => a - b);
+  return times[Math.floor(times.length / 2)];
+}
+
+async function main() {
+  try {
+    await fetch(`${baseUrl}/api/auth/csrf`);
+  } catch {
+    console.log(`load benchmark skipped: nothing answers at ${baseUrl} (start the app with npm start, or set BENCHFOLD_BENCH_URL)`);
+    return;
+  }
+  const cookie = await signIn();
+  const devices = (await (await fetch(`${baseUrl}/api/devices`, { headers: { cookie } })).json()) as { devices: { id: number; partNumber: string }[] };
+  const doubler = devices.devices.find((d) => d.partNumber === "KDX-2G4");
+  if (!doubler) throw new Error("the demo device KDX-2G4 is not there: load the demo with npm start");
+  const pdfPath = `/api/devices/${doubler.id}/sheet/pdf`;
+  const warm = await fetch(`${baseUrl}${pdfPath}`, { headers: { cookie } });
+  await warm.arrayBuffer();
+
+  console.log(`\nLoad: ${clients} concurrent clients, ${seconds} s per target, against ${baseUrl}, node ${process.version}`);
+  const rssStart = serverRssMb();
+  const rows: string[] = [];
+  const results: Record<string, Awaited<ReturnType<typeof hammer>>> = {};
+  for (const [name, path] of [
+    ["workspace page /devices", "/devices"],
+    ["JSON list /api/devices", "/api/devices"],
+    ["cached sheet PDF", pdfPath],
+  ] as const) {
+    const result = await hammer(path, cookie);
+    results[name] = result;
+    const failures = [...result.failures].map(([k, n]) => `${k}×${n}`).join(", ") || "none";
+    rows.push(
+      `${name.padEnd(26)} ${String(result.requests).padStart(8)} ${result.perSecond.toFixed(1).padStart(8)} ${result.p50.toFixed(1).padStart(8)} ${result.p95.toFixed(1).padStart(8)}   ${failures}`,
+    );
+  }
+  const rssEnd = serverRssMb();
+  await new Promise((resolve) => setTimeout(resolve, 5000));
+  const rssSettled = serverRssMb();
+  const freshS = await freshPdfSeconds(cookie, doubler.id);
+
+  console.log(`${"target".padEnd(26)} ${"requests".padStart(8)} ${"req/s".padStart(8)} ${"p50 ms".padStart(8)} ${"p95 ms".padStart(8)}   errors`);
+  for (const row of rows) console.log(row);
+  const cached = results["cached sheet PDF"].perSecond;
+  console.log(
+    `fresh PDF render (median of ${freshRenders}, one at a time): ${(freshS * 1000).toFixed(0)} ms = ${(1 / freshS).toFixed(2)} PDFs/s; ` +
+      `cached PDF throughput ÷ fresh: ${(cached * freshS).toFixed(1)}×`,
+  );
+  const mb = (v: number | null) => (v === null ? "n/a" : `${v} MB`);
+  console.log(
+    `server RSS: before ${mb(rssStart)}, right after ${mb(rssEnd)}, 5 s later ${mb(rssSettled)}` +
+      (rssStart && rssSettled ? ` (settled ÷ before: ${(rssSettled / rssStart).toFixed(2)})` : ""),
+  );
+}
+
+main().catch((error) => {
+  console.error(`load benchmark failed: ${(error as Error).message}`);
+  process.exit(1);
+});
