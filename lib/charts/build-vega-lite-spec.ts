@@ -105,32 +105,93 @@ function decades(xs: number[]): number[] {
   return out;
 }
 
-export function buildVegaLiteSpec(data: ChartData, look: ChartLook): BuiltChart | null {
-  const screen = look.medium === "screen";
-  const size = chartSizes(look.medium);
-  const fonts = look.fonts ?? CHART_FONTS;
-  const logX = data.x.scale === "log";
-  const logY = data.y.scale === "log";
+/** What every layer of one chart shares: the look, the axes' scales and the value formats. */
+interface ChartContext {
+  data: ChartData;
+  look: ChartLook;
+  screen: boolean;
+  size: ReturnType<typeof chartSizes>;
+  fonts: ChartFonts;
+  logX: boolean;
+  logY: boolean;
+  /** The x axis' prefixed unit and the factor from the data's unit to it. */
+  xScale: { unit: string; factor: number };
+  xText: (x: number) => string;
+  yText: (y: number) => string;
+}
 
+export function buildVegaLiteSpec(data: ChartData, look: ChartLook): BuiltChart | null {
+  const context = chartContext(data, look);
+  const xTitle = axisTitle(data.x.label, context.xScale.unit);
+  const yTitle = axisTitle(data.y.label, data.y.unit);
+  const plotted = plotTraces(context);
+  if (plotted.values.length === 0) return null;
+
+  const series = seriesEncodings(data, plotted.present);
+  const axes = axisEncodings(context, plotted.values, xTitle, yTitle);
+  const markers = (data.markers ?? []).filter((m) => Number.isFinite(m.x) && Number.isFinite(m.y) && !(context.logX && m.x <= 0));
+  const layers = [
+    ...traceLayers(context, axes, series, plotted),
+    ...markerLayers(context, axes, markers),
+    ...ruleLayers(context),
+  ];
+
+  const { labels } = series;
+  const description = `${data.title}: ${yTitle} against ${xTitle}${labels.length > 1 ? `, traces ${labels.join(", ")}` : ""}.`;
+  const vegaLite = {
+    $schema: "https://vega.github.io/schema/vega-lite/v6.json",
+    description,
+    width: look.width,
+    height: look.height,
+    background: context.screen ? "transparent" : tokens.colors["paper-bright"],
+    padding: context.screen ? { left: 4, right: 12, top: 8, bottom: 4 } : 6,
+    data: { values: plotted.values },
+    layer: layers,
+    resolve: { scale: { color: "shared", strokeDash: "shared", shape: "shared" } },
+    config: chartConfig(look.medium, context.fonts),
+  };
+  const { yMin, yMax, units } = plotted;
+  return { vegaLite, xTitle, yTitle, seriesLabels: labels, unitCount: units.size, markerCount: markers.length, yMin, yMax };
+}
+
+function chartContext(data: ChartData, look: ChartLook): ChartContext {
+  const logX = data.x.scale === "log";
   let maxX = 0;
   for (const trace of data.traces) for (const [x] of trace.points) if (Number.isFinite(x)) maxX = Math.max(maxX, Math.abs(x));
   const xScale = logX ? { unit: data.x.unit, factor: 1 } : chooseScale(maxX, data.x.unit);
-  const xTitle = axisTitle(data.x.label, xScale.unit);
-  const yTitle = axisTitle(data.y.label, data.y.unit);
-  const xText = (x: number) => formatQuantity(x, xScale.unit, { digits: { maxDecimals: 4 }, prefix: false });
-  const yText = (y: number) => formatQuantity(y, data.y.unit, { digits: { maxDecimals: 2 }, prefix: false });
+  return {
+    data,
+    look,
+    screen: look.medium === "screen",
+    size: chartSizes(look.medium),
+    fonts: look.fonts ?? CHART_FONTS,
+    logX,
+    logY: data.y.scale === "log",
+    xScale,
+    xText: (x) => formatQuantity(x, xScale.unit, { digits: { maxDecimals: 4 }, prefix: false }),
+    yText: (y) => formatQuantity(y, data.y.unit, { digits: { maxDecimals: 2 }, prefix: false }),
+  };
+}
 
-  const values: Record<string, string | number>[] = [];
-  const present = new Set<string>();
-  const units = new Set<string>();
-  let yMin = Infinity;
-  let yMax = -Infinity;
-  let densest = 0;
+interface PlottedTraces {
+  values: Record<string, string | number>[];
+  /** The series names that have at least one point drawn. */
+  present: Set<string>;
+  units: Set<string>;
+  yMin: number;
+  yMax: number;
+  /** The most points any one trace draws (after decimation). */
+  densest: number;
+}
+
+/** Every drawable point of every trace, decimated and scaled; a log axis drops values at or below zero. */
+function plotTraces({ data, look, screen, logX, logY, xScale, xText, yText }: ChartContext): PlottedTraces {
+  const plotted: PlottedTraces = { values: [], present: new Set(), units: new Set(), yMin: Infinity, yMax: -Infinity, densest: 0 };
   for (const trace of data.traces) {
     const xs = trace.points.map((p) => p[0]);
     const ys = trace.points.map((p) => p[1]);
     const points = look.maxPointsPerTrace ? decimateSeries(xs, ys, { maxPoints: look.maxPointsPerTrace, logX }) : trace.points;
-    densest = Math.max(densest, points.length);
+    plotted.densest = Math.max(plotted.densest, points.length);
     const label = seriesLabel(trace.series);
     const unit = trace.unit ?? "";
     for (const [xRaw, yRaw] of points) {
@@ -138,28 +199,37 @@ export function buildVegaLiteSpec(data: ChartData, look: ChartLook): BuiltChart 
       const x = plotValue(xRaw * xScale.factor);
       const y = plotValue(yRaw);
       // Tooltips print the value itself, not the plotted one: rounding twice can move a last digit.
-      values.push(screen ? { x, y, series: label, unit, xText: xText(xRaw * xScale.factor), yText: yText(yRaw) } : { x, y, series: label, unit });
-      present.add(trace.series);
-      units.add(unit);
-      yMin = Math.min(yMin, y);
-      yMax = Math.max(yMax, y);
+      plotted.values.push(screen ? { x, y, series: label, unit, xText: xText(xRaw * xScale.factor), yText: yText(yRaw) } : { x, y, series: label, unit });
+      plotted.present.add(trace.series);
+      plotted.units.add(unit);
+      plotted.yMin = Math.min(plotted.yMin, y);
+      plotted.yMax = Math.max(plotted.yMax, y);
     }
   }
-  if (values.length === 0) return null;
+  return plotted;
+}
 
+type SeriesStyle = (typeof SERIES_STYLES)[number];
+
+/** The legend's labels in order, and an encoding of one style property (colour, dash, shape) per series. */
+function seriesEncodings(data: ChartData, present: Set<string>) {
   // Legend order: the engine's series order, then anything it did not list.
   const ordered = [...data.seriesNames.filter((n) => present.has(n)), ...[...present].filter((n) => !data.seriesNames.includes(n)).sort()];
   const labels = ordered.map(seriesLabel);
   // A lone series has nothing to be told apart from: it is drawn in ink, and the accent stays free for markers.
   const styles = ordered.length === 1 ? [SERIES_STYLES[0]] : ordered.map((name) => seriesStyle(name, data.seriesNames));
   const legend = labels.length > 1 ? {} : null;
-  const byStyle = <T,>(pick: (s: (typeof styles)[number]) => T) => ({
+  const byStyle = <T,>(pick: (s: SeriesStyle) => T) => ({
     field: "series",
     type: "nominal" as const,
     scale: { domain: labels, range: styles.map(pick) },
     legend,
   });
+  return { labels, byStyle };
+}
 
+/** The x and y encodings every layer shares, so the layers share scales, axes and titles. */
+function axisEncodings({ screen, logX, logY }: ChartContext, values: PlottedTraces["values"], xTitle: string, yTitle: string) {
   const x = {
     field: "x",
     type: "quantitative" as const,
@@ -173,13 +243,24 @@ export function buildVegaLiteSpec(data: ChartData, look: ChartLook): BuiltChart 
     title: yTitle,
     scale: { zero: false, nice: true, ...(logY ? { type: "log" as const } : {}) },
   };
+  return { x, y };
+}
+
+type Axes = ReturnType<typeof axisEncodings>;
+
+/** The traces' lines, and their points when the look asks for them (with the screen's tooltips). */
+function traceLayers(
+  { data, look, screen, size }: ChartContext,
+  { x, y }: Axes,
+  { labels, byStyle }: ReturnType<typeof seriesEncodings>,
+  { units, densest }: PlottedTraces,
+): Record<string, unknown>[] {
   const tooltip = [
     ...(labels.length > 1 ? [{ field: "series", type: "nominal", title: "Trace" }] : []),
     ...(units.size > 1 ? [{ field: "unit", type: "nominal", title: "Unit" }] : []),
     { field: "xText", type: "nominal", title: data.x.label },
     { field: "yText", type: "nominal", title: data.y.label },
   ];
-
   const layers: Record<string, unknown>[] = [
     {
       mark: { type: "line", clip: true, interpolate: "linear", strokeWidth: size.strokeWidth, opacity: units.size > 1 ? 0.8 : 1 },
@@ -195,14 +276,18 @@ export function buildVegaLiteSpec(data: ChartData, look: ChartLook): BuiltChart 
       encoding: { x, y, color: byStyle((s) => s.colour), shape: byStyle((s) => s.shape), ...(screen ? { tooltip } : {}) },
     });
   }
+  return layers;
+}
 
-  const markers = (data.markers ?? []).filter((m) => Number.isFinite(m.x) && Number.isFinite(m.y) && !(logX && m.x <= 0));
-  if (markers.length > 0) {
-    const markerValues = markers.map((m) => {
-      const point = { x: plotValue(m.x * xScale.factor), y: plotValue(m.y), label: m.label, unit: m.unit ?? "" };
-      return screen ? { ...point, xText: xText(m.x * xScale.factor), yText: yText(m.y) } : point;
-    });
-    layers.push({
+/** Marked points (the optimum, spurs) as open circles; on screen, a labelled one is also named in the corner. */
+function markerLayers({ data, screen, size, fonts, xScale, xText, yText }: ChartContext, { x, y }: Axes, markers: ChartMarker[]): Record<string, unknown>[] {
+  if (markers.length === 0) return [];
+  const markerValues = markers.map((m) => {
+    const point = { x: plotValue(m.x * xScale.factor), y: plotValue(m.y), label: m.label, unit: m.unit ?? "" };
+    return screen ? { ...point, xText: xText(m.x * xScale.factor), yText: yText(m.y) } : point;
+  });
+  const layers: Record<string, unknown>[] = [
+    {
       data: { values: markerValues },
       mark: { type: "point", shape: MARKER_STYLE.shape, filled: false, size: screen ? 110 : 42, strokeWidth: MARKER_STYLE.strokeWidth, color: MARKER_STYLE.colour, clip: true },
       // The line layer's x and y definitions, so the layers share scales, axes and titles.
@@ -219,23 +304,28 @@ export function buildVegaLiteSpec(data: ChartData, look: ChartLook): BuiltChart 
             }
           : {}),
       },
-    });
-    // On screen, a labelled marker (the optimum) is named in the plot's top-right corner, clear of its trace;
-    // the printed sheet names markers in the caption.
-    if (screen) {
-      markers
-        .filter((m) => m.label !== "spur")
-        .forEach((m, i) => {
-          const at = formatQuantity(m.x * xScale.factor, xScale.unit, { digits: { maxDecimals: 2 }, prefix: false });
-          layers.push({
-            data: { values: [{ text: `\u25CB ${m.label}: ${at}, ${yText(m.y)}` }] },
-            mark: { type: "text", align: "right", baseline: "top", x: "width", y: 8 + 16 * i, dx: -8, font: fonts.text, fontSize: size.legendLabel, color: MARKER_STYLE.labelColour, fontWeight: 600 },
-            encoding: { text: { field: "text" } },
-          });
+    },
+  ];
+  // On screen, a labelled marker (the optimum) is named in the plot's top-right corner, clear of its trace;
+  // the printed sheet names markers in the caption.
+  if (screen) {
+    markers
+      .filter((m) => m.label !== "spur")
+      .forEach((m, i) => {
+        const at = formatQuantity(m.x * xScale.factor, xScale.unit, { digits: { maxDecimals: 2 }, prefix: false });
+        layers.push({
+          data: { values: [{ text: `\u25CB ${m.label}: ${at}, ${yText(m.y)}` }] },
+          mark: { type: "text", align: "right", baseline: "top", x: "width", y: 8 + 16 * i, dx: -8, font: fonts.text, fontSize: size.legendLabel, color: MARKER_STYLE.labelColour, fontWeight: 600 },
+          encoding: { text: { field: "text" } },
         });
-    }
+      });
   }
+  return layers;
+}
 
+/** Horizontal reference lines (the thermal floor), each with its label at the right. */
+function ruleLayers({ data, screen, size, fonts }: ChartContext): Record<string, unknown>[] {
+  const layers: Record<string, unknown>[] = [];
   for (const rule of data.rules ?? []) {
     if (!Number.isFinite(rule.y)) continue;
     const label = `${rule.label}: ${formatQuantity(rule.y, data.y.unit, { digits: { maxDecimals: 1 } })}`;
@@ -250,19 +340,5 @@ export function buildVegaLiteSpec(data: ChartData, look: ChartLook): BuiltChart 
       encoding: { y: { field: "y", type: "quantitative" }, text: { field: "text" } },
     });
   }
-
-  const description = `${data.title}: ${yTitle} against ${xTitle}${labels.length > 1 ? `, traces ${labels.join(", ")}` : ""}.`;
-  const vegaLite = {
-    $schema: "https://vega.github.io/schema/vega-lite/v6.json",
-    description,
-    width: look.width,
-    height: look.height,
-    background: screen ? "transparent" : tokens.colors["paper-bright"],
-    padding: screen ? { left: 4, right: 12, top: 8, bottom: 4 } : 6,
-    data: { values },
-    layer: layers,
-    resolve: { scale: { color: "shared", strokeDash: "shared", shape: "shared" } },
-    config: chartConfig(look.medium, fonts),
-  };
-  return { vegaLite, xTitle, yTitle, seriesLabels: labels, unitCount: units.size, markerCount: markers.length, yMin, yMax };
+  return layers;
 }

@@ -1,0 +1,308 @@
+import { limitBasisWords } from "../domain/sheets";
+import type { SheetTemplate, SpecRowTemplate } from "../../templates/types";
+import { compareStrings } from "./compare";
+import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
+import { formatValue } from "./format";
+import { computeGroupStatistics, type GroupStatistics, type UnitValue } from "./statistics";
+import type { ApprovedSetInput, SheetInput, SheetModel, SpecLimitInput, SpecTableRow, StatisticsGroup } from "./types";
+
+const MEASURED_MEAN_FOOTNOTE =
+  "No typical value is stated: the figure is the mean of the units measured (n in the statistics annex).";
+
+type Issues = SheetModel["issues"];
+
+export interface SpecTable {
+  rows: SpecTableRow[];
+  /** One statistics group per row of the table, in the same order. */
+  groups: StatisticsGroup[];
+  footnotes: { mark: string; text: string }[];
+  decisionRules: string[];
+  /** Duplicate limits, then limits that match no row. */
+  issues: Issues;
+}
+
+/**
+ * The electrical specification table and its statistics: one row per template row and
+ * condition group that has measured values or a limit, with the limits that fed it, its
+ * footnotes and the decision rules its acceptance used.
+ */
+export function buildSpecTable(options: {
+  template: SheetTemplate;
+  sets: ApprovedSetInput[];
+  limits: SpecLimitInput[];
+  settings: SheetInput["settings"];
+  classLabel: string;
+}): SpecTable {
+  const { template, sets, settings } = options;
+  const { limits, duplicateIssues } = indexLimits(options.limits);
+  const usedLimits = new Set<string>();
+  const footnotes = createFootnotes();
+  const decisionRules = new Set<string>();
+  const rows: SpecTableRow[] = [];
+  const groups: StatisticsGroup[] = [];
+
+  for (const row of template.specifications.rows) {
+    const collected = collectRowValues(row, sets);
+    addLimitOnlyGroups(row, collected, limits, usedLimits);
+    for (const conditionsKey of orderedConditionKeys(row, collected)) {
+      const limitKey = `${row.parameter}|${conditionsKey}`;
+      const limit = limits.get(limitKey);
+      if (limit) usedLimits.add(limitKey);
+      const conditions = parseConditionsKey(conditionsKey);
+      const conditionCells = template.specifications.conditionColumns.map((column) => formatConditionCell(column, conditions));
+      const stats = computeGroupStatistics({
+        label: row.label,
+        unit: row.unit,
+        decimals: row.decimals,
+        values: collected.get(conditionsKey) ?? [],
+        limit,
+        expandedUncertainty: settings.measurementUncertainty?.[row.parameter],
+        cpkThreshold: settings.cpkThreshold,
+        coverage: settings.toleranceCoverage,
+        confidence: settings.toleranceConfidence,
+      });
+      if (stats.ruleStatement) decisionRules.add(stats.ruleStatement);
+      const cell = { row, conditionsKey, limit, stats };
+      groups.push(buildStatisticsGroup(cell, describeConditions(template, conditionCells)));
+      rows.push(buildSpecRow(cell, conditionCells, footnotes.markFor));
+    }
+  }
+
+  return {
+    rows,
+    groups,
+    footnotes: footnotes.list,
+    decisionRules: [...decisionRules].sort(),
+    issues: [...duplicateIssues, ...unusedLimitIssues(limits, usedLimits, options.classLabel)],
+  };
+}
+
+/** One cell of the table's loop: a template row under one condition group. */
+interface RowGroup {
+  row: SpecRowTemplate;
+  conditionsKey: string;
+  limit: SpecLimitInput | undefined;
+  stats: GroupStatistics;
+}
+
+function buildStatisticsGroup({ row, conditionsKey, limit, stats }: RowGroup, conditionsText: string): StatisticsGroup {
+  const basis = limit?.basis ?? row.defaultBasis;
+  return {
+    groupId: `${row.id}:${conditionsKey}`,
+    rowId: row.id,
+    parameter: row.parameter,
+    conditionsKey,
+    label: row.label,
+    symbol: row.symbol,
+    unit: row.unit,
+    conditionsText,
+    n: stats.n,
+    lots: stats.lots,
+    mean: stats.mean,
+    standardDeviation: stats.standardDeviation,
+    median: stats.median,
+    min: stats.min,
+    max: stats.max,
+    toleranceInterval: stats.toleranceInterval,
+    limits: limit
+      ? {
+          min: formatValue(limit.min, row.decimals),
+          typ: formatValue(limit.typ, row.decimals),
+          max: formatValue(limit.max, row.decimals),
+          basis,
+        }
+      : null,
+    cpk: stats.cpk,
+    expandedUncertainty: stats.expandedUncertainty,
+    decisionRule: stats.decisionRule,
+    acceptance: stats.acceptance,
+    passCount: stats.passCount,
+    failCount: stats.failCount,
+    units: stats.units,
+    flags: stats.flags,
+    supported: stats.flags.length === 0,
+  };
+}
+
+function buildSpecRow(
+  { row, conditionsKey, limit, stats }: RowGroup,
+  conditionCells: string[],
+  footnoteMark: (text: string) => string,
+): SpecTableRow {
+  const basis = limit?.basis ?? row.defaultBasis;
+  const typIsMeasuredMean = limit?.typ === undefined && stats.meanValue !== null;
+  const marks: string[] = [];
+  if (limit?.footnote) marks.push(footnoteMark(limit.footnote.trim()));
+  if (typIsMeasuredMean) marks.push(footnoteMark(MEASURED_MEAN_FOOTNOTE));
+  return {
+    groupId: `${row.id}:${conditionsKey}`,
+    rowId: row.id,
+    parameter: row.parameter,
+    conditionsKey,
+    label: row.label,
+    symbol: row.symbol,
+    unit: row.unit,
+    conditions: conditionCells,
+    min: formatValue(limit?.min, row.decimals),
+    typ: formatValue(limit?.typ ?? stats.meanValue, row.decimals),
+    max: formatValue(limit?.max, row.decimals),
+    typIsMeasuredMean,
+    basis,
+    basisMark: limitBasisWords[basis].mark,
+    footnoteMarks: marks,
+    n: stats.n,
+    supported: stats.flags.length === 0,
+  };
+}
+
+/** "Label value" for each condition column that has a value, for the statistics annex. */
+function describeConditions(template: SheetTemplate, conditionCells: string[]): string {
+  return template.specifications.conditionColumns
+    .map((column, i) => (conditionCells[i] ? `${column.label} ${conditionCells[i]}` : ""))
+    .filter(Boolean)
+    .join(", ");
+}
+
+/** Footnotes numbered in order of first use; the same text keeps its mark. */
+function createFootnotes() {
+  const list: { mark: string; text: string }[] = [];
+  const markFor = (text: string): string => {
+    const existing = list.find((f) => f.text === text);
+    if (existing) return existing.mark;
+    const mark = String(list.length + 1);
+    list.push({ mark, text });
+    return mark;
+  };
+  return { list, markFor };
+}
+
+/** A limit with no measured values still gets its row, when its conditions fit the template row. */
+function addLimitOnlyGroups(
+  row: SpecRowTemplate,
+  collected: Map<string, UnitValue[]>,
+  limits: Map<string, SpecLimitInput>,
+  usedLimits: Set<string>,
+): void {
+  for (const [key, limit] of limits) {
+    if (limit.parameter !== row.parameter || usedLimits.has(key)) continue;
+    if (!collected.has(limit.conditionsKey) && limitFitsRow(row, limit)) collected.set(limit.conditionsKey, []);
+  }
+}
+
+function orderedConditionKeys(row: SpecRowTemplate, collected: Map<string, UnitValue[]>): string[] {
+  return [...collected.keys()].sort((a, b) => compareConditions(parseConditionsKey(a), parseConditionsKey(b), row.groupBy));
+}
+
+function unusedLimitIssues(limits: Map<string, SpecLimitInput>, usedLimits: Set<string>, classLabel: string): Issues {
+  const issues: Issues = [];
+  for (const [key, limit] of limits) {
+    if (!usedLimits.has(key)) {
+      issues.push({
+        code: "limit-not-shown",
+        message: `The limit for ${limit.parameter} at "${limit.conditionsKey}" matches no row of the ${classLabel.toLowerCase()} template.`,
+      });
+    }
+  }
+  return issues;
+}
+
+function compareValues(a: string | number | undefined, b: string | number | undefined): number {
+  if (a === b) return 0;
+  if (a === undefined) return -1;
+  if (b === undefined) return 1;
+  if (typeof a === "number" && typeof b === "number") return a - b;
+  if (typeof a === "number") return -1;
+  if (typeof b === "number") return 1;
+  return compareStrings(a, b);
+}
+
+function compareConditions(a: Conditions, b: Conditions, order: string[]): number {
+  for (const key of order) {
+    const c = compareValues(a[key], b[key]);
+    if (c !== 0) return c;
+  }
+  return compareStrings(makeConditionsKey(a), makeConditionsKey(b));
+}
+
+function indexLimits(input: SpecLimitInput[]) {
+  const limits = new Map<string, SpecLimitInput>();
+  const duplicateIssues: Issues = [];
+  const sorted = [...input].sort(
+    (a, b) =>
+      compareStrings(a.parameter, b.parameter) ||
+      compareStrings(a.conditionsKey, b.conditionsKey) ||
+      compareStrings(JSON.stringify(a), JSON.stringify(b)),
+  );
+  for (const limit of sorted) {
+    const key = `${limit.parameter}|${limit.conditionsKey}`;
+    if (limits.has(key)) {
+      duplicateIssues.push({ code: "duplicate-limit", message: `Two limits for ${limit.parameter} at "${limit.conditionsKey}": the first in sort order is used.` });
+      continue;
+    }
+    limits.set(key, limit);
+  }
+  return { limits, duplicateIssues };
+}
+
+function groupConditions(row: SpecRowTemplate, conditions: Conditions): Conditions | null {
+  const match = row.match ?? {};
+  for (const key of Object.keys(match)) if (conditions[key] !== match[key]) return null;
+  const picked: Conditions = { ...match };
+  for (const key of row.groupBy) if (conditions[key] !== undefined) picked[key] = conditions[key];
+  return picked;
+}
+
+function limitFitsRow(row: SpecRowTemplate, limit: SpecLimitInput): boolean {
+  const conditions = parseConditionsKey(limit.conditionsKey);
+  const grouped = groupConditions(row, conditions);
+  return grouped !== null && makeConditionsKey(grouped) === limit.conditionsKey;
+}
+
+interface Candidate extends UnitValue {
+  measuredOn: string;
+  tieBreak: string;
+}
+
+/** Values of one row by condition group, one per unit: the latest set wins when a unit was measured twice. */
+function collectRowValues(row: SpecRowTemplate, sets: ApprovedSetInput[]): Map<string, UnitValue[]> {
+  const byGroup = new Map<string, Map<string, Candidate>>();
+  for (const set of sets) {
+    const setId = String(set.id);
+    for (const parameter of set.parameters) {
+      if (parameter.name !== row.parameter || parameter.value === null || !Number.isFinite(parameter.value)) continue;
+      const conditions: Conditions = { ...parameter.conditions };
+      if (set.temperatureC !== undefined && conditions.temperatureC === undefined) conditions.temperatureC = set.temperatureC;
+      const grouped = groupConditions(row, conditions);
+      if (!grouped) continue;
+      const key = makeConditionsKey(grouped);
+      const candidate: Candidate = {
+        serial: set.serial,
+        lot: set.lot ?? null,
+        setId,
+        value: parameter.value,
+        measuredOn: set.measuredOn,
+        tieBreak: `${setId}|${makeConditionsKey(parameter.conditions)}|${parameter.value}`,
+      };
+      let units = byGroup.get(key);
+      if (!units) byGroup.set(key, (units = new Map()));
+      const current = units.get(set.serial);
+      if (
+        !current ||
+        candidate.measuredOn > current.measuredOn ||
+        (candidate.measuredOn === current.measuredOn && candidate.tieBreak > current.tieBreak)
+      ) {
+        units.set(set.serial, candidate);
+      }
+    }
+  }
+  const result = new Map<string, UnitValue[]>();
+  for (const [key, units] of byGroup) {
+    result.set(
+      key,
+      [...units.values()]
+        .sort((a, b) => compareStrings(a.serial, b.serial))
+        .map(({ serial, lot, setId, value }) => ({ serial, lot, setId, value })),
+    );
+  }
+  return result;
+}
