@@ -96,10 +96,12 @@ async function freshPdfSeconds(cookie: string, deviceId: number): Promise<number
       body: JSON.stringify({ partNumber: device.partNumber, deviceClass: device.deviceClass, title: device.title, description, keyConditions: device.keyConditions }),
     });
   const times: number[] = [];
+  // Unique per run: a description used before may still have its PDF in the server's cache.
+  const runTag = Date.now().toString(36);
   try {
     for (let i = 1; i <= freshRenders; i++) {
       // A new description is a new sheet model, so the next PDF is rendered, not served from the cache.
-      if (!(await patch(`${device.description} (load benchmark ${i})`)).ok) throw new Error("could not change the device for a fresh render");
+      if (!(await patch(`${device.description} (load benchmark ${runTag}-${i})`)).ok) throw new Error("could not change the device for a fresh render");
       const started = performance.now();
       const pdf = await fetch(`${baseUrl}/api/devices/${deviceId}/sheet/pdf`, { headers: { cookie } });
       await pdf.arrayBuffer();
