@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { buttonClass } from "@/components/ui/button";
 import { selectClass } from "@/components/ui/field";
+import { ScrollTable } from "@/components/ui/scroll-table";
 import { deviceListHref, type DeviceListQuery, type DeviceSortKey } from "./device-list-query";
 
 /**
@@ -89,7 +90,8 @@ type PagedListTableProps = ListControlProps & {
   /** Prefix of the test ids: `${testIdPrefix}-search`, `-no-match`, `-table`, `-pager`. */
   testIdPrefix: string;
   noMatchText: string;
-  regionLabel: string;
+  /** What the table holds, for screen readers ("Devices table"). */
+  tableLabel: string;
   pagerLabel: string;
   /** The table's `<thead>` and `<tbody>`. */
   children: React.ReactNode;
@@ -109,7 +111,7 @@ export function PagedListTable({
   sortWords,
   testIdPrefix,
   noMatchText,
-  regionLabel,
+  tableLabel,
   pagerLabel,
   children,
 }: PagedListTableProps) {
@@ -121,22 +123,20 @@ export function PagedListTable({
           {noMatchText} “{query.q}”.
         </p>
       ) : (
-        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={regionLabel}>
-          <table className="sheet-table" data-testid={`${testIdPrefix}-table`}>
-            <caption>
-              <span className="figure">{total}</span> {total === 1 ? noun[0] : noun[1]}
-              {query.q ? <> matching “{query.q}”</> : null}, by {sortWords[query.sort]}
-              {query.dir === "desc" ? " (descending)" : ""}
-              {pageCount > 1 ? (
-                <>
-                  {" "}
-                  · page <span className="figure">{page}</span> of <span className="figure">{pageCount}</span>
-                </>
-              ) : null}
-            </caption>
-            {children}
-          </table>
-        </div>
+        <ScrollTable label={tableLabel} testId={`${testIdPrefix}-table`}>
+          <caption>
+            <span className="figure">{total}</span> {total === 1 ? noun[0] : noun[1]}
+            {query.q ? <> matching “{query.q}”</> : null}, by {sortWords[query.sort]}
+            {query.dir === "desc" ? " (descending)" : ""}
+            {pageCount > 1 ? (
+              <>
+                {" "}
+                · page <span className="figure">{page}</span> of <span className="figure">{pageCount}</span>
+              </>
+            ) : null}
+          </caption>
+          {children}
+        </ScrollTable>
       )}
       {pageCount > 1 ? <Pager query={query} basePath={basePath} page={page} pageCount={pageCount} label={pagerLabel} testId={`${testIdPrefix}-pager`} /> : null}
     </>

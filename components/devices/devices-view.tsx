@@ -48,7 +48,7 @@ export function DevicesView({ devicePage, organizationName, query, canCreate }: 
           sortWords={sortWords}
           testIdPrefix="devices"
           noMatchText="No device matches"
-          regionLabel="Devices table, scrolls sideways on narrow screens"
+          tableLabel="Devices table"
           pagerLabel="Pages of the device list"
         >
           <thead>

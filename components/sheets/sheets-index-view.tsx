@@ -45,7 +45,7 @@ export function SheetsIndexView({ sheetPage, query, organizationName, canEdit }:
           sortWords={sortWords}
           testIdPrefix="sheets"
           noMatchText="No sheet matches"
-          regionLabel="Draft sheets table, scrolls sideways on narrow screens"
+          tableLabel="Draft sheets table"
           pagerLabel="Pages of the sheets index"
         >
           <thead>
