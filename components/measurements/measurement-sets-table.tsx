@@ -1,10 +1,9 @@
-import Link from "next/link";
 import type { MeasurementSetSummary } from "@/lib/domain/measurements";
-import { formatDateTime } from "@/lib/format";
 import { NumberQuantity } from "@/components/ui/quantity";
 import { kindLabel } from "@/lib/domain/measurements";
 import { StateBadge } from "./state-badge";
 import { ScrollTable } from "@/components/ui/scroll-table";
+import { SetFileCell, SetLink, SetUploadedCell } from "./set-cells";
 
 /** Every set of one device, newest first: what was measured, on which unit, and where it stands. */
 export function MeasurementSetsTable({ deviceId, sets }: { deviceId: number; sets: MeasurementSetSummary[] }) {
@@ -35,15 +34,11 @@ export function MeasurementSetsTable({ deviceId, sets }: { deviceId: number; set
         {sets.map((set) => (
           <tr key={set.id} data-testid={`set-row-${set.id}`}>
             <th scope="row" className="whitespace-nowrap">
-              <Link href={`/devices/${deviceId}/measurements/${set.id}`} className="figure font-semibold">
-                #{set.id}
-              </Link>
+              <SetLink deviceId={deviceId} setId={set.id} />
               {set.supersededById ? <span className="ml-1.5 text-sm text-ink-muted">superseded</span> : null}
             </th>
             <td className="whitespace-nowrap">{kindLabel(set.kind)}</td>
-            <td className="max-w-[16rem] truncate" title={set.fileName}>
-              <span className="figure text-[0.875rem]">{set.fileName}</span>
-            </td>
+            <SetFileCell fileName={set.fileName} maxWidthClass="max-w-[16rem]" />
             <td className="figure whitespace-nowrap">{set.conditions.serial ?? "—"}</td>
             <td className="figure whitespace-nowrap">{set.conditions.lot ?? <span className="text-ink-muted">—</span>}</td>
             <td className="num">
@@ -56,11 +51,7 @@ export function MeasurementSetsTable({ deviceId, sets }: { deviceId: number; set
             <td>
               <StateBadge state={set.state} />
             </td>
-            <td className="whitespace-nowrap text-[0.875rem]">
-              {set.uploadedBy ?? (set.source === "bench-api" ? `Bench token “${set.benchTokenName ?? "removed"}”` : "—")}
-              <br />
-              <span className="figure text-ink-muted">{formatDateTime(set.createdAt)}</span>
-            </td>
+            <SetUploadedCell set={set} />
             <td className="num">
               {set.warnings.length === 0 ? (
                 <span className="figure text-ink-muted">0</span>

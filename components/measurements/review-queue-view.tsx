@@ -1,11 +1,10 @@
-import Link from "next/link";
 import type { MeasurementSetSummary } from "@/lib/domain/measurements";
-import { formatDateTime } from "@/lib/format";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { kindLabel } from "@/lib/domain/measurements";
 import { ScrollTable } from "@/components/ui/scroll-table";
+import { SetFileCell, SetLink, SetUploadedCell } from "./set-cells";
 
 type ReviewQueueViewProps = { organizationName: string; sets: MeasurementSetSummary[] };
 
@@ -45,20 +44,12 @@ export function ReviewQueueView({ organizationName, sets }: ReviewQueueViewProps
                 return (
                   <tr key={set.id} data-testid={`review-row-${set.id}`}>
                     <th scope="row">
-                      <Link href={`/devices/${set.deviceId}/measurements/${set.id}`} className="figure font-semibold">
-                        #{set.id}
-                      </Link>
+                      <SetLink deviceId={set.deviceId} setId={set.id} />
                     </th>
                     <td className="figure whitespace-nowrap">{set.partNumber}</td>
                     <td className="whitespace-nowrap">{kindLabel(set.kind)}</td>
-                    <td className="max-w-[18rem] truncate" title={set.fileName}>
-                      <span className="figure text-[0.875rem]">{set.fileName}</span>
-                    </td>
-                    <td className="whitespace-nowrap text-[0.875rem]">
-                      {set.uploadedBy ?? (set.source === "bench-api" ? `Bench token “${set.benchTokenName ?? "removed"}”` : "—")}
-                      <br />
-                      <span className="figure text-ink-muted">{formatDateTime(set.createdAt)}</span>
-                    </td>
+                    <SetFileCell fileName={set.fileName} maxWidthClass="max-w-[18rem]" />
+                    <SetUploadedCell set={set} />
                     <td className="num">
                       <span className={`figure ${set.warnings.length ? "font-semibold text-signal-deep" : "text-ink-muted"}`}>{set.warnings.length}</span>
                     </td>
