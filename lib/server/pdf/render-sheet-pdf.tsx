@@ -7,6 +7,7 @@ import { type Cell, colors, type Column, PdfNotation, PdfProse, PdfTable, Sectio
 import { renderSheetChartPngs } from "../charts/render-chart";
 import { settleGlyphCodePoints } from "./settle-glyph-code-points";
 import { stampPageNumbers } from "./stamp-page-numbers";
+import { proseLayout } from "../../sheet/prose-layout";
 
 let fontsRegistered = false;
 
@@ -91,10 +92,7 @@ const FOOT_BASELINE_FROM_BOTTOM = 27.8;
 
 function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<string, Buffer> }) {
   const { header } = model;
-  const proseById = new Map(model.prose.map((section) => [section.id, section]));
-  const description = proseById.get("description");
-  const features = proseById.get("features");
-  const laterProse = model.prose.filter((section) => section.id !== "description" && section.id !== "features");
+  const { description, features, later: laterProse } = proseLayout(model.prose);
   return (
     <Document
       title={`${header.partNumber} ${header.title} (${header.revisionText})`}
