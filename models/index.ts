@@ -38,32 +38,7 @@ export type {
 };
 export * from "./connection";
 
-function initModels(sequelize: Sequelize): Sequelize {
-  for (const model of [
-    Organization, User, Invitation, PasswordReset, SignInAttempt, AuditEvent, Device,
-    StoredFile, Instrument, BenchToken, ColumnMapping, MeasurementSet, MeasurementSetInstrument,
-    SpecLimit, SheetContent, RevokedSession, SignUpRequest,
-  ]) {
-    model.initModel(sequelize);
-  }
-  Organization.hasMany(User, { foreignKey: "organizationId" });
-  User.belongsTo(Organization, { foreignKey: "organizationId" });
-  Organization.hasMany(Device, { foreignKey: "organizationId" });
-  Device.belongsTo(Organization, { foreignKey: "organizationId" });
-  Invitation.belongsTo(Organization, { foreignKey: "organizationId" });
-  Invitation.belongsTo(User, { as: "invitedBy", foreignKey: "invitedById" });
-  PasswordReset.belongsTo(User, { foreignKey: "userId" });
-  Device.hasMany(MeasurementSet, { foreignKey: "deviceId" });
-  MeasurementSet.belongsTo(Device, { foreignKey: "deviceId" });
-  MeasurementSet.belongsTo(StoredFile, { foreignKey: "storedFileId" });
-  MeasurementSet.belongsTo(User, { as: "uploadedBy", foreignKey: "uploadedById" });
-  MeasurementSet.belongsTo(User, { as: "reviewedBy", foreignKey: "reviewedById" });
-  MeasurementSet.belongsTo(BenchToken, { as: "benchToken", foreignKey: "benchTokenId" });
-  MeasurementSet.belongsToMany(Instrument, { through: MeasurementSetInstrument, foreignKey: "measurementSetId", otherKey: "instrumentId" });
-  Instrument.belongsToMany(MeasurementSet, { through: MeasurementSetInstrument, foreignKey: "instrumentId", otherKey: "measurementSetId" });
-  return sequelize;
-}
-
+/** Every model, by name: what db() hands out, and what initModels sets up (one list, so none is left out). */
 const models = {
   AuditEvent,
   BenchToken,
@@ -83,6 +58,26 @@ const models = {
   StoredFile,
   User,
 };
+
+function initModels(sequelize: Sequelize): Sequelize {
+  for (const model of Object.values(models)) model.initModel(sequelize);
+  Organization.hasMany(User, { foreignKey: "organizationId" });
+  User.belongsTo(Organization, { foreignKey: "organizationId" });
+  Organization.hasMany(Device, { foreignKey: "organizationId" });
+  Device.belongsTo(Organization, { foreignKey: "organizationId" });
+  Invitation.belongsTo(Organization, { foreignKey: "organizationId" });
+  Invitation.belongsTo(User, { as: "invitedBy", foreignKey: "invitedById" });
+  PasswordReset.belongsTo(User, { foreignKey: "userId" });
+  Device.hasMany(MeasurementSet, { foreignKey: "deviceId" });
+  MeasurementSet.belongsTo(Device, { foreignKey: "deviceId" });
+  MeasurementSet.belongsTo(StoredFile, { foreignKey: "storedFileId" });
+  MeasurementSet.belongsTo(User, { as: "uploadedBy", foreignKey: "uploadedById" });
+  MeasurementSet.belongsTo(User, { as: "reviewedBy", foreignKey: "reviewedById" });
+  MeasurementSet.belongsTo(BenchToken, { as: "benchToken", foreignKey: "benchTokenId" });
+  MeasurementSet.belongsToMany(Instrument, { through: MeasurementSetInstrument, foreignKey: "measurementSetId", otherKey: "instrumentId" });
+  Instrument.belongsToMany(MeasurementSet, { through: MeasurementSetInstrument, foreignKey: "instrumentId", otherKey: "measurementSetId" });
+  return sequelize;
+}
 
 /** The connection and every model, initialised on it. */
 export type Database = typeof models & { sequelize: Sequelize };

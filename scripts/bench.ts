@@ -1,5 +1,6 @@
 import { deriveParameters } from "../lib/analysis";
 import { parseMeasurementFile } from "../lib/ingest";
+import { mulberry32 } from "../lib/stats/seeded-random";
 
 /**
  * Engine throughput against a plain split-and-Number() reading of the same bytes,
@@ -7,17 +8,6 @@ import { parseMeasurementFile } from "../lib/ingest";
  * Run with `npm run bench`; option --reps <n> (default 7). Parse and derive are also timed apart,
  * since the plain reference only compares with the parse.
  */
-
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function gaussian(random: () => number): number {
   return Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random());

@@ -9,6 +9,7 @@ import { useJsonResource } from "@/components/use-json-resource";
 import { buttonClass } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { ScrollTable } from "@/components/ui/scroll-table";
 
 type Created = { token: string; benchToken: BenchTokenSummary };
 
@@ -90,56 +91,54 @@ export function BenchTokensPanel({ initialTokens, appOrigin }: { initialTokens: 
             No bench token has been created.
           </p>
         ) : (
-          <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Bench tokens, scrolls sideways on narrow screens">
-            <table className="sheet-table" data-testid="bench-tokens-table">
-              <thead>
-                <tr>
-                  <th scope="col">Name</th>
-                  <th scope="col">Starts with</th>
-                  <th scope="col" className="num">
-                    Created
+          <ScrollTable label="Bench tokens" testId="bench-tokens-table">
+            <thead>
+              <tr>
+                <th scope="col">Name</th>
+                <th scope="col">Starts with</th>
+                <th scope="col" className="num">
+                  Created
+                </th>
+                <th scope="col" className="num">
+                  Last used
+                </th>
+                <th scope="col">Status</th>
+                <th scope="col">
+                  <span className="sr-only">Revoke</span>
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {tokens.data.map((t) => (
+                <tr key={t.id} data-testid={`bench-token-${t.id}`}>
+                  <th scope="row" className="font-semibold">
+                    {t.name}
                   </th>
-                  <th scope="col" className="num">
-                    Last used
-                  </th>
-                  <th scope="col">Status</th>
-                  <th scope="col">
-                    <span className="sr-only">Revoke</span>
-                  </th>
+                  <td className="figure">{t.prefix}…</td>
+                  <td className="num">
+                    <span className="figure">{formatDateTime(t.createdAt)}</span>
+                  </td>
+                  <td className="num">{t.lastUsedAt ? <span className="figure">{formatDateTime(t.lastUsedAt)}</span> : <span className="text-ink-muted">never</span>}</td>
+                  <td>
+                    {t.revokedAt ? (
+                      <span className="font-semibold text-signal-deep">
+                        Revoked <span className="figure font-normal">{formatDateTime(t.revokedAt)}</span>
+                      </span>
+                    ) : (
+                      "Active"
+                    )}
+                  </td>
+                  <td className="num">
+                    {t.revokedAt ? null : (
+                      <button type="button" className={buttonClass.quiet} onClick={() => void revoke(t)}>
+                        Revoke<span className="sr-only"> {t.name}</span>
+                      </button>
+                    )}
+                  </td>
                 </tr>
-              </thead>
-              <tbody>
-                {tokens.data.map((t) => (
-                  <tr key={t.id} data-testid={`bench-token-${t.id}`}>
-                    <th scope="row" className="font-semibold">
-                      {t.name}
-                    </th>
-                    <td className="figure">{t.prefix}…</td>
-                    <td className="num">
-                      <span className="figure">{formatDateTime(t.createdAt)}</span>
-                    </td>
-                    <td className="num">{t.lastUsedAt ? <span className="figure">{formatDateTime(t.lastUsedAt)}</span> : <span className="text-ink-muted">never</span>}</td>
-                    <td>
-                      {t.revokedAt ? (
-                        <span className="font-semibold text-signal-deep">
-                          Revoked <span className="figure font-normal">{formatDateTime(t.revokedAt)}</span>
-                        </span>
-                      ) : (
-                        "Active"
-                      )}
-                    </td>
-                    <td className="num">
-                      {t.revokedAt ? null : (
-                        <button type="button" className={buttonClass.quiet} onClick={() => void revoke(t)}>
-                          Revoke<span className="sr-only"> {t.name}</span>
-                        </button>
-                      )}
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+              ))}
+            </tbody>
+          </ScrollTable>
         )}
       </section>
     </div>

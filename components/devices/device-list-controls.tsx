@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { buttonClass } from "@/components/ui/button";
 import { selectClass } from "@/components/ui/field";
+import { ScrollTable } from "@/components/ui/scroll-table";
 import { deviceListHref, type DeviceListQuery, type DeviceSortKey } from "./device-list-query";
 
 /**
@@ -74,5 +75,70 @@ export function Pager({ query, basePath, page, pageCount, label, testId }: ListC
         <span className="text-ink-muted">Next →</span>
       )}
     </nav>
+  );
+}
+
+type PagedListTableProps = ListControlProps & {
+  /** `{ total, page, pageCount }` of the page shown. */
+  total: number;
+  page: number;
+  pageCount: number;
+  /** What one row is, as the caption counts it: ["device", "devices"]. */
+  noun: [singular: string, plural: string];
+  /** How the caption names each sort key ("by part number"). */
+  sortWords: Record<DeviceSortKey, string>;
+  /** Prefix of the test ids: `${testIdPrefix}-search`, `-no-match`, `-table`, `-pager`. */
+  testIdPrefix: string;
+  noMatchText: string;
+  /** What the table holds, for screen readers ("Devices table"). */
+  tableLabel: string;
+  pagerLabel: string;
+  /** The table's `<thead>` and `<tbody>`. */
+  children: React.ReactNode;
+};
+
+/**
+ * The body of a list paged like the device list: the search box, a "no match" line or the table
+ * with its counting caption, and the pager. The caller gives the table's head and rows.
+ */
+export function PagedListTable({
+  query,
+  basePath,
+  total,
+  page,
+  pageCount,
+  noun,
+  sortWords,
+  testIdPrefix,
+  noMatchText,
+  tableLabel,
+  pagerLabel,
+  children,
+}: PagedListTableProps) {
+  return (
+    <>
+      <DeviceListSearch query={query} basePath={basePath} label="Search part number or title" testId={`${testIdPrefix}-search`} />
+      {total === 0 ? (
+        <p className="border-y border-rule py-4 text-ink-muted" data-testid={`${testIdPrefix}-no-match`}>
+          {noMatchText} “{query.q}”.
+        </p>
+      ) : (
+        <ScrollTable label={tableLabel} testId={`${testIdPrefix}-table`}>
+          <caption>
+            <span className="figure">{total}</span> {total === 1 ? noun[0] : noun[1]}
+            {query.q ? <> matching “{query.q}”</> : null}, by {sortWords[query.sort]}
+            {query.dir === "desc" ? " (descending)" : ""}
+            {pageCount > 1 ? (
+              <>
+                {" "}
+                · page <span className="figure">{page}</span> of <span className="figure">{pageCount}</span>
+              </>
+            ) : null}
+          </caption>
+          {children}
+        </ScrollTable>
+      )}
+      {pageCount > 1 ? <Pager query={query} basePath={basePath} page={page} pageCount={pageCount} label={pagerLabel} testId={`${testIdPrefix}-pager`} /> : null}
+    </>
   );
 }

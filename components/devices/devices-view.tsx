@@ -6,7 +6,7 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { NumberQuantity, RangeQuantity } from "@/components/ui/quantity";
 import { deviceClassLabels } from "@/lib/domain/device-classes";
-import { DeviceListSearch, Pager, SortHeader } from "./device-list-controls";
+import { PagedListTable, SortHeader } from "./device-list-controls";
 import type { DeviceListQuery, DeviceSortKey } from "./device-list-query";
 import { DeviceForm } from "./device-form";
 
@@ -38,83 +38,70 @@ export function DevicesView({ devicePage, organizationName, query, canCreate }: 
           <p>Devices your engineers register appear here, one row per part number.</p>
         </EmptyState>
       ) : (
-        <>
-          <DeviceListSearch query={query} basePath="/devices" label="Search part number or title" testId="devices-search" />
-          {total === 0 ? (
-            <p className="border-y border-rule py-4 text-ink-muted" data-testid="devices-no-match">
-              No device matches “{query.q}”.
-            </p>
-          ) : (
-            <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Devices table, scrolls sideways on narrow screens">
-              <table className="sheet-table" data-testid="devices-table">
-                <caption>
-                  <span className="figure">{total}</span> {total === 1 ? "device" : "devices"}
-                  {query.q ? <> matching “{query.q}”</> : null}, by {sortWords[query.sort]}
-                  {query.dir === "desc" ? " (descending)" : ""}
-                  {pageCount > 1 ? (
-                    <>
-                      {" "}
-                      · page <span className="figure">{page}</span> of <span className="figure">{pageCount}</span>
-                    </>
-                  ) : null}
-                </caption>
-                <thead>
-                  <tr>
-                    <SortHeader label="Part number" sortKey="part" query={query} basePath="/devices" />
-                    <SortHeader label="Class" sortKey="class" query={query} basePath="/devices" />
-                    <th scope="col">Title</th>
-                    <th scope="col">Input range</th>
-                    <th scope="col">Output range</th>
-                    <th scope="col" className="num">
-                      Drive
-                    </th>
-                    <SortHeader label="Updated" sortKey="updated" query={query} basePath="/devices" numeric />
-                  </tr>
-                </thead>
-                <tbody>
-                  {rows.map((device) => {
-                    const k = device.keyConditions;
-                    return (
-                      <tr key={device.id}>
-                        <th scope="row" className="figure whitespace-nowrap font-semibold">
-                          <Link href={`/devices/${device.id}`}>{device.partNumber}</Link>
-                        </th>
-                        <td className="whitespace-nowrap">
-                          {deviceClassLabels[device.deviceClass]}
-                          {k.multiplicationFactor ? (
-                            <span className="figure ml-1.5 text-ink-muted" title={`Multiplication factor ${k.multiplicationFactor}`}>
-                              ×{formatNumber(k.multiplicationFactor)}
-                            </span>
-                          ) : null}
-                        </td>
-                        <td className="min-w-[16rem]">{device.title}</td>
-                        <td className="whitespace-nowrap">
-                          <Range range={k.inputFrequencyHz} />
-                        </td>
-                        <td className="whitespace-nowrap">
-                          <Range range={k.outputFrequencyHz} />
-                        </td>
-                        <td className="num">
-                          {k.driveLevelDbm === undefined ? (
-                            <span className="text-ink-muted">—</span>
-                          ) : (
-                            <NumberQuantity value={k.driveLevelDbm} unit="dBm" signed />
-                          )}
-                        </td>
-                        <td className="num whitespace-nowrap">
-                          <span className="figure">{formatDate(device.updatedAt)}</span>
-                        </td>
-                      </tr>
-                    );
-                  })}
-                </tbody>
-              </table>
-            </div>
-          )}
-          {pageCount > 1 ? (
-            <Pager query={query} basePath="/devices" page={page} pageCount={pageCount} label="Pages of the device list" testId="devices-pager" />
-          ) : null}
-        </>
+        <PagedListTable
+          query={query}
+          basePath="/devices"
+          total={total}
+          page={page}
+          pageCount={pageCount}
+          noun={["device", "devices"]}
+          sortWords={sortWords}
+          testIdPrefix="devices"
+          noMatchText="No device matches"
+          tableLabel="Devices table"
+          pagerLabel="Pages of the device list"
+        >
+          <thead>
+            <tr>
+              <SortHeader label="Part number" sortKey="part" query={query} basePath="/devices" />
+              <SortHeader label="Class" sortKey="class" query={query} basePath="/devices" />
+              <th scope="col">Title</th>
+              <th scope="col">Input range</th>
+              <th scope="col">Output range</th>
+              <th scope="col" className="num">
+                Drive
+              </th>
+              <SortHeader label="Updated" sortKey="updated" query={query} basePath="/devices" numeric />
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((device) => {
+              const k = device.keyConditions;
+              return (
+                <tr key={device.id}>
+                  <th scope="row" className="figure whitespace-nowrap font-semibold">
+                    <Link href={`/devices/${device.id}`}>{device.partNumber}</Link>
+                  </th>
+                  <td className="whitespace-nowrap">
+                    {deviceClassLabels[device.deviceClass]}
+                    {k.multiplicationFactor ? (
+                      <span className="figure ml-1.5 text-ink-muted" title={`Multiplication factor ${k.multiplicationFactor}`}>
+                        ×{formatNumber(k.multiplicationFactor)}
+                      </span>
+                    ) : null}
+                  </td>
+                  <td className="min-w-[16rem]">{device.title}</td>
+                  <td className="whitespace-nowrap">
+                    <Range range={k.inputFrequencyHz} />
+                  </td>
+                  <td className="whitespace-nowrap">
+                    <Range range={k.outputFrequencyHz} />
+                  </td>
+                  <td className="num">
+                    {k.driveLevelDbm === undefined ? (
+                      <span className="text-ink-muted">—</span>
+                    ) : (
+                      <NumberQuantity value={k.driveLevelDbm} unit="dBm" signed />
+                    )}
+                  </td>
+                  <td className="num whitespace-nowrap">
+                    <span className="figure">{formatDate(device.updatedAt)}</span>
+                  </td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </PagedListTable>
       )}
       {canCreate ? (
         <section id="new-device" aria-labelledby="new-device-title" className="mt-14 max-w-3xl scroll-mt-8 border-t border-rule pt-8">

@@ -1,10 +1,10 @@
-import Link from "next/link";
 import type { MeasurementSetSummary } from "@/lib/domain/measurements";
-import { formatDateTime } from "@/lib/format";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { kindLabel } from "@/lib/domain/measurements";
+import { ScrollTable } from "@/components/ui/scroll-table";
+import { SetFileCell, SetLink, SetUploadedCell } from "./set-cells";
 
 type ReviewQueueViewProps = { organizationName: string; sets: MeasurementSetSummary[] };
 
@@ -26,48 +26,38 @@ export function ReviewQueueView({ organizationName, sets }: ReviewQueueViewProps
             <p>No measurement set is waiting. Sets you uploaded yourself never appear here: another reviewer decides on them.</p>
           </EmptyState>
         ) : (
-          <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Pending measurement sets, scrolls sideways on narrow screens">
-            <table className="sheet-table" data-testid="review-queue-table">
-              <thead>
-                <tr>
-                  <th scope="col">Set</th>
-                  <th scope="col">Device</th>
-                  <th scope="col">Kind</th>
-                  <th scope="col">File</th>
-                  <th scope="col">Uploaded</th>
-                  <th scope="col" className="num">
-                    Warnings
-                  </th>
-                </tr>
-              </thead>
-              <tbody>
-                {sets.map((set) => {
-                  return (
-                    <tr key={set.id} data-testid={`review-row-${set.id}`}>
-                      <th scope="row">
-                        <Link href={`/devices/${set.deviceId}/measurements/${set.id}`} className="figure font-semibold">
-                          #{set.id}
-                        </Link>
-                      </th>
-                      <td className="figure whitespace-nowrap">{set.partNumber}</td>
-                      <td className="whitespace-nowrap">{kindLabel(set.kind)}</td>
-                      <td className="max-w-[18rem] truncate" title={set.fileName}>
-                        <span className="figure text-[0.875rem]">{set.fileName}</span>
-                      </td>
-                      <td className="whitespace-nowrap text-[0.875rem]">
-                        {set.uploadedBy ?? (set.source === "bench-api" ? `Bench token “${set.benchTokenName ?? "removed"}”` : "—")}
-                        <br />
-                        <span className="figure text-ink-muted">{formatDateTime(set.createdAt)}</span>
-                      </td>
-                      <td className="num">
-                        <span className={`figure ${set.warnings.length ? "font-semibold text-signal-deep" : "text-ink-muted"}`}>{set.warnings.length}</span>
-                      </td>
-                    </tr>
-                  );
-                })}
-              </tbody>
-            </table>
-          </div>
+          <ScrollTable label="Pending measurement sets" testId="review-queue-table">
+            <thead>
+              <tr>
+                <th scope="col">Set</th>
+                <th scope="col">Device</th>
+                <th scope="col">Kind</th>
+                <th scope="col">File</th>
+                <th scope="col">Uploaded</th>
+                <th scope="col" className="num">
+                  Warnings
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {sets.map((set) => {
+                return (
+                  <tr key={set.id} data-testid={`review-row-${set.id}`}>
+                    <th scope="row">
+                      <SetLink deviceId={set.deviceId} setId={set.id} />
+                    </th>
+                    <td className="figure whitespace-nowrap">{set.partNumber}</td>
+                    <td className="whitespace-nowrap">{kindLabel(set.kind)}</td>
+                    <SetFileCell fileName={set.fileName} maxWidthClass="max-w-[18rem]" />
+                    <SetUploadedCell set={set} />
+                    <td className="num">
+                      <span className={`figure ${set.warnings.length ? "font-semibold text-signal-deep" : "text-ink-muted"}`}>{set.warnings.length}</span>
+                    </td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </ScrollTable>
         )}
       </section>
       <div className="max-w-prose">

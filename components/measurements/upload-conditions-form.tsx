@@ -150,31 +150,32 @@ function InstrumentChoice({ instruments, chosen, onChange }: { instruments: Inst
 function TextInput({ label, value, onChange, hint, mono }: { label: string; value: string; onChange: (v: string) => void; hint?: string; mono?: boolean }) {
   const id = useId();
   return (
-    <div className="space-y-1.5">
-      <label htmlFor={id} className="block text-[0.9375rem] font-semibold">
-        {label}
-      </label>
+    <LabelledInput id={id} label={label} hint={hint}>
       <input id={id} value={value} onChange={(e) => onChange(e.target.value)} className={`${selectClass} ${mono ? "figure" : ""}`} aria-describedby={hint ? `${id}-hint` : undefined} />
-      {hint ? (
-        <p id={`${id}-hint`} className="text-sm text-ink-muted">
-          {hint}
-        </p>
-      ) : null}
-    </div>
+    </LabelledInput>
   );
 }
 
 function UnitInput({ label, unit, value, onChange, hint }: { label: string; unit: string; value: string; onChange: (v: string) => void; hint?: string }) {
   const id = useId();
   return (
-    <div className="space-y-1.5">
-      <label htmlFor={id} className="block text-[0.9375rem] font-semibold">
-        {label}
-      </label>
+    <LabelledInput id={id} label={label} hint={hint}>
       <div className="flex items-center gap-2">
         <input id={id} inputMode="decimal" value={value} onChange={(e) => onChange(e.target.value)} className={`${selectClass} figure !w-28`} aria-describedby={hint ? `${id}-hint` : undefined} />
         <span className="unit">{unit}</span>
       </div>
+    </LabelledInput>
+  );
+}
+
+/** The label above an input (given as children, with this `id`) and its hint below, as `${id}-hint`. */
+function LabelledInput({ id, label, hint, children }: { id: string; label: string; hint?: string; children: React.ReactNode }) {
+  return (
+    <div className="space-y-1.5">
+      <label htmlFor={id} className="block text-[0.9375rem] font-semibold">
+        {label}
+      </label>
+      {children}
       {hint ? (
         <p id={`${id}-hint`} className="text-sm text-ink-muted">
           {hint}

@@ -1,3 +1,4 @@
+import { proseLayout } from "@/lib/sheet/prose-layout";
 import type { SheetModel } from "@/lib/sheet/types";
 import { SheetHeading } from "./sheet-heading";
 import { SheetProse } from "./sheet-prose";
@@ -58,9 +59,7 @@ function SheetKeyFacts({ facts }: { facts: SheetModel["keyFacts"] }) {
 
 /** The description and the key features, side by side. */
 export function SheetOverview({ model }: ModelProps) {
-  const proseById = new Map(model.prose.map((section) => [section.id, section]));
-  const description = proseById.get("description");
-  const features = proseById.get("features");
+  const { description, features } = proseLayout(model.prose);
   return (
     <div className="mt-8 grid gap-8 md:grid-cols-5">
       <section aria-labelledby="sheet-description" className="md:col-span-3">

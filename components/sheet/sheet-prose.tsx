@@ -1,12 +1,8 @@
-import { proseLimits } from "@/lib/sheet/prose-limits";
+import { proseTooDeep, proseTooDeepText } from "@/lib/sheet/prose-limits";
 import type { ProseBlock, ProseInline } from "@/lib/sheet/types";
 
-// The model's prose is within proseLimits when renderProse made it; a model from elsewhere (a
-// stored release, a hand-made one) still never makes these components recurse deeper than that.
-const TOO_DEEP = "[nested too deeply to show]";
-
 function Inlines({ nodes, depth }: { nodes: ProseInline[]; depth: number }) {
-  if (depth > proseLimits.maxNestingDepth) return TOO_DEEP;
+  if (proseTooDeep(depth)) return proseTooDeepText;
   return (
     <>
       {nodes.map((node, i) => {
@@ -43,7 +39,7 @@ function Inlines({ nodes, depth }: { nodes: ProseInline[]; depth: number }) {
 
 /** The sheet model's prose blocks as React elements: the same tree the PDF draws, no raw HTML. */
 export function SheetProse({ blocks, depth = 0 }: { blocks: ProseBlock[]; depth?: number }) {
-  if (depth > proseLimits.maxNestingDepth) return <p className="mb-2 text-ink-muted">{TOO_DEEP}</p>;
+  if (proseTooDeep(depth)) return <p className="mb-2 text-ink-muted">{proseTooDeepText}</p>;
   return (
     <>
       {blocks.map((block, i) => {

@@ -1,3 +1,4 @@
+import { proseLayout } from "@/lib/sheet/prose-layout";
 import type { SheetModel } from "@/lib/sheet/types";
 import { SheetHeading } from "./sheet-heading";
 import { SheetProse } from "./sheet-prose";
@@ -78,7 +79,7 @@ export function SheetCharts({ model, chartSvgs }: ModelProps & { chartSvgs: Reco
 
 /** The prose sections after the description and the key features, in the template's order. */
 export function SheetLaterProse({ model }: ModelProps) {
-  const laterProse = model.prose.filter((section) => section.id !== "description" && section.id !== "features");
+  const laterProse = proseLayout(model.prose).later;
   return (
     <>
       {laterProse.map((section) => (

@@ -2,7 +2,7 @@ import Link from "next/link";
 import { deviceClassLabels } from "@/lib/domain/device-classes";
 import type { DeviceListQuery, DeviceSortKey } from "@/lib/domain/devices";
 import type { SheetPage } from "@/lib/domain/sheets";
-import { DeviceListSearch, Pager, SortHeader } from "@/components/devices/device-list-controls";
+import { PagedListTable, SortHeader } from "@/components/devices/device-list-controls";
 import { formatDate } from "@/lib/format";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
@@ -35,69 +35,58 @@ export function SheetsIndexView({ sheetPage, query, organizationName, canEdit }:
           <p>A sheet belongs to a device. Once a device is registered and its measurement sets approved, its draft sheet appears here.</p>
         </EmptyState>
       ) : (
-        <>
-          <DeviceListSearch query={query} basePath={basePath} label="Search part number or title" testId="sheets-search" />
-          {total === 0 ? (
-            <p className="border-y border-rule py-4 text-ink-muted" data-testid="sheets-no-match">
-              No sheet matches “{query.q}”.
-            </p>
-          ) : (
-            <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Draft sheets table, scrolls sideways on narrow screens">
-              <table className="sheet-table" data-testid="sheets-table">
-                <caption>
-                  <span className="figure">{total}</span> {total === 1 ? "draft" : "drafts"}
-                  {query.q ? <> matching “{query.q}”</> : null}, by {sortWords[query.sort]}
-                  {query.dir === "desc" ? " (descending)" : ""}
-                  {pageCount > 1 ? (
-                    <>
-                      {" "}
-                      · page <span className="figure">{page}</span> of <span className="figure">{pageCount}</span>
-                    </>
-                  ) : null}
-                </caption>
-                <thead>
-                  <tr>
-                    <SortHeader label="Part number" sortKey="part" query={query} basePath={basePath} />
-                    <SortHeader label="Class" sortKey="class" query={query} basePath={basePath} />
-                    <th scope="col">Title</th>
-                    <th scope="col" className="num">
-                      Approved sets
-                    </th>
-                    <th scope="col" className="num">
-                      Units
-                    </th>
-                    <th scope="col" className="num">
-                      Awaiting review
-                    </th>
-                    <th scope="col" className="num">
-                      Limits set
-                    </th>
-                    <SortHeader label="Last change" sortKey="updated" query={query} basePath={basePath} numeric />
-                  </tr>
-                </thead>
-                <tbody>
-                  {rows.map((sheet) => (
-                    <tr key={sheet.deviceId} data-testid={`sheet-row-${sheet.partNumber}`}>
-                      <th scope="row" className="figure whitespace-nowrap font-semibold">
-                        <Link href={`/sheets/${sheet.deviceId}`}>{sheet.partNumber}</Link>
-                      </th>
-                      <td className="whitespace-nowrap">{deviceClassLabels[sheet.deviceClass]}</td>
-                      <td className="min-w-[14rem]">{sheet.title}</td>
-                      <Count value={sheet.approvedSetCount} testId="approved-sets" />
-                      <Count value={sheet.unitCount} testId="units" />
-                      <Count value={sheet.awaitingReviewCount} testId="awaiting-review" strong />
-                      <Count value={sheet.limitCount} testId="limits-set" />
-                      <td className="num whitespace-nowrap" data-testid="last-change">
-                        <span className="figure">{formatDate(sheet.lastChangeAt)}</span>
-                      </td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
-          )}
-          {pageCount > 1 ? <Pager query={query} basePath={basePath} page={page} pageCount={pageCount} label="Pages of the sheets index" testId="sheets-pager" /> : null}
-        </>
+        <PagedListTable
+          query={query}
+          basePath={basePath}
+          total={total}
+          page={page}
+          pageCount={pageCount}
+          noun={["draft", "drafts"]}
+          sortWords={sortWords}
+          testIdPrefix="sheets"
+          noMatchText="No sheet matches"
+          tableLabel="Draft sheets table"
+          pagerLabel="Pages of the sheets index"
+        >
+          <thead>
+            <tr>
+              <SortHeader label="Part number" sortKey="part" query={query} basePath={basePath} />
+              <SortHeader label="Class" sortKey="class" query={query} basePath={basePath} />
+              <th scope="col">Title</th>
+              <th scope="col" className="num">
+                Approved sets
+              </th>
+              <th scope="col" className="num">
+                Units
+              </th>
+              <th scope="col" className="num">
+                Awaiting review
+              </th>
+              <th scope="col" className="num">
+                Limits set
+              </th>
+              <SortHeader label="Last change" sortKey="updated" query={query} basePath={basePath} numeric />
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((sheet) => (
+              <tr key={sheet.deviceId} data-testid={`sheet-row-${sheet.partNumber}`}>
+                <th scope="row" className="figure whitespace-nowrap font-semibold">
+                  <Link href={`/sheets/${sheet.deviceId}`}>{sheet.partNumber}</Link>
+                </th>
+                <td className="whitespace-nowrap">{deviceClassLabels[sheet.deviceClass]}</td>
+                <td className="min-w-[14rem]">{sheet.title}</td>
+                <Count value={sheet.approvedSetCount} testId="approved-sets" />
+                <Count value={sheet.unitCount} testId="units" />
+                <Count value={sheet.awaitingReviewCount} testId="awaiting-review" strong />
+                <Count value={sheet.limitCount} testId="limits-set" />
+                <td className="num whitespace-nowrap" data-testid="last-change">
+                  <span className="figure">{formatDate(sheet.lastChangeAt)}</span>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </PagedListTable>
       )}
       <p className="mt-4 max-w-prose text-sm text-ink-muted">
         Units are the distinct serials among the approved sets. Limits set counts the spec limits stated on the device. Whether the data support

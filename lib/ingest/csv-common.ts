@@ -1,5 +1,5 @@
 import { metaDate, metaQuantity, metaString, rawMetadata, unknownMetadataKeys } from "./csv-metadata";
-import { readCsvDocument, unusedColumns, type ColumnRequest, type CsvDocument } from "./csv-table";
+import { checkIncreasing, readCsvColumns, readCsvDocument, requireRows, unusedColumns, type ColumnRequest, type CsvDocument } from "./csv-table";
 import { IngestError } from "./errors";
 import { readParserInput } from "./text-guards";
 import type { MeasurementKind, UnitConditions } from "./types";
@@ -44,4 +44,17 @@ export function readUnitConditions(doc: CsvDocument, warnings: string[]): UnitCo
 export function warnUnused(doc: CsvDocument, requests: ColumnRequest[], knownMetadata: string[], warnings: string[]): void {
   for (const col of unusedColumns(doc, requests)) warnings.push(`column "${col}" is not used by this kind and was ignored`);
   for (const key of unknownMetadataKeys(doc, knownMetadata)) warnings.push(`metadata "${key}" is not used by this kind`);
+}
+
+/**
+ * Reads the data rows of a sweep: `requests[0]` is the swept column (input power, frequency,
+ * offset), whose values must rise from row to row; at least `minRows` rows; unused columns and
+ * metadata other than `knownMetadata` are reported in `warnings`. Returns one array per request.
+ */
+export function readSweepColumns(doc: CsvDocument, requests: ColumnRequest[], minRows: number, knownMetadata: string[], warnings: string[]): number[][] {
+  const { values, lines } = readCsvColumns(doc, requests);
+  requireRows(doc, lines, minRows);
+  checkIncreasing(doc, requests[0], values[0], lines);
+  warnUnused(doc, requests, knownMetadata, warnings);
+  return values;
 }

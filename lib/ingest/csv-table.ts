@@ -395,30 +395,23 @@ function throwCellError(doc: CsvDocument, r: ColumnRequest, line: number, cell: 
 }
 
 function convertChecked(doc: CsvDocument, r: ColumnRequest, x: number, line: number, cell: number, found: string): number {
-  const invalid = r.conversion.invalid?.(x);
-  if (invalid !== undefined) {
-    throw new IngestError({
+  const outOfRange = (detail: string, expected?: string) =>
+    new IngestError({
       fileName: doc.fileName,
       code: "out-of-range",
       line,
       column: cell + 1,
       field: r.cell.raw,
       found: shortenFound(found),
-      detail: `${invalid}, found ${found} ${r.conversion.unit}`,
+      expected,
+      detail,
     });
-  }
+  const invalid = r.conversion.invalid?.(x);
+  if (invalid !== undefined) throw outOfRange(`${invalid}, found ${found} ${r.conversion.unit}`);
   const v = r.conversion.toCanonical(x);
   if (!inRange(v, r.range)) {
-    throw new IngestError({
-      fileName: doc.fileName,
-      code: "out-of-range",
-      line,
-      column: cell + 1,
-      field: r.cell.raw,
-      found: shortenFound(found),
-      expected: describeRange(r.range),
-      detail: `${found} ${r.conversion.unit} is outside the plausible range for ${describeQuantity(r.quantity)} (${describeRange(r.range)})`,
-    });
+    const range = describeRange(r.range);
+    throw outOfRange(`${found} ${r.conversion.unit} is outside the plausible range for ${describeQuantity(r.quantity)} (${range})`, range);
   }
   return v;
 }

@@ -1,6 +1,6 @@
-import { openCsv, readUnitConditions, warnUnused, type FileContent, type ParseOptions } from "./csv-common";
+import { openCsv, readSweepColumns, readUnitConditions, type FileContent, type ParseOptions } from "./csv-common";
 import { metaInteger, metaQuantity } from "./csv-metadata";
-import { checkIncreasing, columnRequest, readCsvColumns, requireColumn, requireRows, type ColumnRequest } from "./csv-table";
+import { columnRequest, requireColumn, type ColumnRequest } from "./csv-table";
 import { IngestError } from "./errors";
 import type { DriveSweep, ParseResult } from "./types";
 import { RANGES } from "./units";
@@ -65,10 +65,7 @@ export function parseDriveSweep(fileName: string, content: FileContent, options:
   }
 
   const requests = [input, ...harmonicColumns.map((h) => h.request)];
-  const { values, lines } = readCsvColumns(doc, requests);
-  requireRows(doc, lines, 1);
-  checkIncreasing(doc, input, values[0], lines);
-  warnUnused(doc, requests, METADATA_KEYS, warnings);
+  const values = readSweepColumns(doc, requests, 1, METADATA_KEYS, warnings);
 
   // The unit conditions are listed rather than spread: object spread showed up in profiles of
   // many small files (one per file, thousands of files per upload).

@@ -1,6 +1,6 @@
-import { openCsv, readUnitConditions, warnUnused, type FileContent, type ParseOptions } from "./csv-common";
+import { openCsv, readSweepColumns, readUnitConditions, type FileContent, type ParseOptions } from "./csv-common";
 import { metaQuantity } from "./csv-metadata";
-import { checkIncreasing, findColumn, readCsvColumns, requireColumn, requireRows, type ColumnRequest } from "./csv-table";
+import { findColumn, requireColumn, type ColumnRequest } from "./csv-table";
 import { IngestError } from "./errors";
 import type { FrequencySweep, ParseResult } from "./types";
 import { RANGES, type Quantity, type ValueRange } from "./units";
@@ -44,10 +44,7 @@ export function parseFrequencySweep(fileName: string, content: FileContent, opti
     });
   }
   const requests = [frequency, ...present.map((p) => p.request)];
-  const { values, lines } = readCsvColumns(doc, requests);
-  requireRows(doc, lines, 1);
-  checkIncreasing(doc, frequency, values[0], lines);
-  warnUnused(doc, requests, METADATA_KEYS, warnings);
+  const values = readSweepColumns(doc, requests, 1, METADATA_KEYS, warnings);
 
   const data: FrequencySweep = { ...unit, frequencyHz: values[0], loPowerDbm, loFrequencyHz, ifFrequencyHz };
   present.forEach((p, k) => (data[p.key] = values[k + 1]));

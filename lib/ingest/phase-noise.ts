@@ -1,6 +1,6 @@
-import { openCsv, readUnitConditions, warnUnused, type FileContent, type ParseOptions } from "./csv-common";
+import { openCsv, readSweepColumns, readUnitConditions, type FileContent, type ParseOptions } from "./csv-common";
 import { metaInteger, metaQuantity } from "./csv-metadata";
-import { checkIncreasing, readCsvColumns, requireColumn, requireRows } from "./csv-table";
+import { requireColumn } from "./csv-table";
 import type { ParseResult, PhaseNoiseTrace } from "./types";
 import { RANGES } from "./units";
 
@@ -17,10 +17,7 @@ export function parsePhaseNoise(fileName: string, content: FileContent, options:
   const offset = requireColumn(doc, "offset", "frequency", RANGES.frequencyHz, "offset [Hz]");
   const l = requireColumn(doc, "l", "noise-dbc-hz", RANGES.noiseDbcHz, "L [dBc/Hz]");
   const requests = [offset, l];
-  const { values, lines } = readCsvColumns(doc, requests);
-  requireRows(doc, lines, 2);
-  checkIncreasing(doc, offset, values[0], lines);
-  warnUnused(doc, requests, METADATA_KEYS, warnings);
+  const values = readSweepColumns(doc, requests, 2, METADATA_KEYS, warnings);
   return {
     data: { ...unit, carrierFrequencyHz, carrierPowerDbm, multiplicationFactor, offsetHz: values[0], lDbcHz: values[1] },
     warnings,

@@ -1,6 +1,6 @@
-import { openCsv, readUnitConditions, warnUnused, type FileContent, type ParseOptions } from "./csv-common";
+import { openCsv, readSweepColumns, readUnitConditions, type FileContent, type ParseOptions } from "./csv-common";
 import { metaQuantity } from "./csv-metadata";
-import { checkIncreasing, readCsvColumns, requireColumn, requireRows } from "./csv-table";
+import { requireColumn } from "./csv-table";
 import { IngestError } from "./errors";
 import type { ParseResult, TwoTone } from "./types";
 import { RANGES } from "./units";
@@ -44,10 +44,7 @@ export function parseTwoTone(fileName: string, content: FileContent, options: Pa
   const fundamental = requireColumn(doc, "fund_out", "power", RANGES.powerDbm, "fund_out [dBm]");
   const im3 = requireColumn(doc, "im3_out", "power", RANGES.powerDbm, "im3_out [dBm]");
   const requests = [input, fundamental, im3];
-  const { values, lines } = readCsvColumns(doc, requests);
-  requireRows(doc, lines, 1);
-  checkIncreasing(doc, input, values[0], lines);
-  warnUnused(doc, requests, METADATA_KEYS, warnings);
+  const values = readSweepColumns(doc, requests, 1, METADATA_KEYS, warnings);
   return {
     data: {
       ...unit,

@@ -5,3 +5,4 @@ export { renderProse, proseToPlainText, findProseLimitBreach, proseOverLimitNoti
 export { proseLimits, type ProseLimit, type ProseLimitBreach } from "./prose-limits";
 export { makeConditionsKey, parseConditionsKey } from "./conditions";
 export { notationSegments, type NotationSegment } from "./notation";
+export { proseLayout } from "./prose-layout";

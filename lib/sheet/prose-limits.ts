@@ -19,6 +19,19 @@ export const proseLimits = {
   maxEmphasisMarksPerParagraph: 1_000,
 } as const;
 
+/**
+ * Whether a renderer at this nesting depth (0 at a section's top level) must stop recursing. The
+ * model's prose is within proseLimits when renderProse made it; a model from elsewhere (a stored
+ * release, a hand-made one) still never makes the web page or the PDF recurse deeper than that:
+ * react-pdf's layout engine broke for the whole process on about 800 nested views.
+ */
+export function proseTooDeep(depth: number): boolean {
+  return depth > proseLimits.maxNestingDepth;
+}
+
+/** What a renderer shows instead of prose nested deeper than {@link proseTooDeep} allows. */
+export const proseTooDeepText = "[nested too deeply to show]";
+
 export type ProseLimit = "characters" | "nesting" | "elements" | "list-items" | "emphasis-marks";
 
 export interface ProseLimitBreach {

@@ -4,7 +4,7 @@ import { compareStrings } from "./compare";
 import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
 import { formatValue } from "./format";
 import { computeGroupStatistics, type GroupStatistics, type UnitValue } from "./statistics";
-import type { ApprovedSetInput, SheetInput, SheetModel, SpecLimitInput, SpecTableRow, StatisticsGroup } from "./types";
+import type { ApprovedSetInput, GroupIdentity, SheetInput, SheetModel, SpecLimitInput, SpecTableRow, StatisticsGroup } from "./types";
 
 const MEASURED_MEAN_FOOTNOTE =
   "No typical value is stated: the figure is the mean of the units measured (n in the statistics annex).";
@@ -85,8 +85,8 @@ interface RowGroup {
   stats: GroupStatistics;
 }
 
-function buildStatisticsGroup({ row, conditionsKey, limit, stats }: RowGroup, conditionsText: string): StatisticsGroup {
-  const basis = limit?.basis ?? row.defaultBasis;
+/** The names a template row under one condition group goes by, in the statistics and in the spec table alike. */
+function groupIdentity(row: SpecRowTemplate, conditionsKey: string): GroupIdentity {
   return {
     groupId: `${row.id}:${conditionsKey}`,
     rowId: row.id,
@@ -95,6 +95,13 @@ function buildStatisticsGroup({ row, conditionsKey, limit, stats }: RowGroup, co
     label: row.label,
     symbol: row.symbol,
     unit: row.unit,
+  };
+}
+
+function buildStatisticsGroup({ row, conditionsKey, limit, stats }: RowGroup, conditionsText: string): StatisticsGroup {
+  const basis = limit?.basis ?? row.defaultBasis;
+  return {
+    ...groupIdentity(row, conditionsKey),
     conditionsText,
     n: stats.n,
     lots: stats.lots,
@@ -135,13 +142,7 @@ function buildSpecRow(
   if (limit?.footnote) marks.push(footnoteMark(limit.footnote.trim()));
   if (typIsMeasuredMean) marks.push(footnoteMark(MEASURED_MEAN_FOOTNOTE));
   return {
-    groupId: `${row.id}:${conditionsKey}`,
-    rowId: row.id,
-    parameter: row.parameter,
-    conditionsKey,
-    label: row.label,
-    symbol: row.symbol,
-    unit: row.unit,
+    ...groupIdentity(row, conditionsKey),
     conditions: conditionCells,
     min: formatValue(limit?.min, row.decimals),
     typ: formatValue(limit?.typ ?? stats.meanValue, row.decimals),

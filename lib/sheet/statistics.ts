@@ -1,7 +1,7 @@
 import { computeCapability, computeToleranceFactorExact, decideConformity, describeDecisionRule, summarizeSample } from "../stats";
 import { formatNumber, formatQuantity } from "../format/quantity";
 import { emptyValue, formatValue, roundStable } from "./format";
-import type { FormattedValue, SpecLimitInput, StatisticsFlag, UnitResult } from "./types";
+import type { FormattedValue, SampleFigures, SpecLimitInput, StatisticsFlag, UnitResult } from "./types";
 
 export interface UnitValue {
   serial: string;
@@ -23,25 +23,9 @@ export interface GroupStatisticsOptions {
   confidence: number;
 }
 
-export interface GroupStatistics {
-  n: number;
-  lots: number;
-  mean: FormattedValue;
-  standardDeviation: FormattedValue;
-  median: FormattedValue;
-  min: FormattedValue;
-  max: FormattedValue;
+export interface GroupStatistics extends SampleFigures {
   meanValue: number | null;
-  toleranceInterval: { lower: FormattedValue; upper: FormattedValue; factor: FormattedValue } | null;
-  cpk: FormattedValue;
-  expandedUncertainty: FormattedValue;
-  decisionRule: "guard-band" | "simple-acceptance" | null;
   ruleStatement: string | null;
-  acceptance: { lower: FormattedValue; upper: FormattedValue } | null;
-  units: UnitResult[];
-  passCount: number;
-  failCount: number;
-  flags: StatisticsFlag[];
 }
 
 const toleranceFactors = new Map<string, number>();

@@ -151,7 +151,8 @@ export interface UnitResult {
   conditional: boolean;
 }
 
-export interface StatisticsGroup {
+/** Which spec row and condition group a figure belongs to: the statistics and the spec table name it alike. */
+export interface GroupIdentity {
   groupId: string;
   rowId: string;
   parameter: string;
@@ -159,7 +160,10 @@ export interface StatisticsGroup {
   label: string;
   symbol: string;
   unit: string;
-  conditionsText: string;
+}
+
+/** What the statistics of one group say, formatted: computeGroupStatistics gives it, the sheet shows it. */
+export interface SampleFigures {
   n: number;
   lots: number;
   mean: FormattedValue;
@@ -168,7 +172,6 @@ export interface StatisticsGroup {
   min: FormattedValue;
   max: FormattedValue;
   toleranceInterval: { lower: FormattedValue; upper: FormattedValue; factor: FormattedValue } | null;
-  limits: { min: FormattedValue; typ: FormattedValue; max: FormattedValue; basis: LimitBasis } | null;
   cpk: FormattedValue;
   expandedUncertainty: FormattedValue;
   decisionRule: "guard-band" | "simple-acceptance" | null;
@@ -177,18 +180,16 @@ export interface StatisticsGroup {
   failCount: number;
   units: UnitResult[];
   flags: StatisticsFlag[];
+}
+
+export interface StatisticsGroup extends GroupIdentity, SampleFigures {
+  conditionsText: string;
+  limits: { min: FormattedValue; typ: FormattedValue; max: FormattedValue; basis: LimitBasis } | null;
   /** False when a limit is stated that the data does not support. */
   supported: boolean;
 }
 
-export interface SpecTableRow {
-  groupId: string;
-  rowId: string;
-  parameter: string;
-  conditionsKey: string;
-  label: string;
-  symbol: string;
-  unit: string;
+export interface SpecTableRow extends GroupIdentity {
   /** One cell per specifications.conditionColumns entry; "" when the condition does not apply. */
   conditions: string[];
   min: FormattedValue;

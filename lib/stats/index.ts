@@ -6,3 +6,4 @@ export * from "./normal";
 export * from "./tolerance";
 export * from "./uncertainty";
 export * from "./student-t";
+export * from "./seeded-random";

@@ -6,6 +6,7 @@
  */
 import { readFileSync } from "node:fs";
 import path from "node:path";
+import { mulberry32 } from "../../lib/stats/seeded-random";
 
 const examples = path.resolve(__dirname, "../../fixtures/examples");
 
@@ -48,23 +49,12 @@ export const demoInstruments: Record<string, DemoInstrument[]> = {
   ],
 };
 
-/** Park–Miller-style seeded generator (mulberry32): the same demo bytes on every machine. */
-function seeded(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 const example = (file: string) => () => readFileSync(path.join(examples, file));
 
 /** Another unit of the example doubler: new serial, every output power moved by up to ±0.6 dB. */
 function anotherDoublerUnit(serial: string, seed: number): () => Buffer {
   return () => {
-    const rand = seeded(seed);
+    const rand = mulberry32(seed);
     const shift = (rand() - 0.5) * 1.2;
     const lines = readFileSync(path.join(examples, "drive-sweep-doubler.csv"), "utf8").split("\n");
     return Buffer.from(
@@ -83,7 +73,7 @@ function anotherDoublerUnit(serial: string, seed: number): () => Buffer {
 /** Another unit of the example mixer: new serial, conversion loss moved by up to ±0.3 dB, isolation by ±2 dB. */
 function anotherMixerUnit(serial: string, seed: number): () => Buffer {
   return () => {
-    const rand = seeded(seed);
+    const rand = mulberry32(seed);
     const lossShift = (rand() - 0.5) * 0.6;
     const isolationShift = (rand() - 0.5) * 4;
     const comma = (x: number) => x.toFixed(2).replace(".", ",");
@@ -105,7 +95,7 @@ function anotherMixerUnit(serial: string, seed: number): () => Buffer {
 /** Another unit of the example hybrid: every S-parameter scaled by (1 ± 1 %) and a little noise. */
 function anotherHybridUnit(serial: string, seed: number): () => Buffer {
   return () => {
-    const rand = seeded(seed);
+    const rand = mulberry32(seed);
     const scale = 1 + (rand() - 0.5) * 0.02;
     const lines = readFileSync(path.join(examples, "hybrid-4port.s4p"), "utf8").split("\n");
     return Buffer.from(

@@ -15,6 +15,7 @@ import path from "node:path";
 import { promisify } from "node:util";
 import { QueryTypes } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { mulberry32 } from "@/lib/stats/seeded-random";
 import { closeDb, db } from "@/models";
 import { TestClient } from "./helpers/client";
 import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
@@ -33,17 +34,6 @@ function bigTrace(serial: string): Uint8Array<ArrayBuffer> {
     lines.push(`${offsetHz.toPrecision(8)},${(-110 - 10 * Math.log10(offsetHz) * 0.8).toFixed(3)}`);
   }
   return new TextEncoder().encode(`${lines.join("\n")}\n`) as Uint8Array<ArrayBuffer>;
-}
-
-/** mulberry32: the same kill moments on every run. */
-function seeded(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 const killDatabase = () => process.kill(Number(readFileSync(path.join(DATA_DIR, "run/mariadb.pid"), "utf8").trim()), "SIGKILL");
@@ -101,7 +91,7 @@ afterAll(async () => {
 
 describe("MariaDB killed in the middle of an upload", () => {
   it(`loses nothing and leaves nothing half-written, ${TRIALS} trials`, async () => {
-    const random = seeded(20261202);
+    const random = mulberry32(20261202); // the same kill moments on every run
     // One upload undisturbed, to learn how long one takes: each kill falls at a seeded moment within that time.
     const calibration = new FormData();
     calibration.set("file", new Blob([bigTrace("BFD-KILL-TIMING")]), "kill-timing.csv");

@@ -1,17 +1,16 @@
 import "server-only";
-import { AppError } from "@/lib/errors";
 import { db } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { toBenchTokenSummary, type BenchTokenSummary } from "./bench-token-summary";
+import { lockOwnRow } from "../auth/own-row";
 
 export async function revokeBenchToken(opts: { actor: SessionUser; tokenId: number }): Promise<BenchTokenSummary> {
   const { BenchToken, sequelize } = db();
   authorize(opts.actor, "bench-tokens");
   return sequelize.transaction(async (transaction) => {
-    const row = await BenchToken.findOne({ where: { id: opts.tokenId, organizationId: opts.actor.organizationId }, lock: transaction.LOCK.UPDATE, transaction });
-    if (!row) throw new AppError("not-found", "No such bench token in your organization.");
+    const row = await lockOwnRow(BenchToken, opts.tokenId, opts.actor, transaction, "bench token");
     if (!row.revokedAt) {
       row.revokedAt = new Date();
       await row.save({ transaction });

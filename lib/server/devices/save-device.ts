@@ -8,6 +8,7 @@ import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { toDeviceSummary, type DeviceSummary } from "./device-summary";
+import { lockOwnRow } from "../auth/own-row";
 
 /** Creates a device, or edits one of the engineer's organization when `deviceId` is given. */
 export async function saveDevice(opts: { actor: SessionUser; input: DeviceBody; deviceId?: number }): Promise<DeviceSummary> {
@@ -19,8 +20,7 @@ export async function saveDevice(opts: { actor: SessionUser; input: DeviceBody; 
       let row: Device | null;
       let before: unknown = null;
       if (deviceId) {
-        row = await Device.findOne({ where: { id: deviceId, organizationId: actor.organizationId }, lock: transaction.LOCK.UPDATE, transaction });
-        if (!row) throw new AppError("not-found", "No such device in your organization.");
+        row = await lockOwnRow(Device, deviceId, actor, transaction, "device");
         before = toDeviceSummary(row);
         await row.update(input, { transaction });
       } else {

@@ -8,6 +8,7 @@ import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { toInstrumentSummary, type InstrumentSummary } from "./instrument-summary";
+import { lockOwnRow } from "../auth/own-row";
 
 /** Creates an instrument, or updates one of the admin's organization when `instrumentId` is given. */
 export async function saveInstrument(opts: { actor: SessionUser; input: InstrumentBody; instrumentId?: number }): Promise<InstrumentSummary> {
@@ -19,8 +20,7 @@ export async function saveInstrument(opts: { actor: SessionUser; input: Instrume
       let row: Instrument | null = null;
       let before: unknown = null;
       if (instrumentId) {
-        row = await Instrument.findOne({ where: { id: instrumentId, organizationId: actor.organizationId }, lock: transaction.LOCK.UPDATE, transaction });
-        if (!row) throw new AppError("not-found", "No such instrument in your organization.");
+        row = await lockOwnRow(Instrument, instrumentId, actor, transaction, "instrument");
         before = toInstrumentSummary(row);
         await row.update(input, { transaction });
       } else {

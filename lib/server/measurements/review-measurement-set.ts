@@ -7,6 +7,7 @@ import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { loadMeasurementSets } from "./load-measurement-sets";
 import type { MeasurementSetSummary } from "./measurement-set-summary";
+import { lockOwnRow } from "../auth/own-row";
 
 /**
  * Approves or rejects a submitted set. Four eyes: whoever uploaded it cannot decide on it.
@@ -17,12 +18,7 @@ export async function reviewMeasurementSet(opts: { reviewer: SessionUser; setId:
   const { reviewer, setId, body } = opts;
   authorize(reviewer, "measurement-review");
   await sequelize.transaction(async (transaction) => {
-    const set = await MeasurementSet.findOne({
-      where: { id: setId, organizationId: reviewer.organizationId },
-      lock: transaction.LOCK.UPDATE,
-      transaction,
-    });
-    if (!set) throw new AppError("not-found", "No such measurement set in your organization.");
+    const set = await lockOwnRow(MeasurementSet, setId, reviewer, transaction, "measurement set");
     if (set.uploadedById === reviewer.id) throw new AppError("forbidden", "You uploaded this set; another reviewer must decide on it.");
     if (set.state !== "submitted") throw new AppError("conflict", `Measurement set #${set.id} is already ${set.state}.`);
     const before = { state: set.state };

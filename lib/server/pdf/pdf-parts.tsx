@@ -3,7 +3,7 @@ import { Link, StyleSheet, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
 import { tokens } from "../../design/tokens";
 import { notationSegments } from "../../sheet/notation";
-import { proseLimits } from "../../sheet/prose-limits";
+import { proseTooDeep, proseTooDeepText } from "../../sheet/prose-limits";
 import type { ProseBlock, ProseInline } from "../../sheet/types";
 import { MONO_FAMILY, SANS_FAMILY } from "./fonts";
 
@@ -112,13 +112,8 @@ export function PdfTable({ columns, rows }: { columns: Column[]; rows: Cell[][] 
   );
 }
 
-// The model's prose is within proseLimits when renderProse made it; a model from elsewhere (a
-// stored release, a hand-made one) still never nests views deeper than that: react-pdf's layout
-// engine broke for the whole process on about 800 nested views.
-const TOO_DEEP = "[nested too deeply to show]";
-
 function Inlines({ nodes, depth }: { nodes: ProseInline[]; depth: number }) {
-  if (depth > proseLimits.maxNestingDepth) return TOO_DEEP;
+  if (proseTooDeep(depth)) return proseTooDeepText;
   return (
     <>
       {nodes.map((node, i) => {
@@ -169,7 +164,7 @@ function splitAtBreaks(nodes: ProseInline[]): ProseInline[][] {
 
 /** The sheet model's prose blocks, drawn with react-pdf primitives (the PDF cannot draw HTML). */
 export function PdfProse({ blocks, depth = 0 }: { blocks: ProseBlock[]; depth?: number }) {
-  if (depth > proseLimits.maxNestingDepth) return <Text style={[styles.paragraph, styles.muted]}>{TOO_DEEP}</Text>;
+  if (proseTooDeep(depth)) return <Text style={[styles.paragraph, styles.muted]}>{proseTooDeepText}</Text>;
   return (
     <>
       {blocks.map((block, i) => {

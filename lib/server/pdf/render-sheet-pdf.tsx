@@ -7,6 +7,7 @@ import { type Cell, colors, type Column, PdfNotation, PdfProse, PdfTable, Sectio
 import { renderSheetChartPngs } from "../charts/render-chart";
 import { settleGlyphCodePoints } from "./settle-glyph-code-points";
 import { stampPageNumbers } from "./stamp-page-numbers";
+import { proseLayout } from "../../sheet/prose-layout";
 
 let fontsRegistered = false;
 
@@ -43,7 +44,7 @@ export async function renderSheetPdf(model: SheetModel): Promise<Buffer> {
   return stampPageNumbers(pdf, {
     right: A4_WIDTH_PT - PAGE_MARGIN,
     baseline: FOOT_BASELINE_FROM_BOTTOM,
-    size: FOOT_FONT_SIZE,
+    size: BAND_FONT_SIZE,
     color: colors["ink-muted"],
     fontFile: fontFiles.sansRegular,
     fontName: "SourceSans3-Regular",
@@ -83,17 +84,15 @@ function SheetPage({ model, children }: { model: SheetModel; children: ReactNode
 const A4_WIDTH_PT = 595.28;
 const A4_HEIGHT_PT = 841.89;
 const FOOT_TOP = A4_HEIGHT_PT - 40;
-const FOOT_FONT_SIZE = 7.5;
+/** The running head's and foot's text, and the page number stamped into the foot. */
+const BAND_FONT_SIZE = 7.5;
 // The foot's line sits 4 pt below its rule; its baseline, measured with pdftotext -bbox against
 // react-pdf's own text in that line, is 27.8 pt above the page's bottom edge.
 const FOOT_BASELINE_FROM_BOTTOM = 27.8;
 
 function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<string, Buffer> }) {
   const { header } = model;
-  const proseById = new Map(model.prose.map((section) => [section.id, section]));
-  const description = proseById.get("description");
-  const features = proseById.get("features");
-  const laterProse = model.prose.filter((section) => section.id !== "description" && section.id !== "features");
+  const { description, features, later: laterProse } = proseLayout(model.prose);
   return (
     <Document
       title={`${header.partNumber} ${header.title} (${header.revisionText})`}
@@ -196,25 +195,40 @@ function Watermark({ text }: { text: string }) {
   );
 }
 
-function RunningHead({ model }: { model: SheetModel }) {
-  const { header } = model;
+/**
+ * A fixed line of small muted text across every page between the margins, ruled off from the
+ * body: the running head above it, the running foot below it.
+ */
+function RunningBand({ edge, children }: { edge: "head" | "foot"; children: ReactNode }) {
+  const rule =
+    edge === "head"
+      ? { borderBottomWidth: 0.5, borderBottomColor: colors.rule, paddingBottom: 4 }
+      : { borderTopWidth: 0.5, borderTopColor: colors.rule, paddingTop: 4 };
   return (
     <View
       fixed
       style={{
         position: "absolute",
-        top: 22,
+        // The foot is placed from the top too: a bottom-anchored fixed view vanished from this layout in react-pdf 4.9.
+        top: edge === "head" ? 22 : FOOT_TOP,
         left: PAGE_MARGIN,
         right: PAGE_MARGIN,
         flexDirection: "row",
         justifyContent: "space-between",
-        borderBottomWidth: 0.5,
-        borderBottomColor: colors.rule,
-        paddingBottom: 4,
-        fontSize: 7.5,
+        ...rule,
+        fontSize: BAND_FONT_SIZE,
         color: colors["ink-muted"],
       }}
     >
+      {children}
+    </View>
+  );
+}
+
+function RunningHead({ model }: { model: SheetModel }) {
+  const { header } = model;
+  return (
+    <RunningBand edge="head">
       <Text>
         <Text style={{ fontWeight: 600, color: colors.ink }}>{header.partNumber}</Text> · {header.deviceClassLabel}
       </Text>
@@ -222,35 +236,19 @@ function RunningHead({ model }: { model: SheetModel }) {
         {header.revisionText} · {header.date}
         {header.banner ? <Text style={{ color: colors.signal, fontWeight: 600 }}> · {header.stateLabel}</Text> : null}
       </Text>
-    </View>
+    </RunningBand>
   );
 }
 
 function RunningFoot({ model }: { model: SheetModel }) {
   const { header } = model;
   return (
-    <View
-      fixed
-      style={{
-        position: "absolute",
-        // Placed from the top: a bottom-anchored fixed view vanished from this layout in react-pdf 4.9.
-        top: FOOT_TOP,
-        left: PAGE_MARGIN,
-        right: PAGE_MARGIN,
-        flexDirection: "row",
-        justifyContent: "space-between",
-        borderTopWidth: 0.5,
-        borderTopColor: colors.rule,
-        paddingTop: 4,
-        fontSize: FOOT_FONT_SIZE,
-        color: colors["ink-muted"],
-      }}
-    >
+    <RunningBand edge="foot">
       <Text>
         {header.organizationName} · {header.partNumber} {header.revisionText}
       </Text>
       {/* "Page k of N" is stamped at the right end of this line after layout (stampPageNumbers). */}
-    </View>
+    </RunningBand>
   );
 }
 

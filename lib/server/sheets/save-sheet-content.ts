@@ -1,18 +1,17 @@
 import "server-only";
-import { AppError } from "@/lib/errors";
 import type { SheetContentBody } from "@/lib/schemas/sheets";
 import { db } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
+import { lockOwnRow } from "../auth/own-row";
 
 export async function saveSheetContent(opts: { actor: SessionUser; deviceId: number; input: SheetContentBody }): Promise<void> {
   const { Device, SheetContent, sequelize } = db();
   const { actor, deviceId, input } = opts;
   authorize(actor, "sheet-edit");
   await sequelize.transaction(async (transaction) => {
-    const device = await Device.findOne({ where: { id: deviceId, organizationId: actor.organizationId }, lock: transaction.LOCK.UPDATE, transaction });
-    if (!device) throw new AppError("not-found", "No such device in your organization.");
+    await lockOwnRow(Device, deviceId, actor, transaction, "device");
     const existing = await SheetContent.findOne({ where: { deviceId }, transaction });
     const values = { prose: input.prose, absoluteMaximumRatings: input.absoluteMaximumRatings, measurementUncertainty: input.measurementUncertainty, updatedById: actor.id };
     const before = existing ? { prose: existing.prose, absoluteMaximumRatings: existing.absoluteMaximumRatings, measurementUncertainty: existing.measurementUncertainty } : null;

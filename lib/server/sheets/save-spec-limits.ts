@@ -5,6 +5,7 @@ import { db } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
+import { lockOwnRow } from "../auth/own-row";
 
 /** Replaces the device's spec limits as one change, with the old and new set in the audit trail. */
 export async function saveSpecLimits(opts: { actor: SessionUser; deviceId: number; input: SpecLimitsBody }): Promise<number> {
@@ -18,8 +19,7 @@ export async function saveSpecLimits(opts: { actor: SessionUser; deviceId: numbe
     seen.add(key);
   }
   return sequelize.transaction(async (transaction) => {
-    const device = await Device.findOne({ where: { id: deviceId, organizationId: actor.organizationId }, lock: transaction.LOCK.UPDATE, transaction });
-    if (!device) throw new AppError("not-found", "No such device in your organization.");
+    const device = await lockOwnRow(Device, deviceId, actor, transaction, "device");
     const before = await SpecLimit.findAll({ where: { deviceId }, transaction });
     await SpecLimit.destroy({ where: { deviceId }, transaction });
     await SpecLimit.bulkCreate(

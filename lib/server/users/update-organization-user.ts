@@ -7,6 +7,7 @@ import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import type { UserSummary } from "./list-organization-users";
+import { lockOwnRow } from "../auth/own-row";
 
 /**
  * Changes a colleague's role or disables/enables the account. Disabling bumps the
@@ -17,12 +18,7 @@ export async function updateOrganizationUser(opts: { actor: SessionUser; userId:
   const { actor, userId, changes } = opts;
   authorize(actor, "people");
   return sequelize.transaction(async (transaction) => {
-    const user = await User.findOne({
-      where: { id: userId, organizationId: actor.organizationId },
-      lock: transaction.LOCK.UPDATE,
-      transaction,
-    });
-    if (!user) throw new AppError("not-found", "No such person in your organization.");
+    const user = await lockOwnRow(User, userId, actor, transaction, "person");
     if (user.id === actor.id) throw new AppError("conflict", "You cannot change your own role or disable yourself.");
     if (changes.role === "customer" && user.role !== "customer") {
       throw new AppError("invalid", "Customers sign up themselves; a member cannot become a customer.", { field: "role" });
