@@ -91,54 +91,7 @@ export function BenchTokensPanel({ initialTokens, appOrigin }: { initialTokens: 
             No bench token has been created.
           </p>
         ) : (
-          <ScrollTable label="Bench tokens" testId="bench-tokens-table">
-            <thead>
-              <tr>
-                <th scope="col">Name</th>
-                <th scope="col">Starts with</th>
-                <th scope="col" className="num">
-                  Created
-                </th>
-                <th scope="col" className="num">
-                  Last used
-                </th>
-                <th scope="col">Status</th>
-                <th scope="col">
-                  <span className="sr-only">Revoke</span>
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {tokens.data.map((t) => (
-                <tr key={t.id} data-testid={`bench-token-${t.id}`}>
-                  <th scope="row" className="font-semibold">
-                    {t.name}
-                  </th>
-                  <td className="figure">{t.prefix}…</td>
-                  <td className="num">
-                    <span className="figure">{formatDateTime(t.createdAt)}</span>
-                  </td>
-                  <td className="num">{t.lastUsedAt ? <span className="figure">{formatDateTime(t.lastUsedAt)}</span> : <span className="text-ink-muted">never</span>}</td>
-                  <td>
-                    {t.revokedAt ? (
-                      <span className="font-semibold text-signal-deep">
-                        Revoked <span className="figure font-normal">{formatDateTime(t.revokedAt)}</span>
-                      </span>
-                    ) : (
-                      "Active"
-                    )}
-                  </td>
-                  <td className="num">
-                    {t.revokedAt ? null : (
-                      <button type="button" className={buttonClass.quiet} onClick={() => void revoke(t)}>
-                        Revoke<span className="sr-only"> {t.name}</span>
-                      </button>
-                    )}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </ScrollTable>
+          <BenchTokensTable tokens={tokens.data} onRevoke={(t) => void revoke(t)} />
         )}
       </section>
     </div>
@@ -193,5 +146,59 @@ function CreatedToken({ created, appOrigin, onDone }: { created: Created; appOri
         </p>
       </div>
     </div>
+  );
+}
+
+/** The organization's tokens: name, prefix, dates, state, and Revoke for an active one. */
+function BenchTokensTable({ tokens, onRevoke }: { tokens: BenchTokenSummary[]; onRevoke: (token: BenchTokenSummary) => void }) {
+  return (
+    <ScrollTable label="Bench tokens" testId="bench-tokens-table">
+      <thead>
+        <tr>
+          <th scope="col">Name</th>
+          <th scope="col">Starts with</th>
+          <th scope="col" className="num">
+            Created
+          </th>
+          <th scope="col" className="num">
+            Last used
+          </th>
+          <th scope="col">Status</th>
+          <th scope="col">
+            <span className="sr-only">Revoke</span>
+          </th>
+        </tr>
+      </thead>
+      <tbody>
+        {tokens.map((t) => (
+          <tr key={t.id} data-testid={`bench-token-${t.id}`}>
+            <th scope="row" className="font-semibold">
+              {t.name}
+            </th>
+            <td className="figure">{t.prefix}…</td>
+            <td className="num">
+              <span className="figure">{formatDateTime(t.createdAt)}</span>
+            </td>
+            <td className="num">{t.lastUsedAt ? <span className="figure">{formatDateTime(t.lastUsedAt)}</span> : <span className="text-ink-muted">never</span>}</td>
+            <td>
+              {t.revokedAt ? (
+                <span className="font-semibold text-signal-deep">
+                  Revoked <span className="figure font-normal">{formatDateTime(t.revokedAt)}</span>
+                </span>
+              ) : (
+                "Active"
+              )}
+            </td>
+            <td className="num">
+              {t.revokedAt ? null : (
+                <button type="button" className={buttonClass.quiet} onClick={() => onRevoke(t)}>
+                  Revoke<span className="sr-only"> {t.name}</span>
+                </button>
+              )}
+            </td>
+          </tr>
+        ))}
+      </tbody>
+    </ScrollTable>
   );
 }

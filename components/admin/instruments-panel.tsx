@@ -58,72 +58,15 @@ export function InstrumentsPanel({ initialInstruments }: { initialInstruments: I
             No instrument is listed yet.
           </p>
         ) : (
-          <ScrollTable label="Instruments" testId="instruments-table">
-            <thead>
-              <tr>
-                <th scope="col">Kind</th>
-                <th scope="col">Model</th>
-                <th scope="col">Serial</th>
-                <th scope="col" className="num">
-                  Calibrated
-                </th>
-                <th scope="col" className="num">
-                  Due
-                </th>
-                <th scope="col">Stated uncertainty</th>
-                <th scope="col">
-                  <span className="sr-only">Edit</span>
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {instruments.data.map((i) => (
-                <tr key={i.id} data-testid={`instrument-${i.serial}`}>
-                  <td>{i.kind}</td>
-                  <th scope="row" className="font-semibold">
-                    {i.model}
-                  </th>
-                  <td className="figure">{i.serial}</td>
-                  <td className="num">
-                    <span className="figure">{formatDate(i.calibratedOn)}</span>
-                  </td>
-                  <td className="num whitespace-nowrap">
-                    <span className="figure">{formatDate(i.calibrationDueOn)}</span>
-                    {i.calibrationOverdue ? <span className="ml-2 font-semibold text-signal-deep">overdue</span> : null}
-                  </td>
-                  <td className="text-[0.875rem]">
-                    {i.uncertainty.length === 0 ? (
-                      <span className="text-ink-muted">none stated</span>
-                    ) : (
-                      <ul>
-                        {i.uncertainty.map((u, k) => (
-                          <li key={k} className="whitespace-nowrap">
-                            {u.quantity} <span className="figure">±{formatNumber(u.value)}</span>
-                            {"\u00a0"}
-                            <span className="unit">{u.unit}</span> <span className="text-ink-muted">(k = {formatNumber(u.coverageFactor)})</span>
-                          </li>
-                        ))}
-                      </ul>
-                    )}
-                  </td>
-                  <td className="num">
-                    <button
-                      type="button"
-                      className={buttonClass.quiet}
-                      onClick={() => {
-                        setEditing(i);
-                        setFormKey((k) => k + 1);
-                        setMessage(null);
-                        document.getElementById("instrument-form")?.scrollIntoView({ behavior: "smooth" });
-                      }}
-                    >
-                      Edit<span className="sr-only"> {i.model} {i.serial}</span>
-                    </button>
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </ScrollTable>
+          <InstrumentsTable
+            instruments={instruments.data}
+            onEdit={(i) => {
+              setEditing(i);
+              setFormKey((k) => k + 1);
+              setMessage(null);
+              document.getElementById("instrument-form")?.scrollIntoView({ behavior: "smooth" });
+            }}
+          />
         )}
       </section>
 
@@ -258,5 +201,72 @@ function InstrumentForm({
         ) : null}
       </div>
     </form>
+  );
+}
+
+/** The register: kind, model, serial, calibration dates (overdue marked in words), stated uncertainty, Edit. */
+function InstrumentsTable({ instruments, onEdit }: { instruments: InstrumentSummary[]; onEdit: (instrument: InstrumentSummary) => void }) {
+  return (
+    <ScrollTable label="Instruments" testId="instruments-table">
+      <thead>
+        <tr>
+          <th scope="col">Kind</th>
+          <th scope="col">Model</th>
+          <th scope="col">Serial</th>
+          <th scope="col" className="num">
+            Calibrated
+          </th>
+          <th scope="col" className="num">
+            Due
+          </th>
+          <th scope="col">Stated uncertainty</th>
+          <th scope="col">
+            <span className="sr-only">Edit</span>
+          </th>
+        </tr>
+      </thead>
+      <tbody>
+        {instruments.map((i) => (
+          <tr key={i.id} data-testid={`instrument-${i.serial}`}>
+            <td>{i.kind}</td>
+            <th scope="row" className="font-semibold">
+              {i.model}
+            </th>
+            <td className="figure">{i.serial}</td>
+            <td className="num">
+              <span className="figure">{formatDate(i.calibratedOn)}</span>
+            </td>
+            <td className="num whitespace-nowrap">
+              <span className="figure">{formatDate(i.calibrationDueOn)}</span>
+              {i.calibrationOverdue ? <span className="ml-2 font-semibold text-signal-deep">overdue</span> : null}
+            </td>
+            <td className="text-[0.875rem]">
+              {i.uncertainty.length === 0 ? (
+                <span className="text-ink-muted">none stated</span>
+              ) : (
+                <ul>
+                  {i.uncertainty.map((u, k) => (
+                    <li key={k} className="whitespace-nowrap">
+                      {u.quantity} <span className="figure">±{formatNumber(u.value)}</span>
+                      {"\u00a0"}
+                      <span className="unit">{u.unit}</span> <span className="text-ink-muted">(k = {formatNumber(u.coverageFactor)})</span>
+                    </li>
+                  ))}
+                </ul>
+              )}
+            </td>
+            <td className="num">
+              <button
+                type="button"
+                className={buttonClass.quiet}
+                onClick={() => onEdit(i)}
+              >
+                Edit<span className="sr-only"> {i.model} {i.serial}</span>
+              </button>
+            </td>
+          </tr>
+        ))}
+      </tbody>
+    </ScrollTable>
   );
 }
