@@ -2,6 +2,7 @@ import type { DeviceSummary } from "@/lib/domain/devices";
 import { formatNumber } from "@/lib/format";
 import { NumberQuantity, RangeQuantity } from "@/components/ui/quantity";
 import { deviceClassLabels } from "@/lib/domain/device-classes";
+import { TermGrid } from "@/components/ui/term-grid";
 
 /** The identifying conditions of a part, as a ruled definition list. */
 export function DeviceKeyConditions({ device }: { device: DeviceSummary }) {
@@ -14,13 +15,6 @@ export function DeviceKeyConditions({ device }: { device: DeviceSummary }) {
     ["Drive level", k.driveLevelDbm === undefined ? "—" : <NumberQuantity key="d" value={k.driveLevelDbm} unit="dBm" signed />],
   ];
   return (
-    <dl className="grid grid-cols-2 gap-x-8 gap-y-3 border-y border-rule py-4 sm:grid-cols-3 lg:grid-cols-5" data-testid="device-key-conditions">
-      {items.map(([term, value]) => (
-        <div key={term}>
-          <dt className="running-head">{term}</dt>
-          <dd className="mt-0.5">{value}</dd>
-        </div>
-      ))}
-    </dl>
+    <TermGrid items={items} columns="sm:grid-cols-3 lg:grid-cols-5" testId="device-key-conditions" />
   );
 }

@@ -8,6 +8,7 @@ import { formatByteSize, formatDate, formatDateTime } from "@/lib/format";
 import { Notice } from "@/components/ui/notice";
 import { NumberQuantity } from "@/components/ui/quantity";
 import { ReviewActions } from "./review-actions";
+import { TermGrid } from "@/components/ui/term-grid";
 
 type SetProps = { device: DeviceSummary; set: MeasurementSetDetail };
 
@@ -221,14 +222,7 @@ export function ConditionsList({ set }: { set: MeasurementSetDetail }) {
   ];
   return (
     <>
-      <dl className="grid grid-cols-2 gap-x-8 gap-y-3 border-y border-rule py-4 sm:grid-cols-4" data-testid="set-conditions">
-        {items.map(([term, value]) => (
-          <div key={term}>
-            <dt className="running-head">{term}</dt>
-            <dd className="mt-0.5">{value}</dd>
-          </div>
-        ))}
-      </dl>
+      <TermGrid items={items} columns="sm:grid-cols-4" testId="set-conditions" />
       {k.notes ? <p className="mt-3 max-w-prose text-[0.9375rem]"><span className="running-head mr-2">Notes</span>{k.notes}</p> : null}
     </>
   );
