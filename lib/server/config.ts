@@ -5,6 +5,10 @@ export const serverConfig = {
   get appUrl(): string {
     return process.env.NEXTAUTH_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
   },
+  /** Served over HTTPS: session cookies are Secure and carry next-auth's `__Secure-` prefix. */
+  get secureCookies(): boolean {
+    return this.appUrl.startsWith("https://");
+  },
   get fakeSmtp(): boolean {
     return process.env.BENCHFOLD_FAKE_SMTP === "1";
   },

@@ -23,7 +23,7 @@ export const authOptions: NextAuthOptions = {
   // Secure cookies (with next-auth's __Secure-/__Host- name prefixes) exactly when the app is
   // served over HTTPS, as NEXTAUTH_URL states. next-auth's own default, written out so that no
   // change of how the URL is found can send a session cookie over plain HTTP.
-  useSecureCookies: serverConfig.appUrl.startsWith("https://"),
+  useSecureCookies: serverConfig.secureCookies,
   pages: { signIn: "/sign-in", error: "/sign-in" },
   providers: [
     CredentialsProvider({

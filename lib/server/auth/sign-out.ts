@@ -5,7 +5,7 @@ import { getCurrentSession } from "./session";
 
 /** next-auth's session cookie name (its default: `__Secure-` in front when the app is served over HTTPS). */
 function sessionCookieName(): string {
-  return `${serverConfig.appUrl.startsWith("https://") ? "__Secure-" : ""}next-auth.session-token`;
+  return `${serverConfig.secureCookies ? "__Secure-" : ""}next-auth.session-token`;
 }
 
 /**
@@ -18,7 +18,7 @@ export async function signOutResponse(request: Request): Promise<Response> {
   if (session) await revokeSession({ sessionId: session.sessionId, userId: session.user.id, startedAt: session.startedAt });
 
   const name = sessionCookieName();
-  const secure = name.startsWith("__Secure-") ? "; Secure" : "";
+  const secure = serverConfig.secureCookies ? "; Secure" : "";
   const present = (request.headers.get("cookie") ?? "")
     .split(";")
     .map((pair) => pair.split("=")[0].trim())
