@@ -1,4 +1,5 @@
 import type { AbsoluteMaximumRatingTemplate, ConditionColumn, LimitBasis, ProseTemplate, SpecRowTemplate } from "./types";
+import { proseSectionTitles } from "../lib/domain/sheets";
 
 /** The cautions every class carries (the usual datasheet cautions: ESD, maximum RF input, limits only under the stated conditions; sign-off defers to the organization's own procedures); a class adds its own RF-power wording. */
 export function composeCautions(maximumInputPowerCaution: string): string[] {
@@ -68,11 +69,11 @@ export function composeProse(sections: {
   testFixture: string;
 }): ProseTemplate[] {
   return [
-    { id: "description", title: "Description", markdown: sections.description },
-    { id: "features", title: "Key features", markdown: sections.features },
-    { id: "applications", title: "Applications", markdown: sections.applications },
-    { id: "handling", title: "Handling and mounting", markdown: sections.handling },
-    { id: "test-fixture", title: "Test fixture", markdown: sections.testFixture },
+    { id: "description", title: proseSectionTitles["description"], markdown: sections.description },
+    { id: "features", title: proseSectionTitles["features"], markdown: sections.features },
+    { id: "applications", title: proseSectionTitles["applications"], markdown: sections.applications },
+    { id: "handling", title: proseSectionTitles["handling"], markdown: sections.handling },
+    { id: "test-fixture", title: proseSectionTitles["test-fixture"], markdown: sections.testFixture },
   ];
 }
 

@@ -25,6 +25,15 @@ export const limitBasisWords: Record<LimitBasis, { mark: string; legend: string;
 export const proseSectionIds = ["description", "features", "applications", "handling", "test-fixture"] as const;
 export type ProseSectionId = (typeof proseSectionIds)[number];
 
+/** Each prose section's heading on the sheet, and its name in messages. */
+export const proseSectionTitles: Record<ProseSectionId, string> = {
+  description: "Description",
+  features: "Key features",
+  applications: "Applications",
+  handling: "Handling and mounting",
+  "test-fixture": "Test fixture",
+};
+
 /** The states of a sheet revision, in the order a revision passes through them. */
 export const revisionStates = ["draft", "in-review", "changes-requested", "approved", "released"] as const;
 export type RevisionState = (typeof revisionStates)[number];

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { limitBases, type ProseSectionId, proseSectionIds } from "@/lib/domain/sheets";
+import { limitBases, proseSectionIds, proseSectionTitles } from "@/lib/domain/sheets";
 import { findProseLimitBreach } from "@/lib/sheet/render-prose";
 import { minNotAboveMax } from "./decimal";
 
@@ -26,15 +26,6 @@ export const specLimitsBodySchema = z.object({
     .max(400),
 });
 export type SpecLimitsBody = z.infer<typeof specLimitsBodySchema>;
-
-/** Section names for messages, as the templates title them. */
-const proseSectionTitles: Record<ProseSectionId, string> = {
-  description: "Description",
-  features: "Key features",
-  applications: "Applications",
-  handling: "Handling and mounting",
-  "test-fixture": "Test fixture",
-};
 
 /** Each section within the prose limits (lib/sheet/prose-limits.ts), refused with the section and the limit named. */
 const proseSchema = z.partialRecord(z.enum(proseSectionIds), z.string()).superRefine((prose, ctx) => {
