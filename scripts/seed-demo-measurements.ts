@@ -12,23 +12,13 @@ import type { User, BenchToken } from "../models";
 import { demoInstruments, demoUploads } from "../models/seeders/demo-measurements";
 import { demoPassword } from "../models/seeders/demo-scenario";
 import { demoSheets } from "../models/seeders/demo-sheets";
+import { signInOverHttp } from "./sign-in-over-http";
 
 const appUrl = process.env.BENCHFOLD_APP_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
 const marker = "demo-measurements-via-bench-api";
 
-async function signIn(email: string): Promise<string> {
-  const csrf = await fetch(`${appUrl}/api/auth/csrf`);
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const cookies = csrf.headers.getSetCookie().map((c) => c.split(";")[0]);
-  const r = await fetch(`${appUrl}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: cookies.join("; "), origin: new URL(appUrl).origin },
-    body: new URLSearchParams({ csrfToken, email, password: demoPassword, json: "true" }),
-  });
-  const session = r.headers.getSetCookie().map((c) => c.split(";")[0]).find((c) => c.includes("session-token"));
-  if (!session) throw new Error(`demo sign-in as ${email} failed (${r.status})`);
-  return session;
+function signIn(email: string): Promise<string> {
+  return signInOverHttp(appUrl, { email, password: demoPassword });
 }
 
 async function userOf(slug: string, role: "admin" | "engineer" | "reviewer"): Promise<User> {

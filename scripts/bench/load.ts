@@ -11,37 +11,13 @@
  */
 import { execFileSync } from "node:child_process";
 import { readFileSync } from "node:fs";
+import { signInOverHttp } from "../sign-in-over-http";
 
 const baseUrl = process.env.BENCHFOLD_BENCH_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
 const clients = Number(process.env.BENCH_LOAD_CLIENTS ?? 50);
 const seconds = Number(process.env.BENCH_LOAD_SECONDS ?? 60);
 const freshRenders = Number(process.env.BENCH_LOAD_FRESH_RENDERS ?? 4);
 const demoEngineer = { email: "elena.marchetti@kestrine.example", password: "bench-demo-2026" };
-
-/** A cookie jar of one signed-in person (next-auth's CSRF token, then the credentials callback). */
-async function signIn(): Promise<string> {
-  const jar = new Map<string, string>();
-  const keep = (response: Response) => {
-    for (const line of response.headers.getSetCookie()) {
-      const [pair] = line.split(";");
-      const eq = pair.indexOf("=");
-      jar.set(pair.slice(0, eq), pair.slice(eq + 1));
-    }
-  };
-  const cookie = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
-  const csrf = await fetch(`${baseUrl}/api/auth/csrf`);
-  keep(csrf);
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const signedIn = await fetch(`${baseUrl}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: cookie(), origin: baseUrl },
-    body: new URLSearchParams({ csrfToken, ...demoEngineer, json: "true" }).toString(),
-  });
-  keep(signedIn);
-  if (![...jar.keys()].some((k) => k.includes("session-token"))) throw new Error(`the demo engineer could not sign in (${signedIn.status})`);
-  return cookie();
-}
 
 /** The resident memory of the process listening on the server's port, from /proc (Linux). */
 function serverRssMb(): number | null {
@@ -121,7 +97,7 @@ async function main() {
     console.log(`load benchmark skipped: nothing answers at ${baseUrl} (start the app with npm start, or set BENCHFOLD_BENCH_URL)`);
     return;
   }
-  const cookie = await signIn();
+  const cookie = await signInOverHttp(baseUrl, demoEngineer);
   const devices = (await (await fetch(`${baseUrl}/api/devices`, { headers: { cookie } })).json()) as { devices: { id: number; partNumber: string }[] };
   const doubler = devices.devices.find((d) => d.partNumber === "KDX-2G4");
   if (!doubler) throw new Error("the demo device KDX-2G4 is not there: load the demo with npm start");
