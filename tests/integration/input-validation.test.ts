@@ -1,10 +1,10 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { db, closeDb } from "@/models";
+import { closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
-import { fixtureUpload, fixturesDir } from "./helpers/uploads";
+import { fixtureUpload, fixturesDir, uploadRowCounts } from "./helpers/uploads";
 
 // Impossible dates and non-decimal numbers, through every form and API that takes them: each is a
 // 422 that names the field (or the file, line and field), never a 500, and nothing is stored.
@@ -30,10 +30,6 @@ beforeAll(async () => {
 });
 afterAll(() => closeDb());
 
-async function counts() {
-  const { MeasurementSet, StoredFile } = db();
-  return { sets: await MeasurementSet.count(), files: await StoredFile.count() };
-}
 
 async function expectFieldError(r: Response, field: string): Promise<ErrorBody> {
   const body = (await r.json()) as ErrorBody;
@@ -56,29 +52,29 @@ const impossibleDates = ["2026-02-30", "2025-02-29", "2026-13-01", "2026-04-31",
 
 describe("impossible calendar dates answer 422 naming the field", () => {
   it.each(impossibleDates)("upload form measuredOn %s", async (date) => {
-    const before = await counts();
+    const before = await uploadRowCounts();
     const r = await engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload("examples/phase-noise-doubler.csv", { measuredOn: date }) });
     await expectFieldError(r, "measuredOn");
-    expect(await counts()).toEqual(before);
+    expect(await uploadRowCounts()).toEqual(before);
   });
 
   it.each(impossibleDates)("bench API measuredOn %s", async (date) => {
-    const before = await counts();
+    const before = await uploadRowCounts();
     const form = fixtureUpload("examples/two-tone-mixer.tsv", { device: partNumber, measuredOn: date });
     const r = await new TestClient().request("/api/v1/measurements", { multipart: form, headers: { authorization: `Bearer ${benchToken}` }, origin: null });
     await expectFieldError(r, "measuredOn");
-    expect(await counts()).toEqual(before);
+    expect(await uploadRowCounts()).toEqual(before);
   });
 
   it.each(impossibleDates)("file metadata # date: %s names the file, line and field", async (date) => {
-    const before = await counts();
+    const before = await uploadRowCounts();
     const form = fixtureUpload("examples/drive-sweep-doubler.csv", {}, driveSweepWith(`# date: ${date}`, `BFD-DATE-${date}`));
     const r = await engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: form });
     const body = (await r.json()) as ErrorBody;
     expect(r.status, JSON.stringify(body)).toBe(422);
     expect(body.error.details?.ingest).toMatchObject({ fileName: "drive-sweep-doubler.csv", line: 3, field: "date" });
     expect(body.error.message).toContain(`drive-sweep-doubler.csv line 3 ("date")`);
-    expect(await counts()).toEqual(before);
+    expect(await uploadRowCounts()).toEqual(before);
   });
 
   it("a real leap day in a file's metadata is kept as the measurement date", async () => {
@@ -119,12 +115,12 @@ describe("numbers parse strictly: blank is missing, only decimal notation", () =
     ["splitterExcessLossDb", "2 dB"],
     ["inputFrequencyHz", "1e400"],
   ])("upload %s = %j → 422 naming the field, nothing stored", async (field, value) => {
-    const before = await counts();
+    const before = await uploadRowCounts();
     const r = await engineer.request(`/api/devices/${deviceId}/measurements`, {
       multipart: fixtureUpload("examples/hybrid-4port-v2.s4p", { serial: `BFD-NUM-${field}`, [field]: value }),
     });
     await expectFieldError(r, field);
-    expect(await counts()).toEqual(before);
+    expect(await uploadRowCounts()).toEqual(before);
   });
 
   it("the bench API refuses a hexadecimal drive level", async () => {

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
-import { fixtureUpload, fixturesDir } from "./helpers/uploads";
+import { fixtureUpload, fixturesDir, uploadRowCounts } from "./helpers/uploads";
 
 let org: Awaited<ReturnType<typeof makeOrganization>>;
 let other: Awaited<ReturnType<typeof makeOrganization>>;
@@ -32,10 +32,6 @@ beforeAll(async () => {
 });
 afterAll(() => closeDb());
 
-async function counts() {
-  const { MeasurementSet, StoredFile } = db();
-  return { sets: await MeasurementSet.count(), files: await StoredFile.count() };
-}
 
 describe("upload", () => {
   const { StoredFile } = db();
@@ -68,21 +64,21 @@ describe("upload", () => {
 
   const malformed = readdirSync(path.join(fixturesDir, "malformed")).sort();
   it.each(malformed)("malformed %s → 422 with the engine's message, nothing stored", async (file) => {
-    const before = await counts();
+    const before = await uploadRowCounts();
     const r = await as.engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload(`malformed/${file}`, { serial: "BFD-X" }) });
     const body = (await r.json()) as { error: { code: string; message: string; details?: { ingest?: { fileName: string } } } };
     expect(r.status, body.error.message).toBe(422);
     expect(body.error.message.startsWith(file)).toBe(true);
     expect(body.error.details?.ingest?.fileName).toBe(file);
-    expect(await counts()).toEqual(before);
+    expect(await uploadRowCounts()).toEqual(before);
   });
 
   it("refuses an oversize upload with 413 before storing anything", async () => {
-    const before = await counts();
+    const before = await uploadRowCounts();
     const big = new Uint8Array(11 * 1024 * 1024).fill(0x31);
     const r = await as.engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload("big.csv", {}, big) });
     expect(r.status).toBe(413);
-    expect(await counts()).toEqual(before);
+    expect(await uploadRowCounts()).toEqual(before);
   });
 });
 

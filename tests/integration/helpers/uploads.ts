@@ -1,3 +1,4 @@
+import { db } from "@/models";
 import { readFileSync } from "node:fs";
 import path from "node:path";
 
@@ -10,4 +11,10 @@ export function fixtureUpload(relative: string, fields: Record<string, string> =
   form.set("file", new Blob([data]), path.basename(relative));
   for (const [k, v] of Object.entries(fields)) form.set(k, v);
   return form;
+}
+
+/** How many measurement sets and stored files exist: compared before and after a refused upload. */
+export async function uploadRowCounts(): Promise<{ sets: number; files: number }> {
+  const { MeasurementSet, StoredFile } = db();
+  return { sets: await MeasurementSet.count(), files: await StoredFile.count() };
 }
