@@ -65,6 +65,9 @@ function SheetPage({ model, children }: { model: SheetModel; children: ReactNode
       size="A4"
       style={{
         fontFamily: SANS_FAMILY,
+        // No ligatures: a part number such as "KDX-ff1" or a word like "offset" must copy and search
+        // as the letters it is made of, not as U+FB00 "ﬀ" (Source Sans 3 ligates ff, fi, fl by default).
+        fontFeatureSettings: { liga: false },
         fontSize: 8.8,
         lineHeight: 1.35,
         color: colors.ink,

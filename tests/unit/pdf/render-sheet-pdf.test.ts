@@ -89,6 +89,14 @@ describe("renderSheetPdf", () => {
     expect(text).toMatch(/Page 1 of \d+/);
   });
 
+  it("sets no ligatures, so words and part numbers copy as their letters", () => {
+    const text = poppler("pdftotext", draft, "draft");
+    // U+FB00–FB06 are the Latin ligatures (ff, fi, fl, ffi, ffl, ſt, st) of the Unicode Standard's
+    // Alphabetic Presentation Forms block; Source Sans 3 would set "offset" with U+FB00.
+    expect(text).not.toMatch(/[\uFB00-\uFB06]/u);
+    expect(text).toMatch(/offset/);
+  });
+
   it("marks a sheet that is not released, and only that one", () => {
     expect(poppler("pdftotext", draft, "draft")).toContain("PRELIMINARY");
     const text = poppler("pdftotext", released, "released");
