@@ -69,6 +69,7 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
     revisionHistory: [...input.revision.history]
       .sort((a, b) => compareStrings(a.date, b.date) || compareStrings(a.label, b.label))
       .map(({ label, date, summary }) => ({ label, date, summary })),
+    release: null,
     issues,
   };
 }

@@ -6,3 +6,4 @@ export { proseLimits, type ProseLimit, type ProseLimitBreach } from "./prose-lim
 export { makeConditionsKey, parseConditionsKey } from "./conditions";
 export { notationSegments, type NotationSegment } from "./notation";
 export { proseLayout } from "./prose-layout";
+export { releaseSheetModel, revisionLetter, revisionSequence, type ReleaseFacts } from "./release";

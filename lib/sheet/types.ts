@@ -215,6 +215,37 @@ export interface ChartSpec {
   vegaLite: Record<string, unknown>;
 }
 
+/**
+ * One electronic signature as printed on a released sheet: who (printed name, role, organization),
+ * when (UTC), what it means, and the digest of the candidate it signs — 21 CFR Part 11 §11.50 and §11.70.
+ */
+export interface SheetSignature {
+  name: string;
+  /** The signer's role word, e.g. "Reviewer". */
+  role: string;
+  organizationName: string;
+  /** UTC, ISO 8601 to the second: "2026-12-02T09:14:05Z". */
+  signedAt: string;
+  /** The stated meaning, in words ("Reviewed and approved for release"). */
+  meaning: string;
+  /** SHA-256 (hex) of the candidate sheet model the signer reviewed. */
+  candidateDigest: string;
+}
+
+export interface SheetRelease {
+  /** The revision letter: "A", "B", … "Z", "AA". */
+  revisionLabel: string;
+  /** ISO date (YYYY-MM-DD, UTC) of the release. */
+  releasedOn: string;
+  signatures: SheetSignature[];
+  /** A short code printed in the footer; it names the revision's public record. */
+  verificationReference: string;
+  /** Where that record is: an absolute https:// or http:// address. */
+  verificationUrl: string;
+  /** Release notes: what changed since the previous revision (generated), then the engineer's note. */
+  notes: string[];
+}
+
 export interface SheetModel {
   schemaVersion: 1;
   template: { deviceClass: string; label: string };
@@ -283,6 +314,8 @@ export interface SheetModel {
     flaggedGroupCount: number;
   };
   revisionHistory: { label: string; date: string; summary: string }[];
+  /** The release record (revision letter, date, signatures, verification reference); null on a draft or candidate. */
+  release: SheetRelease | null;
   /** Problems a reviewer must see before approving (missing ratings, unknown limits, lapsed calibration). */
   issues: { code: string; message: string }[];
 }
