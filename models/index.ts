@@ -6,6 +6,11 @@ import { ColumnMapping } from "./column-mapping";
 import { Instrument } from "./instrument";
 import { MeasurementSet, MeasurementSetInstrument } from "./measurement-set";
 import { SheetContent } from "./sheet-content";
+import { SheetCandidate } from "./sheet-candidate";
+import { SheetComment } from "./sheet-comment";
+import { SheetRevision } from "./sheet-revision";
+import { SheetRevisionWithdrawal } from "./sheet-revision-withdrawal";
+import { SheetSignature } from "./sheet-signature";
 import { SpecLimit } from "./spec-limit";
 import { StoredFile } from "./stored-file";
 import { Device } from "./device";
@@ -29,7 +34,12 @@ export type {
   Organization,
   PasswordReset,
   RevokedSession,
+  SheetCandidate,
+  SheetComment,
   SheetContent,
+  SheetRevision,
+  SheetRevisionWithdrawal,
+  SheetSignature,
   SignInAttempt,
   SignUpRequest,
   SpecLimit,
@@ -51,7 +61,12 @@ const models = {
   Organization,
   PasswordReset,
   RevokedSession,
+  SheetCandidate,
+  SheetComment,
   SheetContent,
+  SheetRevision,
+  SheetRevisionWithdrawal,
+  SheetSignature,
   SignInAttempt,
   SignUpRequest,
   SpecLimit,
@@ -76,6 +91,13 @@ function initModels(sequelize: Sequelize): Sequelize {
   MeasurementSet.belongsTo(BenchToken, { as: "benchToken", foreignKey: "benchTokenId" });
   MeasurementSet.belongsToMany(Instrument, { through: MeasurementSetInstrument, foreignKey: "measurementSetId", otherKey: "instrumentId" });
   Instrument.belongsToMany(MeasurementSet, { through: MeasurementSetInstrument, foreignKey: "instrumentId", otherKey: "measurementSetId" });
+  SheetCandidate.belongsTo(Device, { foreignKey: "deviceId" });
+  SheetCandidate.belongsTo(User, { as: "submittedBy", foreignKey: "submittedById" });
+  SheetCandidate.hasMany(SheetSignature, { foreignKey: "candidateId" });
+  SheetComment.belongsTo(User, { as: "author", foreignKey: "authorId" });
+  SheetRevision.belongsTo(Device, { foreignKey: "deviceId" });
+  SheetRevision.belongsTo(SheetCandidate, { foreignKey: "candidateId" });
+  SheetRevision.hasOne(SheetRevisionWithdrawal, { foreignKey: "revisionId" });
   return sequelize;
 }
 

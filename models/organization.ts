@@ -12,6 +12,8 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
   declare cpkThreshold: CreationOptional<number>;
   declare toleranceCoverage: CreationOptional<number>;
   declare toleranceConfidence: CreationOptional<number>;
+  /** Signatures a sheet candidate needs before it may be released (1, or 2 e.g. engineering and quality). */
+  declare requiredSignatures: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -25,6 +27,7 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
         cpkThreshold: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 1.33 },
         toleranceCoverage: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0.99 },
         toleranceConfidence: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0.95 },
+        requiredSignatures: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 1 },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },

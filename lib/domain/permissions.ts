@@ -14,6 +14,7 @@ export const permissions = [
   "measurement:approve",
   "sheet:write",
   "sheet:review",
+  "revision:withdraw",
   "user:manage",
   "instrument:manage",
   "token:manage",
@@ -23,9 +24,9 @@ export const permissions = [
 export type Permission = (typeof permissions)[number];
 
 const table: Record<Role, readonly Permission[]> = {
-  admin: ["device:read", "user:manage", "instrument:manage", "token:manage", "catalog:read"],
+  admin: ["device:read", "revision:withdraw", "user:manage", "instrument:manage", "token:manage", "catalog:read"],
   engineer: ["device:read", "device:write", "measurement:upload", "sheet:write", "catalog:read"],
-  reviewer: ["device:read", "measurement:approve", "sheet:review", "catalog:read"],
+  reviewer: ["device:read", "measurement:approve", "sheet:review", "revision:withdraw", "catalog:read"],
   customer: ["catalog:read", "subscription:manage"],
 };
 

@@ -13,7 +13,13 @@ type SetWithInstruments = MeasurementSet & { Instruments?: Instrument[] };
  * approved and not superseded measurement sets (with curves and instruments), its spec
  * limits, the engineer's prose and ratings, and the organization's statistical settings.
  */
-export async function loadSheetInput(opts: { organizationId: number; deviceId: number; date: string }): Promise<SheetInput> {
+export async function loadSheetInput(opts: {
+  organizationId: number;
+  deviceId: number;
+  date: string;
+  /** The revision the sheet is built as; a draft (no letter, no history) unless given. */
+  revision?: Omit<SheetInput["revision"], "date">;
+}): Promise<SheetInput> {
   const { Device, Instrument, MeasurementSet, Organization, SheetContent, SpecLimit } = db();
   const device = await Device.findOne({ where: { id: opts.deviceId, organizationId: opts.organizationId }, include: [Organization] });
   if (!device) throw new AppError("not-found", "No such device in your organization.");
@@ -37,7 +43,7 @@ export async function loadSheetInput(opts: { organizationId: number; deviceId: n
       keyConditions: device.keyConditions,
       organizationName: organization.name,
     },
-    revision: { label: null, state: "draft", date: opts.date, history: [] },
+    revision: { ...(opts.revision ?? { label: null, state: "draft", history: [] }), date: opts.date },
     approvedSets: (sets as SetWithInstruments[]).map((s) => ({
       id: s.id,
       kind: s.kind,
