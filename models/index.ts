@@ -11,6 +11,7 @@ import { StoredFile } from "./stored-file";
 import { Device } from "./device";
 import { Invitation } from "./invitation";
 import { Organization } from "./organization";
+import { OutboxMessage } from "./outbox-message";
 import { PasswordReset } from "./password-reset";
 import { RevokedSession } from "./revoked-session";
 import { SignInAttempt } from "./sign-in-attempt";
@@ -27,6 +28,7 @@ export type {
   MeasurementSet,
   MeasurementSetInstrument,
   Organization,
+  OutboxMessage,
   PasswordReset,
   RevokedSession,
   SheetContent,
@@ -49,6 +51,7 @@ const models = {
   MeasurementSet,
   MeasurementSetInstrument,
   Organization,
+  OutboxMessage,
   PasswordReset,
   RevokedSession,
   SheetContent,
