@@ -16,6 +16,7 @@ import { StoredFile } from "./stored-file";
 import { Device } from "./device";
 import { Invitation } from "./invitation";
 import { Organization } from "./organization";
+import { OutboxMessage } from "./outbox-message";
 import { PasswordReset } from "./password-reset";
 import { RevokedSession } from "./revoked-session";
 import { SignInAttempt } from "./sign-in-attempt";
@@ -32,6 +33,7 @@ export type {
   MeasurementSet,
   MeasurementSetInstrument,
   Organization,
+  OutboxMessage,
   PasswordReset,
   RevokedSession,
   SheetCandidate,
@@ -59,6 +61,7 @@ const models = {
   MeasurementSet,
   MeasurementSetInstrument,
   Organization,
+  OutboxMessage,
   PasswordReset,
   RevokedSession,
   SheetCandidate,
