@@ -9,6 +9,7 @@ import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { toDeviceSummary, type DeviceSummary } from "./device-summary";
 import { lockOwnRow } from "../auth/own-row";
+import { refreshOpenCandidates } from "../reviews/freshness";
 
 /** Creates a device, or edits one of the engineer's organization when `deviceId` is given. */
 export async function saveDevice(opts: { actor: SessionUser; input: DeviceBody; deviceId?: number }): Promise<DeviceSummary> {
@@ -16,7 +17,7 @@ export async function saveDevice(opts: { actor: SessionUser; input: DeviceBody; 
   const { actor, input, deviceId } = opts;
   authorize(actor, "device-edit");
   try {
-    return await sequelize.transaction(async (transaction) => {
+    const saved = await sequelize.transaction(async (transaction) => {
       let row: Device | null;
       let before: unknown = null;
       if (deviceId) {
@@ -33,6 +34,8 @@ export async function saveDevice(opts: { actor: SessionUser; input: DeviceBody; 
       );
       return after;
     });
+    if (deviceId) await refreshOpenCandidates({ organizationId: actor.organizationId, deviceId });
+    return saved;
   } catch (error) {
     if (error instanceof UniqueConstraintError) {
       throw new AppError("conflict", `Part number ${input.partNumber} is already used in your organization.`, { field: "partNumber" });

@@ -9,6 +9,7 @@ import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { toInstrumentSummary, type InstrumentSummary } from "./instrument-summary";
 import { lockOwnRow } from "../auth/own-row";
+import { refreshOpenCandidates } from "../reviews/freshness";
 
 /** Creates an instrument, or updates one of the admin's organization when `instrumentId` is given. */
 export async function saveInstrument(opts: { actor: SessionUser; input: InstrumentBody; instrumentId?: number }): Promise<InstrumentSummary> {
@@ -16,7 +17,7 @@ export async function saveInstrument(opts: { actor: SessionUser; input: Instrume
   const { actor, input, instrumentId } = opts;
   authorize(actor, "instrument-admin");
   try {
-    return await sequelize.transaction(async (transaction) => {
+    const saved = await sequelize.transaction(async (transaction) => {
       let row: Instrument | null = null;
       let before: unknown = null;
       if (instrumentId) {
@@ -33,6 +34,9 @@ export async function saveInstrument(opts: { actor: SessionUser; input: Instrume
       );
       return after;
     });
+    // An instrument's calibration is printed in the traceability of every sheet citing it.
+    if (instrumentId) await refreshOpenCandidates({ organizationId: actor.organizationId });
+    return saved;
   } catch (error) {
     if (error instanceof UniqueConstraintError) throw new AppError("conflict", `An instrument with serial ${input.serial} is already listed.`, { field: "serial" });
     throw error;

@@ -15,6 +15,7 @@ import { loadMeasurementSets } from "./load-measurement-sets";
 import type { MeasurementSetSummary } from "./measurement-set-summary";
 import { maxUploadBytes, type UploadedFile } from "./read-upload-form";
 import { toPlainJson } from "./to-plain-json";
+import { refreshOpenCandidates } from "../reviews/freshness";
 
 export type UploadActor = { kind: "user"; userId: number } | { kind: "bench-token"; tokenId: number };
 
@@ -193,6 +194,7 @@ export async function ingestMeasurement(input: IngestInput): Promise<Measurement
       );
       return set.id;
     });
+    if (fields.supersedesId) await refreshOpenCandidates({ organizationId, deviceId });
     const [summary] = await loadMeasurementSets({ id, organizationId });
     return summary;
   } catch (error) {

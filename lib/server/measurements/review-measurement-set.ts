@@ -8,6 +8,7 @@ import type { SessionUser } from "../auth/session-user";
 import { loadMeasurementSets } from "./load-measurement-sets";
 import type { MeasurementSetSummary } from "./measurement-set-summary";
 import { lockOwnRow } from "../auth/own-row";
+import { refreshOpenCandidates } from "../reviews/freshness";
 
 /**
  * Approves or rejects a submitted set. Four eyes: whoever uploaded it cannot decide on it.
@@ -41,5 +42,7 @@ export async function reviewMeasurementSet(opts: { reviewer: SessionUser; setId:
     );
   });
   const [summary] = await loadMeasurementSets({ id: setId, organizationId: reviewer.organizationId });
+  // An approved set feeds the sheet: an open review of it is now of an out-of-date candidate.
+  if (summary.state === "approved") await refreshOpenCandidates({ organizationId: reviewer.organizationId, deviceId: summary.deviceId });
   return summary;
 }

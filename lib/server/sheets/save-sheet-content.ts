@@ -5,6 +5,7 @@ import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { lockOwnRow } from "../auth/own-row";
+import { refreshOpenCandidates } from "../reviews/freshness";
 
 export async function saveSheetContent(opts: { actor: SessionUser; deviceId: number; input: SheetContentBody }): Promise<void> {
   const { Device, SheetContent, sequelize } = db();
@@ -22,4 +23,5 @@ export async function saveSheetContent(opts: { actor: SessionUser; deviceId: num
       transaction,
     );
   });
+  await refreshOpenCandidates({ organizationId: actor.organizationId, deviceId });
 }

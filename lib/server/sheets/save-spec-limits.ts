@@ -6,6 +6,7 @@ import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { lockOwnRow } from "../auth/own-row";
+import { refreshOpenCandidates } from "../reviews/freshness";
 
 /** Replaces the device's spec limits as one change, with the old and new set in the audit trail. */
 export async function saveSpecLimits(opts: { actor: SessionUser; deviceId: number; input: SpecLimitsBody }): Promise<number> {
@@ -18,7 +19,7 @@ export async function saveSpecLimits(opts: { actor: SessionUser; deviceId: numbe
     if (seen.has(key)) throw new AppError("invalid", `Two limits for ${l.parameter} under the same conditions (${l.conditionsKey || "none"}).`, { field: "limits" });
     seen.add(key);
   }
-  return sequelize.transaction(async (transaction) => {
+  const saved = await sequelize.transaction(async (transaction) => {
     const device = await lockOwnRow(Device, deviceId, actor, transaction, "device");
     const before = await SpecLimit.findAll({ where: { deviceId }, transaction });
     await SpecLimit.destroy({ where: { deviceId }, transaction });
@@ -51,4 +52,6 @@ export async function saveSpecLimits(opts: { actor: SessionUser; deviceId: numbe
     );
     return input.limits.length;
   });
+  await refreshOpenCandidates({ organizationId: actor.organizationId, deviceId });
+  return saved;
 }
