@@ -6,6 +6,11 @@
  * upload — every measurement set has its stored file, every stored file its set, and each trial
  * added at most the one set it sent.
  *
+ * Then the same in the middle of a release, 20 times: the release answers 201 (committed) or 503;
+ * afterwards a revision exists exactly when its candidate says released, with its PDF bytes whose
+ * SHA-256 (computed by MariaDB) is the stored one, its audit event and its queued notices; and
+ * when no revision exists the same candidate releases cleanly once the database is back.
+ *
  * It stops and starts the MariaDB instance the whole run shares, so it runs alone in its file
  * (integration files run one at a time) and always leaves the database running.
  */
@@ -18,7 +23,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { mulberry32 } from "@/lib/stats/seeded-random";
 import { closeDb, db } from "@/models";
 import { TestClient } from "./helpers/client";
-import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
+import { clientsByRole, factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
+import { deviceWithApprovedData, release, sign, submitDraft } from "./helpers/reviews";
 
 const run = promisify(execFile);
 const ROOT = path.resolve(__dirname, "../..");
@@ -129,4 +135,68 @@ describe("MariaDB killed in the middle of an upload", () => {
       expectedMaxSets = state.sets;
     }
   }, 600_000);
+});
+
+type ReleaseState = { revisions: number; pdfOk: number; candidateState: string; audits: number; notices: number };
+
+async function releaseState(deviceId: number, candidateId: number): Promise<ReleaseState> {
+  await closeDb();
+  const [row] = await db().sequelize.query<ReleaseState>(
+    `SELECT
+       (SELECT COUNT(*) FROM sheet_revisions WHERE device_id = :deviceId) AS revisions,
+       (SELECT COUNT(*) FROM sheet_revisions WHERE device_id = :deviceId
+          AND LENGTH(pdf) = pdf_bytes AND pdf_bytes > 0 AND SHA2(pdf, 256) = pdf_sha256) AS pdfOk,
+       (SELECT state FROM sheet_candidates WHERE id = :candidateId) AS candidateState,
+       (SELECT COUNT(*) FROM audit_events WHERE action = 'sheet.released' AND subject_id IN
+          (SELECT id FROM sheet_revisions WHERE device_id = :deviceId)) AS audits,
+       (SELECT COUNT(*) FROM outbox_messages WHERE event_key = CONCAT('sheet-candidate:', :candidateId, ':released')) AS notices`,
+    { type: QueryTypes.SELECT, replacements: { deviceId, candidateId } },
+  );
+  return { ...row, revisions: Number(row.revisions), pdfOk: Number(row.pdfOk), audits: Number(row.audits), notices: Number(row.notices) };
+}
+
+describe("MariaDB killed in the middle of a release", () => {
+  it(`leaves no revision without its PDF, candidate, audit event and notices, ${TRIALS} trials`, async () => {
+    const made = await makeOrganization();
+    const people = await clientsByRole(made);
+    const eng = people.get("engineer")!;
+    const rev = people.get("reviewer")!;
+    const prepare = async () => {
+      const id = await deviceWithApprovedData(made.organization.id, eng, rev);
+      const candidate = await submitDraft(eng, id);
+      expect((await sign(rev, candidate.id)).status).toBe(200);
+      return { deviceId: id, candidateId: candidate.id };
+    };
+    const random = mulberry32(20261203);
+    // Two undisturbed releases: the first also starts the PDF workers; the second is how long one takes.
+    expect((await release(eng, (await prepare()).candidateId)).status).toBe(201);
+    const timing = await prepare();
+    const started = Date.now();
+    expect((await release(eng, timing.candidateId)).status).toBe(201);
+    const releaseMs = Date.now() - started;
+    const statuses = new Map<number, number>();
+    for (let trial = 0; trial < TRIALS; trial++) {
+      const { deviceId: id, candidateId } = await prepare();
+      const answer = release(eng, candidateId, `Trial ${trial}.`);
+      await new Promise((resolve) => setTimeout(resolve, Math.round(random() * releaseMs)));
+      killDatabase();
+      const response = await answer;
+      expect([201, 503], `trial ${trial}: ${(await response.clone().text()).slice(0, 200)}`).toContain(response.status);
+      statuses.set(response.status, (statuses.get(response.status) ?? 0) + 1);
+      const restart = startDatabase();
+      await waitUntil(async () => (await eng.request(`/api/devices/${id}`)).status === 200, 60_000);
+      await restart;
+
+      const state = await releaseState(id, candidateId);
+      const released = state.revisions === 1;
+      expect(state.revisions, `trial ${trial}: at most one revision`).toBeLessThanOrEqual(1);
+      expect(state.pdfOk, `trial ${trial}: every revision has its PDF and hash`).toBe(state.revisions);
+      expect(state.candidateState, `trial ${trial}`).toBe(released ? "released" : "approved");
+      expect(state.audits, `trial ${trial}: the audit event goes with the revision`).toBe(state.revisions);
+      expect(state.notices > 0, `trial ${trial}: the notices go with the revision`).toBe(released);
+      if (response.status === 201) expect(released).toBe(true);
+      if (!released) expect((await release(eng, candidateId)).status, `trial ${trial}: released once the database is back`).toBe(201);
+    }
+    console.log(`[database faults] ${TRIALS} kills mid-release (release ≈ ${releaseMs} ms): ${[...statuses].map(([s, n]) => `${s}×${n}`).join(", ")}`);
+  }, 900_000);
 });
