@@ -11,6 +11,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { closeDb, db } from "@/models";
 import { assertLoopbackDatabase } from "./helpers/loopback";
 import { makeOrganization } from "./helpers/factories";
+import { waitForMail } from "./helpers/mailbox";
 
 vi.mock("server-only", () => ({}));
 
@@ -208,6 +209,22 @@ describe("failures", () => {
     const rows = await rowsOf(lane);
     expect(rows.filter((r) => r.sentAt === null).map((r) => r.claimToken)).toEqual([null, null, null]);
     expect((await claimOutboxBatch({ lane, batchSize: 10, leaseMs: 60_000 })).rows).toHaveLength(3);
+  });
+});
+
+describe("the run's own worker", () => {
+  // scripts/test.sh starts scripts/outbox-worker.ts beside the app server, as npm start does.
+  it("mails a notice queued in lane mail to the run's fake SMTP server and marks it sent", async () => {
+    const to = `notice-${tag}@outbox.example`;
+    await db().sequelize.transaction((transaction) =>
+      enqueueNotices(transaction, [{ organizationId: null, eventKey: `shared-worker:${tag}`, to, subject: "Sheet submitted for review", text: `Candidate ${tag} awaits review.` }]),
+    );
+    const mail = await waitForMail(to, 20_000);
+    expect(mail.subject).toBe("Sheet submitted for review");
+    expect(mail.text).toContain(`Candidate ${tag} awaits review.`);
+    const rows = await rowsOf("mail").then((all) => all.filter((r) => r.recipient === to));
+    expect(rows).toHaveLength(1);
+    await expect.poll(async () => (await rowsOf("mail")).find((r) => r.recipient === to)?.sentAt ?? null, { timeout: 20_000 }).not.toBeNull();
   });
 });
 
