@@ -18,11 +18,12 @@ function describeError(error: unknown): string {
 
 /**
  * One pass of the outbox worker over its lane: claims a batch (claimOutboxBatch), then for each
- * row renews the lease (a row another worker claimed after this pass's lease ran out, because
- * the pass was slower than the lease, is left to that worker), sends it with the row's own Message-ID and marks it sent. A
- * failed send counts an attempt, records the error and sets the next attempt after a capped
- * exponential delay (outboxRetryDelayMs); the claim is released either way. When `shouldStop`
- * answers true (SIGTERM), the rows not yet sent are released for the next worker at once.
+ * row moves the claim to a token of this send's own, renewing the lease (a row that another
+ * worker claimed after this pass's lease ran out is left to that worker), sends it with the row's
+ * own Message-ID and marks it sent. A failed send counts an attempt, records the error and sets
+ * the next attempt after a capped exponential delay (outboxRetryDelayMs); the claim is released
+ * either way. When `shouldStop` answers true (SIGTERM), the rows not yet sent are released for the
+ * next worker at once.
  *
  * A crash (or lost database) between a successful send and the UPDATE that marks it sent leaves
  * the row claimed; when the lease ends it is sent again, with the same Message-ID: at most one
