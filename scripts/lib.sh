@@ -93,6 +93,19 @@ start_fake_smtp() {
   die "fake SMTP did not answer in 10 s"
 }
 
+# Starts the outbox worker (scripts/outbox-worker.ts: mails the queued review and release notices)
+# in the background, after the SMTP settings are exported, with its log in .data/logs/<name>.log.
+# Sets OUTBOX_WORKER_PID. The caller stops it with SIGTERM (it finishes the mail in flight).
+start_outbox_worker() {
+  local name="${1:-outbox-worker}"
+  mkdir -p "$BENCHFOLD_DATA_DIR/logs"
+  # react-server: lib/server's `server-only` guard is the empty module it is in the app's server bundles.
+  (cd "$BENCHFOLD_ROOT" && exec node --conditions=react-server --import tsx scripts/outbox-worker.ts) \
+    >>"$BENCHFOLD_DATA_DIR/logs/$name.log" 2>&1 &
+  OUTBOX_WORKER_PID=$!
+  log "outbox worker started (pid $OUTBOX_WORKER_PID, log .data/logs/$name.log)"
+}
+
 # Said when the fake SMTP server is in use, so nobody mistakes it for a working mail set-up.
 warn_mail_not_delivered() {
   log "MAIL IS NOT BEING DELIVERED: no SMTP_HOST is set, so invitations and password-reset links are caught"

@@ -15,11 +15,20 @@ run_tsx scripts/migrate.ts
 run_tsx scripts/seed.ts
 
 # Mail: a real relay when SMTP_HOST is configured, otherwise the local fake server and its mailbox page.
+SERVER_PID=""; FAKE_SMTP_PID=""; OUTBOX_WORKER_PID=""
+stop_children() {
+  local pid
+  for pid in "$SERVER_PID" "$OUTBOX_WORKER_PID" "$FAKE_SMTP_PID"; do [ -n "$pid" ] && kill "$pid" 2>/dev/null; done
+  true
+}
+trap stop_children EXIT
+trap 'exit 130' INT TERM
 if [ -z "${SMTP_HOST:-}" ]; then
   start_fake_smtp
-  [ -n "$FAKE_SMTP_PID" ] && trap 'kill "$FAKE_SMTP_PID" 2>/dev/null || true' EXIT
   warn_mail_not_delivered
 fi
+# Review and release notices go out through the outbox worker, a process of its own beside the server.
+start_outbox_worker
 
 if [ "$MODE" = "--dev" ]; then
   log "ready in $(( $(date +%s) - started )) s of set-up; dev server on http://localhost:$PORT"
@@ -30,7 +39,6 @@ else
     || { tail -40 "$BENCHFOLD_DATA_DIR/logs/next-build.log"; die "next build failed (full log: $BENCHFOLD_DATA_DIR/logs/next-build.log)"; }
   node scripts/server.mjs &
   SERVER_PID=$!
-  trap 'kill "$SERVER_PID" 2>/dev/null; [ -n "${FAKE_SMTP_PID:-}" ] && kill "$FAKE_SMTP_PID" 2>/dev/null; true' EXIT INT TERM
   for _ in $(seq 1 150); do curl -fsS "http://127.0.0.1:$PORT/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done
   # The demo's measurement sets go in through the real bench upload path, once per database.
   BENCHFOLD_APP_URL="http://127.0.0.1:$PORT" run_tsx scripts/seed-demo-measurements.ts || log "demo measurements were not loaded (see above)"

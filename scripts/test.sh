@@ -33,8 +33,10 @@ run_tsx scripts/migrate.ts || die "migrations failed"
 run_tsx scripts/seed.ts || die "seeding failed"
 start_fake_smtp
 SERVER_PID=""
+OUTBOX_WORKER_PID=""
 cleanup() {
   [ -n "$SERVER_PID" ] && kill "$SERVER_PID" 2>/dev/null
+  [ -n "$OUTBOX_WORKER_PID" ] && kill "$OUTBOX_WORKER_PID" 2>/dev/null
   [ -n "${FAKE_SMTP_PID:-}" ] && kill "$FAKE_SMTP_PID" 2>/dev/null
   true
 }
@@ -57,6 +59,10 @@ log "── build"
 if BENCHFOLD_TEST_DEVICE_CLASSES=1 node node_modules/next/dist/bin/next build >"$BENCHFOLD_DATA_DIR/logs/next-build-test.log" 2>&1; then
   node scripts/server.mjs >"$BENCHFOLD_DATA_DIR/logs/next-test-server.log" 2>&1 &
   SERVER_PID=$!
+  # The run's outbox worker drains lane "mail" into the test fake SMTP server, as npm start's does;
+  # tests/integration/outbox-*.test.ts use lanes of their own and workers of their own.
+  rm -f "$BENCHFOLD_DATA_DIR/logs/outbox-worker-test.log"
+  start_outbox_worker outbox-worker-test
   for _ in $(seq 1 150); do curl -fsS "$BENCHFOLD_TEST_URL/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done
   if curl -fsS "$BENCHFOLD_TEST_URL/api/auth/csrf" >/dev/null 2>&1; then
     step "demo measurements through the bench API" env BENCHFOLD_APP_URL="$BENCHFOLD_TEST_URL" \
@@ -65,6 +71,10 @@ if BENCHFOLD_TEST_DEVICE_CLASSES=1 node node_modules/next/dist/bin/next build >"
       --reporter=default --reporter=json --outputFile.json="$RESULTS/integration.json"
     step "browser tests" env PLAYWRIGHT_JSON_OUTPUT_NAME="$RESULTS/e2e.json" \
       node node_modules/@playwright/test/cli.js test --reporter=list,json
+    # The worker must outlive every fault the tests cause (a killed database, a stopped relay).
+    if ! kill -0 "$OUTBOX_WORKER_PID" 2>/dev/null; then
+      tail -20 "$BENCHFOLD_DATA_DIR/logs/outbox-worker-test.log"; log "✗ the outbox worker stopped during the tests"; status=1
+    fi
   else
     tail -20 "$BENCHFOLD_DATA_DIR/logs/next-test-server.log"; log "✗ the app server did not start"; status=1
   fi

@@ -18,7 +18,7 @@ export type OutboxSettings = {
 export const defaultOutboxLane = "mail";
 const lanePattern = /^[a-z0-9][a-z0-9-]{0,39}$/;
 
-function positiveInteger(env: NodeJS.ProcessEnv, name: string, fallback: number): number {
+function positiveInteger(env: Record<string, string | undefined>, name: string, fallback: number): number {
   const raw = env[name];
   if (raw === undefined || raw === "") return fallback;
   if (!/^\d+$/.test(raw) || Number(raw) < 1) throw new Error(`${name} must be a positive whole number, not '${raw}'`);
@@ -26,7 +26,7 @@ function positiveInteger(env: NodeJS.ProcessEnv, name: string, fallback: number)
 }
 
 /** The worker's settings from BENCHFOLD_OUTBOX_* variables; a malformed value stops the worker at start. */
-export function readOutboxSettings(env: NodeJS.ProcessEnv = process.env): OutboxSettings {
+export function readOutboxSettings(env: Record<string, string | undefined> = process.env): OutboxSettings {
   const lane = env.BENCHFOLD_OUTBOX_LANE || defaultOutboxLane;
   if (!lanePattern.test(lane)) throw new Error(`BENCHFOLD_OUTBOX_LANE must be 1–40 lower-case letters, digits and hyphens, not '${lane}'`);
   const settings = {
