@@ -30,6 +30,7 @@ import type { FormattedValue, SheetModel, SpecTableRow } from "./types";
 
 export * from "./diff-types";
 export { summaryLines } from "./diff-summary";
+export { diffIsEmpty } from "./diff-empty";
 export { diffChartAnchorId, diffProseAnchorId, diffRowAnchorId } from "./diff-anchors";
 
 
@@ -65,23 +66,6 @@ export function diffSheetModels(previous: SheetModel | null, next: SheetModel, o
     details: diffDetails(previous, next),
     charts: overlayCharts(previous, next, { previousLabel, nextLabel }),
   };
-}
-
-/** True when the two models differ in nothing the diff reports (a first release is never empty). */
-export function diffIsEmpty(diff: SheetDiff): boolean {
-  return (
-    !diff.firstRelease &&
-    diff.rows.length === 0 &&
-    diff.basisChanges.length === 0 &&
-    diff.prose.length === 0 &&
-    diff.ratings.length === 0 &&
-    diff.cautions.added.length === 0 &&
-    diff.cautions.removed.length === 0 &&
-    diff.measurementSets.added.length === 0 &&
-    diff.measurementSets.removed.length === 0 &&
-    diff.details.length === 0 &&
-    diff.charts.every((chart) => chart.presence === "both" && chart.panels.every((panel) => !panel.changed))
-  );
 }
 
 function defaultPreviousLabel(previous: SheetModel): string {
