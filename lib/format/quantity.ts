@@ -155,6 +155,21 @@ export function takesPrefix(unit: string): boolean {
   return Object.hasOwn(PREFIXED_UNITS, unit);
 }
 
+/**
+ * A unit as written, split into the unit that takes a prefix and the prefix's factor:
+ * "GHz" → { base: "Hz", factor: 1e9 }, "Hz" → { base: "Hz", factor: 1 }. Null for a unit that
+ * takes no prefix ("dB", "dBm", "°C") or a prefix the unit does not use here ("mHz").
+ */
+export function splitPrefixedUnit(unit: string): { base: string; factor: number } | null {
+  if (takesPrefix(unit)) return { base: unit, factor: 1 };
+  for (const p of PREFIXES) {
+    if (!p.prefix || !unit.startsWith(p.prefix)) continue;
+    const base = unit.slice(p.prefix.length);
+    if (takesPrefix(base) && prefixesOf(base).includes(p)) return { base, factor: p.factor };
+  }
+  return null;
+}
+
 function prefixesOf(unit: string): Prefix[] {
   const range = PREFIXED_UNITS[unit];
   return PREFIXES.filter((p) => p.factor <= range.largest && p.factor >= range.smallest);

@@ -8,6 +8,7 @@ import {
   formatScientific,
   quantityParts,
   rangeParts,
+  splitPrefixedUnit,
   type QuantityStyle,
 } from "@/lib/format";
 
@@ -137,6 +138,25 @@ describe("chooseScale", () => {
     [20, "dB", { unit: "dB", factor: 1 }],
   ])("%d %s", (magnitude, unit, scale) => {
     expect(chooseScale(magnitude, unit)).toEqual(scale);
+  });
+});
+
+describe("splitPrefixedUnit", () => {
+  // SI Brochure, 9th ed., Table 7: G = 10^9, M = 10^6, k = 10^3, m = 10^-3, µ = 10^-6, p = 10^-12.
+  it.each([
+    ["GHz", { base: "Hz", factor: 1e9 }],
+    ["MHz", { base: "Hz", factor: 1e6 }],
+    ["Hz", { base: "Hz", factor: 1 }],
+    ["mW", { base: "W", factor: 1e-3 }],
+    ["µs", { base: "s", factor: 1e-6 }],
+    ["pA", { base: "A", factor: 1e-12 }],
+    ["k\u03a9", { base: "\u03a9", factor: 1e3 }],
+  ] as const)("%s", (unit, split) => {
+    expect(splitPrefixedUnit(unit)).toEqual(split);
+  });
+
+  it.each(["dB", "dBm", "dBc/Hz", "mdB", "°C", "mHz", "THz!", ""])("%s takes no prefix here", (unit) => {
+    expect(splitPrefixedUnit(unit)).toBeNull();
   });
 });
 

@@ -1,0 +1,133 @@
+import { createElement } from "react";
+import { renderToStaticMarkup } from "react-dom/server";
+import { describe, expect, it } from "vitest";
+import { SheetDiffView, type DiffAnchor } from "@/components/review/sheet-diff";
+import { buildSheetModel, diffSheetModels, type SheetInput, type SpecLimitInput } from "@/lib/sheet";
+import { loadDoublerInput } from "../sheet/fixture";
+
+const CL_2GHZ = "drive=optimum;inputFrequencyHz=2000000000;temperatureC=25";
+const CL_3GHZ = "drive=optimum;inputFrequencyHz=3000000000;temperatureC=25";
+const HS1_2GHZ = "drive=optimum;inputFrequencyHz=2000000000;order=1;temperatureC=25";
+
+const base = loadDoublerInput();
+const revA = buildSheetModel({ ...base, revision: { ...base.revision, label: "A", state: "released" } });
+
+/** A candidate with one of every kind of change: a limit tightened, one loosened, a row added, a typ changed, a basis, prose, a rating, a set dropped. */
+function busyCandidate(): SheetInput {
+  const input = structuredClone(base);
+  input.limits = input.limits.map((limit: SpecLimitInput) => {
+    if (limit.parameter === "conversion-loss" && limit.conditionsKey === CL_2GHZ) return { ...limit, max: 11.5 };
+    if (limit.parameter === "conversion-loss" && limit.conditionsKey === CL_3GHZ) return { ...limit, max: 12, basis: "characterization" };
+    if (limit.parameter === "harmonic-suppression" && limit.conditionsKey === HS1_2GHZ) return { ...limit, typ: 32 };
+    return limit;
+  });
+  input.limits.push({ parameter: "conversion-loss", conditionsKey: "drive=optimum;inputFrequencyHz=5000000000;temperatureC=25", max: 13, unit: "dB", basis: "test" });
+  input.prose.description = base.prose.description!.replace("passive frequency doubler", "rugged passive frequency multiplier");
+  input.absoluteMaximumRatings = input.absoluteMaximumRatings.map((r) => (r.label === "RF input power, per port" ? { ...r, value: "+23" } : r));
+  input.approvedSets = input.approvedSets.filter((s) => s.serial !== "HX-0101");
+  return input;
+}
+
+const busyDiff = diffSheetModels(revA, buildSheetModel(busyCandidate()));
+
+function render(props: Parameters<typeof SheetDiffView>[0]): string {
+  return renderToStaticMarkup(createElement(SheetDiffView, props));
+}
+
+/** The opening tags of the change list's bodies, in order. */
+const rowBodies = (html: string) => [...html.matchAll(/<tbody id="([^"]+)" data-testid="diff-spec-row" data-kind="([^"]+)"/g)].map((m) => ({ id: m[1], kind: m[2] }));
+
+describe("SheetDiffView", () => {
+  const html = render({ diff: busyDiff });
+
+  it("lists row changes in review order, each body with the row's anchor id", () => {
+    const bodies = rowBodies(html);
+    expect(bodies.map((b) => b.id)).toEqual(busyDiff.rows.map((r) => r.anchorId));
+    const kinds = bodies.map((b) => b.kind);
+    expect(kinds.slice(0, 3)).toEqual(["tightened", "loosened", "added"]);
+    expect(kinds.slice(3).every((k) => k === "changed")).toBe(true);
+    expect(new Set(bodies.map((b) => b.id)).size).toBe(bodies.length);
+  });
+
+  it("says every change in a word beside its mark, never by colour alone", () => {
+    const bodies = html.split('data-testid="diff-spec-row"').slice(1).map((chunk) => chunk.split("</tbody>")[0]);
+    const words: Record<string, string> = { tightened: "Tightened", loosened: "Loosened", added: "Added", removed: "Removed", changed: "Changed" };
+    bodies.forEach((body, i) => {
+      const kind = busyDiff.rows[i].kind;
+      expect(body).toContain(`</span>${words[kind]}</span>`);
+    });
+    // The tightened max reads old → new with its direction in words for a screen reader.
+    expect(bodies[0]).toContain("12.00");
+    expect(bodies[0]).toContain("11.50");
+    expect(bodies[0]).toContain('<span class="sr-only"> (down)</span>');
+  });
+
+  it("puts every table in a focusable, named region that scrolls", () => {
+    const tables = html.match(/<table /g) ?? [];
+    const regions = html.match(/<div class="overflow-x-auto" tabindex="0" role="region" aria-label="[^"]+, scrolls sideways on narrow screens">/g) ?? [];
+    expect(tables.length).toBeGreaterThanOrEqual(4); // rows, basis, ratings, sets
+    expect(regions).toHaveLength(tables.length);
+  });
+
+  it("lists the basis change apart from the figures", () => {
+    const basis = html.split('data-testid="diff-basis"')[1].split("</section>")[0];
+    expect(basis).toContain("Guaranteed by test");
+    expect(basis).toContain("Guaranteed by characterization");
+  });
+
+  it("marks inserted and deleted words with <ins> and <del>, styled by underline and strike, and named for screen readers", () => {
+    const prose = html.split('data-testid="diff-prose"')[1];
+    expect(prose).toMatch(/<ins class="[^"]*underline[^"]*"><span class="sr-only">\[inserted: <\/span>rugged /);
+    expect(prose).toMatch(/<del class="[^"]*line-through[^"]*"><span class="sr-only">\[deleted: <\/span>doubler/);
+    expect(prose).toContain('id="diff-prose-description"');
+  });
+
+  it("shows ratings and measurement sets with their words", () => {
+    expect(html).toContain("RF input power, per port");
+    expect(html).toContain("+23");
+    const sets = html.split('data-testid="diff-sets"')[1].split("</section>")[0];
+    expect(sets).toContain(`(0 added, ${busyDiff.measurementSets.removed.length} removed)`);
+    expect(sets).toContain("HX-0101");
+    expect(sets).toContain("Drive sweep");
+  });
+
+  it("gives each overlay its anchor and a description, and loads the chart lazily", () => {
+    const figures = html.match(/<figure id="diff-chart-[^"]+"/g) ?? [];
+    const panelCount = busyDiff.charts.reduce((n, c) => n + c.panels.length, 0);
+    expect(figures).toHaveLength(panelCount);
+    expect(html).toContain(`aria-label="${busyDiff.charts[0].panels[0].description.replace(/"/g, "&quot;")}"`);
+    expect(html).toContain("Drawing the chart…");
+  });
+
+  it("offers the page's comment action on each row, chart and prose section, and the data link", () => {
+    const seen: DiffAnchor[] = [];
+    const withHooks = render({
+      diff: busyDiff,
+      anchorActions: (anchor) => {
+        seen.push(anchor);
+        return createElement("button", { type: "button", "data-anchor": anchor.anchorId }, "Comment");
+      },
+      dataHref: (groupId) => `/data/${encodeURIComponent(groupId)}`,
+    });
+    const panelCount = busyDiff.charts.reduce((n, c) => n + c.panels.length, 0);
+    expect(seen.filter((a) => a.kind === "row")).toHaveLength(busyDiff.rows.length);
+    expect(seen.filter((a) => a.kind === "chart")).toHaveLength(panelCount);
+    expect(seen.filter((a) => a.kind === "prose").map((a) => a.key)).toEqual(["description"]);
+    for (const anchor of seen) expect(withHooks).toContain(`id="${anchor.anchorId}"`);
+    expect(withHooks).toContain(`href="/data/${encodeURIComponent(busyDiff.rows[0].groupId)}"`);
+  });
+
+  it("says a first release has nothing to compare with", () => {
+    const first = render({ diff: diffSheetModels(null, revA) });
+    expect(first).toContain('data-testid="diff-first-release"');
+    expect(first).toContain("First release");
+    expect(first).not.toContain("<table");
+  });
+
+  it("says so when nothing changed", () => {
+    const same = render({ diff: diffSheetModels(revA, revA) });
+    expect(same).toContain('data-testid="diff-empty"');
+    expect(same).toContain("Changes since Rev. A");
+    expect(same).not.toContain("<table");
+  });
+});
