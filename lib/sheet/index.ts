@@ -7,4 +7,4 @@ export { makeConditionsKey, parseConditionsKey } from "./conditions";
 export { notationSegments, type NotationSegment } from "./notation";
 export { proseLayout } from "./prose-layout";
 export { releaseSheetModel, revisionLetter, revisionSequence, type ReleaseFacts } from "./release";
-export { signedAtText, verificationText, candidateDigestLabel } from "./release-text";
+export { signedAtText, candidateDigestLabel } from "./release-text";

@@ -1,5 +1,3 @@
-import type { SheetRelease } from "./types";
-
 /**
  * The words both renderers print for a release, so the web sheet and the PDF say the same thing.
  */
@@ -10,11 +8,6 @@ export function signedAtText(signedAt: string): string {
   if (Number.isNaN(time.getTime())) throw new RangeError(`Signature time must be ISO 8601, got "${signedAt}"`);
   const iso = time.toISOString();
   return `${iso.slice(0, 10)} ${iso.slice(11, 19)} UTC`;
-}
-
-/** The footer's short pointer to the revision's public record. */
-export function verificationText(release: Pick<SheetRelease, "verificationReference" | "verificationUrl">): string {
-  return `Verify: ${release.verificationReference} at ${release.verificationUrl}`;
 }
 
 /** The one line stating what a signature signs: the candidate's digest, in full. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { signedAtText, verificationText } from "@/lib/sheet/release-text";
+import { signedAtText } from "@/lib/sheet/release-text";
 
 describe("signedAtText", () => {
   // RFC 3339 §4.2: a local time with offset +01:00 is one hour ahead of UTC, so 10:14:05+01:00 is 09:14:05Z;
@@ -15,13 +15,5 @@ describe("signedAtText", () => {
 
   it("refuses a time it cannot read rather than printing a wrong one", () => {
     expect(() => signedAtText("2 December 2026, morning")).toThrow(RangeError);
-  });
-});
-
-describe("verificationText", () => {
-  it("names the reference and where to look it up", () => {
-    expect(verificationText({ verificationReference: "BF-X1-A-22QZ", verificationUrl: "https://sheets.example/verify/BF-X1-A-22QZ" })).toBe(
-      "Verify: BF-X1-A-22QZ at https://sheets.example/verify/BF-X1-A-22QZ",
-    );
   });
 });
