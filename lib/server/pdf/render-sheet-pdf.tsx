@@ -1,7 +1,7 @@
 import "server-only";
 import { Document, Font, Image, Link, Page, renderToBuffer, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
-import type { SheetModel, StatisticsGroup } from "../../sheet/types";
+import type { SheetModel, SheetSignature, StatisticsGroup } from "../../sheet/types";
 import { fontFiles, MONO_FAMILY, SANS_FAMILY } from "./fonts";
 import { type Cell, colors, type Column, PdfNotation, PdfProse, PdfTable, SectionHeading, styles } from "./pdf-parts";
 import { renderSheetChartPngs } from "../charts/render-chart";
@@ -567,49 +567,27 @@ function RevisionHistory({ model }: { model: SheetModel }) {
 function ReleaseRecord({ model }: { model: SheetModel }) {
   const { release, header } = model;
   if (!release) return null;
+  const [first, ...rest] = release.signatures;
   return (
     <View>
-      <SectionHeading>Release and signatures</SectionHeading>
-      <Text style={styles.paragraph}>
-        <Text style={{ fontWeight: 600 }}>{header.revisionText}</Text> of {header.partNumber}, released{" "}
-        <Text style={styles.mono}>{release.releasedOn}</Text>. Its public record:{" "}
-        <Text style={styles.mono}>{release.verificationReference}</Text> at{" "}
-        <Link src={release.verificationUrl} style={{ color: colors.ink }}>
-          {release.verificationUrl}
-        </Link>
-        .
-      </Text>
-      <View style={{ borderTopWidth: 1.2, borderTopColor: colors.ink, borderBottomWidth: 1.2, borderBottomColor: colors.ink, marginTop: 2 }}>
-        {release.signatures.map((signature, i) => (
-          <View
-            key={i}
-            wrap={false}
-            style={{ paddingVertical: 5, ...(i > 0 ? { borderTopWidth: 0.4, borderTopColor: colors.rule } : {}) }}
-          >
-            <View style={{ flexDirection: "row" }}>
-              <View style={{ width: "42%", paddingRight: 8 }}>
-                <Text style={{ fontSize: 7, color: colors["ink-muted"] }}>Signed by</Text>
-                <Text style={{ fontSize: 10, fontWeight: 600, lineHeight: 1.25 }}>{signature.name}</Text>
-                <Text>
-                  {signature.role}, {signature.organizationName}
-                </Text>
-              </View>
-              <View style={{ width: "58%" }}>
-                <Text style={{ fontSize: 7, color: colors["ink-muted"] }}>Signed (UTC)</Text>
-                <Text style={{ fontFamily: MONO_FAMILY, fontSize: 8.4, lineHeight: 1.45 }}>{signedAtText(signature.signedAt)}</Text>
-                <Text>
-                  <Text style={{ color: colors["ink-muted"] }}>Meaning: </Text>
-                  {signature.meaning}
-                </Text>
-              </View>
-            </View>
-            <Text style={{ marginTop: 3, fontSize: 7, color: colors["ink-muted"] }}>
-              {candidateDigestLabel}: <Text style={{ fontFamily: MONO_FAMILY, fontSize: 6.8, color: colors.ink }}>{signature.candidateDigest}</Text>
-            </Text>
-          </View>
-        ))}
+      {/* The heading never stands alone at a page's foot: it keeps the first signature with it. */}
+      <View wrap={false}>
+        <SectionHeading>Release and signatures</SectionHeading>
+        <Text style={styles.paragraph}>
+          <Text style={{ fontWeight: 600 }}>{header.revisionText}</Text> of {header.partNumber}, released{" "}
+          <Text style={styles.mono}>{release.releasedOn}</Text>. Its public record:{" "}
+          <Text style={styles.mono}>{release.verificationReference}</Text> at{" "}
+          <Link src={release.verificationUrl} style={{ color: colors.ink }}>
+            {release.verificationUrl}
+          </Link>
+          .
+        </Text>
+        {first ? <PdfSignature signature={first} first /> : null}
       </View>
-      <Text style={[styles.small, { marginTop: 3 }]}>
+      {rest.map((signature, i) => (
+        <PdfSignature key={i} signature={signature} />
+      ))}
+      <Text style={[styles.small, { borderTopWidth: 1.2, borderTopColor: colors.ink, paddingTop: 3 }]}>
         Signed electronically in Benchfold; each signature is bound to the reviewed candidate by the digest shown beside it.
       </Text>
       {release.notes.length > 0 ? (
@@ -623,6 +601,42 @@ function ReleaseRecord({ model }: { model: SheetModel }) {
           ))}
         </View>
       ) : null}
+    </View>
+  );
+}
+
+/** One signature, kept whole on its page: a strong rule above the first, hairlines between the others. */
+function PdfSignature({ signature, first = false }: { signature: SheetSignature; first?: boolean }) {
+  const label = { fontSize: 7, color: colors["ink-muted"] };
+  return (
+    <View
+      wrap={false}
+      style={{
+        marginTop: first ? 2 : 0,
+        paddingVertical: 5,
+        borderTopWidth: first ? 1.2 : 0.4,
+        borderTopColor: first ? colors.ink : colors.rule,
+      }}
+    >
+      <View style={{ flexDirection: "row" }}>
+        <View style={{ width: "42%", paddingRight: 8 }}>
+          <Text style={label}>Signed by</Text>
+          <Text style={{ fontSize: 10, fontWeight: 600, lineHeight: 1.25 }}>{signature.name}</Text>
+          {/* One string: react-pdf hyphenates a word split across two text fragments at a line break. */}
+          <Text>{`${signature.role}, ${signature.organizationName}`}</Text>
+        </View>
+        <View style={{ width: "58%" }}>
+          <Text style={label}>Signed (UTC)</Text>
+          <Text style={{ fontFamily: MONO_FAMILY, fontSize: 8.4, lineHeight: 1.45 }}>{signedAtText(signature.signedAt)}</Text>
+          <Text>
+            <Text style={{ color: colors["ink-muted"] }}>Meaning: </Text>
+            {signature.meaning}
+          </Text>
+        </View>
+      </View>
+      <Text style={[label, { marginTop: 3 }]}>
+        {candidateDigestLabel}: <Text style={{ fontFamily: MONO_FAMILY, fontSize: 6.8, color: colors.ink }}>{signature.candidateDigest}</Text>
+      </Text>
     </View>
   );
 }

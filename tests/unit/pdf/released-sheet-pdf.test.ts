@@ -68,6 +68,18 @@ describe("a released sheet's PDF", () => {
     });
   });
 
+  it("stamps the page number on the foot's first line, which rose by one line to make room for the reference", () => {
+    const xml = execFileSync("pdftotext", ["-bbox", "-f", "1", "-l", "1", releasedFile, "-"], { encoding: "utf8" });
+    const words = [...xml.matchAll(/yMin="([\d.]+)" xMax="[\d.]+" yMax="([\d.]+)">([^<]+)</g)].map((m) => ({ yMin: Number(m[1]), yMax: Number(m[2]), word: m[3] }));
+    const page = words.find((w) => w.word === "Page")!;
+    const org = words.filter((w) => w.word === "Brightwater").at(-1)!; // the foot's first word
+    const verify = words.find((w) => w.word === "Verify:")!;
+    expect(Math.abs(page.yMin - org.yMin)).toBeLessThan(0.2);
+    expect(verify.yMin).toBeGreaterThan(page.yMax - 0.5);
+    // The reference line stays clear of the paper's last 20 pt (about 7 mm), where printers may not print.
+    expect(verify.yMax).toBeLessThan(A4_HEIGHT_PT - 20);
+  });
+
   it("prints the verification reference in the foot of every page", () => {
     const pages = bands(releasedFile);
     pages.forEach(({ foot }, k) => {
