@@ -93,7 +93,7 @@ const BAND_FONT_SIZE = 7.5;
 // The foot's line sits 4 pt below its rule; its baseline, measured with pdftotext -bbox against
 // react-pdf's own text in that line, is 27.8 pt above the page's bottom edge.
 const FOOT_BASELINE_FROM_BOTTOM = 27.8;
-/** A band line's height: BAND_FONT_SIZE at the page's line height (1.35). */
+/** About one band line (BAND_FONT_SIZE at the page's line height, 1.35): how far a released sheet's foot rises. */
 const BAND_LINE = 10.2;
 
 /**
