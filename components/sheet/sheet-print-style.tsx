@@ -14,6 +14,7 @@ const css = `
   .sheet-view thead { display: table-header-group; }
   .sheet-view .sheet-table tbody tr:hover > * { background: none; }
   .sheet-view .sheet-banner { border-width: 1.5pt; }
+  .sheet-view .sheet-withdrawn { border-width: 2pt; }
   .sheet-view details { display: block; }
   .sheet-view details > summary { list-style: none; }
 }

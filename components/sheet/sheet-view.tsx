@@ -2,8 +2,10 @@ import type { SheetModel } from "@/lib/sheet/types";
 import { SheetStatistics, SheetTraceability } from "./sheet-annex";
 import { SheetBanner, SheetOverview, SheetTitleBlock } from "./sheet-front";
 import { SheetPrintStyle } from "./sheet-print-style";
+import { SheetFoot, SheetReleaseRecord } from "./sheet-release";
 import { SheetCautions, SheetCharts, SheetLaterProse, SheetRatings, SheetReviewNotes, SheetRevisionHistory } from "./sheet-sections";
 import { SheetSpecTable } from "./sheet-spec-table";
+import { type SheetWithdrawal, SheetWithdrawnNotice } from "./sheet-withdrawn-notice";
 
 export interface SheetViewProps {
   model: SheetModel;
@@ -13,13 +15,19 @@ export interface SheetViewProps {
    * A chart without markup shows its text description.
    */
   chartSvgs?: Record<string, string>;
+  /**
+   * Set when the revision shown was withdrawn: its standing, known at view time (the frozen model
+   * never changes). The sheet then opens with a withdrawn notice and its reason.
+   */
+  withdrawn?: SheetWithdrawal;
 }
 
 /** The characterization sheet as a web page; lays out the sheet model and computes nothing. */
-export function SheetView({ model, chartSvgs = {} }: SheetViewProps) {
+export function SheetView({ model, chartSvgs = {}, withdrawn }: SheetViewProps) {
   return (
     <article className="sheet-view mx-auto max-w-page px-4 py-8 text-ink" aria-labelledby="sheet-title">
       <SheetPrintStyle />
+      {withdrawn ? <SheetWithdrawnNotice withdrawn={withdrawn} revisionText={model.header.revisionText} /> : null}
       <SheetBanner header={model.header} />
       <SheetTitleBlock model={model} />
       <SheetOverview model={model} />
@@ -31,7 +39,9 @@ export function SheetView({ model, chartSvgs = {} }: SheetViewProps) {
       <SheetTraceability model={model} />
       <SheetStatistics model={model} />
       <SheetRevisionHistory model={model} />
+      <SheetReleaseRecord model={model} />
       <SheetReviewNotes model={model} />
+      <SheetFoot model={model} />
     </article>
   );
 }

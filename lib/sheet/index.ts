@@ -34,3 +34,4 @@ export {
   type ChartOverlay,
   type ChartOverlayPanel,
 } from "./diff";
+export { signedAtText, candidateDigestLabel } from "./release-text";

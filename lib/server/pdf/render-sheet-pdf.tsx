@@ -1,13 +1,14 @@
 import "server-only";
-import { Document, Font, Image, Page, renderToBuffer, Text, View } from "@react-pdf/renderer";
+import { Document, Font, Image, Link, Page, renderToBuffer, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
-import type { SheetModel, StatisticsGroup } from "../../sheet/types";
+import type { SheetModel, SheetSignature, StatisticsGroup } from "../../sheet/types";
 import { fontFiles, MONO_FAMILY, SANS_FAMILY } from "./fonts";
 import { type Cell, colors, type Column, PdfNotation, PdfProse, PdfTable, SectionHeading, styles } from "./pdf-parts";
 import { renderSheetChartPngs } from "../charts/render-chart";
 import { settleGlyphCodePoints } from "./settle-glyph-code-points";
 import { stampPageNumbers } from "./stamp-page-numbers";
 import { proseLayout } from "../../sheet/prose-layout";
+import { candidateDigestLabel, signedAtText } from "../../sheet/release-text";
 
 let fontsRegistered = false;
 
@@ -43,7 +44,7 @@ export async function renderSheetPdf(model: SheetModel): Promise<Buffer> {
   // In the running foot's line, flush with its right edge (see RunningFoot).
   return stampPageNumbers(pdf, {
     right: A4_WIDTH_PT - PAGE_MARGIN,
-    baseline: FOOT_BASELINE_FROM_BOTTOM,
+    baseline: FOOT_BASELINE_FROM_BOTTOM + footLift(model),
     size: BAND_FONT_SIZE,
     color: colors["ink-muted"],
     fontFile: fontFiles.sansRegular,
@@ -72,7 +73,7 @@ function SheetPage({ model, children }: { model: SheetModel; children: ReactNode
         lineHeight: 1.35,
         color: colors.ink,
         paddingTop: 56,
-        paddingBottom: 50,
+        paddingBottom: 50 + footLift(model),
         paddingHorizontal: PAGE_MARGIN,
         backgroundColor: "#FFFFFF",
       }}
@@ -92,6 +93,16 @@ const BAND_FONT_SIZE = 7.5;
 // The foot's line sits 4 pt below its rule; its baseline, measured with pdftotext -bbox against
 // react-pdf's own text in that line, is 27.8 pt above the page's bottom edge.
 const FOOT_BASELINE_FROM_BOTTOM = 27.8;
+/** About one band line (BAND_FONT_SIZE at the page's line height, 1.35): how far a released sheet's foot rises. */
+const BAND_LINE = 10.2;
+
+/**
+ * A released sheet's foot has a second line, the verification reference, below the first; the
+ * whole foot (and the body's bottom edge) rises by one line so that line keeps clear of a printer's margin.
+ */
+function footLift(model: SheetModel): number {
+  return model.release ? BAND_LINE : 0;
+}
 
 function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<string, Buffer> }) {
   const { header } = model;
@@ -162,6 +173,7 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
       <SheetPage model={model}>
         <StatisticsAnnex model={model} />
         <RevisionHistory model={model} />
+        <ReleaseRecord model={model} />
         {!header.released && model.issues.length > 0 ? (
           <View>
             <SectionHeading>Review notes (not printed on a released sheet)</SectionHeading>
@@ -202,7 +214,7 @@ function Watermark({ text }: { text: string }) {
  * A fixed line of small muted text across every page between the margins, ruled off from the
  * body: the running head above it, the running foot below it.
  */
-function RunningBand({ edge, children }: { edge: "head" | "foot"; children: ReactNode }) {
+function RunningBand({ edge, lift = 0, children }: { edge: "head" | "foot"; lift?: number; children: ReactNode }) {
   const rule =
     edge === "head"
       ? { borderBottomWidth: 0.5, borderBottomColor: colors.rule, paddingBottom: 4 }
@@ -213,11 +225,11 @@ function RunningBand({ edge, children }: { edge: "head" | "foot"; children: Reac
       style={{
         position: "absolute",
         // The foot is placed from the top too: a bottom-anchored fixed view vanished from this layout in react-pdf 4.9.
-        top: edge === "head" ? 22 : FOOT_TOP,
+        top: edge === "head" ? 22 : FOOT_TOP - lift,
+        // The head is one line, split left and right; the foot is a column of lines (the page number is stamped into its first).
+        ...(edge === "head" ? { flexDirection: "row" as const, justifyContent: "space-between" as const } : { flexDirection: "column" as const }),
         left: PAGE_MARGIN,
         right: PAGE_MARGIN,
-        flexDirection: "row",
-        justifyContent: "space-between",
         ...rule,
         fontSize: BAND_FONT_SIZE,
         color: colors["ink-muted"],
@@ -236,7 +248,9 @@ function RunningHead({ model }: { model: SheetModel }) {
         <Text style={{ fontWeight: 600, color: colors.ink }}>{header.partNumber}</Text> · {header.deviceClassLabel}
       </Text>
       <Text>
-        {header.revisionText} · {header.date}
+        <Text style={header.released ? { fontWeight: 600, color: colors.ink } : {}}>{header.revisionText}</Text>
+        {header.released ? " · released " : " · "}
+        {header.date}
         {header.banner ? <Text style={{ color: colors.signal, fontWeight: 600 }}> · {header.stateLabel}</Text> : null}
       </Text>
     </RunningBand>
@@ -244,13 +258,21 @@ function RunningHead({ model }: { model: SheetModel }) {
 }
 
 function RunningFoot({ model }: { model: SheetModel }) {
-  const { header } = model;
+  const { header, release } = model;
   return (
-    <RunningBand edge="foot">
+    <RunningBand edge="foot" lift={footLift(model)}>
+      {/* "Page k of N" is stamped at the right end of the first line after layout (stampPageNumbers). */}
       <Text>
-        {header.organizationName} · {header.partNumber} {header.revisionText}
+        {header.organizationName} · {header.partNumber} <Text style={header.released ? { fontWeight: 600, color: colors.ink } : {}}>{header.revisionText}</Text>
       </Text>
-      {/* "Page k of N" is stamped at the right end of this line after layout (stampPageNumbers). */}
+      {release ? (
+        <Text>
+          Verify: <Text style={{ fontFamily: MONO_FAMILY, color: colors.ink }}>{release.verificationReference}</Text> at{" "}
+          <Link src={release.verificationUrl} style={{ color: colors["ink-muted"], textDecoration: "none" }}>
+            {release.verificationUrl}
+          </Link>
+        </Text>
+      ) : null}
     </RunningBand>
   );
 }
@@ -533,6 +555,88 @@ function RevisionHistory({ model }: { model: SheetModel }) {
         ]}
         rows={model.revisionHistory.map((entry) => [entry.label, entry.date, entry.summary])}
       />
+    </View>
+  );
+}
+
+/**
+ * The release record: revision letter and date, where to verify it, one entry per electronic
+ * signature (printed name, role, organization, UTC time, meaning: 21 CFR Part 11 §11.50; the full
+ * SHA-256 of the candidate it signs: §11.70), then the release notes.
+ */
+function ReleaseRecord({ model }: { model: SheetModel }) {
+  const { release, header } = model;
+  if (!release) return null;
+  const [first, ...rest] = release.signatures;
+  return (
+    <View>
+      {/* The heading never stands alone at a page's foot: it keeps the first signature with it. */}
+      <View wrap={false}>
+        <SectionHeading>Release and signatures</SectionHeading>
+        <Text style={styles.paragraph}>
+          <Text style={{ fontWeight: 600 }}>{header.revisionText}</Text> of {header.partNumber}, released{" "}
+          <Text style={styles.mono}>{release.releasedOn}</Text>. Its public record:{" "}
+          <Text style={styles.mono}>{release.verificationReference}</Text> at{" "}
+          <Link src={release.verificationUrl} style={{ color: colors.ink }}>
+            {release.verificationUrl}
+          </Link>
+          .
+        </Text>
+        {first ? <PdfSignature signature={first} first /> : null}
+      </View>
+      {rest.map((signature, i) => (
+        <PdfSignature key={i} signature={signature} />
+      ))}
+      <Text style={[styles.small, { borderTopWidth: 1.2, borderTopColor: colors.ink, paddingTop: 3 }]}>
+        Signed electronically in Benchfold; each signature is bound to the reviewed candidate by the digest shown beside it.
+      </Text>
+      {release.notes.length > 0 ? (
+        <View wrap={false}>
+          <Text style={styles.subHeading}>Release notes, {header.revisionText}</Text>
+          {release.notes.map((note, i) => (
+            <View key={i} style={styles.listItem}>
+              <Text style={styles.bullet}>•</Text>
+              <Text style={{ flex: 1 }}>{note}</Text>
+            </View>
+          ))}
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
+/** One signature, kept whole on its page: a strong rule above the first, hairlines between the others. */
+function PdfSignature({ signature, first = false }: { signature: SheetSignature; first?: boolean }) {
+  const label = { fontSize: 7, color: colors["ink-muted"] };
+  return (
+    <View
+      wrap={false}
+      style={{
+        marginTop: first ? 2 : 0,
+        paddingVertical: 5,
+        borderTopWidth: first ? 1.2 : 0.4,
+        borderTopColor: first ? colors.ink : colors.rule,
+      }}
+    >
+      <View style={{ flexDirection: "row" }}>
+        <View style={{ width: "42%", paddingRight: 8 }}>
+          <Text style={label}>Signed by</Text>
+          <Text style={{ fontSize: 10, fontWeight: 600, lineHeight: 1.25 }}>{signature.name}</Text>
+          {/* One string: react-pdf hyphenates a word split across two text fragments at a line break. */}
+          <Text>{`${signature.role}, ${signature.organizationName}`}</Text>
+        </View>
+        <View style={{ width: "58%" }}>
+          <Text style={label}>Signed (UTC)</Text>
+          <Text style={{ fontFamily: MONO_FAMILY, fontSize: 8.4, lineHeight: 1.45 }}>{signedAtText(signature.signedAt)}</Text>
+          <Text>
+            <Text style={{ color: colors["ink-muted"] }}>Meaning: </Text>
+            {signature.meaning}
+          </Text>
+        </View>
+      </View>
+      <Text style={[label, { marginTop: 3 }]}>
+        {candidateDigestLabel}: <Text style={{ fontFamily: MONO_FAMILY, fontSize: 6.8, color: colors.ink }}>{signature.candidateDigest}</Text>
+      </Text>
     </View>
   );
 }
