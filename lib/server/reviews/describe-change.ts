@@ -1,14 +1,12 @@
 import "server-only";
-import type { SheetModel } from "@/lib/sheet";
+import { diffIsEmpty, diffSheetModels, summaryLines, type SheetModel } from "@/lib/sheet";
 
-/** What differs between two sheet models, in short plain lines (for a stale candidate's reason). */
-export function describeSheetChange(before: SheetModel, after: SheetModel): string[] {
-  const lines: string[] = [];
-  const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
-  if (!same(before.specifications, after.specifications) || !same(before.statistics, after.statistics)) lines.push("the specifications or their statistics");
-  if (!same(before.traceability.measurementSets, after.traceability.measurementSets)) lines.push("the measurement sets");
-  if (!same(before.prose, after.prose)) lines.push("the prose");
-  if (!same(before.absoluteMaximumRatings, after.absoluteMaximumRatings)) lines.push("the absolute maximum ratings");
-  if (!same(before.header, after.header) || !same(before.keyFacts, after.keyFacts)) lines.push("the device's header or key facts");
-  return lines.length ? lines : ["details of the sheet"];
+/**
+ * What differs between two sheet models, one change a line, from the review's own diff: the
+ * generated release notes, and the reason a candidate went stale. A change the diff does not
+ * list (a statistic of the annex, a calibration date in the traceability) is still named.
+ */
+export function describeSheetChange(before: SheetModel | null, after: SheetModel): string[] {
+  const diff = diffSheetModels(before, after);
+  return diffIsEmpty(diff) ? ["Changed: the statistics or the traceability behind the sheet"] : summaryLines(diff);
 }
