@@ -1,5 +1,6 @@
 import type { Sequelize } from "sequelize";
 import { createSequelize } from "./connection";
+import { AccountMailRequest } from "./account-mail-request";
 import { AuditEvent } from "./audit-event";
 import { BenchToken } from "./bench-token";
 import { ColumnMapping } from "./column-mapping";
@@ -24,6 +25,7 @@ import { SignUpRequest } from "./sign-up-request";
 import { User } from "./user";
 
 export type {
+  AccountMailRequest,
   AuditEvent,
   BenchToken,
   ColumnMapping,
@@ -52,6 +54,7 @@ export * from "./connection";
 
 /** Every model, by name: what db() hands out, and what initModels sets up (one list, so none is left out). */
 const models = {
+  AccountMailRequest,
   AuditEvent,
   BenchToken,
   ColumnMapping,

@@ -16,3 +16,7 @@ export const roleLabels: Record<Role, string> = {
   customer: "Customer",
 };
 
+
+/** The mails anyone may ask the app to send to an address: counted per address and per recipient. */
+export const accountMailKinds = ["sign-up", "password-reset"] as const;
+export type AccountMailKind = (typeof accountMailKinds)[number];

@@ -2,6 +2,7 @@ import { z } from "zod";
 import { deviceClasses } from "@/lib/domain/device-classes";
 import { mappableKinds, measurementKinds } from "@/lib/domain/measurements";
 import { calendarDateSchema, optionalCalendarDateSchema } from "./calendar-date";
+import { findProseLimitBreach } from "@/lib/sheet/render-prose";
 import { minNotAboveMax, optionalDecimal, requiredDecimal } from "./decimal";
 
 /** Shared by the upload form, the browser upload route and the bench API. */
@@ -66,7 +67,16 @@ export const deviceBodySchema = z.object({
   partNumber: z.string().trim().min(1).max(64).regex(/^[A-Za-z0-9][A-Za-z0-9._\-/]*$/, "Use letters, digits, . _ - /"),
   deviceClass: z.enum(deviceClasses, { error: "Choose one of the device classes." }),
   title: z.string().trim().min(3).max(200),
-  description: z.string().trim().max(2000).default(""),
+  // Printed as the sheet's Description section unless the sheet has its own: the same limits as the prose.
+  description: z
+    .string()
+    .trim()
+    .max(2000)
+    .default("")
+    .superRefine((markdown, ctx) => {
+      const breach = findProseLimitBreach(markdown);
+      if (breach) ctx.addIssue({ code: "custom", message: `The description ${breach.reason}; ${breach.remedy}.`, params: { limit: breach.limit } });
+    }),
   keyConditions: z
     .object({
       inputFrequencyHz: frequencyBand("input frequency band").optional(),

@@ -34,5 +34,14 @@ export const serverConfig = {
     perAccount: Number(process.env.BENCHFOLD_SIGNIN_LIMIT_ACCOUNT ?? 5),
     perAddress: Number(process.env.BENCHFOLD_SIGNIN_LIMIT_ADDRESS ?? 30),
   },
+  /**
+   * Sign-up and reset mails anyone may ask for: per recipient and per client address in a window.
+   * Without it the forms would mail any address as often as a script likes.
+   */
+  accountMailLimit: {
+    windowMs: 60 * 60 * 1000,
+    perRecipient: Number(process.env.BENCHFOLD_ACCOUNT_MAIL_LIMIT_RECIPIENT ?? 5),
+    perAddress: Number(process.env.BENCHFOLD_ACCOUNT_MAIL_LIMIT_ADDRESS ?? 20),
+  },
   sessionMaxAgeSeconds: 8 * 60 * 60,
 } as const;

@@ -71,8 +71,8 @@ it("times known against unknown addresses on sign-up, reset, sign-in and invitat
   const nextAddress = () => `198.18.${(++address >> 8) & 255}.${address & 255}`;
 
   const cases: { name: string; run: (to: string, round: number) => Promise<unknown> }[] = [
-    { name: "sign-up", run: (to) => signUpCustomer({ name: "Timing Person", email: to, password: "a long sentence for a password", company: "Timing Works" }) },
-    { name: "password reset", run: (to) => requestPasswordReset(to) },
+    { name: "sign-up", run: (to) => signUpCustomer({ name: "Timing Person", email: to, password: "a long sentence for a password", company: "Timing Works" }, nextAddress()) },
+    { name: "password reset", run: (to) => requestPasswordReset(to, nextAddress()) },
     {
       name: "sign-in, wrong password",
       run: (to) => authorize({ email: to, password: "not the password at all" }, { headers: { "x-forwarded-for": nextAddress() } }).catch((e: Error) => e.message),

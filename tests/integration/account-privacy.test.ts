@@ -184,3 +184,30 @@ describe("password strength on every path that sets a password", () => {
     }
   });
 });
+
+describe("sign-up and reset mails are limited, per recipient and per client address", () => {
+  // Limits of the test server: the defaults, 5 mails per recipient and 20 per client address an hour.
+  it("the sixth reset mail to one address in an hour is refused (429) alike for an account and for an address without one", async () => {
+    const made = await makeOrganization();
+    const ask = (email: string) => new TestClient().request("/api/password-resets", { json: { email } });
+    for (const email of [made.users.customer.email, uniqueEmail("nobody")]) {
+      for (let i = 0; i < 5; i++) expect((await ask(email)).status, `${email} #${i + 1}`).toBe(202);
+      const refused = await ask(email);
+      expect(refused.status).toBe(429);
+      expect(((await refused.json()) as { error: { message: string } }).error.message).toMatch(/try again in an hour/);
+    }
+  });
+
+  it("one client address asks for at most 20 sign-up or reset mails an hour, to any addresses", async () => {
+    const client = new TestClient();
+    const statuses: number[] = [];
+    for (let i = 0; i < 21; i++) {
+      const r = i % 2
+        ? await client.request("/api/password-resets", { json: { email: uniqueEmail("spray") } })
+        : await client.request("/api/accounts", { json: { name: "Spray", email: uniqueEmail("spray"), password: strongPassword, company: "Spray Co" } });
+      statuses.push(r.status);
+    }
+    expect(statuses.slice(0, 20).every((s) => s === 202)).toBe(true);
+    expect(statuses[20]).toBe(429);
+  });
+});

@@ -197,3 +197,19 @@ describe("ranges: min above max is refused with a message", () => {
     expect(body.error.message).toMatch(/above|exceed/);
   });
 });
+
+describe("a device description is held to the sheet's prose limits when it is saved", () => {
+  it("a description nested deeper than the limit is refused (422 naming the field and the limit), and nothing changes", async () => {
+    const deep = `${"> ".repeat(14)}too deep`;
+    const before = await (await engineer.request(`/api/devices/${deviceId}`)).json();
+    const r = await engineer.request(`/api/devices/${deviceId}`, {
+      method: "PATCH",
+      json: { partNumber, deviceClass: "frequency-multiplier", title: "Factory doubler", description: deep, keyConditions: { multiplicationFactor: 2 } },
+    });
+    expect(r.status).toBe(422);
+    const body = (await r.json()) as ErrorBody;
+    expect(body.error.details?.fields?.[0].field).toBe("description");
+    expect(body.error.details?.fields?.[0].message).toMatch(/more than 10 levels deep/);
+    expect(await (await engineer.request(`/api/devices/${deviceId}`)).json()).toEqual(before);
+  });
+});

@@ -6,6 +6,7 @@ import { createOneTimeToken } from "../crypto";
 import { signUpConfirmationMail, signUpExistingAccountMail } from "../mail/messages";
 import { sendMail } from "../mail/send-mail";
 import { hashPassword } from "./hash-password";
+import { takeAccountMailAllowance } from "./account-mail-limit";
 
 export const signUpLifetimeMs = 24 * 60 * 60 * 1000;
 
@@ -15,8 +16,9 @@ export const signUpLifetimeMs = 24 * 60 * 60 * 1000;
  * a notice telling its owner to sign in or reset the password, and nothing else changes. Both
  * paths hash the password and send one mail, so they also take about as long.
  */
-export async function signUpCustomer(input: SignUpBody): Promise<void> {
+export async function signUpCustomer(input: SignUpBody, clientAddress: string): Promise<void> {
   const { SignUpRequest, User } = db();
+  await takeAccountMailAllowance("sign-up", input.email, clientAddress);
   const passwordHash = await hashPassword(input.password);
   const existing = await User.findOne({ where: { email: input.email }, attributes: ["id"] });
   if (existing) {
