@@ -1,7 +1,8 @@
 import Link from "next/link";
 import { deviceClassLabels } from "@/lib/domain/device-classes";
 import type { DeviceListQuery, DeviceSortKey } from "@/lib/domain/devices";
-import type { SheetPage } from "@/lib/domain/sheets";
+import { candidateStateLabels } from "@/lib/domain/reviews";
+import type { SheetPage, SheetSummary } from "@/lib/domain/sheets";
 import { PagedListTable, SortHeader } from "@/components/devices/device-list-controls";
 import { formatDate } from "@/lib/format";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -53,6 +54,7 @@ export function SheetsIndexView({ sheetPage, query, organizationName, canEdit }:
               <SortHeader label="Part number" sortKey="part" query={query} basePath={basePath} />
               <SortHeader label="Class" sortKey="class" query={query} basePath={basePath} />
               <th scope="col">Title</th>
+              <th scope="col">Sheet</th>
               <th scope="col" className="num">
                 Approved sets
               </th>
@@ -76,6 +78,9 @@ export function SheetsIndexView({ sheetPage, query, organizationName, canEdit }:
                 </th>
                 <td className="whitespace-nowrap">{deviceClassLabels[sheet.deviceClass]}</td>
                 <td className="min-w-[14rem]">{sheet.title}</td>
+                <td className="whitespace-nowrap" data-testid="sheet-standing">
+                  {sheetStanding(sheet)}
+                </td>
                 <Count value={sheet.approvedSetCount} testId="approved-sets" />
                 <Count value={sheet.unitCount} testId="units" />
                 <Count value={sheet.awaitingReviewCount} testId="awaiting-review" strong />
@@ -94,6 +99,12 @@ export function SheetsIndexView({ sheetPage, query, organizationName, canEdit }:
       </p>
     </>
   );
+}
+
+/** Where the sheet stands, in words: its open review, if any, and its newest revision. */
+function sheetStanding(sheet: SheetSummary): string {
+  const released = sheet.latestRevision ? `Rev. ${sheet.latestRevision} released` : "Not released";
+  return sheet.reviewState ? `${candidateStateLabels[sheet.reviewState]} · ${released}` : released;
 }
 
 function Count({ value, testId, strong }: { value: number; testId: string; strong?: boolean }) {

@@ -62,6 +62,10 @@ export type SheetSummary = {
   limitCount: number;
   /** The latest change to the device, its sets, its limits or its prose (ISO 8601). */
   lastChangeAt: string;
+  /** The state of the sheet's open review (in review, changes requested, approved), or null. */
+  reviewState: "in-review" | "changes-requested" | "approved" | null;
+  /** The letter of the newest released revision, or null before the first release. */
+  latestRevision: string | null;
 };
 
 export type SheetPage = ListPage<SheetSummary>;

@@ -3,6 +3,7 @@ import { db, closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
 import { fixtureUpload } from "./helpers/uploads";
+import { release, sign, submitDraft } from "./helpers/reviews";
 
 // The sheets index is a summary query paged like the device list: 30 devices need two pages.
 let engineer: TestClient;
@@ -103,5 +104,21 @@ describe("the sheets index: a summary query, paged like the device list", () => 
   it("sorts by the last change to the device, its sets or its limits", async () => {
     expect((await parts("?sort=updated")).slice(0, 3)).toEqual(["SHX-17", "SHX-3", "SHX-30"]);
     expect((await parts("?sort=updated&dir=asc")).slice(0, 2)).toEqual(["SHX-1", "SHX-2"]);
+  });
+
+  it("says where each sheet stands: not released, in review, released, and in review again after a release", async () => {
+    const standing = async () => (await rows("?q=SHX-3")).find((r) => r.part === "SHX-3")!.cells["sheet-standing"];
+    expect(await standing()).toBe("Not released");
+    const { Device } = db();
+    const deviceId = (await Device.findOne({ where: { partNumber: "SHX-3", organizationId: (await Device.findOne({ where: { partNumber: "SHX-17" } }))!.organizationId } }))!.id;
+    const first = await submitDraft(engineer, deviceId);
+    expect(await standing()).toBe("In review · Not released");
+    // The engineer submitted; the reviewer signs, the engineer releases.
+    expect((await sign(reviewer, first.id)).status).toBe(200);
+    expect(await standing()).toBe("Approved, not released · Not released");
+    expect((await release(engineer, first.id)).status).toBe(201);
+    expect(await standing()).toBe("Rev. A released");
+    await submitDraft(engineer, deviceId);
+    expect(await standing()).toBe("In review · Rev. A released");
   });
 });

@@ -24,6 +24,9 @@ const summaryColumns: [ReturnType<typeof Sequelize.literal>, string][] = [
   [Sequelize.literal(`(SELECT COUNT(*) ${currentSets} AND ms.state = 'submitted')`), "awaiting_review_count"],
   [Sequelize.literal("(SELECT COUNT(*) FROM spec_limits sl WHERE sl.device_id = `Device`.`id`)"), "limit_count"],
   [Sequelize.literal(lastChange), "last_change_at"],
+  // The open candidate's state (one per device, by the unique open_device_id), and the newest revision's letter.
+  [Sequelize.literal("(SELECT sc.state FROM sheet_candidates sc WHERE sc.open_device_id = `Device`.`id`)"), "review_state"],
+  [Sequelize.literal("(SELECT sr.letter FROM sheet_revisions sr WHERE sr.device_id = `Device`.`id` ORDER BY sr.sequence DESC LIMIT 1)"), "latest_revision"],
 ];
 
 function toSheetSummary(device: Device): SheetSummary {
@@ -39,6 +42,8 @@ function toSheetSummary(device: Device): SheetSummary {
     awaitingReviewCount: count("awaiting_review_count"),
     limitCount: count("limit_count"),
     lastChangeAt: (changed instanceof Date ? changed : new Date(String(changed))).toISOString(),
+    reviewState: (device.get("review_state") as SheetSummary["reviewState"]) ?? null,
+    latestRevision: (device.get("latest_revision") as string | null) ?? null,
   };
 }
 
