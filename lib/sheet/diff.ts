@@ -30,7 +30,7 @@ import type { FormattedValue, SheetModel, SpecTableRow } from "./types";
 
 export * from "./diff-types";
 export { summaryLines } from "./diff-summary";
-export { diffIsEmpty } from "./diff-empty";
+export { diffIsEmpty, rowMovedWithDataOnly } from "./diff-queries";
 export { diffChartAnchorId, diffProseAnchorId, diffRowAnchorId } from "./diff-anchors";
 
 
