@@ -27,8 +27,8 @@ export function summaryLines(diff: SheetDiff): string[] {
   if (diff.measurementSets.added.length > 0) lines.push(setsLine("added", diff.measurementSets.added));
   if (diff.measurementSets.removed.length > 0) lines.push(setsLine("removed", diff.measurementSets.removed));
   for (const detail of diff.details) {
-    if (detail.previous === null) lines.push(`Added: ${detail.label} ${detail.next}`);
-    else if (detail.next === null) lines.push(`Removed: ${detail.label}`);
+    if (detail.previous === null) lines.push(`Key fact added: ${detail.label} ${detail.next}`);
+    else if (detail.next === null) lines.push(`Key fact removed: ${detail.label}`);
     else if (detail.label === "Description") lines.push("Description changed");
     else lines.push(`${detail.label}: ${detail.previous} → ${detail.next}`);
   }
