@@ -1,7 +1,9 @@
 import { ScrollTable } from "@/components/ui/scroll-table";
 import { limitBasisWords } from "@/lib/domain/sheets";
+import { rowMovedWithDataOnly } from "@/lib/sheet/diff-queries";
 import type { BasisChange, LimitEffect, SheetDiff, SpecRowChange, SpecRowFieldChange, SpecRowFigures } from "@/lib/sheet/diff-types";
 import type { LimitBasis } from "@/lib/sheet/types";
+import { Notation } from "@/components/sheet/notation";
 import { Absent, DiffSection, Figure, MarkWord, type DiffHooks } from "./diff-parts";
 
 /** The row kinds in words, each with a mark: a window closing in, opening out, a plus, a minus, a tilde. */
@@ -16,7 +18,7 @@ export const rowKindWords: Record<SpecRowChange["kind"], { mark: string; word: s
 const effectWords: Record<LimitEffect, { mark: string; word: string }> = {
   tightened: rowKindWords.tightened,
   loosened: rowKindWords.loosened,
-  neutral: { mark: "·", word: "Typical value, not a guarantee" },
+  neutral: { mark: "·", word: "Not a guarantee" },
   incomparable: { mark: "≠", word: "Units differ, not compared" },
 };
 
@@ -31,47 +33,95 @@ const fieldWords: Record<SpecRowFieldChange["field"], string> = {
 
 type Labels = { previousLabel: string; nextLabel: string };
 
-/** The spec-table changes in review order, one body per row so each can be linked to and commented on. */
+/**
+ * The spec-table changes in review order, one body per row so each can be linked to and commented
+ * on. Rows whose only change is a measured mean that moved with new data follow in a folded table:
+ * nobody decided them, and listed among the decisions they would bury them.
+ */
 export function DiffSpecRows({ diff, hooks }: { diff: SheetDiff; hooks: DiffHooks }) {
   if (diff.rows.length === 0) return null;
   const labels = { previousLabel: diff.previousLabel ?? "Previous", nextLabel: diff.nextLabel };
-  const withActions = Boolean(hooks.anchorActions || hooks.dataHref);
+  const decided = diff.rows.filter((row) => !rowMovedWithDataOnly(row));
+  const moved = diff.rows.filter(rowMovedWithDataOnly);
   return (
     <DiffSection id="diff-spec-rows" title="Electrical specifications" testId="diff-spec-rows">
-      <ScrollTable label="Changed specification rows" testId="diff-spec-table">
-        <caption>
-          Guarantees tightened first, then loosened, then rows added and removed, then other changes. Arrows give the direction
-          of a figure.
-        </caption>
-        <thead>
-          <tr>
-            <th scope="col">Change</th>
-            <th scope="col">Parameter</th>
-            <th scope="col">Conditions</th>
-            <th scope="col">Field</th>
-            <th scope="col" className="num">
-              {labels.previousLabel}
-            </th>
-            <th scope="col" className="num">
-              {labels.nextLabel}
-            </th>
-            <th scope="col">Effect</th>
-            {withActions ? (
-              <th scope="col">
-                <span className="sr-only">Actions</span>
-              </th>
-            ) : null}
-          </tr>
-        </thead>
-        {diff.rows.map((row) => (
-          <SpecRowBody key={row.groupId} row={row} labels={labels} hooks={hooks} withActions={withActions} />
-        ))}
-      </ScrollTable>
+      {decided.length > 0 ? (
+        <SpecRowTable
+          rows={decided}
+          labels={labels}
+          hooks={hooks}
+          label="Changed specification rows"
+          testId="diff-spec-table"
+          caption="Guarantees tightened first, then loosened, then rows added and removed, then other changes. Arrows give the direction of a figure."
+        />
+      ) : null}
+      {moved.length > 0 ? (
+        <details id="diff-spec-moved" className="mt-6 scroll-mt-24" data-testid="diff-spec-moved" open={decided.length === 0}>
+          <summary className="cursor-pointer text-[0.9375rem]">
+            <span className="figure">{moved.length}</span> measured {moved.length === 1 ? "mean" : "means"} (no typ stated) moved with the data
+          </summary>
+          <div className="mt-3">
+            <SpecRowTable
+              rows={moved}
+              labels={labels}
+              hooks={hooks}
+              label="Measured means that moved with the data"
+              testId="diff-spec-moved-table"
+              caption="The typ column of these rows is the mean of the units measured; it changes whenever the data do."
+            />
+          </div>
+        </details>
+      ) : null}
     </DiffSection>
   );
 }
 
-function SpecRowBody({ row, labels, hooks, withActions }: { row: SpecRowChange; labels: Labels; hooks: DiffHooks; withActions: boolean }) {
+function SpecRowTable({
+  rows,
+  labels,
+  hooks,
+  label,
+  testId,
+  caption,
+}: {
+  rows: SpecRowChange[];
+  labels: Labels;
+  hooks: DiffHooks;
+  label: string;
+  testId: string;
+  caption: string;
+}) {
+  const withActions = Boolean(hooks.anchorActions || hooks.dataHref);
+  return (
+    <ScrollTable label={label} testId={testId}>
+      <caption>{caption}</caption>
+      <thead>
+        <tr>
+          <th scope="col">Change</th>
+          <th scope="col">Parameter and conditions</th>
+          <th scope="col">Field</th>
+          <th scope="col" className="num">
+            {labels.previousLabel}
+          </th>
+          <th scope="col" className="num">
+            {labels.nextLabel}
+          </th>
+          <th scope="col">Effect</th>
+          {withActions ? (
+            <th scope="col">
+              <span className="sr-only">Actions</span>
+            </th>
+          ) : null}
+        </tr>
+      </thead>
+      {rows.map((row) => (
+        <SpecRowBody key={row.groupId} row={row} hooks={hooks} withActions={withActions} />
+      ))}
+    </ScrollTable>
+  );
+}
+
+function SpecRowBody({ row, hooks, withActions }: { row: SpecRowChange; hooks: DiffHooks; withActions: boolean }) {
   const lines = fieldLines(row);
   const kind = rowKindWords[row.kind];
   const emphasis = row.kind === "tightened" || row.kind === "loosened" ? "font-semibold" : "";
@@ -83,18 +133,23 @@ function SpecRowBody({ row, labels, hooks, withActions }: { row: SpecRowChange; 
         <tr key={line.key}>
           {i === 0 ? (
             <>
-              <td rowSpan={lines.length} className={emphasis}>
+              <td rowSpan={lines.length} className={`whitespace-nowrap ${emphasis}`}>
                 <MarkWord {...kind} />
               </td>
-              <th scope="row" rowSpan={lines.length}>
-                {row.label}
+              <th scope="row" rowSpan={lines.length} className="min-w-[14rem]">
+                <span className="font-semibold">{row.label}</span>
+                {row.conditionsText ? (
+                  <span className="block text-sm text-ink-muted">
+                    <Notation text={row.conditionsText} />
+                  </span>
+                ) : null}
               </th>
-              <td rowSpan={lines.length}>{row.conditionsText || <Absent />}</td>
             </>
           ) : null}
-          <td>{line.field}</td>
-          <td className="num">{line.previous}</td>
-          <td className="num">{line.next}</td>
+          {/* A continuation line starts at the Field column, not at the table's edge. */}
+          <td className={i === 0 ? "" : "pl-3"}>{line.field}</td>
+          <td className="num whitespace-nowrap">{line.previous}</td>
+          <td className="num whitespace-nowrap">{line.next}</td>
           <td>{line.effect}</td>
           {withActions && i === 0 ? (
             <td rowSpan={lines.length} className="whitespace-nowrap">
@@ -143,7 +198,7 @@ function fieldLine(change: SpecRowFieldChange, row: SpecRowChange): Line {
       const effect = effectWords[change.effect];
       return {
         key,
-        field: change.measuredMean ? `${field} (measured mean)` : field,
+        field: change.measuredMean ? `${field} (mean)` : field,
         previous: <Figure value={change.previous} unit={row.previous?.unit ?? ""} />,
         next: (
           <>
@@ -241,7 +296,7 @@ export function DiffBasisChanges({ diff, hooks }: { diff: SheetDiff; hooks: Diff
               className="scroll-mt-24 target:bg-paper-deep"
             >
               <th scope="row">{change.label}</th>
-              <td>{change.conditionsText || <Absent />}</td>
+              <td>{change.conditionsText ? <Notation text={change.conditionsText} /> : <Absent />}</td>
               <td>
                 <BasisWords basis={change.previous} />
               </td>

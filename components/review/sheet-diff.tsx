@@ -1,5 +1,5 @@
 import { Notice } from "@/components/ui/notice";
-import { diffIsEmpty } from "@/lib/sheet/diff-empty";
+import { diffIsEmpty, rowMovedWithDataOnly } from "@/lib/sheet/diff-queries";
 import type { SheetDiff } from "@/lib/sheet/diff-types";
 import { DiffCharts } from "./diff-charts";
 import type { DiffHooks } from "./diff-parts";
@@ -60,15 +60,24 @@ export function SheetDiffView({ diff, headingId = "sheet-diff", anchorActions, d
 
 /** The change list at a glance: how many rows of each kind, in the list's order, each a link to its section. */
 function DiffCounts({ diff }: { diff: SheetDiff }) {
+  const decided = diff.rows.filter((row) => !rowMovedWithDataOnly(row));
+  const moved = diff.rows.length - decided.length;
   const kinds = (["tightened", "loosened", "added", "removed", "changed"] as const)
-    .map((kind) => ({ kind, count: diff.rows.filter((row) => row.kind === kind).length }))
+    .map((kind) => ({ kind, count: decided.filter((row) => row.kind === kind).length }))
     .filter(({ count }) => count > 0);
+  const plural = (n: number, one: string, many: string) => (n === 1 ? one : many);
+  const cautions = diff.cautions.added.length + diff.cautions.removed.length;
+  const sets = diff.measurementSets.added.length + diff.measurementSets.removed.length;
+  const panels = diff.charts.flatMap((chart) => chart.panels).filter((panel) => panel.changed).length;
   const others = [
-    { label: "basis", count: diff.basisChanges.length, href: "#diff-basis" },
-    { label: "prose", count: diff.prose.length, href: "#diff-prose" },
-    { label: "ratings", count: diff.ratings.length, href: "#diff-ratings" },
-    { label: "cautions", count: diff.cautions.added.length + diff.cautions.removed.length, href: "#diff-cautions" },
-    { label: "sets", count: diff.measurementSets.added.length + diff.measurementSets.removed.length, href: "#diff-sets" },
+    { key: "moved", count: moved, words: plural(moved, "measured mean moved", "measured means moved"), href: "#diff-spec-moved" },
+    { key: "basis", count: diff.basisChanges.length, words: plural(diff.basisChanges.length, "basis", "bases"), href: "#diff-basis" },
+    { key: "prose", count: diff.prose.length, words: plural(diff.prose.length, "prose section", "prose sections"), href: "#diff-prose" },
+    { key: "ratings", count: diff.ratings.length, words: plural(diff.ratings.length, "rating", "ratings"), href: "#diff-ratings" },
+    { key: "cautions", count: cautions, words: plural(cautions, "caution", "cautions"), href: "#diff-cautions" },
+    { key: "details", count: diff.details.length, words: plural(diff.details.length, "header item", "header items"), href: "#diff-details" },
+    { key: "sets", count: sets, words: plural(sets, "measurement set", "measurement sets"), href: "#diff-sets" },
+    { key: "curves", count: panels, words: plural(panels, "curve differs", "curves differ"), href: "#diff-charts" },
   ].filter(({ count }) => count > 0);
   if (kinds.length === 0 && others.length === 0) return null;
   return (
@@ -83,10 +92,10 @@ function DiffCounts({ diff }: { diff: SheetDiff }) {
           </a>
         </li>
       ))}
-      {others.map(({ label, count, href }) => (
-        <li key={label}>
+      {others.map(({ key, count, words, href }) => (
+        <li key={key}>
           <a href={href} className="no-underline hover:underline">
-            <span className="figure">{count}</span> {label}
+            <span className="figure">{count}</span> {words}
           </a>
         </li>
       ))}

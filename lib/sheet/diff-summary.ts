@@ -5,6 +5,7 @@
  */
 import { kindLabel } from "../domain/measurements";
 import { joinUnit } from "../format/quantity";
+import { rowMovedWithDataOnly } from "./diff-queries";
 import type { LimitFieldChange, MeasurementSetRef, RatingFigures, SheetDiff, SpecRowChange, SpecRowFieldChange, SpecRowRef } from "./diff-types";
 
 /** Measurement sets named one by one up to this many; beyond it, counted. */
@@ -13,7 +14,7 @@ const SETS_NAMED = 6;
 export function summaryLines(diff: SheetDiff): string[] {
   if (diff.firstRelease) return ["First release."];
   const lines: string[] = [];
-  const dataOnly = diff.rows.filter(movedWithDataOnly);
+  const dataOnly = diff.rows.filter(rowMovedWithDataOnly);
   for (const row of diff.rows) if (!dataOnly.includes(row)) lines.push(rowLine(row));
   if (dataOnly.length > 0) {
     lines.push(`Measured typical values (no typ stated) moved with the data in ${dataOnly.length} ${dataOnly.length === 1 ? "row" : "rows"}`);
@@ -26,8 +27,8 @@ export function summaryLines(diff: SheetDiff): string[] {
   if (diff.measurementSets.added.length > 0) lines.push(setsLine("added", diff.measurementSets.added));
   if (diff.measurementSets.removed.length > 0) lines.push(setsLine("removed", diff.measurementSets.removed));
   for (const detail of diff.details) {
-    if (detail.previous === null) lines.push(`Added: ${detail.label} ${detail.next}`);
-    else if (detail.next === null) lines.push(`Removed: ${detail.label}`);
+    if (detail.previous === null) lines.push(`Key fact added: ${detail.label} ${detail.next}`);
+    else if (detail.next === null) lines.push(`Key fact removed: ${detail.label}`);
     else if (detail.label === "Description") lines.push("Description changed");
     else lines.push(`${detail.label}: ${detail.previous} → ${detail.next}`);
   }
@@ -38,11 +39,6 @@ export function summaryLines(diff: SheetDiff): string[] {
   const redrawn = diff.charts.filter((c) => c.presence === "both" && c.panels.some((p) => p.changed)).map((c) => c.title);
   if (redrawn.length > 0) lines.push(`Typical curves changed: ${redrawn.join("; ")}`);
   return lines;
-}
-
-/** A row whose only change is a typ that is the measured mean on both sides: the release notes count these rather than list them. */
-function movedWithDataOnly(row: SpecRowChange): boolean {
-  return row.kind === "changed" && row.fields.every((f) => f.field === "typ" && f.measuredMean);
 }
 
 /** "Conversion loss (Frequency 2 GHz in, T_A 25 °C)". */

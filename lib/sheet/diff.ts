@@ -30,10 +30,13 @@ import type { FormattedValue, SheetModel, SpecTableRow } from "./types";
 
 export * from "./diff-types";
 export { summaryLines } from "./diff-summary";
-export { diffIsEmpty } from "./diff-empty";
+export { diffIsEmpty, rowMovedWithDataOnly } from "./diff-queries";
 export { diffChartAnchorId, diffProseAnchorId, diffRowAnchorId } from "./diff-anchors";
 
-
+/**
+ * What changed from `previous` (a released revision's frozen model, or null for a first release)
+ * to `next` (the candidate). The labels name the two sides in the view and on the overlays.
+ */
 export function diffSheetModels(previous: SheetModel | null, next: SheetModel, options: DiffSheetModelsOptions = {}): SheetDiff {
   const nextLabel = options.nextLabel ?? "Candidate";
   if (!previous) {
@@ -245,7 +248,14 @@ function diffProse(previous: SheetModel, next: SheetModel): ProseChange[] {
     }));
     const words = (change: ProseDiffPart["change"]) =>
       parts.filter((p) => p.change === change).reduce((sum, p) => sum + (p.text.match(/\S+/g)?.length ?? 0), 0);
-    changes.push({ sectionId: section.id, anchorId: diffProseAnchorId(section.id), title: (inNext ?? section).title, parts, insertedWords: words("inserted"), deletedWords: words("deleted") });
+    changes.push({
+      sectionId: section.id,
+      anchorId: diffProseAnchorId(section.id),
+      title: (inNext ?? section).title,
+      parts,
+      insertedWords: words("inserted"),
+      deletedWords: words("deleted"),
+    });
   }
   return changes;
 }

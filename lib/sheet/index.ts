@@ -10,6 +10,7 @@ export { releaseSheetModel, revisionLetter, revisionSequence, type ReleaseFacts 
 export {
   diffSheetModels,
   diffIsEmpty,
+  rowMovedWithDataOnly,
   summaryLines,
   diffRowAnchorId,
   diffChartAnchorId,

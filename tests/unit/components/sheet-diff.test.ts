@@ -2,7 +2,7 @@ import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { SheetDiffView, type DiffAnchor } from "@/components/review/sheet-diff";
-import { buildSheetModel, diffSheetModels, type SheetInput, type SpecLimitInput } from "@/lib/sheet";
+import { buildSheetModel, diffSheetModels, rowMovedWithDataOnly, type SheetInput, type SpecLimitInput } from "@/lib/sheet";
 import { loadDoublerInput } from "../sheet/fixture";
 
 const CL_2GHZ = "drive=optimum;inputFrequencyHz=2000000000;temperatureC=25";
@@ -42,11 +42,27 @@ describe("SheetDiffView", () => {
 
   it("lists row changes in review order, each body with the row's anchor id", () => {
     const bodies = rowBodies(html);
-    expect(bodies.map((b) => b.id)).toEqual(busyDiff.rows.map((r) => r.anchorId));
-    const kinds = bodies.map((b) => b.kind);
-    expect(kinds.slice(0, 3)).toEqual(["tightened", "loosened", "added"]);
-    expect(kinds.slice(3).every((k) => k === "changed")).toBe(true);
+    const decided = busyDiff.rows.filter((r) => !rowMovedWithDataOnly(r));
+    const moved = busyDiff.rows.filter(rowMovedWithDataOnly);
+    expect(moved.length).toBeGreaterThan(0);
+    expect(bodies.map((b) => b.id)).toEqual([...decided, ...moved].map((r) => r.anchorId));
+    expect(bodies.map((b) => b.kind).slice(0, decided.length)).toEqual(["tightened", "loosened", "added", "changed"]);
     expect(new Set(bodies.map((b) => b.id)).size).toBe(bodies.length);
+  });
+
+  it("counts the changes at the top, each with its word", () => {
+    const counts = html.split('data-testid="diff-counts"')[1].split("</ul>")[0];
+    const moved = busyDiff.rows.filter(rowMovedWithDataOnly).length;
+    for (const words of ["1</span> tightened", "1</span> loosened", "1</span> added", "1</span> changed", `${moved}</span> measured means moved`, "1</span> basis", "1</span> prose section", "1</span> rating"]) {
+      expect(counts).toContain(words);
+    }
+  });
+
+  it("folds the measured means that only moved with the data below the decided changes", () => {
+    const folded = html.split('data-testid="diff-spec-moved"')[1].split("</details>")[0];
+    const moved = busyDiff.rows.filter(rowMovedWithDataOnly);
+    expect(folded).toContain(`<span class="figure">${moved.length}</span> measured means (no typ stated) moved with the data`);
+    expect(rowBodies(`<details ${folded}`).map((b) => b.id)).toEqual(moved.map((r) => r.anchorId));
   });
 
   it("says every change in a word beside its mark, never by colour alone", () => {

@@ -324,6 +324,23 @@ describe("diffSheetModels: prose, ratings, cautions, sets", () => {
     );
   });
 
+  it("reports header and key-fact changes", () => {
+    const input = structuredClone(base);
+    input.device.title = `${base.device.title}, rugged`;
+    input.device.keyConditions = { ...base.device.keyConditions, driveLevelDbm: 13, multiplicationFactor: undefined };
+    const diff = diffSheetModels(revA, candidate(input));
+    expect(diff.details).toEqual([
+      { label: "Title", previous: base.device.title, next: `${base.device.title}, rugged` },
+      { label: "Drive level", previous: `+10${NBSP}dBm`, next: `+13${NBSP}dBm` },
+      { label: "Multiplication factor", previous: "×2", next: null },
+    ]);
+    expect(summaryLines(diff)).toEqual([
+      `Title: ${base.device.title} → ${base.device.title}, rugged`,
+      `Drive level: +10${NBSP}dBm → +13${NBSP}dBm`,
+      "Key fact removed: Multiplication factor",
+    ]);
+  });
+
   it("gives the same diff, byte for byte, whatever order the inputs came in", () => {
     const next = editLimit("conversion-loss", CL_2GHZ, { max: 11.5 });
     next.approvedSets = next.approvedSets.filter((s) => s.serial !== "HX-0102");
