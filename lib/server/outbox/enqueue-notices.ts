@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { QueryTypes, type Transaction } from "sequelize";
 import { db } from "@/models";
 import { serverConfig } from "../config";
-import { defaultOutboxLane } from "./outbox-settings";
+import { defaultOutboxLane, lanePattern } from "./outbox-settings";
 
 export type Notice = {
   organizationId: number | null;
@@ -39,6 +39,7 @@ export async function enqueueNotices(transaction: Transaction, notices: Notice[]
     for (const [field, value] of [["eventKey", notice.eventKey], ["to", to], ["subject", notice.subject], ["text", notice.text]] as const) {
       if (value.length === 0 || value.length > limits[field]) throw new Error(`notice ${field} must be 1–${limits[field]} characters (event ${notice.eventKey})`);
     }
+    if (notice.lane !== undefined && !lanePattern.test(notice.lane)) throw new Error(`notice lane '${notice.lane}' is not a lane name (event ${notice.eventKey})`);
     if (/[\r\n]/.test(notice.subject) || /[\r\n]/.test(to)) throw new Error(`notice subject and recipient are one line each (event ${notice.eventKey})`);
     return [notice.lane ?? defaultOutboxLane, notice.organizationId, notice.eventKey, to, notice.subject, notice.text, `<outbox.${randomUUID()}@${domain}>`];
   });
