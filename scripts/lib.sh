@@ -78,6 +78,8 @@ start_fake_smtp() {
   FAKE_SMTP_PID=""
   if curl -fsS "$BENCHFOLD_MAILBOX_URL/health" >/dev/null 2>&1; then
     log "fake SMTP already answering on $SMTP_PORT"
+    # A fault test may have left its SMTP port closed (DELETE /smtp): open it again.
+    curl -fsS -X PUT "$BENCHFOLD_MAILBOX_URL/smtp" >/dev/null 2>&1 || true
     return 0
   fi
   mkdir -p "$BENCHFOLD_DATA_DIR/logs"
