@@ -78,6 +78,8 @@ start_fake_smtp() {
   FAKE_SMTP_PID=""
   if curl -fsS "$BENCHFOLD_MAILBOX_URL/health" >/dev/null 2>&1; then
     log "fake SMTP already answering on $SMTP_PORT"
+    # A fault test may have left its SMTP port closed (DELETE /smtp): open it again.
+    curl -fsS -X PUT "$BENCHFOLD_MAILBOX_URL/smtp" >/dev/null 2>&1 || true
     return 0
   fi
   mkdir -p "$BENCHFOLD_DATA_DIR/logs"
@@ -103,7 +105,24 @@ start_outbox_worker() {
   (cd "$BENCHFOLD_ROOT" && exec node --conditions=react-server --import tsx scripts/outbox-worker.ts) \
     >>"$BENCHFOLD_DATA_DIR/logs/$name.log" 2>&1 &
   OUTBOX_WORKER_PID=$!
-  log "outbox worker started (pid $OUTBOX_WORKER_PID, log .data/logs/$name.log)"
+  OUTBOX_WORKER_LOG="$BENCHFOLD_DATA_DIR/logs/$name.log"
+}
+
+# Waits (up to 60 s) for the worker started above to say it is draining; returns 1, with its log's
+# tail, when it stopped instead. Called once the app server answers, so the two start side by side.
+check_outbox_worker() {
+  local i
+  for i in $(seq 1 300); do
+    if grep -qF "outbox-worker[$OUTBOX_WORKER_PID] draining lane" "$OUTBOX_WORKER_LOG" 2>/dev/null; then
+      log "outbox worker running (pid $OUTBOX_WORKER_PID, log ${OUTBOX_WORKER_LOG#"$BENCHFOLD_ROOT/"})"
+      return 0
+    fi
+    kill -0 "$OUTBOX_WORKER_PID" 2>/dev/null || break
+    sleep 0.2
+  done
+  tail -20 "$OUTBOX_WORKER_LOG" >&2
+  log "the outbox worker did not start (log: $OUTBOX_WORKER_LOG)"
+  return 1
 }
 
 # Said when the fake SMTP server is in use, so nobody mistakes it for a working mail set-up.

@@ -31,6 +31,7 @@ fi
 start_outbox_worker
 
 if [ "$MODE" = "--dev" ]; then
+  check_outbox_worker || die "notices would not be mailed; see above"
   log "ready in $(( $(date +%s) - started )) s of set-up; dev server on http://localhost:$PORT"
   node scripts/server.mjs --dev
 else
@@ -40,6 +41,7 @@ else
   node scripts/server.mjs &
   SERVER_PID=$!
   for _ in $(seq 1 150); do curl -fsS "http://127.0.0.1:$PORT/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done
+  check_outbox_worker || die "notices would not be mailed; see above"
   # The demo's measurement sets go in through the real bench upload path, once per database.
   BENCHFOLD_APP_URL="http://127.0.0.1:$PORT" run_tsx scripts/seed-demo-measurements.ts || log "demo measurements were not loaded (see above)"
   log "set-up took $(( $(date +%s) - started )) s; serving http://localhost:$PORT (demo password: bench-demo-2026)"

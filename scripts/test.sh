@@ -65,6 +65,7 @@ if BENCHFOLD_TEST_DEVICE_CLASSES=1 node node_modules/next/dist/bin/next build >"
   start_outbox_worker outbox-worker-test
   for _ in $(seq 1 150); do curl -fsS "$BENCHFOLD_TEST_URL/api/auth/csrf" >/dev/null 2>&1 && break; sleep 0.2; done
   if curl -fsS "$BENCHFOLD_TEST_URL/api/auth/csrf" >/dev/null 2>&1; then
+    step "outbox worker" check_outbox_worker
     step "demo measurements through the bench API" env BENCHFOLD_APP_URL="$BENCHFOLD_TEST_URL" \
       node node_modules/tsx/dist/cli.mjs scripts/seed-demo-measurements.ts
     step "integration tests" node node_modules/vitest/vitest.mjs run --project integration \

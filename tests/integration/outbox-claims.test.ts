@@ -82,11 +82,17 @@ describe("enqueueNotices", () => {
     expect(rows[0].messageId).toMatch(/^<outbox\.[0-9a-f-]{36}@[a-z0-9.-]+>$/);
   });
 
-  it("refuses a subject over one line or a value over its column", async () => {
+  it("refuses a subject over one line, a recipient that is not one bare address, and a value over its column", async () => {
+    const notice = { organizationId: null, eventKey: `bad:${tag}`, to: `b-${tag}@outbox.example`, subject: "s", text: "t" };
     await db().sequelize.transaction(async (transaction) => {
-      await expect(enqueueNotices(transaction, [{ organizationId: null, eventKey: `bad:${tag}`, to: `b-${tag}@outbox.example`, subject: "a\r\nBcc: x@y.example", text: "t" }])).rejects.toThrow("one line");
-      await expect(enqueueNotices(transaction, [{ organizationId: null, eventKey: `bad:${tag}`, to: `b-${tag}@outbox.example`, subject: "s".repeat(256), text: "t" }])).rejects.toThrow("subject");
+      await expect(enqueueNotices(transaction, [{ ...notice, subject: "a\r\nBcc: x@y.example" }])).rejects.toThrow("one line");
+      await expect(enqueueNotices(transaction, [{ ...notice, subject: "s".repeat(256) }])).rejects.toThrow("subject");
+      for (const to of [`b-${tag}@outbox.example, c@outbox.example`, `Someone <b-${tag}@outbox.example>`, "b@outbox.example\nBcc: c@outbox.example", "no-at-sign.example", "a@b"]) {
+        await expect(enqueueNotices(transaction, [{ ...notice, to }])).rejects.toThrow("recipient");
+      }
+      await expect(enqueueNotices(transaction, [{ ...notice, lane: "No Lane" }])).rejects.toThrow("lane");
     });
+    expect(await db().OutboxMessage.count({ where: { eventKey: `bad:${tag}` } })).toBe(0);
   });
 });
 

@@ -13,8 +13,12 @@
  *     duplicate per crash and none lost. No switch in the worker makes it crash: the test kills
  *     it from outside, so nothing of the kind exists in production.
  *
- * The rows live in lanes of their own (BENCHFOLD_OUTBOX_LANE), so the run's shared worker, which
- * drains lane "mail" into the shared fake SMTP server, never takes them.
+ * (c) The same outage for the run's own worker (scripts/test.sh starts it beside the app server,
+ *     as npm start does), lane "mail", production retry settings: the run's fake SMTP server
+ *     closes its port (DELETE /smtp on its read-out) and opens it again.
+ *
+ * The rows of (a) and (b) live in lanes of their own (BENCHFOLD_OUTBOX_LANE), so the run's shared
+ * worker, which drains lane "mail" into the shared fake SMTP server, never takes them.
  */
 import { spawn, type ChildProcess } from "node:child_process";
 import { randomBytes } from "node:crypto";
@@ -26,6 +30,7 @@ import { SMTPServer, type SMTPServerOptions } from "smtp-server";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { closeDb, db } from "@/models";
 import { assertLoopbackDatabase } from "./helpers/loopback";
+import { mailsTo, setFakeSmtpListening } from "./helpers/mailbox";
 
 vi.mock("server-only", () => ({}));
 const { enqueueNotices } = await import("@/lib/server/outbox/enqueue-notices");
@@ -122,18 +127,22 @@ async function waitFor<T>(what: string, probe: () => Promise<T | false>, worker?
   }
 }
 
-async function rowsOf(lane: string): Promise<Row[]> {
+async function rowsOf(lane: string, eventKey?: string): Promise<Row[]> {
   return db().sequelize.query<Row>(
-    `SELECT id, recipient, attempts, sent_at AS sentAt, last_error AS lastError, message_id AS messageId FROM outbox_messages WHERE lane = :lane ORDER BY id`,
-    { type: QueryTypes.SELECT, replacements: { lane } },
+    `SELECT id, recipient, attempts, sent_at AS sentAt, last_error AS lastError, message_id AS messageId
+       FROM outbox_messages WHERE lane = :lane AND (:eventKey IS NULL OR event_key = :eventKey) ORDER BY id`,
+    { type: QueryTypes.SELECT, replacements: { lane, eventKey: eventKey ?? null } },
   );
 }
 
-async function enqueueEvent(lane: string, recipients: string[]): Promise<void> {
+const eventKeyOf = (lane: string) => `fault-test:${lane}:released`;
+
+/** Queues one event's notices; `lane` undefined is the app's own lane, "mail". */
+async function enqueueEvent(lane: string | undefined, recipients: string[]): Promise<void> {
   await db().sequelize.transaction((transaction) =>
     enqueueNotices(
       transaction,
-      recipients.map((to) => ({ organizationId: null, eventKey: `fault-test:${lane}:released`, to, subject: "Revision released", text: `A revision you follow was released (${lane}).`, lane })),
+      recipients.map((to) => ({ organizationId: null, eventKey: eventKeyOf(lane ?? `mail-${tag}`), to, subject: "Revision released", text: `A revision you follow was released (${lane ?? "mail"}).`, lane })),
     ),
   );
 }
@@ -154,6 +163,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
+  await setFakeSmtpListening(true);
   for (const worker of running) worker.child.kill("SIGKILL");
   await relay.stop();
   await closeDb();
@@ -246,5 +256,28 @@ describe("outbox under mail faults", () => {
 
     survivor.child.kill("SIGTERM");
     expect(await survivor.exited).toEqual({ code: 0, signal: null });
+  }, 180_000);
+
+  it("(c) the run's own worker loses nothing while the run's fake SMTP server is stopped, and sends each notice once", async () => {
+    const recipients = Array.from({ length: 3 }, (_, i) => `member-${i}-${tag}@shared-outage.example`);
+    const eventKey = eventKeyOf(`mail-${tag}`);
+    await setFakeSmtpListening(false);
+    try {
+      await enqueueEvent(undefined, recipients);
+      // Production settings: the second attempt comes 5 s after the first.
+      const failing = await waitFor("the run's worker retrying while the relay is down", async () => {
+        const rows = await rowsOf("mail", eventKey);
+        return rows.length === recipients.length && rows.every((r) => r.attempts >= 2) && rows;
+      });
+      expect(failing.filter((r) => r.sentAt !== null)).toEqual([]);
+      for (const to of recipients) expect(await mailsTo(to)).toEqual([]);
+    } finally {
+      await setFakeSmtpListening(true);
+    }
+    const sent = await waitFor("every notice marked sent by the run's worker", async () => {
+      const rows = await rowsOf("mail", eventKey);
+      return rows.every((r) => r.sentAt !== null) && rows;
+    });
+    for (const row of sent) expect((await mailsTo(row.recipient)).map((m) => m.messageId)).toEqual([row.messageId]);
   }, 180_000);
 });

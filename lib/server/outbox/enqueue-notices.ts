@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { QueryTypes, type Transaction } from "sequelize";
 import { db } from "@/models";
 import { serverConfig } from "../config";
-import { defaultOutboxLane } from "./outbox-settings";
+import { defaultOutboxLane, lanePattern } from "./outbox-settings";
 
 export type Notice = {
   organizationId: number | null;
@@ -16,6 +16,7 @@ export type Notice = {
   lane?: string;
 };
 
+const singleAddress = /^[^\s@,;:<>()[\]"\\]+@[^\s@,;:<>()[\]"\\]+\.[^\s@,;:<>()[\]"\\]+$/;
 const limits = { eventKey: 191, to: 254, subject: 255, text: 4 * 1024 * 1024 } as const;
 
 /** The Message-ID's domain: the sender address's, so replies and threading stay with Benchfold's mail. */
@@ -39,7 +40,10 @@ export async function enqueueNotices(transaction: Transaction, notices: Notice[]
     for (const [field, value] of [["eventKey", notice.eventKey], ["to", to], ["subject", notice.subject], ["text", notice.text]] as const) {
       if (value.length === 0 || value.length > limits[field]) throw new Error(`notice ${field} must be 1–${limits[field]} characters (event ${notice.eventKey})`);
     }
-    if (/[\r\n]/.test(notice.subject) || /[\r\n]/.test(to)) throw new Error(`notice subject and recipient are one line each (event ${notice.eventKey})`);
+    if (notice.lane !== undefined && !lanePattern.test(notice.lane)) throw new Error(`notice lane '${notice.lane}' is not a lane name (event ${notice.eventKey})`);
+    if (/[\r\n]/.test(notice.subject)) throw new Error(`notice subject must be one line (event ${notice.eventKey})`);
+    // One bare address: nodemailer would read "a@x.example, b@y.example" as two recipients.
+    if (!singleAddress.test(to)) throw new Error(`notice recipient must be one bare e-mail address (event ${notice.eventKey})`);
     return [notice.lane ?? defaultOutboxLane, notice.organizationId, notice.eventKey, to, notice.subject, notice.text, `<outbox.${randomUUID()}@${domain}>`];
   });
   // ON DUPLICATE KEY rather than INSERT IGNORE: IGNORE would also turn a too-long value into a

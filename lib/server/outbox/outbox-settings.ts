@@ -16,7 +16,7 @@ export type OutboxSettings = {
 };
 
 export const defaultOutboxLane = "mail";
-const lanePattern = /^[a-z0-9][a-z0-9-]{0,39}$/;
+export const lanePattern = /^[a-z0-9][a-z0-9-]{0,39}$/;
 
 function positiveInteger(env: Record<string, string | undefined>, name: string, fallback: number): number {
   const raw = env[name];
