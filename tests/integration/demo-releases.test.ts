@@ -60,6 +60,9 @@ describe("the demo's releases", () => {
       expect(r.releasedBy.name).toBe("Elena Marchetti");
     }
     expect(doubler[0].notes.at(-1)).toBe(demoDoublerStory.revisionB.releaseNote);
+    // B's generated notes (the diff against A) name the tightened limit and the added unit.
+    expect(doubler[0].notes.some((n) => /^Conversion loss.*11\.50\sdB → 11\.00\sdB/.test(n)), doubler[0].notes.join(" | ")).toBe(true);
+    expect(doubler[0].notes.some((n) => n.includes("BFD-0004"))).toBe(true);
     expect(doubler[1].notes).toEqual(["First release.", demoDoublerStory.revisionA.releaseNote]);
   });
 
