@@ -10,7 +10,8 @@
 import type { CandidateDetail, CandidateSummary, RevisionSummary } from "../lib/domain/reviews";
 import type { MeasurementSetSummary } from "../lib/domain/measurements";
 import type { SheetModel } from "../lib/sheet";
-import { demoChangesRequested, demoDoublerStory, demoFirstReleases, demoIssueReasons, demoOpenReview, type DemoRole } from "../models/seeders/demo-releases";
+import { demoUploads } from "../models/seeders/demo-measurements";
+import { demoChangesRequested, demoDoublerStory, demoFirstReleases, demoOpenReview, type DemoRole } from "../models/seeders/demo-releases";
 import { demoOrganizations, demoPassword } from "../models/seeders/demo-scenario";
 import { demoSheets, type DemoSheetContent } from "../models/seeders/demo-sheets";
 import { DemoApiSession } from "./demo-api-session";
@@ -45,18 +46,18 @@ const revisionLetters = async (session: DemoApiSession, deviceId: number) =>
 const deviceReview = (session: DemoApiSession, deviceId: number) => session.call<DeviceReview>("GET", `/api/devices/${deviceId}/review`);
 
 /** Each open issue of the draft with the engineer's reason for letting it stand; an issue the story has no reason for stops the run. */
-async function acknowledgements(engineer: DemoApiSession, deviceId: number): Promise<{ issue: string; reason: string }[]> {
+async function acknowledgements(engineer: DemoApiSession, deviceId: number, reasons: Record<string, string>): Promise<{ issue: string; reason: string }[]> {
   const { sheet } = await engineer.call<{ sheet: SheetModel }>("GET", `/api/devices/${deviceId}/sheet`);
   return sheet.issues.map((issue) => {
-    const reason = demoIssueReasons[issue.code];
+    const reason = reasons[issue.code];
     if (!reason) throw new Error(`${sheet.header.partNumber}: the demo has no reason to let the issue "${issue.message}" stand`);
     return { issue: issue.message, reason };
   });
 }
 
 /** Submits the draft (a changes-requested candidate is replaced); the one already in review when it is identical. */
-async function submitDraft(team: Team, deviceId: number, note: string): Promise<number> {
-  const body = { acknowledgements: await acknowledgements(team.engineer, deviceId), note };
+async function submitDraft(team: Team, deviceId: number, note: string, issueReasons: Record<string, string> = {}): Promise<number> {
+  const body = { acknowledgements: await acknowledgements(team.engineer, deviceId, issueReasons), note };
   const answer = await team.engineer.send<{ candidate: CandidateDetail; error?: { message: string } }>("POST", `/api/devices/${deviceId}/candidates`, body);
   if (answer.status === 201) return answer.body.candidate.id;
   const { open } = await deviceReview(team.engineer, deviceId);
@@ -82,13 +83,17 @@ async function releaseNext(team: Team, deviceId: number, notes: { submitNote: st
   return revision.letter;
 }
 
-/** The reviewer approves the device's drive sweeps of these serials that still wait for review. */
-async function approveWaitingUnits(reviewer: DemoApiSession, deviceId: number, serials: readonly string[]): Promise<number> {
+/** The reviewer approves the device's sets waiting for review that `wanted` picks. */
+async function approveWaiting(reviewer: DemoApiSession, deviceId: number, wanted: (set: MeasurementSetSummary) => boolean): Promise<void> {
   const { measurementSets } = await reviewer.call<{ measurementSets: MeasurementSetSummary[] }>("GET", "/api/measurements/pending");
-  const waiting = measurementSets.filter((s) => s.deviceId === deviceId && serials.includes(String(s.conditions.serial)));
-  for (const set of waiting) await reviewer.call("POST", `/api/measurements/${set.id}/review`, { decision: "approve" }, 200);
-  return waiting.length;
+  for (const set of measurementSets.filter((s) => s.deviceId === deviceId && wanted(s))) {
+    await reviewer.call("POST", `/api/measurements/${set.id}/review`, { decision: "approve" }, 200);
+  }
 }
+
+/** The files the demo has approved before any release (on a database the loader filled before they were, too). */
+const approvedBeforeRelease = (part: string) => (set: MeasurementSetSummary) =>
+  demoUploads.some((u) => u.part === part && u.file === set.fileName && u.approve && !u.approveAfterRevisionA);
 
 /** The sheet's limits and words as given, the rest of its content as demo-sheets.ts has it. */
 async function putSheet(engineer: DemoApiSession, deviceId: number, part: string, edits: Partial<Pick<DemoSheetContent, "limits" | "prose">> = {}) {
@@ -105,10 +110,11 @@ async function playDoublerStory(team: Team): Promise<string[]> {
   if (letters.includes("B")) return [];
   const done: string[] = [];
   if (!letters.includes("A")) {
+    await approveWaiting(team.reviewer, deviceId, approvedBeforeRelease(story.part));
     await putSheet(team.engineer, deviceId, story.part, { limits: story.limitsAtRevisionA, prose: story.proseAtRevisionA });
     done.push(`${story.part} ${await releaseNext(team, deviceId, story.revisionA)}`);
   }
-  await approveWaitingUnits(team.reviewer, deviceId, story.addedAfterRevisionA);
+  await approveWaiting(team.reviewer, deviceId, (set) => (story.addedAfterRevisionA as readonly string[]).includes(String(set.conditions.serial)));
   if ((await deviceReview(team.engineer, deviceId)).latest?.state === "released") {
     const candidateId = await submitDraft(team, deviceId, story.firstResubmission.note);
     await requestChanges(team.reviewer, candidateId, story.firstResubmission.changeRequest);
@@ -124,6 +130,7 @@ async function playFirstReleases(teamOf: (org: string) => Promise<Team>): Promis
     const team = await teamOf(release.org);
     const deviceId = await deviceIdOf(team.engineer, release.part);
     if ((await revisionLetters(team.engineer, deviceId)).length > 0) continue;
+    await approveWaiting(team.reviewer, deviceId, approvedBeforeRelease(release.part));
     done.push(`${release.part} ${await releaseNext(team, deviceId, release)}`);
   }
   return done;
@@ -150,7 +157,7 @@ async function leaveChangesRequested(team: Team): Promise<string[]> {
   const story = demoChangesRequested;
   const deviceId = await deviceIdOf(team.engineer, story.part);
   if ((await deviceReview(team.engineer, deviceId)).latest) return [];
-  await requestChanges(team.reviewer, await submitDraft(team, deviceId, story.submitNote), story.reason);
+  await requestChanges(team.reviewer, await submitDraft(team, deviceId, story.submitNote, story.issueReasons), story.reason);
   return [`${story.part} sent back with changes requested`];
 }
 

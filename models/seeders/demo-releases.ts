@@ -17,12 +17,6 @@ export interface DemoRelease {
   releaseNote: string;
 }
 
-/** Why an open issue of a demo sheet may stand, by issue code, in the words of the engineer who submits it. */
-export const demoIssueReasons: Record<string, string> = {
-  "no-approved-data":
-    "Submitted early on purpose: the ratings, features and wording are to be agreed before lot 1 goes on the bench. The figures follow from the drive sweeps.",
-};
-
 const doubler1GHz = "drive=optimum;inputFrequencyHz=1000000000;temperatureC=25";
 
 /** The doubler's limits at revision A: the conversion-loss maximum still 11.5 dB, set before the fourth unit was in. */
@@ -109,6 +103,11 @@ export const demoChangesRequested = {
   org: "pellacourt",
   part: "PX-40",
   submitNote: "Words, features and absolute maximum ratings for review ahead of the first lot.",
+  /** Why each open issue may stand, by issue code, in the engineer's words. The released sheets have none. */
+  issueReasons: {
+    "no-approved-data":
+      "Submitted early on purpose: the ratings, features and wording are to be agreed before lot 1 goes on the bench. The figures follow from the drive sweeps.",
+  } as Record<string, string>,
   reason:
     "A sheet without one approved measurement set cannot be released: the features promise low near-carrier noise with nothing behind it. Keep the wording, and resubmit once lot 1's drive sweeps and one phase-noise run have passed review.",
 };
