@@ -3,7 +3,8 @@
  * instruments, a bench token (made for this run, revoked at the end) posts the demo files to
  * POST /api/v1/measurements, a demo reviewer approves some, and engineers save their sheets'
  * limits and prose. The data are in models/seeders/demo-measurements.ts and demo-sheets.ts.
- * Runs once per database (recorded in benchfold_seeds). Needs the app at BENCHFOLD_APP_URL.
+ * Runs once per database (recorded in benchfold_seeds). Then the demo's reviews and releases
+ * (seed-demo-releases.ts), which check the sheets' state themselves. Needs the app at BENCHFOLD_APP_URL.
  */
 import { randomBytes, createHash } from "node:crypto";
 import { QueryTypes } from "sequelize";
@@ -12,6 +13,7 @@ import type { User, BenchToken } from "../models";
 import { demoInstruments, demoUploads } from "../models/seeders/demo-measurements";
 import { demoPassword } from "../models/seeders/demo-scenario";
 import { demoSheets } from "../models/seeders/demo-sheets";
+import { seedDemoReleases } from "./seed-demo-releases";
 import { signInOverHttp } from "./sign-in-over-http";
 
 const appUrl = process.env.BENCHFOLD_APP_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
@@ -37,7 +39,7 @@ async function call(session: string, method: string, url: string, body: unknown,
   return r.json();
 }
 
-async function main() {
+async function loadDemoMeasurements() {
   const { BenchToken, Device, Organization, sequelize } = db();
   await sequelize.query("CREATE TABLE IF NOT EXISTS benchfold_seeds (name VARCHAR(255) NOT NULL PRIMARY KEY)");
   const done = await sequelize.query("SELECT name FROM benchfold_seeds WHERE name = ?", { replacements: [marker], type: QueryTypes.SELECT });
@@ -78,7 +80,8 @@ async function main() {
     const r = await fetch(`${appUrl}/api/v1/measurements`, { method: "POST", headers: { authorization: `Bearer ${tokens.get(u.org)!.token}` }, body: form });
     const body = (await r.json()) as { measurementSet?: { id: number }; error?: { message: string } };
     if (r.status !== 201) throw new Error(`demo upload ${u.file} → ${u.part}: ${r.status} ${body.error?.message}`);
-    if (u.approve) toApprove.set(u.org, [...(toApprove.get(u.org) ?? []), body.measurementSet!.id]);
+    // A unit the demo's revision B adds waits for review until revision A is out (seed-demo-releases.ts).
+    if (u.approve && !u.approveAfterRevisionA) toApprove.set(u.org, [...(toApprove.get(u.org) ?? []), body.measurementSet!.id]);
   }
 
   // A second engineer (the organization's reviewer) approves some; the rest wait in the review queue.
@@ -109,6 +112,13 @@ async function main() {
     `[benchfold] demo measurements: ${demoUploads.length} files uploaded through the bench API, ${[...toApprove.values()].flat().length} approved; ` +
       `${instrumentIds.size} instruments; ${sheets} sheets with limits and prose`,
   );
+}
+
+async function main() {
+  await loadDemoMeasurements();
+  // The reviews and releases look at where each sheet stands, so they run (or carry on) every time.
+  const played = await seedDemoReleases(appUrl);
+  console.error(`[benchfold] demo reviews and releases: ${played.length ? played.join("; ") : "already there"}`);
 }
 
 main()

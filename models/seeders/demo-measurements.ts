@@ -29,6 +29,8 @@ export interface DemoUpload {
   /** Keys into demoInstruments[org]. */
   instruments: string[];
   approve: boolean;
+  /** Approved only once the device's revision A is out (the demo's revision B adds the unit; see demo-releases.ts). */
+  approveAfterRevisionA?: boolean;
   bytes: () => Buffer;
 }
 
@@ -116,13 +118,14 @@ function anotherHybridUnit(serial: string, seed: number): () => Buffer {
   };
 }
 
-const doubler = (serial: string, seed: number, measuredOn: string, approve: boolean): DemoUpload => ({
+const doubler = (serial: string, seed: number, measuredOn: string, approve: boolean, approveAfterRevisionA = false): DemoUpload => ({
   org: "kestrine",
   part: "KDX-2G4",
   file: `drive-sweep-${serial.toLowerCase()}.csv`,
   fields: { measuredOn },
   instruments: ["source", "analyzer"],
   approve,
+  approveAfterRevisionA,
   bytes: anotherDoublerUnit(serial, seed),
 });
 
@@ -151,7 +154,7 @@ export const demoUploads: DemoUpload[] = [
   { org: "kestrine", part: "KDX-2G4", file: "drive-sweep-doubler.csv", fields: { measuredOn: "2026-10-05" }, instruments: ["source", "analyzer"], approve: true, bytes: example("drive-sweep-doubler.csv") },
   doubler("BFD-0002", 11, "2026-10-05", true),
   doubler("BFD-0003", 12, "2026-10-06", true),
-  doubler("BFD-0004", 13, "2026-10-06", true),
+  doubler("BFD-0004", 13, "2026-10-06", true, true),
   doubler("BFD-0005", 14, "2026-10-07", false),
   { org: "kestrine", part: "KDX-2G4", file: "phase-noise-doubler.csv", fields: { measuredOn: "2026-10-09" }, instruments: ["source", "phaseNoise"], approve: true, bytes: example("phase-noise-doubler.csv") },
   { org: "kestrine", part: "KM-7H", file: "frequency-sweep-mixer.csv", fields: { measuredOn: "2026-09-22" }, instruments: ["source", "analyzer"], approve: true, bytes: example("frequency-sweep-mixer.csv") },
@@ -162,7 +165,7 @@ export const demoUploads: DemoUpload[] = [
   { org: "kestrine", part: "KQH-2G", file: "hybrid-4port.s4p", fields: { serial: "BFD-0401", lot: "L2610", temperatureC: "25", measuredOn: "2026-11-03" }, instruments: ["vna"], approve: true, bytes: example("hybrid-4port.s4p") },
   hybrid("BFD-0402", 31, "2026-11-03"),
   hybrid("BFD-0403", 32, "2026-11-04"),
-  { org: "pellacourt", part: "PS-2W", file: "splitter-3port.s3p", fields: { serial: "PS-0007", temperatureC: "25", measuredOn: "2026-08-17" }, instruments: ["vna"], approve: false, bytes: example("splitter-3port.s3p") },
+  { org: "pellacourt", part: "PS-2W", file: "splitter-3port.s3p", fields: { serial: "PS-0007", temperatureC: "25", measuredOn: "2026-08-17" }, instruments: ["vna"], approve: true, bytes: example("splitter-3port.s3p") },
   { org: "wrenfield-lab", part: "WL-C2611-KDX", file: "drive-sweep-doubler.csv", fields: { measuredOn: "2026-11-12" }, instruments: ["source", "analyzer"], approve: true, bytes: example("drive-sweep-doubler.csv") },
   { org: "wrenfield-lab", part: "WL-C2611-KDX", file: "phase-noise-doubler.csv", fields: { measuredOn: "2026-11-13" }, instruments: ["source"], approve: false, bytes: example("phase-noise-doubler.csv") },
 ];

@@ -138,15 +138,16 @@ export const demoSheets: Record<string, DemoSheetContent> = {
     [{ label: "RF input power", value: "+20", unit: "dBm" }, { label: "LO input power", value: "+23", unit: "dBm" }, { label: "IF current", value: "50", unit: "mA" }, ...temperatures("−40 to +85", "−55 to +100"), esd("1A")],
   ),
   "PS-2W": {
-    ...shell(
-      "The **PS-2W** splits 0.5–3 GHz into two in-phase outputs. Its first measurement set is waiting for review.",
-      "- In-phase (0°) two-way split\n- Resistive-reactive design for wide bandwidth",
-      [{ label: "Input power, CW", value: "1", unit: "W" }, ...temperatures("−55 to +85", "−55 to +125"), esd("2")],
-    ),
+    // One unit: typical values only; a limit on one unit could not be supported (Cpk needs two).
+    limits: [],
     prose: {
-      description: "The **PS-2W** splits 0.5–3 GHz into two in-phase outputs. Its first measurement set is waiting for review.",
+      description:
+        "The **PS-2W** splits a signal into two in-phase outputs of equal amplitude. This sheet gives the typical values of one characterized unit, PS-0007, between 0.5 and 2.5 GHz; guaranteed limits and the band up to 3 GHz follow with the first production lot.",
       features: "- In-phase (0°) two-way split\n- Resistive-reactive design for wide bandwidth",
       applications: "- Local-oscillator distribution\n- Feeding both ports of a mixer used as a doubler\n- Power combining",
+      "test-fixture": "Three-port S-parameters from 0.5 to 2.5 GHz on a 50 Ω test board, its lines de-embedded. Port 1 common, ports 2 and 3 outputs.",
     },
+    absoluteMaximumRatings: [{ label: "Input power, CW", value: "1", unit: "W" }, ...temperatures("−55 to +85", "−55 to +125"), esd("2")],
+    measurementUncertainty: { "insertion-loss": 0.08, "amplitude-balance": 0.08, isolation: 0.3 },
   },
 };

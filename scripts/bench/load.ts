@@ -4,7 +4,8 @@
  * loaded. For a workspace page, a JSON list and a sheet PDF already cached: requests per second,
  * p50/p95 latency, errors, and the server's resident memory before, right after and a few
  * seconds after the run. The PDF's reference run in the same process is a fresh render (a changed
- * device description makes a new model; the description is put back afterwards). Nothing is asserted:
+ * device description makes a new model; the description is put back afterwards). Then the download
+ * of the demo doubler's released PDF against a plain node:http server (released-download.ts). Nothing is asserted:
  * timings live here, never in the tests. Skipped with a note when no server answers.
  *
  *   BENCH_LOAD_CLIENTS (50), BENCH_LOAD_SECONDS (60), BENCH_LOAD_FRESH_RENDERS (4)
@@ -12,6 +13,8 @@
 import { execFileSync } from "node:child_process";
 import { readFileSync } from "node:fs";
 import { signInOverHttp } from "../sign-in-over-http";
+import { hammer, loadHeader, loadRow, type LoadResult } from "./http-load";
+import { benchReleasedDownload } from "./released-download";
 
 const baseUrl = process.env.BENCHFOLD_BENCH_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
 const clients = Number(process.env.BENCH_LOAD_CLIENTS ?? 50);
@@ -31,33 +34,6 @@ function serverRssMb(): number | null {
   } catch {
     return null;
   }
-}
-
-const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))];
-
-async function hammer(path: string, cookie: string) {
-  const latencies: number[] = [];
-  const failures = new Map<string, number>();
-  const deadline = performance.now() + seconds * 1000;
-  const client = async () => {
-    while (performance.now() < deadline) {
-      const started = performance.now();
-      try {
-        const response = await fetch(`${baseUrl}${path}`, { headers: { cookie } });
-        await response.arrayBuffer();
-        if (!response.ok) failures.set(String(response.status), (failures.get(String(response.status)) ?? 0) + 1);
-      } catch (error) {
-        const key = (error as Error).message;
-        failures.set(key, (failures.get(key) ?? 0) + 1);
-      }
-      latencies.push(performance.now() - started);
-    }
-  };
-  const started = performance.now();
-  await Promise.all(Array.from({ length: clients }, client));
-  const elapsedS = (performance.now() - started) / 1000;
-  latencies.sort((a, b) => a - b);
-  return { requests: latencies.length, perSecond: latencies.length / elapsedS, p50: percentile(latencies, 50), p95: percentile(latencies, 95), failures };
 }
 
 async function freshPdfSeconds(cookie: string, deviceId: number): Promise<number> {
@@ -108,25 +84,22 @@ async function main() {
   console.log(`\nLoad: ${clients} concurrent clients, ${seconds} s per target, against ${baseUrl}, node ${process.version}`);
   const rssStart = serverRssMb();
   const rows: string[] = [];
-  const results: Record<string, Awaited<ReturnType<typeof hammer>>> = {};
+  const results: Record<string, LoadResult> = {};
   for (const [name, path] of [
     ["workspace page /devices", "/devices"],
     ["JSON list /api/devices", "/api/devices"],
     ["cached sheet PDF", pdfPath],
   ] as const) {
-    const result = await hammer(path, cookie);
+    const result = await hammer(`${baseUrl}${path}`, { clients, seconds, headers: { cookie } });
     results[name] = result;
-    const failures = [...result.failures].map(([k, n]) => `${k}×${n}`).join(", ") || "none";
-    rows.push(
-      `${name.padEnd(26)} ${String(result.requests).padStart(8)} ${result.perSecond.toFixed(1).padStart(8)} ${result.p50.toFixed(1).padStart(8)} ${result.p95.toFixed(1).padStart(8)}   ${failures}`,
-    );
+    rows.push(loadRow(name, result));
   }
   const rssEnd = serverRssMb();
   await new Promise((resolve) => setTimeout(resolve, 5000));
   const rssSettled = serverRssMb();
   const freshS = await freshPdfSeconds(cookie, doubler.id);
 
-  console.log(`${"target".padEnd(26)} ${"requests".padStart(8)} ${"req/s".padStart(8)} ${"p50 ms".padStart(8)} ${"p95 ms".padStart(8)}   errors`);
+  console.log(loadHeader());
   for (const row of rows) console.log(row);
   const cached = results["cached sheet PDF"].perSecond;
   console.log(
@@ -138,6 +111,7 @@ async function main() {
     `server RSS: before ${mb(rssStart)}, right after ${mb(rssEnd)}, 5 s later ${mb(rssSettled)}` +
       (rssStart && rssSettled ? ` (settled ÷ before: ${(rssSettled / rssStart).toFixed(2)})` : ""),
   );
+  await benchReleasedDownload({ baseUrl, clients, seconds, org: "kestrine", part: "KDX-2G4" });
 }
 
 main().catch((error) => {

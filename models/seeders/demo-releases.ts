@@ -1,0 +1,113 @@
+/**
+ * The demo scenario's reviews and releases: which sheets go out as which revision, what the
+ * engineers and reviewers wrote on the way, and which sheets are left mid-review. Invented, like
+ * the rest of the demo. Played through the app's API by scripts/seed-demo-releases.ts after the
+ * demo measurements are in; the draft sheets end as demo-sheets.ts and demo-measurements.ts state
+ * them, so the draft snapshots of the unit tests still hold.
+ */
+import { demoSheets, type DemoSheetContent } from "./demo-sheets";
+
+export type DemoRole = "engineer" | "reviewer";
+
+/** One sheet released as its next revision: the engineer's note to the reviewer and the release note. */
+export interface DemoRelease {
+  org: string;
+  part: string;
+  submitNote: string;
+  releaseNote: string;
+}
+
+const doubler1GHz = "drive=optimum;inputFrequencyHz=1000000000;temperatureC=25";
+
+/** The doubler's limits at revision A: the conversion-loss maximum still 11.5 dB, set before the fourth unit was in. */
+function limitsAtRevisionA(): DemoSheetContent["limits"] {
+  return demoSheets["KDX-2G4"].limits.map((limit) =>
+    limit.parameter === "conversion-loss" && limit.conditionsKey === doubler1GHz ? { ...limit, max: 11.5 } : limit,
+  );
+}
+
+/** The doubler's words at revision A: the features line promised what the 11.5 dB limit guaranteed. */
+function proseAtRevisionA(): DemoSheetContent["prose"] {
+  const prose = demoSheets["KDX-2G4"].prose;
+  return { ...prose, features: prose.features?.replace("Conversion loss below 11 dB", "Conversion loss below 11.5 dB") };
+}
+
+/**
+ * The Kestrine doubler: revision A from three units (BFD-0004's drive sweep waits for review,
+ * see demo-measurements.ts) with a conversion-loss maximum of 11.5 dB (and a features line to match); then BFD-0004 is
+ * approved, the reviewer sends the first resubmission back, the engineer tightens the maximum to
+ * 11.0 dB and puts the feature line right (the content of demo-sheets.ts) and revision B goes out.
+ */
+export const demoDoublerStory = {
+  org: "kestrine",
+  part: "KDX-2G4",
+  limitsAtRevisionA: limitsAtRevisionA(),
+  proseAtRevisionA: proseAtRevisionA(),
+  /** Serials approved only after revision A is released. */
+  addedAfterRevisionA: ["BFD-0004"],
+  revisionA: {
+    submitNote:
+      "First release of the KDX-2G4: units BFD-0001 to BFD-0003 from the October build, plus the residual phase-noise run. BFD-0004's sweep is still in review, so conversion loss is guaranteed at 11.5 dB for now.",
+    releaseNote: "Initial release from three production units; the conversion-loss maximum keeps a margin until the fourth unit is reviewed.",
+  },
+  /** The first submission after BFD-0004 was approved, with the old limit; the reviewer sends it back. */
+  firstResubmission: {
+    note: "BFD-0004 added to the sheet; limits unchanged from revision A.",
+    changeRequest:
+      "With BFD-0004 in, all four units sit well inside 11.5 dB at optimum drive. Tighten the conversion-loss maximum to 11.0 dB as we agreed at revision A, so the sheet states what production test actually screens.",
+  },
+  revisionB: {
+    submitNote: "Conversion-loss maximum tightened from 11.5 to 11.0 dB on the four-unit spread, as requested, and the features line says so.",
+    releaseNote:
+      "Fourth unit (BFD-0004) added to the test population; conversion-loss maximum tightened from 11.5 dB to 11.0 dB.",
+  },
+} as const;
+
+/** Sheets released once, as revision A. */
+export const demoFirstReleases: DemoRelease[] = [
+  {
+    org: "kestrine",
+    part: "KM-7H",
+    submitNote: "Four units at +7 dBm LO across 500–3000 MHz. The two-tone intercept set is still in review and is not part of this sheet.",
+    releaseNote: "First release: four units, conversion loss and LO-to-RF isolation. Intercept figures follow in a later revision.",
+  },
+  {
+    org: "kestrine",
+    part: "KQH-2G",
+    submitNote: "Three units of lot L2610 on the four-port board, TRL-corrected. VSWR is stated as characterization only.",
+    releaseNote: "First release: three units of lot L2610, 1.5–2.5 GHz.",
+  },
+  {
+    org: "pellacourt",
+    part: "PS-2W",
+    submitNote: "One unit (PS-0007) measured from 0.5 to 2.5 GHz. Typical values only: no limit is guaranteed until a production lot is measured.",
+    releaseNote: "First release, from one characterized unit: typical values, no guaranteed limits.",
+  },
+];
+
+/** A sheet left in review with a comment thread: the reviewer on a spec-table row, the engineer's reply. */
+export const demoOpenReview = {
+  org: "wrenfield-lab",
+  part: "WL-C2611-KDX",
+  submitNote: "Characterization of one unit of the customer's lot 2611, used as a doubler. Phase noise is not included yet.",
+  comment: {
+    parameter: "conversion-loss",
+    body: "The typical conversion loss rests on a single unit of lot 2611. Name the per-port drive it was read at in the row's footnote, so the customer can repeat the measurement on their own bench.",
+  },
+  reply:
+    "Agreed. It is the unit's optimum drive, as in the optimum-drive row; I'll name it in the footnote and resubmit together with the phase-noise set of 13 November once that has passed review.",
+};
+
+/** A sheet the reviewer sent back, with the reason. */
+export const demoChangesRequested = {
+  org: "pellacourt",
+  part: "PX-40",
+  submitNote: "Words, features and absolute maximum ratings for review ahead of the first lot.",
+  /** Why each open issue may stand, by issue code, in the engineer's words. The released sheets have none. */
+  issueReasons: {
+    "no-approved-data":
+      "Submitted early on purpose: the ratings, features and wording are to be agreed before lot 1 goes on the bench. The figures follow from the drive sweeps.",
+  } as Record<string, string>,
+  reason:
+    "A sheet without one approved measurement set cannot be released: the features promise low near-carrier noise with nothing behind it. Keep the wording, and resubmit once lot 1's drive sweeps and one phase-noise run have passed review.",
+};

@@ -1,0 +1,119 @@
+import { createHash } from "node:crypto";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { CandidateDetail, CandidateSummary, RevisionSummary } from "@/lib/domain/reviews";
+import type { SheetModel } from "@/lib/sheet";
+import { closeDb, db } from "@/models";
+import { demoChangesRequested, demoDoublerStory, demoOpenReview } from "@/models/seeders/demo-releases";
+import { demoOrganizations, demoPassword } from "@/models/seeders/demo-scenario";
+import { TestClient } from "./helpers/client";
+
+/**
+ * What the demo loader (scripts/seed-demo-releases.ts, run before the integration tests) leaves:
+ * read over HTTP as the demo's own people see it.
+ */
+const signedIn = new Map<string, TestClient>();
+afterAll(() => closeDb());
+
+async function person(org: string, role: "engineer" | "reviewer"): Promise<TestClient> {
+  const key = `${org}/${role}`;
+  if (!signedIn.has(key)) {
+    const email = demoOrganizations.find((o) => o.slug === org)!.users.find((u) => u.role === role)!.email;
+    const client = new TestClient();
+    expect((await client.signIn(email, demoPassword)).ok).toBe(true);
+    signedIn.set(key, client);
+  }
+  return signedIn.get(key)!;
+}
+
+async function getJson<T>(client: TestClient, path: string): Promise<T> {
+  const r = await client.request(path);
+  expect(r.status, path).toBe(200);
+  return (await r.json()) as T;
+}
+
+async function deviceId(org: string, part: string): Promise<number> {
+  const { devices } = await getJson<{ devices: { id: number; partNumber: string }[] }>(await person(org, "engineer"), "/api/devices");
+  return devices.find((d) => d.partNumber === part)!.id;
+}
+
+async function revisions(org: string, part: string): Promise<RevisionSummary[]> {
+  return (await getJson<{ revisions: RevisionSummary[] }>(await person(org, "engineer"), `/api/devices/${await deviceId(org, part)}/revisions`)).revisions;
+}
+
+async function review(org: string, part: string): Promise<{ open: CandidateSummary | null; latest: CandidateSummary | null }> {
+  return getJson(await person(org, "engineer"), `/api/devices/${await deviceId(org, part)}/review`);
+}
+
+describe("the demo's releases", () => {
+  let doubler: RevisionSummary[];
+  beforeAll(async () => {
+    doubler = await revisions("kestrine", "KDX-2G4");
+  });
+
+  it("show the Kestrine KDX-2G4 as revision B (current) over A (superseded), each signed by the demo reviewer", () => {
+    expect(doubler.map((r) => [r.letter, r.standing])).toEqual([
+      ["B", "current"],
+      ["A", "superseded"],
+    ]);
+    for (const r of doubler) {
+      expect(r.signers.map((s) => s.name)).toEqual(["Hiroshi Tanabe"]);
+      expect(r.releasedBy.name).toBe("Elena Marchetti");
+    }
+    expect(doubler[0].notes.at(-1)).toBe(demoDoublerStory.revisionB.releaseNote);
+    // B's generated notes (the diff against A) name the tightened limit and the added unit.
+    expect(doubler[0].notes.some((n) => /^Conversion loss.*11\.50\sdB → 11\.00\sdB/.test(n)), doubler[0].notes.join(" | ")).toBe(true);
+    expect(doubler[0].notes.some((n) => n.includes("BFD-0004"))).toBe(true);
+    expect(doubler[1].notes).toEqual(["First release.", demoDoublerStory.revisionA.releaseNote]);
+  });
+
+  it("serve A and B as different stored PDFs whose bytes match their SHA-256, to anyone", async () => {
+    const anonymous = new TestClient();
+    for (const r of doubler) {
+      const pdf = await anonymous.request(r.pdfPath);
+      expect(pdf.status).toBe(200);
+      const bytes = Buffer.from(await pdf.arrayBuffer());
+      expect(createHash("sha256").update(bytes).digest("hex")).toBe(r.pdfSha256);
+    }
+    expect(doubler[0].pdfSha256).not.toBe(doubler[1].pdfSha256);
+  });
+
+  it("tightened the conversion-loss maximum from 11.5 dB at A to 11.0 dB at B, and B counts the fourth unit", async () => {
+    const { SheetRevision } = db();
+    // The frozen models, read from MariaDB: what each revision's page and PDF were made from.
+    const models = await Promise.all(doubler.map(async (r) => JSON.parse((await SheetRevision.unscoped().findByPk(r.id, { attributes: ["modelJson"] }))!.modelJson) as SheetModel));
+    const conversionLoss = (m: (typeof models)[number]) => m.statistics.groups.find((g) => g.parameter === "conversion-loss")!;
+    const [b, a] = models.map(conversionLoss);
+    expect([a.limits?.max.value, b.limits?.max.value]).toEqual([11.5, 11]);
+    expect([a.n, b.n]).toEqual([3, 4]);
+  });
+
+  it("released the mixer, the hybrid and the Pellacourt splitter as revision A", async () => {
+    for (const [org, part] of [
+      ["kestrine", "KM-7H"],
+      ["kestrine", "KQH-2G"],
+      ["pellacourt", "PS-2W"],
+    ]) {
+      expect((await revisions(org, part)).map((r) => [r.letter, r.standing]), part).toEqual([["A", "current"]]);
+    }
+  });
+
+  it("leaves one sheet in review with the reviewer's comment on a spec row and the engineer's reply", async () => {
+    const { open } = await review(demoOpenReview.org, demoOpenReview.part);
+    expect(open?.state).toBe("in-review");
+    const { candidate } = await getJson<{ candidate: CandidateDetail }>(await person(demoOpenReview.org, "reviewer"), `/api/sheet-candidates/${open!.id}`);
+    const [first, reply] = candidate.comments;
+    expect(candidate.comments).toHaveLength(2);
+    expect(first).toMatchObject({ parentId: null, body: demoOpenReview.comment.body, author: { name: "Priya Raman" }, anchor: { kind: "row" } });
+    expect(first.anchor.label).toMatch(/^Conversion loss/);
+    expect(reply).toMatchObject({ parentId: first.id, body: demoOpenReview.reply, author: { name: "Tomas Lindqvist" }, anchor: first.anchor });
+    expect(await revisions(demoOpenReview.org, demoOpenReview.part)).toEqual([]);
+  });
+
+  it("leaves one sheet sent back with the reviewer's reason", async () => {
+    const { open } = await review(demoChangesRequested.org, demoChangesRequested.part);
+    expect(open).toMatchObject({ state: "changes-requested", changeRequest: demoChangesRequested.reason });
+    const { candidate } = await getJson<{ candidate: CandidateDetail }>(await person(demoChangesRequested.org, "engineer"), `/api/sheet-candidates/${open!.id}`);
+    expect(candidate.acknowledgements.map((a) => a.code)).toEqual(["no-approved-data"]);
+    expect(candidate.acknowledgements[0].reason.length).toBeGreaterThan(40);
+  });
+});
