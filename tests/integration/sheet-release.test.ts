@@ -5,6 +5,7 @@ import type { CandidateDetail, RevisionSummary } from "@/lib/domain/reviews";
 import type { SheetModel } from "@/lib/sheet";
 import { closeDb, db } from "@/models";
 import { TestClient } from "./helpers/client";
+import { mailsTo, setFakeSmtpListening } from "./helpers/mailbox";
 import { clientsByRole, factoryPassword, makeOrganization, type Who } from "./helpers/factories";
 import {
   acknowledgeAll,
@@ -318,4 +319,39 @@ describe("state × action × role", () => {
       }, 60_000);
     }
   }
+});
+
+describe("notices through the outbox", () => {
+  it("a release during an SMTP outage loses no notice and sends none twice: exactly one mail per recipient once SMTP is back", async () => {
+    const made = await makeOrganization();
+    const people = await clientsByRole(made);
+    const eng = people.get("engineer")!;
+    const rev = people.get("reviewer")!;
+    const deviceId = await deviceWithApprovedData(made.organization.id, eng, rev);
+    const candidate = await submitDraft(eng, deviceId);
+    expect((await sign(rev, candidate.id)).status).toBe(200);
+    const recipients = [made.users.engineer.email, made.users.reviewer.email];
+    const released = (m: { subject: string }) => /released as revision A/.test(m.subject);
+    await setFakeSmtpListening(false);
+    try {
+      expect((await release(eng, candidate.id)).status).toBe(201);
+      // The worker tries and fails while the port is closed; nothing is marked sent.
+      await new Promise((resolve) => setTimeout(resolve, 2_000));
+      const [{ sent }] = await db().sequelize.query<{ sent: number }>(
+        "SELECT COUNT(sent_at) AS sent FROM outbox_messages WHERE event_key = ?",
+        { type: QueryTypes.SELECT, replacements: [`sheet-candidate:${candidate.id}:released`] },
+      );
+      expect(Number(sent)).toBe(0);
+      for (const to of recipients) expect((await mailsTo(to)).filter(released)).toEqual([]);
+    } finally {
+      await setFakeSmtpListening(true);
+    }
+    const until = Date.now() + 90_000;
+    while (Date.now() < until && !(await Promise.all(recipients.map(async (to) => (await mailsTo(to)).some(released)))).every(Boolean)) {
+      await new Promise((resolve) => setTimeout(resolve, 500));
+    }
+    // A little longer, so a second copy would have time to arrive.
+    await new Promise((resolve) => setTimeout(resolve, 2_000));
+    for (const to of recipients) expect((await mailsTo(to)).filter(released).length, to).toBe(1);
+  }, 120_000);
 });

@@ -1,5 +1,5 @@
 import "server-only";
-import { Op } from "sequelize";
+import { Op, QueryTypes } from "sequelize";
 import { AppError } from "@/lib/errors";
 import { datasheetPath, datasheetPdfPath, type RevisionStanding, type RevisionSummary } from "@/lib/domain/reviews";
 import type { SheetModel } from "@/lib/sheet";
@@ -98,4 +98,45 @@ export async function readRevisionPdf(revisionId: number): Promise<{ pdf: Buffer
   const row = await db().SheetRevision.unscoped().findByPk(revisionId, { attributes: ["pdf", "pdfSha256"] });
   if (!row) throw new AppError("not-found", "No such revision.");
   return { pdf: row.pdf, sha256: row.pdfSha256 };
+}
+
+export type ReleasedPdf = { revisionId: number; letter: string; standing: RevisionStanding; sha256: string; pdf: Buffer };
+
+// A revision's PDF bytes never change (the table refuses it), so the last few are kept in memory by
+// revision id; only the revision's standing (current, superseded, withdrawn) is read each time.
+const PDF_ENTRIES = 32;
+const pdfBytes = new Map<number, Buffer>();
+
+/**
+ * The stored PDF of a released revision by its public address, in one indexed query (the letter, or
+ * the newest revision not withdrawn for "current", with its standing) and, unless it is among the
+ * last few sent, one read of the bytes: a download is a lookup and a send.
+ */
+export async function findReleasedPdf(opts: { organizationSlug: string; partNumber: string; revision: string }): Promise<ReleasedPdf> {
+  const current = opts.revision === "current";
+  const rows = await db().sequelize.query<{ id: number; letter: string; pdf_sha256: string; withdrawn: number; superseded: number }>(
+    `SELECT r.id, r.letter, r.pdf_sha256,
+            EXISTS (SELECT 1 FROM sheet_revision_withdrawals w WHERE w.revision_id = r.id) AS withdrawn,
+            EXISTS (SELECT 1 FROM sheet_revisions n WHERE n.previous_revision_id = r.id) AS superseded
+       FROM organizations o
+       JOIN devices d ON d.organization_id = o.id AND d.part_number = :part
+       JOIN sheet_revisions r ON r.device_id = d.id
+      WHERE o.slug = :slug AND (:current OR r.letter = :letter)
+        ${current ? "AND NOT EXISTS (SELECT 1 FROM sheet_revision_withdrawals w WHERE w.revision_id = r.id)" : ""}
+      ORDER BY r.sequence DESC LIMIT 1`,
+    { type: QueryTypes.SELECT, replacements: { slug: opts.organizationSlug, part: opts.partNumber, current, letter: opts.revision } },
+  );
+  const row = rows[0];
+  // "current" is the newest revision, and only while it is not withdrawn.
+  if (!row || (current && Number(row.superseded))) throw new AppError("not-found", "No such released sheet.");
+  const standing: RevisionStanding = Number(row.withdrawn) ? "withdrawn" : Number(row.superseded) ? "superseded" : "current";
+  let pdf = pdfBytes.get(row.id);
+  if (pdf) {
+    pdfBytes.delete(row.id);
+  } else {
+    pdf = (await readRevisionPdf(row.id)).pdf;
+  }
+  pdfBytes.set(row.id, pdf);
+  if (pdfBytes.size > PDF_ENTRIES) pdfBytes.delete(pdfBytes.keys().next().value!);
+  return { revisionId: row.id, letter: row.letter, standing, sha256: row.pdf_sha256, pdf };
 }

@@ -1,5 +1,5 @@
 import { route } from "@/lib/server/auth/guard";
-import { findReleasedRevision, readRevisionPdf } from "@/lib/server/reviews/list-revisions";
+import { findReleasedPdf } from "@/lib/server/reviews/list-revisions";
 import { sheetPdfFileName } from "@/lib/sheet/file-name";
 
 export const dynamic = "force-dynamic";
@@ -10,19 +10,17 @@ export const dynamic = "force-dynamic";
  * names whichever revision is current now and is revalidated on every use.
  */
 export const GET = route({ resource: "released-sheets" }, async ({ params, request }) => {
-  const { summary } = await findReleasedRevision({ organizationSlug: params.org, partNumber: params.part, revision: params.rev });
-  const etag = `"${summary.pdfSha256}"`;
+  const released = await findReleasedPdf({ organizationSlug: params.org, partNumber: params.part, revision: params.rev });
+  const etag = `"${released.sha256}"`;
   const inline = new URL(request.url).searchParams.get("download") !== "1";
-  const partNumber = decodeURIComponent(params.part);
   const headers: Record<string, string> = {
-    "content-disposition": `${inline ? "inline" : "attachment"}; filename="${sheetPdfFileName(partNumber, summary.letter)}"`,
-    "cache-control": params.rev === "current" || summary.standing === "withdrawn" ? "public, no-cache" : "public, max-age=31536000, immutable",
+    "content-disposition": `${inline ? "inline" : "attachment"}; filename="${sheetPdfFileName(params.part, released.letter)}"`,
+    "cache-control": params.rev === "current" || released.standing === "withdrawn" ? "public, no-cache" : "public, max-age=31536000, immutable",
     etag,
-    "x-benchfold-revision": summary.letter,
-    "x-benchfold-standing": summary.standing,
+    "x-benchfold-revision": released.letter,
+    "x-benchfold-standing": released.standing,
   };
   const wanted = request.headers.get("if-none-match");
   if (wanted && wanted.split(",").some((tag) => tag.trim() === etag)) return new Response(null, { status: 304, headers });
-  const { pdf } = await readRevisionPdf(summary.id);
-  return new Response(new Uint8Array(pdf), { headers: { ...headers, "content-type": "application/pdf", "content-length": String(pdf.length) } });
+  return new Response(new Uint8Array(released.pdf), { headers: { ...headers, "content-type": "application/pdf", "content-length": String(released.pdf.length) } });
 });
