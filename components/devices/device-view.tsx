@@ -2,6 +2,8 @@ import Link from "next/link";
 import type { DeviceSummary } from "@/lib/domain/devices";
 import type { InstrumentSummary } from "@/lib/domain/instruments";
 import type { MeasurementSetSummary } from "@/lib/domain/measurements";
+import type { RevisionSummary } from "@/lib/domain/reviews";
+import { RevisionHistory } from "@/components/review/revision-history";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { MeasurementSetsTable } from "@/components/measurements/measurement-sets-table";
@@ -13,13 +15,17 @@ type DeviceViewProps = {
   device: DeviceSummary;
   organizationName: string;
   sets: MeasurementSetSummary[];
+  /** The device's released sheet revisions, newest first. */
+  revisions: RevisionSummary[];
+  /** The sheet workspace, for a role that opens drafts. */
+  sheetHref: string | null;
   /** Present when the viewer may upload. */
   upload: { instruments: InstrumentSummary[] } | null;
   /** The viewer may change the device's number, class, title and key conditions. */
   canEdit: boolean;
 };
 
-export function DeviceView({ device, organizationName, sets, upload, canEdit }: DeviceViewProps) {
+export function DeviceView({ device, organizationName, sets, revisions, sheetHref, upload, canEdit }: DeviceViewProps) {
   const supersedable = sets
     .filter((s) => !s.supersededById)
     .map((s) => ({ id: s.id, kind: s.kind, fileName: s.fileName, serial: s.conditions.serial }));
@@ -58,6 +64,18 @@ export function DeviceView({ device, organizationName, sets, upload, canEdit }: 
           <MeasurementSetsTable deviceId={device.id} sets={sets} />
         )}
       </section>
+
+      <div className="mb-12">
+        <RevisionHistory
+          revisions={revisions}
+          emptyText="No revision of this device's sheet has been released yet. Each release appears here, newest first, with its signers, notes and PDF."
+        />
+        {sheetHref ? (
+          <p className="mt-3 text-[0.9375rem]">
+            <Link href={sheetHref}>Sheet draft, review and release</Link>
+          </p>
+        ) : null}
+      </div>
 
       {upload ? <UploadPanel deviceId={device.id} instruments={upload.instruments} supersedable={supersedable} /> : null}
     </>

@@ -1,22 +1,29 @@
 import type { MeasurementSetSummary } from "@/lib/domain/measurements";
+import type { CandidateSummary } from "@/lib/domain/reviews";
+import { SheetReviewQueue } from "@/components/review/sheet-review-queue";
 import { EmptyState } from "@/components/ui/empty-state";
-import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { kindLabel } from "@/lib/domain/measurements";
 import { ScrollTable } from "@/components/ui/scroll-table";
 import { SetFileCell, SetLink, SetUploadedCell } from "./set-cells";
 
-type ReviewQueueViewProps = { organizationName: string; sets: MeasurementSetSummary[] };
+type ReviewQueueViewProps = {
+  organizationName: string;
+  sets: MeasurementSetSummary[];
+  /** Sheet candidates waiting for the viewer, or null for a role that does not review sheets. */
+  sheets: CandidateSummary[] | null;
+};
 
-/** The reviewer's queue: submitted measurement sets, oldest first, never their own uploads. */
-export function ReviewQueueView({ organizationName, sets }: ReviewQueueViewProps) {
+/** The reviewer's queue: sheets submitted for review and measurement sets, oldest first, never their own. */
+export function ReviewQueueView({ organizationName, sets, sheets }: ReviewQueueViewProps) {
   return (
     <>
       <PageHeader
         runningHead={organizationName}
         title="Review queue"
-        lead="Measurement sets waiting for a second engineer's decision, oldest first. Open a set to see its conditions, derived figures and curves, then approve it or reject it with a reason."
+        lead="Sheets and measurement sets waiting for a second person's decision, oldest first. Open a sheet to read it as it will print beside what changed since its last release; open a set to see its conditions, derived figures and curves."
       />
+      {sheets ? <SheetReviewQueue candidates={sheets} /> : null}
       <section aria-labelledby="pending-sets-title" className="mb-12">
         <h2 id="pending-sets-title" className="mb-4 text-xl font-semibold">
           Measurement sets <span className="figure text-base font-normal text-ink-muted">({sets.length})</span>
@@ -60,9 +67,6 @@ export function ReviewQueueView({ organizationName, sets }: ReviewQueueViewProps
           </ScrollTable>
         )}
       </section>
-      <div className="max-w-prose">
-        <Notice>Datasheet reviews, with the difference from the last release and an electronic signature, arrive with the sheets feature; only measurement sets are reviewed here for now.</Notice>
-      </div>
     </>
   );
 }

@@ -18,6 +18,8 @@ type SheetWorkspaceProps = {
   approvedSetCount: number;
   /** The web sheet, rendered on the server. */
   sheetView: ReactNode;
+  /** Where the sheet stands in review, the submission and release forms, and its revision history. */
+  reviewPanel: ReactNode;
 };
 
 // The site's own header and footer carry no print rule of their own; on this page the printout is the sheet.
@@ -27,7 +29,7 @@ const printSheetOnly = `@media print {
 }`;
 
 /** The preview workspace of one draft sheet: issues, the figures and their data, web and PDF side by side, and the editors. */
-export function SheetWorkspace({ deviceId, canEdit, model, content, template, approvedSetCount, sheetView }: SheetWorkspaceProps) {
+export function SheetWorkspace({ deviceId, canEdit, model, content, template, approvedSetCount, sheetView, reviewPanel }: SheetWorkspaceProps) {
   const router = useRouter();
   const [refreshing, startRefresh] = useTransition();
   const [pdfVersion, setPdfVersion] = useState(0);
@@ -61,6 +63,8 @@ export function SheetWorkspace({ deviceId, canEdit, model, content, template, ap
       <WorkspaceHeader model={model} deviceId={deviceId} approvedSetCount={approvedSetCount} />
 
       <WorkspaceIssues model={model} />
+
+      {reviewPanel}
 
       {visibleTabs.length > 1 ? (
         <WorkspaceTabList visibleTabs={visibleTabs} tab={tab} refreshing={refreshing} onSelect={selectTab} onTabKey={onTabKey} />

@@ -5,10 +5,13 @@ import { allows } from "@/lib/access/matrix";
 import { buildSheetModel } from "@/lib/sheet";
 import { loadForPage, requirePageUser } from "@/lib/server/auth/require-page-user";
 import { renderSheetChartSvgs } from "@/lib/server/charts/render-chart";
+import { findDeviceReview } from "@/lib/server/reviews/list-pending-candidates";
+import { listDeviceRevisions } from "@/lib/server/reviews/list-revisions";
 import { loadDraftSheet } from "@/lib/server/sheets/load-draft-sheet";
 import { findSheetTemplate } from "@/templates";
 import { SheetView } from "@/components/sheet/sheet-view";
 import { SheetViewWithCharts } from "@/components/sheets/sheet-view-with-charts";
+import { ReviewReleasePanel } from "@/components/sheets/review-release-panel";
 import { SheetWorkspace } from "@/components/sheets/sheet-workspace";
 import { parseRecordId } from "@/lib/schemas/decimal";
 
@@ -22,7 +25,9 @@ export default async function SheetPage({ params }: Props) {
   const deviceId = parseRecordId(idText);
   if (deviceId === undefined) notFound();
   // The same input the JSON and PDF routes build from, loaded once: the model for the preview, the raw text for the editors.
-  const input = await loadForPage(() => loadDraftSheet(user, deviceId));
+  const [input, review, revisions] = await loadForPage(() =>
+    Promise.all([loadDraftSheet(user, deviceId), findDeviceReview({ viewer: user, deviceId }), listDeviceRevisions({ viewer: user, deviceId })]),
+  );
   const model = buildSheetModel(input);
   const template = findSheetTemplate(input.device.deviceClass);
   return (
@@ -46,6 +51,9 @@ export default async function SheetPage({ params }: Props) {
         ),
         absoluteMaximumRatings: template?.absoluteMaximumRatings ?? [],
       }}
+      reviewPanel={
+        <ReviewReleasePanel deviceId={deviceId} review={review} revisions={revisions} issues={model.issues} canRelease={allows(user.role, "sheet-release")} />
+      }
       sheetView={
         // The charts' SVG is drawn on the server; until it arrives the sheet shows each chart's description.
         <Suspense fallback={<SheetView model={model} />}>

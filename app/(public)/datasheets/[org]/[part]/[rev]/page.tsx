@@ -1,0 +1,58 @@
+import type { Metadata } from "next";
+import { cache, Suspense } from "react";
+import { loadForPage } from "@/lib/server/auth/require-page-user";
+import { renderSheetChartSvgs } from "@/lib/server/charts/render-chart";
+import { serverConfig } from "@/lib/server/config";
+import { findReleasedRevision } from "@/lib/server/reviews/list-revisions";
+import { SheetView } from "@/components/sheet/sheet-view";
+import { SheetViewWithCharts } from "@/components/sheets/sheet-view-with-charts";
+import { ReleasedSheetView } from "@/components/datasheets/released-sheet-view";
+
+type Params = { org: string; part: string; rev: string };
+type Props = { params: Promise<Params> };
+
+/** A path segment as the person typed it: "%2F" and "%20" back to their characters (a lone "%" stays as it is). */
+function segment(value: string): string {
+  try {
+    return decodeURIComponent(value);
+  } catch {
+    return value;
+  }
+}
+
+// One look-up per request, shared by the title and the page: the revision, its frozen model and the history.
+const releasedSheet = cache((org: string, part: string, rev: string) =>
+  findReleasedRevision({ organizationSlug: segment(org), partNumber: segment(part), revision: segment(rev) }),
+);
+
+export async function generateMetadata({ params }: Props): Promise<Metadata> {
+  const { org, part, rev } = await params;
+  const sheet = await releasedSheet(org, part, rev).catch(() => null);
+  if (!sheet) return { title: "No such released sheet" };
+  return {
+    title: `${sheet.model.header.partNumber} Rev. ${sheet.summary.letter}`,
+    description: `${sheet.model.header.title}: revision ${sheet.summary.letter} of the datasheet, as released by ${sheet.model.header.organizationName}.`,
+    // "current" moves with each release; the lettered address of the revision shown never does.
+    alternates: { canonical: new URL(sheet.summary.publicPath, serverConfig.appUrl).toString() },
+  };
+}
+
+/** A released revision, public: drawn from its frozen model, never from live data. */
+export default async function ReleasedDatasheetPage({ params }: Props) {
+  const { org, part, rev } = await params;
+  const { summary, model, history } = await loadForPage(() => releasedSheet(org, part, rev));
+  return (
+    <ReleasedSheetView
+      summary={summary}
+      history={history}
+      organizationName={model.header.organizationName}
+      partNumber={model.header.partNumber}
+      addressedAsCurrent={segment(rev) === "current"}
+      sheetView={
+        <Suspense fallback={<SheetView model={model} />}>
+          <SheetViewWithCharts model={model} chartSvgs={renderSheetChartSvgs(model)} />
+        </Suspense>
+      }
+    />
+  );
+}
