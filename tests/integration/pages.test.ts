@@ -7,6 +7,7 @@ import { TestClient } from "./helpers/client";
 import { baseUrl } from "./helpers/loopback";
 import { clientsByRole, everyone, makeDevice, makeOrganization, type Who } from "./helpers/factories";
 import { fixtureUpload } from "./helpers/uploads";
+import { deviceWithApprovedData, releaseSheet } from "./helpers/reviews";
 
 
 let org: Awaited<ReturnType<typeof makeOrganization>>;
@@ -17,6 +18,7 @@ let secondOwnDeviceId: number;
 let ownPartNumber: string;
 let otherDeviceId: number;
 let clients: Map<Who, TestClient>;
+let released: { candidateId: number; publicPath: string; reference: string };
 
 beforeAll(async () => {
   org = await makeOrganization();
@@ -30,6 +32,11 @@ beforeAll(async () => {
   const upload = await clients.get("engineer")!.request(`/api/devices/${ownDeviceId}/measurements`, { multipart: fixtureUpload("examples/drive-sweep-doubler.csv") });
   expect(upload.status).toBe(201);
   ownSetId = ((await upload.json()) as { measurementSet: { id: number } }).measurementSet.id;
+  // A released revision, for the review page of its candidate and the public pages.
+  const releasedDeviceId = await deviceWithApprovedData(org.organization.id, clients.get("engineer")!, clients.get("reviewer")!);
+  const revision = await releaseSheet(clients.get("engineer")!, clients.get("reviewer")!, releasedDeviceId);
+  const candidate = await db().SheetCandidate.findOne({ where: { deviceId: releasedDeviceId }, attributes: ["id"] });
+  released = { candidateId: candidate!.id, publicPath: revision.publicPath, reference: revision.reference };
 });
 afterAll(() => closeDb());
 
@@ -55,9 +62,9 @@ const pagePaths: Record<PageRoute, () => string> = {
   "/review": () => "/review",
   "/sheets": () => "/sheets",
   "/sheets/[deviceId]": () => `/sheets/${ownDeviceId}`,
-  "/review/sheets/[candidateId]": () => "/review/sheets/0",
-  "/datasheets/[org]/[part]/[rev]": () => "/datasheets/none/none/A",
-  "/r/[reference]": () => "/r/NONE",
+  "/review/sheets/[candidateId]": () => `/review/sheets/${released.candidateId}`,
+  "/datasheets/[org]/[part]/[rev]": () => released.publicPath,
+  "/r/[reference]": () => `/r/${released.reference}`,
   "/admin/users": () => "/admin/users",
   "/admin/instruments": () => "/admin/instruments",
   "/admin/bench-tokens": () => "/admin/bench-tokens",
@@ -85,6 +92,12 @@ describe("every page answers with the status its row in the access matrix means"
         if (expected === 403) {
           expect(response.status).toBe(403);
           expect(await response.text()).toContain("Your role does not open this page");
+          return;
+        }
+        if (route === "/r/[reference]") {
+          // A verification reference answers with a permanent redirect to its revision's public page.
+          expect(response.status).toBe(308);
+          expect(new URL(location ?? "", baseUrl).pathname).toBe(released.publicPath);
           return;
         }
         if (route === "/dev/mailbox") {
