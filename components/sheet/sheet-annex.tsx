@@ -16,7 +16,7 @@ export function SheetTraceability({ model }: { model: SheetModel }) {
       {model.noDataNotice ? (
         <NoDataNotice text={model.noDataNotice} />
       ) : (
-      <div className="mt-4 overflow-x-auto">
+      <div className="mt-4 overflow-x-auto" tabIndex={0} role="region" aria-label="Instruments, scrolls sideways on narrow screens">
         <table className="sheet-table">
           <caption>Instruments</caption>
           <thead>
@@ -56,7 +56,7 @@ export function SheetTraceability({ model }: { model: SheetModel }) {
       </div>
       )}
       {model.noDataNotice ? null : (
-      <div className="mt-6 overflow-x-auto">
+      <div className="mt-6 overflow-x-auto" tabIndex={0} role="region" aria-label="Approved measurement sets, scrolls sideways on narrow screens">
         <table className="sheet-table">
           <caption>Approved measurement sets</caption>
           <thead>
@@ -104,7 +104,7 @@ export function SheetStatistics({ model }: { model: SheetModel }) {
       {model.noDataNotice ? (
         <NoDataNotice text={model.noDataNotice} />
       ) : (
-      <div className="mt-4 overflow-x-auto">
+      <div className="mt-4 overflow-x-auto" tabIndex={0} role="region" aria-label="Statistics annex, scrolls sideways on narrow screens">
         <table className="sheet-table">
           <thead>
             <tr>

@@ -121,7 +121,7 @@ export function SheetSpecTable({ model }: { model: SheetModel }) {
       {specifications.rows.length === 0 && model.noDataNotice ? (
         <NoDataNotice text={model.noDataNotice} />
       ) : (
-        <div className="overflow-x-auto">
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Electrical specifications, scrolls sideways on narrow screens">
           <SpecTable specifications={specifications} />
         </div>
       )}
