@@ -89,14 +89,14 @@ export function CandidateReviewView({ candidate, organizationName, viewerId, isR
           <h2 id="decision-title" className="mb-4 text-xl font-semibold">
             Your decision
           </h2>
-          {candidate.decideBlockedBecause ? (
-            <div className="max-w-prose" data-testid="decide-blocked">
-              <Notice>{candidate.decideBlockedBecause}</Notice>
-            </div>
-          ) : null}
-          {candidate.can.decide ? (
-            <DecisionPanel candidateId={candidate.id} digest={candidate.digest} signatureCount={candidate.signatureCount} requiredSignatures={candidate.requiredSignatures} />
-          ) : null}
+          <DecisionPanel
+            candidateId={candidate.id}
+            canDecide={candidate.can.decide}
+            blockedBecause={candidate.decideBlockedBecause}
+            digest={candidate.digest}
+            signatureCount={candidate.signatureCount}
+            requiredSignatures={candidate.requiredSignatures}
+          />
         </section>
       ) : null}
     </div>

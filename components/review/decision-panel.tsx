@@ -11,6 +11,10 @@ import type { CandidateDecisionBody } from "@/lib/schemas/reviews";
 
 type DecisionPanelProps = {
   candidateId: number;
+  /** The viewer may decide now (the server checks again). */
+  canDecide: boolean;
+  /** Why the viewer may not decide, said plainly. */
+  blockedBecause: string | null;
   /** The SHA-256 of the frozen candidate: what a signature names. */
   digest: string;
   signatureCount: number;
@@ -24,7 +28,7 @@ type Outcome = "changes-requested" | "signed" | "approved";
  * electronic signature, which states its meaning, asks for the password again and names the
  * digest it signs (21 CFR Part 11 §11.50, §11.70, §11.200(a)). The server checks all of it again.
  */
-export function DecisionPanel({ candidateId, digest, signatureCount, requiredSignatures }: DecisionPanelProps) {
+export function DecisionPanel({ candidateId, canDecide, blockedBecause, digest, signatureCount, requiredSignatures }: DecisionPanelProps) {
   const router = useRouter();
   const [outcome, setOutcome] = useState<Outcome | null>(null);
   const done = (candidate: CandidateDetail, decision: CandidateDecisionBody["decision"]) => {
@@ -32,6 +36,7 @@ export function DecisionPanel({ candidateId, digest, signatureCount, requiredSig
     router.refresh();
   };
 
+  // The outcome stays on screen after the page reloads its data (when the forms are no longer offered).
   if (outcome) {
     const words: Record<Outcome, string> = {
       "changes-requested": "Changes requested: the engineer has been told why.",
@@ -45,6 +50,31 @@ export function DecisionPanel({ candidateId, digest, signatureCount, requiredSig
     );
   }
 
+  return (
+    <>
+      {blockedBecause ? (
+        <div className="max-w-prose" data-testid="decide-blocked">
+          <Notice>{blockedBecause}</Notice>
+        </div>
+      ) : null}
+      {canDecide ? <DecisionForms candidateId={candidateId} digest={digest} signatureCount={signatureCount} requiredSignatures={requiredSignatures} onDone={done} /> : null}
+    </>
+  );
+}
+
+function DecisionForms({
+  candidateId,
+  digest,
+  signatureCount,
+  requiredSignatures,
+  onDone: done,
+}: {
+  candidateId: number;
+  digest: string;
+  signatureCount: number;
+  requiredSignatures: number;
+  onDone: DoneHandler;
+}) {
   return (
     <div className="grid gap-8 lg:grid-cols-2">
       <RequestChangesForm candidateId={candidateId} onDone={done} />

@@ -94,7 +94,8 @@ export function ReviewReleasePanel({ deviceId, review, revisions, issues, canRel
       {canRelease && state === "approved" && candidate ? <ReleaseForm candidateId={candidate.id} nextAfter={current?.letter ?? null} onReleased={onReleased} /> : null}
 
       {canRelease && state !== "approved" ? (
-        <details className="mb-6 max-w-[60rem] border-t border-rule pt-3" data-testid="submit-disclosure">
+        // Keyed by the state: after a submission the form starts closed and empty again.
+        <details key={`${state}-${candidate?.id ?? "none"}`} className="mb-6 max-w-[60rem] border-t border-rule pt-3" data-testid="submit-disclosure">
           <summary className="cursor-pointer text-[0.9375rem] font-semibold">{state === "in-review" ? "Submit the sheet again…" : "Submit for review…"}</summary>
           <div className="pt-3">
             {state === "in-review" ? (

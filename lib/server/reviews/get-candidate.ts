@@ -39,7 +39,7 @@ export async function getCandidate(opts: { viewer: SessionUser; candidateId: num
     ? null
     : ownSubmission
       ? "You submitted this sheet; another reviewer must decide on it."
-      : signedAlready
+      : signedAlready && candidate.state === "in-review"
         ? "You have signed this candidate; it waits for another reviewer's signature."
         : candidate.state !== "in-review"
           ? `The candidate is ${candidate.state === "stale" ? "out of date" : candidate.state.replace("-", " ")}.`

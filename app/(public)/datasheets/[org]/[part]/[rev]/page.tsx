@@ -41,6 +41,8 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 export default async function ReleasedDatasheetPage({ params }: Props) {
   const { org, part, rev } = await params;
   const { summary, model, history } = await loadForPage(() => releasedSheet(org, part, rev));
+  // A withdrawn revision stays readable and downloadable; its standing is known now, never frozen in the model.
+  const withdrawn = summary.withdrawal ? { reason: summary.withdrawal.reason, withdrawnOn: summary.withdrawal.withdrawnAt } : undefined;
   return (
     <ReleasedSheetView
       summary={summary}
@@ -49,8 +51,8 @@ export default async function ReleasedDatasheetPage({ params }: Props) {
       partNumber={model.header.partNumber}
       addressedAsCurrent={segment(rev) === "current"}
       sheetView={
-        <Suspense fallback={<SheetView model={model} />}>
-          <SheetViewWithCharts model={model} chartSvgs={renderSheetChartSvgs(model)} />
+        <Suspense fallback={<SheetView model={model} withdrawn={withdrawn} />}>
+          <SheetViewWithCharts model={model} chartSvgs={renderSheetChartSvgs(model)} withdrawn={withdrawn} />
         </Suspense>
       }
     />
