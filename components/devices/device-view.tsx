@@ -19,13 +19,15 @@ type DeviceViewProps = {
   revisions: RevisionSummary[];
   /** The sheet workspace, for a role that opens drafts. */
   sheetHref: string | null;
+  /** The viewer may withdraw a released revision. */
+  canWithdraw: boolean;
   /** Present when the viewer may upload. */
   upload: { instruments: InstrumentSummary[] } | null;
   /** The viewer may change the device's number, class, title and key conditions. */
   canEdit: boolean;
 };
 
-export function DeviceView({ device, organizationName, sets, revisions, sheetHref, upload, canEdit }: DeviceViewProps) {
+export function DeviceView({ device, organizationName, sets, revisions, sheetHref, canWithdraw, upload, canEdit }: DeviceViewProps) {
   const supersedable = sets
     .filter((s) => !s.supersededById)
     .map((s) => ({ id: s.id, kind: s.kind, fileName: s.fileName, serial: s.conditions.serial }));
@@ -68,6 +70,7 @@ export function DeviceView({ device, organizationName, sets, revisions, sheetHre
       <div className="mb-12">
         <RevisionHistory
           revisions={revisions}
+          canWithdraw={canWithdraw}
           emptyText="No revision of this device's sheet has been released yet. Each release appears here, newest first, with its signers, notes and PDF."
         />
         {sheetHref ? (

@@ -68,14 +68,15 @@ export function CandidateReviewView({ candidate, organizationName, viewerId, isR
         aria-label="The candidate beside its changes and comments"
         className="relative left-1/2 mb-12 w-screen max-w-[120rem] -translate-x-1/2 px-4 sm:px-8"
       >
-        <div className="grid gap-8 xl:grid-cols-[minmax(0,1.15fr)_minmax(0,1fr)]">
+        {/* Side by side on a wide screen; on a narrower one the changes and comments come first, then the sheet. */}
+        <div className="grid gap-8 2xl:grid-cols-[minmax(0,1.15fr)_minmax(0,1fr)]">
           <div className="min-w-0">
             <h2 className="running-head mb-2">As it will print · candidate #{candidate.id}</h2>
             <div className="border border-rule bg-paper-bright" data-testid="candidate-sheet">
               {sheetView}
             </div>
           </div>
-          <div className="min-w-0 space-y-12">
+          <div className="order-first min-w-0 space-y-12 2xl:order-none">
             <div data-testid="review-changes">{changes}</div>
             <CommentThreads candidateId={candidate.id} comments={candidate.comments} anchors={anchors} viewerId={viewerId} canComment={candidate.can.comment} />
           </div>

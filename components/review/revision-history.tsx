@@ -2,7 +2,9 @@ import Link from "next/link";
 import type { RevisionSummary } from "@/lib/domain/reviews";
 import { formatByteSize, formatDate, formatDateTime } from "@/lib/format";
 import { ScrollTable } from "@/components/ui/scroll-table";
+import { Notation } from "@/components/sheet/notation";
 import { RevisionStandingBadge } from "./review-state";
+import { WithdrawRevisionForm } from "./withdraw-revision-form";
 
 type RevisionHistoryProps = {
   revisions: RevisionSummary[];
@@ -11,13 +13,15 @@ type RevisionHistoryProps = {
   /** What to say when nothing has been released yet. */
   emptyText: string;
   headingLevel?: "h2" | "h3";
+  /** The viewer may withdraw a revision (a reviewer or administrator of its organization). */
+  canWithdraw?: boolean;
 };
 
 /**
  * A device's released revisions, newest first: letter, date, signers, standing (a withdrawn one
  * keeps its place, with its reason), notes, and the stored PDF and public page of each.
  */
-export function RevisionHistory({ revisions, shownLetter, emptyText, headingLevel = "h2" }: RevisionHistoryProps) {
+export function RevisionHistory({ revisions, shownLetter, emptyText, headingLevel = "h2", canWithdraw = false }: RevisionHistoryProps) {
   const Heading = headingLevel;
   return (
     <section aria-labelledby="revision-history-title" data-testid="revision-history">
@@ -71,6 +75,8 @@ export function RevisionHistory({ revisions, shownLetter, emptyText, headingLeve
                     <p className="mt-1 max-w-[22rem] text-[0.875rem]" data-testid="withdrawal-reason">
                       {formatDate(r.withdrawal.withdrawnAt)}, {r.withdrawal.by}: {r.withdrawal.reason}
                     </p>
+                  ) : canWithdraw ? (
+                    <WithdrawRevisionForm revisionId={r.id} letter={r.letter} />
                   ) : null}
                 </td>
                 <td className="min-w-[16rem] max-w-[28rem] text-[0.875rem]">
@@ -79,7 +85,9 @@ export function RevisionHistory({ revisions, shownLetter, emptyText, headingLeve
                   ) : (
                     <ul className="list-disc space-y-0.5 pl-4">
                       {r.notes.map((note, i) => (
-                        <li key={i}>{note}</li>
+                        <li key={i}>
+                          <Notation text={note} />
+                        </li>
                       ))}
                     </ul>
                   )}

@@ -19,6 +19,8 @@ export type ReviewReleasePanelProps = {
   issues: { code: string; message: string }[];
   /** The viewer may submit and release (the "sheet-release" resource). */
   canRelease: boolean;
+  /** The viewer may withdraw a released revision (the "revision-withdrawal" resource). */
+  canWithdraw: boolean;
 };
 
 /** Where the sheet stands: the open candidate's state, a stale one's, or a plain draft. */
@@ -32,7 +34,7 @@ function standingOf(review: ReviewReleasePanelProps["review"]): { state: SheetRe
  * The sheet's way out of the workspace: its state in review, the submission form (every open issue
  * acknowledged with a reason), the release of an approved candidate, and the revisions released so far.
  */
-export function ReviewReleasePanel({ deviceId, review, revisions, issues, canRelease }: ReviewReleasePanelProps) {
+export function ReviewReleasePanel({ deviceId, review, revisions, issues, canRelease, canWithdraw }: ReviewReleasePanelProps) {
   const { state, candidate } = standingOf(review);
   const current = revisions.find((r) => r.standing === "current") ?? null;
   // What this visit did, kept here so it stays on screen while the page reloads its data.
@@ -109,7 +111,7 @@ export function ReviewReleasePanel({ deviceId, review, revisions, issues, canRel
       ) : null}
 
       <div className="mt-8">
-        <RevisionHistory revisions={revisions} headingLevel="h3" emptyText="No revision of this sheet has been released yet. Released revisions appear here, newest first, each with its signers, notes and PDF." />
+        <RevisionHistory revisions={revisions} headingLevel="h3" canWithdraw={canWithdraw} emptyText="No revision of this sheet has been released yet. Released revisions appear here, newest first, each with its signers, notes and PDF." />
       </div>
     </section>
   );

@@ -199,13 +199,13 @@ test("two people take a sheet through review to revision A, then to revision B w
   await expect(panel.getByTestId("review-state")).toHaveText(/Approved/);
   await screenshot(engineer, "4-workspace-approved", { panel });
   const releaseForm = panel.getByTestId("release-form");
-  await releaseForm.getByLabel(/Release note/).fill("First release.");
+  await releaseForm.getByLabel(/Release note/).fill("Characterized on the first lot.");
   await releaseForm.getByRole("button", { name: "Release the sheet" }).click();
   await expect(panel.getByTestId("review-action-done")).toContainText("Released as Rev. A");
   const historyA = panel.getByTestId("revision-history");
   await expect(historyA.getByTestId("revision-A")).toContainText("Current");
   await expect(historyA.getByTestId("revision-A")).toContainText(demoUsers.reviewer.name);
-  await expect(historyA.getByTestId("revision-A")).toContainText("First release.");
+  await expect(historyA.getByTestId("revision-A")).toContainText("Characterized on the first lot.");
 
   await engineer.getByTestId("review-action-done").getByRole("link", { name: "Its public page" }).click();
   await expect(engineer).toHaveTitle(new RegExp(`^${partNumber} Rev\\. A`));
@@ -250,4 +250,23 @@ test("two people take a sheet through review to revision A, then to revision B w
   await expect(engineer.getByTestId("superseded-notice")).toContainText("The current revision is Rev. B");
   await expect(engineer.getByTestId("revision-picker").getByRole("link", { name: "Rev. B" })).toBeVisible();
   await screenshot(engineer, "8-public-rev-A-superseded");
+
+  // The PDF's verification reference leads to the revision's page.
+  const reference = (await engineer.getByTestId("revision-A").getByText(/^ref\. /).textContent())!.replace("ref. ", "");
+  await engineer.goto(`/r/${reference}`);
+  await expect(engineer).toHaveURL((url) => url.pathname === publicA);
+
+  // The reviewer withdraws Rev. A with a reason: it keeps its place and its page, with the notice.
+  await reviewer.goto(`/devices/${deviceId}`);
+  const rowA = reviewer.getByTestId("revision-A");
+  const withdraw = rowA.getByTestId("withdraw-revision");
+  await clickUntil(withdraw.getByText("Withdraw…"), withdraw.getByLabel("Why Rev. A is withdrawn"));
+  await withdraw.getByLabel("Why Rev. A is withdrawn").fill("The fixture loss was de-embedded twice in this revision.");
+  await withdraw.getByRole("button", { name: "Withdraw Rev. A" }).click();
+  await expect(rowA).toContainText("Withdrawn");
+  await expect(rowA.getByTestId("withdrawal-reason")).toContainText("de-embedded twice");
+  await reviewer.goto(publicA!);
+  await expect(reviewer.getByTestId("sheet-withdrawn")).toContainText("de-embedded twice");
+  await screenshot(reviewer, "9-public-rev-A-withdrawn");
+  await expectAccessible(reviewer, '[data-testid="released-sheet"]', "a withdrawn revision's public page");
 });

@@ -35,6 +35,7 @@ export default async function DevicePage({ params }: Props) {
       sets={sets}
       revisions={revisions}
       sheetHref={allows(user.role, "sheet-drafts") ? `/sheets/${deviceId}` : null}
+      canWithdraw={allows(user.role, "revision-withdrawal")}
       upload={canUpload ? { instruments } : null}
       canEdit={allows(user.role, "device-edit")}
     />

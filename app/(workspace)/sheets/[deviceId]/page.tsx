@@ -52,7 +52,14 @@ export default async function SheetPage({ params }: Props) {
         absoluteMaximumRatings: template?.absoluteMaximumRatings ?? [],
       }}
       reviewPanel={
-        <ReviewReleasePanel deviceId={deviceId} review={review} revisions={revisions} issues={model.issues} canRelease={allows(user.role, "sheet-release")} />
+        <ReviewReleasePanel
+          deviceId={deviceId}
+          review={review}
+          revisions={revisions}
+          issues={model.issues}
+          canRelease={allows(user.role, "sheet-release")}
+          canWithdraw={allows(user.role, "revision-withdrawal")}
+        />
       }
       sheetView={
         // The charts' SVG is drawn on the server; until it arrives the sheet shows each chart's description.
