@@ -266,7 +266,7 @@ test("two people take a sheet through review to revision A, then to revision B w
   await expect(rowA).toContainText("Withdrawn");
   await expect(rowA.getByTestId("withdrawal-reason")).toContainText("de-embedded twice");
   await reviewer.goto(publicA!);
-  await expect(reviewer.getByTestId("sheet-withdrawn")).toContainText("de-embedded twice");
+  await expect(reviewer.getByTestId("released-web-sheet").getByTestId("sheet-withdrawn")).toContainText("de-embedded twice");
   await screenshot(reviewer, "9-public-rev-A-withdrawn");
   await expectAccessible(reviewer, '[data-testid="released-sheet"]', "a withdrawn revision's public page");
 });
