@@ -51,9 +51,9 @@ test.describe("each role sees its own workspace", () => {
     await expect(mainNavigationLinks(page)).toHaveText(["Devices", "Sheets", "Review queue", "Catalog"]);
     await expect(page.getByTestId("session-role")).toHaveText("Reviewer");
     await expect(page.getByRole("heading", { level: 1 })).toHaveText("Review queue");
-    // Pending measurement sets, or a plain statement that none is waiting; sheet reviews are announced as not built yet.
+    // Pending sheets and measurement sets, or a plain statement that none is waiting.
+    await expect(page.getByTestId("sheet-review-table").or(page.getByTestId("sheet-review-empty"))).toBeVisible();
     await expect(page.getByTestId("review-queue-table").or(page.getByTestId("review-empty"))).toBeVisible();
-    await expect(page.getByText("arrive with the sheets feature")).toBeVisible();
 
     // Reviewers read the drafts they will sign off; they cannot edit them.
     await page.goto("/sheets?q=WL-C26");
