@@ -2,8 +2,9 @@ import Link from "next/link";
 import type { DeviceSummary } from "@/lib/domain/devices";
 import type { InstrumentSummary } from "@/lib/domain/instruments";
 import type { MeasurementSetSummary } from "@/lib/domain/measurements";
-import type { RevisionSummary } from "@/lib/domain/reviews";
+import type { CandidateSummary, RevisionSummary } from "@/lib/domain/reviews";
 import { RevisionHistory } from "@/components/review/revision-history";
+import { ReviewStateBadge, sheetReviewStanding } from "@/components/review/review-state";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { MeasurementSetsTable } from "@/components/measurements/measurement-sets-table";
@@ -19,6 +20,8 @@ type DeviceViewProps = {
   revisions: RevisionSummary[];
   /** The sheet workspace, for a role that opens drafts. */
   sheetHref: string | null;
+  /** The sheet's review (findDeviceReview), for a role that reads candidates. */
+  review: { open: CandidateSummary | null; latest: CandidateSummary | null } | null;
   /** The viewer may withdraw a released revision. */
   canWithdraw: boolean;
   /** Present when the viewer may upload. */
@@ -27,7 +30,7 @@ type DeviceViewProps = {
   canEdit: boolean;
 };
 
-export function DeviceView({ device, organizationName, sets, revisions, sheetHref, canWithdraw, upload, canEdit }: DeviceViewProps) {
+export function DeviceView({ device, organizationName, sets, revisions, sheetHref, review, canWithdraw, upload, canEdit }: DeviceViewProps) {
   const supersedable = sets
     .filter((s) => !s.supersededById)
     .map((s) => ({ id: s.id, kind: s.kind, fileName: s.fileName, serial: s.conditions.serial }));
@@ -74,13 +77,25 @@ export function DeviceView({ device, organizationName, sets, revisions, sheetHre
           emptyText="No revision of this device's sheet has been released yet. Each release appears here, newest first, with its signers, notes and PDF."
         />
         {sheetHref ? (
-          <p className="mt-3 text-[0.9375rem]">
+          <p className="mt-3 flex flex-wrap items-center gap-x-3 gap-y-1 text-[0.9375rem]" data-testid="device-sheet-state">
+            {review ? <SheetStateLine review={review} /> : null}
             <Link href={sheetHref}>Sheet draft, review and release</Link>
           </p>
         ) : null}
       </div>
 
       {upload ? <UploadPanel deviceId={device.id} instruments={upload.instruments} supersedable={supersedable} /> : null}
+    </>
+  );
+}
+
+function SheetStateLine({ review }: { review: { open: CandidateSummary | null; latest: CandidateSummary | null } }) {
+  const { state, candidate } = sheetReviewStanding(review);
+  return (
+    <>
+      <span className="running-head !text-ink">Sheet</span>
+      <ReviewStateBadge state={state} />
+      {candidate ? <Link href={`/review/sheets/${candidate.id}`}>Candidate #{candidate.id}</Link> : null}
     </>
   );
 }

@@ -1,8 +1,18 @@
-import { candidateStateLabels, revisionStandingLabels, type CandidateState, type RevisionStanding } from "@/lib/domain/reviews";
+import { candidateStateLabels, revisionStandingLabels, type CandidateState, type CandidateSummary, type RevisionStanding } from "@/lib/domain/reviews";
 import { revisionStateLabels } from "@/lib/domain/sheets";
 
 /** Where a sheet stands in review: a draft with no open candidate, or its latest candidate's state. */
 export type SheetReviewState = "draft" | CandidateState;
+
+/** Where a device's sheet stands, from its open candidate and its latest one (findDeviceReview). */
+export function sheetReviewStanding(review: { open: CandidateSummary | null; latest: CandidateSummary | null }): {
+  state: SheetReviewState;
+  candidate: CandidateSummary | null;
+} {
+  if (review.open) return { state: review.open.state, candidate: review.open };
+  if (review.latest?.state === "stale") return { state: "stale", candidate: review.latest };
+  return { state: "draft", candidate: null };
+}
 
 const stateMarks: Record<SheetReviewState, string> = {
   draft: "○",

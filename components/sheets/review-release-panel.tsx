@@ -6,7 +6,7 @@ import type { CandidateSummary, RevisionSummary } from "@/lib/domain/reviews";
 import { formatDateTime } from "@/lib/format";
 import { Notice } from "@/components/ui/notice";
 import { RevisionHistory } from "@/components/review/revision-history";
-import { ReviewStateBadge, type SheetReviewState } from "@/components/review/review-state";
+import { ReviewStateBadge, sheetReviewStanding, type SheetReviewState } from "@/components/review/review-state";
 import { ReleaseForm } from "./release-form";
 import { SubmitSheetForm } from "./submit-sheet-form";
 
@@ -23,19 +23,12 @@ export type ReviewReleasePanelProps = {
   canWithdraw: boolean;
 };
 
-/** Where the sheet stands: the open candidate's state, a stale one's, or a plain draft. */
-function standingOf(review: ReviewReleasePanelProps["review"]): { state: SheetReviewState; candidate: CandidateSummary | null } {
-  if (review.open) return { state: review.open.state, candidate: review.open };
-  if (review.latest?.state === "stale") return { state: "stale", candidate: review.latest };
-  return { state: "draft", candidate: null };
-}
-
 /**
  * The sheet's way out of the workspace: its state in review, the submission form (every open issue
  * acknowledged with a reason), the release of an approved candidate, and the revisions released so far.
  */
 export function ReviewReleasePanel({ deviceId, review, revisions, issues, canRelease, canWithdraw }: ReviewReleasePanelProps) {
-  const { state, candidate } = standingOf(review);
+  const { state, candidate } = sheetReviewStanding(review);
   const current = revisions.find((r) => r.standing === "current") ?? null;
   // What this visit did, kept here so it stays on screen while the page reloads its data.
   const [done, setDone] = useState<{ submitted: number } | { released: RevisionSummary } | null>(null);

@@ -149,10 +149,11 @@ describe("the device page and the sheet workspace", () => {
     }
   });
 
-  it("shows the workspace's state in words: in review, with a link to the candidate's review page", async () => {
-    const { html } = await page("engineer", `/sheets/${revisionA.deviceId}`);
-    expectHas(html, "Review and release");
-    expect(html).toMatch(/data-state="in-review"[^>]*>.*?In review/s);
-    expectHas(html, `/review/sheets/${pending.id}`);
+  it("shows the sheet's state in words: in review, with a link to the candidate's review page", async () => {
+    for (const path of [`/sheets/${revisionA.deviceId}`, `/devices/${revisionA.deviceId}`]) {
+      const { html } = await page("reviewer", path);
+      expect(/data-state="in-review"[^>]*>(<span[^>]*>[^<]*<\/span>)?In review/.test(html), `${path} says "In review"`).toBe(true);
+      expectHas(html, `/review/sheets/${pending.id}`);
+    }
   });
 });

@@ -5,6 +5,7 @@ import { loadForPage, requirePageUser } from "@/lib/server/auth/require-page-use
 import { getDevice } from "@/lib/server/devices/get-device";
 import { listInstruments } from "@/lib/server/instruments/list-instruments";
 import { listDeviceMeasurementSets } from "@/lib/server/measurements/list-device-measurement-sets";
+import { findDeviceReview } from "@/lib/server/reviews/list-pending-candidates";
 import { listDeviceRevisions } from "@/lib/server/reviews/list-revisions";
 import { DeviceView } from "@/components/devices/device-view";
 import { parseRecordId } from "@/lib/schemas/decimal";
@@ -20,12 +21,14 @@ export default async function DevicePage({ params }: Props) {
   if (deviceId === undefined) notFound();
   // What the page offers is what the API would accept from this role.
   const canUpload = allows(user.role, "measurement-upload");
-  const [device, sets, instruments, revisions] = await loadForPage(() =>
+  const readsCandidates = allows(user.role, "sheet-comments");
+  const [device, sets, instruments, revisions, review] = await loadForPage(() =>
     Promise.all([
       getDevice({ viewer: user, deviceId }),
       listDeviceMeasurementSets({ viewer: user, deviceId }),
       canUpload ? listInstruments(user.organizationId) : Promise.resolve([]),
       listDeviceRevisions({ viewer: user, deviceId }),
+      readsCandidates ? findDeviceReview({ viewer: user, deviceId }) : Promise.resolve(null),
     ]),
   );
   return (
@@ -35,6 +38,7 @@ export default async function DevicePage({ params }: Props) {
       sets={sets}
       revisions={revisions}
       sheetHref={allows(user.role, "sheet-drafts") ? `/sheets/${deviceId}` : null}
+      review={review}
       canWithdraw={allows(user.role, "revision-withdrawal")}
       upload={canUpload ? { instruments } : null}
       canEdit={allows(user.role, "device-edit")}
