@@ -4,7 +4,7 @@ import type { CandidateDetail, RevisionSummary } from "@/lib/domain/reviews";
 import { TestClient } from "./helpers/client";
 import { baseUrl } from "./helpers/loopback";
 import { clientsByRole, makeDevice, makeOrganization, type Who } from "./helpers/factories";
-import { deviceWithApprovedData, release, sign, submitDraft } from "./helpers/reviews";
+import { addApprovedSet, deviceWithApprovedData, release, releaseSheet, sign, submitDraft } from "./helpers/reviews";
 
 // The pages of review and release over HTTP: what each shows, to whom, and what answers 404.
 // (Who may open each page at all is pages.test.ts's, from the access matrix.)
@@ -134,6 +134,26 @@ describe("the public released sheet", () => {
     expect(new URL(known.location ?? "", baseUrl).pathname).toBe(revisionA.publicPath);
     expect((await page("signed-out", `/r/${revisionA.reference.toLowerCase()}`)).status).toBe(308);
     expect((await page("signed-out", "/r/00000-00000")).status).toBe(404);
+  });
+});
+
+describe("a part number with a slash", () => {
+  it("has a public page and a PDF at its encoded address, and its reference leads there", async () => {
+    const engineer = clients.get("engineer")!;
+    const reviewer = clients.get("reviewer")!;
+    const device = await makeDevice(org.organization.id, `KX/2-${Date.now().toString(36)}`);
+    await addApprovedSet(device.id, engineer, reviewer);
+    const revision = await releaseSheet(engineer, reviewer, device.id);
+    expect(revision.publicPath).toContain(encodeURIComponent(device.partNumber));
+    const { status, html } = await page("signed-out", revision.publicPath);
+    expect(status).toBe(200);
+    expectHas(html, `<title>${device.partNumber} Rev. A · Benchfold</title>`);
+    const pdf = await clients.get("signed-out")!.request(revision.pdfPath);
+    expect(pdf.status).toBe(200);
+    expect(pdf.headers.get("content-type")).toBe("application/pdf");
+    const redirect = await page("signed-out", `/r/${revision.reference}`);
+    expect(redirect.status).toBe(308);
+    expect(new URL(redirect.location ?? "", baseUrl).pathname).toBe(revision.publicPath);
   });
 });
 
