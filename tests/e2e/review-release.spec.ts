@@ -173,10 +173,24 @@ test("two people take a sheet through review to revision A, then to revision B w
   const second = await submitFromWorkspace(engineer, deviceId, "Test fixture described, as asked.");
   expect(second).not.toBe(first);
 
+  // The engineer reads the new candidate's review: no decision for them, but they may answer the thread.
+  await engineer.goto(`/review/sheets/${second}`);
+  const engineerView = engineer.getByTestId("candidate-review");
+  await expect(engineerView.getByTestId("comment-threads")).toBeVisible();
+  await expect(engineerView.getByTestId("decision")).toHaveCount(0);
+  await expect(engineerView.getByTestId("sign-form")).toHaveCount(0);
+  const engineerThread = engineerView.getByTestId("comment-thread").first();
+  await expect(engineerThread.getByRole("button", { name: "Resolve thread" })).toHaveCount(0);
+  await clickUntil(engineerThread.getByRole("button", { name: "Reply" }), engineerThread.getByLabel("Your reply"));
+  await engineerThread.getByLabel("Your reply").fill("Described under Test fixture, with the loss.");
+  await engineerThread.getByRole("button", { name: "Send reply" }).click();
+  await expect(engineerThread.getByTestId("comment")).toHaveCount(2);
+
   // The reviewer resolves the thread, then signs: first with a wrong password, then with the right one.
   await reviewer.goto(`/review/sheets/${second}`);
   const carried = comments.getByTestId("comment-thread").first();
   await expect(carried).toContainText("(written on an earlier submission)");
+  await expect(carried).toContainText("Described under Test fixture, with the loss.");
   await carried.getByRole("button", { name: "Resolve thread" }).click();
   await expect(carried.getByTestId("thread-state")).toHaveText(/Resolved by/);
   await screenshot(reviewer, "3-review-page-first-release", { notes: review.getByTestId("engineer-notes"), comments, changes: review.getByTestId("review-changes"), decision: review.getByTestId("decision") });
@@ -228,6 +242,12 @@ test("two people take a sheet through review to revision A, then to revision B w
   await expect(tightened).toHaveCount(1);
   await expect(tightened).toContainText(group.label);
   await screenshot(reviewer, "6-review-page-rev-B", { changes: review.getByTestId("review-changes") });
+  // "Comment" beside a change points the comment form at that row.
+  await expect(async () => {
+    await tightened.getByRole("button", { name: /^Comment on / }).click();
+    await expect(commentForm.getByLabel("About")).toHaveValue(`row:${group.groupId}`, { timeout: 2_000 });
+  }).toPass();
+  await expect(commentForm.getByLabel("Comment")).toBeFocused();
   await review.getByTestId("sign-form").getByLabel("Reviewed and approved for release").check();
   await review.getByTestId("sign-form").getByLabel("Your password").fill(demoPassword);
   await review.getByTestId("sign-form").getByRole("button", { name: "Sign and approve" }).click();
