@@ -82,8 +82,10 @@ function ThreadItem({
     setError(null);
     setPending(true);
     try {
-      const result = await requestJson<{ comments: CommentView[] }>(`/api/sheet-comments/${opener.id}/resolve`, { method: "POST", body: {} });
-      onComments(result.comments);
+      await requestJson(`/api/sheet-comments/${opener.id}/resolve`, { method: "POST", body: {} });
+      // The answer lists the threads of the candidate the thread was opened on; this page shows its own.
+      const { candidate } = await requestJson<{ candidate: { comments: CommentView[] } }>(`/api/sheet-candidates/${candidateId}`);
+      onComments(candidate.comments);
     } catch (e) {
       setError(messageOf(e));
     } finally {

@@ -193,6 +193,7 @@ test("two people take a sheet through review to revision A, then to revision B w
   await expect(carried).toContainText("Described under Test fixture, with the loss.");
   await carried.getByRole("button", { name: "Resolve thread" }).click();
   await expect(carried.getByTestId("thread-state")).toHaveText(/Resolved by/);
+  await expect(carried.getByTestId("comment")).toHaveCount(2);
   await screenshot(reviewer, "3-review-page-first-release", { notes: review.getByTestId("engineer-notes"), comments, changes: review.getByTestId("review-changes"), decision: review.getByTestId("decision") });
   await expectAccessible(reviewer, '[data-testid="candidate-review"]', "the review page");
 

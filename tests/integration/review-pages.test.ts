@@ -4,7 +4,7 @@ import type { CandidateDetail, RevisionSummary } from "@/lib/domain/reviews";
 import { TestClient } from "./helpers/client";
 import { baseUrl } from "./helpers/loopback";
 import { clientsByRole, makeDevice, makeOrganization, type Who } from "./helpers/factories";
-import { addApprovedSet, deviceWithApprovedData, release, releaseSheet, sign, submitDraft } from "./helpers/reviews";
+import { addApprovedSet, deviceWithApprovedData, release, releaseSheet, requestChanges, sign, submitDraft } from "./helpers/reviews";
 
 // The pages of review and release over HTTP: what each shows, to whom, and what answers 404.
 // (Who may open each page at all is pages.test.ts's, from the access matrix.)
@@ -88,6 +88,33 @@ describe("the review page", () => {
       expect(status, path).toBe(404);
       expectHasNot(html, other.organization.name);
     }
+  });
+});
+
+describe("a comment thread across a resubmission", () => {
+  it("stays whole on the new candidate once answered there and resolved: opener and reply", async () => {
+    const engineer = clients.get("engineer")!;
+    const reviewer = clients.get("reviewer")!;
+    const deviceId = await deviceWithApprovedData(org.organization.id, engineer, reviewer);
+    const first = await submitDraft(engineer, deviceId);
+    const opened = await reviewer.request(`/api/sheet-candidates/${first.id}/comments`, { json: { anchor: { kind: "sheet" }, body: "Describe the fixture." } });
+    expect(opened.status).toBe(201);
+    const openerId = ((await opened.json()) as { comments: { id: number }[] }).comments[0].id;
+    expect((await requestChanges(reviewer, first.id)).status).toBe(200);
+    const prose = await engineer.request(`/api/devices/${deviceId}/sheet-content`, {
+      method: "PUT",
+      json: { prose: { "test-fixture": "A 50 Ω fixture." }, absoluteMaximumRatings: [], measurementUncertainty: {} },
+    });
+    expect(prose.status).toBe(200);
+    const second = await submitDraft(engineer, deviceId);
+    const replied = await engineer.request(`/api/sheet-candidates/${second.id}/comments`, { json: { anchor: { kind: "sheet" }, body: "Described.", parentId: openerId } });
+    expect(replied.status).toBe(201);
+    expect((await reviewer.request(`/api/sheet-comments/${openerId}/resolve`, { method: "POST", json: {} })).status).toBe(200);
+    const { candidate } = (await (await reviewer.request(`/api/sheet-candidates/${second.id}`)).json()) as { candidate: CandidateDetail };
+    expect(candidate.comments.map((c) => [c.body, c.parentId === null, c.resolvedAt !== null || c.parentId !== null])).toEqual([
+      ["Describe the fixture.", true, true],
+      ["Described.", false, true],
+    ]);
   });
 });
 

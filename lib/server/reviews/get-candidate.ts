@@ -114,8 +114,10 @@ async function commentViews(candidate: SheetCandidate): Promise<CommentView[]> {
   })) as (SheetComment & { author?: User })[];
   const names = await resolverNames(rows);
   const earlierThreadsOpen = new Set(rows.filter((r) => r.candidateId !== candidate.id && r.parentId === null && !r.resolvedAt).map((r) => r.id));
+  // A thread written on here in part (a reply to an earlier thread) stays whole, resolved or not.
+  const threadsHere = new Set(rows.filter((r) => r.candidateId === candidate.id).map((r) => r.parentId ?? r.id));
   return rows
-    .filter((r) => r.candidateId === candidate.id || earlierThreadsOpen.has(r.parentId ?? r.id))
+    .filter((r) => threadsHere.has(r.parentId ?? r.id) || earlierThreadsOpen.has(r.parentId ?? r.id))
     .map((r) => ({
       id: r.id,
       candidateId: r.candidateId,
