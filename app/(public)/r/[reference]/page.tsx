@@ -10,6 +10,15 @@ type Props = { params: Promise<{ reference: string }> };
  */
 export default async function VerificationReferencePage({ params }: Props) {
   const { reference } = await params;
-  const revision = await loadForPage(() => findRevisionByReference(decodeURIComponent(reference).slice(0, 32)));
+  const revision = await loadForPage(() => findRevisionByReference(readable(reference).slice(0, 32)));
   permanentRedirect(revision.publicPath);
+}
+
+/** The reference as typed: percent-escapes undone, a malformed one left as it is (and so not found). */
+function readable(value: string): string {
+  try {
+    return decodeURIComponent(value);
+  } catch {
+    return value;
+  }
 }
