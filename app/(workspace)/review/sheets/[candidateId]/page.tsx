@@ -11,7 +11,7 @@ import { SheetViewWithCharts } from "@/components/sheets/sheet-view-with-charts"
 import { CandidateReviewView } from "@/components/review/candidate-review-view";
 import { commentAnchorOptions } from "@/components/review/comment-anchors";
 import { SheetDiffView, type DiffAnchor } from "@/components/review/sheet-diff";
-import { CommentOnButton } from "@/components/review/comment-threads";
+import { CommentOnButton } from "@/components/review/comment-on-button";
 import { diffSheetModels } from "@/lib/sheet/diff";
 
 type Props = { params: Promise<{ candidateId: string }> };
