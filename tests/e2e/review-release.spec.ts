@@ -27,8 +27,9 @@ function uniqueDriveSweep(): Buffer {
 
 /**
  * A person in a browser context of their own. The test server trusts loopback as its proxy, so the
- * address each context sends is the one sign-in and signing limits count: a wrong password here
- * never throttles another test's sign-in of the same demo account.
+ * address each context sends is the one the per-address sign-in limit counts: the one wrong password
+ * at signing never adds to other tests' failures from 127.0.0.1 (the per-account limit, five in a
+ * quarter of an hour, still counts it).
  */
 async function personPage(browser: Browser, email: string): Promise<Page> {
   const address = `10.${Math.floor(Math.random() * 256)}.${Math.floor(Math.random() * 256)}.${1 + Math.floor(Math.random() * 254)}`;
