@@ -159,6 +159,20 @@ export function prepareRequestHeaders(req, trusted) {
   req.rawHeaders = raw;
 }
 
+/**
+ * True when every %-escape of the request target's path decodes as UTF-8.
+ * @param {string} url
+ */
+export function decodablePath(url) {
+  const path = url.split("?")[0];
+  try {
+    for (const segment of path.split("/")) decodeURIComponent(segment);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
 async function main() {
   const dev = process.argv.includes("--dev");
   // Before Next (and React) load: they pick their production or development builds from it.
@@ -180,6 +194,13 @@ async function main() {
       console.error("[benchfold] unreadable request headers", error);
       res.statusCode = 400;
       res.end();
+      return;
+    }
+    // A path whose %-escapes do not decode (e.g. /devices/%E0%A4%A) reaches no page: Next would
+    // answer it 500 from its router; it is the client's mistake, so it is a plain 400 here.
+    if (!decodablePath(req.url ?? "/")) {
+      res.writeHead(400, { "content-type": "text/plain; charset=utf-8", "x-content-type-options": "nosniff" });
+      res.end("The address holds a %-escape that does not decode (RFC 3986 §2.1).\n");
       return;
     }
     handle(req, res).catch((error) => {

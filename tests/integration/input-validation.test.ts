@@ -213,3 +213,11 @@ describe("a device description is held to the sheet's prose limits when it is sa
     expect(await (await engineer.request(`/api/devices/${deviceId}`)).json()).toEqual(before);
   });
 });
+
+describe("an address whose %-escapes do not decode", () => {
+  it.each(["/devices/%E0%A4%A", "/api/devices/%E0%A4%A", "/r/%E0%A4%A", "/datasheets/x/%FF/A"])("%s answers 400 in words, never 500", async (path) => {
+    const r = await engineer.request(path);
+    expect(r.status).toBe(400);
+    expect(await r.text()).toMatch(/does not decode/);
+  });
+});
