@@ -4,7 +4,7 @@
  * tell the app where each request really came from. `npm start`, `npm run dev` and `npm test`
  * run this file instead of `next start` / `next dev`:
  *
- *   node scripts/server.mjs [--dev]        PORT (3000), BENCHFOLD_TRUSTED_PROXIES (none)
+ *   node scripts/server.mjs [--dev]        PORT (3000), BENCHFOLD_TRUSTED_PROXIES (none), BENCHFOLD_PROXY_HEADER (x-forwarded-for)
  *
  * Why: a Next.js route handler cannot see the TCP peer (request.ip is gone), and Next only
  * fills X-Forwarded-For when the client did not send one (`??=` in base-server.js), so every
@@ -105,17 +105,52 @@ function addressOfHop(/** @type {string} */ hop) {
 }
 
 /**
- * The client's address: the socket peer, unless the peer is a trusted proxy; then the
- * right-most X-Forwarded-For entry, the one that proxy appended (the entries left of it are
- * whatever the client sent). A trusted proxy that appended nothing usable leaves the peer.
- * @param {{ peer: string, forwardedFor: string | undefined, trusted: { has(address: string): boolean } }} input
+ * The client's address: the socket peer, unless the peer is a trusted proxy; then the right-most
+ * hop of the header that proxy writes, the one it appended (the hops left of it are whatever the
+ * client sent): `X-Forwarded-For` by default, or the `for=` of the last element of `Forwarded`
+ * (RFC 7239 §4, §5.2) when BENCHFOLD_PROXY_HEADER=forwarded. Only the configured header is read,
+ * so a client cannot pass its own copy of the other one through the proxy. A trusted proxy that
+ * appended nothing usable (e.g. `for=unknown` or an obfuscated `_name`) leaves the peer.
+ * @param {{ peer: string, forwardedFor: string | undefined, forwarded?: string | undefined, proxyHeader?: "x-forwarded-for" | "forwarded", trusted: { has(address: string): boolean } }} input
  */
-export function resolveClientAddress({ peer, forwardedFor, trusted }) {
+export function resolveClientAddress({ peer, forwardedFor, forwarded, proxyHeader = "x-forwarded-for", trusted }) {
   const address = normalizeAddress(peer);
-  if (!forwardedFor || !trusted.has(address)) return address;
-  const hops = forwardedFor.split(",").map((hop) => hop.trim()).filter(Boolean);
-  const appended = hops.length ? addressOfHop(hops[hops.length - 1]) : "";
+  if (!trusted.has(address)) return address;
+  const last = proxyHeader === "forwarded" ? lastForwardedFor(forwarded) : lastHop(forwardedFor);
+  const appended = last ? addressOfHop(last) : "";
   return appended || address;
+}
+
+/** @param {string | undefined} header */
+function lastHop(header) {
+  const hops = (header ?? "").split(",").map((hop) => hop.trim()).filter(Boolean);
+  return hops[hops.length - 1] ?? "";
+}
+
+/**
+ * The `for=` value of the last element of a Forwarded header (RFC 7239 §4: elements separated by
+ * commas, pairs by semicolons; a value may be a quoted string), unquoted; "" when it has none.
+ * @param {string | undefined} header
+ */
+export function lastForwardedFor(header) {
+  const elements = (header ?? "").split(",").map((e) => e.trim()).filter(Boolean);
+  const element = elements[elements.length - 1] ?? "";
+  for (const pair of element.split(";")) {
+    const eq = pair.indexOf("=");
+    if (eq < 0 || pair.slice(0, eq).trim().toLowerCase() !== "for") continue;
+    const value = pair.slice(eq + 1).trim();
+    return value.startsWith('"') && value.endsWith('"') ? value.slice(1, -1).replace(/\\(.)/g, "$1") : value;
+  }
+  return "";
+}
+
+/** Which header a trusted proxy writes the client's address into (BENCHFOLD_PROXY_HEADER). */
+export function readProxyHeader(/** @type {string | undefined} */ setting) {
+  const value = (setting ?? "x-forwarded-for").trim().toLowerCase();
+  if (value !== "x-forwarded-for" && value !== "forwarded") {
+    throw new Error(`BENCHFOLD_PROXY_HEADER: "${setting}" is neither x-forwarded-for nor forwarded`);
+  }
+  return /** @type {"x-forwarded-for" | "forwarded"} */ (value);
 }
 
 /** @param {string | string[] | undefined} value */
@@ -127,12 +162,19 @@ function joined(value) {
  * Rewrites a request's headers in place before Next sees it (see the top of this file).
  * @param {import("node:http").IncomingMessage} req
  * @param {{ has(address: string): boolean }} trusted
+ * @param {"x-forwarded-for" | "forwarded"} [proxyHeader]
  */
-export function prepareRequestHeaders(req, trusted) {
+export function prepareRequestHeaders(req, trusted, proxyHeader = readProxyHeader(process.env.BENCHFOLD_PROXY_HEADER)) {
   const peer = normalizeAddress(req.socket.remoteAddress);
   const isTrustedPeer = trusted.has(peer);
   const proxied = forwardingHeaders.some((name) => req.headers[name] !== undefined);
-  const clientAddress = resolveClientAddress({ peer, forwardedFor: joined(req.headers["x-forwarded-for"]), trusted });
+  const clientAddress = resolveClientAddress({
+    peer,
+    forwardedFor: joined(req.headers["x-forwarded-for"]),
+    forwarded: joined(req.headers.forwarded),
+    proxyHeader,
+    trusted,
+  });
 
   const drop = new Set(isTrustedPeer ? internalHeaders : [...internalHeaders, ...forwardingHeaders]);
   // Node builds `headers` and `headersDistinct` lazily from `rawHeaders`, counting the pairs it
@@ -179,6 +221,7 @@ async function main() {
   Object.assign(process.env, { NODE_ENV: dev ? "development" : "production" });
   const port = Number(process.env.PORT ?? 3000);
   const trusted = parseTrustedProxies(process.env.BENCHFOLD_TRUSTED_PROXIES);
+  const proxyHeader = readProxyHeader(process.env.BENCHFOLD_PROXY_HEADER);
   /** @type {Record<symbol, unknown>} */ (globalThis)[serverMarker] = true;
 
   const { default: next } = await import("next");
@@ -189,7 +232,7 @@ async function main() {
 
   httpServer.on("request", (req, res) => {
     try {
-      prepareRequestHeaders(req, trusted);
+      prepareRequestHeaders(req, trusted, proxyHeader);
     } catch (error) {
       console.error("[benchfold] unreadable request headers", error);
       res.statusCode = 400;
@@ -213,7 +256,7 @@ async function main() {
   // request (dev hot reload) is rewritten the same way before Next sees it.
   httpServer.on("upgrade", (req, socket) => {
     try {
-      prepareRequestHeaders(req, trusted);
+      prepareRequestHeaders(req, trusted, proxyHeader);
     } catch {
       socket.destroy();
     }

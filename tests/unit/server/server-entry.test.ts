@@ -1,7 +1,7 @@
 import { createServer, type IncomingMessage } from "node:http";
 import { connect, type AddressInfo } from "node:net";
 import { describe, expect, it } from "vitest";
-import { normalizeAddress, parseTrustedProxies, prepareRequestHeaders, resolveClientAddress } from "@/scripts/server.mjs";
+import { lastForwardedFor, normalizeAddress, parseTrustedProxies, prepareRequestHeaders, readProxyHeader, resolveClientAddress } from "@/scripts/server.mjs";
 
 /** A request as Node's HTTP parser leaves it: lower-cased `headers` (duplicates joined) and `rawHeaders`. */
 function fakeRequest(remoteAddress: string, raw: [string, string][]): IncomingMessage {
@@ -60,6 +60,34 @@ describe("the client address", () => {
   it("stays the peer when the trusted proxy appended nothing usable", () => {
     expect(resolveClientAddress({ peer: "127.0.0.1", forwardedFor: "198.51.100.4, unknown", trusted: loopbackProxy })).toBe("127.0.0.1");
     expect(resolveClientAddress({ peer: "127.0.0.1", forwardedFor: " , ", trusted: loopbackProxy })).toBe("127.0.0.1");
+  });
+
+  // The header values are RFC 7239's own examples (§4 and §7.1).
+  it("reads the last for= of a Forwarded header when the proxy is configured to write that header", () => {
+    expect(lastForwardedFor('for="_gazonk"')).toBe("_gazonk");
+    expect(lastForwardedFor('For="[2001:db8:cafe::17]:4711"')).toBe("[2001:db8:cafe::17]:4711");
+    expect(lastForwardedFor("for=192.0.2.60;proto=http;by=203.0.113.43")).toBe("192.0.2.60");
+    expect(lastForwardedFor("for=192.0.2.43, for=198.51.100.17")).toBe("198.51.100.17");
+    expect(lastForwardedFor("proto=https")).toBe("");
+    const viaForwarded = (forwarded: string, forwardedFor?: string) =>
+      resolveClientAddress({ peer: "127.0.0.1", forwardedFor, forwarded, proxyHeader: "forwarded", trusted: loopbackProxy });
+    expect(viaForwarded("for=192.0.2.43, for=198.51.100.17")).toBe("198.51.100.17");
+    expect(viaForwarded('For="[2001:db8:cafe::17]:4711"')).toBe("2001:db8:cafe::17");
+    // An obfuscated or unknown hop names no address: the peer stands.
+    expect(viaForwarded('for="_gazonk"')).toBe("127.0.0.1");
+    expect(viaForwarded("for=unknown")).toBe("127.0.0.1");
+    // The client's own X-Forwarded-For, passed through by a proxy that writes Forwarded, is not read.
+    expect(viaForwarded("for=198.51.100.17", "10.6.6.6")).toBe("198.51.100.17");
+    // And the reverse: a proxy that writes X-Forwarded-For leaves the client's Forwarded unread.
+    expect(resolveClientAddress({ peer: "127.0.0.1", forwardedFor: "198.51.100.4", forwarded: "for=10.6.6.6", trusted: loopbackProxy })).toBe("198.51.100.4");
+    // From an untrusted peer neither header counts.
+    expect(resolveClientAddress({ peer: "192.0.2.9", forwardedFor: undefined, forwarded: "for=10.6.6.6", proxyHeader: "forwarded", trusted: loopbackProxy })).toBe("192.0.2.9");
+  });
+
+  it("accepts only the two proxy header settings", () => {
+    expect(readProxyHeader(undefined)).toBe("x-forwarded-for");
+    expect(readProxyHeader("Forwarded")).toBe("forwarded");
+    expect(() => readProxyHeader("x-real-ip")).toThrow(/BENCHFOLD_PROXY_HEADER/);
   });
 
   it("normalises IPv4-mapped IPv6 peers", () => {
