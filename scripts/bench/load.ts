@@ -78,11 +78,11 @@ async function main() {
   const doubler = devices.devices.find((d) => d.partNumber === "KDX-2G4");
   if (!doubler) throw new Error("the demo device KDX-2G4 is not there: load the demo with npm start");
   const pdfPath = `/api/devices/${doubler.id}/sheet/pdf`;
+  const rssStart = serverRssMb();
   const warm = await fetch(`${baseUrl}${pdfPath}`, { headers: { cookie } });
   await warm.arrayBuffer();
 
   console.log(`\nLoad: ${clients} concurrent clients, ${seconds} s per target, against ${baseUrl}, node ${process.version}`);
-  const rssStart = serverRssMb();
   const rows: string[] = [];
   const results: Record<string, LoadResult> = {};
   for (const [name, path] of [
@@ -95,7 +95,9 @@ async function main() {
     rows.push(loadRow(name, result));
   }
   const rssEnd = serverRssMb();
-  await new Promise((resolve) => setTimeout(resolve, 5000));
+  // Long enough for idle PDF workers to stop (BENCHFOLD_PDF_IDLE_MS of the server, 60 s unless set) and give their heaps back.
+  const settleMs = Number(process.env.BENCHFOLD_PDF_IDLE_MS ?? 60_000) + 5_000;
+  await new Promise((resolve) => setTimeout(resolve, settleMs));
   const rssSettled = serverRssMb();
   const freshS = await freshPdfSeconds(cookie, doubler.id);
 
@@ -108,7 +110,7 @@ async function main() {
   );
   const mb = (v: number | null) => (v === null ? "n/a" : `${v} MB`);
   console.log(
-    `server RSS: before ${mb(rssStart)}, right after ${mb(rssEnd)}, 5 s later ${mb(rssSettled)}` +
+    `server RSS: before ${mb(rssStart)}, right after ${mb(rssEnd)}, ${Math.round(settleMs / 1000)} s later ${mb(rssSettled)}` +
       (rssStart && rssSettled ? ` (settled ÷ before: ${(rssSettled / rssStart).toFixed(2)})` : ""),
   );
   await benchReleasedDownload({ baseUrl, clients, seconds, org: "kestrine", part: "KDX-2G4" });

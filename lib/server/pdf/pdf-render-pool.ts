@@ -14,6 +14,11 @@ export interface PdfRenderLimits {
   heapMb: number;
   /** Renders waiting for a worker before further ones are refused. */
   maxQueued: number;
+  /**
+   * A worker with nothing to do for this long is stopped, and its heap goes back to the system
+   * (the next render starts one again, about two seconds); leave it out to keep workers forever.
+   */
+  idleMs?: number;
 }
 
 /** Starts one render worker with the given limits (the pool calls it again to replace a worker it threw away). */
@@ -21,7 +26,7 @@ export type SpawnRenderWorker = (resourceLimits: ResourceLimits) => Worker;
 
 type Job = { id: number; model: SheetModel; resolve: (pdf: Buffer) => void; reject: (error: Error) => void };
 
-type Slot = { worker: Worker; ready: boolean; job: Job | null; timer: NodeJS.Timeout | null; retired: boolean };
+type Slot = { worker: Worker; ready: boolean; job: Job | null; timer: NodeJS.Timeout | null; idle: NodeJS.Timeout | null; retired: boolean };
 
 /**
  * Lays out PDFs in worker threads, one render per worker at a time, each under a time and a heap
@@ -65,8 +70,10 @@ export class PdfRenderPool {
 
   private pump(): void {
     for (const slot of this.slots) {
-      if (this.queue.length === 0) return;
-      if (slot.ready && !slot.job && !slot.retired) this.dispatch(slot, this.queue.shift()!);
+      if (slot.ready && !slot.job && !slot.retired) {
+        if (this.queue.length > 0) this.dispatch(slot, this.queue.shift()!);
+        else this.armIdle(slot);
+      }
     }
     const starting = [...this.slots].filter((slot) => !slot.ready).length;
     for (let waiting = this.queue.length - starting; waiting > 0 && this.slots.size < this.limits.workers; waiting--) this.start();
@@ -83,14 +90,26 @@ export class PdfRenderPool {
     }
     // An idle pool must not keep a script or a test run alive; a server stays up for its own reasons.
     worker.unref();
-    const slot: Slot = { worker, ready: false, job: null, timer: null, retired: false };
+    const slot: Slot = { worker, ready: false, job: null, timer: null, idle: null, retired: false };
     this.slots.add(slot);
     worker.on("message", (reply: RenderReply) => this.onReply(slot, reply));
     worker.on("error", (error) => this.onFailure(slot, error));
     worker.on("exit", (code) => this.onFailure(slot, new Error(`The render worker exited with code ${code}.`)));
   }
 
+  /** Stops a worker that stays without work for `idleMs` (its memory is returned); the next render starts one. */
+  private armIdle(slot: Slot): void {
+    if (this.limits.idleMs === undefined || slot.idle) return;
+    slot.idle = setTimeout(() => {
+      slot.idle = null;
+      if (!slot.job && !slot.retired) void this.retire(slot, { replace: false });
+    }, this.limits.idleMs);
+    slot.idle.unref();
+  }
+
   private dispatch(slot: Slot, job: Job): void {
+    if (slot.idle) clearTimeout(slot.idle);
+    slot.idle = null;
     slot.job = job;
     slot.timer = setTimeout(() => {
       slot.job = null;
@@ -171,6 +190,7 @@ export class PdfRenderPool {
     if (slot.retired) return;
     slot.retired = true;
     if (slot.timer) clearTimeout(slot.timer);
+    if (slot.idle) clearTimeout(slot.idle);
     // Only close() retires a worker in the middle of a render; every failure has answered its render already.
     slot.job?.reject(new AppError("unavailable", "The PDF renderer is shutting down; try again in a moment."));
     slot.job = null;
@@ -214,6 +234,7 @@ export function pdfRenderLimitsFromEnv(): PdfRenderLimits {
     timeoutMs: readPositive("BENCHFOLD_PDF_TIMEOUT_MS", 60_000),
     heapMb: readPositive("BENCHFOLD_PDF_HEAP_MB", 512),
     maxQueued: Math.floor(readPositive("BENCHFOLD_PDF_QUEUE", 32)),
+    idleMs: readPositive("BENCHFOLD_PDF_IDLE_MS", 60_000),
   };
 }
 

@@ -65,6 +65,28 @@ describe("why one sheet's PDF broke every later PDF of the process", () => {
 });
 
 describe("PdfRenderPool", () => {
+  it("stops a worker that stays idle past idleMs, and starts one again for the next render", async () => {
+    const pool = standInPool({ idleMs: 200 });
+    expect((await pool.render(ask({ depth: 3 }))).toString()).toBe("%PDF-stand-in 500");
+    expect(pool.workerCount).toBe(1);
+    await new Promise((resolve) => setTimeout(resolve, 600));
+    expect(pool.workerCount).toBe(0);
+    expect((await pool.render(ask({ depth: 3 }))).toString()).toBe("%PDF-stand-in 500");
+    expect(pool.workerCount).toBe(1);
+  });
+
+  it("keeps a busy worker however long the render takes, and keeps workers forever without idleMs", async () => {
+    const busy = standInPool({ idleMs: 100 });
+    const long = busy.render(ask({ behave: "slow", ms: 400 }));
+    await new Promise((resolve) => setTimeout(resolve, 250));
+    expect(busy.workerCount).toBe(1);
+    await long.catch(() => undefined);
+    const forever = standInPool();
+    await forever.render(ask({ depth: 3 }));
+    await new Promise((resolve) => setTimeout(resolve, 400));
+    expect(forever.workerCount).toBe(1);
+  });
+
   it("a render that breaks its worker's layout engine costs that render only: a fresh worker takes the next", async () => {
     const pool = standInPool();
     const broken = await refusal(pool.render(ask({ depth: 2000 })));

@@ -29,6 +29,12 @@ parentPort.on("message", ({ id, model }) => {
     }
     case "exit":
       process.exit(3);
+    case "slow": {
+      const until = Date.now() + (model.ms ?? 100);
+      while (Date.now() < until);
+      parentPort.postMessage({ id, ok: true, pdf: new TextEncoder().encode("%PDF-stand-in slow") });
+      break;
+    }
     default:
       try {
         const width = layoutNested(model.depth ?? 3);
