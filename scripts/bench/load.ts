@@ -95,8 +95,8 @@ async function main() {
     rows.push(loadRow(name, result));
   }
   const rssEnd = serverRssMb();
-  // Long enough for idle PDF workers to stop (BENCHFOLD_PDF_IDLE_MS of the server, 60 s unless set) and give their heaps back.
-  const settleMs = Number(process.env.BENCHFOLD_PDF_IDLE_MS ?? 60_000) + 5_000;
+  // The PDF workers stop after BENCHFOLD_PDF_IDLE_MS idle (10 min unless set); what stays after a few seconds is the web server's own.
+  const settleMs = Number(process.env.BENCH_LOAD_SETTLE_MS ?? 5_000);
   await new Promise((resolve) => setTimeout(resolve, settleMs));
   const rssSettled = serverRssMb();
   const freshS = await freshPdfSeconds(cookie, doubler.id);

@@ -234,7 +234,7 @@ export function pdfRenderLimitsFromEnv(): PdfRenderLimits {
     timeoutMs: readPositive("BENCHFOLD_PDF_TIMEOUT_MS", 60_000),
     heapMb: readPositive("BENCHFOLD_PDF_HEAP_MB", 512),
     maxQueued: Math.floor(readPositive("BENCHFOLD_PDF_QUEUE", 32)),
-    idleMs: readPositive("BENCHFOLD_PDF_IDLE_MS", 60_000),
+    idleMs: readPositive("BENCHFOLD_PDF_IDLE_MS", 10 * 60_000),
   };
 }
 
