@@ -22,6 +22,7 @@ import { PasswordReset } from "./password-reset";
 import { RevokedSession } from "./revoked-session";
 import { SignInAttempt } from "./sign-in-attempt";
 import { SignUpRequest } from "./sign-up-request";
+import { Subscription } from "./subscription";
 import { User } from "./user";
 
 export type {
@@ -48,6 +49,7 @@ export type {
   SignUpRequest,
   SpecLimit,
   StoredFile,
+  Subscription,
   User,
 };
 export * from "./connection";
@@ -77,6 +79,7 @@ const models = {
   SignUpRequest,
   SpecLimit,
   StoredFile,
+  Subscription,
   User,
 };
 
@@ -104,6 +107,8 @@ function initModels(sequelize: Sequelize): Sequelize {
   SheetRevision.belongsTo(Device, { foreignKey: "deviceId" });
   SheetRevision.belongsTo(SheetCandidate, { foreignKey: "candidateId" });
   SheetRevision.hasOne(SheetRevisionWithdrawal, { foreignKey: "revisionId" });
+  Subscription.belongsTo(Device, { foreignKey: "deviceId" });
+  Subscription.belongsTo(Organization, { foreignKey: "organizationId" });
   return sequelize;
 }
 

@@ -17,6 +17,8 @@ export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCr
   declare subject: string;
   declare bodyText: string;
   declare messageId: string;
+  /** Extra mail headers (List-Unsubscribe), or null. */
+  declare headers: CreationOptional<Record<string, string> | null>;
   /** Delivery attempts that ended, sent or failed (a worker that crashed mid-send counts none). */
   declare attempts: CreationOptional<number>;
   declare nextAttemptAt: Date;
@@ -38,6 +40,7 @@ export class OutboxMessage extends Model<InferAttributes<OutboxMessage>, InferCr
         subject: { type: DataTypes.STRING(255), allowNull: false },
         bodyText: { type: DataTypes.TEXT("medium"), allowNull: false },
         messageId: { type: DataTypes.STRING(255), allowNull: false, unique: true },
+        headers: { type: DataTypes.JSON, allowNull: true },
         attempts: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         nextAttemptAt: { type: DataTypes.DATE(3), allowNull: false },
         claimToken: { type: DataTypes.CHAR(36), allowNull: true },

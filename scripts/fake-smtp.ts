@@ -15,7 +15,7 @@ import { randomUUID } from "node:crypto";
 import { simpleParser } from "mailparser";
 import { SMTPServer } from "smtp-server";
 
-type Caught = { id: string; messageId: string | null; from: string; to: string; subject: string; text: string; html: string | null; date: string };
+type Caught = { id: string; messageId: string | null; listUnsubscribe: string | null; from: string; to: string; subject: string; text: string; html: string | null; date: string };
 
 const smtpPort = Number(process.env.SMTP_PORT ?? 2525);
 const httpPort = Number(process.env.BENCHFOLD_MAILBOX_PORT ?? 2580);
@@ -34,6 +34,8 @@ const makeSmtp = () => new SMTPServer({
         messages.unshift({
           id: randomUUID(),
           messageId: mail.messageId ?? null,
+          // The header as sent (mailparser parses it into parts; tests want the line itself).
+          listUnsubscribe: mail.headerLines.find((h) => h.key === "list-unsubscribe")?.line.replace(/^[^:]*:\s*/, "") ?? null,
           from: mail.from?.text ?? session.envelope.mailFrom?.toString() ?? "",
           to: session.envelope.rcptTo.map((r) => r.address).join(", "),
           subject: mail.subject ?? "",

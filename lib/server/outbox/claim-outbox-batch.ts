@@ -10,6 +10,8 @@ export type ClaimedNotice = {
   subject: string;
   bodyText: string;
   messageId: string;
+  /** Extra mail headers (List-Unsubscribe), or null. */
+  headers: Record<string, string> | null;
   attempts: number;
 };
 
@@ -28,8 +30,8 @@ export async function claimOutboxBatch(options: { lane: string; batchSize: numbe
   const claimToken = randomUUID();
   const rows = await retryOnDeadlock(() =>
     sequelize.transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.READ_COMMITTED }, async (transaction) => {
-      const picked = await sequelize.query<ClaimedNotice>(
-        `SELECT id, recipient, subject, body_text AS bodyText, message_id AS messageId, attempts
+      const picked = await sequelize.query<Omit<ClaimedNotice, "headers"> & { headers: string | Record<string, string> | null }>(
+        `SELECT id, recipient, subject, body_text AS bodyText, message_id AS messageId, headers, attempts
            FROM outbox_messages
           WHERE lane = :lane AND sent_at IS NULL AND next_attempt_at <= NOW(3)
             AND (claimed_until IS NULL OR claimed_until < NOW(3))
@@ -44,7 +46,8 @@ export async function claimOutboxBatch(options: { lane: string; batchSize: numbe
           { type: QueryTypes.UPDATE, transaction, replacements: { claimToken, leaseUs: options.leaseMs * 1000, ids: picked.map((row) => row.id) } },
         );
       }
-      return picked;
+      // MariaDB's JSON is LONGTEXT: a raw query reads it back as text.
+      return picked.map((row) => ({ ...row, headers: typeof row.headers === "string" ? (JSON.parse(row.headers) as Record<string, string> | null) : row.headers }));
     }),
   );
   return { claimToken, rows };

@@ -15,7 +15,7 @@ export function createOutboxSender(): { send: (mail: OutboxMail) => Promise<void
   const transport = nodemailer.createTransport({ ...smtpTransportOptions(), pool: true, maxConnections: 1, connectionTimeout: 10_000, greetingTimeout: 10_000, socketTimeout: 30_000 });
   return {
     send: async (mail) => {
-      await transport.sendMail({ from: serverConfig.mailFrom, to: mail.to, subject: mail.subject, text: mail.text, messageId: mail.messageId });
+      await transport.sendMail({ from: serverConfig.mailFrom, to: mail.to, subject: mail.subject, text: mail.text, messageId: mail.messageId, ...(mail.headers ? { headers: mail.headers } : {}) });
     },
     close: () => transport.close(),
   };

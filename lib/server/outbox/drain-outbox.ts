@@ -7,7 +7,7 @@ import type { OutboxSettings } from "./outbox-settings";
 import { outboxRetryDelayMs } from "./retry-delay";
 import { retryOnDeadlock } from "./retry-on-deadlock";
 
-export type OutboxMail = { to: string; subject: string; text: string; messageId: string };
+export type OutboxMail = { to: string; subject: string; text: string; messageId: string; headers?: Record<string, string> };
 export type DrainResult = { claimed: number; sent: number; failed: number; lostLease: number };
 
 function describeError(error: unknown): string {
@@ -61,7 +61,7 @@ export async function drainOutbox(options: {
     }
     let failure: unknown = null;
     try {
-      await send({ to: row.recipient, subject: row.subject, text: row.bodyText, messageId: row.messageId });
+      await send({ to: row.recipient, subject: row.subject, text: row.bodyText, messageId: row.messageId, ...(row.headers ? { headers: row.headers } : {}) });
     } catch (error) {
       failure = error ?? new Error("send failed");
     }

@@ -1,6 +1,6 @@
 const mailboxUrl = `http://127.0.0.1:${process.env.BENCHFOLD_MAILBOX_PORT ?? 2581}`;
 
-export type CaughtMail = { to: string; subject: string; text: string; messageId: string | null };
+export type CaughtMail = { to: string; subject: string; text: string; messageId: string | null; listUnsubscribe?: string | null };
 
 /** Every message the run's fake SMTP server caught to this address, newest first. */
 export async function mailsTo(to: string): Promise<CaughtMail[]> {
