@@ -36,7 +36,8 @@ export const resources = {
   "instrument-admin": { access: "instrument:manage", what: "the instrument register and calibration dates" },
   "bench-tokens": { access: "token:manage", what: "the organization's bench API tokens" },
   "bench-upload": { access: "bench-token", what: "a bench posting a file with its token (versioned API)" },
-  subscriptions: { access: "subscription:manage", what: "the parts a customer follows" },
+  subscriptions: { access: "subscription:manage", what: "the parts and device classes a customer follows, and the notices sent to them" },
+  unsubscribe: { access: "public", what: "leaving a change notice by the signed link in its mail, without signing in" },
 } as const satisfies Record<string, { access: Access; what: string }>;
 
 export type Resource = keyof typeof resources;
@@ -61,6 +62,8 @@ export const pageResources = {
   "/review/sheets/[candidateId]": "sheet-comments",
   "/datasheets/[org]/[part]/[rev]": "released-sheets",
   "/r/[reference]": "released-sheets",
+  "/verify": "released-sheets",
+  "/unsubscribe/[token]": "unsubscribe",
   "/admin/users": "people",
   "/admin/instruments": "instrument-admin",
   "/admin/bench-tokens": "bench-tokens",
@@ -107,6 +110,11 @@ export const apiResources = {
   "GET /api/devices/[id]/revisions": "devices",
   "POST /api/sheet-revisions/[id]/withdraw": "revision-withdrawal",
   "GET /api/v1/sheets/[org]/[part]/[rev]/pdf": "released-sheets",
+  "GET /api/v1/verify": "released-sheets",
+  "GET /api/subscriptions": "subscriptions",
+  "POST /api/subscriptions": "subscriptions",
+  "DELETE /api/subscriptions/[id]": "subscriptions",
+  "POST /api/unsubscribe": "unsubscribe",
   "GET /api/admin/users": "people",
   "PATCH /api/admin/users/[id]": "people",
   "GET /api/admin/invitations": "people",

@@ -65,6 +65,8 @@ const pagePaths: Record<PageRoute, () => string> = {
   "/review/sheets/[candidateId]": () => `/review/sheets/${released.candidateId}`,
   "/datasheets/[org]/[part]/[rev]": () => released.publicPath,
   "/r/[reference]": () => `/r/${released.reference}`,
+  "/verify": () => "/verify",
+  "/unsubscribe/[token]": () => "/unsubscribe/not-a-token",
   "/admin/users": () => "/admin/users",
   "/admin/instruments": () => "/admin/instruments",
   "/admin/bench-tokens": () => "/admin/bench-tokens",

@@ -26,7 +26,7 @@ export async function getRevision(revisionId: number): Promise<RevisionSummary> 
 }
 
 /** Summaries of the revisions matching `where` (one device's, or one), newest first. */
-async function revisionSummaries(where: { deviceId?: number; id?: number }): Promise<RevisionSummary[]> {
+export async function revisionSummaries(where: { deviceId?: number; id?: number }): Promise<RevisionSummary[]> {
   const { SheetRevision, SheetRevisionWithdrawal, SheetSignature, Device, Organization, User } = db();
   const rows = (await SheetRevision.findAll({
     where: where.id !== undefined ? { id: where.id } : { deviceId: where.deviceId },
