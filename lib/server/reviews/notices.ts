@@ -5,6 +5,7 @@ import { db } from "@/models";
 import type { SheetCandidate } from "@/models";
 import { serverConfig } from "../config";
 import { enqueueNotices } from "../outbox/enqueue-notices";
+import { queueFollowerNotices } from "../subscriptions/follower-notices";
 
 export type CandidateEvent =
   | { event: "submitted"; candidate: SheetCandidate }
@@ -17,8 +18,10 @@ export type CandidateEvent =
  * The notices an event of the review sends, queued in the event's own transaction (the outbox):
  * submission → the organization's reviewers; changes requested and approval → the submitter;
  * a stale candidate → the submitter and every reviewer who commented or signed (or all reviewers
- * when none did); a release → the organization's engineers and reviewers, and (once customers can
- * follow a part) its subscribers. Each event names itself, so no one gets the same notice twice.
+ * when none did); a release → the organization's engineers and reviewers, and every customer who
+ * follows the part or its organization's device class (queueFollowerNotices: one mail each, with
+ * what changed and a signed unsubscribe link). Each event names itself, so no one gets the same
+ * notice twice.
  */
 export async function queueCandidateNotice(e: CandidateEvent, transaction: Transaction): Promise<void> {
   const { Device } = db();
@@ -63,6 +66,7 @@ export async function queueCandidateNotice(e: CandidateEvent, transaction: Trans
       recipients = await membersWithRoles(c.organizationId, ["engineer", "reviewer"], transaction);
       subject = `Sheet ${part} released as revision ${e.letter}`;
       text = [`Revision ${e.letter} of the sheet of ${part} is released.`, "", `Open the sheet: ${sheetLink}`];
+      await queueFollowerNotices({ event: "released", revisionId: e.revisionId }, transaction);
       break;
   }
   const eventKey = `sheet-candidate:${c.id}:${e.event}${e.event === "signed" ? `:${e.signerName}` : ""}`;

@@ -7,12 +7,14 @@ import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import { lockOwnRow } from "../auth/own-row";
 import type { SessionUser } from "../auth/session-user";
+import { queueFollowerNotices } from "../subscriptions/follower-notices";
 import { getRevision } from "./list-revisions";
 
 /**
  * Withdraws a released revision with a reason (a reviewer or an administrator of its organization).
  * The revision, its PDF and signatures stay as they are and stay downloadable; the withdrawal is a
- * row of its own, append-only, and the public page says so with the reason.
+ * row of its own, append-only, and the public page says so with the reason. The part's followers
+ * get a notice with the reason, queued in the same transaction.
  */
 export async function withdrawRevision(opts: { actor: SessionUser; revisionId: number; body: WithdrawBody }): Promise<RevisionSummary> {
   const { SheetRevision, SheetRevisionWithdrawal, sequelize } = db();
@@ -30,6 +32,7 @@ export async function withdrawRevision(opts: { actor: SessionUser; revisionId: n
       { organizationId: actor.organizationId, actorUserId: actor.id, action: "sheet-revision.withdrawn", subjectType: "sheet-revision", subjectId: revision.id, before: { withdrawn: false }, after: { withdrawn: true, reason: body.reason, withdrawalId: withdrawal.id } },
       transaction,
     );
+    await queueFollowerNotices({ event: "withdrawn", revisionId: revision.id, reason: body.reason, withdrawnAt: withdrawal.withdrawnAt }, transaction);
   });
   return getRevision(revisionId);
 }
