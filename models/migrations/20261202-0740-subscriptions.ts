@@ -11,7 +11,8 @@ export async function up({ context: qi }: { context: QueryInterface }) {
     // The organization whose part or class is followed (not the follower's own).
     organization_id: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, references: { model: "organizations", key: "id" }, onDelete: "CASCADE", onUpdate: "CASCADE" },
     // Exactly one of the two: a part, or a device class of the organization.
-    device_id: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true, references: { model: "devices", key: "id" }, onDelete: "CASCADE", onUpdate: "CASCADE" },
+    // RESTRICT, not CASCADE: MariaDB allows no CHECK on a column with a referential action (devices are never deleted).
+    device_id: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true, references: { model: "devices", key: "id" }, onDelete: "RESTRICT", onUpdate: "RESTRICT" },
     device_class: { type: DataTypes.STRING(64), allowNull: true },
     created_at: { type: DataTypes.DATE(3), allowNull: false },
   });
