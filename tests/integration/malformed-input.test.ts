@@ -11,7 +11,7 @@ import { TestClient } from "./helpers/client";
 import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
 import { fixtureUpload } from "./helpers/uploads";
 
-type Role = "engineer" | "reviewer" | "admin" | "signed-out" | "bench";
+type Role = "engineer" | "reviewer" | "admin" | "customer" | "signed-out" | "bench";
 type Endpoint = { method: "POST" | "PUT" | "PATCH"; path: () => string; as: Role; fields: string[]; kind: "json" | "multipart" };
 
 const ids = { device: 0, part: "", set: 0, user: 0, instrument: 0 };
@@ -35,6 +35,8 @@ const endpoints: Endpoint[] = [
   { method: "POST", path: () => "/api/invitations/accept", as: "signed-out", kind: "json", fields: ["token", "name", "password"] },
   { method: "POST", path: () => "/api/password-resets", as: "signed-out", kind: "json", fields: ["email"] },
   { method: "POST", path: () => "/api/password-resets/complete", as: "signed-out", kind: "json", fields: ["token", "password"] },
+  { method: "POST", path: () => "/api/subscriptions", as: "customer", kind: "json", fields: ["organization", "partNumber", "deviceClass"] },
+  { method: "POST", path: () => "/api/unsubscribe", as: "signed-out", kind: "json", fields: ["token"] },
   { method: "POST", path: () => `/api/devices/${ids.device}/measurements`, as: "engineer", kind: "multipart", fields: [] },
   { method: "POST", path: () => "/api/v1/measurements", as: "bench", kind: "multipart", fields: [] },
 ];
@@ -89,7 +91,7 @@ const tried = { cases: 0, byStatus: new Map<number, number>() };
 
 beforeAll(async () => {
   const made = await makeOrganization();
-  for (const role of ["engineer", "reviewer", "admin"] as const) {
+  for (const role of ["engineer", "reviewer", "admin", "customer"] as const) {
     const client = new TestClient();
     expect((await client.signIn(made.users[role].email, factoryPassword)).ok).toBe(true);
     clients.set(role, client);
