@@ -16,13 +16,15 @@ type ReleasedSheetViewProps = {
   addressedAsCurrent: boolean;
   /** The web sheet of the frozen model, drawn on the server. */
   sheetView: ReactNode;
+  /** "Follow this part" for a customer, a sign-in line for a visitor (components/subscriptions/follow-button.tsx). */
+  follow?: ReactNode;
 };
 
 /**
  * The public page of one released revision: which revision it is and how it stands, the other
  * revisions, the stored PDF, then the sheet itself and the revision history.
  */
-export function ReleasedSheetView({ summary, history, organizationName, partNumber, addressedAsCurrent, sheetView }: ReleasedSheetViewProps) {
+export function ReleasedSheetView({ summary, history, organizationName, partNumber, addressedAsCurrent, sheetView, follow }: ReleasedSheetViewProps) {
   const current = history.find((r) => r.standing === "current") ?? null;
   return (
     <div data-testid="released-sheet">
@@ -69,6 +71,8 @@ export function ReleasedSheetView({ summary, history, organizationName, partNumb
           ))}
         </ul>
       </nav>
+
+      {follow ? <div className="mb-6 print:hidden">{follow}</div> : null}
 
       {summary.standing === "superseded" && current ? (
         <div className="mb-6 max-w-prose print:hidden" data-testid="superseded-notice">

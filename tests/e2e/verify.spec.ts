@@ -72,12 +72,23 @@ test("a 200 MB file is hashed in the browser in slices while the page keeps draw
   }
 });
 
-test("the demo customer follows KDX-2G4 and sees it on the change-notices page", async ({ page }) => {
+test("a visitor is offered sign-in; the demo customer follows KDX-2G4 from its public page and sees it on the change-notices page", async ({ page }) => {
+  await page.goto("/datasheets/kestrine/KDX-2G4/current");
+  await expect(page.getByTestId("follow-sign-in")).toContainText("Sign in as a customer");
   await signInAs(page, "customer");
-  const follow = await page.request.post("/api/subscriptions", { data: { organization: "kestrine", partNumber: "KDX-2G4" } });
-  expect([200, 201]).toContain(follow.status());
+  await page.goto("/datasheets/kestrine/KDX-2G4/current");
+  await page.getByRole("button", { name: "Follow this part" }).click();
+  await expect(page.getByRole("button", { name: "✓ Following this part" })).toBeDisabled();
   await page.goto("/subscriptions");
   await expect(page.getByRole("heading", { level: 1 })).toHaveText("Change notices");
   await expect(page.getByTestId("follows")).toContainText("KDX-2G4 of");
   await expect(page.getByText(demoUsers.customer.organization).first()).toBeVisible();
+});
+
+test("staff see no follow button on a released sheet", async ({ page }) => {
+  await signInAs(page, "engineer");
+  await page.goto("/datasheets/kestrine/KDX-2G4/current");
+  await expect(page.getByTestId("released-sheet")).toBeVisible();
+  await expect(page.getByTestId("follow")).toHaveCount(0);
+  await expect(page.getByTestId("follow-sign-in")).toHaveCount(0);
 });

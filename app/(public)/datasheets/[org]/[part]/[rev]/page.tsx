@@ -1,12 +1,15 @@
 import type { Metadata } from "next";
 import { cache, Suspense } from "react";
+import { isDeviceClass } from "@/lib/domain/device-classes";
 import { loadForPage } from "@/lib/server/auth/require-page-user";
+import { getSessionUser } from "@/lib/server/auth/session";
 import { renderSheetChartSvgs } from "@/lib/server/charts/render-chart";
 import { serverConfig } from "@/lib/server/config";
 import { findReleasedRevision } from "@/lib/server/reviews/list-revisions";
 import { SheetView } from "@/components/sheet/sheet-view";
 import { SheetViewWithCharts } from "@/components/sheets/sheet-view-with-charts";
 import { ReleasedSheetView } from "@/components/datasheets/released-sheet-view";
+import { FollowButton } from "@/components/subscriptions/follow-button";
 
 type Params = { org: string; part: string; rev: string };
 type Props = { params: Promise<Params> };
@@ -43,6 +46,19 @@ export default async function ReleasedDatasheetPage({ params }: Props) {
   const { summary, model, history } = await loadForPage(() => releasedSheet(org, part, rev));
   // A withdrawn revision stays readable and downloadable; its standing is known now, never frozen in the model.
   const withdrawn = summary.withdrawal ? { reason: summary.withdrawal.reason, withdrawnOn: summary.withdrawal.withdrawnAt } : undefined;
+  // Customers follow a part (the API checks the role again); a visitor is offered the way to sign in.
+  const user = await getSessionUser();
+  const deviceClass = model.template.deviceClass;
+  const follow = isDeviceClass(deviceClass) ? (
+    <FollowButton
+      organizationSlug={segment(org)}
+      organizationName={model.header.organizationName}
+      partNumber={model.header.partNumber}
+      deviceClass={deviceClass}
+      viewer={!user ? "signed-out" : user.role === "customer" ? "customer" : "other"}
+      returnPath={summary.publicPath}
+    />
+  ) : null;
   return (
     <ReleasedSheetView
       summary={summary}
@@ -50,6 +66,7 @@ export default async function ReleasedDatasheetPage({ params }: Props) {
       organizationName={model.header.organizationName}
       partNumber={model.header.partNumber}
       addressedAsCurrent={segment(rev) === "current"}
+      follow={follow}
       sheetView={
         <Suspense fallback={<SheetView model={model} withdrawn={withdrawn} />}>
           <SheetViewWithCharts model={model} chartSvgs={renderSheetChartSvgs(model)} withdrawn={withdrawn} />
