@@ -107,6 +107,8 @@ export const apiResources = {
   "GET /api/devices/[id]/revisions": "devices",
   "POST /api/sheet-revisions/[id]/withdraw": "revision-withdrawal",
   "GET /api/v1/sheets/[org]/[part]/[rev]/pdf": "released-sheets",
+  "GET /api/v1/sheets": "catalog",
+  "GET /api/v1/sheets/[org]/[part]/[rev]": "released-sheets",
   "GET /api/admin/users": "people",
   "PATCH /api/admin/users/[id]": "people",
   "GET /api/admin/invitations": "people",

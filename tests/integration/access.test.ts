@@ -82,6 +82,8 @@ const probes: Record<ApiRoute, Probe> = {
   "GET /api/devices/[id]/revisions": { path: () => `/api/devices/${ownDeviceId}/revisions`, allowedStatus: 200 },
   "POST /api/sheet-revisions/[id]/withdraw": { path: () => `/api/sheet-revisions/${missing}/withdraw`, json: () => ({}), allowedStatus: 422 },
   "GET /api/v1/sheets/[org]/[part]/[rev]/pdf": { path: () => "/api/v1/sheets/no-such-org/NO-PART/A/pdf", allowedStatus: 404 },
+  "GET /api/v1/sheets": { path: () => "/api/v1/sheets?class=frequency-multiplier", allowedStatus: 200 },
+  "GET /api/v1/sheets/[org]/[part]/[rev]": { path: () => "/api/v1/sheets/no-such-org/NO-PART/current", allowedStatus: 404 },
   "GET /api/admin/users": { path: () => "/api/admin/users", allowedStatus: 200 },
   "PATCH /api/admin/users/[id]": { path: () => `/api/admin/users/${org.users.reviewer.id}`, json: () => ({ role: "wizard" }), allowedStatus: 422 },
   "GET /api/admin/invitations": { path: () => "/api/admin/invitations", allowedStatus: 200 },
