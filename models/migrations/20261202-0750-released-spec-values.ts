@@ -14,6 +14,40 @@ const ref = (table: string) => ({
 });
 const double = { type: DataTypes.DOUBLE, allowNull: true };
 
+const releasedSheetColumns = `revision_id, organization_id, device_id, device_class, part_number, title, letter,
+  input_min_hz, input_max_hz, output_min_hz, output_max_hz, drive_dbm, released_at`;
+
+/** The released_sheets rows of the revisions released before this migration (exported for the test that compares them with the release path's). */
+export const releasedSheetsSelect = `
+  SELECT r.id, r.organization_id, r.device_id,
+         JSON_VALUE(r.model_json, '$.template.deviceClass'),
+         JSON_VALUE(r.model_json, '$.header.partNumber'),
+         LEFT(JSON_VALUE(r.model_json, '$.header.title'), 200),
+         r.letter,
+         JSON_VALUE(d.key_conditions, '$.inputFrequencyHz.min'), JSON_VALUE(d.key_conditions, '$.inputFrequencyHz.max'),
+         JSON_VALUE(d.key_conditions, '$.outputFrequencyHz.min'), JSON_VALUE(d.key_conditions, '$.outputFrequencyHz.max'),
+         JSON_VALUE(d.key_conditions, '$.driveLevelDbm'),
+         r.released_at
+    FROM sheet_revisions r JOIN devices d ON d.id = r.device_id`;
+
+const releasedSpecValueColumns = `revision_id, organization_id, device_id, device_class, row_id, parameter, conditions_key,
+  min_value, typ_value, max_value, unit`;
+
+/** The released_spec_values rows of those revisions: every specification row of the frozen model. */
+export const releasedSpecValuesSelect = `
+  SELECT r.id, r.organization_id, r.device_id, JSON_VALUE(r.model_json, '$.template.deviceClass'),
+         j.row_id, j.parameter, j.conditions_key, j.min_value, j.typ_value, j.max_value, j.unit
+    FROM sheet_revisions r,
+         JSON_TABLE(r.model_json, '$.specifications.rows[*]' COLUMNS (
+           row_id VARCHAR(64) PATH '$.rowId',
+           parameter VARCHAR(64) PATH '$.parameter',
+           conditions_key VARCHAR(255) PATH '$.conditionsKey',
+           min_value DOUBLE PATH '$.min.value',
+           typ_value DOUBLE PATH '$.typ.value',
+           max_value DOUBLE PATH '$.max.value',
+           unit VARCHAR(32) PATH '$.unit'
+         )) AS j`;
+
 export async function up({ context: qi }: { context: QueryInterface }) {
   // One row per released revision: what the catalog lists, and the facts it searches by.
   await qi.createTable("released_sheets", {
@@ -57,34 +91,8 @@ export async function up({ context: qi }: { context: QueryInterface }) {
   await qi.addIndex("released_spec_values", ["parameter", "revision_id"], { name: "released_spec_values_parameter" });
   await qi.addIndex("released_spec_values", ["row_id", "revision_id"], { name: "released_spec_values_row" });
 
-  await qi.sequelize.query(`
-    INSERT INTO released_sheets (revision_id, organization_id, device_id, device_class, part_number, title, letter,
-                                 input_min_hz, input_max_hz, output_min_hz, output_max_hz, drive_dbm, released_at)
-    SELECT r.id, r.organization_id, r.device_id,
-           JSON_VALUE(r.model_json, '$.template.deviceClass'),
-           JSON_VALUE(r.model_json, '$.header.partNumber'),
-           LEFT(JSON_VALUE(r.model_json, '$.header.title'), 200),
-           r.letter,
-           JSON_VALUE(d.key_conditions, '$.inputFrequencyHz.min'), JSON_VALUE(d.key_conditions, '$.inputFrequencyHz.max'),
-           JSON_VALUE(d.key_conditions, '$.outputFrequencyHz.min'), JSON_VALUE(d.key_conditions, '$.outputFrequencyHz.max'),
-           JSON_VALUE(d.key_conditions, '$.driveLevelDbm'),
-           r.released_at
-      FROM sheet_revisions r JOIN devices d ON d.id = r.device_id`);
-  await qi.sequelize.query(`
-    INSERT INTO released_spec_values (revision_id, organization_id, device_id, device_class, row_id, parameter, conditions_key,
-                                      min_value, typ_value, max_value, unit)
-    SELECT r.id, r.organization_id, r.device_id, JSON_VALUE(r.model_json, '$.template.deviceClass'),
-           j.row_id, j.parameter, j.conditions_key, j.min_value, j.typ_value, j.max_value, j.unit
-      FROM sheet_revisions r,
-           JSON_TABLE(r.model_json, '$.specifications.rows[*]' COLUMNS (
-             row_id VARCHAR(64) PATH '$.rowId',
-             parameter VARCHAR(64) PATH '$.parameter',
-             conditions_key VARCHAR(255) PATH '$.conditionsKey',
-             min_value DOUBLE PATH '$.min.value',
-             typ_value DOUBLE PATH '$.typ.value',
-             max_value DOUBLE PATH '$.max.value',
-             unit VARCHAR(32) PATH '$.unit'
-           )) AS j`);
+  await qi.sequelize.query(`INSERT INTO released_sheets (${releasedSheetColumns}) ${releasedSheetsSelect}`);
+  await qi.sequelize.query(`INSERT INTO released_spec_values (${releasedSpecValueColumns}) ${releasedSpecValuesSelect}`);
 }
 
 export async function down({ context: qi }: { context: QueryInterface }) {
