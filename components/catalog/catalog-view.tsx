@@ -56,7 +56,7 @@ export function CatalogView({ query, typed, result, issues }: CatalogViewProps) 
             <FacetList title="Device class" facets={result.facets.deviceClass} selected={query.deviceClass} hrefFor={(value) => href(query, { deviceClass: value as CatalogQuery["deviceClass"] })} clearHref={href(query, { deviceClass: null })} />
             <FacetList title="Organization" facets={result.facets.organization} selected={query.organization} hrefFor={(value) => href(query, { organization: value })} clearHref={href(query, { organization: null })} />
           </aside>
-          <section aria-labelledby="catalog-results-title">
+          <section aria-labelledby="catalog-results-title" className="min-w-0">
             <h2 id="catalog-results-title" className="mb-3 text-lg font-semibold" data-testid="catalog-total">
               <span className="figure">{result.total}</span> {result.total === 1 ? "sheet" : "sheets"}
               {query.revisions === "current" ? ", current revisions" : ", every revision"}
@@ -252,7 +252,7 @@ function CatalogTable({ query, result }: { query: CatalogQuery; result: CatalogR
         {result.hits.map((hit) => (
           <tr key={hit.revisionId} data-testid="catalog-hit">
             <th scope="row">
-              <Link href={hit.path} className="font-semibold">
+              <Link href={hit.path} className="whitespace-nowrap font-semibold">
                 {hit.partNumber}
               </Link>
               <span className="block text-sm font-normal text-ink-muted">{hit.title}</span>
