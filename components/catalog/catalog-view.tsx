@@ -40,7 +40,7 @@ export function CatalogView({ query, typed, result, issues }: CatalogViewProps) 
         title="Released datasheets"
         lead="Every sheet an organization has reviewed and released, open to anyone. Search by what a part must do; each row links to the released sheet, fixed as it was signed."
       />
-      <CatalogSearchForm typed={typed} query={query} />
+      <CatalogSearchForm typed={typed} query={query} organizations={result?.facets.organization ?? []} />
       {issues.length ? (
         <div className="mb-6 space-y-2" data-testid="catalog-issues">
           {issues.map((issue) => (
@@ -70,7 +70,7 @@ export function CatalogView({ query, typed, result, issues }: CatalogViewProps) 
   );
 }
 
-function CatalogSearchForm({ typed, query }: { typed: CatalogViewProps["typed"]; query: CatalogQuery }) {
+function CatalogSearchForm({ typed, query, organizations }: { typed: CatalogViewProps["typed"]; query: CatalogQuery; organizations: CatalogFacet[] }) {
   const conditions = [...typed.f, ...Array<string>(CONDITION_FIELDS).fill("")].slice(0, Math.max(CONDITION_FIELDS, typed.f.length));
   const parameters = [...catalogParameters().values()];
   return (
@@ -91,7 +91,24 @@ function CatalogSearchForm({ typed, query }: { typed: CatalogViewProps["typed"];
           </select>
         </div>
         <LabelledInput id="catalog-covers" label="Covers the frequency" name="covers" defaultValue={typed.covers} placeholder="e.g. 2.4 GHz" hint="In the input or output band." />
-        <LabelledInput id="catalog-org" label="Organization (short name)" name="org" defaultValue={typed.org} placeholder="e.g. kestrel-rf" />
+        {organizations.length ? (
+          <div className="space-y-1.5">
+            <label htmlFor="catalog-org" className="block text-[0.9375rem] font-semibold">
+              Organization
+            </label>
+            {/* The organizations with sheets for the rest of the query (the facet is counted without its own filter). */}
+            <select id="catalog-org" name="org" defaultValue={typed.org} className={selectClass}>
+              <option value="">Any organization</option>
+              {organizations.map((o) => (
+                <option key={o.value} value={o.value}>
+                  {o.label}
+                </option>
+              ))}
+            </select>
+          </div>
+        ) : (
+          <LabelledInput id="catalog-org" label="Organization (short name)" name="org" defaultValue={typed.org} placeholder="e.g. kestrine" />
+        )}
       </div>
       <fieldset className="space-y-2">
         <legend className="text-[0.9375rem] font-semibold">Conditions</legend>
