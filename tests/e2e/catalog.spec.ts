@@ -1,4 +1,5 @@
-import { expect, test } from "@playwright/test";
+import AxeBuilder from "@axe-core/playwright";
+import { expect, test, type Page } from "@playwright/test";
 
 // The public catalog as a signed-out visitor uses it: conditions typed as an engineer writes them,
 // the search kept in the address, the facets, and a clear message for a condition it cannot read.
@@ -43,4 +44,22 @@ test("sorts by a figure through the column header, with the order announced", as
   await header.getByRole("link").click();
   await expect(page).toHaveURL(/sort=conversion-loss\.max/);
   await expect(page.getByTestId("catalog-results").getByRole("columnheader", { name: /CL/ })).toHaveAttribute("aria-sort", "ascending");
+});
+
+/** WCAG 2.x A and AA rules of axe-core on the whole page: no violation. */
+async function expectAccessible(page: Page, what: string): Promise<void> {
+  const results = await new AxeBuilder({ page }).include("main").withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
+  const found = results.violations.map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
+  expect(found, `axe-core on ${what}`).toEqual([]);
+}
+
+test("is accessible: the search form, the facets, a class's result table, and a refused query", async ({ page }) => {
+  await page.goto("/catalog");
+  await expectAccessible(page, "the catalog");
+  await page.goto("/catalog?class=frequency-multiplier&sort=conversion-loss.max&dir=desc");
+  await expect(page.getByTestId("catalog-results")).toBeVisible();
+  await expectAccessible(page, "a class's results");
+  await page.goto("/catalog?f=warp-factor%3C%3D9");
+  await expect(page.getByTestId("catalog-issues")).toBeVisible();
+  await expectAccessible(page, "a refused query");
 });
