@@ -88,8 +88,10 @@ export async function up({ context: qi }: { context: QueryInterface }) {
     unit: { type: DataTypes.STRING(32), allowNull: false },
   });
   await qi.addIndex("released_spec_values", ["revision_id", "row_id", "conditions_key"], { unique: true, name: "released_spec_values_group" });
-  await qi.addIndex("released_spec_values", ["parameter", "revision_id"], { name: "released_spec_values_parameter" });
-  await qi.addIndex("released_spec_values", ["row_id", "revision_id"], { name: "released_spec_values_row" });
+  // Covering: a condition's GROUP BY revision HAVING MAX(max_value) … and the sort's aggregate read the index alone.
+  const limits = ["max_value", "min_value", "typ_value"];
+  await qi.addIndex("released_spec_values", ["parameter", "revision_id", ...limits], { name: "released_spec_values_parameter" });
+  await qi.addIndex("released_spec_values", ["row_id", "revision_id", ...limits], { name: "released_spec_values_row" });
 
   await qi.sequelize.query(`INSERT INTO released_sheets (${releasedSheetColumns}) ${releasedSheetsSelect}`);
   await qi.sequelize.query(`INSERT INTO released_spec_values (${releasedSpecValueColumns}) ${releasedSpecValuesSelect}`);

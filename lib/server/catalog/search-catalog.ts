@@ -14,14 +14,48 @@ const VALUE_COLUMN: Record<SpecField, string> = { min: "min_value", typ: "typ_va
 // The worst case over a sheet's condition groups: the highest max, the lowest min; typ sorts by its mean.
 const SORT_AGGREGATE: Record<SpecField, string> = { min: "MIN", typ: "AVG", max: "MAX" };
 
+const CACHE_ENTRIES = 256;
+const CACHE_MS = 60_000;
+const cache = new Map<string, { version: string; at: number; result: CatalogResult }>();
+
 /**
  * The public catalog's search, in MariaDB over the released-spec index (released_sheets and
  * released_spec_values, written by the release transaction): the page of hits, the total, and the
  * counts per device class and per organization for the same query (each facet counted without its
  * own filter, so the other choices show what they would find). Anyone may search; only released
  * revisions are indexed, so nothing of a draft can come back (the resource `catalog` is public).
+ *
+ * The last few answers are kept in memory by query for up to a minute, and only while the catalog's
+ * version is the same: the highest revision id indexed and the highest withdrawal id. Revisions and
+ * withdrawals are only ever added (the tables refuse UPDATE and DELETE), so any release or withdrawal,
+ * by any process, changes the version and the next search runs again.
  */
 export async function searchCatalog(query: CatalogQuery): Promise<CatalogResult> {
+  const version = await catalogVersion();
+  const key = JSON.stringify(query);
+  const kept = cache.get(key);
+  if (kept && kept.version === version && Date.now() - kept.at < CACHE_MS) {
+    cache.delete(key);
+    cache.set(key, kept);
+    return kept.result;
+  }
+  const result = await runSearch(query);
+  cache.delete(key);
+  cache.set(key, { version, at: Date.now(), result });
+  if (cache.size > CACHE_ENTRIES) cache.delete(cache.keys().next().value as string);
+  return result;
+}
+
+async function catalogVersion(): Promise<string> {
+  const [row] = await db().sequelize.query<{ r: number | null; w: number | null }>(
+    "SELECT (SELECT MAX(revision_id) FROM released_sheets) AS r, (SELECT MAX(id) FROM sheet_revision_withdrawals) AS w",
+    { type: QueryTypes.SELECT },
+  );
+  return `${row?.r ?? 0}:${row?.w ?? 0}`;
+}
+
+/** The search itself: the page, the facets (the total is read from them) and the page's key figures. */
+async function runSearch(query: CatalogQuery): Promise<CatalogResult> {
   const { sequelize } = db();
   const from = "FROM released_sheets s JOIN organizations o ON o.id = s.organization_id";
   const all = whereOf(query);
@@ -29,7 +63,7 @@ export async function searchCatalog(query: CatalogQuery): Promise<CatalogResult>
 
   const sort = sortExpression(query);
   const offset = (query.page - 1) * query.pageSize;
-  const [rows, totals, classCounts, orgCounts] = await Promise.all([
+  const [rows, classCounts, orgCounts] = await Promise.all([
     sequelize.query<HitRow>(
       `SELECT s.revision_id, s.part_number, s.title, s.device_class, s.letter, s.released_at,
               s.input_min_hz, s.input_max_hz, s.output_min_hz, s.output_max_hz, s.drive_dbm,
@@ -39,7 +73,6 @@ export async function searchCatalog(query: CatalogQuery): Promise<CatalogResult>
         LIMIT ? OFFSET ?`,
       { type: QueryTypes.SELECT, replacements: [...sort.replacements, ...all.replacements, query.pageSize, offset] },
     ),
-    sequelize.query<{ total: number }>(`SELECT COUNT(*) AS total ${from} ${where(all)}`, { type: QueryTypes.SELECT, replacements: all.replacements }),
     facetCounts("s.device_class", whereOf(query, "deviceClass")),
     facetCounts("o.slug", whereOf(query, "organization"), ", MAX(o.name) AS label"),
   ]);
@@ -52,8 +85,10 @@ export async function searchCatalog(query: CatalogQuery): Promise<CatalogResult>
   }
 
   const figures = await keyFigures(rows);
+  // The class facet is the query without its class filter: the total is its chosen class's count, or all of it.
+  const total = classCounts.filter((c) => !query.deviceClass || c.value === query.deviceClass).reduce((sum, c) => sum + Number(c.count), 0);
   return {
-    total: Number(totals[0]?.total ?? 0),
+    total,
     page: query.page,
     pageSize: query.pageSize,
     hits: rows.map((row) => toHit(row, figures.get(row.revision_id) ?? [])),
