@@ -208,6 +208,21 @@ describe("GET /api/v1/sheets", () => {
   });
 });
 
+describe("a withdrawal", () => {
+  it("takes the revision out of the current catalog at once, and rev=all still lists it", async () => {
+    const before = await search(q([["q", tag], ["org", vendor.organization.slug]]));
+    expect(parts(before)).toContain(part("M1"));
+    const w = await vendorClients.get("reviewer")!.request(`/api/sheet-revisions/${revisions.M1.id}/withdraw`, { json: { reason: "Catalog test: withdrawn to leave the current list." } });
+    expect(w.status, await w.clone().text()).toBe(200);
+    // The same query again: the answer kept for it must not outlive the withdrawal.
+    const after = await search(q([["q", tag], ["org", vendor.organization.slug]]));
+    expect(parts(after)).toEqual([part("D1"), part("D2")]);
+    expect(after.total).toBe(before.total - 1);
+    const all = await search(q([["q", tag], ["org", vendor.organization.slug], ["rev", "all"]]));
+    expect(parts(all)).toContain(part("M1"));
+  });
+});
+
 describe("GET /api/v1/sheets/{org}/{part}/{rev}", () => {
   it("returns the released model as versioned JSON, by letter and as current, with an ETag", async () => {
     const base = `/api/v1/sheets/${lab.organization.slug}/${part("L1")}`;
