@@ -254,7 +254,7 @@ function CatalogTable({ query, result }: { query: CatalogQuery; result: CatalogR
               <th key={c.key} scope="col" className="num" aria-sort={ariaSort(query, sort)}>
                 <SortLink query={query} sort={sort} label={<abbr title={parameters.get(c.key)?.label}>{c.symbol}</abbr>} />
                 <span className="block font-normal text-ink-muted">
-                  typ · {c.guarantee}, {parameters.get(c.key)?.unit}
+                  typ · {c.guarantee}, <span className="normal-case">{parameters.get(c.key)?.unit}</span>
                 </span>
               </th>
             );
