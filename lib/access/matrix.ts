@@ -115,6 +115,8 @@ export const apiResources = {
   "POST /api/subscriptions": "subscriptions",
   "DELETE /api/subscriptions/[id]": "subscriptions",
   "POST /api/unsubscribe": "unsubscribe",
+  "GET /api/v1/sheets": "catalog",
+  "GET /api/v1/sheets/[org]/[part]/[rev]": "released-sheets",
   "GET /api/admin/users": "people",
   "PATCH /api/admin/users/[id]": "people",
   "GET /api/admin/invitations": "people",

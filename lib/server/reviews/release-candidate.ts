@@ -7,6 +7,7 @@ import { releaseSheetModel, revisionLetter, serializeSheetModel, type SheetModel
 import { db } from "@/models";
 import type { Organization } from "@/models";
 import { recordAuditEvent } from "../audit/record-audit-event";
+import { indexReleasedRevision } from "../catalog/index-released-revision";
 import { authorize } from "../auth/authorize";
 import { lockOwnRow } from "../auth/own-row";
 import type { SessionUser } from "../auth/session-user";
@@ -29,7 +30,7 @@ import type { RevisionSummary } from "@/lib/domain/reviews";
  * audit event and the notices queued. Any failure rolls all of it back: no revision, no PDF.
  */
 export async function releaseCandidate(opts: { engineer: SessionUser; candidateId: number; body: ReleaseBody }): Promise<RevisionSummary> {
-  const { SheetCandidate, SheetRevision, SheetSignature, Organization, sequelize } = db();
+  const { SheetCandidate, SheetRevision, SheetSignature, Organization, Device, sequelize } = db();
   const { engineer, candidateId, body } = opts;
   authorize(engineer, "sheet-release");
   const existing = await SheetCandidate.findOne({ where: { id: candidateId, organizationId: engineer.organizationId } });
@@ -95,6 +96,11 @@ export async function releaseCandidate(opts: { engineer: SessionUser; candidateI
         releasedAt,
       },
       { transaction },
+    );
+    const device = await Device.findByPk(candidate.deviceId, { attributes: ["keyConditions"], transaction });
+    await indexReleasedRevision(
+      { revisionId: revision.id, organizationId: candidate.organizationId, deviceId: candidate.deviceId, letter, releasedAt, model, keyConditions: device?.keyConditions ?? {} },
+      transaction,
     );
     candidate.state = "released";
     candidate.openDeviceId = null;
