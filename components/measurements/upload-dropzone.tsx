@@ -1,24 +1,16 @@
 "use client";
 
-import { useId, useState } from "react";
+import { useId } from "react";
 import { buttonClass } from "@/components/ui/button";
+import { useFileDrop } from "@/components/ui/use-file-drop";
 
 /** Drop files here or choose them; every file chosen goes to onFiles. */
 export function UploadDropzone({ onFiles }: { onFiles: (files: FileList) => void }) {
   const id = useId();
-  const [dragging, setDragging] = useState(false);
+  const { dragging, dropProps } = useFileDrop(onFiles);
   return (
     <div
-      onDragOver={(e) => {
-        e.preventDefault();
-        setDragging(true);
-      }}
-      onDragLeave={() => setDragging(false)}
-      onDrop={(e) => {
-        e.preventDefault();
-        setDragging(false);
-        onFiles(e.dataTransfer.files);
-      }}
+      {...dropProps}
       className={`flex flex-col items-center justify-center gap-3 border border-dashed px-6 py-10 text-center transition-colors ${
         dragging ? "border-signal bg-signal-wash" : "border-rule-strong bg-paper-bright"
       }`}

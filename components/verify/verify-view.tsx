@@ -4,6 +4,7 @@ import Link from "next/link";
 import { useEffect, useRef, useState } from "react";
 import { ApiError, requestJson } from "@/components/api-client";
 import { buttonClass } from "@/components/ui/button";
+import { useFileDrop } from "@/components/ui/use-file-drop";
 import { Notice } from "@/components/ui/notice";
 import { PageHeader } from "@/components/ui/page-header";
 import { formatDate, formatDateTime } from "@/lib/format/date";
@@ -30,7 +31,9 @@ function describe(query: VerifyQuery): string {
 export function VerifyView({ initial }: { initial: string }) {
   const [state, setState] = useState<State>({ kind: "idle" });
   const [text, setText] = useState(initial);
-  const [dragging, setDragging] = useState(false);
+  const { dragging, dropProps } = useFileDrop((files) => {
+    if (files[0]) void hashFile(files[0]);
+  });
   const hashing = useRef<AbortController | null>(null);
   const fileInput = useRef<HTMLInputElement>(null);
 
@@ -94,17 +97,7 @@ export function VerifyView({ initial }: { initial: string }) {
       <div className="grid gap-8 lg:grid-cols-2">
         <div
           data-testid="verify-drop"
-          onDragOver={(e) => {
-            e.preventDefault();
-            setDragging(true);
-          }}
-          onDragLeave={() => setDragging(false)}
-          onDrop={(e) => {
-            e.preventDefault();
-            setDragging(false);
-            const file = e.dataTransfer.files[0];
-            if (file) void hashFile(file);
-          }}
+          {...dropProps}
           className={`flex min-h-40 flex-col items-start justify-center gap-3 rounded border-2 border-dashed p-6 ${dragging ? "border-signal bg-signal-wash" : "border-rule-strong bg-paper-deep"}`}
         >
           <p className="text-[1.0625rem] font-semibold">{dragging ? "Drop it here" : "Drop the PDF here"}</p>
