@@ -92,3 +92,16 @@ test("staff see no follow button on a released sheet", async ({ page }) => {
   await expect(page.getByTestId("follow")).toHaveCount(0);
   await expect(page.getByTestId("follow-sign-in")).toHaveCount(0);
 });
+
+test("a file dropped on the drop area (not chosen) is hashed and answered the same way", async ({ page }) => {
+  const pdf = await (await page.request.get(demoPdf("A"))).body();
+  await page.goto("/verify");
+  const transfer = await page.evaluateHandle((bytes) => {
+    const dt = new DataTransfer();
+    dt.items.add(new File([new Uint8Array(bytes)], "KDX-2G4-rev-A.pdf", { type: "application/pdf" }));
+    return dt;
+  }, [...pdf]);
+  await page.getByTestId("verify-drop").dispatchEvent("dragover", { dataTransfer: transfer });
+  await page.getByTestId("verify-drop").dispatchEvent("drop", { dataTransfer: transfer });
+  await expect(page.getByTestId("verify-sentence")).toContainText("superseded by revision B");
+});
