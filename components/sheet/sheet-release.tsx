@@ -1,5 +1,6 @@
 import { candidateDigestLabel, signedAtText } from "@/lib/sheet/release-text";
 import type { SheetModel, SheetRelease, SheetSignature } from "@/lib/sheet/types";
+import { Notation } from "./notation";
 import { SheetHeading } from "./sheet-heading";
 
 type ModelProps = { model: SheetModel };
@@ -75,7 +76,9 @@ export function SheetReleaseRecord({ model }: ModelProps) {
           <h3 className="font-semibold">Release notes, {header.revisionText}</h3>
           <ul className="mt-2 list-disc space-y-1 pl-5">
             {release.notes.map((note, i) => (
-              <li key={i}>{note}</li>
+              <li key={i}>
+                <Notation text={note} />
+              </li>
             ))}
           </ul>
         </div>

@@ -1,5 +1,6 @@
 import { proseLayout } from "@/lib/sheet/prose-layout";
 import type { SheetModel } from "@/lib/sheet/types";
+import { Notation } from "./notation";
 import { SheetHeading } from "./sheet-heading";
 import { SheetProse } from "./sheet-prose";
 
@@ -112,7 +113,9 @@ export function SheetRevisionHistory({ model }: ModelProps) {
             <tr key={`${entry.label}|${entry.date}`}>
               <th scope="row">{entry.label}</th>
               <td className="figure whitespace-nowrap">{entry.date}</td>
-              <td>{entry.summary}</td>
+              <td>
+                <Notation text={entry.summary} />
+              </td>
             </tr>
           ))}
         </tbody>

@@ -553,7 +553,7 @@ function RevisionHistory({ model }: { model: SheetModel }) {
           { header: "Date", width: "16%", mono: true },
           { header: "Changes", width: "72%" },
         ]}
-        rows={model.revisionHistory.map((entry) => [entry.label, entry.date, entry.summary])}
+        rows={model.revisionHistory.map((entry) => [entry.label, entry.date, <PdfNotation key="summary" text={entry.summary} />])}
       />
     </View>
   );
@@ -596,7 +596,9 @@ function ReleaseRecord({ model }: { model: SheetModel }) {
           {release.notes.map((note, i) => (
             <View key={i} style={styles.listItem}>
               <Text style={styles.bullet}>•</Text>
-              <Text style={{ flex: 1 }}>{note}</Text>
+              <Text style={{ flex: 1 }}>
+                <PdfNotation text={note} />
+              </Text>
             </View>
           ))}
         </View>

@@ -35,6 +35,12 @@ describe("the web sheet of a released revision", () => {
   const html = render({ model: released });
   const text = textOf(html);
 
+  it("sets the sheet's notation in the release notes and the history (T_A as T with a subscript A)", () => {
+    expect(html).not.toContain("T_A");
+    expect(html).toContain('<span class="whitespace-nowrap">T<sub>A</sub></span> 25 °C): max 11.50');
+    expect(html).toContain('tightened fundamental suppression at <span class="whitespace-nowrap">T<sub>A</sub></span> 25 °C');
+  });
+
   it("names the revision and carries no preliminary banner", () => {
     expect(html).not.toMatch(/PRELIMINARY/i);
     expect(text).not.toContain("Unreleased");
@@ -67,7 +73,8 @@ describe("the web sheet of a released revision", () => {
     );
     expect(html).toContain(`href="${doublerVerification.verificationUrl}"`);
     expect(record).toContain("Release notes, Rev. C");
-    for (const note of released.release!.notes) expect(record).toContain(note);
+    // A note in the sheet's notation ("T_A") is set with a subscript: its words around the symbol are compared.
+    for (const note of released.release!.notes) for (const piece of note.split("T_A")) expect(record).toContain(piece.trim());
   });
 
   it("ends with the foot the PDF prints on every page: part, revision and the verification reference", () => {

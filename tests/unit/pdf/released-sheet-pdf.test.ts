@@ -118,9 +118,16 @@ describe("a released sheet's PDF", () => {
     const text = pageTexts(releasedFile).join("\n").replace(/\s+/g, " ");
     expect(text).toContain("Rev. C of OCX-2D40, released 2026-12-02");
     expect(text).toContain("Release notes, Rev. C");
-    for (const note of released.release!.notes) expect(text).toContain(note);
+    // A note in the sheet's notation ("T_A") is set with a subscript: its words around the symbol are compared.
+    for (const note of released.release!.notes) for (const piece of note.split("T_A")) expect(text).toContain(piece.trim());
     // The revision history gains this revision's line.
     expect(text).toContain("C 2026-12-02 Guaranteed 85 °C conversion loss");
+  });
+
+  it("sets the sheet's notation in the release notes and the history: T_A as T with a subscript A, never the raw underscore", () => {
+    const text = pageTexts(releasedFile).join("\n");
+    expect(text).not.toContain("T_A");
+    expect(text).toContain("max 11.50 dB → 11.00 dB (tightened)");
   });
 
   it("names the revision in the document title and sets no ligatures", () => {

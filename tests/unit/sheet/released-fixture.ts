@@ -37,10 +37,11 @@ export function doublerCandidateAndRelease(): { candidate: SheetModel; released:
     notes: [
       "Conversion loss at 85 °C now guaranteed from ten units over two lots.",
       "Fundamental suppression limit tightened from 18 dBc to 20 dBc.",
+      "Conversion loss (Frequency 1 GHz in, T_A 25 °C): max 11.50 dB → 11.00 dB (tightened)",
       "Engineer's note: phase-noise figures re-measured after the test-set calibration.",
     ],
     earlierRevisions: loadDoublerInput().revision.history,
-    summary: "Guaranteed 85 °C conversion loss; tightened fundamental suppression.",
+    summary: "Guaranteed 85 °C conversion loss; tightened fundamental suppression at T_A 25 °C.",
   });
   return { candidate, released };
 }
