@@ -1,10 +1,10 @@
 import "server-only";
 import { Op, type Transaction } from "sequelize";
-import type { Role } from "@/lib/domain/permissions";
 import { db } from "@/models";
 import type { SheetCandidate } from "@/models";
 import { serverConfig } from "../config";
 import { enqueueNotices } from "../outbox/enqueue-notices";
+import { organizationMembers } from "../outbox/organization-members";
 import { queueFollowerNotices } from "../subscriptions/follower-notices";
 
 export type CandidateEvent =
@@ -30,40 +30,39 @@ export async function queueCandidateNotice(e: CandidateEvent, transaction: Trans
   const part = device?.partNumber ?? `device #${c.deviceId}`;
   const reviewLink = `${serverConfig.appUrl}/review/sheets/${c.id}`;
   const sheetLink = `${serverConfig.appUrl}/sheets/${c.deviceId}`;
-  const ids = { submitter: [c.submittedById] };
+  const submitter = await emailsOf([c.submittedById], transaction);
+  // The organization's reviewers other than the submitter (four eyes: they never review their own).
+  const otherReviewers = async () => (await organizationMembers(c.organizationId, ["reviewer"], transaction)).filter((to) => !submitter.includes(to));
   let recipients: string[];
   let subject: string;
   let text: string[];
   switch (e.event) {
     case "submitted":
-      recipients = await membersWithRoles(c.organizationId, ["reviewer"], transaction, ids.submitter);
+      recipients = await otherReviewers();
       subject = `Sheet ${part} submitted for review`;
       text = [`The sheet of ${part} was submitted for review (candidate #${c.id}).`, "", `Review it: ${reviewLink}`];
       break;
     case "changes-requested":
-      recipients = await emailsOf(ids.submitter, transaction);
+      recipients = submitter;
       subject = `Changes requested on sheet ${part}`;
       text = [`A reviewer asked for changes to the sheet of ${part} (candidate #${c.id}):`, "", e.reason, "", `Open the sheet: ${sheetLink}`];
       break;
     case "signed":
-      recipients = await emailsOf(ids.submitter, transaction);
+      recipients = submitter;
       subject = e.approved ? `Sheet ${part} approved for release` : `Sheet ${part} signed by ${e.signerName}`;
       text = e.approved
         ? [`${e.signerName} signed the sheet of ${part} (candidate #${c.id}); it is approved and may be released.`, "", `Release it: ${sheetLink}`]
         : [`${e.signerName} signed the sheet of ${part} (candidate #${c.id}); it needs another reviewer's signature before release.`, "", reviewLink];
       break;
     case "stale": {
-      const actors = await reviewActors(c.id, transaction);
-      recipients = [
-        ...(await emailsOf(ids.submitter, transaction)),
-        ...(actors.length ? await emailsOf(actors, transaction) : await membersWithRoles(c.organizationId, ["reviewer"], transaction, ids.submitter)),
-      ];
+      const actors = await reviewActors(c, transaction);
+      recipients = [...submitter, ...(actors.length ? await emailsOf(actors, transaction) : await otherReviewers())];
       subject = `Review of sheet ${part} starts over`;
       text = [`Candidate #${c.id} of the sheet of ${part} is out of date.`, "", e.reason, "", `Open the sheet: ${sheetLink}`];
       break;
     }
     case "released":
-      recipients = await membersWithRoles(c.organizationId, ["engineer", "reviewer"], transaction);
+      recipients = await organizationMembers(c.organizationId, ["engineer", "reviewer"], transaction);
       subject = `Sheet ${part} released as revision ${e.letter}`;
       text = [`Revision ${e.letter} of the sheet of ${part} is released.`, "", `Open the sheet: ${sheetLink}`];
       await queueFollowerNotices({ event: "released", revisionId: e.revisionId }, transaction);
@@ -76,30 +75,18 @@ export async function queueCandidateNotice(e: CandidateEvent, transaction: Trans
   );
 }
 
-async function membersWithRoles(organizationId: number, roles: Role[], transaction: Transaction, except: number[] = []): Promise<string[]> {
-  const { User } = db();
-  const users = await User.findAll({
-    where: { organizationId, role: { [Op.in]: roles }, disabledAt: null, ...(except.length ? { id: { [Op.notIn]: except } } : {}) },
-    attributes: ["email"],
-    order: [["id", "ASC"]],
-    transaction,
-  });
-  return users.map((u) => u.email);
-}
-
 async function emailsOf(userIds: number[], transaction: Transaction): Promise<string[]> {
   const { User } = db();
   const users = await User.findAll({ where: { id: { [Op.in]: userIds }, disabledAt: null }, attributes: ["email"], order: [["id", "ASC"]], transaction });
   return users.map((u) => u.email);
 }
 
-/** Reviewers who commented on or signed the candidate. */
-async function reviewActors(candidateId: number, transaction: Transaction): Promise<number[]> {
+/** The people other than the submitter who commented on or signed the candidate. */
+async function reviewActors(candidate: SheetCandidate, transaction: Transaction): Promise<number[]> {
   const { SheetComment, SheetSignature } = db();
   const [comments, signatures] = await Promise.all([
-    SheetComment.findAll({ where: { candidateId }, attributes: ["authorId"], transaction }),
-    SheetSignature.findAll({ where: { candidateId }, attributes: ["signerId"], transaction }),
+    SheetComment.findAll({ where: { candidateId: candidate.id }, attributes: ["authorId"], transaction }),
+    SheetSignature.findAll({ where: { candidateId: candidate.id }, attributes: ["signerId"], transaction }),
   ]);
-  const candidateSubmitter = (await db().SheetCandidate.findByPk(candidateId, { attributes: ["submittedById"], transaction }))?.submittedById;
-  return [...new Set([...comments.map((c) => c.authorId), ...signatures.map((s) => s.signerId)])].filter((id) => id !== candidateSubmitter);
+  return [...new Set([...comments.map((x) => x.authorId), ...signatures.map((x) => x.signerId)])].filter((id) => id !== candidate.submittedById);
 }
