@@ -17,20 +17,16 @@ type CandidateRow = SheetCandidate & { Device?: Device; submittedBy?: User; Shee
 export async function getCandidate(opts: { viewer: SessionUser; candidateId: number }): Promise<CandidateDetail> {
   const { viewer, candidateId } = opts;
   authorize(viewer, "sheet-comments");
-  const { SheetCandidate, SheetRevision, Device, User, SheetSignature } = db();
+  const { SheetCandidate, SheetRevision } = db();
   const candidate = (await SheetCandidate.findOne({
     where: { id: candidateId, organizationId: viewer.organizationId },
-    include: [
-      { model: Device, attributes: ["id", "partNumber", "title"] },
-      { model: User, as: "submittedBy", attributes: ["id", "name"] },
-      { model: SheetSignature, include: [] },
-    ],
+    include: candidateIncludes(),
   })) as CandidateRow | null;
   if (!candidate) throw new AppError("not-found", "No such sheet candidate in your organization.");
   const previous = candidate.comparedRevisionId
     ? await SheetRevision.unscoped().findByPk(candidate.comparedRevisionId, { attributes: ["letter", "modelJson"] })
     : null;
-  const signatures = await signatureViews(candidate.SheetSignatures ?? []);
+  const signatures = signatureViews(candidate.SheetSignatures ?? []);
   const summary = candidateSummary(candidate, previous?.letter ?? null);
   const ownSubmission = candidate.submittedById === viewer.id;
   const signedAlready = signatures.some((s) => s.signer.id === viewer.id);
@@ -62,6 +58,19 @@ export async function getCandidate(opts: { viewer: SessionUser; candidateId: num
   };
 }
 
+/**
+ * What a candidate summary reads beside the candidate: its device, its submitter and its signatures.
+ * The same for the queue, a device's review and the review page.
+ */
+export function candidateIncludes() {
+  const { Device, User, SheetSignature } = db();
+  return [
+    { model: Device, attributes: ["id", "partNumber", "title"] },
+    { model: User, as: "submittedBy", attributes: ["id", "name"] },
+    { model: SheetSignature },
+  ];
+}
+
 export function candidateSummary(candidate: CandidateRow, comparedRevision: string | null): CandidateSummary {
   return {
     id: candidate.id,
@@ -81,7 +90,7 @@ export function candidateSummary(candidate: CandidateRow, comparedRevision: stri
   };
 }
 
-async function signatureViews(rows: SheetSignature[]): Promise<SignatureView[]> {
+function signatureViews(rows: SheetSignature[]): SignatureView[] {
   return [...rows]
     .sort((a, b) => a.id - b.id)
     .map((s) => ({

@@ -5,7 +5,7 @@ import { db } from "@/models";
 import type { Device, SheetCandidate, SheetRevision, SheetSignature, User } from "@/models";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
-import { candidateSummary } from "./get-candidate";
+import { candidateIncludes, candidateSummary } from "./get-candidate";
 
 /**
  * The sheet review queue: the organization's candidates in review that the viewer did not submit
@@ -13,15 +13,11 @@ import { candidateSummary } from "./get-candidate";
  */
 export async function listPendingCandidates(viewer: SessionUser): Promise<CandidateSummary[]> {
   authorize(viewer, "sheet-review");
-  const { SheetCandidate, SheetRevision, SheetSignature, Device, User } = db();
+  const { SheetCandidate, SheetRevision } = db();
   const rows = (await SheetCandidate.findAll({
     where: { organizationId: viewer.organizationId, state: "in-review", submittedById: { [Op.ne]: viewer.id } },
     attributes: { exclude: ["modelJson"] },
-    include: [
-      { model: Device, attributes: ["id", "partNumber", "title"] },
-      { model: User, as: "submittedBy", attributes: ["id", "name"] },
-      { model: SheetSignature, attributes: ["id", "signerId"] },
-    ],
+    include: candidateIncludes(),
     order: [["submittedAt", "ASC"], ["id", "ASC"]],
   })) as (SheetCandidate & { Device?: Device; submittedBy?: User; SheetSignatures?: SheetSignature[] })[];
   const pending = rows.filter((c) => !(c.SheetSignatures ?? []).some((s) => s.signerId === viewer.id));
@@ -36,15 +32,11 @@ export async function listPendingCandidates(viewer: SessionUser): Promise<Candid
 /** The open candidate of a device (in review, changes requested or approved), with the latest closed one when none is open. */
 export async function findDeviceReview(opts: { viewer: SessionUser; deviceId: number }): Promise<{ open: CandidateSummary | null; latest: CandidateSummary | null }> {
   authorize(opts.viewer, "sheet-comments");
-  const { SheetCandidate, Device, User, SheetSignature } = db();
+  const { SheetCandidate } = db();
   const latest = (await SheetCandidate.findOne({
     where: { organizationId: opts.viewer.organizationId, deviceId: opts.deviceId },
     attributes: { exclude: ["modelJson"] },
-    include: [
-      { model: Device, attributes: ["id", "partNumber", "title"] },
-      { model: User, as: "submittedBy", attributes: ["id", "name"] },
-      { model: SheetSignature, attributes: ["id", "signerId"] },
-    ],
+    include: candidateIncludes(),
     order: [["id", "DESC"]],
   })) as (SheetCandidate & { Device?: Device; submittedBy?: User; SheetSignatures?: SheetSignature[] }) | null;
   if (!latest) return { open: null, latest: null };
