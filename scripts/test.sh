@@ -45,18 +45,32 @@ trap cleanup EXIT
 status=0
 step() { local name="$1"; shift; log "── $name"; "$@" || { log "✗ $name failed"; status=1; }; }
 
-step "type check" node node_modules/typescript/bin/tsc --noEmit
-step "unit tests" node node_modules/vitest/vitest.mjs run --project unit \
-  --reporter=default --reporter=json --outputFile.json="$RESULTS/unit.json"
+# A part of the run while working on a change (never in CI): TEST_SKIP_UNIT=1 skips types and unit
+# tests; TEST_INTEGRATION_FILES / TEST_E2E_FILES name the files to run ("-" runs none of them);
+# TEST_REUSE_BUILD=1 serves the build already in .next instead of building again.
+if [ -n "${CI:-}" ]; then unset TEST_SKIP_UNIT TEST_INTEGRATION_FILES TEST_E2E_FILES TEST_REUSE_BUILD; fi
+PARTIAL=""
+[ -n "${TEST_SKIP_UNIT:-}${TEST_INTEGRATION_FILES:-}${TEST_E2E_FILES:-}${TEST_REUSE_BUILD:-}" ] && PARTIAL="--partial"
+read -r -a INTEGRATION_FILES <<< "${TEST_INTEGRATION_FILES:-}"
+read -r -a E2E_FILES <<< "${TEST_E2E_FILES:-}"
+if [ "${TEST_SKIP_UNIT:-0}" != 1 ]; then
+  step "type check" node node_modules/typescript/bin/tsc --noEmit
+  step "unit tests" node node_modules/vitest/vitest.mjs run --project unit \
+    --reporter=default --reporter=json --outputFile.json="$RESULTS/unit.json"
+fi
 
 # A server left on the test port would answer instead of the one built here: refuse, do not test it.
 if curl -fsS -o /dev/null "$BENCHFOLD_TEST_URL/api/auth/csrf" 2>/dev/null; then
   die "something already answers on port $PORT; stop it (or set TEST_PORT) so the tests reach this build"
 fi
 
-log "── build"
-# This build also offers the test-only device classes (lib/domain/device-classes.ts); npm start's never does.
-if BENCHFOLD_TEST_DEVICE_CLASSES=1 node node_modules/next/dist/bin/next build >"$BENCHFOLD_DATA_DIR/logs/next-build-test.log" 2>&1; then
+build_for_tests() {
+  if [ "${TEST_REUSE_BUILD:-0}" = 1 ] && [ -f .next/BUILD_ID ]; then log "── build: reusing .next"; return 0; fi
+  log "── build"
+  # This build also offers the test-only device classes (lib/domain/device-classes.ts); npm start's never does.
+  BENCHFOLD_TEST_DEVICE_CLASSES=1 node node_modules/next/dist/bin/next build >"$BENCHFOLD_DATA_DIR/logs/next-build-test.log" 2>&1
+}
+if build_for_tests; then
   node scripts/server.mjs >"$BENCHFOLD_DATA_DIR/logs/next-test-server.log" 2>&1 &
   SERVER_PID=$!
   # The run's outbox worker drains lane "mail" into the test fake SMTP server, as npm start's does;
@@ -68,10 +82,14 @@ if BENCHFOLD_TEST_DEVICE_CLASSES=1 node node_modules/next/dist/bin/next build >"
     step "outbox worker" check_outbox_worker
     step "demo measurements through the bench API" env BENCHFOLD_APP_URL="$BENCHFOLD_TEST_URL" \
       node node_modules/tsx/dist/cli.mjs scripts/seed-demo-measurements.ts
-    step "integration tests" node node_modules/vitest/vitest.mjs run --project integration \
-      --reporter=default --reporter=json --outputFile.json="$RESULTS/integration.json"
-    step "browser tests" env PLAYWRIGHT_JSON_OUTPUT_NAME="$RESULTS/e2e.json" \
-      node node_modules/@playwright/test/cli.js test --reporter=list,json
+    if [ "${INTEGRATION_FILES[*]:-}" != "-" ]; then
+      step "integration tests" node node_modules/vitest/vitest.mjs run --project integration \
+        --reporter=default --reporter=json --outputFile.json="$RESULTS/integration.json" "${INTEGRATION_FILES[@]}"
+    fi
+    if [ "${E2E_FILES[*]:-}" != "-" ]; then
+      step "browser tests" env PLAYWRIGHT_JSON_OUTPUT_NAME="$RESULTS/e2e.json" \
+        node node_modules/@playwright/test/cli.js test --reporter=list,json "${E2E_FILES[@]}"
+    fi
     # The worker must outlive every fault the tests cause (a killed database, a stopped relay).
     if ! kill -0 "$OUTBOX_WORKER_PID" 2>/dev/null; then
       tail -20 "$BENCHFOLD_DATA_DIR/logs/outbox-worker-test.log"; log "✗ the outbox worker stopped during the tests"; status=1
@@ -83,6 +101,7 @@ else
   tail -40 "$BENCHFOLD_DATA_DIR/logs/next-build-test.log"; log "✗ build failed"; status=1
 fi
 
-node scripts/summarize-tests.mjs "$RESULTS" || status=1
+node scripts/summarize-tests.mjs "$RESULTS" $PARTIAL || status=1
+[ -n "$PARTIAL" ] && log "a partial run (TEST_* variables set): not a result for a commit"
 log "npm test took $(( $(date +%s) - started )) s"
 exit $status
