@@ -160,7 +160,7 @@ export function typicalCurve(units: Point[][], logX: boolean): Point[] {
 }
 
 /** Points sorted by x; two readings at one x (a decimated trace keeps a min and a max) become their mean. */
-function mergeRepeatedX(points: Point[]): Point[] {
+export function mergeRepeatedX(points: Point[]): Point[] {
   const sorted = [...points].sort((a, b) => a[0] - b[0] || a[1] - b[1]);
   const out: Point[] = [];
   let count = 0;
@@ -178,7 +178,7 @@ function mergeRepeatedX(points: Point[]): Point[] {
 }
 
 /** y at x on a sorted curve by linear interpolation, y = y0 + (y1 − y0)(x − x0)/(x1 − x0); null outside the curve's span. */
-function interpolate(points: Point[], x: number, toAxis: (x: number) => number): number | null {
+export function interpolate(points: Point[], x: number, toAxis: (x: number) => number): number | null {
   if (x < points[0][0] || x > points[points.length - 1][0]) return null;
   let low = 0;
   let high = points.length - 1;
