@@ -18,13 +18,15 @@ type ReleasedSheetViewProps = {
   sheetView: ReactNode;
   /** "Follow this part" for a customer, a sign-in line for a visitor (components/subscriptions/follow-button.tsx). */
   follow?: ReactNode;
+  /** The design-in calculator (components/datasheets/design-in-calculator.tsx), for a multiplier or a mixer. */
+  designIn?: ReactNode;
 };
 
 /**
  * The public page of one released revision: which revision it is and how it stands, the other
  * revisions, the stored PDF, then the sheet itself and the revision history.
  */
-export function ReleasedSheetView({ summary, history, organizationName, partNumber, addressedAsCurrent, sheetView, follow }: ReleasedSheetViewProps) {
+export function ReleasedSheetView({ summary, history, organizationName, partNumber, addressedAsCurrent, sheetView, follow, designIn }: ReleasedSheetViewProps) {
   const current = history.find((r) => r.standing === "current") ?? null;
   return (
     <div data-testid="released-sheet">
@@ -81,6 +83,8 @@ export function ReleasedSheetView({ summary, history, organizationName, partNumb
           </Notice>
         </div>
       ) : null}
+
+      {designIn}
 
       <div className="border border-rule bg-paper-bright" data-testid="released-web-sheet">
         {sheetView}

@@ -117,6 +117,7 @@ export const apiResources = {
   "POST /api/unsubscribe": "unsubscribe",
   "GET /api/v1/sheets": "catalog",
   "GET /api/v1/sheets/[org]/[part]/[rev]": "released-sheets",
+  "GET /api/v1/sheets/[org]/[part]/[rev]/design-in": "released-sheets",
   "GET /api/admin/users": "people",
   "PATCH /api/admin/users/[id]": "people",
   "GET /api/admin/invitations": "people",

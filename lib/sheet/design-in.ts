@@ -147,7 +147,7 @@ const CLASS_CHARTS: Record<DesignInDeviceClass, { swept: DesignInField; sweptLab
         parameter: "harmonic-suppression",
         curve: (series) => {
           const order = harmonicOrder(series);
-          return { label: order === 1 ? "Fundamental suppression" : `${capitalize(series.replace(/ \(×\d+\)$/, ""))} suppression`, match: order === null ? {} : { order } };
+          return { label: order === 1 ? "Fundamental suppression" : `${capitalize(series.replace(/ \(×\d+\)$/, ""))} suppression`, match: order === null ? ({} as Conditions) : { order } };
         },
       },
     ],
@@ -529,4 +529,27 @@ export function quantityText(value: number, unit: string): string {
 
 function rangeWords(min: number, max: number, unit: string): string {
   return unit === "dBm" ? `${quantityText(min, unit)} to ${quantityText(max, unit)}` : formatRange(min, max, unit, { digits: { maxSignificant: 6 } });
+}
+
+/* ---------- one request, page or API ---------- */
+
+export type DesignInOutcome =
+  | { kind: "blank" }
+  | { kind: "issues"; issues: DesignInIssue[] }
+  | { kind: "refused"; refusal: DesignInRefusal }
+  | { kind: "answer"; answer: DesignInAnswer };
+
+/**
+ * What the page and `GET /api/v1/sheets/{org}/{part}/{rev}/design-in` both do with the two fields as
+ * typed: a sheet the calculator cannot read is said first, then unreadable input, then the reading
+ * or the refusal to extrapolate.
+ */
+export function designInOutcome(model: SheetModel, typed: { drive?: string | null; frequency?: string | null }): DesignInOutcome {
+  const curves = readDesignInCurves(model);
+  if (!curves.ok) return { kind: "refused", refusal: curves };
+  const read = readDesignInQuery(typed);
+  if (read.ok === "blank") return { kind: "blank" };
+  if (read.ok === false) return { kind: "issues", issues: read.issues };
+  const answer = computeDesignIn(model, read.query);
+  return answer.ok ? { kind: "answer", answer } : { kind: "refused", refusal: answer };
 }

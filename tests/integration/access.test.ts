@@ -89,6 +89,7 @@ const probes: Record<ApiRoute, Probe> = {
   "POST /api/unsubscribe": { path: () => "/api/unsubscribe", json: () => ({}), allowedStatus: 422 },
   "GET /api/v1/sheets": { path: () => "/api/v1/sheets?class=frequency-multiplier", allowedStatus: 200 },
   "GET /api/v1/sheets/[org]/[part]/[rev]": { path: () => "/api/v1/sheets/no-such-org/NO-PART/current", allowedStatus: 404 },
+  "GET /api/v1/sheets/[org]/[part]/[rev]/design-in": { path: () => "/api/v1/sheets/no-such-org/NO-PART/current/design-in?drive=10&frequency=1%20GHz", allowedStatus: 404 },
   "GET /api/admin/users": { path: () => "/api/admin/users", allowedStatus: 200 },
   "PATCH /api/admin/users/[id]": { path: () => `/api/admin/users/${org.users.reviewer.id}`, json: () => ({ role: "wizard" }), allowedStatus: 422 },
   "GET /api/admin/invitations": { path: () => "/api/admin/invitations", allowedStatus: 200 },

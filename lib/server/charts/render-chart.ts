@@ -72,6 +72,12 @@ function cachedChartSvg(key: string, vegaLite: Record<string, unknown>): Promise
   return remember(svgCache, key, () => renderChartSvg(vegaLite));
 }
 
+/** Charts built for one page (the design-in calculator's) as SVG markup, keyed by id, through the same cache. */
+export async function renderChartSvgsById(charts: { id: string; vegaLite: Record<string, unknown> }[]): Promise<Record<string, string>> {
+  const entries = await Promise.all(charts.map(async (chart) => [chart.id, await cachedChartSvg(specKey(chart.vegaLite), chart.vegaLite)] as const));
+  return Object.fromEntries(entries);
+}
+
 /** Every chart of a sheet as SVG markup, keyed by chart id, for the web view. */
 export async function renderSheetChartSvgs(model: SheetModel): Promise<Record<string, string>> {
   const entries = await Promise.all(model.charts.map(async (chart) => [chart.id, await cachedChartSvg(specKey(chart.vegaLite), chart.vegaLite)] as const));

@@ -3,16 +3,22 @@ import { cache, Suspense } from "react";
 import { isDeviceClass } from "@/lib/domain/device-classes";
 import { loadForPage } from "@/lib/server/auth/require-page-user";
 import { getSessionUser } from "@/lib/server/auth/session";
-import { renderSheetChartSvgs } from "@/lib/server/charts/render-chart";
+import { renderChartSvgsById, renderSheetChartSvgs } from "@/lib/server/charts/render-chart";
 import { serverConfig } from "@/lib/server/config";
 import { findReleasedRevision } from "@/lib/server/reviews/list-revisions";
 import { SheetView } from "@/components/sheet/sheet-view";
 import { SheetViewWithCharts } from "@/components/sheets/sheet-view-with-charts";
 import { ReleasedSheetView } from "@/components/datasheets/released-sheet-view";
 import { FollowButton } from "@/components/subscriptions/follow-button";
+import { DesignInCalculator } from "@/components/datasheets/design-in-calculator";
+import { datasheetPath } from "@/lib/domain/reviews";
+import { designInOutcome, isDesignInDeviceClass, readDesignInCurves } from "@/lib/sheet/design-in";
+import { buildDesignInCharts } from "@/lib/sheet/design-in-charts";
+import type { SheetModel } from "@/lib/sheet/types";
 
 type Params = { org: string; part: string; rev: string };
-type Props = { params: Promise<Params> };
+type Search = Record<string, string | string[] | undefined>;
+type Props = { params: Promise<Params>; searchParams: Promise<Search> };
 
 /** A path segment as the person typed it: "%2F" and "%20" back to their characters (a lone "%" stays as it is). */
 function segment(value: string): string {
@@ -41,7 +47,7 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 }
 
 /** A released revision, public: drawn from its frozen model, never from live data. */
-export default async function ReleasedDatasheetPage({ params }: Props) {
+export default async function ReleasedDatasheetPage({ params, searchParams }: Props) {
   const { org, part, rev } = await params;
   const { summary, model, history } = await loadForPage(() => releasedSheet(org, part, rev));
   // A withdrawn revision stays readable and downloadable; its standing is known now, never frozen in the model.
@@ -67,11 +73,41 @@ export default async function ReleasedDatasheetPage({ params }: Props) {
       partNumber={model.header.partNumber}
       addressedAsCurrent={segment(rev) === "current"}
       follow={follow}
+      designIn={await designIn({ model, search: await searchParams, action: datasheetPath(segment(org), segment(part), segment(rev)), letter: summary.letter })}
       sheetView={
         <Suspense fallback={<SheetView model={model} withdrawn={withdrawn} />}>
           <SheetViewWithCharts model={model} chartSvgs={renderSheetChartSvgs(model)} withdrawn={withdrawn} />
         </Suspense>
       }
+    />
+  );
+}
+
+function first(value: string | string[] | undefined): string {
+  return (Array.isArray(value) ? value[0] : value) ?? "";
+}
+
+/**
+ * The design-in calculator, from the frozen model and the page's query (?drive=&frequency=): the same
+ * function as the API's, its charts drawn to SVG here. A sheet of another class shows none, unless
+ * the address asks it something (then it says why not).
+ */
+async function designIn({ model, search, action, letter }: { model: SheetModel; search: Search; action: string; letter: string }) {
+  const typed = { drive: first(search.drive).slice(0, 200), frequency: first(search.frequency).slice(0, 200) };
+  const outcome = designInOutcome(model, typed);
+  if (!isDesignInDeviceClass(model.template.deviceClass) && outcome.kind === "blank") return null;
+  const curves = readDesignInCurves(model);
+  const charts = outcome.kind === "answer" ? buildDesignInCharts(model, outcome.answer) : [];
+  return (
+    <DesignInCalculator
+      action={action}
+      partNumber={model.header.partNumber}
+      revisionLetter={letter}
+      curves={curves.ok ? curves : { ok: false, message: curves.message }}
+      typed={typed}
+      outcome={outcome}
+      charts={charts}
+      chartSvgs={charts.length ? await renderChartSvgsById(charts) : {}}
     />
   );
 }
