@@ -34,8 +34,12 @@ const DRIVE_STYLE = { signed: true, digits: { maxDecimals: 2 } } as const;
 export function DesignInCalculator({ action, partNumber, revisionLetter, curves, typed, outcome, charts, chartSvgs }: DesignInCalculatorProps) {
   const issues = outcome.kind === "issues" ? outcome.issues : [];
   const refusal = outcome.kind === "refused" ? outcome.refusal : null;
-  const errorFor = (field: "drive" | "frequency") =>
-    issues.find((i) => i.field === field)?.message ?? (refusal && refusal.field === field ? refusal.message : undefined);
+  // Each message is said once, below the form; a field it is about is marked invalid and pointed at it.
+  const messageIdFor = (field: "drive" | "frequency") =>
+    issues.some((i) => i.field === field) ? `design-in-issue-${field}` : refusal && refusal.field === field ? "design-in-refusal-message" : undefined;
+  const blank = outcome.kind === "blank";
+  const fixedDefault = (field: "drive" | "frequency") =>
+    blank && curves.ok && curves.curves.fixed.field === field ? quantityText(curves.curves.fixed.value, curves.curves.fixed.unit).replace(/\u00a0/g, " ") : "";
   return (
     <section id="design-in" aria-labelledby="design-in-title" className="mb-8 border-y border-rule py-6 print:hidden" data-testid="design-in">
       <h2 id="design-in-title" className="mb-1 text-lg font-semibold">
@@ -58,23 +62,23 @@ export function DesignInCalculator({ action, partNumber, revisionLetter, curves,
               id="design-in-drive"
               name="drive"
               label={curves.curves.deviceClass === "frequency-multiplier" ? "Drive level, per port" : "LO drive"}
-              defaultValue={typed.drive}
-              placeholder={curves.curves.fixed.field === "drive" ? quantityText(curves.curves.fixed.value, "dBm") : "e.g. +10 dBm"}
+              defaultValue={typed.drive || fixedDefault("drive")}
+              placeholder="e.g. +10 dBm"
               hint={
                 curves.curves.deviceClass === "frequency-multiplier"
                   ? "As the curves are drawn: at each device port, after the input split. dBm if no unit is typed."
                   : "The available LO power at the LO port. dBm if no unit is typed."
               }
-              error={errorFor("drive")}
+              messageId={messageIdFor("drive")}
             />
             <DesignField
               id="design-in-frequency"
               name="frequency"
               label={curves.curves.deviceClass === "frequency-multiplier" ? "Input frequency" : "RF frequency"}
-              defaultValue={typed.frequency}
-              placeholder={curves.curves.fixed.field === "frequency" ? quantityText(curves.curves.fixed.value, "Hz") : "e.g. 1.5 GHz"}
+              defaultValue={typed.frequency || fixedDefault("frequency")}
+              placeholder="e.g. 1.5 GHz"
               hint="With its unit: GHz, MHz, kHz or Hz."
-              error={errorFor("frequency")}
+              messageId={messageIdFor("frequency")}
             />
             <button type="submit" className={`${buttonClass.primary} sm:mt-7`}>
               Read the curves
@@ -84,13 +88,15 @@ export function DesignInCalculator({ action, partNumber, revisionLetter, curves,
       )}
       {refusal && (refusal.field === "sheet" ? curves.ok : true) ? (
         <div className="mb-4 max-w-prose" data-testid="design-in-refusal">
-          <Notice tone="error">{refusal.message}</Notice>
+          <Notice tone="error" id="design-in-refusal-message">
+            {refusal.message}
+          </Notice>
         </div>
       ) : null}
       {issues.length ? (
         <div className="mb-4 max-w-prose space-y-2" data-testid="design-in-issues">
           {issues.map((issue) => (
-            <Notice key={issue.field} tone="error">
+            <Notice key={issue.field} tone="error" id={`design-in-issue-${issue.field}`}>
               {issue.message}
             </Notice>
           ))}
@@ -102,7 +108,7 @@ export function DesignInCalculator({ action, partNumber, revisionLetter, curves,
 }
 
 function MeasuredRange({ curves }: { curves: DesignInCurves }) {
-  const { swept, fixed, range, conditionsLabel } = curves;
+  const { swept, fixed, range } = curves;
   return (
     <p className="mb-4 text-[0.9375rem]" data-testid="design-in-range">
       <span className="running-head mr-2 !text-ink">Measured</span>
@@ -112,12 +118,18 @@ function MeasuredRange({ curves }: { curves: DesignInCurves }) {
       ) : (
         <RangeQuantity min={range.min} max={range.max} unit={swept.unit} digits={{ maxSignificant: 6 }} />
       )}
-      , at {fixed.label.replace(/^Input/, "input")} <span className="figure">{quantityText(fixed.value, fixed.unit)}</span> only ({conditionsLabel}).
+      {" "}at {fixed.label.replace(/^Input/, "input")} <span className="figure">{quantityText(fixed.value, fixed.unit)}</span> only
+      {curves.temperatureC !== null ? (
+        <>
+          , <NumberQuantity value={curves.temperatureC} unit="°C" digits={{ maxDecimals: 1 }} />
+        </>
+      ) : null}
+      .
     </p>
   );
 }
 
-function DesignField({ id, name, label, defaultValue, placeholder, hint, error }: { id: string; name: string; label: string; defaultValue: string; placeholder: string; hint: string; error?: string }) {
+function DesignField({ id, name, label, defaultValue, placeholder, hint, messageId }: { id: string; name: string; label: string; defaultValue: string; placeholder: string; hint: string; messageId?: string }) {
   return (
     <div className="space-y-1.5">
       <label htmlFor={id} className="block text-[0.9375rem] font-semibold">
@@ -129,20 +141,14 @@ function DesignField({ id, name, label, defaultValue, placeholder, hint, error }
         defaultValue={defaultValue}
         placeholder={placeholder}
         maxLength={40}
-        inputMode="decimal"
         autoComplete="off"
-        aria-invalid={error ? true : undefined}
-        aria-describedby={`${id}-hint${error ? ` ${id}-error` : ""}`}
+        aria-invalid={messageId ? true : undefined}
+        aria-describedby={`${id}-hint${messageId ? ` ${messageId}` : ""}`}
         className={`${selectClass} figure placeholder:text-ink-muted aria-[invalid=true]:border-signal`}
       />
       <p id={`${id}-hint`} className="text-sm text-ink-muted">
         {hint}
       </p>
-      {error ? (
-        <p id={`${id}-error`} className="text-sm text-signal-deep">
-          {error}
-        </p>
-      ) : null}
     </div>
   );
 }

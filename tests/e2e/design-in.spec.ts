@@ -19,9 +19,12 @@ async function expectAccessible(page: Page, what: string): Promise<void> {
 }
 
 test("reads the doubler's curves at the customer's drive and frequency; the query stays in the address", async ({ page }) => {
+  test.setTimeout(120_000);
   await page.goto("/datasheets/kestrine/KDX-2G4/B");
   const calculator = page.getByTestId("design-in");
   await expect(calculator.getByTestId("design-in-range")).toContainText("1\u00a0GHz only");
+  // The frequency the curves hold is filled in; the drive is the customer's to type.
+  await expect(calculator.getByLabel("Input frequency")).toHaveValue("1 GHz");
   await screenshot(page, "empty");
   const form = calculator.getByRole("form", { name: "Design point" });
   await form.getByLabel("Drive level, per port").fill("+10 dBm");
@@ -40,7 +43,7 @@ test("reads the doubler's curves at the customer's drive and frequency; the quer
   await expect(answer.getByTestId("design-in-row-harmonic-suppression:fundamental (×1)")).toContainText("Fundamental suppression");
   await expect(answer.getByTestId("design-in-method")).toContainText("linear in dB against per-port drive in dBm");
   // The point on the curve: the chart is drawn on the server and marks the design.
-  const chart = answer.getByTestId("design-in-chart-conversion-loss-vs-drive").getByRole("img");
+  const chart = answer.getByTestId("design-in-chart-conversion-loss-vs-drive").getByRole("img", { name: /^Conversion loss at your design/ });
   await expect(chart).toHaveAttribute("aria-label", /Conversion loss 9\.52\u00a0dB at \+10\u00a0dBm, marked by an open circle/);
   await expect(chart.locator("svg")).toBeVisible();
   await expect(chart).toContainText("your design");
@@ -50,9 +53,12 @@ test("reads the doubler's curves at the customer's drive and frequency; the quer
 });
 
 test("refuses to extrapolate and names the range; unreadable input is named by field", async ({ page }) => {
+  test.setTimeout(120_000);
   await page.goto("/datasheets/kestrine/KDX-2G4/B?drive=%2B20%20dBm&frequency=1%20GHz");
   await expect(page.getByTestId("design-in-refusal").getByRole("alert")).toContainText("−9.01\u00a0dBm to +15.99\u00a0dBm; the calculator does not extrapolate");
-  await expect(page.getByLabel("Drive level, per port")).toHaveAttribute("aria-invalid", "true");
+  const drive = page.getByLabel("Drive level, per port");
+  await expect(drive).toHaveAttribute("aria-invalid", "true");
+  await expect(drive).toHaveAccessibleDescription(/outside the measured range/);
   await screenshot(page, "refused");
   await expectAccessible(page, "a refused design point");
 
@@ -64,6 +70,7 @@ test("refuses to extrapolate and names the range; unreadable input is named by f
 });
 
 test("reads the mixer along RF frequency at its LO drive", async ({ page }) => {
+  test.setTimeout(120_000);
   await page.goto("/datasheets/kestrine/KM-7H/current?drive=%2B7&frequency=1.55%20GHz#design-in");
   const answer = page.getByTestId("design-in-answer");
   await expect(answer.getByTestId("design-in-row-conversion-loss")).toContainText("max 8.50\u00a0dB");

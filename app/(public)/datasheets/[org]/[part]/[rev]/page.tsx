@@ -94,8 +94,8 @@ function first(value: string | string[] | undefined): string {
  */
 async function designIn({ model, search, action, letter }: { model: SheetModel; search: Search; action: string; letter: string }) {
   const typed = { drive: first(search.drive).slice(0, 200), frequency: first(search.frequency).slice(0, 200) };
+  if (!isDesignInDeviceClass(model.template.deviceClass) && !typed.drive.trim() && !typed.frequency.trim()) return null;
   const outcome = designInOutcome(model, typed);
-  if (!isDesignInDeviceClass(model.template.deviceClass) && outcome.kind === "blank") return null;
   const curves = readDesignInCurves(model);
   const charts = outcome.kind === "answer" ? buildDesignInCharts(model, outcome.answer) : [];
   return (
