@@ -13,6 +13,8 @@ type DesignInCalculatorProps = {
   action: string;
   partNumber: string;
   revisionLetter: string;
+  /** Said above the form when the revision is no longer the part's current one. */
+  standingNote?: string;
   /** The curves the frozen model holds, or why there are none to read. */
   curves: { ok: true; curves: DesignInCurves } | { ok: false; message: string };
   typed: { drive: string; frequency: string };
@@ -31,7 +33,7 @@ const DRIVE_STYLE = { signed: true, digits: { maxDecimals: 2 } } as const;
  * sheet's limits at those conditions, how it was read, and the charts with the design marked.
  * Drawn on the server; it ships no JavaScript.
  */
-export function DesignInCalculator({ action, partNumber, revisionLetter, curves, typed, outcome, charts, chartSvgs }: DesignInCalculatorProps) {
+export function DesignInCalculator({ action, partNumber, revisionLetter, standingNote, curves, typed, outcome, charts, chartSvgs }: DesignInCalculatorProps) {
   const issues = outcome.kind === "issues" ? outcome.issues : [];
   const refusal = outcome.kind === "refused" ? outcome.refusal : null;
   // Each message is said once, below the form; a field it is about is marked invalid and pointed at it.
@@ -50,6 +52,11 @@ export function DesignInCalculator({ action, partNumber, revisionLetter, curves,
         frequency, read off the typical curves released in {partNumber} Rev. {revisionLetter}: computed from the frozen data of this revision only,
         never extrapolated.
       </p>
+      {standingNote ? (
+        <div className="mb-4 max-w-prose" data-testid="design-in-standing">
+          <Notice>{standingNote}</Notice>
+        </div>
+      ) : null}
       {!curves.ok ? (
         <div data-testid="design-in-unavailable">
           <Notice>{curves.message}</Notice>

@@ -101,6 +101,14 @@ describe("the sheet page's calculator", () => {
     expect(html).toMatch(/9\.52(?:<!-- -->)?<\/span>/);
     expect(html).toContain("your design");
     expect(html).toContain('action="/datasheets/kestrine/KDX-2G4/B#design-in"');
+    expect(html).not.toContain('data-testid="design-in-standing"');
+  });
+
+  it("says when the revision read is superseded", async () => {
+    const html = await (await anon.request("/datasheets/kestrine/KDX-2G4/A?drive=10&frequency=1%20GHz")).text();
+    expect(html).toContain('data-testid="design-in-standing"');
+    expect(html).toContain("Rev. A is superseded by Rev. B");
+    expect(html).toContain('data-testid="design-in-answer"');
   });
 
   it("says what is wrong with the input, and shows no calculator on a hybrid unless asked", async () => {

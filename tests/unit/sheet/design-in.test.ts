@@ -145,10 +145,19 @@ describe("design-in on the demo sheets", () => {
     expect(!refusal.ok && refusal.message).toMatch(/reads frequency multiplier and mixer sheets; KQH-2G is a quadrature hybrid/);
   });
 
-  it("a multiplier without curves is refused", () => {
-    const model = demoModel("PX-40");
-    expect(model.charts.filter((c) => c.id.endsWith("-vs-drive"))).toHaveLength(0);
-    expect(computeDesignIn(model, { driveDbm: 10, frequencyHz: 1e9 })).toMatchObject({ ok: false, code: "no-curves" });
+  it("a multiplier without drive curves is refused", () => {
+    const base = demoModel("KDX-2G4");
+    const model = { ...base, charts: base.charts.filter((c) => !c.id.endsWith("-vs-drive")) };
+    const refusal = computeDesignIn(model, { driveDbm: 10, frequencyHz: 1e9 });
+    expect(refusal).toMatchObject({ ok: false, code: "no-curves", field: "sheet" });
+    expect(!refusal.ok && refusal.message).toMatch(/^KDX-2G4 .* has no released curves to read a design from\.$/);
+  });
+
+  it("a mixer whose curves mix LO drives is refused rather than guessed", () => {
+    const base = demoModel("KM-7H");
+    const group = base.statistics.groups.find((g) => g.parameter === "conversion-loss")!;
+    const model = { ...base, statistics: { ...base.statistics, groups: [...base.statistics.groups, { ...group, conditionsKey: group.conditionsKey.replace("loPowerDbm=7", "loPowerDbm=10") }] } };
+    expect(computeDesignIn(model, { driveDbm: 7, frequencyHz: 1e9 })).toMatchObject({ ok: false, code: "conditions-unknown", field: "drive" });
   });
 
   it("draws the design as a marker on the typical curve, through lib/charts", () => {

@@ -11,7 +11,7 @@ import { SheetViewWithCharts } from "@/components/sheets/sheet-view-with-charts"
 import { ReleasedSheetView } from "@/components/datasheets/released-sheet-view";
 import { FollowButton } from "@/components/subscriptions/follow-button";
 import { DesignInCalculator } from "@/components/datasheets/design-in-calculator";
-import { datasheetPath } from "@/lib/domain/reviews";
+import { datasheetPath, type RevisionSummary } from "@/lib/domain/reviews";
 import { designInOutcome, isDesignInDeviceClass, readDesignInCurves } from "@/lib/sheet/design-in";
 import { buildDesignInCharts } from "@/lib/sheet/design-in-charts";
 import type { SheetModel } from "@/lib/sheet/types";
@@ -73,7 +73,7 @@ export default async function ReleasedDatasheetPage({ params, searchParams }: Pr
       partNumber={model.header.partNumber}
       addressedAsCurrent={segment(rev) === "current"}
       follow={follow}
-      designIn={await designIn({ model, search: await searchParams, action: datasheetPath(segment(org), segment(part), segment(rev)), letter: summary.letter })}
+      designIn={await designIn({ model, search: await searchParams, action: datasheetPath(segment(org), segment(part), segment(rev)), summary, history })}
       sheetView={
         <Suspense fallback={<SheetView model={model} withdrawn={withdrawn} />}>
           <SheetViewWithCharts model={model} chartSvgs={renderSheetChartSvgs(model)} withdrawn={withdrawn} />
@@ -92,7 +92,7 @@ function first(value: string | string[] | undefined): string {
  * function as the API's, its charts drawn to SVG here. A sheet of another class shows none, unless
  * the address asks it something (then it says why not).
  */
-async function designIn({ model, search, action, letter }: { model: SheetModel; search: Search; action: string; letter: string }) {
+async function designIn({ model, search, action, summary, history }: { model: SheetModel; search: Search; action: string; summary: RevisionSummary; history: RevisionSummary[] }) {
   const typed = { drive: first(search.drive).slice(0, 200), frequency: first(search.frequency).slice(0, 200) };
   if (!isDesignInDeviceClass(model.template.deviceClass) && !typed.drive.trim() && !typed.frequency.trim()) return null;
   const outcome = designInOutcome(model, typed);
@@ -102,7 +102,8 @@ async function designIn({ model, search, action, letter }: { model: SheetModel; 
     <DesignInCalculator
       action={action}
       partNumber={model.header.partNumber}
-      revisionLetter={letter}
+      revisionLetter={summary.letter}
+      standingNote={standingNote(summary, history)}
       curves={curves.ok ? curves : { ok: false, message: curves.message }}
       typed={typed}
       outcome={outcome}
@@ -110,4 +111,12 @@ async function designIn({ model, search, action, letter }: { model: SheetModel; 
       chartSvgs={charts.length ? await renderChartSvgsById(charts) : {}}
     />
   );
+}
+
+/** A design read off a revision that is no longer current says so. */
+function standingNote(summary: RevisionSummary, history: RevisionSummary[]): string | undefined {
+  const current = history.find((r) => r.standing === "current");
+  if (summary.standing === "withdrawn") return `Rev. ${summary.letter} is withdrawn: these are the curves it was released with, not a statement the organization stands by.`;
+  if (summary.standing === "superseded") return `Rev. ${summary.letter} is superseded${current ? ` by Rev. ${current.letter}` : ""}: read the current revision's curves for a new design.`;
+  return undefined;
 }
