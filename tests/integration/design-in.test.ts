@@ -1,5 +1,10 @@
-import { describe, expect, it } from "vitest";
-import type { DesignInAnswer } from "@/lib/sheet/design-in";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { RevisionSummary } from "@/lib/domain/reviews";
+import { readDesignInCurves, type DesignInAnswer, type DesignInCurves } from "@/lib/sheet/design-in";
+import type { SheetModel } from "@/lib/sheet/types";
+import { closeDb } from "@/models";
+import { clientsByRole, makeOrganization } from "./helpers/factories";
+import { deviceWithApprovedData, releaseSheet } from "./helpers/reviews";
 import reference from "../unit/sheet/reference/design-in-numpy.json";
 import { TestClient } from "./helpers/client";
 
@@ -104,10 +109,10 @@ describe("the sheet page's calculator", () => {
     expect(html).not.toContain('data-testid="design-in-standing"');
   });
 
-  it("says when the revision read is superseded", async () => {
+  it("answers on a superseded revision from its own curves, under the page's superseded notice", async () => {
     const html = await (await anon.request("/datasheets/kestrine/KDX-2G4/A?drive=10&frequency=1%20GHz")).text();
-    expect(html).toContain('data-testid="design-in-standing"');
-    expect(html).toContain("Rev. A is superseded by Rev. B");
+    expect(html).toContain('data-testid="superseded-notice"');
+    expect(html).not.toContain('data-testid="design-in-standing"');
     expect(html).toContain('data-testid="design-in-answer"');
   });
 
@@ -119,5 +124,39 @@ describe("the sheet page's calculator", () => {
     expect(hybrid).not.toContain('data-testid="design-in"');
     const askedHybrid = await (await anon.request("/datasheets/kestrine/KQH-2G/A?drive=0&frequency=2%20GHz")).text();
     expect(askedHybrid).toContain('data-testid="design-in-unavailable"');
+  });
+});
+
+describe("a released one-unit doubler, then withdrawn", () => {
+  let revision: RevisionSummary;
+  let curves: DesignInCurves;
+  afterAll(() => closeDb());
+  beforeAll(async () => {
+    const org = await makeOrganization();
+    const clients = await clientsByRole(org);
+    const engineer = clients.get("engineer")!;
+    const reviewer = clients.get("reviewer")!;
+    const deviceId = await deviceWithApprovedData(org.organization.id, engineer, reviewer);
+    revision = await releaseSheet(engineer, reviewer, deviceId, "First lot.");
+    const sheet = ((await (await anon.request(`/api/v1${revision.publicPath.replace("/datasheets", "/sheets")}`)).json()) as { sheet: SheetModel }).sheet;
+    const read = readDesignInCurves(sheet);
+    if (!read.ok) throw new Error(read.message);
+    curves = read.curves;
+    const withdrawn = await reviewer.request(`/api/sheet-revisions/${revision.id}/withdraw`, { json: { reason: "Wrong fixture loss applied." } });
+    expect(withdrawn.status, await withdrawn.clone().text()).toBe(200);
+  });
+
+  it("answers from the frozen curves with one unit's spread, and says the revision is withdrawn", async () => {
+    const drive = `${(curves.range.min + curves.range.max) / 2} dBm`;
+    const frequency = `${curves.fixed.value} Hz`;
+    const path = revision.publicPath.replace("/datasheets/", "");
+    const { status, body } = await designIn(path, { drive, frequency });
+    expect(status).toBe(200);
+    expect(body.revision.standing).toBe("withdrawn");
+    expect(body.designIn.readings[0].spread).toMatchObject({ n: 1, standardDeviation: null });
+    const html = await (await anon.request(`${revision.publicPath}?${new URLSearchParams({ drive, frequency })}`)).text();
+    expect(html).toContain('data-testid="design-in-standing"');
+    expect(html).toContain("is withdrawn (Wrong fixture loss applied)");
+    expect(html).toContain("one unit");
   });
 });

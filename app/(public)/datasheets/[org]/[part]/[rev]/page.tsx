@@ -73,7 +73,7 @@ export default async function ReleasedDatasheetPage({ params, searchParams }: Pr
       partNumber={model.header.partNumber}
       addressedAsCurrent={segment(rev) === "current"}
       follow={follow}
-      designIn={await designIn({ model, search: await searchParams, action: datasheetPath(segment(org), segment(part), segment(rev)), summary, history })}
+      designIn={await designIn({ model, search: await searchParams, action: datasheetPath(segment(org), segment(part), segment(rev)), summary })}
       sheetView={
         <Suspense fallback={<SheetView model={model} withdrawn={withdrawn} />}>
           <SheetViewWithCharts model={model} chartSvgs={renderSheetChartSvgs(model)} withdrawn={withdrawn} />
@@ -92,7 +92,7 @@ function first(value: string | string[] | undefined): string {
  * function as the API's, its charts drawn to SVG here. A sheet of another class shows none, unless
  * the address asks it something (then it says why not).
  */
-async function designIn({ model, search, action, summary, history }: { model: SheetModel; search: Search; action: string; summary: RevisionSummary; history: RevisionSummary[] }) {
+async function designIn({ model, search, action, summary }: { model: SheetModel; search: Search; action: string; summary: RevisionSummary }) {
   const typed = { drive: first(search.drive).slice(0, 200), frequency: first(search.frequency).slice(0, 200) };
   if (!isDesignInDeviceClass(model.template.deviceClass) && !typed.drive.trim() && !typed.frequency.trim()) return null;
   const outcome = designInOutcome(model, typed);
@@ -103,7 +103,7 @@ async function designIn({ model, search, action, summary, history }: { model: Sh
       action={action}
       partNumber={model.header.partNumber}
       revisionLetter={summary.letter}
-      standingNote={standingNote(summary, history)}
+      standingNote={standingNote(summary)}
       curves={curves.ok ? curves : { ok: false, message: curves.message }}
       typed={typed}
       outcome={outcome}
@@ -113,10 +113,11 @@ async function designIn({ model, search, action, summary, history }: { model: Sh
   );
 }
 
-/** A design read off a revision that is no longer current says so. */
-function standingNote(summary: RevisionSummary, history: RevisionSummary[]): string | undefined {
-  const current = history.find((r) => r.standing === "current");
-  if (summary.standing === "withdrawn") return `Rev. ${summary.letter} is withdrawn: these are the curves it was released with, not a statement the organization stands by.`;
-  if (summary.standing === "superseded") return `Rev. ${summary.letter} is superseded${current ? ` by Rev. ${current.letter}` : ""}: read the current revision's curves for a new design.`;
-  return undefined;
+/**
+ * A design read off a withdrawn revision says so beside the answer (the sheet's own withdrawn notice is
+ * further down the page); a superseded one is said just above by the page itself.
+ */
+function standingNote(summary: RevisionSummary): string | undefined {
+  if (summary.standing !== "withdrawn") return undefined;
+  return `Rev. ${summary.letter} is withdrawn${summary.withdrawal ? ` (${summary.withdrawal.reason.replace(/[.\s]+$/, "")})` : ""}: these are the curves it was released with, not figures its maker stands by.`;
 }
