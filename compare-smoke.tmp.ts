@@ -1,0 +1,12 @@
+import { readFileSync } from "node:fs";
+import { buildCompareTable } from "@/lib/catalog/compare-table";
+import { compareTableCsv } from "@/lib/catalog/compare-csv";
+import { buildCompareCharts } from "@/lib/catalog/compare-charts";
+const load = (p: string) => JSON.parse(readFileSync(`tests/unit/sheet/__snapshots__/demo-${p}.json`, "utf8"));
+const parts = process.argv.slice(2);
+const inputs = parts.map((p) => ({ sheet: { key: p, label: `${p} Rev. A`, organizationName: "x", partNumber: p, letter: "A", title: "", deviceClassLabel: "", releasedOn: "", standing: "current" as const, path: "" }, model: load(p) }));
+const t = buildCompareTable(inputs);
+console.log(compareTableCsv(t));
+const c = buildCompareCharts(inputs.map((i) => ({ label: i.sheet.label, model: i.model })), { width: 600 });
+for (const ch of c.charts) console.log(ch.chartId, ch.conditionsDiffer, ch.sources, ch.panels.map((p) => [p.id, p.traces.map((t) => [t.label, t.unitCount, t.typical.length, t.leftOut])]));
+console.log(c.single);
