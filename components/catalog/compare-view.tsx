@@ -179,15 +179,20 @@ function CompareSpecTable({ table }: { table: CompareTable }) {
             ))}
           </tr>
         </thead>
-        {[...figures.values()].map((rows) => (
-          <tbody key={rows[0].figure} data-testid="compare-figure">
-            {rows.map((row, i) => (
-              <tr key={row.id} data-testid="compare-row" data-field={row.field} data-conditions={row.conditionsMatch ? "same" : "differ"}>
-                {i === 0 ? (
-                  <th scope="rowgroup" rowSpan={rows.length} className="align-top">
-                    <ParameterCell row={row} />
-                  </th>
-                ) : null}
+        <tbody>
+          {[...figures.values()].flatMap((rows) =>
+            rows.map((row, i) => (
+              <tr
+                key={row.id}
+                // A figure's min, typ and max read as one block: a rule above the block, none inside it.
+                className={i > 0 ? "[&>*]:border-t-0" : undefined}
+                data-testid="compare-row"
+                data-field={row.field}
+                data-conditions={row.conditionsMatch ? "same" : "differ"}
+              >
+                <th scope="row" className="align-top">
+                  {i === 0 ? <ParameterCell row={row} /> : <span className="sr-only">{row.label}</span>}
+                </th>
                 <td>{FIELD_WORDS[row.field]}</td>
                 <td className="whitespace-nowrap">{row.unit}</td>
                 {row.cells.map((cell, j) => (
@@ -196,9 +201,9 @@ function CompareSpecTable({ table }: { table: CompareTable }) {
                   </td>
                 ))}
               </tr>
-            ))}
-          </tbody>
-        ))}
+            )),
+          )}
+        </tbody>
       </ScrollTable>
     </section>
   );
