@@ -240,7 +240,10 @@ function CatalogTable({ query, result }: { query: CatalogQuery; result: CatalogR
         <caption className="sr-only">Released sheets matching the search{query.conditions.length ? `: ${query.conditions.map(conditionText).join(", ")}` : ""}</caption>
         <thead>
           <tr>
-            <th scope="col">Compare</th>
+            <th scope="col" className="w-px">
+            {/* Narrow: the button under the table says what the boxes are for, and each box names its sheet. */}
+            <span className="sr-only">Compare</span>
+          </th>
             <th scope="col" aria-sort={ariaSort(query, "part")}>
               <SortLink query={query} sort="part" label="Part" />
             </th>
@@ -277,6 +280,7 @@ function CatalogTable({ query, result }: { query: CatalogQuery; result: CatalogR
                   name="sheets"
                   value={`${hit.organization.slug}/${hit.partNumber}/${hit.letter}`}
                   aria-label={`Compare ${hit.partNumber} Rev. ${hit.letter}`}
+                title="Tick to compare"
                   className="h-4 w-4 accent-signal"
                 />
               </td>

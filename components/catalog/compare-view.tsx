@@ -346,6 +346,7 @@ function CompareChartView({ chart, chartSvgs }: { chart: CompareChart; chartSvgs
             ) : (
               <p className="border border-rule p-4 text-sm text-ink-muted">{panel.description}</p>
             )}
+            {panel.coincide ? <p className="mt-1 text-sm text-ink-muted">The curves coincide: each lies under the last one drawn.</p> : null}
           </figure>
         ))}
       </div>

@@ -22,7 +22,7 @@ export interface CompareChart {
   /** True when the sheets that have the chart drew it under different conditions. */
   conditionsDiffer: boolean;
   /** Panels with the typical curves of two or more sheets. */
-  panels: OverlayPanel[];
+  panels: (OverlayPanel & { coincide: boolean })[];
   /** Series only one sheet has on this chart (a port or path the others lack), with that sheet: named, not drawn. */
   unmatched: { series: string; label: string }[];
 }
@@ -51,7 +51,7 @@ export function buildCompareCharts(inputs: readonly { label: string; model: Pick
     const overlaid = overlayChartSources(present[0], inputs.map(({ label }, i) => ({ label, chart: found[i] })), look);
     // A panel of one sheet's curve compares nothing, and would draw that sheet in another sheet's style (lib/charts draws a lone series in ink).
     const drawn = (panel: OverlayPanel) => panel.traces.filter((t) => t.typical.length > 0);
-    const panels = overlaid.filter((p) => drawn(p).length >= 2);
+    const panels = overlaid.filter((p) => drawn(p).length >= 2).map((p) => ({ ...p, coincide: coincide(drawn(p).map((t) => t.typical)) }));
     const unmatched = overlaid.filter((p) => drawn(p).length === 1).map((p) => ({ series: p.series ?? p.title, label: drawn(p)[0].label }));
     if (!panels.length) continue;
     charts.push({ chartId: id, title: present[0].title, sources, conditionsDiffer: new Set(stated).size > 1, panels, unmatched });
@@ -67,4 +67,10 @@ export function buildCompareCharts(inputs: readonly { label: string; model: Pick
 export function drawnAt(chart: Pick<ChartSpec, "caption">): string {
   const match = / drawn at (.+?)(?: \(first \d+ of \d+ by serial\))?\.(?:\s|$)/.exec(chart.caption);
   return match ? match[1] : chart.caption;
+}
+
+/** True when every typical curve is the same as the first to the plotted precision (six figures, as lib/charts plots): one line hides the others. */
+function coincide(curves: [number, number][][]): boolean {
+  const plotted = (curve: [number, number][]) => JSON.stringify(curve.map(([x, y]) => [Number(x.toPrecision(6)), Number(y.toPrecision(6))]));
+  return curves.every((c) => plotted(c) === plotted(curves[0]));
 }

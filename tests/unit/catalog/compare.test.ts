@@ -341,6 +341,19 @@ describe("the overlaid curves", () => {
     expect(panel.traces[2]).toEqual({ label: "KM-7H Rev. A", unitCount: 0, typical: [], leftOut: null });
   });
 
+  it("says when the curves coincide (one revision against the next with the same units), and not otherwise", () => {
+    const kdx = demoModel("KDX-2G4");
+    const same = buildCompareCharts(
+      [
+        { label: "A", model: kdx },
+        { label: "B", model: kdx },
+      ],
+      { width: 400 },
+    );
+    expect(same.charts.flatMap((c) => c.panels).every((p) => p.coincide)).toBe(true);
+    expect(charts.flatMap((c) => c.panels).some((p) => p.coincide)).toBe(false);
+  });
+
   it("reads where a chart was drawn from its caption", () => {
     expect(drawnAt({ caption: "Each line one unit. 4 units drawn at 1 GHz in, 25 °C. Open circles: optimum (4)." })).toBe("1 GHz in, 25 °C");
     expect(drawnAt({ caption: "Each line one unit. 12 units drawn at 2 GHz out, 25 °C (first 12 of 14 by serial)." })).toBe("2 GHz out, 25 °C");
