@@ -233,75 +233,98 @@ function ariaSort(query: CatalogQuery, sort: CatalogSortKey) {
 function CatalogTable({ query, result }: { query: CatalogQuery; result: CatalogResult }) {
   const columns = query.deviceClass ? catalogKeyColumns[query.deviceClass] : [];
   const parameters = catalogParameters();
+  // A plain GET form: the ticked boxes become /compare?sheets=…&sheets=…, with or without JavaScript.
   return (
-    <ScrollTable label="Released sheets found" testId="catalog-results">
-      <caption className="sr-only">Released sheets matching the search{query.conditions.length ? `: ${query.conditions.map(conditionText).join(", ")}` : ""}</caption>
-      <thead>
-        <tr>
-          <th scope="col" aria-sort={ariaSort(query, "part")}>
-            <SortLink query={query} sort="part" label="Part" />
+    <form method="get" action="/compare" aria-label="Compare the ticked sheets" data-testid="catalog-compare-form">
+      <ScrollTable label="Released sheets found" testId="catalog-results">
+        <caption className="sr-only">Released sheets matching the search{query.conditions.length ? `: ${query.conditions.map(conditionText).join(", ")}` : ""}</caption>
+        <thead>
+          <tr>
+            <th scope="col" className="w-px">
+            {/* Narrow: the button under the table says what the boxes are for, and each box names its sheet. */}
+            <span className="sr-only">Compare</span>
           </th>
-          <th scope="col">Organization</th>
-          {query.deviceClass ? null : <th scope="col">Class</th>}
-          <th scope="col" className="num">Input</th>
-          <th scope="col" className="num">Output</th>
-          <th scope="col" className="num" aria-sort={ariaSort(query, "drive")}>
-            <SortLink query={query} sort="drive" label="Drive" />
-          </th>
-          {columns.map((c) => {
-            const sort = `${c.key}.${c.guarantee}` as CatalogSortKey;
-            return (
-              <th key={c.key} scope="col" className="num" aria-sort={ariaSort(query, sort)}>
-                <SortLink query={query} sort={sort} label={<abbr title={parameters.get(c.key)?.label}>{c.symbol}</abbr>} />
-                <span className="block font-normal text-ink-muted">
-                  typ · {c.guarantee}, <span className="normal-case">{parameters.get(c.key)?.unit}</span>
-                </span>
-              </th>
-            );
-          })}
-          {query.deviceClass ? null : <th scope="col">Key figures</th>}
-          <th scope="col" aria-sort={ariaSort(query, "released")}>
-            <SortLink query={query} sort="released" label="Revision" />
-          </th>
-        </tr>
-      </thead>
-      <tbody>
-        {result.hits.map((hit) => (
-          <tr key={hit.revisionId} data-testid="catalog-hit">
-            <th scope="row">
-              <Link href={hit.path} className="whitespace-nowrap font-semibold">
-                {hit.partNumber}
-              </Link>
-              <span className="block text-sm font-normal text-ink-muted">{hit.title}</span>
+            <th scope="col" aria-sort={ariaSort(query, "part")}>
+              <SortLink query={query} sort="part" label="Part" />
             </th>
-            <td>{hit.organization.name}</td>
-            {query.deviceClass ? null : <td>{deviceClassLabels[hit.deviceClass]}</td>}
-            <td className="num">{hit.inputFrequencyHz ? <RangeQuantity min={hit.inputFrequencyHz.min} max={hit.inputFrequencyHz.max} unit="Hz" /> : "—"}</td>
-            <td className="num">{hit.outputFrequencyHz ? <RangeQuantity min={hit.outputFrequencyHz.min} max={hit.outputFrequencyHz.max} unit="Hz" /> : "—"}</td>
-            <td className="num">{hit.driveLevelDbm !== null ? <NumberQuantity value={hit.driveLevelDbm} unit="dBm" signed digits={{ maxDecimals: 1 }} /> : "—"}</td>
+            <th scope="col">Organization</th>
+            {query.deviceClass ? null : <th scope="col">Class</th>}
+            <th scope="col" className="num">Input</th>
+            <th scope="col" className="num">Output</th>
+            <th scope="col" className="num" aria-sort={ariaSort(query, "drive")}>
+              <SortLink query={query} sort="drive" label="Drive" />
+            </th>
             {columns.map((c) => {
-              const figure = hit.figures.find((f) => f.key === c.key);
+              const sort = `${c.key}.${c.guarantee}` as CatalogSortKey;
               return (
-                <td key={c.key} className="num whitespace-nowrap">
-                  <FigureValue value={figure?.typ ?? null} />
-                  <span className="text-ink-muted"> · </span>
-                  <FigureValue value={figure?.limit ?? null} />
-                </td>
+                <th key={c.key} scope="col" className="num" aria-sort={ariaSort(query, sort)}>
+                  <SortLink query={query} sort={sort} label={<abbr title={parameters.get(c.key)?.label}>{c.symbol}</abbr>} />
+                  <span className="block font-normal text-ink-muted">
+                    typ · {c.guarantee}, <span className="normal-case">{parameters.get(c.key)?.unit}</span>
+                  </span>
+                </th>
               );
             })}
-            {query.deviceClass ? null : (
-              <td className="text-sm">
-                <KeyFigures hit={hit} />
-              </td>
-            )}
-            <td className="whitespace-nowrap">
-              Rev. {hit.letter}
-              <span className="block text-sm text-ink-muted">{formatDate(hit.releasedAt)}</span>
-            </td>
+            {query.deviceClass ? null : <th scope="col">Key figures</th>}
+            <th scope="col" aria-sort={ariaSort(query, "released")}>
+              <SortLink query={query} sort="released" label="Revision" />
+            </th>
           </tr>
-        ))}
-      </tbody>
-    </ScrollTable>
+        </thead>
+        <tbody>
+          {result.hits.map((hit) => (
+            <tr key={hit.revisionId} data-testid="catalog-hit">
+              <td>
+                <input
+                  type="checkbox"
+                  name="sheets"
+                  value={`${hit.organization.slug}/${hit.partNumber}/${hit.letter}`}
+                  aria-label={`Compare ${hit.partNumber} Rev. ${hit.letter}`}
+                title="Tick to compare"
+                  className="h-4 w-4 accent-signal"
+                />
+              </td>
+              <th scope="row">
+                <Link href={hit.path} className="whitespace-nowrap font-semibold">
+                  {hit.partNumber}
+                </Link>
+                <span className="block text-sm font-normal text-ink-muted">{hit.title}</span>
+              </th>
+              <td>{hit.organization.name}</td>
+              {query.deviceClass ? null : <td>{deviceClassLabels[hit.deviceClass]}</td>}
+              <td className="num">{hit.inputFrequencyHz ? <RangeQuantity min={hit.inputFrequencyHz.min} max={hit.inputFrequencyHz.max} unit="Hz" /> : "—"}</td>
+              <td className="num">{hit.outputFrequencyHz ? <RangeQuantity min={hit.outputFrequencyHz.min} max={hit.outputFrequencyHz.max} unit="Hz" /> : "—"}</td>
+              <td className="num">{hit.driveLevelDbm !== null ? <NumberQuantity value={hit.driveLevelDbm} unit="dBm" signed digits={{ maxDecimals: 1 }} /> : "—"}</td>
+              {columns.map((c) => {
+                const figure = hit.figures.find((f) => f.key === c.key);
+                return (
+                  <td key={c.key} className="num whitespace-nowrap">
+                    <FigureValue value={figure?.typ ?? null} />
+                    <span className="text-ink-muted"> · </span>
+                    <FigureValue value={figure?.limit ?? null} />
+                  </td>
+                );
+              })}
+              {query.deviceClass ? null : (
+                <td className="text-sm">
+                  <KeyFigures hit={hit} />
+                </td>
+              )}
+              <td className="whitespace-nowrap">
+                Rev. {hit.letter}
+                <span className="block text-sm text-ink-muted">{formatDate(hit.releasedAt)}</span>
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </ScrollTable>
+      <div className="mt-3 flex flex-wrap items-center gap-3">
+        <button type="submit" className={buttonClass.secondary}>
+          Compare selected
+        </button>
+        <span className="text-sm text-ink-muted">Tick two to four sheets: their figures side by side and their curves on the same axes.</span>
+      </div>
+    </form>
   );
 }
 

@@ -15,7 +15,7 @@ import { computeMean, computeSampleStandardDeviation } from "../stats/descriptiv
 import { limitBasisWords, type LimitBasis } from "../domain/sheets";
 import { parseConditionsKey, type Conditions } from "./conditions";
 import { roundStable } from "./format";
-import { interpolate, mergeRepeatedX, readChart, typicalCurve } from "./diff-charts";
+import { interpolate, mergeRepeatedX, readChart, typicalCurve } from "./curve-overlay";
 import type { SheetModel, SpecTableRow } from "./types";
 
 type Point = [number, number];

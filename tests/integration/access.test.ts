@@ -83,6 +83,7 @@ const probes: Record<ApiRoute, Probe> = {
   "POST /api/sheet-revisions/[id]/withdraw": { path: () => `/api/sheet-revisions/${missing}/withdraw`, json: () => ({}), allowedStatus: 422 },
   "GET /api/v1/sheets/[org]/[part]/[rev]/pdf": { path: () => "/api/v1/sheets/no-such-org/NO-PART/A/pdf", allowedStatus: 404 },
   "GET /api/v1/verify": { path: () => `/api/v1/verify?sha256=${"0".repeat(64)}`, allowedStatus: 404 },
+  "GET /api/v1/compare/csv": { path: () => "/api/v1/compare/csv?sheets=no-such-org/NO-PART/A,no-such-org/NO-PART/B", allowedStatus: 404 },
   "GET /api/subscriptions": { path: () => "/api/subscriptions", allowedStatus: 200 },
   "POST /api/subscriptions": { path: () => "/api/subscriptions", json: () => ({}), allowedStatus: 422 },
   "DELETE /api/subscriptions/[id]": { path: () => `/api/subscriptions/${missing}`, allowedStatus: 404 },

@@ -66,6 +66,7 @@ const pagePaths: Record<PageRoute, () => string> = {
   "/datasheets/[org]/[part]/[rev]": () => released.publicPath,
   "/r/[reference]": () => `/r/${released.reference}`,
   "/verify": () => "/verify",
+  "/compare": () => `/compare?sheets=${released.publicPath.replace("/datasheets/", "")},kestrine/KDX-2G4/B`,
   "/unsubscribe/[token]": () => "/unsubscribe/not-a-token",
   "/admin/users": () => "/admin/users",
   "/admin/instruments": () => "/admin/instruments",

@@ -79,8 +79,13 @@ export async function renderChartSvgsById(charts: { id: string; vegaLite: Record
 }
 
 /** Every chart of a sheet as SVG markup, keyed by chart id, for the web view. */
-export async function renderSheetChartSvgs(model: SheetModel): Promise<Record<string, string>> {
-  const entries = await Promise.all(model.charts.map(async (chart) => [chart.id, await cachedChartSvg(specKey(chart.vegaLite), chart.vegaLite)] as const));
+export function renderSheetChartSvgs(model: SheetModel): Promise<Record<string, string>> {
+  return renderChartSvgs(model.charts);
+}
+
+/** Charts (an id and a Vega-Lite spec with a width in pixels) as SVG markup, keyed by id: the sheet's, or the compare page's overlays. */
+export async function renderChartSvgs(charts: readonly { id: string; vegaLite: Record<string, unknown> }[]): Promise<Record<string, string>> {
+  const entries = await Promise.all(charts.map(async (chart) => [chart.id, await cachedChartSvg(specKey(chart.vegaLite), chart.vegaLite)] as const));
   return Object.fromEntries(entries);
 }
 
