@@ -67,8 +67,9 @@ beforeAll(async () => {
   await setConversionLossMax(engineer, device.id, 20);
   revisions.push(await releaseSheet(engineer, reviewer, device.id)); // B, A superseded
   await setConversionLossMax(engineer, device.id, 19);
-  revisions.push(await releaseSheet(engineer, reviewer, device.id)); // C, then withdrawn: B is current again
-  const w = await reviewer.request(`/api/sheet-revisions/${revisions[2].id}/withdraw`, { json: { reason: "Sitemap test: wrong lot on the fixture" } });
+  revisions.push(await releaseSheet(engineer, reviewer, device.id)); // C current, B superseded
+  // A is withdrawn (a revision is current, superseded or withdrawn; withdrawing the newest would leave none current).
+  const w = await reviewer.request(`/api/sheet-revisions/${revisions[0].id}/withdraw`, { json: { reason: "Sitemap test: wrong lot on the fixture" } });
   expect(w.status, await w.clone().text()).toBe(200);
 }, 240_000);
 afterAll(() => closeDb());
@@ -90,13 +91,13 @@ describe("/sitemap.xml", () => {
   it("leaves a withdrawn revision out, ranks the current one above a superseded one, and dates each by its part's last change", async () => {
     const entries = await readSitemap();
     const of = (letter: string) => entries.find((e) => e.loc === `${appUrl}/datasheets/${org.organization.slug}/${part}/${letter}`);
-    expect(of("C"), "withdrawn").toBeUndefined();
-    expect(of("B")?.priority).toBe("0.8");
-    expect(of("A")?.priority).toBe("0.3");
-    // Every revision's page shows the part's whole history, so each changed with the withdrawal of C.
-    for (const letter of ["A", "B"]) {
+    expect(of("A"), "withdrawn").toBeUndefined();
+    expect(of("C")?.priority).toBe("0.8");
+    expect(of("B")?.priority).toBe("0.3");
+    // Every revision's page shows the part's whole history, so each changed with the withdrawal of A, after C's release.
+    for (const letter of ["B", "C"]) {
       const lastmod = new Date(of(letter)!.lastmod!).getTime();
-      expect(lastmod).toBeGreaterThanOrEqual(new Date(revisions[2].releasedAt).getTime());
+      expect(lastmod).toBeGreaterThan(new Date(revisions[2].releasedAt).getTime());
     }
   });
 });
@@ -120,35 +121,41 @@ describe("the released page's head", () => {
   it("the current address: the current revision's title and description, canonical to its letter", async () => {
     const head = await pageHead(`/datasheets/${org.organization.slug}/${part}/current`);
     expect(head.status).toBe(200);
-    expect(head.title).toBe(`${part} Rev. B · Benchfold`);
-    expect(head.description).toContain(`Revision B of the datasheet, released by ${org.organization.name} on ${revisions[1].releasedAt.slice(0, 10)}; the current revision.`);
-    expect(head.canonical).toBe(`${appUrl}/datasheets/${org.organization.slug}/${part}/B`);
+    expect(head.title).toBe(`${part} Rev. C · Benchfold`);
+    expect(head.description).toContain(`Revision C of the datasheet, released by ${org.organization.name} on ${revisions[2].releasedAt.slice(0, 10)}; the current revision.`);
+    expect(head.canonical).toBe(`${appUrl}/datasheets/${org.organization.slug}/${part}/C`);
     expect(head.robots).toBeNull();
   });
 
   it("a superseded revision says so and names the current one", async () => {
-    const head = await pageHead(`/datasheets/${org.organization.slug}/${part}/A`);
-    expect(head.title).toBe(`${part} Rev. A (superseded) · Benchfold`);
-    expect(head.description).toMatch(/; superseded by revision B\.$/);
-    expect(head.canonical).toBe(`${appUrl}/datasheets/${org.organization.slug}/${part}/A`);
+    const head = await pageHead(`/datasheets/${org.organization.slug}/${part}/B`);
+    expect(head.title).toBe(`${part} Rev. B (superseded) · Benchfold`);
+    expect(head.description).toMatch(/; superseded by revision C\.$/);
+    expect(head.canonical).toBe(`${appUrl}/datasheets/${org.organization.slug}/${part}/B`);
+    expect(head.robots).toBeNull();
   });
 
   it("a withdrawn revision says so with the reason, and asks not to be indexed", async () => {
-    const head = await pageHead(`/datasheets/${org.organization.slug}/${part}/C`);
+    const head = await pageHead(`/datasheets/${org.organization.slug}/${part}/A`);
     expect(head.status).toBe(200);
-    expect(head.title).toBe(`${part} Rev. C (withdrawn) · Benchfold`);
+    expect(head.title).toBe(`${part} Rev. A (withdrawn) · Benchfold`);
     expect(head.description).toContain("withdrawn on");
-    expect(head.description).toContain("Sitemap test: wrong lot on the fixture. Revision B is current.");
+    expect(head.description).toContain("Sitemap test: wrong lot on the fixture. Revision C is current.");
     expect(head.robots).toBe("noindex, follow");
   });
 
   it("pages are never stored by a shared cache (per-request nonce, the viewer's follow button); the files are", async () => {
-    const page = await anyone.request(`/datasheets/${org.organization.slug}/${part}/B`);
-    expect(page.headers.get("cache-control")).toMatch(/no-store/);
+    for (const rev of ["current", "C"]) {
+      const page = await anyone.request(`/datasheets/${org.organization.slug}/${part}/${rev}`);
+      expect(page.status).toBe(200);
+      expect(page.headers.get("cache-control"), rev).toMatch(/private.*no-store/);
+    }
     const current = await anyone.request(`/api/v1/sheets/${org.organization.slug}/${part}/current/pdf`);
     expect(current.headers.get("cache-control")).toBe("public, no-cache");
-    expect(current.headers.get("etag")).toBe(`"${revisions[1].pdfSha256}"`);
-    const lettered = await anyone.request(`/api/v1/sheets/${org.organization.slug}/${part}/B/pdf`);
+    expect(current.headers.get("etag")).toBe(`"${revisions[2].pdfSha256}"`);
+    const revalidated = await anyone.request(`/api/v1/sheets/${org.organization.slug}/${part}/current/pdf`, { headers: { "if-none-match": `"${revisions[2].pdfSha256}"` } });
+    expect(revalidated.status).toBe(304);
+    const lettered = await anyone.request(`/api/v1/sheets/${org.organization.slug}/${part}/C/pdf`);
     expect(lettered.headers.get("cache-control")).toBe("public, max-age=31536000, immutable");
   });
 });
