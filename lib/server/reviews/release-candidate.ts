@@ -19,6 +19,7 @@ import { requireFreshCandidate } from "./freshness";
 import { queueCandidateNotice } from "./notices";
 import { utcDate } from "./utc-date";
 import { getRevision } from "./list-revisions";
+import { retryOnDeadlock } from "../outbox/retry-on-deadlock";
 import type { RevisionSummary } from "@/lib/domain/reviews";
 
 /**
@@ -38,7 +39,11 @@ export async function releaseCandidate(opts: { engineer: SessionUser; candidateI
   if (existing.state !== "approved") throw new AppError("conflict", notApproved(existing.state, existing.id));
   await requireFreshCandidate(existing);
 
-  const revisionId = await sequelize.transaction(async (transaction) => {
+  // Two first releases at once (of any devices newer than every released one) lock the same gap of
+  // the revisions' device index in the read below and then both insert into it: InnoDB rolls one
+  // back as the deadlock victim, which runs again from the start (letter, PDF and all); of n at once,
+  // one wins each round, so the helper's five tries cover five concurrent first releases.
+  const revisionId = await retryOnDeadlock(() => sequelize.transaction(async (transaction) => {
     const candidate = await lockOwnRow(SheetCandidate, candidateId, engineer, transaction, "sheet candidate");
     if (candidate.state !== "approved") throw new AppError("conflict", notApproved(candidate.state, candidate.id));
     const previous = await SheetRevision.unscoped().findOne({
@@ -120,7 +125,7 @@ export async function releaseCandidate(opts: { engineer: SessionUser; candidateI
     );
     await queueCandidateNotice({ event: "released", candidate, letter, revisionId: revision.id }, transaction);
     return revision.id;
-  });
+  }));
   return getRevision(revisionId);
 }
 
