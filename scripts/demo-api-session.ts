@@ -16,7 +16,7 @@ export class DemoApiSession {
   }
 
   /** The status and parsed body of one request; no check. */
-  async send<T>(method: "GET" | "POST" | "PUT", path: string, body?: unknown): Promise<{ status: number; body: T }> {
+  async send<T>(method: "GET" | "POST" | "PUT" | "DELETE", path: string, body?: unknown): Promise<{ status: number; body: T }> {
     const r = await fetch(`${this.appUrl}${path}`, {
       method,
       headers: { cookie: this.cookie, origin: new URL(this.appUrl).origin, ...(body === undefined ? {} : { "content-type": "application/json" }) },
@@ -27,7 +27,7 @@ export class DemoApiSession {
   }
 
   /** The parsed body when the answer has the expected status; otherwise an error naming the request, the person and the server's message. */
-  async call<T>(method: "GET" | "POST" | "PUT", path: string, body?: unknown, expected = method === "POST" ? 201 : 200): Promise<T> {
+  async call<T>(method: "GET" | "POST" | "PUT" | "DELETE", path: string, body?: unknown, expected = method === "POST" ? 201 : 200): Promise<T> {
     const answer = await this.send<T & { error?: { message?: string } }>(method, path, body);
     if (answer.status !== expected) {
       throw new Error(`${method} ${path} as ${this.email}: ${answer.status} ${answer.body?.error?.message ?? JSON.stringify(answer.body)}`);

@@ -4,7 +4,8 @@
  * POST /api/v1/measurements, a demo reviewer approves some, and engineers save their sheets'
  * limits and prose. The data are in models/seeders/demo-measurements.ts and demo-sheets.ts.
  * Runs once per database (recorded in benchfold_seeds). Then the demo's reviews and releases
- * (seed-demo-releases.ts), which check the sheets' state themselves. Needs the app at BENCHFOLD_APP_URL.
+ * (seed-demo-releases.ts) and the demo catalog's parts (seed-demo-catalog.ts), which check the sheets'
+ * state themselves. Needs the app at BENCHFOLD_APP_URL.
  */
 import { randomBytes, createHash } from "node:crypto";
 import { QueryTypes } from "sequelize";
@@ -13,6 +14,7 @@ import type { User, BenchToken } from "../models";
 import { demoInstruments, demoUploads } from "../models/seeders/demo-measurements";
 import { demoPassword } from "../models/seeders/demo-scenario";
 import { demoSheets } from "../models/seeders/demo-sheets";
+import { seedDemoCatalog } from "./seed-demo-catalog";
 import { seedDemoReleases } from "./seed-demo-releases";
 import { signInOverHttp } from "./sign-in-over-http";
 
@@ -117,8 +119,13 @@ async function loadDemoMeasurements() {
 async function main() {
   await loadDemoMeasurements();
   // The reviews and releases look at where each sheet stands, so they run (or carry on) every time.
+  let started = Date.now();
   const played = await seedDemoReleases(appUrl);
-  console.error(`[benchfold] demo reviews and releases: ${played.length ? played.join("; ") : "already there"}`);
+  console.error(`[benchfold] demo reviews and releases: ${played.length ? played.join("; ") : "already there"} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
+  // The demo catalog's parts: created, measured, limited and released as A through the same API.
+  started = Date.now();
+  const catalog = await seedDemoCatalog(appUrl);
+  console.error(`[benchfold] demo catalog: ${catalog.length ? `released ${catalog.join(", ")}` : "already there"} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
 }
 
 main()

@@ -16,11 +16,11 @@ import { demoOrganizations, demoPassword } from "../models/seeders/demo-scenario
 import { demoSheets, type DemoSheetContent } from "../models/seeders/demo-sheets";
 import { DemoApiSession } from "./demo-api-session";
 
-type Team = Record<DemoRole, DemoApiSession>;
+export type Team = Record<DemoRole, DemoApiSession>;
 type DeviceReview = { open: CandidateSummary | null; latest: CandidateSummary | null };
 
 /** Signs the organization's engineer and reviewer in once per run. */
-function teams(appUrl: string): (org: string) => Promise<Team> {
+export function teams(appUrl: string): (org: string) => Promise<Team> {
   const signedIn = new Map<string, Promise<Team>>();
   const person = (org: string, role: DemoRole) => {
     const user = demoOrganizations.find((o) => o.slug === org)?.users.find((u) => u.role === role);
@@ -33,14 +33,14 @@ function teams(appUrl: string): (org: string) => Promise<Team> {
   };
 }
 
-async function deviceIdOf(session: DemoApiSession, part: string): Promise<number> {
+export async function deviceIdOf(session: DemoApiSession, part: string): Promise<number> {
   const { devices } = await session.call<{ devices: { id: number; partNumber: string }[] }>("GET", "/api/devices");
   const device = devices.find((d) => d.partNumber === part);
   if (!device) throw new Error(`the demo device ${part} is not there`);
   return device.id;
 }
 
-const revisionLetters = async (session: DemoApiSession, deviceId: number) =>
+export const revisionLetters = async (session: DemoApiSession, deviceId: number) =>
   (await session.call<{ revisions: RevisionSummary[] }>("GET", `/api/devices/${deviceId}/revisions`)).revisions.map((r) => r.letter);
 
 const deviceReview = (session: DemoApiSession, deviceId: number) => session.call<DeviceReview>("GET", `/api/devices/${deviceId}/review`);
@@ -72,7 +72,7 @@ const requestChanges = (reviewer: DemoApiSession, candidateId: number, reason: s
   reviewer.call("POST", `/api/sheet-candidates/${candidateId}/decision`, { decision: "request-changes", reason }, 200);
 
 /** Submit, sign and release the draft as the next revision, going on from an approved candidate if there is one. */
-async function releaseNext(team: Team, deviceId: number, notes: { submitNote: string; releaseNote: string }): Promise<string> {
+export async function releaseNext(team: Team, deviceId: number, notes: { submitNote: string; releaseNote: string }): Promise<string> {
   const { open } = await deviceReview(team.engineer, deviceId);
   let candidateId = open?.state === "approved" ? open.id : null;
   if (candidateId === null) {
@@ -84,7 +84,7 @@ async function releaseNext(team: Team, deviceId: number, notes: { submitNote: st
 }
 
 /** The reviewer approves the device's sets waiting for review that `wanted` picks. */
-async function approveWaiting(reviewer: DemoApiSession, deviceId: number, wanted: (set: MeasurementSetSummary) => boolean): Promise<void> {
+export async function approveWaiting(reviewer: DemoApiSession, deviceId: number, wanted: (set: MeasurementSetSummary) => boolean): Promise<void> {
   const { measurementSets } = await reviewer.call<{ measurementSets: MeasurementSetSummary[] }>("GET", "/api/measurements/pending");
   for (const set of measurementSets.filter((s) => s.deviceId === deviceId && wanted(s))) {
     await reviewer.call("POST", `/api/measurements/${set.id}/review`, { decision: "approve" }, 200);
@@ -102,7 +102,17 @@ async function putSheet(engineer: DemoApiSession, deviceId: number, part: string
   await engineer.call("PUT", `/api/devices/${deviceId}/sheet-content`, { prose, absoluteMaximumRatings, measurementUncertainty }, 200);
 }
 
-/** KDX-2G4: revision A from three units and an 11.5 dB limit; then the fourth unit, a send-back, the 11.0 dB limit and revision B. */
+/** The demo customer follows the part (201, or 200 when already following), so its next release sends them the change notice. */
+async function followAsCustomer(appUrl: string, org: string, part: string, email: string): Promise<void> {
+  const customer = await DemoApiSession.signIn(appUrl, { email, password: demoPassword });
+  const answer = await customer.send<{ error?: { message: string } }>("POST", "/api/subscriptions", { organization: org, partNumber: part });
+  if (answer.status !== 201 && answer.status !== 200) throw new Error(`${email} following ${part}: ${answer.status} ${answer.body?.error?.message}`);
+}
+
+/**
+ * KDX-2G4: revision A from three units and an 11.5 dB limit; then the demo customer follows the part,
+ * the fourth unit, a send-back, the 11.0 dB limit and revision B (whose change notice the customer gets).
+ */
 async function playDoublerStory(team: Team): Promise<string[]> {
   const story = demoDoublerStory;
   const deviceId = await deviceIdOf(team.engineer, story.part);
@@ -114,6 +124,7 @@ async function playDoublerStory(team: Team): Promise<string[]> {
     await putSheet(team.engineer, deviceId, story.part, { limits: story.limitsAtRevisionA, prose: story.proseAtRevisionA });
     done.push(`${story.part} ${await releaseNext(team, deviceId, story.revisionA)}`);
   }
+  await followAsCustomer(team.engineer.appUrl, story.org, story.part, story.followerBeforeRevisionB);
   await approveWaiting(team.reviewer, deviceId, (set) => (story.addedAfterRevisionA as readonly string[]).includes(String(set.conditions.serial)));
   if ((await deviceReview(team.engineer, deviceId)).latest?.state === "released") {
     const candidateId = await submitDraft(team, deviceId, story.firstResubmission.note);

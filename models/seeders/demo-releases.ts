@@ -37,12 +37,15 @@ function proseAtRevisionA(): DemoSheetContent["prose"] {
  * see demo-measurements.ts) with a conversion-loss maximum of 11.5 dB (and a features line to match); then BFD-0004 is
  * approved, the reviewer sends the first resubmission back, the engineer tightens the maximum to
  * 11.0 dB and puts the feature line right (the content of demo-sheets.ts) and revision B goes out.
+ * Between A and B the demo customer follows the part, so B's release queues a change notice to them.
  */
 export const demoDoublerStory = {
   org: "kestrine",
   part: "KDX-2G4",
   limitsAtRevisionA: limitsAtRevisionA(),
   proseAtRevisionA: proseAtRevisionA(),
+  /** The demo customer (Tarnby Radio Systems), who follows the part once A is out and so is sent the change notice of B. */
+  followerBeforeRevisionB: "anneli.vos@tarnby-radio.example",
   /** Serials approved only after revision A is released. */
   addedAfterRevisionA: ["BFD-0004"],
   revisionA: {

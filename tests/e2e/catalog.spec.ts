@@ -46,6 +46,27 @@ test("sorts by a figure through the column header, with the order announced", as
   await expect(page.getByTestId("catalog-results").getByRole("columnheader", { name: /CL/ })).toHaveAttribute("aria-sort", "ascending");
 });
 
+test("one vendor's demo parts, counted per class in the facet; a hybrid found by the frequency it covers", async ({ page }) => {
+  // The demo catalog (scripts/seed-demo-catalog.ts): Pellacourt released PX-80, PM-7L, PS-900 and, in the story, PS-2W.
+  await page.goto("/catalog?org=pellacourt");
+  const results = page.getByTestId("catalog-results");
+  for (const part of ["PM-7L", "PS-2W", "PS-900", "PX-80"]) await expect(results.getByRole("link", { name: part, exact: true })).toBeVisible();
+  const classes = page.getByTestId("catalog-facets").getByRole("navigation", { name: "Device class" });
+  const countOf = (label: string) => classes.getByRole("listitem").filter({ hasText: label }).locator("span.figure");
+  await expect(countOf("Quadrature hybrid or power splitter")).toHaveText("2");
+  await expect(countOf("Double-balanced mixer")).toHaveText("1");
+  await expect(countOf("Frequency multiplier")).toHaveText("1");
+
+  const form = page.getByRole("search", { name: "Search the catalog" });
+  await page.goto("/catalog");
+  await form.getByLabel("Device class").selectOption("quadrature-hybrid");
+  await form.getByLabel("Covers the frequency").fill("3.5 GHz");
+  await form.getByRole("button", { name: "Search" }).click();
+  await expect(page).toHaveURL(/covers=3\.5/);
+  await expect(page.getByTestId("catalog-results").getByRole("link", { name: "KQH-3G5", exact: true })).toHaveAttribute("href", "/datasheets/kestrine/KQH-3G5/A");
+  await expect(page.getByTestId("catalog-results").getByRole("link", { name: "KQH-2G", exact: true })).toHaveCount(0);
+});
+
 /** WCAG 2.x A and AA rules of axe-core on the whole page: no violation. */
 async function expectAccessible(page: Page, what: string): Promise<void> {
   const results = await new AxeBuilder({ page }).include("main").withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();

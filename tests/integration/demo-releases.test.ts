@@ -3,9 +3,14 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { CandidateDetail, CandidateSummary, RevisionSummary } from "@/lib/domain/reviews";
 import type { SheetModel } from "@/lib/sheet";
 import { closeDb, db } from "@/models";
+import type { CatalogResult } from "@/lib/catalog/types";
+import { deviceClasses } from "@/lib/domain/device-classes";
+import { demoCatalogParts } from "@/models/seeders/demo-catalog";
 import { demoChangesRequested, demoDoublerStory, demoOpenReview } from "@/models/seeders/demo-releases";
 import { demoOrganizations, demoPassword } from "@/models/seeders/demo-scenario";
+import type { SubscriptionsPage } from "@/lib/domain/subscriptions";
 import { TestClient } from "./helpers/client";
+import { mailsTo, type CaughtMail } from "./helpers/mailbox";
 
 /**
  * What the demo loader (scripts/seed-demo-releases.ts, run before the integration tests) leaves:
@@ -115,5 +120,78 @@ describe("the demo's releases", () => {
     const { candidate } = await getJson<{ candidate: CandidateDetail }>(await person(demoChangesRequested.org, "engineer"), `/api/sheet-candidates/${open!.id}`);
     expect(candidate.acknowledgements.map((a) => a.code)).toEqual(["no-approved-data"]);
     expect(candidate.acknowledgements[0].reason.length).toBeGreaterThan(40);
+  });
+});
+
+describe("the demo catalog", () => {
+  const demoOrgs = ["kestrine", "pellacourt", "wrenfield-lab"];
+
+  it("holds at least twelve released demo parts, current, across the three classes, from both vendors and the lab", async () => {
+    const anonymous = new TestClient();
+    const demoHits: CatalogResult["hits"] = [];
+    for (const org of demoOrgs) {
+      const result = await getJson<CatalogResult>(anonymous, `/api/v1/sheets?org=${org}&limit=100`);
+      demoHits.push(...result.hits);
+    }
+    expect(demoHits.length).toBeGreaterThanOrEqual(12);
+    for (const deviceClass of deviceClasses.filter((c) => c !== "comb-generator-test-only")) {
+      expect(demoHits.filter((h) => h.deviceClass === deviceClass).length, deviceClass).toBeGreaterThanOrEqual(3);
+    }
+    for (const org of demoOrgs) expect(demoHits.filter((h) => h.organization.slug === org).length, org).toBeGreaterThanOrEqual(3);
+    for (const part of demoCatalogParts) {
+      expect(demoHits.find((h) => h.partNumber === part.partNumber)?.letter, part.partNumber).toBe("A");
+    }
+  });
+
+  it("released each catalog part with limits its own units support, and features that promise what the table guarantees", async () => {
+    const { SheetRevision, Device } = db();
+    for (const part of demoCatalogParts) {
+      const device = await Device.findOne({ where: { partNumber: part.partNumber }, attributes: ["id"] });
+      const revision = await SheetRevision.unscoped().findOne({ where: { deviceId: device!.id, letter: "A" }, attributes: ["modelJson"] });
+      const model = JSON.parse(revision!.modelJson) as SheetModel;
+      const limited = model.statistics.groups.filter((g) => g.limits && (g.limits.min.value !== null || g.limits.max.value !== null));
+      // Every rule of the part set a limit on each of its row's groups, from three or more units.
+      expect(new Set(limited.map((g) => g.rowId)), part.partNumber).toEqual(new Set(part.limits.map((l) => l.row)));
+      for (const g of limited) {
+        expect(g.n, `${part.partNumber} ${g.groupId}`).toBeGreaterThanOrEqual(3);
+        expect([g.supported, g.failCount], `${part.partNumber} ${g.groupId}`).toEqual([true, 0]);
+      }
+      expect(model.issues, part.partNumber).toEqual([]);
+      // The features line names a limit the table states (e.g. "below 12.5 dB" beside a 12.5 dB max).
+      const features = model.prose.find((p) => p.id === "features");
+      const promised = [...(JSON.stringify(features) ?? "").matchAll(/(?:below|above|within ±)\s?(\d+(?:\.\d+)?)/g)].map((m) => Number(m[1]));
+      expect(promised.length, part.partNumber).toBeGreaterThan(0);
+      const stated = limited.flatMap((g) => [g.limits!.min.value, g.limits!.max.value]).filter((v): v is number => v !== null).map(Math.abs);
+      for (const value of promised) expect(stated, `${part.partNumber} promises ${value}`).toContain(value);
+    }
+  });
+});
+
+describe("the demo customer", () => {
+  const customer = demoDoublerStory.followerBeforeRevisionB;
+
+  it("follows KDX-2G4, since before revision B: the change notices page lists the part and the notice sent", async () => {
+    const client = new TestClient();
+    expect((await client.signIn(customer, demoPassword)).ok).toBe(true);
+    const page = await getJson<SubscriptionsPage>(client, "/api/subscriptions");
+    expect(page.follows.map((f) => f.label)).toEqual([expect.stringContaining("KDX-2G4")]);
+    expect(page.sent.map((n) => n.subject)).toContain("KDX-2G4 revision B released");
+    expect(page.sent.map((n) => n.subject)).not.toContain("KDX-2G4 revision A released");
+  });
+
+  it("was mailed the change notice of B, which says what changed since A, links both and can be stopped without signing in", async () => {
+    let notices: CaughtMail[] = [];
+    for (let waited = 0; waited < 20_000 && notices.length === 0; waited += 250) {
+      notices = (await mailsTo(customer)).filter((m) => m.subject === "KDX-2G4 revision B released");
+      if (notices.length === 0) await new Promise((r) => setTimeout(r, 250));
+    }
+    expect(notices).toHaveLength(1);
+    const [notice] = notices;
+    expect(notice.text).toContain("What changed since revision A:");
+    expect(notice.text).toMatch(/Conversion loss.*max 11\.50\sdB → 11\.00\sdB \(tightened\)/);
+    expect(notice.text).toMatch(/Revision B: https?:\/\/\S+\/datasheets\/kestrine\/KDX-2G4\/B/);
+    expect(notice.text).toMatch(/Revision A: https?:\/\/\S+\/datasheets\/kestrine\/KDX-2G4\/A/);
+    expect(notice.text).toMatch(/\/unsubscribe\/\S+/);
+    expect(notice.listUnsubscribe).toMatch(/^<https?:\/\/\S+\/api\/unsubscribe\?token=/);
   });
 });

@@ -19,6 +19,7 @@ import { requireFreshCandidate } from "./freshness";
 import { queueCandidateNotice } from "./notices";
 import { utcDate } from "./utc-date";
 import { getRevision } from "./list-revisions";
+import { retryOnDeadlock } from "../outbox/retry-on-deadlock";
 import type { RevisionSummary } from "@/lib/domain/reviews";
 
 /**
@@ -38,14 +39,21 @@ export async function releaseCandidate(opts: { engineer: SessionUser; candidateI
   if (existing.state !== "approved") throw new AppError("conflict", notApproved(existing.state, existing.id));
   await requireFreshCandidate(existing);
 
-  const revisionId = await sequelize.transaction(async (transaction) => {
+  // Should InnoDB still pick this transaction as a deadlock victim, it runs again from the start.
+  const revisionId = await retryOnDeadlock(() => sequelize.transaction(async (transaction) => {
     const candidate = await lockOwnRow(SheetCandidate, candidateId, engineer, transaction, "sheet candidate");
     if (candidate.state !== "approved") throw new AppError("conflict", notApproved(candidate.state, candidate.id));
+    // Releases of one device queue on the device's row (a record lock). The latest revision is then
+    // read without a lock: a locking read that finds no revision locks the gap of the device index
+    // where one would go, the same gap for every device newer than all released ones, and two first
+    // releases at once both inserted into it and deadlocked (one answered 500). This plain read is the
+    // transaction's first, so its snapshot is taken after the device lock: it sees every revision
+    // committed by an earlier holder of that lock.
+    await Device.findByPk(candidate.deviceId, { attributes: ["id"], lock: transaction.LOCK.UPDATE, transaction });
     const previous = await SheetRevision.unscoped().findOne({
       where: { deviceId: candidate.deviceId },
       order: [["sequence", "DESC"]],
       attributes: ["id", "sequence", "modelJson"],
-      lock: transaction.LOCK.UPDATE,
       transaction,
     });
     const signatures = await SheetSignature.findAll({ where: { candidateId: candidate.id }, order: [["id", "ASC"]], transaction });
@@ -120,7 +128,7 @@ export async function releaseCandidate(opts: { engineer: SessionUser; candidateI
     );
     await queueCandidateNotice({ event: "released", candidate, letter, revisionId: revision.id }, transaction);
     return revision.id;
-  });
+  }));
   return getRevision(revisionId);
 }
 

@@ -6,6 +6,7 @@ import { getSessionUser } from "@/lib/server/auth/session";
 import { renderChartSvgsById, renderSheetChartSvgs } from "@/lib/server/charts/render-chart";
 import { serverConfig } from "@/lib/server/config";
 import { findReleasedRevision } from "@/lib/server/reviews/list-revisions";
+import { releasedPageDescription, releasedPageTitle } from "@/lib/sheet/released-page-words";
 import { SheetView } from "@/components/sheet/sheet-view";
 import { SheetViewWithCharts } from "@/components/sheets/sheet-view-with-charts";
 import { ReleasedSheetView } from "@/components/datasheets/released-sheet-view";
@@ -38,11 +39,15 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const { org, part, rev } = await params;
   const sheet = await releasedSheet(org, part, rev).catch(() => null);
   if (!sheet) return { title: "No such released sheet" };
+  const { summary, model, history } = sheet;
+  const currentLetter = history.find((r) => r.standing === "current")?.letter ?? null;
   return {
-    title: `${sheet.model.header.partNumber} Rev. ${sheet.summary.letter}`,
-    description: `${sheet.model.header.title}: revision ${sheet.summary.letter} of the datasheet, as released by ${sheet.model.header.organizationName}.`,
+    title: releasedPageTitle(model.header.partNumber, summary),
+    description: releasedPageDescription({ title: model.header.title, organizationName: model.header.organizationName, revision: summary, currentLetter }),
     // "current" moves with each release; the lettered address of the revision shown never does.
-    alternates: { canonical: new URL(sheet.summary.publicPath, serverConfig.appUrl).toString() },
+    alternates: { canonical: new URL(summary.publicPath, serverConfig.appUrl).toString() },
+    // A withdrawn revision stays readable for whoever holds its printout, but is not offered to search engines.
+    ...(summary.standing === "withdrawn" ? { robots: { index: false, follow: true } } : {}),
   };
 }
 
