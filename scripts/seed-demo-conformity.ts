@@ -1,84 +1,61 @@
 /**
- * The demo's conformity watch, played through the app's API after the demo's releases
- * (scripts/seed-demo-releases.ts): one unit of each of two released Kestrine parts is measured after
- * the release, uploaded by the engineer and approved by the reviewer, so the approval runs the watch.
+ * The demo's conformity watch (models/seeders/demo-conformity.ts), played after the demo's releases
+ * (scripts/seed-demo-releases.ts): each unit is posted through the bench API with a token made for
+ * this run and revoked at the end (as the demo loader posts its files), then approved by the
+ * organization's reviewer, so the approval reads it against the current revision: KDX-2G4's unit
+ * raises a conformity alert, KM-7H's stays in control.
  *
- * - KDX-2G4 (Rev. B, conversion loss ≤ 11 dB at 1 GHz): unit BFD-0021 from a new lot reads about
- *   2.5 dB more conversion loss than the first unit; its approval raises a conformity alert (outside the
- *   guaranteed limit, and far beyond 3σ of the release) and queues one notice per engineer and reviewer.
- * - KM-7H (Rev. A): unit BFD-0121 reads within a few hundredths of a dB of the first unit: in control,
- *   no alert.
- *
- * Each step looks first: a unit already uploaded is not uploaded again, one already approved is left
- * alone, and a part whose release is not there yet is skipped with a note, so a second run changes
- * nothing. Needs the app at BENCHFOLD_APP_URL. Run with `node node_modules/tsx/dist/cli.mjs
- * scripts/seed-demo-conformity.ts`, or call seedDemoConformity(appUrl) after seedDemoReleases.
+ * Each step looks first: a unit already uploaded is not uploaded again, one already decided is left
+ * alone, and a part without a current revision is skipped with a note, so a second run changes
+ * nothing. Needs MariaDB (for the token) and the app at BENCHFOLD_APP_URL. Called as
+ * `seedDemoConformity(appUrl)` right after `seedDemoReleases(appUrl)`, or on its own with
+ * `node node_modules/tsx/dist/cli.mjs scripts/seed-demo-conformity.ts`.
  */
-import { readFileSync } from "node:fs";
-import path from "node:path";
+import { createHash, randomBytes } from "node:crypto";
 import type { MeasurementSetSummary } from "../lib/domain/measurements";
 import type { RevisionSummary } from "../lib/domain/reviews";
+import { closeDb, db } from "../models";
+import { demoConformityUnits } from "../models/seeders/demo-conformity";
 import { demoOrganizations, demoPassword } from "../models/seeders/demo-scenario";
-import { signInOverHttp } from "./sign-in-over-http";
+import { DemoApiSession } from "./demo-api-session";
 
-const examples = path.resolve(__dirname, "../fixtures/examples");
-
-/** The example doubler as another unit: every output `dropDb` lower, so conversion loss is that much higher. */
-function doublerUnit(serial: string, lot: string, dropDb: number): Buffer {
-  const lines = readFileSync(path.join(examples, "drive-sweep-doubler.csv"), "utf8").split("\n");
-  return Buffer.from(
-    lines
-      .map((line) => {
-        if (line.startsWith("# serial:")) return `# serial: ${serial}`;
-        if (line.startsWith("# lot:")) return `# lot: ${lot}`;
-        if (!/^-?\d/.test(line)) return line;
-        const [input, ...outs] = line.split(",");
-        return [input, ...outs.map((v) => (Number(v) - dropDb).toFixed(2))].join(",");
-      })
-      .join("\n"),
-  );
+function person(appUrl: string, org: string, role: "engineer" | "reviewer" | "admin"): Promise<DemoApiSession> {
+  const user = demoOrganizations.find((o) => o.slug === org)?.users.find((u) => u.role === role);
+  if (!user) throw new Error(`the demo organization ${org} has no ${role}`);
+  return DemoApiSession.signIn(appUrl, { email: user.email, password: demoPassword });
 }
 
-/** The example mixer as another unit: conversion loss and isolation moved by the given amounts (decimal comma kept). */
-function mixerUnit(serial: string, lossShiftDb: number, isolationShiftDb: number): Buffer {
-  const lines = readFileSync(path.join(examples, "frequency-sweep-mixer.csv"), "utf8").split("\n");
-  const comma = (v: number) => v.toFixed(2).replace(".", ",");
-  return Buffer.from(
-    lines
-      .map((line) => {
-        if (line.startsWith("# serial:")) return `# serial: ${serial}`;
-        if (!/^\d/.test(line)) return line;
-        const [frequency, loss, isolation] = line.split(";");
-        return [frequency, comma(Number(loss.replace(",", ".")) + lossShiftDb), comma(Number(isolation.replace(",", ".")) + isolationShiftDb)].join(";");
-      })
-      .join("\n"),
-  );
-}
-
-export const demoConformityUnits = [
-  { org: "kestrine", part: "KDX-2G4", serial: "BFD-0021", file: "drive-sweep-bfd-0021.csv", measuredOn: "2026-11-24", bytes: () => doublerUnit("BFD-0021", "L2611", 2.5), expect: "alert" },
-  { org: "kestrine", part: "KM-7H", serial: "BFD-0121", file: "frequency-sweep-bfd-0121.csv", measuredOn: "2026-11-25", bytes: () => mixerUnit("BFD-0121", 0.04, -0.3), expect: "in control" },
-] as const;
-
-class Person {
-  private constructor(
-    private readonly appUrl: string,
-    private readonly cookie: string,
-  ) {}
-
-  static async signIn(appUrl: string, org: string, role: "engineer" | "reviewer"): Promise<Person> {
-    const user = demoOrganizations.find((o) => o.slug === org)?.users.find((u) => u.role === role);
-    if (!user) throw new Error(`the demo organization ${org} has no ${role}`);
-    return new Person(appUrl, await signInOverHttp(appUrl, { email: user.email, password: demoPassword }));
-  }
-
-  async call<T>(method: "GET" | "POST", path: string, body?: unknown | FormData, expected = method === "POST" ? 201 : 200): Promise<T> {
-    const headers: Record<string, string> = { cookie: this.cookie, origin: new URL(this.appUrl).origin };
-    if (body !== undefined && !(body instanceof FormData)) headers["content-type"] = "application/json";
-    const r = await fetch(`${this.appUrl}${path}`, { method, headers, body: body === undefined ? undefined : body instanceof FormData ? body : JSON.stringify(body) });
-    const text = await r.text();
-    if (r.status !== expected) throw new Error(`${method} ${path}: ${r.status} ${text.slice(0, 300)}`);
-    return (text ? JSON.parse(text) : null) as T;
+/** Posts a unit through the bench API with a token of this run (revoked at once); the new set's id. */
+async function postThroughBench(appUrl: string, unit: (typeof demoConformityUnits)[number]): Promise<number> {
+  const { BenchToken, Instrument, Organization, User } = db();
+  const organization = await Organization.findOne({ where: { slug: unit.org } });
+  const admin = organization && (await User.findOne({ where: { organizationId: organization.id, role: "admin" } }));
+  if (!organization || !admin) throw new Error(`the demo organization ${unit.org} is not there`);
+  const token = `bfd_${randomBytes(30).toString("base64url")}`;
+  const row = await BenchToken.create({
+    organizationId: organization.id, createdById: admin.id, name: "Demo conformity loader (revoked after use)", tokenPrefix: token.slice(0, 10),
+    tokenHash: createHash("sha256").update(token).digest("hex"),
+  });
+  try {
+    const instruments = await Instrument.findAll({ where: { organizationId: organization.id } });
+    const { demoInstruments } = await import("../models/seeders/demo-measurements");
+    const ids = unit.instruments.map((key) => {
+      const serial = demoInstruments[unit.org].find((i) => i.key === key)?.serial;
+      const found = instruments.find((i) => i.serial === serial);
+      if (!found) throw new Error(`the demo instrument ${unit.org}/${key} is not there`);
+      return found.id;
+    });
+    const form = new FormData();
+    form.set("file", new Blob([new Uint8Array(unit.bytes())]), unit.file);
+    form.set("device", unit.part);
+    for (const [k, v] of Object.entries(unit.fields)) form.set(k, v);
+    form.set("instrumentIds", ids.join(","));
+    const r = await fetch(`${appUrl}/api/v1/measurements`, { method: "POST", headers: { authorization: `Bearer ${token}` }, body: form });
+    const body = (await r.json()) as { measurementSet?: { id: number }; error?: { message: string } };
+    if (r.status !== 201) throw new Error(`demo upload ${unit.file} → ${unit.part}: ${r.status} ${body.error?.message}`);
+    return body.measurementSet!.id;
+  } finally {
+    await row.update({ revokedAt: new Date() });
   }
 }
 
@@ -86,30 +63,24 @@ class Person {
 export async function seedDemoConformity(appUrl: string): Promise<string[]> {
   const done: string[] = [];
   for (const unit of demoConformityUnits) {
-    const engineer = await Person.signIn(appUrl, unit.org, "engineer");
-    const reviewer = await Person.signIn(appUrl, unit.org, "reviewer");
+    const engineer = await person(appUrl, unit.org, "engineer");
     const { devices } = await engineer.call<{ devices: { id: number; partNumber: string }[] }>("GET", "/api/devices");
     const device = devices.find((d) => d.partNumber === unit.part);
     if (!device) throw new Error(`the demo device ${unit.part} is not there`);
     const { revisions } = await engineer.call<{ revisions: RevisionSummary[] }>("GET", `/api/devices/${device.id}/revisions`);
     if (!revisions.some((r) => r.standing === "current")) {
-      done.push(`${unit.part} has no current revision yet: its conformity unit waits`);
+      done.push(`${unit.part} has no current revision yet: unit ${unit.serial} waits`);
       continue;
     }
     const { measurementSets } = await engineer.call<{ measurementSets: MeasurementSetSummary[] }>("GET", `/api/devices/${device.id}/measurements`);
-    let set = measurementSets.find((s) => s.conditions.serial === unit.serial);
-    if (!set) {
-      const form = new FormData();
-      form.set("file", new Blob([new Uint8Array(unit.bytes())]), unit.file);
-      form.set("measuredOn", unit.measuredOn);
-      set = (await engineer.call<{ measurementSet: MeasurementSetSummary }>("POST", `/api/devices/${device.id}/measurements`, form)).measurementSet;
-    }
-    if (set.state === "submitted") {
-      await reviewer.call("POST", `/api/measurements/${set.id}/review`, { decision: "approve" }, 200);
-      const { conformity } = await engineer.call<{ conformity: { alerts: { measurementSetId: number }[] } }>("GET", `/api/devices/${device.id}/conformity`);
-      const raised = conformity.alerts.some((a) => a.measurementSetId === set.id);
-      done.push(`${unit.part} unit ${unit.serial} approved after the release: ${raised ? "conformity alert raised" : "in control, no alert"} (expected: ${unit.expect})`);
-    }
+    const existing = measurementSets.find((s) => s.conditions.serial === unit.serial);
+    if (existing && existing.state !== "submitted") continue;
+    const setId = existing?.id ?? (await postThroughBench(appUrl, unit));
+    const reviewer = await person(appUrl, unit.org, "reviewer");
+    await reviewer.call("POST", `/api/measurements/${setId}/review`, { decision: "approve" }, 200);
+    const { conformity } = await engineer.call<{ conformity: { alerts: { measurementSetId: number }[] } }>("GET", `/api/devices/${device.id}/conformity`);
+    const raised = conformity.alerts.some((a) => a.measurementSetId === setId);
+    done.push(`${unit.part} unit ${unit.serial} approved after the release: ${raised ? "conformity alert raised" : "in control, no alert"} (the demo expects: ${unit.expect})`);
   }
   return done;
 }
@@ -121,5 +92,6 @@ if (require.main === module) {
     .catch((error) => {
       console.error("[benchfold] demo conformity watch failed:", error instanceof Error ? error.message : error);
       process.exitCode = 1;
-    });
+    })
+    .finally(() => closeDb());
 }

@@ -43,7 +43,7 @@ export async function getConformityWatch(opts: { viewer: SessionUser; deviceId: 
         { model: User, as: "closedBy", attributes: ["id", "name"] },
       ],
       order: [
-        [ConformityAlert.sequelize!.literal("closed_at IS NULL"), "DESC"],
+        [ConformityAlert.sequelize!.literal("`ConformityAlert`.`closed_at` IS NULL"), "DESC"],
         ["id", "DESC"],
       ],
       limit: 100,
