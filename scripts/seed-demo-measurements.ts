@@ -14,6 +14,7 @@ import { demoInstruments, demoUploads } from "../models/seeders/demo-measurement
 import { demoPassword } from "../models/seeders/demo-scenario";
 import { demoSheets } from "../models/seeders/demo-sheets";
 import { seedDemoReleases } from "./seed-demo-releases";
+import { seedDemoConformity } from "./seed-demo-conformity";
 import { signInOverHttp } from "./sign-in-over-http";
 
 const appUrl = process.env.BENCHFOLD_APP_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
@@ -119,6 +120,9 @@ async function main() {
   // The reviews and releases look at where each sheet stands, so they run (or carry on) every time.
   const played = await seedDemoReleases(appUrl);
   console.error(`[benchfold] demo reviews and releases: ${played.length ? played.join("; ") : "already there"}`);
+  // After the releases: one unit outside KDX-2G4's released limit (a conformity alert), one in control.
+  const watched = await seedDemoConformity(appUrl);
+  console.error(`[benchfold] demo conformity watch: ${watched.length ? watched.join("; ") : "already there"}`);
 }
 
 main()
