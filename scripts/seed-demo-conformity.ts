@@ -59,6 +59,14 @@ async function postThroughBench(appUrl: string, unit: (typeof demoConformityUnit
   }
 }
 
+/** Closes every open conformity alert of the device with the reason, as its engineer; how many were open. */
+export async function closeDemoAlerts(engineer: DemoApiSession, deviceId: number, reason: string): Promise<number> {
+  const { conformity } = await engineer.call<{ conformity: { alerts: { id: number; closed: unknown }[] } }>("GET", `/api/devices/${deviceId}/conformity`);
+  const open = conformity.alerts.filter((a) => a.closed === null);
+  for (const alert of open) await engineer.call("POST", `/api/conformity-alerts/${alert.id}/close`, { reason }, 200);
+  return open.length;
+}
+
 /** Uploads and approves each unit the database does not show yet; what it did, one line each. */
 export async function seedDemoConformity(appUrl: string): Promise<string[]> {
   const done: string[] = [];

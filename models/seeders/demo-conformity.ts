@@ -78,3 +78,11 @@ export const demoConformityUnits: DemoConformityUnit[] = [
     expect: "in control",
   },
 ];
+
+/**
+ * Revision A of KDX-2G4 rests on three units, so its control charts are narrow: BFD-0004, approved
+ * after A, signals Nelson's test 1 on a suppression figure. Before resubmitting, the engineer closes
+ * that alert with this reason (scripts/seed-demo-releases.ts, through closeDemoAlerts).
+ */
+export const demoRevisionAAlertReason =
+  "BFD-0004 is from the same October build as the first three units; revision A's spread rests on those three alone. Revision B adds BFD-0004 to the population, which widens the chart rather than the limits.";
