@@ -27,6 +27,8 @@ export interface ChartAxis {
   label: string;
   unit: string;
   scale?: "linear" | "log";
+  /** The axis counts (unit 1, 2, 3… of a control chart): whole-number ticks only. */
+  counting?: boolean;
 }
 
 export interface ChartTrace {
@@ -48,6 +50,8 @@ export interface ChartMarker {
 export interface ChartRule {
   y: number;
   label: string;
+  /** Decimals of the value in the label (one unless given). */
+  decimals?: number;
 }
 
 export interface ChartData {
@@ -229,13 +233,13 @@ function seriesEncodings(data: ChartData, present: Set<string>) {
 }
 
 /** The x and y encodings every layer shares, so the layers share scales, axes and titles. */
-function axisEncodings({ screen, logX, logY }: ChartContext, values: PlottedTraces["values"], xTitle: string, yTitle: string) {
+function axisEncodings({ data, screen, logX, logY }: ChartContext, values: PlottedTraces["values"], xTitle: string, yTitle: string) {
   const x = {
     field: "x",
     type: "quantitative" as const,
     title: xTitle,
     scale: logX ? { type: "log" as const, nice: false } : { zero: false, nice: screen },
-    axis: logX ? { format: "~s", values: decades(values.map((v) => v.x as number)), grid: true } : { grid: true },
+    axis: logX ? { format: "~s", values: decades(values.map((v) => v.x as number)), grid: true } : data.x.counting ? { grid: true, tickMinStep: 1, format: "d" } : { grid: true },
   };
   const y = {
     field: "y",
@@ -328,7 +332,7 @@ function ruleLayers({ data, screen, size, fonts }: ChartContext): Record<string,
   const layers: Record<string, unknown>[] = [];
   for (const rule of data.rules ?? []) {
     if (!Number.isFinite(rule.y)) continue;
-    const label = `${rule.label}: ${formatQuantity(rule.y, data.y.unit, { digits: { maxDecimals: 1 } })}`;
+    const label = `${rule.label}: ${formatQuantity(rule.y, data.y.unit, { digits: { maxDecimals: rule.decimals ?? 1 } })}`;
     layers.push({
       data: { values: [{ y: rule.y, text: label }] },
       mark: { type: "rule", strokeDash: RULE_STYLE.dash, strokeWidth: RULE_STYLE.strokeWidth, color: RULE_STYLE.colour },

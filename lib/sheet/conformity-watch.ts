@@ -252,24 +252,24 @@ function pickRef(g: GroupRef): GroupRef {
 export function controlChartData(chart: ControlChartWatch): ChartData {
   const series = `${chart.label} per unit`;
   const rules = [
-    { y: chart.upperControlLimit, label: "UCL (+3σ)" },
-    { y: chart.centre, label: "Centre (release mean)" },
-    { y: chart.lowerControlLimit, label: "LCL (−3σ)" },
-    ...(chart.max !== null ? [{ y: chart.max, label: "Guaranteed max" }] : []),
-    ...(chart.min !== null ? [{ y: chart.min, label: "Guaranteed min" }] : []),
+    { y: chart.upperControlLimit, label: "UCL (+3σ)", decimals: 3 },
+    { y: chart.centre, label: "Centre (release mean)", decimals: 3 },
+    { y: chart.lowerControlLimit, label: "LCL (−3σ)", decimals: 3 },
+    ...(chart.max !== null ? [{ y: chart.max, label: "Guaranteed max", decimals: 3 }] : []),
+    ...(chart.min !== null ? [{ y: chart.min, label: "Guaranteed min", decimals: 3 }] : []),
   ];
   const signalled = new Map<number, number[]>();
   for (const s of chart.signals) signalled.set(s.index, [...(signalled.get(s.index) ?? []), s.rule]);
   return {
     title: `${chart.label}${chart.conditionsText ? `, ${chart.conditionsText}` : ""}: individuals chart since release`,
-    x: { label: "Unit since release", unit: "" },
+    x: { label: "Unit since release", unit: "", counting: true },
     y: { label: chart.label, unit: chart.unit },
     seriesNames: [series],
     traces: [{ series, points: chart.points.map((p, i) => [i + 1, p.value] as const) }],
     markers: [...signalled].map(([index, rules]) => ({
       x: index + 1,
       y: chart.points[index].value,
-      label: `${chart.points[index].serial}: test ${rules.join(", ")}`,
+      label: `Nelson test ${rules.join(", ")} at unit`,
     })),
     rules,
   };
