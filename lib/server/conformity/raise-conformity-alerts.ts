@@ -12,16 +12,17 @@ import { conformityAlertWords } from "../outbox/notice-mails";
 import { organizationMembers } from "../outbox/organization-members";
 import { loadWatchInput } from "./load-watch";
 
-const findingKey = (f: ConformityFinding) => (f.kind === "run-rule" ? `${f.groupId}|test ${f.rule}` : null);
+/** A pattern test (2–8) goes on signalling while its run lasts; a unit beyond 3σ or outside a limit is news each time. */
+const findingKey = (f: ConformityFinding) => (f.kind === "run-rule" && f.rule !== 1 ? `${f.groupId}|test ${f.rule}` : null);
 
 /**
  * The conformity watch's hook, called in the approval's own transaction once a set is approved: when
  * the device has a current revision, the set is read against it (lib/sheet/conformity-watch), and a
  * unit outside a guaranteed limit or a test that signals at its point raises one alert, with its audit
  * event and one notice to each of the organization's engineers and reviewers (the outbox, so the mail
- * exists exactly when the approval commits). A test that an open alert already reports for the same
- * parameter is not raised again (a run of ten is the run of nine going on); a unit outside a limit
- * always is. The device row is locked so that two approvals of one device read each other's sets.
+ * exists exactly when the approval commits). A pattern test (Nelson 2–8) that an open alert already
+ * reports for the same parameter is not raised again (a run of ten is the run of nine going on); a unit
+ * outside a limit or beyond 3σ always is. The device row is locked so that two approvals of one device read each other's sets.
  */
 export async function raiseConformityAlerts(opts: { set: MeasurementSet; reviewer: SessionUser; transaction: Transaction }): Promise<number | null> {
   const { set, reviewer, transaction } = opts;
