@@ -44,6 +44,8 @@ export interface ChartMarker {
   y: number;
   label: string;
   unit?: string;
+  /** False: not named in the plot's corner on screen (the page lists them beside the chart). */
+  inCorner?: boolean;
 }
 
 /** A horizontal reference line with its label (the thermal phase-noise floor). */
@@ -238,14 +240,15 @@ function axisEncodings({ data, screen, logX, logY }: ChartContext, values: Plott
     field: "x",
     type: "quantitative" as const,
     title: xTitle,
-    scale: logX ? { type: "log" as const, nice: false } : { zero: false, nice: screen },
+    // A counting axis keeps its first and last point off the frame (a control chart's points are the news).
+    scale: logX ? { type: "log" as const, nice: false } : data.x.counting ? { zero: false, nice: false, padding: 16 } : { zero: false, nice: screen },
     axis: logX ? { format: "~s", values: decades(values.map((v) => v.x as number)), grid: true } : data.x.counting ? { grid: true, tickMinStep: 1, format: "d" } : { grid: true },
   };
   const y = {
     field: "y",
     type: "quantitative" as const,
     title: yTitle,
-    scale: { zero: false, nice: true, ...(logY ? { type: "log" as const } : {}) },
+    scale: { zero: false, nice: true, ...(logY ? { type: "log" as const } : {}), ...(data.x.counting ? { padding: 12 } : {}) },
   };
   return { x, y };
 }
@@ -314,7 +317,7 @@ function markerLayers({ data, screen, size, fonts, xScale, xText, yText }: Chart
   // the printed sheet names markers in the caption.
   if (screen) {
     markers
-      .filter((m) => m.label !== "spur")
+      .filter((m) => m.label !== "spur" && m.inCorner !== false)
       .forEach((m, i) => {
         const at = formatQuantity(m.x * xScale.factor, xScale.unit, { digits: { maxDecimals: 2 }, prefix: false });
         layers.push({

@@ -269,7 +269,9 @@ export function controlChartData(chart: ControlChartWatch): ChartData {
     markers: [...signalled].map(([index, rules]) => ({
       x: index + 1,
       y: chart.points[index].value,
-      label: `Nelson test ${rules.join(", ")} at unit`,
+      label: `Nelson test ${rules.join(", ")}`,
+      // The page lists every signal in words under the chart; the corner would crowd the limit labels.
+      inCorner: false,
     })),
     rules,
   };

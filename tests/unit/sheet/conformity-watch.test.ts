@@ -111,7 +111,7 @@ describe("the conformity watch against a released sheet", () => {
     expect(data.traces[0].points.map((p) => p[0])).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9]);
     expect(data.rules!.map((r) => r.label)).toEqual(["UCL (+3σ)", "Centre (release mean)", "LCL (−3σ)", "Guaranteed max"]);
     expect(data.rules![0].y).toBeCloseTo(centre + 3 * sigma, 12);
-    expect(data.markers).toEqual([{ x: 9, y: chart.points[8].value, label: "Nelson test 2 at unit" }]);
+    expect(data.markers).toEqual([{ x: 9, y: chart.points[8].value, label: "Nelson test 2", inCorner: false }]);
     const built = buildVegaLiteSpec(data, { medium: "screen", width: "container", height: 240, points: true });
     expect(built?.unitCount).toBe(1);
     expect(built?.markerCount).toBe(1);
