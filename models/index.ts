@@ -4,6 +4,7 @@ import { AccountMailRequest } from "./account-mail-request";
 import { AuditEvent } from "./audit-event";
 import { BenchToken } from "./bench-token";
 import { ColumnMapping } from "./column-mapping";
+import { ConformityAlert } from "./conformity-alert";
 import { Instrument } from "./instrument";
 import { MeasurementSet, MeasurementSetInstrument } from "./measurement-set";
 import { SheetContent } from "./sheet-content";
@@ -30,6 +31,7 @@ export type {
   AuditEvent,
   BenchToken,
   ColumnMapping,
+  ConformityAlert,
   Device,
   Instrument,
   Invitation,
@@ -60,6 +62,7 @@ const models = {
   AuditEvent,
   BenchToken,
   ColumnMapping,
+  ConformityAlert,
   Device,
   Instrument,
   Invitation,
@@ -109,6 +112,9 @@ function initModels(sequelize: Sequelize): Sequelize {
   SheetRevision.hasOne(SheetRevisionWithdrawal, { foreignKey: "revisionId" });
   Subscription.belongsTo(Device, { foreignKey: "deviceId" });
   Subscription.belongsTo(Organization, { foreignKey: "organizationId" });
+  ConformityAlert.belongsTo(MeasurementSet, { foreignKey: "measurementSetId" });
+  ConformityAlert.belongsTo(SheetRevision, { foreignKey: "revisionId" });
+  ConformityAlert.belongsTo(User, { as: "closedBy", foreignKey: "closedById" });
   return sequelize;
 }
 

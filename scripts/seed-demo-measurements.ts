@@ -16,6 +16,7 @@ import { demoPassword } from "../models/seeders/demo-scenario";
 import { demoSheets } from "../models/seeders/demo-sheets";
 import { seedDemoCatalog } from "./seed-demo-catalog";
 import { seedDemoReleases } from "./seed-demo-releases";
+import { seedDemoConformity } from "./seed-demo-conformity";
 import { signInOverHttp } from "./sign-in-over-http";
 
 const appUrl = process.env.BENCHFOLD_APP_URL ?? `http://localhost:${process.env.PORT ?? 3000}`;
@@ -126,6 +127,10 @@ async function main() {
   started = Date.now();
   const catalog = await seedDemoCatalog(appUrl);
   console.error(`[benchfold] demo catalog: ${catalog.length ? `released ${catalog.join(", ")}` : "already there"} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
+  // After the releases: one unit outside KDX-2G4's released limit (a conformity alert), one in control.
+  started = Date.now();
+  const watched = await seedDemoConformity(appUrl);
+  console.error(`[benchfold] demo conformity watch: ${watched.length ? watched.join("; ") : "already there"} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
 }
 
 main()

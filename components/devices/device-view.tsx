@@ -11,6 +11,8 @@ import { MeasurementSetsTable } from "@/components/measurements/measurement-sets
 import { UploadPanel } from "@/components/measurements/upload-panel";
 import { DeviceForm } from "./device-form";
 import { DeviceKeyConditions } from "./device-key-conditions";
+import { ConformitySection } from "./conformity-section";
+import type { ConformityWatchView } from "@/lib/domain/conformity";
 
 type DeviceViewProps = {
   device: DeviceSummary;
@@ -28,9 +30,11 @@ type DeviceViewProps = {
   upload: { instruments: InstrumentSummary[] } | null;
   /** The viewer may change the device's number, class, title and key conditions. */
   canEdit: boolean;
+  /** The conformity watch since the current release, for a role that reads it (engineers, reviewers). */
+  conformity?: { watch: ConformityWatchView; canClose: boolean } | null;
 };
 
-export function DeviceView({ device, organizationName, sets, revisions, sheetHref, review, canWithdraw, upload, canEdit }: DeviceViewProps) {
+export function DeviceView({ device, organizationName, sets, revisions, sheetHref, review, canWithdraw, upload, canEdit, conformity }: DeviceViewProps) {
   const supersedable = sets
     .filter((s) => !s.supersededById)
     .map((s) => ({ id: s.id, kind: s.kind, fileName: s.fileName, serial: s.conditions.serial }));
@@ -83,6 +87,8 @@ export function DeviceView({ device, organizationName, sets, revisions, sheetHre
           </p>
         ) : null}
       </div>
+
+      {conformity ? <ConformitySection watch={conformity.watch} canClose={conformity.canClose} /> : null}
 
       {upload ? <UploadPanel deviceId={device.id} instruments={upload.instruments} supersedable={supersedable} /> : null}
     </>

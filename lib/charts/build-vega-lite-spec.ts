@@ -27,6 +27,8 @@ export interface ChartAxis {
   label: string;
   unit: string;
   scale?: "linear" | "log";
+  /** The axis counts (unit 1, 2, 3… of a control chart): whole-number ticks only. */
+  counting?: boolean;
 }
 
 export interface ChartTrace {
@@ -42,12 +44,16 @@ export interface ChartMarker {
   y: number;
   label: string;
   unit?: string;
+  /** False: not named in the plot's corner on screen (the page lists them beside the chart). */
+  inCorner?: boolean;
 }
 
 /** A horizontal reference line with its label (the thermal phase-noise floor). */
 export interface ChartRule {
   y: number;
   label: string;
+  /** Decimals of the value in the label (one unless given). */
+  decimals?: number;
 }
 
 export interface ChartData {
@@ -229,19 +235,20 @@ function seriesEncodings(data: ChartData, present: Set<string>) {
 }
 
 /** The x and y encodings every layer shares, so the layers share scales, axes and titles. */
-function axisEncodings({ screen, logX, logY }: ChartContext, values: PlottedTraces["values"], xTitle: string, yTitle: string) {
+function axisEncodings({ data, screen, logX, logY }: ChartContext, values: PlottedTraces["values"], xTitle: string, yTitle: string) {
   const x = {
     field: "x",
     type: "quantitative" as const,
     title: xTitle,
-    scale: logX ? { type: "log" as const, nice: false } : { zero: false, nice: screen },
-    axis: logX ? { format: "~s", values: decades(values.map((v) => v.x as number)), grid: true } : { grid: true },
+    // A counting axis keeps its first and last point off the frame (a control chart's points are the news).
+    scale: logX ? { type: "log" as const, nice: false } : data.x.counting ? { zero: false, nice: false, padding: 16 } : { zero: false, nice: screen },
+    axis: logX ? { format: "~s", values: decades(values.map((v) => v.x as number)), grid: true } : data.x.counting ? { grid: true, tickMinStep: 1, format: "d" } : { grid: true },
   };
   const y = {
     field: "y",
     type: "quantitative" as const,
     title: yTitle,
-    scale: { zero: false, nice: true, ...(logY ? { type: "log" as const } : {}) },
+    scale: { zero: false, nice: true, ...(logY ? { type: "log" as const } : {}), ...(data.x.counting ? { padding: 12 } : {}) },
   };
   return { x, y };
 }
@@ -310,7 +317,7 @@ function markerLayers({ data, screen, size, fonts, xScale, xText, yText }: Chart
   // the printed sheet names markers in the caption.
   if (screen) {
     markers
-      .filter((m) => m.label !== "spur")
+      .filter((m) => m.label !== "spur" && m.inCorner !== false)
       .forEach((m, i) => {
         const at = formatQuantity(m.x * xScale.factor, xScale.unit, { digits: { maxDecimals: 2 }, prefix: false });
         layers.push({
@@ -328,7 +335,7 @@ function ruleLayers({ data, screen, size, fonts }: ChartContext): Record<string,
   const layers: Record<string, unknown>[] = [];
   for (const rule of data.rules ?? []) {
     if (!Number.isFinite(rule.y)) continue;
-    const label = `${rule.label}: ${formatQuantity(rule.y, data.y.unit, { digits: { maxDecimals: 1 } })}`;
+    const label = `${rule.label}: ${formatQuantity(rule.y, data.y.unit, { digits: { maxDecimals: rule.decimals ?? 1 } })}`;
     layers.push({
       data: { values: [{ y: rule.y, text: label }] },
       mark: { type: "rule", strokeDash: RULE_STYLE.dash, strokeWidth: RULE_STYLE.strokeWidth, color: RULE_STYLE.colour },

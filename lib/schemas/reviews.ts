@@ -38,3 +38,7 @@ export type ReleaseBody = z.infer<typeof releaseBodySchema>;
 
 export const withdrawBodySchema = z.object({ reason: reason("Say why the revision is withdrawn") });
 export type WithdrawBody = z.infer<typeof withdrawBodySchema>;
+
+/** Closing a conformity alert: an engineer says why the sheet may stand (or what will change). */
+export const closeConformityAlertBodySchema = z.object({ reason: reason("Say why the alert is closed") });
+export type CloseConformityAlertBody = z.infer<typeof closeConformityAlertBodySchema>;

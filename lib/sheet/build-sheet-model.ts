@@ -46,6 +46,8 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
   const traceability = buildTraceability(sets, issues);
   const charts = buildCharts(template, sets);
   const prose = buildProse(template, input, issues);
+  // Units approved after the release that the released limits or the control charts disagree with.
+  for (const message of input.conformityAlerts ?? []) issues.push({ code: "conformity-alert", message });
 
   return {
     schemaVersion: 1,

@@ -77,6 +77,18 @@ export function buildSpecTable(options: {
   };
 }
 
+/**
+ * The values of the sets by statistics group (`rowId:conditionsKey`), one per unit, grouped exactly as
+ * the specification table groups them: what the conformity watch reads a newly approved set with.
+ */
+export function collectGroupValues(template: SheetTemplate, sets: ApprovedSetInput[]): Map<string, UnitValue[]> {
+  const result = new Map<string, UnitValue[]>();
+  for (const row of template.specifications.rows) {
+    for (const [conditionsKey, values] of collectRowValues(row, sets)) result.set(groupIdentity(row, conditionsKey).groupId, values);
+  }
+  return result;
+}
+
 /** One cell of the table's loop: a template row under one condition group. */
 interface RowGroup {
   row: SpecRowTemplate;

@@ -81,6 +81,8 @@ export interface SheetInput {
   /** Markdown per prose section; a missing section takes the template's default. */
   prose: Partial<Record<ProseSectionId, string>>;
   absoluteMaximumRatings: { label: string; value: string; unit: string }[];
+  /** The device's open conformity alerts, each in one sentence: listed among the sheet's open issues. */
+  conformityAlerts?: string[];
   settings: {
     /** A limit whose Cpk falls below this is flagged, e.g. 1.33. */
     cpkThreshold: number;

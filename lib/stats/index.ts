@@ -7,3 +7,4 @@ export * from "./tolerance";
 export * from "./uncertainty";
 export * from "./student-t";
 export * from "./seeded-random";
+export * from "./run-rules";

@@ -81,6 +81,8 @@ const probes: Record<ApiRoute, Probe> = {
   "POST /api/sheet-comments/[id]/resolve": { path: () => `/api/sheet-comments/${missing}/resolve`, allowedStatus: 404 },
   "GET /api/devices/[id]/revisions": { path: () => `/api/devices/${ownDeviceId}/revisions`, allowedStatus: 200 },
   "POST /api/sheet-revisions/[id]/withdraw": { path: () => `/api/sheet-revisions/${missing}/withdraw`, json: () => ({}), allowedStatus: 422 },
+  "GET /api/devices/[id]/conformity": { path: () => `/api/devices/${ownDeviceId}/conformity`, allowedStatus: 200 },
+  "POST /api/conformity-alerts/[id]/close": { path: () => `/api/conformity-alerts/${missing}/close`, json: () => ({}), allowedStatus: 422 },
   "GET /api/v1/sheets/[org]/[part]/[rev]/pdf": { path: () => "/api/v1/sheets/no-such-org/NO-PART/A/pdf", allowedStatus: 404 },
   "GET /api/v1/verify": { path: () => `/api/v1/verify?sha256=${"0".repeat(64)}`, allowedStatus: 404 },
   "GET /api/v1/compare/csv": { path: () => "/api/v1/compare/csv?sheets=no-such-org/NO-PART/A,no-such-org/NO-PART/B", allowedStatus: 404 },

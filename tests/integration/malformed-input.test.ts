@@ -25,6 +25,8 @@ const endpoints: Endpoint[] = [
   { method: "PUT", path: () => `/api/devices/${ids.device}/sheet-content`, as: "engineer", kind: "json", fields: ["prose", "absoluteMaximumRatings", "measurementUncertainty"] },
   { method: "POST", path: () => "/api/column-mappings", as: "engineer", kind: "json", fields: ["name", "kind", "headers", "mapping", "metadata"] },
   { method: "POST", path: () => `/api/measurements/${ids.set}/review`, as: "reviewer", kind: "json", fields: ["decision", "reason"] },
+  // No alert is needed: the body is read (and refused) before the alert is looked up.
+  { method: "POST", path: () => "/api/conformity-alerts/2147483000/close", as: "engineer", kind: "json", fields: ["reason"] },
   { method: "PATCH", path: () => `/api/admin/users/${ids.user}`, as: "admin", kind: "json", fields: ["role", "disabled"] },
   { method: "POST", path: () => "/api/admin/invitations", as: "admin", kind: "json", fields: ["email", "role"] },
   { method: "POST", path: () => "/api/admin/instruments", as: "admin", kind: "json", fields: ["kind", "model", "serial", "calibratedOn", "calibrationDueOn", "uncertainty"] },

@@ -9,6 +9,7 @@ import { loadMeasurementSets } from "./load-measurement-sets";
 import type { MeasurementSetSummary } from "./measurement-set-summary";
 import { lockOwnRow } from "../auth/own-row";
 import { refreshOpenCandidates } from "../reviews/freshness";
+import { raiseConformityAlerts } from "../conformity/raise-conformity-alerts";
 
 /**
  * Approves or rejects a submitted set. Four eyes: whoever uploaded it cannot decide on it.
@@ -40,6 +41,8 @@ export async function reviewMeasurementSet(opts: { reviewer: SessionUser; setId:
       },
       transaction,
     );
+    // After a release, the set is also read against the current revision (the conformity watch).
+    if (set.state === "approved") await raiseConformityAlerts({ set, reviewer, transaction });
   });
   const [summary] = await loadMeasurementSets({ id: setId, organizationId: reviewer.organizationId });
   // An approved set feeds the sheet: an open review of it is now of an out-of-date candidate.

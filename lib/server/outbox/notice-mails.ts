@@ -76,3 +76,26 @@ export function revisionReleasedWords(opts: SheetRef & { revisionLetter: string;
     ].join("\n"),
   };
 }
+
+/**
+ * A conformity alert: a unit approved after the release falls outside a guaranteed limit, or a
+ * control-chart test signalled. Names the parameters and the tests, never the measured values.
+ */
+export function conformityAlertWords(opts: SheetRef & { revisionLetter: string; serial: string; setId: number; outside: string[]; tests: string[] }): NoticeWords {
+  const lines = [
+    ...opts.outside.map((p) => `- ${p}: outside its guaranteed limit`),
+    ...opts.tests.map((t) => `- ${t}`),
+  ];
+  return {
+    subject: `Conformity alert on ${opts.partNumber} Rev. ${opts.revisionLetter}`,
+    text: [
+      `Unit ${opts.serial} (measurement set #${opts.setId}) of ${opts.partNumber} (${opts.title}), approved after revision ${opts.revisionLetter} was released, does not agree with that revision in ${opts.organizationName}:`,
+      "",
+      ...lines,
+      "",
+      "The alert stays open until an engineer closes it with a reason.",
+      `Open the device: ${opts.link}`,
+      ...footer,
+    ].join("\n"),
+  };
+}

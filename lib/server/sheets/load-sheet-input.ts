@@ -5,6 +5,7 @@ import type { SheetInput } from "@/lib/sheet";
 import type { Curve } from "@/lib/analysis";
 import { db } from "@/models";
 import type { MeasurementSet, Instrument, Device, Organization } from "@/models";
+import { openConformityIssues } from "../conformity/get-conformity-watch";
 
 type SetWithInstruments = MeasurementSet & { Instruments?: Instrument[] };
 
@@ -24,7 +25,7 @@ export async function loadSheetInput(opts: {
   const device = await Device.findOne({ where: { id: opts.deviceId, organizationId: opts.organizationId }, include: [Organization] });
   if (!device) throw new AppError("not-found", "No such device in your organization.");
   const organization = (device as Device & { Organization?: Organization }).Organization!;
-  const [sets, limits, content] = await Promise.all([
+  const [sets, limits, content, conformityAlerts] = await Promise.all([
     MeasurementSet.unscoped().findAll({
       where: { deviceId: device.id, organizationId: opts.organizationId, state: "approved", supersededById: { [Op.is]: null } },
       attributes: ["id", "kind", "conditions", "measuredOn", "parameters", "curves"],
@@ -33,6 +34,7 @@ export async function loadSheetInput(opts: {
     }),
     SpecLimit.findAll({ where: { deviceId: device.id, organizationId: opts.organizationId }, order: [["id", "ASC"]] }),
     SheetContent.findOne({ where: { deviceId: device.id, organizationId: opts.organizationId } }),
+    openConformityIssues({ organizationId: opts.organizationId, deviceId: device.id }),
   ]);
   return {
     device: {
@@ -74,6 +76,7 @@ export async function loadSheetInput(opts: {
     })),
     prose: content?.prose ?? {},
     absoluteMaximumRatings: content?.absoluteMaximumRatings ?? [],
+    ...(conformityAlerts.length ? { conformityAlerts } : {}),
     settings: {
       cpkThreshold: organization.cpkThreshold,
       toleranceCoverage: organization.toleranceCoverage,
