@@ -22,7 +22,7 @@ const engineer = new TestClient();
 const bench = new TestClient();
 let serial = 0;
 
-/** The example trace (1 Hz–10 MHz) under a fresh serial, so each upload is new bytes; extra `# key: value` lines after the temperature. */
+/** The example trace (1 Hz – 10 MHz) under a fresh serial, so each upload is new bytes; extra `# key: value` lines after the temperature. */
 function phaseNoiseFile(extraLines: string[] = []): Uint8Array<ArrayBuffer> {
   const text = readFileSync(path.join(fixturesDir, "examples/phase-noise-doubler.csv"), "utf8")
     .replace("# serial: BFD-0001", `# serial: SET-${Date.now()}-${serial++}`)
@@ -55,12 +55,12 @@ beforeAll(async () => {
 afterAll(() => closeDb());
 
 describe("integration band precedence through the bench API", () => {
-  it("without a stated band the device class's default applies (frequency multiplier: 10 Hz–1 MHz)", async () => {
+  it("without a stated band the device class's default applies (frequency multiplier: 10 Hz – 1 MHz)", async () => {
     const r = await benchUpload({});
     const body = (await r.json()) as Posted;
     expect(r.status, JSON.stringify(body)).toBe(201);
     expect(jitterOf(body).conditions).toMatchObject({ startHz: 10, stopHz: 1e6, bandSource: "template" });
-    // The same figure the CLI prints for this trace over 10 Hz–1 MHz (tests/unit/cli/__snapshots__).
+    // The same figure the CLI prints for this trace over 10 Hz – 1 MHz (tests/unit/cli/__snapshots__).
     expect(jitterOf(body).value).toBeCloseTo(1.361, 3);
   });
 
@@ -85,7 +85,7 @@ describe("integration band precedence through the bench API", () => {
     const body = (await r.json()) as Posted;
     expect(r.status, JSON.stringify(body)).toBe(201);
     expect(jitterOf(body).conditions).toMatchObject({ startHz: 1e3, stopHz: 1e5, bandSource: "file" });
-    expect(body.measurementSet.warnings.map(noBreak)).toContain("Integration band: the file says 1 kHz–100 kHz, the upload said 100 Hz–1 MHz; the file's is used");
+    expect(body.measurementSet.warnings.map(noBreak)).toContain("Integration band: the file says 1 kHz – 100 kHz, the upload said 100 Hz – 1 MHz; the file's is used");
   });
 
   it("the browser upload takes the same fields", async () => {
@@ -98,8 +98,8 @@ describe("integration band precedence through the bench API", () => {
 
 describe("a band the data cannot honour is refused, nothing stored", () => {
   it.each([
-    [{ integrationBand: "12k-20m" }, [], "integrationBand", "The integration band 12 kHz–20 MHz (set by the upload) reaches outside the trace, which spans 1 Hz–10 MHz"],
-    [{}, ["# integration_start: 0.1 Hz", "# integration_stop: 1 kHz"], "integrationBand", "The integration band 0.1 Hz–1 kHz (set by the file) reaches outside the trace, which spans 1 Hz–10 MHz"],
+    [{ integrationBand: "12k-20m" }, [], "integrationBand", "The integration band 12 kHz – 20 MHz (set by the upload) reaches outside the trace, which spans 1 Hz – 10 MHz"],
+    [{}, ["# integration_start: 0.1 Hz", "# integration_stop: 1 kHz"], "integrationBand", "The integration band 0.1 Hz – 1 kHz (set by the file) reaches outside the trace, which spans 1 Hz – 10 MHz"],
     [{ integrationStartHz: "1000" }, [], "integrationStopHz", "State both ends of the integration band"],
     [{ integrationStartHz: "1e5", integrationStopHz: "1e3" }, [], "integrationStopHz", "stop offset must lie above its start"],
     [{ integrationBand: "1-2" }, [], "integrationBand", "Choose one of the named bands"],

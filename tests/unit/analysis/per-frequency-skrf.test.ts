@@ -4,6 +4,7 @@ import { describe, expect, it } from "vitest";
 import reference from "./reference/per-frequency-skrf.json";
 import { tabulateValues } from "@/lib/analysis";
 import { parseMeasurementFile } from "@/lib/ingest";
+import type { TouchstoneData } from "@/lib/ingest/types";
 
 // Every frequency of the example Touchstone files against scikit-rf 0.15 (Debian python3-scikit-rf): s_db, s_deg
 // and −10·log10(1 − s_mag²) per port. Regenerate with `/usr/bin/python3 scripts/reference/skrf-per-frequency.py`.
@@ -16,7 +17,8 @@ describe.each(Object.keys(files))("per-frequency values of %s against scikit-rf"
   const bytes = new Uint8Array(readFileSync(path.join(ROOT, "fixtures/examples", name)));
   const parsed = parseMeasurementFile({ fileName: name, bytes });
   // The stored parse is JSON (plain arrays): tabulate that too, as the set page and the API do.
-  const stored = { ...parsed, data: JSON.parse(JSON.stringify({ ...parsed.data, frequencyHz: Array.from(parsed.data.frequencyHz as Float64Array), sRe: Array.from((parsed.data as { sRe: Float64Array }).sRe), sIm: Array.from((parsed.data as { sIm: Float64Array }).sIm) })) } as typeof parsed;
+  const data = parsed.data as TouchstoneData;
+  const stored = { ...parsed, data: JSON.parse(JSON.stringify({ ...data, frequencyHz: Array.from(data.frequencyHz), sRe: Array.from(data.sRe), sIm: Array.from(data.sIm) })) } as typeof parsed;
 
   it.each([
     ["typed arrays", parsed],

@@ -31,7 +31,7 @@ describe("which source sets the integration band", () => {
 
   it("a lower source that disagrees is named; the template's default never counts as a disagreement", () => {
     const { conflicts } = resolveAnalysisSettings({ file, upload, template });
-    expect(conflicts.map(noBreak)).toEqual(["Integration band: the file says 1 kHz–100 kHz, the upload said 100 Hz–1 MHz; the file's is used"]);
+    expect(conflicts.map(noBreak)).toEqual(["Integration band: the file says 1 kHz – 100 kHz, the upload said 100 Hz – 1 MHz; the file's is used"]);
     expect(resolveAnalysisSettings({ upload, template }).conflicts).toEqual([]);
   });
 });
@@ -48,13 +48,13 @@ describe("the band on the figures and its refusal", () => {
     const parsed = example("phase-noise-doubler.csv");
     const refuse = () => analyzeWithSettings(parsed, { upload: { integrationBandHz: { startHz: 12e3, stopHz: 20e6 } } });
     expect(refuse).toThrow(AnalysisSettingError);
-    expect(() => refuse()).toThrow(/12\skHz–20\sMHz \(set by the upload\) reaches outside the trace, which spans 1\sHz–10\sMHz/);
+    expect(() => refuse()).toThrow(/12\skHz – 20\sMHz \(set by the upload\) reaches outside the trace, which spans 1\sHz – 10\sMHz/);
     const narrowed = analyzeWithSettings(parsed, { template: { integrationBandHz: { startHz: 12e3, stopHz: 20e6 } } });
     expect(narrowed.parameters.find((p) => p.name === "rms-jitter")!.conditions).toMatchObject({ startHz: 12e3, stopHz: 1e7, bandSource: "template" });
-    expect(noBreak(narrowed.warnings.join("\n"))).toContain("The integration band 12 kHz–20 MHz (set by the device class default) reaches outside the trace: narrowed to 12 kHz–10 MHz");
+    expect(noBreak(narrowed.warnings.join("\n"))).toContain("The integration band 12 kHz – 20 MHz (set by the device class default) reaches outside the trace: narrowed to 12 kHz – 10 MHz");
   });
 
-  it("the multiplier class's default is 10 Hz–1 MHz", () => {
+  it("the multiplier class's default is 10 Hz – 1 MHz", () => {
     expect(frequencyMultiplierTemplate.analysisDefaults?.integrationBandHz).toEqual({ startHz: 10, stopHz: 1e6 });
   });
 

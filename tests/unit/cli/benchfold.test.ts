@@ -121,13 +121,13 @@ describe.concurrent("the CLI and the engine give the same numbers for the same s
     expect(cli).toEqual(inProcess(phaseNoise, { cli: { integrationBandHz: { startHz: 12e3, stopHz: 1e6 } } }));
     const jitter = cli.parameters.find((p: { name: string }) => p.name === "rms-jitter");
     expect(jitter.conditions).toMatchObject({ startHz: 12e3, stopHz: 1e6, bandSource: "cli" });
-    // Narrower than the default 10 Hz–1 MHz, so less jitter (the default's 1.361 fs is in the table snapshot).
+    // Narrower than the default 10 Hz – 1 MHz, so less jitter (the default's 1.361 fs is in the table snapshot).
     expect(jitter.value).toBeLessThan(1.361);
   }, 60_000);
 
   it("a named band, the class default, and the table output name the band and its source", async () => {
     const named = await benchfold("analyze", phaseNoise, "--integration=100-1m");
-    expect(named.stdout).toContain("integration band 100 Hz-1 MHz (set by the command line)");
+    expect(named.stdout).toContain("integration band 100 Hz - 1 MHz (set by the command line)");
     const byClass = await benchfold("analyze", phaseNoise, "--class", "frequency-multiplier", "--json");
     const cli = JSON.parse(byClass.stdout);
     expect(cli).toEqual(inProcess(phaseNoise, { template: frequencyMultiplierTemplate.analysisDefaults }));
@@ -144,7 +144,7 @@ describe.concurrent("the CLI and the engine give the same numbers for the same s
     const cli = JSON.parse(run.stdout);
     expect(cli.settings.integrationBand).toEqual({ value: { startHz: 1e3, stopHz: 1e5 }, source: "file" });
     // Messages print quantities as every page does: a no-break space between number and unit.
-    expect(cli.warnings[0].replaceAll("\u00a0", " ")).toBe("Integration band: the file says 1 kHz–100 kHz, the command line said 12 kHz–1 MHz; the file's is used");
+    expect(cli.warnings[0].replaceAll("\u00a0", " ")).toBe("Integration band: the file says 1 kHz – 100 kHz, the command line said 12 kHz – 1 MHz; the file's is used");
     const jitter = cli.parameters.find((p: { name: string }) => p.name === "rms-jitter");
     expect(jitter.conditions).toMatchObject({ startHz: 1e3, stopHz: 1e5, bandSource: "file" });
   }, 60_000);
@@ -153,7 +153,7 @@ describe.concurrent("the CLI and the engine give the same numbers for the same s
     const run = await benchfold("analyze", phaseNoise, "--integration", "12e3:20e6");
     expect(run.status).toBe(2);
     expect(run.stdout).toBe("");
-    expect(run.stderr.replaceAll("\u00a0", " ")).toContain("The integration band 12 kHz–20 MHz (set by the command line) reaches outside the trace, which spans 1 Hz–10 MHz");
+    expect(run.stderr.replaceAll("\u00a0", " ")).toContain("The integration band 12 kHz – 20 MHz (set by the command line) reaches outside the trace, which spans 1 Hz – 10 MHz");
   }, 60_000);
 
   it("--compression-reference on a two-tone file", async () => {
