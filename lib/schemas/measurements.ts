@@ -22,7 +22,10 @@ export const measurementConditionsSchema = z.object({
   notes: z.string().trim().max(2000).optional(),
   // Measurement settings (lib/domain/analysis-settings.ts): a named integration band or its two ends, and the
   // compression reference drive. The file's own lines win over these; these win over the class's defaults.
-  integrationBand: z.enum(namedIntegrationBandIds, { error: `Choose one of the named bands: ${namedIntegrationBandIds.join(", ")}.` }).optional().or(z.literal("").transform(() => undefined)),
+  integrationBand: z.preprocess(
+    (value) => (value === "" ? undefined : value),
+    z.enum(namedIntegrationBandIds, { error: `Choose one of the named bands: ${namedIntegrationBandIds.join(", ")}.` }).optional(),
+  ),
   integrationStartHz: optionalNumber(1e-3, 3e12, "integration band start (Hz)"),
   integrationStopHz: optionalNumber(1e-3, 3e12, "integration band stop (Hz)"),
   compressionReferenceDbm: optionalNumber(-200, 60, "compression reference drive (dBm)"),

@@ -30,10 +30,3 @@ export async function getMeasurementSet(opts: { viewer: SessionUser; setId: numb
 export function tabulateStoredSet(row: Pick<MeasurementSet, "kind" | "parsed">): ValueTable[] {
   return tabulateValues({ kind: row.kind, data: row.parsed, warnings: [] } as ParsedMeasurement);
 }
-
-/** The per-point tables of a set just stored (the bench API's answer): the caller has the organization already. */
-export async function loadSetTables(opts: { organizationId: number; setId: number }): Promise<ValueTable[]> {
-  const { MeasurementSet } = db();
-  const row = await MeasurementSet.unscoped().findOne({ where: { id: opts.setId, organizationId: opts.organizationId }, attributes: ["kind", "parsed"] });
-  return row ? tabulateStoredSet(row) : [];
-}

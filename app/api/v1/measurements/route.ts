@@ -4,7 +4,7 @@ import { authenticateBenchToken } from "@/lib/server/bench-tokens/authenticate-b
 import { findDeviceByPartNumber } from "@/lib/server/devices/find-device-by-part-number";
 import { ingestMeasurement } from "@/lib/server/measurements/ingest-measurement";
 import { readUploadForm } from "@/lib/server/measurements/read-upload-form";
-import { loadSetTables } from "@/lib/server/measurements/get-measurement-set";
+import { loadSetTables } from "@/lib/server/measurements/load-set-tables";
 
 /**
  * Bench upload: `Authorization: Bearer <bench token>`, multipart with `file`, `device`
