@@ -1,8 +1,10 @@
 import { readFileSync } from "node:fs";
-import { CLI_USAGE, deriveParameters, formatParameterTable, parseCliArgs } from "../lib/analysis";
+import { analyzeWithSettings, CLI_USAGE, describeBand, formatParameterTable, isAnalysisSettingError, parseCliArgs, tabulateValues } from "../lib/analysis";
+import { settingSourceWords } from "../lib/domain/analysis-settings";
 import { isIngestError, parseMeasurementFile } from "../lib/ingest";
+import { findSheetTemplate } from "../templates";
 
-/** Batch analysis of one measurement file, through the same parse → derive path as the app. */
+/** Batch analysis of one measurement file, through the same parse → settings → derive path as the app. */
 function main(argv: string[]): number {
   const command = parseCliArgs(argv);
   if (command.command === "help") {
@@ -21,24 +23,36 @@ function main(argv: string[]): number {
     process.stderr.write(`benchfold: cannot read ${command.file}: ${(error as NodeJS.ErrnoException).code ?? String(error)}\n`);
     return 2;
   }
+  let result;
   let parsed;
   try {
     parsed = parseMeasurementFile({ fileName: command.file, bytes, kind: command.kind });
+    const template = command.deviceClass ? findSheetTemplate(command.deviceClass)?.analysisDefaults : undefined;
+    result = analyzeWithSettings(parsed, { cli: command.settings, template });
   } catch (error) {
     if (isIngestError(error)) {
       process.stderr.write(`${error.message}\n`);
       return 2;
     }
+    if (isAnalysisSettingError(error)) {
+      process.stderr.write(`benchfold: ${command.file}: ${error.message}\n`);
+      return 2;
+    }
     throw error;
   }
-  const result = deriveParameters(parsed);
 
   if (command.json) {
-    const { kind, parameters, warnings } = result;
-    process.stdout.write(`${JSON.stringify({ kind, parameters, warnings }, null, 2)}\n`);
+    const { kind, settings, parameters, warnings } = result;
+    const tables = tabulateValues(parsed, { impedanceOhm: command.impedanceOhm });
+    process.stdout.write(`${JSON.stringify({ kind, settings, parameters, warnings, tables }, null, 2)}\n`);
     return 0;
   }
-  const lines = [`${command.file}: ${result.kind}, ${result.parameters.length} parameters`, "", formatParameterTable(result.parameters)];
+  const lines = [`${command.file}: ${result.kind}, ${result.parameters.length} parameters`];
+  if (result.kind === "phase-noise") {
+    const band = result.settings.integrationBand;
+    lines.push(`integration band ${describeBand(band.value, { plain: true })} (set by ${settingSourceWords[band.source]})`);
+  }
+  lines.push("", formatParameterTable(result.parameters));
   if (result.warnings.length > 0) lines.push("", "Warnings:", ...result.warnings.map((w) => `  - ${w}`));
   process.stdout.write(`${lines.join("\n")}\n`);
   return 0;

@@ -6,6 +6,7 @@
 import type { DeviceClass } from "../lib/domain/device-classes";
 import type { MeasurementKind } from "../lib/domain/measurements";
 import type { LimitBasis, ProseSectionId } from "../lib/domain/sheets";
+import type { StatedAnalysisSettings } from "../lib/domain/analysis-settings";
 
 export type { DeviceClass, LimitBasis, ProseSectionId };
 
@@ -13,6 +14,7 @@ export type { DeviceClass, LimitBasis, ProseSectionId };
 export type ConditionFormat =
   | "frequency" // Hz → GHz / MHz / kHz / Hz
   | "frequency-range" // two keys, start and stop in Hz → "1–3 GHz"
+  | "frequency-band" // two keys decades apart, each end with its own prefix → "12 kHz–20 MHz"
   | "power-dbm"
   | "temperature-c"
   | "port"
@@ -114,4 +116,9 @@ export interface SheetTemplate {
   prose: ProseTemplate[];
   cautions: string[];
   absoluteMaximumRatings: AbsoluteMaximumRatingTemplate[];
+  /**
+   * The class's default measurement settings (the last source, after the file, the upload and the
+   * command line): e.g. the phase-noise integration band for rms phase and jitter.
+   */
+  analysisDefaults?: StatedAnalysisSettings;
 }

@@ -15,6 +15,7 @@ import {
   SetWarnings,
 } from "./measurement-set-sections";
 import { ParametersTable } from "./set-parameters-table";
+import { SetValueTables } from "./set-value-tables";
 import { StateBadge } from "./state-badge";
 
 type MeasurementSetViewProps = {
@@ -55,6 +56,8 @@ export function MeasurementSetView({ device, set, organizationName, viewer }: Me
         </section>
         <SetCurves set={set} />
       </div>
+
+      <SetValueTables tables={set.tables} />
 
       <div className="grid gap-x-12 gap-y-10 lg:grid-cols-2">
         <section aria-labelledby="warnings-title">

@@ -1,4 +1,5 @@
 import { formatNumber, quantityParts } from "@/lib/format";
+import { settingSourceWords, type SettingSource } from "@/lib/domain/analysis-settings";
 
 /**
  * A derived parameter's conditions in words with units: `inputFrequencyHz: 1e9` → "input frequency 1 GHz".
@@ -30,7 +31,16 @@ const names: Record<string, string> = {
   statistic: "",
   drive: "drive",
   order: "order",
+  bandSource: "band set by",
+  referenceDbm: "gain reference at",
+  referencePoints: "reference steps",
+  referenceSource: "reference set by",
+  tone2RelativeLevelDb: "tone 2 relative",
+  product: "product",
 };
+
+/** Condition values that name where a setting came from are printed in words. */
+const sourceKeys = new Set(["bandSource", "referenceSource"]);
 
 function words(key: string): string {
   if (key in names) return names[key];
@@ -45,7 +55,7 @@ export function describeConditions(conditions: Record<string, string | number>):
   for (const [key, raw] of Object.entries(conditions)) {
     const label = words(key);
     if (typeof raw === "string") {
-      parts.push({ label, value: raw });
+      parts.push({ label, value: sourceKeys.has(key) && raw in settingSourceWords ? settingSourceWords[raw as SettingSource] : raw });
       continue;
     }
     if (key === "ktDbmHz") {

@@ -6,6 +6,7 @@ import { formatDate } from "@/lib/format";
 import { frequencyUnitNames, type FrequencyUnit } from "@/components/devices/frequency-units";
 import { selectClass } from "@/components/ui/field";
 import { kindLabel, measurementKindLabels } from "@/lib/domain/measurements";
+import { namedIntegrationBands } from "@/lib/domain/analysis-settings";
 import type { SupersedableSet, UploadConditions } from "./upload-form-data";
 
 type UploadConditionsFormProps = {
@@ -91,6 +92,8 @@ export function UploadConditionsForm({ conditions, onChange: set, disabled, inst
         </div>
       </div>
 
+      <MeasurementSettings conditions={conditions} onChange={set} />
+
       <InstrumentChoice instruments={instruments} chosen={conditions.instrumentIds} onChange={(ids) => set("instrumentIds", ids)} />
 
       <div className="space-y-1.5">
@@ -100,6 +103,68 @@ export function UploadConditionsForm({ conditions, onChange: set, disabled, inst
         <textarea id={`${id}-notes`} value={conditions.notes} onChange={(e) => set("notes", e.target.value)} rows={2} className={selectClass} />
       </div>
     </fieldset>
+  );
+}
+
+/**
+ * The settings the engine uses for this batch: the phase-noise integration band (a named band, or two
+ * ends) and the compression reference drive. A file's own "# integration_start:" / "# integration_stop:" /
+ * "# compression_reference:" lines win over these; left empty, the device class's defaults apply.
+ */
+function MeasurementSettings({ conditions, onChange: set }: Pick<UploadConditionsFormProps, "conditions" | "onChange">) {
+  const id = useId();
+  return (
+    <fieldset className="space-y-3" data-testid="upload-settings">
+      <legend className="text-[0.9375rem] font-semibold">Measurement settings</legend>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <LabelledInput id={`${id}-band`} label="Integration band (rms phase, jitter)" hint="Phase-noise files only; a band outside the trace is refused">
+          <select id={`${id}-band`} value={conditions.integrationBand} onChange={(e) => set("integrationBand", e.target.value)} className={selectClass} aria-describedby={`${id}-band-hint`}>
+            <option value="">Device class default</option>
+            {namedIntegrationBands.map((band) => (
+              <option key={band.id} value={band.id}>
+                {band.label}
+              </option>
+            ))}
+            <option value="custom">Other band…</option>
+          </select>
+        </LabelledInput>
+        <UnitInput
+          label="Compression reference drive"
+          unit="dBm"
+          value={conditions.compressionReferenceDbm}
+          onChange={(v) => set("compressionReferenceDbm", v)}
+          hint="Small-signal gain for P1dB is read here; empty: the leading steps within 0.1 dB of the first"
+        />
+      </div>
+      {conditions.integrationBand === "custom" ? (
+        <div className="flex flex-wrap gap-4">
+          <FrequencyInput label="Band start offset" value={conditions.integrationStart} unit={conditions.integrationStartUnit} onValue={(v) => set("integrationStart", v)} onUnit={(u) => set("integrationStartUnit", u)} />
+          <FrequencyInput label="Band stop offset" value={conditions.integrationStop} unit={conditions.integrationStopUnit} onValue={(v) => set("integrationStop", v)} onUnit={(u) => set("integrationStopUnit", u)} />
+        </div>
+      ) : null}
+    </fieldset>
+  );
+}
+
+function FrequencyInput(props: { label: string; value: string; unit: FrequencyUnit; onValue: (v: string) => void; onUnit: (u: FrequencyUnit) => void }) {
+  const id = useId();
+  return (
+    <div className="space-y-1.5">
+      <label htmlFor={id} className="block text-[0.9375rem] font-semibold">
+        {props.label}
+      </label>
+      <div className="flex items-center gap-2">
+        <input id={id} inputMode="decimal" value={props.value} onChange={(e) => props.onValue(e.target.value)} className={`${selectClass} figure !w-28`} />
+        <label htmlFor={`${id}-unit`} className="sr-only">
+          {props.label} unit
+        </label>
+        <select id={`${id}-unit`} value={props.unit} onChange={(e) => props.onUnit(e.target.value as FrequencyUnit)} className={`${selectClass} !w-24`}>
+          {frequencyUnitNames.map((u) => (
+            <option key={u}>{u}</option>
+          ))}
+        </select>
+      </div>
+    </div>
   );
 }
 

@@ -30,6 +30,13 @@ export type UploadConditions = {
   kind: string;
   instrumentIds: number[];
   supersedesId: string;
+  /** "" (the class's default), a named band's id, or "custom" (the two ends below). */
+  integrationBand: string;
+  integrationStart: string;
+  integrationStartUnit: FrequencyUnit;
+  integrationStop: string;
+  integrationStopUnit: FrequencyUnit;
+  compressionReferenceDbm: string;
 };
 
 export const initialConditions: UploadConditions = {
@@ -46,6 +53,12 @@ export const initialConditions: UploadConditions = {
   kind: "",
   instrumentIds: [],
   supersedesId: "",
+  integrationBand: "",
+  integrationStart: "",
+  integrationStartUnit: "kHz",
+  integrationStop: "",
+  integrationStopUnit: "MHz",
+  compressionReferenceDbm: "",
 };
 
 /** The form fields the upload routes read (lib/schemas/measurements uploadFieldsSchema). */
@@ -63,11 +76,20 @@ export function buildForm(file: File, c: UploadConditions): FormData {
     ["notes", c.notes],
     ["kind", c.kind],
     ["supersedesId", c.supersedesId],
+    ["compressionReferenceDbm", c.compressionReferenceDbm],
   ];
   for (const [key, value] of text) if (value.trim() !== "") form.append(key, value.trim().replace("\u2212", "-"));
   const hz = toHz(c.inputFrequency, c.inputFrequencyUnit);
   if (hz !== undefined) form.append("inputFrequencyHz", String(hz));
   if (c.instrumentIds.length) form.append("instrumentIds", c.instrumentIds.join(","));
+  if (c.integrationBand === "custom") {
+    const startHz = toHz(c.integrationStart, c.integrationStartUnit);
+    const stopHz = toHz(c.integrationStop, c.integrationStopUnit);
+    if (startHz !== undefined) form.append("integrationStartHz", String(startHz));
+    if (stopHz !== undefined) form.append("integrationStopHz", String(stopHz));
+  } else if (c.integrationBand !== "") {
+    form.append("integrationBand", c.integrationBand);
+  }
   return form;
 }
 
@@ -77,12 +99,19 @@ export function checkConditions(c: UploadConditions, fileCount: number): string 
     ["Drive level", c.driveLevelDbm],
     ["Splitter excess loss", c.splitterExcessLossDb],
     ["Cable loss", c.cableLossDb],
+    ["Compression reference drive", c.compressionReferenceDbm],
   ];
   for (const [label, value] of numbers) {
     if (Number.isNaN(parseDecimalText(value))) return `${label} must be a decimal number.`;
   }
   const hz = toHz(c.inputFrequency, c.inputFrequencyUnit);
   if (hz !== undefined && !(hz > 0)) return "Input frequency must be a number above 0.";
+  if (c.integrationBand === "custom") {
+    const startHz = toHz(c.integrationStart, c.integrationStartUnit);
+    const stopHz = toHz(c.integrationStop, c.integrationStopUnit);
+    if (startHz === undefined || stopHz === undefined) return "State both ends of the integration band, or choose a named band.";
+    if (!(startHz > 0 && stopHz > startHz)) return "The integration band's stop offset must lie above its start, both above 0.";
+  }
   if (c.supersedesId && fileCount > 1) return "A correction replaces one set: choose one file when a set is superseded.";
   return null;
 }

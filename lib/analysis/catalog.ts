@@ -31,8 +31,10 @@ export const parameterCatalog = {
     label: "Input 1 dB compression",
     unit: "dBm",
     description:
-      "Input where gain (−conversion loss for a converter) is 1 dB below its small-signal value (mean of the three lowest-drive points), " +
-      "interpolated between the straddling steps (Kundert, The Designer's Guide). Empty when the sweep does not reach it.",
+      "Input where gain (−conversion loss for a converter) is 1 dB below its small-signal value, interpolated between the straddling steps " +
+      "(Kundert, The Designer's Guide). The small-signal gain is the mean of the leading steps within 0.1 dB of the first (\"reference points\"), " +
+      "or the gain at the reference drive the engineer stated; a sweep whose second step already differs by more is warned about. " +
+      "Empty when the sweep does not reach it.",
   },
   "output-p1db": {
     label: "Output 1 dB compression",
@@ -66,6 +68,18 @@ export const parameterCatalog = {
     unit: "dB",
     description: "P_out,tone − P_IM3 at one input level per tone.",
   },
+  "im3-predicted": {
+    label: "Third-order product, predicted",
+    unit: "dBm",
+    description:
+      "From OIP3 and the two tone levels: P(2f1−f2) = 2·P1 + P2 − 2·OIP3 and P(2f2−f1) = P1 + 2·P2 − 2·OIP3 " +
+      "(the cubic model; Razavi, RF Microelectronics, §2.2). Given when the file states tone 2's level relative to tone 1.",
+  },
+  "mismatch-loss": {
+    label: "Mismatch loss",
+    unit: "dB",
+    description: "−10·log10(1 − |Sii|²), the power a port reflects (Pozar §2.3); \"worst\" is the highest over the band.",
+  },
   "spot-phase-noise": {
     label: "Phase noise L(f)",
     unit: "dBc/Hz",
@@ -81,12 +95,12 @@ export const parameterCatalog = {
   "rms-phase-error": {
     label: "RMS phase error",
     unit: "deg",
-    description: "φrms = √(2·∫L(f)df), both sidebands, in degrees.",
+    description: "φrms = √(2·∫L(f)df), both sidebands, in degrees, over the integration band printed beside it.",
   },
   "rms-jitter": {
     label: "RMS jitter",
     unit: "fs",
-    description: "σt = φrms / (2π·f0) over the stated offsets, in femtoseconds.",
+    description: "σt = φrms / (2π·f0) over the integration band printed beside it, in femtoseconds.",
   },
   "excess-over-ideal-multiplication": {
     label: "Excess over ideal multiplication",

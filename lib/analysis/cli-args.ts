@@ -1,20 +1,47 @@
+import { deviceClasses, type DeviceClass } from "../domain/device-classes";
+import { findNamedIntegrationBand, namedIntegrationBands, type StatedAnalysisSettings } from "../domain/analysis-settings";
 import { measurementKinds, type MeasurementKind } from "../domain/measurements";
+import { parseDecimalText } from "../ingest/number";
 
 export type CliCommand =
   | { command: "help" }
-  | { command: "analyze"; file: string; kind?: MeasurementKind; json: boolean }
+  | {
+      command: "analyze";
+      file: string;
+      kind?: MeasurementKind;
+      json: boolean;
+      /** What the command line states (the third source, after the file and an upload). */
+      settings?: StatedAnalysisSettings;
+      /** Take the defaults of this class's template (the fourth source). */
+      deviceClass?: DeviceClass;
+      /** Impedance for dBm ↔ Vrms ↔ dBµV of CSV power readings, Ω; 50 by default (a Touchstone file states its own). */
+      impedanceOhm?: number;
+    }
   | { command: "error"; message: string };
 
-export const CLI_USAGE = `Usage: benchfold analyze <file> [--kind <kind>] [--json]
+export const CLI_USAGE = `Usage: benchfold analyze <file> [--kind <kind>] [--json] [--integration <start>:<stop>]
+                         [--compression-reference <dBm>] [--class <device class>] [--impedance <ohm>]
        benchfold --help
 
 Parses a bench measurement file and prints the parameters Benchfold derives from it.
 
-  --kind <kind>  skip detection: ${measurementKinds.join(", ")}
-  --json         print {"kind", "parameters", "warnings"} as JSON
-  --help, -h     show this help
+  --kind <kind>      skip detection: ${measurementKinds.join(", ")}
+  --json             print {"kind", "settings", "parameters", "warnings", "tables"} as JSON
+                     (tables: every value per frequency or per step)
+  --integration <b>  phase-noise integration band for rms phase and jitter, in Hz: 12e3:20e6,
+                     or a name: ${namedIntegrationBands.map((b) => b.id).join(", ")}
+  --compression-reference <dBm>
+                     small-signal reference drive for P1dB (the axis input P1dB is reported on)
+  --class <class>    use this device class's defaults: ${deviceClasses.join(", ")}
+  --impedance <ohm>  impedance for dBm, Vrms and dBµV of power readings (50 by default)
+  --help, -h         show this help
 
-Exit codes: 0 done, 2 bad usage or a file that does not parse, 1 anything else.`;
+A setting in the file ("# integration_start:", "# integration_stop:", "# compression_reference:")
+wins over the command line, which wins over the class's default.
+
+Exit codes: 0 done, 2 bad usage, a file that does not parse or a setting the data cannot honour, 1 anything else.`;
+
+type Analyze = Extract<CliCommand, { command: "analyze" }>;
 
 /** Reads the CLI's arguments (without node and the script path). Pure, so it can be tested alone. */
 export function parseCliArgs(argv: readonly string[]): CliCommand {
@@ -25,20 +52,21 @@ export function parseCliArgs(argv: readonly string[]): CliCommand {
   if (command !== "analyze") return { command: "error", message: `Unknown command "${command}"` };
 
   let file: string | undefined;
-  let kind: MeasurementKind | undefined;
-  let json = false;
+  const out: Omit<Analyze, "command" | "file"> = { kind: undefined, json: false };
+  const settings: StatedAnalysisSettings = {};
   for (let i = 0; i < rest.length; i++) {
     const arg = rest[i];
+    const option = /^(--[a-z-]+)(?:=(.*))?$/.exec(arg);
+    const valueOf = (): string | undefined => (option?.[2] !== undefined ? option[2] : rest[++i]);
     if (arg === "--json") {
-      json = true;
-    } else if (arg === "--kind" || arg.startsWith("--kind=")) {
-      const value = arg === "--kind" ? rest[++i] : arg.slice("--kind=".length);
-      if (value === undefined || value === "") return { command: "error", message: "--kind needs a value" };
-      if (!(measurementKinds as readonly string[]).includes(value)) {
-        return { command: "error", message: `Unknown kind "${value}"; expected one of ${measurementKinds.join(", ")}` };
-      }
-      kind = value as MeasurementKind;
-    } else if (arg.startsWith("-") && arg !== "-") {
+      out.json = true;
+    } else if (option && ["--kind", "--integration", "--compression-reference", "--class", "--impedance"].includes(option[1])) {
+      const name = option[1];
+      const value = valueOf();
+      if (value === undefined || value === "") return { command: "error", message: `${name} needs a value` };
+      const problem = readOption(name, value, out, settings);
+      if (problem) return { command: "error", message: problem };
+    } else if (arg.startsWith("-") && arg !== "-" && !/^-\d/.test(arg)) {
       return { command: "error", message: `Unknown option "${arg}"` };
     } else if (file === undefined) {
       file = arg;
@@ -47,5 +75,47 @@ export function parseCliArgs(argv: readonly string[]): CliCommand {
     }
   }
   if (file === undefined) return { command: "error", message: "analyze needs a file" };
-  return { command: "analyze", file, kind, json };
+  const result: Analyze = { command: "analyze", file, ...out };
+  if (Object.keys(settings).length > 0) result.settings = settings;
+  return result;
+}
+
+function readOption(name: string, value: string, out: Omit<Analyze, "command" | "file">, settings: StatedAnalysisSettings): string | undefined {
+  switch (name) {
+    case "--kind":
+      if (!(measurementKinds as readonly string[]).includes(value)) return `Unknown kind "${value}"; expected one of ${measurementKinds.join(", ")}`;
+      out.kind = value as MeasurementKind;
+      return undefined;
+    case "--class":
+      if (!(deviceClasses as readonly string[]).includes(value)) return `Unknown device class "${value}"; expected one of ${deviceClasses.join(", ")}`;
+      out.deviceClass = value as DeviceClass;
+      return undefined;
+    case "--impedance": {
+      const ohm = parseDecimalText(value);
+      if (ohm === undefined || !(ohm > 0 && ohm <= 1e6)) return `--impedance needs a resistance in ohms above 0, e.g. 50; found "${value}"`;
+      out.impedanceOhm = ohm;
+      return undefined;
+    }
+    case "--compression-reference": {
+      const dbm = parseDecimalText(value);
+      if (dbm === undefined || !Number.isFinite(dbm) || dbm < -200 || dbm > 60) return `--compression-reference needs a drive in dBm from -200 to 60, e.g. -20; found "${value}"`;
+      settings.compressionReferenceDbm = dbm;
+      return undefined;
+    }
+    default: {
+      const named = findNamedIntegrationBand(value);
+      if (named) {
+        settings.integrationBandHz = { startHz: named.startHz, stopHz: named.stopHz };
+        return undefined;
+      }
+      const ends = value.split(":");
+      const [startHz, stopHz] = ends.map((end) => parseDecimalText(end.trim()));
+      if (ends.length !== 2 || startHz === undefined || stopHz === undefined || !Number.isFinite(startHz) || !Number.isFinite(stopHz)) {
+        return `--integration needs <start>:<stop> in Hz, e.g. 12e3:20e6, or one of ${namedIntegrationBands.map((b) => b.id).join(", ")}; found "${value}"`;
+      }
+      if (!(startHz > 0 && stopHz > startHz)) return `--integration needs 0 < start < stop; found "${value}"`;
+      settings.integrationBandHz = { startHz, stopHz };
+      return undefined;
+    }
+  }
 }

@@ -3,10 +3,10 @@ import {
   computeConversionLossDb,
   computePerPortDriveDbm,
   computeSuppressionDbc,
-  findCompressionPoint,
   findOptimumDrive,
 } from "../rf";
-import { errorMessage, makeParameter, makeSeries, roundCondition } from "./curves";
+import { addCompressionPoint } from "./compression";
+import { makeParameter, makeSeries, roundCondition } from "./curves";
 import type { Section } from "./section";
 import type { Curve, DeriveOptions, DerivedParameter } from "./types";
 
@@ -34,7 +34,7 @@ export function analyzeDriveSweep(data: DriveSweep, options: DeriveOptions, maxP
     );
   }
   const markers = n >= 1 ? addOptimum(data, sweep, parameters, warnings) : [];
-  addCompression(data, sweep, parameters, warnings);
+  addCompression(data, sweep, parameters, warnings, options);
   return { parameters, warnings, curves: driveSweepCurves(data, sweep, markers, { maxPoints }) };
 }
 
@@ -94,30 +94,19 @@ function addOptimum(data: DriveSweep, sweep: DeEmbeddedSweep, parameters: Derive
   return [{ label: "optimum drive", x: optimum.inputPowerDbm, y: optimum.conversionLossDb }];
 }
 
-/** For a doubler the "gain" is −CL of the wanted order; compression is read against the lowest-drive steps. */
-function addCompression(data: DriveSweep, sweep: DeEmbeddedSweep, parameters: DerivedParameter[], warnings: string[]): void {
-  const n = sweep.perPortDbm.length;
-  if (n <= 3) {
-    warnings.push(`Compression point not computed: the sweep has only ${n} drive steps`);
-    return;
-  }
-  const base = { inputFrequencyHz: data.inputFrequencyHz };
-  try {
-    const compression = findCompressionPoint({
-      inputPowerDbm: sweep.deviceInputDbm,
-      gainDb: sweep.conversionLossDb.map((cl) => -cl),
-    });
-    if (compression.reached) {
-      parameters.push(makeParameter("input-p1db", compression.inputCompressionPointDbm, base));
-      parameters.push(makeParameter("output-p1db", compression.outputCompressionPointDbm, base));
-    } else {
-      parameters.push(makeParameter("input-p1db", null, base));
-      parameters.push(makeParameter("output-p1db", null, base));
-      warnings.push(`No 1 dB compression in this sweep: ${compression.reason}`);
-    }
-  } catch (error) {
-    warnings.push(`Compression point not computed: ${errorMessage(error)}`);
-  }
+/**
+ * For a doubler the "gain" is −CL of the wanted order, against the input reaching the device (all ports);
+ * the small-signal reference is read as for any sweep (lib/analysis/compression.ts).
+ */
+function addCompression(data: DriveSweep, sweep: DeEmbeddedSweep, parameters: DerivedParameter[], warnings: string[], options: DeriveOptions): void {
+  addCompressionPoint({
+    inputPowerDbm: sweep.deviceInputDbm,
+    gainDb: sweep.conversionLossDb.map((cl) => -cl),
+    base: { inputFrequencyHz: data.inputFrequencyHz },
+    options,
+    parameters,
+    warnings,
+  });
 }
 
 /** Conversion loss (with the optimum marked), every order's output and the unwanted orders' suppression, all vs per-port drive. */

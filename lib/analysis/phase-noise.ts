@@ -17,9 +17,9 @@ import { errorMessage, makeParameter, makeSeries } from "./curves";
 import type { Section } from "./section";
 import type { Curve, DeriveOptions, DerivedParameter } from "./types";
 import { formatNumber } from "../format/quantity";
+import { settingSourceWords } from "../domain/analysis-settings";
+import { AnalysisSettingError, describeBand, ENGINE_INTEGRATION_BAND_HZ } from "./settings";
 
-export const DEFAULT_INTEGRATION_START_HZ = 10;
-export const DEFAULT_INTEGRATION_STOP_HZ = 1e6;
 const DEFAULT_SPUR_THRESHOLD_DB = 10;
 
 /**
@@ -75,17 +75,40 @@ function addSpotNoise(out: Derivation): SpotPhaseNoise[] {
   return spots;
 }
 
-/** Integrated phase noise, rms phase and rms jitter over the integration band. */
+/**
+ * Integrated phase noise, rms phase and rms jitter over the integration band, each carrying the band
+ * and where it came from. A band the engineer stated (file, upload, command line) that reaches outside
+ * the trace is refused; a default band (the device class's, or the engine's) is narrowed to the trace
+ * and the narrowing is said in a warning.
+ */
 function addIntegratedNoise(out: Derivation): void {
   const { data, settings } = out;
   const offsets = data.offsetHz;
-  const startHz = settings.integrationStartHz ?? Math.max(DEFAULT_INTEGRATION_START_HZ, firstOffsetHz(data));
-  const stopHz = settings.integrationStopHz ?? Math.min(DEFAULT_INTEGRATION_STOP_HZ, lastOffsetHz(data));
+  const chosen = settings.integrationBand ?? { value: ENGINE_INTEGRATION_BAND_HZ, source: "engine" as const };
+  const traceBand = { startHz: firstOffsetHz(data), stopHz: lastOffsetHz(data) };
+  let { startHz, stopHz } = chosen.value;
+  if (startHz < traceBand.startHz || stopHz > traceBand.stopHz) {
+    const stated = chosen.source === "file" || chosen.source === "upload" || chosen.source === "cli";
+    const what = `The integration band ${describeBand(chosen.value)} (set by ${settingSourceWords[chosen.source]})`;
+    if (stated) {
+      throw new AnalysisSettingError(
+        "integrationBand",
+        `${what} reaches outside the trace, which spans ${describeBand(traceBand)}; state a band within the trace`,
+      );
+    }
+    startHz = Math.max(startHz, traceBand.startHz);
+    stopHz = Math.min(stopHz, traceBand.stopHz);
+    if (!(stopHz > startHz)) {
+      out.warnings.push(`Integrated phase noise not computed: ${what} does not overlap the trace, which spans ${describeBand(traceBand)}`);
+      return;
+    }
+    out.warnings.push(`${what} reaches outside the trace: narrowed to ${describeBand({ startHz, stopHz })}, the part the trace covers`);
+  }
   try {
     const from = Math.max(lowerBound(offsets, startHz) - 1, 0);
     const to = Math.min(lowerBound(offsets, stopHz) + 1, offsets.length);
     const integrated = integratePhaseNoise({ trace: sliceTrace(data, from, to), startOffsetHz: startHz, stopOffsetHz: stopHz, carrierFrequencyHz: data.carrierFrequencyHz });
-    const band = { ...out.base, startHz, stopHz };
+    const band = { ...out.base, startHz, stopHz, bandSource: chosen.source };
     out.parameters.push(makeParameter("integrated-phase-noise", integrated.integratedPhaseNoiseDbc, band));
     out.parameters.push(makeParameter("rms-phase-error", integrated.phaseRmsDeg, band));
     out.parameters.push(makeParameter("rms-jitter", integrated.jitterRmsS * 1e15, band));

@@ -1,6 +1,6 @@
 import { sParameter } from "../ingest/touchstone";
 import type { TouchstoneData } from "../ingest/types";
-import { type Complex, computePhaseBalanceSweepDeg, computeReturnLossDb, computeVswr } from "../rf";
+import { type Complex, computeMismatchLossDb, computePhaseBalanceSweepDeg, computeReturnLossDb, computeVswr } from "../rf";
 import { errorMessage, makeParameter, makeSeries } from "./curves";
 import type { Section } from "./section";
 import type { Curve, CurveSeries, DeriveOptions, DerivedParameter, HybridPorts, SplitterPorts } from "./types";
@@ -11,7 +11,7 @@ export const DEFAULT_SPLITTER_PORTS: SplitterPorts = { common: 1, outputs: [2, 3
 /**
  * Port match, transmission, isolation and balance from S-parameters (Pozar,
  * Microwave Engineering §2.3, 4.3: RL = −20·log10|Sii|, VSWR = (1+|Sii|)/(1−|Sii|),
- * IL = −20·log10|Sji|). Band-wide figures are the worst case over every
+ * IL = −20·log10|Sji|, ML = −10·log10(1 − |Sii|²)). Band-wide figures are the worst case over every
  * frequency in the file; "centre" figures are at the frequency nearest the
  * band's arithmetic centre.
  */
@@ -97,6 +97,8 @@ function addPortMatch(network: Network): void {
       parameters.push(makeParameter("return-loss", computeReturnLossDb(centreMagnitude), { port, ...centreConditions }));
       parameters.push(makeParameter("vswr", computeVswr(worstMagnitude), { port, statistic: "worst", ...band }));
       parameters.push(makeParameter("vswr", computeVswr(centreMagnitude), { port, ...centreConditions }));
+      parameters.push(makeParameter("mismatch-loss", computeMismatchLossDb(worstMagnitude), { port, statistic: "worst", ...band }));
+      parameters.push(makeParameter("mismatch-loss", computeMismatchLossDb(centreMagnitude), { port, ...centreConditions }));
     } catch (error) {
       network.warnings.push(`Port ${port} match not derived: ${errorMessage(error)}`);
     }

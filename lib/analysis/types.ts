@@ -1,4 +1,6 @@
 import type { MeasurementKind } from "../ingest/types";
+import type { IntegrationBandHz } from "../domain/analysis-settings";
+import type { ResolvedSetting } from "./settings";
 
 /** One derived figure. Stored as-is; the datasheet's statistics group by name + conditions. */
 export interface DerivedParameter {
@@ -63,14 +65,20 @@ export interface DeriveOptions {
     /** Ways of the splitter feeding the device ports; 2 (both ports of a mixer used as a doubler) by default. */
     splitWays?: number;
   };
+  /** The small-signal reference of compression (drive sweeps and two-tone data). */
+  compression?: {
+    /** The engineer's reference drive, dBm, on the axis the input P1dB is reported on; by default the agreeing leading points. */
+    referenceInputPowerDbm?: ResolvedSetting<number>;
+    /** Leading points within this of the first point's gain are small-signal, dB; 0.1 by default. */
+    linearToleranceDb?: number;
+  };
   twoTone?: {
     /** Fit only points at or below this input per tone; by default the points whose tone gain is within 0.2 dB of the small-signal gain. */
     maxInputPowerDbm?: number;
   };
   phaseNoise?: {
-    /** Integration band; by default 10 Hz … 1 MHz clipped to the trace. */
-    integrationStartHz?: number;
-    integrationStopHz?: number;
+    /** Integration band and where it came from; by default the engine's 10 Hz … 1 MHz, narrowed to the trace. */
+    integrationBand?: ResolvedSetting<IntegrationBandHz>;
     /** L(f) of the signal driving the multiplier, for the excess over ideal ×N. */
     inputReference?: { offsetHz: readonly number[]; lDbcHz: readonly number[] };
     /** Rise above the local median that makes a point a spur, dB; 10 by default. */

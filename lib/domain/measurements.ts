@@ -4,6 +4,7 @@
  * summary types the pages hand to components. Pure: server code and client components import it.
  */
 import type { DerivedParameter } from "../analysis/types";
+import type { ValueTable } from "../analysis/tables";
 import type { MeasurementConditions } from "../ingest/upload-conditions";
 
 /** Every bench-file kind the engine reads (fixtures/FORMATS.md). */
@@ -78,4 +79,4 @@ export type MeasurementSetSummary = {
 };
 
 /** A set with its plot-ready curves (the set's own page). */
-export type MeasurementSetDetail = MeasurementSetSummary & { curves: unknown };
+export type MeasurementSetDetail = MeasurementSetSummary & { curves: unknown; tables: ValueTable[] };

@@ -251,6 +251,15 @@ export function rangeParts(min: number, max: number, unit: string, style: Quanti
 }
 
 /** A range as one string: "0.2–2 GHz", "−10 to +5 dBm". */
+/**
+ * A band whose ends lie decades apart ("12 kHz – 20 MHz", "10 Hz – 1 MHz"): each end with its own
+ * prefix, a spaced en dash between (the ends hold spaces themselves; a hyphen in plain text), where a
+ * narrow table column may wrap. formatRange keeps one prefix, which suits ends of one magnitude.
+ */
+export function formatBand(start: number, stop: number, unit: string, style: QuantityStyle = {}): string {
+  return `${formatQuantity(start, unit, style)} ${style.plain ? "-" : EN_DASH} ${formatQuantity(stop, unit, style)}`;
+}
+
 export function formatRange(min: number, max: number, unit: string, style: QuantityStyle = {}): string {
   const parts = rangeParts(min, max, unit, style);
   return joinUnit(parts.value, parts.unit, style);

@@ -2,7 +2,7 @@ import { calendarDateProblem } from "../schemas/calendar-date";
 import type { CsvDocument, MetadataEntry } from "./csv-table";
 import { IngestError, shortenFound } from "./errors";
 import { parseNumberAt } from "./number";
-import { acceptedUnits, describeQuantity, describeRange, findConversion, inRange, type Quantity, type ValueRange } from "./units";
+import { acceptedUnits, describeQuantity, describeRange, findConversion, inRange, RANGES, type Quantity, type ValueRange } from "./units";
 
 /** Metadata keys every CSV kind understands. */
 export const COMMON_METADATA_KEYS = ["kind", "serial", "lot", "temperature", "device", "notes", "operator", "date", "instrument"];
@@ -142,4 +142,15 @@ export function rawMetadata(doc: CsvDocument): Record<string, string> {
   const out: Record<string, string> = {};
   for (const [k, e] of doc.metadata) out[k] = e.value;
   return out;
+}
+
+/** Two frequency lines that state a band together (`# integration_start: 12 kHz`, `# integration_stop: 20 MHz`): both or neither, start below stop. */
+export function metaFrequencyBand(doc: CsvDocument, startKey: string, stopKey: string): { startHz: number; stopHz: number } | undefined {
+  const startHz = metaQuantity(doc, startKey, "frequency", RANGES.frequencyHz, false, "12 kHz");
+  const stopHz = metaQuantity(doc, stopKey, "frequency", RANGES.frequencyHz, false, "20 MHz");
+  if (startHz === undefined && stopHz === undefined) return undefined;
+  if (startHz === undefined) missing(doc, startKey, "12 kHz");
+  if (stopHz === undefined) missing(doc, stopKey, "20 MHz");
+  if (!(stopHz > startHz)) bad(doc, doc.metadata.get(stopKey)!, `a frequency above ${startKey}`, `${stopKey} must lie above ${startKey}`);
+  return { startHz, stopHz };
 }

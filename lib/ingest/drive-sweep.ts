@@ -5,7 +5,7 @@ import { IngestError } from "./errors";
 import type { DriveSweep, ParseResult } from "./types";
 import { RANGES } from "./units";
 
-const METADATA_KEYS = ["input_frequency", "wanted_order", "splitter_excess_loss", "cable_loss"];
+const METADATA_KEYS = ["input_frequency", "wanted_order", "splitter_excess_loss", "cable_loss", "compression_reference"];
 export const MAX_HARMONIC_ORDER = 16;
 
 /** Harmonic output columns are named p1_out, p2_out, … pN_out (order N). */
@@ -32,6 +32,8 @@ export function parseDriveSweep(fileName: string, content: FileContent, options:
     cableLossDb = 0;
     warnings.push('no "# cable_loss:" metadata; taken as 0 dB');
   }
+
+  const compressionReferenceDbm = metaQuantity(doc, "compression_reference", "power", RANGES.powerDbm, false, "-10 dBm");
 
   const input = requireColumn(doc, "input_power", "power", RANGES.powerDbm, "input_power [dBm]");
   const harmonicColumns: { order: number; request: ColumnRequest }[] = [];
@@ -79,6 +81,7 @@ export function parseDriveSweep(fileName: string, content: FileContent, options:
       wantedOrder,
       splitterExcessLossDb,
       cableLossDb,
+      ...(compressionReferenceDbm !== undefined ? { compressionReferenceDbm } : {}),
       inputPowerDbm: values[0],
       harmonics: harmonicColumns.map((h, k) => ({ order: h.order, outputPowerDbm: values[k + 1] })),
     },

@@ -5,7 +5,7 @@ import { IngestError } from "./errors";
 import type { ParseResult, TwoTone } from "./types";
 import { RANGES } from "./units";
 
-const METADATA_KEYS = ["tone1_frequency", "tone2_frequency", "tone_spacing", "lo_power", "lo_frequency"];
+const METADATA_KEYS = ["tone1_frequency", "tone2_frequency", "tone_spacing", "lo_power", "lo_frequency", "tone2_relative_level", "compression_reference"];
 
 export function parseTwoTone(fileName: string, content: FileContent, options: ParseOptions = {}): ParseResult<TwoTone> {
   const warnings: string[] = [];
@@ -15,6 +15,8 @@ export function parseTwoTone(fileName: string, content: FileContent, options: Pa
   const tone2FrequencyHz = metaQuantity(doc, "tone2_frequency", "frequency", RANGES.frequencyHz, false, "1001 MHz");
   let toneSpacingHz = metaQuantity(doc, "tone_spacing", "frequency", RANGES.frequencyHz, false, "1 MHz");
   const loPowerDbm = metaQuantity(doc, "lo_power", "power", RANGES.powerDbm, false, "7 dBm");
+  const tone2RelativeLevelDb = metaQuantity(doc, "tone2_relative_level", "ratio-db", RANGES.toneLevelDifferenceDb, false, "-3 dB");
+  const compressionReferenceDbm = metaQuantity(doc, "compression_reference", "power", RANGES.powerDbm, false, "-20 dBm");
   if (tone1FrequencyHz !== undefined && tone2FrequencyHz !== undefined) {
     const spacing = Math.abs(tone2FrequencyHz - tone1FrequencyHz);
     if (spacing === 0) {
@@ -55,6 +57,8 @@ export function parseTwoTone(fileName: string, content: FileContent, options: Pa
       tone2FrequencyHz,
       toneSpacingHz,
       loPowerDbm,
+      ...(tone2RelativeLevelDb !== undefined ? { tone2RelativeLevelDb } : {}),
+      ...(compressionReferenceDbm !== undefined ? { compressionReferenceDbm } : {}),
     },
     warnings,
   };

@@ -32,6 +32,8 @@ export interface DriveSweep extends UnitConditions {
   splitterExcessLossDb: number;
   /** Cable loss between source and device; 0 when not given. */
   cableLossDb: number;
+  /** `# compression_reference:` the small-signal reference drive for P1dB, dBm into the device (all ports). */
+  compressionReferenceDbm?: number;
   /** Total input power as measured at the source, one entry per row, strictly increasing. */
   inputPowerDbm: number[];
   /** One trace per pN_out column, sorted by order; each has one entry per row. */
@@ -64,6 +66,10 @@ export interface TwoTone extends UnitConditions {
   im3OutputDbm: number[];
   tone1FrequencyHz?: number;
   tone2FrequencyHz?: number;
+  /** Tone 2's level minus tone 1's, dB (`# tone2_relative_level:`); the columns are tone 1's and the product beside it (2f1 − f2). */
+  tone2RelativeLevelDb?: number;
+  /** `# compression_reference:` the small-signal reference drive for P1dB, dBm per tone. */
+  compressionReferenceDbm?: number;
   /** Given, or |f2 − f1| when both tones are given. */
   toneSpacingHz?: number;
   loPowerDbm?: number;
@@ -75,6 +81,8 @@ export interface PhaseNoiseTrace extends UnitConditions {
   carrierPowerDbm?: number;
   /** Multiplication factor N of the device (2 for a doubler), when measured through a multiplier. */
   multiplicationFactor?: number;
+  /** `# integration_start:` and `# integration_stop:`, the band for rms phase and jitter. */
+  integrationBandHz?: { startHz: number; stopHz: number };
   /** Strictly increasing, > 0. */
   offsetHz: number[];
   lDbcHz: number[];

@@ -121,6 +121,7 @@ export const RANGES = {
   temperatureC: { min: -273.15, max: 500, unit: "°C" },
   lossDb: { min: -100, max: 300, unit: "dB" },
   correctionDb: { min: 0, max: 60, unit: "dB" },
+  toneLevelDifferenceDb: { min: -40, max: 40, unit: "dB" },
   relativeDbc: { min: -300, max: 100, unit: "dBc" },
 } satisfies Record<string, ValueRange>;
 

@@ -2,6 +2,7 @@ import { AppError } from "../errors";
 import { isCalendarDate } from "../schemas/calendar-date";
 import type { UploadFields } from "../schemas/measurements";
 import type { ParsedMeasurement } from "./types";
+import { findNamedIntegrationBand, type StatedAnalysisSettings } from "../domain/analysis-settings";
 
 /** The conditions a measurement set is filed under: the unit, and what it was measured at. */
 export type MeasurementConditions = {
@@ -64,4 +65,31 @@ export function uploadMeasuredOn(parsed: ParsedMeasurement, fields: Pick<UploadF
   const date = parsed.kind !== "touchstone" ? parsed.data.metadata?.date?.trim() : undefined;
   // The parser refused an impossible `# date:` already; this only keeps a non-date out of the database.
   return date && isCalendarDate(date) ? date : null;
+}
+
+/**
+ * The measurement settings an upload states (form or bench API): a named band or both ends of one,
+ * and the compression reference drive. Half a band, a stop not above its start, or a name and ends
+ * that disagree are refused (422 naming the field).
+ */
+export function uploadAnalysisSettings(fields: Pick<UploadFields, "integrationBand" | "integrationStartHz" | "integrationStopHz" | "compressionReferenceDbm">): StatedAnalysisSettings {
+  const out: StatedAnalysisSettings = {};
+  const { integrationStartHz: startHz, integrationStopHz: stopHz } = fields;
+  if ((startHz === undefined) !== (stopHz === undefined)) {
+    const field = startHz === undefined ? "integrationStartHz" : "integrationStopHz";
+    throw new AppError("invalid", "State both ends of the integration band (start and stop offset), or choose a named band.", { field });
+  }
+  if (startHz !== undefined && stopHz !== undefined) {
+    if (!(stopHz > startHz)) throw new AppError("invalid", "The integration band's stop offset must lie above its start.", { field: "integrationStopHz" });
+    out.integrationBandHz = { startHz, stopHz };
+  }
+  if (fields.integrationBand) {
+    const named = findNamedIntegrationBand(fields.integrationBand)!;
+    if (out.integrationBandHz && (out.integrationBandHz.startHz !== named.startHz || out.integrationBandHz.stopHz !== named.stopHz)) {
+      throw new AppError("invalid", `The named band ${named.label} and the stated ends disagree; give one or the other.`, { field: "integrationBand" });
+    }
+    out.integrationBandHz = { startHz: named.startHz, stopHz: named.stopHz };
+  }
+  if (fields.compressionReferenceDbm !== undefined) out.compressionReferenceDbm = fields.compressionReferenceDbm;
+  return out;
 }

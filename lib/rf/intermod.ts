@@ -105,3 +105,42 @@ function formatSlope(slope: number): string {
   return formatNumber(slope, { digits: { decimals: 2 } });
 }
 
+
+export interface ThirdOrderProductsOptions {
+  /** Output third-order intercept, dBm (the equal-tone definition above). */
+  oip3Dbm: number;
+  /** Output power of the tone at f1 and of the tone at f2, dBm. */
+  tone1OutputDbm: number;
+  tone2OutputDbm: number;
+}
+
+export interface ThirdOrderProducts {
+  /** Output power of the product at 2f1 − f2 (beside the f1 tone), dBm. */
+  lowerDbm: number;
+  /** Output power of the product at 2f2 − f1 (beside the f2 tone), dBm. */
+  upperDbm: number;
+}
+
+/**
+ * Both third-order products of two tones of unequal level, from OIP3:
+ *   P(2f1 − f2) = 2·P1 + P2 − 2·OIP3,   P(2f2 − f1) = P1 + 2·P2 − 2·OIP3   (output-referred, dBm).
+ * From the memoryless cubic y = a1·x + a3·x³: the product at 2ω1 − ω2 has amplitude (3/4)|a3|·A1²·A2
+ * and the one at 2ω2 − ω1 (3/4)|a3|·A1·A2² (Razavi, RF Microelectronics, 2nd ed., §2.2, from memory);
+ * with equal tones both reduce to P_IM3 = 3·P − 2·OIP3, i.e. ΔIM = 2·(OIP3 − P) as in Kundert.
+ */
+export function predictThirdOrderProducts(options: ThirdOrderProductsOptions): ThirdOrderProducts {
+  const { oip3Dbm, tone1OutputDbm, tone2OutputDbm } = options;
+  return {
+    lowerDbm: 2 * tone1OutputDbm + tone2OutputDbm - 2 * oip3Dbm,
+    upperDbm: tone1OutputDbm + 2 * tone2OutputDbm - 2 * oip3Dbm,
+  };
+}
+
+/**
+ * OIP3 from one reading of the product beside tone 1 when the tones differ in level: the first
+ * formula above solved for OIP3, OIP3 = (2·P1 + P2 − P(2f1 − f2))/2. With P2 = P1 it is Kundert's
+ * P_out + ΔIM/2.
+ */
+export function computeUnequalToneOip3Dbm(options: { tone1OutputDbm: number; tone2OutputDbm: number; lowerProductDbm: number }): number {
+  return (2 * options.tone1OutputDbm + options.tone2OutputDbm - options.lowerProductDbm) / 2;
+}

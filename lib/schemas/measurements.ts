@@ -2,6 +2,7 @@ import { z } from "zod";
 import { deviceClasses } from "@/lib/domain/device-classes";
 import { mappableKinds, measurementKinds } from "@/lib/domain/measurements";
 import { calendarDateSchema, optionalCalendarDateSchema } from "./calendar-date";
+import { namedIntegrationBandIds } from "@/lib/domain/analysis-settings";
 import { findProseLimitBreach } from "@/lib/sheet/render-prose";
 import { minNotAboveMax, optionalDecimal, requiredDecimal } from "./decimal";
 
@@ -19,6 +20,15 @@ export const measurementConditionsSchema = z.object({
   cableLossDb: optionalNumber(0, 30, "cable loss (dB)"),
   measuredOn: optionalCalendarDateSchema,
   notes: z.string().trim().max(2000).optional(),
+  // Measurement settings (lib/domain/analysis-settings.ts): a named integration band or its two ends, and the
+  // compression reference drive. The file's own lines win over these; these win over the class's defaults.
+  integrationBand: z.preprocess(
+    (value) => (value === "" ? undefined : value),
+    z.enum(namedIntegrationBandIds, { error: `Choose one of the named bands: ${namedIntegrationBandIds.join(", ")}.` }).optional(),
+  ),
+  integrationStartHz: optionalNumber(1e-3, 3e12, "integration band start (Hz)"),
+  integrationStopHz: optionalNumber(1e-3, 3e12, "integration band stop (Hz)"),
+  compressionReferenceDbm: optionalNumber(-200, 60, "compression reference drive (dBm)"),
 });
 export type MeasurementConditionsInput = z.infer<typeof measurementConditionsSchema>;
 

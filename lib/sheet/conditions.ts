@@ -1,5 +1,5 @@
 import type { ConditionColumn, ConditionSource } from "../../templates/types";
-import { formatNumber, formatQuantity, formatRange } from "../format/quantity";
+import { formatBand, formatNumber, formatQuantity, formatRange } from "../format/quantity";
 import { formatDrive, formatTemperature } from "./format";
 
 export type Conditions = Record<string, string | number>;
@@ -46,6 +46,11 @@ function formatSource(source: ConditionSource, conditions: Conditions): string |
     case "frequency-range": {
       const stop = source.stopKey ? conditions[source.stopKey] : undefined;
       if (typeof value === "number" && typeof stop === "number") return formatRange(value, stop, "Hz");
+      return typeof value === "number" ? formatQuantity(value, "Hz") : String(value);
+    }
+    case "frequency-band": {
+      const stop = source.stopKey ? conditions[source.stopKey] : undefined;
+      if (typeof value === "number" && typeof stop === "number") return formatBand(value, stop, "Hz");
       return typeof value === "number" ? formatQuantity(value, "Hz") : String(value);
     }
     case "power-dbm":

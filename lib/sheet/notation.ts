@@ -7,7 +7,8 @@ export type NotationSegment = { text: string; sub?: undefined } | { text: string
 
 export function notationSegments(text: string): NotationSegment[] {
   const segments: NotationSegment[] = [];
-  const pattern = /\b([A-Za-z]+)_([A-Za-z0-9]+)\b/g;
+  // Letters of any script ("σ_t", "φ_rms" as well as "T_A"), so the pattern marks word edges itself.
+  const pattern = /(?<![\p{L}\p{N}_])(\p{L}+)_([\p{L}\p{N}]+)(?![\p{L}\p{N}_])/gu;
   let last = 0;
   for (const match of text.matchAll(pattern)) {
     if (match.index > last) segments.push({ text: text.slice(last, match.index) });

@@ -25,7 +25,11 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "offset",
         label: "Offset",
-        sources: [{ key: "offsetHz", format: "frequency" }],
+        // A spot figure's offset, or the integration band of rms phase and jitter.
+        sources: [
+          { key: "offsetHz", format: "frequency" },
+          { key: "startHz", stopKey: "stopHz", format: "frequency-band" },
+        ],
       },
       temperatureColumn,
     ],
@@ -105,6 +109,26 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
         defaultBasis: "characterization",
       },
       {
+        id: "rms-jitter",
+        parameter: "rms-jitter",
+        label: "Residual rms jitter",
+        symbol: "σ_t",
+        unit: "fs",
+        decimals: 1,
+        groupBy: ["carrierFrequencyHz", "startHz", "stopHz", "temperatureC"],
+        defaultBasis: "characterization",
+      },
+      {
+        id: "rms-phase-error",
+        parameter: "rms-phase-error",
+        label: "Residual rms phase",
+        symbol: "φ_rms",
+        unit: "°",
+        decimals: 4,
+        groupBy: ["carrierFrequencyHz", "startHz", "stopHz", "temperatureC"],
+        defaultBasis: "characterization",
+      },
+      {
         id: "excess-over-ideal",
         parameter: "excess-over-ideal-multiplication",
         label: "Excess over ideal ×N",
@@ -129,6 +153,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       "Conversion loss is P_in − P_out of the wanted 2nd-order output; suppression is P_wanted − P_order (positive below the wanted output).",
       "Per-port drive is the source power less the 3.01 dB split, splitter excess loss and cable loss. System impedance 50 Ω.",
       "Residual phase noise is single-sideband L(f) per IEEE Std 1139-2008; an ideal ×2 adds 6.02 dB.",
+      "RMS jitter and phase integrate L(f) over the offset band printed beside them: φ_rms = √(2∫L(f)df), σ_t = φ_rms/(2π f_0).",
     ],
   },
   curves: [
@@ -193,4 +218,6 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       "raises near-carrier noise and stresses the diodes.",
   ),
   absoluteMaximumRatings: [{ label: "RF input power, per port", unit: "dBm" }, ...temperatureRatings, esdRating],
+  // A multiplier's residual noise matters close in: 10 Hz–1 MHz unless the file or the upload states another band.
+  analysisDefaults: { integrationBandHz: { startHz: 10, stopHz: 1e6 } },
 };

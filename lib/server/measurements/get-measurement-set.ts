@@ -5,6 +5,9 @@ import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { loadMeasurementSets } from "./load-measurement-sets";
 import type { MeasurementSetDetail } from "@/lib/domain/measurements";
+import { tabulateValues, type ValueTable } from "@/lib/analysis/tables";
+import type { ParsedMeasurement } from "@/lib/ingest/types";
+import type { MeasurementSet } from "@/models";
 
 /**
  * One set of the viewer's organization with its plot-ready curves; another organization's is not
@@ -16,6 +19,14 @@ export async function getMeasurementSet(opts: { viewer: SessionUser; setId: numb
   const { organizationId } = authorize(opts.viewer, "devices");
   const [summary] = await loadMeasurementSets({ id: opts.setId, organizationId, ...(opts.deviceId === undefined ? {} : { deviceId: opts.deviceId }) });
   if (!summary) throw new AppError("not-found", "No such measurement set in your organization.");
-  const row = await MeasurementSet.unscoped().findOne({ where: { id: opts.setId, organizationId }, attributes: ["curves"] });
-  return { ...summary, curves: row?.curves ?? [] };
+  const row = await MeasurementSet.unscoped().findOne({ where: { id: opts.setId, organizationId }, attributes: ["curves", "kind", "parsed"] });
+  return { ...summary, curves: row?.curves ?? [], tables: row ? tabulateStoredSet(row) : [] };
+}
+
+/**
+ * Every value at each point (frequency or drive step) from the stored parse: S-parameter magnitude and
+ * phase, mismatch loss, power as dBm, Vrms and dBµV (lib/analysis/tables.ts). Computed when asked, not stored.
+ */
+export function tabulateStoredSet(row: Pick<MeasurementSet, "kind" | "parsed">): ValueTable[] {
+  return tabulateValues({ kind: row.kind, data: row.parsed, warnings: [] } as ParsedMeasurement);
 }

@@ -1,11 +1,12 @@
 import "server-only";
 import { createHash } from "node:crypto";
 import { UniqueConstraintError } from "sequelize";
-import { deriveParameters } from "@/lib/analysis";
+import { analyzeWithSettings, isAnalysisSettingError } from "@/lib/analysis";
+import { findSheetTemplate } from "@/templates";
 import { AppError } from "@/lib/errors";
 import { isIngestError, parseMeasurementFile, type ParsedMeasurement } from "@/lib/ingest";
 import { mappingTargets, parseMappedFile, readForeignTable, type MappableKind } from "@/lib/ingest/column-mapping";
-import { mergeUploadConditions, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
+import { mergeUploadConditions, uploadAnalysisSettings, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
 import type { UploadFields } from "@/lib/schemas/measurements";
 import { db } from "@/models";
 import type { ColumnMapping, MeasurementSet, StoredFile } from "@/models";
@@ -97,6 +98,21 @@ export async function parseUpload(opts: { organizationId: number; file: Uploaded
 }
 
 /**
+ * The engine with the settings in force: the file's own lines, then the upload's fields, then the
+ * device class's defaults (lib/analysis/analyze-with-settings.ts, the CLI's path too). A setting the
+ * data cannot honour (a band outside the trace) is a 422 naming it and the data's span.
+ */
+function deriveWithSettings(input: { parsed: ParsedMeasurement; fields: UploadFields; deviceClass: string; fileName: string }) {
+  const upload = uploadAnalysisSettings(input.fields);
+  try {
+    return analyzeWithSettings(input.parsed, { upload, template: findSheetTemplate(input.deviceClass)?.analysisDefaults });
+  } catch (error) {
+    if (isAnalysisSettingError(error)) throw new AppError("invalid", `${input.fileName}: ${error.message}.`, { field: error.field });
+    throw error;
+  }
+}
+
+/**
  * Parse → derive → store, in one transaction: the raw bytes with their SHA-256, the parsed
  * data, the derived parameters and the audit event. A bad file leaves nothing behind.
  * Shared by the browser upload and the bench API.
@@ -110,7 +126,7 @@ export async function ingestMeasurement(input: IngestInput): Promise<Measurement
   const parsed = await parseUpload({ organizationId, file, fields });
   const warnings = [...parsed.warnings];
   const conditions = mergeUploadConditions(parsed, fields, warnings);
-  const derived = deriveParameters(parsed);
+  const derived = deriveWithSettings({ parsed, fields, deviceClass: device.deviceClass, fileName: file.name });
   warnings.push(...derived.warnings);
   const sha256 = createHash("sha256").update(file.bytes).digest("hex");
   const measuredOn = uploadMeasuredOn(parsed, fields) ?? new Date().toISOString().slice(0, 10);

@@ -90,7 +90,7 @@ describe("phase noise of a doubler (phase-noise-doubler.csv)", () => {
   });
 
   it("integrates over a requested band", () => {
-    const narrow = analyzeExample("phase-noise-doubler.csv", { phaseNoise: { integrationStartHz: 1e4, integrationStopHz: 1e5 } });
+    const narrow = analyzeExample("phase-noise-doubler.csv", { phaseNoise: { integrationBand: { value: { startHz: 1e4, stopHz: 1e5 }, source: "cli" } } });
     expect(valueOf(narrow.parameters, "integrated-phase-noise", { startHz: 1e4, stopHz: 1e5 })).toBeLessThan(
       valueOf(p, "integrated-phase-noise"),
     );

@@ -1,7 +1,12 @@
 import { spawn } from "node:child_process";
 import { readdirSync } from "node:fs";
 import path from "node:path";
+import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
 import { describe, expect, it } from "vitest";
+import { analyzeWithSettings, tabulateValues } from "@/lib/analysis";
+import { parseMeasurementFile } from "@/lib/ingest";
+import { frequencyMultiplierTemplate } from "@/templates";
 
 const ROOT = path.resolve(__dirname, "../../..");
 const TSX = path.join(ROOT, "node_modules/tsx/dist/cli.mjs");
@@ -27,7 +32,8 @@ describe.concurrent("benchfold analyze on every example", () => {
     expect(run.stderr).toBe("");
     expect(run.status).toBe(0);
     const output = JSON.parse(run.stdout);
-    expect(Object.keys(output)).toEqual(["kind", "parameters", "warnings"]);
+    expect(Object.keys(output)).toEqual(["kind", "settings", "parameters", "warnings", "tables"]);
+    expect(output.settings.integrationBand.source).toBe("engine");
     expect(["drive-sweep", "frequency-sweep", "two-tone", "phase-noise", "touchstone"]).toContain(output.kind);
     expect(output.parameters.length).toBeGreaterThan(0);
     for (const parameter of output.parameters) {
@@ -95,5 +101,71 @@ describe.concurrent("benchfold analyze on bad input", () => {
     const run = await benchfold("analyze", "fixtures/examples/no-such-file.csv");
     expect(run.status).toBe(2);
     expect(run.stderr).toContain("no-such-file.csv");
+  }, 60_000);
+});
+
+/** The same file and settings through the CLI (a child process) and through the engine in this process. */
+function inProcess(file: string, layers: Parameters<typeof analyzeWithSettings>[1]) {
+  const parsed = parseMeasurementFile({ fileName: file, bytes: readFileSync(path.join(ROOT, file)) });
+  const result = analyzeWithSettings(parsed, layers);
+  return JSON.parse(JSON.stringify({ kind: result.kind, settings: result.settings, parameters: result.parameters, warnings: result.warnings, tables: tabulateValues(parsed) }));
+}
+
+describe.concurrent("the CLI and the engine give the same numbers for the same settings", () => {
+  const phaseNoise = "fixtures/examples/phase-noise-doubler.csv";
+
+  it("--integration 12e3:1e6", async () => {
+    const run = await benchfold("analyze", phaseNoise, "--integration", "12e3:1e6", "--json");
+    expect(run.stderr).toBe("");
+    const cli = JSON.parse(run.stdout);
+    expect(cli).toEqual(inProcess(phaseNoise, { cli: { integrationBandHz: { startHz: 12e3, stopHz: 1e6 } } }));
+    const jitter = cli.parameters.find((p: { name: string }) => p.name === "rms-jitter");
+    expect(jitter.conditions).toMatchObject({ startHz: 12e3, stopHz: 1e6, bandSource: "cli" });
+    // Narrower than the default 10 Hz – 1 MHz, so less jitter (the default's 1.361 fs is in the table snapshot).
+    expect(jitter.value).toBeLessThan(1.361);
+  }, 60_000);
+
+  it("a named band, the class default, and the table output name the band and its source", async () => {
+    const named = await benchfold("analyze", phaseNoise, "--integration=100-1m");
+    expect(named.stdout).toContain("integration band 100 Hz - 1 MHz (set by the command line)");
+    const byClass = await benchfold("analyze", phaseNoise, "--class", "frequency-multiplier", "--json");
+    const cli = JSON.parse(byClass.stdout);
+    expect(cli).toEqual(inProcess(phaseNoise, { template: frequencyMultiplierTemplate.analysisDefaults }));
+    expect(cli.settings.integrationBand).toEqual({ value: { startHz: 10, stopHz: 1e6 }, source: "template" });
+  }, 60_000);
+
+  it("the file's own band wins over the command line, and the CLI says so", async () => {
+    const dir = mkdtempSync(path.join(tmpdir(), "benchfold-cli-"));
+    const file = path.join(dir, "band-in-file.csv");
+    const text = readFileSync(path.join(ROOT, phaseNoise), "utf8").replace("# temperature: 25 C", "# temperature: 25 C\n# integration_start: 1 kHz\n# integration_stop: 100 kHz");
+    writeFileSync(file, text);
+    const run = await benchfold("analyze", file, "--integration", "12e3:1e6", "--json");
+    expect(run.stderr).toBe("");
+    const cli = JSON.parse(run.stdout);
+    expect(cli.settings.integrationBand).toEqual({ value: { startHz: 1e3, stopHz: 1e5 }, source: "file" });
+    // Messages print quantities as every page does: a no-break space between number and unit.
+    expect(cli.warnings[0].replaceAll("\u00a0", " ")).toBe("Integration band: the file says 1 kHz – 100 kHz, the command line said 12 kHz – 1 MHz; the file's is used");
+    const jitter = cli.parameters.find((p: { name: string }) => p.name === "rms-jitter");
+    expect(jitter.conditions).toMatchObject({ startHz: 1e3, stopHz: 1e5, bandSource: "file" });
+  }, 60_000);
+
+  it("a band outside the trace exits 2 naming the band and the trace's span", async () => {
+    const run = await benchfold("analyze", phaseNoise, "--integration", "12e3:20e6");
+    expect(run.status).toBe(2);
+    expect(run.stdout).toBe("");
+    expect(run.stderr.replaceAll("\u00a0", " ")).toContain("The integration band 12 kHz – 20 MHz (set by the command line) reaches outside the trace, which spans 1 Hz – 10 MHz");
+  }, 60_000);
+
+  it("--compression-reference on a two-tone file", async () => {
+    const file = "fixtures/examples/two-tone-mixer.tsv";
+    const run = await benchfold("analyze", file, "--compression-reference", "-16", "--json");
+    expect(run.stderr).toBe("");
+    const cli = JSON.parse(run.stdout);
+    expect(cli).toEqual(inProcess(file, { cli: { compressionReferenceDbm: -16 } }));
+    const p1db = cli.parameters.find((p: { name: string }) => p.name === "input-p1db");
+    expect(p1db.conditions).toMatchObject({ referenceDbm: -16, referenceSource: "cli" });
+    const outside = await benchfold("analyze", file, "--compression-reference", "-40");
+    expect(outside.status).toBe(2);
+    expect(outside.stderr.replaceAll("\u00a0", " ")).toContain("The reference drive −40 dBm lies outside the sweep, which runs from −20 dBm to 0 dBm");
   }, 60_000);
 });

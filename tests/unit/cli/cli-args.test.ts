@@ -28,3 +28,30 @@ describe("benchfold CLI arguments", () => {
     expect(result.command === "error" && result.message).toContain(message);
   });
 });
+
+describe("benchfold CLI settings", () => {
+  it.each([
+    [["analyze", "a.csv", "--integration", "12e3:20e6"], { integrationBandHz: { startHz: 12e3, stopHz: 20e6 } }],
+    [["analyze", "a.csv", "--integration=10-1m"], { integrationBandHz: { startHz: 10, stopHz: 1e6 } }],
+    [["analyze", "a.csv", "--compression-reference", "-20"], { compressionReferenceDbm: -20 }],
+    [["analyze", "a.csv", "--compression-reference=-7.5"], { compressionReferenceDbm: -7.5 }],
+  ])("%j", (argv, settings) => {
+    expect(parseCliArgs(argv)).toMatchObject({ command: "analyze", file: "a.csv", settings });
+  });
+
+  it("--class and --impedance", () => {
+    expect(parseCliArgs(["analyze", "a.csv", "--class", "frequency-multiplier", "--impedance", "75"])).toMatchObject({ deviceClass: "frequency-multiplier", impedanceOhm: 75 });
+  });
+
+  it.each([
+    [["analyze", "a.csv", "--integration", "20e6:12e3"], "0 < start < stop"],
+    [["analyze", "a.csv", "--integration", "12k"], "--integration needs <start>:<stop>"],
+    [["analyze", "a.csv", "--integration", "0x10:1e6"], "--integration needs <start>:<stop>"],
+    [["analyze", "a.csv", "--compression-reference", "loud"], "--compression-reference needs a drive"],
+    [["analyze", "a.csv", "--class", "amplifier"], 'Unknown device class "amplifier"'],
+    [["analyze", "a.csv", "--impedance", "-50"], "--impedance needs a resistance"],
+  ])("%j is refused", (argv, message) => {
+    const result = parseCliArgs(argv);
+    expect(result.command === "error" && result.message).toContain(message);
+  });
+});

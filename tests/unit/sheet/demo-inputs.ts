@@ -1,4 +1,6 @@
-import { deriveParameters } from "@/lib/analysis";
+import { analyzeWithSettings } from "@/lib/analysis";
+import { uploadAnalysisSettings } from "@/lib/ingest/upload-conditions";
+import { findSheetTemplate } from "@/templates";
 import { parseMeasurementFile } from "@/lib/ingest";
 import { mergeUploadConditions, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
 import { uploadFieldsSchema } from "@/lib/schemas/measurements";
@@ -23,7 +25,10 @@ export function demoSheetInputs(date: string): { partNumber: string; input: Shee
     const fields = uploadFieldsSchema.parse(upload.fields);
     const parsed = parseMeasurementFile({ fileName: upload.file, bytes: new Uint8Array(upload.bytes()) });
     const conditions = mergeUploadConditions(parsed, fields, []);
-    const derived = JSON.parse(JSON.stringify(deriveParameters(parsed))) as ReturnType<typeof deriveParameters>;
+    // The settings an upload resolves: the file's lines, the upload's fields, then the device class's defaults.
+    const deviceClass = demoOrganizations.find((o) => o.slug === upload.org)!.devices.find((d) => d.partNumber === upload.part)!.deviceClass;
+    const analyzed = analyzeWithSettings(parsed, { upload: uploadAnalysisSettings(fields), template: findSheetTemplate(deviceClass)?.analysisDefaults });
+    const derived = JSON.parse(JSON.stringify(analyzed)) as typeof analyzed;
     if (!upload.approve) return;
     const instruments = upload.instruments.map((key) => demoInstruments[upload.org].find((i) => i.key === key)!);
     const sets = setsByPart.get(upload.part) ?? [];

@@ -1,0 +1,104 @@
+import {
+  settingSources,
+  settingSourceWords,
+  type IntegrationBandHz,
+  type SettingSource,
+  type StatedAnalysisSettings,
+} from "../domain/analysis-settings";
+import { formatBand } from "../format/quantity";
+import type { ParsedMeasurement } from "../ingest/types";
+import type { DeriveOptions } from "./types";
+
+/** Band used when no source states one and there is no device class (the CLI without --class). */
+export const ENGINE_INTEGRATION_BAND_HZ: IntegrationBandHz = { startHz: 10, stopHz: 1e6 };
+
+export interface ResolvedSetting<T> {
+  value: T;
+  source: SettingSource;
+}
+
+export interface ResolvedAnalysisSettings {
+  integrationBand: ResolvedSetting<IntegrationBandHz>;
+  compressionReferenceDbm?: ResolvedSetting<number>;
+}
+
+/** A setting the data cannot honour (a band outside the trace, a reference drive outside the sweep): a 422 in the app, exit 2 in the CLI. */
+export class AnalysisSettingError extends Error {
+  readonly field: "integrationBand" | "compressionReferenceDbm";
+  constructor(field: AnalysisSettingError["field"], message: string) {
+    super(message);
+    this.name = "AnalysisSettingError";
+    this.field = field;
+  }
+}
+
+export function isAnalysisSettingError(error: unknown): error is AnalysisSettingError {
+  return error instanceof AnalysisSettingError;
+}
+
+export type SettingLayers = Partial<Record<Exclude<SettingSource, "engine">, StatedAnalysisSettings | undefined>>;
+
+/**
+ * Each setting from the first source that states it, in the order of `settingSources`: the file's
+ * own `# key: value` lines, then the upload form or bench API, then the command line, then the
+ * device class's template; the engine's default last. `conflicts` names a lower source that
+ * stated something else, so the caller can say the file's value was kept.
+ */
+export function resolveAnalysisSettings(layers: SettingLayers): { settings: ResolvedAnalysisSettings; conflicts: string[] } {
+  const conflicts: string[] = [];
+  const pick = <K extends keyof StatedAnalysisSettings>(key: K, describe: (v: NonNullable<StatedAnalysisSettings[K]>) => string) => {
+    let chosen: ResolvedSetting<NonNullable<StatedAnalysisSettings[K]>> | undefined;
+    for (const source of settingSources) {
+      if (source === "engine") continue;
+      const value = layers[source]?.[key];
+      if (value === undefined) continue;
+      if (!chosen) chosen = { value, source };
+      else if (source !== "template" && describe(value) !== describe(chosen.value)) {
+        conflicts.push(
+          `${key === "integrationBandHz" ? "Integration band" : "Compression reference drive"}: ${settingSourceWords[chosen.source]} says ${describe(chosen.value)}, ${settingSourceWords[source]} said ${describe(value)}; ${settingSourceWords[chosen.source]}'s is used`,
+        );
+      }
+    }
+    return chosen;
+  };
+  const band = pick("integrationBandHz", describeBand);
+  const reference = pick("compressionReferenceDbm", describeDbm);
+  return {
+    settings: {
+      integrationBand: band ?? { value: ENGINE_INTEGRATION_BAND_HZ, source: "engine" },
+      ...(reference ? { compressionReferenceDbm: reference } : {}),
+    },
+    conflicts,
+  };
+}
+
+/** "12 kHz–20 MHz", the band as every page prints it. */
+export function describeBand(band: IntegrationBandHz, options: { plain?: boolean } = {}): string {
+  return formatBand(band.startHz, band.stopHz, "Hz", { plain: options.plain, digits: { maxSignificant: 6 } });
+}
+
+function describeDbm(valueDbm: number): string {
+  return `${valueDbm > 0 ? "+" : ""}${valueDbm} dBm`;
+}
+
+/** What a parsed file states about its own analysis (its `# key: value` lines). */
+export function fileAnalysisSettings(parsed: ParsedMeasurement): StatedAnalysisSettings {
+  switch (parsed.kind) {
+    case "phase-noise":
+      return parsed.data.integrationBandHz ? { integrationBandHz: parsed.data.integrationBandHz } : {};
+    case "drive-sweep":
+    case "two-tone":
+      return parsed.data.compressionReferenceDbm !== undefined ? { compressionReferenceDbm: parsed.data.compressionReferenceDbm } : {};
+    default:
+      return {};
+  }
+}
+
+/** The engine's options for resolved settings, merged over any other options. */
+export function deriveOptionsFor(settings: ResolvedAnalysisSettings, options: DeriveOptions = {}): DeriveOptions {
+  return {
+    ...options,
+    phaseNoise: { ...options.phaseNoise, integrationBand: settings.integrationBand },
+    compression: { ...options.compression, ...(settings.compressionReferenceDbm ? { referenceInputPowerDbm: settings.compressionReferenceDbm } : {}) },
+  };
+}

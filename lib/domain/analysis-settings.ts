@@ -1,0 +1,47 @@
+/**
+ * The measurement settings an engineer chooses per measurement (the phase-noise integration band,
+ * the small-signal reference of compression), where each can be stated, and the named bands the
+ * upload form offers. Pure, so the form, the schemas, the engine and the CLI share it.
+ */
+
+/** Where a setting came from, highest precedence first; "engine" is the built-in fallback without a device class. */
+export const settingSources = ["file", "upload", "cli", "template", "engine"] as const;
+export type SettingSource = (typeof settingSources)[number];
+
+/** Printed after a figure's band or reference: "set by the file". */
+export const settingSourceWords: Record<SettingSource, string> = {
+  file: "the file",
+  upload: "the upload",
+  cli: "the command line",
+  template: "the device class default",
+  engine: "Benchfold's default",
+};
+
+/**
+ * Integration bands in common use for rms phase and jitter (common practice: 12 kHz–20 MHz is the
+ * band of SONET/SDH and most clock datasheets, 10 Hz–1 MHz a close-in band for synthesizers).
+ */
+export const namedIntegrationBands = [
+  { id: "12k-20m", label: "12 kHz – 20 MHz", startHz: 12e3, stopHz: 20e6 },
+  { id: "10-1m", label: "10 Hz – 1 MHz", startHz: 10, stopHz: 1e6 },
+  { id: "100-1m", label: "100 Hz – 1 MHz", startHz: 100, stopHz: 1e6 },
+  { id: "1k-10m", label: "1 kHz – 10 MHz", startHz: 1e3, stopHz: 10e6 },
+] as const;
+export type NamedIntegrationBand = (typeof namedIntegrationBands)[number]["id"];
+export const namedIntegrationBandIds = namedIntegrationBands.map((b) => b.id) as [NamedIntegrationBand, ...NamedIntegrationBand[]];
+
+export interface IntegrationBandHz {
+  startHz: number;
+  stopHz: number;
+}
+
+/** What one source states; every field optional. */
+export interface StatedAnalysisSettings {
+  integrationBandHz?: IntegrationBandHz;
+  /** The small-signal reference drive for compression, dBm, on the axis the input P1dB is reported on. */
+  compressionReferenceDbm?: number;
+}
+
+export function findNamedIntegrationBand(id: string): (typeof namedIntegrationBands)[number] | undefined {
+  return namedIntegrationBands.find((b) => b.id === id);
+}

@@ -1,0 +1,154 @@
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { closeDb } from "@/models";
+import { TestClient } from "./helpers/client";
+import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
+import { fixtureUpload, fixturesDir, uploadRowCounts } from "./helpers/uploads";
+
+/**
+ * The measurement settings of an upload (issue 12): the phase-noise integration band from the file's
+ * lines, the bench API's or form's fields, or the device class's default, in that order; a band
+ * outside the trace refused with the band and the trace's span; the per-point tables in the answer.
+ */
+type Parameter = { name: string; value: number | null; conditions: Record<string, string | number> };
+type Posted = { measurementSet: { id: number; parameters: Parameter[]; warnings: string[] }; tables: { id: string; columns: { label: string; unit: string }[]; rows: (number | null)[][] }[] };
+type Refused = { error: { message: string; details: { field?: string } } };
+
+let token: string;
+let partNumber: string;
+let deviceId: number;
+const engineer = new TestClient();
+const bench = new TestClient();
+let serial = 0;
+
+/** The example trace (1 Hz – 10 MHz) under a fresh serial, so each upload is new bytes; extra `# key: value` lines after the temperature. */
+function phaseNoiseFile(extraLines: string[] = []): Uint8Array<ArrayBuffer> {
+  const text = readFileSync(path.join(fixturesDir, "examples/phase-noise-doubler.csv"), "utf8")
+    .replace("# serial: BFD-0001", `# serial: SET-${Date.now()}-${serial++}`)
+    .replace("# temperature: 25 C", ["# temperature: 25 C", ...extraLines].join("\n"));
+  return new Uint8Array(Buffer.from(text, "utf8"));
+}
+
+function benchUpload(fields: Record<string, string>, bytes = phaseNoiseFile(), name = "examples/phase-noise-doubler.csv") {
+  return bench.request("/api/v1/measurements", {
+    multipart: fixtureUpload(name, { device: partNumber, ...fields }, bytes),
+    headers: { authorization: `Bearer ${token}` },
+    origin: null,
+  });
+}
+
+const jitterOf = (body: Posted) => body.measurementSet.parameters.find((p) => p.name === "rms-jitter")!;
+const noBreak = (text: string) => text.replaceAll("\u00a0", " ");
+
+beforeAll(async () => {
+  const org = await makeOrganization();
+  const device = await makeDevice(org.organization.id);
+  partNumber = device.partNumber;
+  deviceId = device.id;
+  const admin = new TestClient();
+  expect((await admin.signIn(org.users.admin.email, factoryPassword)).ok).toBe(true);
+  expect((await engineer.signIn(org.users.engineer.email, factoryPassword)).ok).toBe(true);
+  const created = await admin.request("/api/admin/bench-tokens", { json: { name: "Settings bench" } });
+  token = ((await created.json()) as { token: string }).token;
+});
+afterAll(() => closeDb());
+
+describe("integration band precedence through the bench API", () => {
+  it("without a stated band the device class's default applies (frequency multiplier: 10 Hz – 1 MHz)", async () => {
+    const r = await benchUpload({});
+    const body = (await r.json()) as Posted;
+    expect(r.status, JSON.stringify(body)).toBe(201);
+    expect(jitterOf(body).conditions).toMatchObject({ startHz: 10, stopHz: 1e6, bandSource: "template" });
+    // The same figure the CLI prints for this trace over 10 Hz – 1 MHz (tests/unit/cli/__snapshots__).
+    expect(jitterOf(body).value).toBeCloseTo(1.361, 3);
+  });
+
+  it("the bench API's ends win over the class default", async () => {
+    const r = await benchUpload({ integrationStartHz: "1000", integrationStopHz: "100000" });
+    const body = (await r.json()) as Posted;
+    expect(r.status, JSON.stringify(body)).toBe(201);
+    expect(jitterOf(body).conditions).toMatchObject({ startHz: 1e3, stopHz: 1e5, bandSource: "upload" });
+    const rmsPhase = body.measurementSet.parameters.find((p) => p.name === "rms-phase-error")!;
+    expect(rmsPhase.conditions).toMatchObject({ startHz: 1e3, stopHz: 1e5, bandSource: "upload" });
+  });
+
+  it("a named band from the form's list", async () => {
+    const r = await benchUpload({ integrationBand: "100-1m" });
+    const body = (await r.json()) as Posted;
+    expect(r.status, JSON.stringify(body)).toBe(201);
+    expect(jitterOf(body).conditions).toMatchObject({ startHz: 100, stopHz: 1e6, bandSource: "upload" });
+  });
+
+  it("the file's own lines win over the API, and the set's warnings say which was used", async () => {
+    const r = await benchUpload({ integrationBand: "100-1m" }, phaseNoiseFile(["# integration_start: 1 kHz", "# integration_stop: 100 kHz"]));
+    const body = (await r.json()) as Posted;
+    expect(r.status, JSON.stringify(body)).toBe(201);
+    expect(jitterOf(body).conditions).toMatchObject({ startHz: 1e3, stopHz: 1e5, bandSource: "file" });
+    expect(body.measurementSet.warnings.map(noBreak)).toContain("Integration band: the file says 1 kHz – 100 kHz, the upload said 100 Hz – 1 MHz; the file's is used");
+  });
+
+  it("the browser upload takes the same fields", async () => {
+    const r = await engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload("examples/phase-noise-doubler.csv", { integrationBand: "10-1m" }, phaseNoiseFile()) });
+    const body = (await r.json()) as Posted;
+    expect(r.status, JSON.stringify(body)).toBe(201);
+    expect(jitterOf(body).conditions).toMatchObject({ startHz: 10, stopHz: 1e6, bandSource: "upload" });
+  });
+});
+
+describe("a band the data cannot honour is refused, nothing stored", () => {
+  it.each([
+    [{ integrationBand: "12k-20m" }, [], "integrationBand", "The integration band 12 kHz – 20 MHz (set by the upload) reaches outside the trace, which spans 1 Hz – 10 MHz"],
+    [{}, ["# integration_start: 0.1 Hz", "# integration_stop: 1 kHz"], "integrationBand", "The integration band 0.1 Hz – 1 kHz (set by the file) reaches outside the trace, which spans 1 Hz – 10 MHz"],
+    [{ integrationStartHz: "1000" }, [], "integrationStopHz", "State both ends of the integration band"],
+    [{ integrationStartHz: "1e5", integrationStopHz: "1e3" }, [], "integrationStopHz", "stop offset must lie above its start"],
+    [{ integrationBand: "1-2" }, [], "integrationBand", "Choose one of the named bands"],
+  ])("%j %j → 422", async (fields, lines, field, message) => {
+    const before = await uploadRowCounts();
+    const r = await benchUpload(fields as Record<string, string>, phaseNoiseFile(lines));
+    const body = (await r.json()) as Refused;
+    expect(r.status, JSON.stringify(body)).toBe(422);
+    expect(noBreak(JSON.stringify(body))).toContain(message);
+    expect(JSON.stringify(body)).toContain(field);
+    expect(await uploadRowCounts()).toEqual(before);
+  });
+});
+
+describe("compression reference and per-point values through the bench API", () => {
+  it("a stated reference drive is used and named; one outside the sweep is refused", async () => {
+    const twoTone = new Uint8Array(readFileSync(path.join(fixturesDir, "examples/two-tone-mixer.tsv")));
+    const r = await benchUpload({ compressionReferenceDbm: "-16" }, twoTone, "examples/two-tone-mixer.tsv");
+    const body = (await r.json()) as Posted;
+    expect(r.status, JSON.stringify(body)).toBe(201);
+    const p1db = body.measurementSet.parameters.find((p) => p.name === "input-p1db")!;
+    expect(p1db.conditions).toMatchObject({ referenceDbm: -16, referenceSource: "upload" });
+    expect(body.tables[0].columns.map((c) => c.unit)).toEqual(["dBm", "Vrms", "dBµV", "dBm", "Vrms", "dBµV"]);
+    // 0 dBm into 50 Ω is 0.2236 Vrms and 107.0 dBµV; each row's cells agree with that ratio.
+    const [, toneDbm, toneVrms, toneDbuv] = body.tables[0].rows[0] as number[];
+    expect(toneVrms).toBeCloseTo(0.22360679775 * 10 ** (toneDbm / 20), 12);
+    expect(toneDbuv).toBeCloseTo(toneDbm + 106.9897, 4);
+
+    const bytes = new Uint8Array(Buffer.from(readFileSync(path.join(fixturesDir, "examples/two-tone-mixer.tsv"), "utf8").replace(/^(# serial: .*)$/m, "$1-B"), "utf8"));
+    const refused = await benchUpload({ compressionReferenceDbm: "-40" }, bytes, "examples/two-tone-mixer.tsv");
+    expect(refused.status).toBe(422);
+    expect(noBreak(JSON.stringify(await refused.json()))).toContain("The reference drive −40 dBm lies outside the sweep");
+  });
+
+  it("a Touchstone upload answers every frequency's S-parameters, phase and mismatch loss", async () => {
+    const r = await benchUpload({ serial: `S2P-${Date.now()}` }, new Uint8Array(readFileSync(path.join(fixturesDir, "examples/attenuator-2port.s2p"))), "examples/attenuator-2port.s2p");
+    const body = (await r.json()) as Posted;
+    expect(r.status, JSON.stringify(body)).toBe(201);
+    const table = body.tables[0];
+    expect(table.id).toBe("s-parameters-per-frequency");
+    expect(table.columns.slice(0, 2)).toEqual([{ label: "S11", unit: "dB" }, { label: "S11", unit: "deg" }]);
+    expect(table.columns.at(-1)).toEqual({ label: "mismatch loss port 2", unit: "dB" });
+    expect(table.rows.length).toBeGreaterThan(2);
+    expect(body.measurementSet.parameters.some((p) => p.name === "mismatch-loss" && p.conditions.statistic === "worst")).toBe(true);
+
+    const page = await engineer.request(`/devices/${deviceId}/measurements/${body.measurementSet.id}`);
+    const html = await page.text();
+    expect(page.status).toBe(200);
+    expect(html).toContain("Values at each point");
+    expect(html).toContain("mismatch loss port 1");
+  });
+});
