@@ -17,6 +17,11 @@ export function addCompressionPoint(input: {
   options: DeriveOptions;
   parameters: DerivedParameter[];
   warnings: string[];
+  /**
+   * False where a linear start cannot be asked of the sweep: a multiplier's conversion gain rises with
+   * drive below its optimum (square law for a doubler), so it has no linear region to start in.
+   */
+  linearStartExpected?: boolean;
 }): CompressionPoint | undefined {
   const { base, options, parameters, warnings } = input;
   const stated = options.compression?.referenceInputPowerDbm;
@@ -34,7 +39,7 @@ export function addCompressionPoint(input: {
     return undefined;
   }
   const conditions = { ...base, ...compressionConditions(compression, stated?.source) };
-  if (compression.nonLinearStart) warnings.push(compression.nonLinearStart);
+  if (compression.nonLinearStart && input.linearStartExpected !== false) warnings.push(compression.nonLinearStart);
   if (compression.reached) {
     parameters.push(makeParameter("input-p1db", compression.inputCompressionPointDbm, conditions));
     parameters.push(makeParameter("output-p1db", compression.outputCompressionPointDbm, conditions));

@@ -24,6 +24,9 @@ export const betterDirections: Record<ParameterName, BetterDirection | null> = {
   "fundamental-slope": null,
   "im3-slope": null,
   "delta-im": "higher",
+  // A predicted product at the stated tone levels: the lower, the more linear (as for a spur).
+  "im3-predicted": "lower",
+  "mismatch-loss": "lower",
   // dBc/Hz: the more negative, the quieter.
   "spot-phase-noise": "lower",
   "integrated-phase-noise": "lower",

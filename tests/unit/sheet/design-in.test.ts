@@ -168,7 +168,7 @@ describe("design-in on the demo sheets", () => {
     const layers = charts[0].vegaLite.layer as { data?: { values: { x: number; y: number; label?: string }[] }; mark: { type: string } }[];
     const marker = layers.find((l) => l.mark.type === "point" && l.data)!;
     expect(marker.data!.values).toEqual([expect.objectContaining({ x: 10, y: Number(answer.readings[0].typical.toPrecision(6)), label: "your design" })]);
-    expect(charts[0].description).toMatch(/Conversion loss 9\.52\u00a0dB at \+10\u00a0dBm, marked by an open circle/);
+    expect(charts[0].description).toMatch(/Conversion loss 9\.53\u00a0dB at \+10\u00a0dBm, marked by an open circle/);
   });
 });
 
