@@ -4,6 +4,7 @@ import { authenticateBenchToken } from "@/lib/server/bench-tokens/authenticate-b
 import { findDeviceByPartNumber } from "@/lib/server/devices/find-device-by-part-number";
 import { ingestMeasurement } from "@/lib/server/measurements/ingest-measurement";
 import { readUploadForm } from "@/lib/server/measurements/read-upload-form";
+import type { BenchUploadResponse } from "@/lib/schemas/api-v1";
 
 /**
  * Bench upload: `Authorization: Bearer <bench token>`, multipart with `file`, `device`
@@ -17,5 +18,5 @@ export const POST = tokenRoute(async (request) => {
   if (!part) throw new AppError("invalid", "Name the device by its part number in a field named \"device\".", { field: "device" });
   const device = await findDeviceByPartNumber({ organizationId, partNumber: part });
   const set = await ingestMeasurement({ organizationId, deviceId: device.id, file, fields, actor: { kind: "bench-token", tokenId } });
-  return Response.json({ measurementSet: set }, { status: 201 });
+  return Response.json({ measurementSet: set } satisfies BenchUploadResponse, { status: 201 });
 });
