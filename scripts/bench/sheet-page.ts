@@ -9,6 +9,7 @@
  *   - Largest Contentful Paint: the last `largest-contentful-paint` entry a PerformanceObserver
  *     (registered before the page's own scripts) saw, median of BENCH_PAGE_LOADS (5) loads.
  *
+ * With the time to first byte and first contentful paint (what part of the LCP is the server's).
  * Beside the released sheet (BENCH_SHEET_PATH, default the demo doubler's current revision), the home
  * page as the reference measured in the same run. Targets (figures, not assertions): under 120 kB
  * gzip and under 1 s. Skipped with a note when nothing answers or the sheet is not there.
@@ -20,7 +21,7 @@ const baseUrl = process.env.BENCHFOLD_BENCH_URL ?? `http://localhost:${process.e
 const sheetPath = process.env.BENCH_SHEET_PATH ?? "/datasheets/kestrine/KDX-2G4/current";
 const loads = Number(process.env.BENCH_PAGE_LOADS ?? 5);
 
-type PageLoad = { scripts: { url: string; bytes: number; gzip: number }[]; inlineGzip: number; lcpMs: number | null; lcpElement: string | null; status: number };
+type PageLoad = { scripts: { url: string; bytes: number; gzip: number }[]; inlineGzip: number; htmlGzip: number; lcpMs: number | null; lcpElement: string | null; ttfbMs: number; fcpMs: number | null; status: number };
 
 const kb = (bytes: number) => (bytes / 1024).toFixed(1);
 
@@ -50,10 +51,23 @@ async function loadOnce(browser: Browser, path: string): Promise<PageLoad> {
   // LCP is final once the page is interacted with or hidden; a short settle lets the last candidate land.
   await page.waitForTimeout(500);
   const lcp = await page.evaluate(() => (window as unknown as { __lcp: { t: number; el: string } | null }).__lcp);
+  const timing = await page.evaluate(() => ({
+    ttfb: (performance.getEntriesByType("navigation")[0] as PerformanceNavigationTiming).responseStart,
+    fcp: performance.getEntriesByName("first-contentful-paint")[0]?.startTime ?? null,
+  }));
   const inline = [...html.matchAll(/<script(?![^>]*\bsrc=)[^>]*>([\s\S]*?)<\/script>/g)].map((m) => m[1]).join("");
   const scripts = (await Promise.all(pending)).filter((s): s is { url: string; bytes: number; gzip: number } => s !== null);
   await context.close();
-  return { scripts, inlineGzip: gzipSync(Buffer.from(inline), { level: 9 }).length, lcpMs: lcp?.t ?? null, lcpElement: lcp?.el ?? null, status: response?.status() ?? 0 };
+  return {
+    scripts,
+    inlineGzip: gzipSync(Buffer.from(inline), { level: 9 }).length,
+    htmlGzip: gzipSync(Buffer.from(html), { level: 9 }).length,
+    lcpMs: lcp?.t ?? null,
+    lcpElement: lcp?.el ?? null,
+    ttfbMs: timing.ttfb,
+    fcpMs: timing.fcp,
+    status: response?.status() ?? 0,
+  };
 }
 
 async function measure(browser: Browser, name: string, path: string): Promise<void> {
@@ -68,9 +82,13 @@ async function measure(browser: Browser, name: string, path: string): Promise<vo
   const raw = first.scripts.reduce((sum, s) => sum + s.bytes, 0);
   const lcps = runs.map((r) => r.lcpMs).filter((t): t is number => t !== null).sort((a, b) => a - b);
   const median = lcps.length ? lcps[Math.floor(lcps.length / 2)] : null;
+  const mid = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+  const ttfb = mid(runs.map((r) => r.ttfbMs));
+  const fcp = mid(runs.map((r) => r.fcpMs ?? Number.NaN).filter((t) => !Number.isNaN(t)));
   console.log(
     `${name.padEnd(28)} JS ${kb(gzip).padStart(6)} kB gzip (${kb(raw)} kB, ${first.scripts.length} scripts; inline RSC payload ${kb(first.inlineGzip)} kB gzip)   ` +
-      `LCP median ${median === null ? "n/a" : `${median.toFixed(0)} ms`} of ${lcps.length} (${lcps.map((t) => t.toFixed(0)).join(", ")}), element ${first.lcpElement ?? "n/a"}`,
+      `LCP median ${median === null ? "n/a" : `${median.toFixed(0)} ms`} of ${lcps.length} (${lcps.map((t) => t.toFixed(0)).join(", ")}), element ${first.lcpElement ?? "n/a"}; ` +
+      `median time to first byte ${ttfb.toFixed(0)} ms, first contentful paint ${fcp === undefined ? "n/a" : `${fcp.toFixed(0)} ms`}; HTML ${kb(first.htmlGzip)} kB gzip`,
   );
   if (process.env.BENCH_PAGE_LIST_SCRIPTS) {
     for (const s of [...first.scripts].sort((a, b) => b.gzip - a.gzip)) console.log(`    ${kb(s.gzip).padStart(6)} kB  ${new URL(s.url).pathname}`);
