@@ -79,6 +79,18 @@ describe("the server's answers fit the document", () => {
     await expectDocumented("/api/v1/sheets", "get", await as("customer").request(`/api/v1/sheets?org=${org.organization.slug}&sort=released&dir=desc`));
   });
 
+  it("GET /api/v1/sheets: gzip when asked for, the same document as without", async () => {
+    const path = `/api/v1/sheets?q=${encodeURIComponent(partNumber)}&rev=all`;
+    const zipped = await anyone.request(path, { headers: { "accept-encoding": "gzip" } });
+    const plain = await anyone.request(path, { headers: { "accept-encoding": "identity" } });
+    expect(zipped.headers.get("content-encoding")).toBe("gzip");
+    expect(plain.headers.get("content-encoding")).toBeNull();
+    expect(zipped.headers.get("vary")).toMatch(/accept-encoding/i);
+    // fetch (undici) undoes the gzip itself: both must read as the same documented answer.
+    const body = await expectDocumented("/api/v1/sheets", "get", zipped);
+    expect(await expectDocumented("/api/v1/sheets", "get", plain)).toEqual(body);
+  });
+
   it("GET /api/v1/sheets: refusals (422) name the field", async () => {
     for (const qs of ["class=toaster", "f=conversion-loss<=ten dB", `q=${"x".repeat(201)}`, "page=0", "covers=2.4 parsecs"]) {
       const r = await anyone.request(`/api/v1/sheets?${qs}`);
