@@ -31,31 +31,39 @@ const cache = new Map<string, { version: string; at: number; result: CatalogResu
  * by any process, changes the version and the next search runs again.
  */
 export async function searchCatalog(query: CatalogQuery): Promise<CatalogResult> {
-  const version = await catalogVersion();
   const key = JSON.stringify(query);
   const kept = cache.get(key);
-  if (kept && kept.version === version && Date.now() - kept.at < CACHE_MS) {
+  if (kept && Date.now() - kept.at < CACHE_MS && kept.version === (await catalogVersion())) {
     cache.delete(key);
     cache.set(key, kept);
     return kept.result;
   }
-  const result = await runSearch(query);
+  const { result, version } = await runSearch(query);
   cache.delete(key);
-  cache.set(key, { version, at: Date.now(), result });
-  if (cache.size > CACHE_ENTRIES) cache.delete(cache.keys().next().value as string);
+  if (version !== null) {
+    cache.set(key, { version, at: Date.now(), result });
+    if (cache.size > CACHE_ENTRIES) cache.delete(cache.keys().next().value as string);
+  }
   return result;
 }
 
+// The catalog's version, read inside a statement: the search's own statements carry it as columns, so
+// an answer is kept under exactly the version its rows were read at (one statement, one read view).
+const versionColumns = "(SELECT MAX(revision_id) FROM released_sheets) AS catalog_revision, (SELECT MAX(id) FROM sheet_revision_withdrawals) AS catalog_withdrawal";
+type VersionColumns = { catalog_revision: number | null; catalog_withdrawal: number | null };
+const versionOf = (row: VersionColumns | undefined) => (row ? `${row.catalog_revision ?? 0}:${row.catalog_withdrawal ?? 0}` : null);
+
 async function catalogVersion(): Promise<string> {
-  const [row] = await db().sequelize.query<{ r: number | null; w: number | null }>(
-    "SELECT (SELECT MAX(revision_id) FROM released_sheets) AS r, (SELECT MAX(id) FROM sheet_revision_withdrawals) AS w",
-    { type: QueryTypes.SELECT },
-  );
-  return `${row?.r ?? 0}:${row?.w ?? 0}`;
+  const [row] = await db().sequelize.query<VersionColumns>(`SELECT ${versionColumns}`, { type: QueryTypes.SELECT });
+  return versionOf(row)!;
 }
 
-/** The search itself: the page, the facets (the total is read from them) and the page's key figures. */
-async function runSearch(query: CatalogQuery): Promise<CatalogResult> {
+/**
+ * The search itself: the page, the facets (the total is read from them) and the page's key figures,
+ * with the catalog version the page and the facets were read at; null (keep nothing) when they differ
+ * or either read no row, so a search never runs a separate version query.
+ */
+async function runSearch(query: CatalogQuery): Promise<{ result: CatalogResult; version: string | null }> {
   const { sequelize } = db();
   const from = "FROM released_sheets s JOIN organizations o ON o.id = s.organization_id";
   const all = whereOf(query);
@@ -68,7 +76,7 @@ async function runSearch(query: CatalogQuery): Promise<CatalogResult> {
     sequelize.query<HitRow>(
       `SELECT s.revision_id, s.part_number, s.title, s.device_class, s.letter, s.released_at,
               s.input_min_hz, s.input_max_hz, s.output_min_hz, s.output_max_hz, s.drive_dbm,
-              o.slug AS organization_slug, o.name AS organization_name, ${sort.select} AS sort_value
+              o.slug AS organization_slug, o.name AS organization_name, ${sort.select} AS sort_value, ${versionColumns}
          ${from} ${where(all)}
         ORDER BY (sort_value IS NULL), sort_value ${query.dir === "desc" ? "DESC" : "ASC"}, s.part_number ${query.dir === "desc" && query.sort === "part" ? "DESC" : "ASC"}, s.revision_id
         LIMIT ? OFFSET ?`,
@@ -76,8 +84,8 @@ async function runSearch(query: CatalogQuery): Promise<CatalogResult> {
     ),
     // Both facets from one query: counted per class and organization without either filter, then
     // each facet keeps the other's filter (a class's count within the chosen organization, and back).
-    sequelize.query<{ device_class: string; slug: string; name: string; count: number }>(
-      `SELECT s.device_class, o.slug, MAX(o.name) AS name, COUNT(*) AS count ${from} ${where(facetsWhere)} GROUP BY s.device_class, o.slug`,
+    sequelize.query<{ device_class: string; slug: string; name: string; count: number } & VersionColumns>(
+      `SELECT s.device_class, o.slug, MAX(o.name) AS name, COUNT(*) AS count, ${versionColumns} ${from} ${where(facetsWhere)} GROUP BY s.device_class, o.slug`,
       { type: QueryTypes.SELECT, replacements: facetsWhere.replacements },
     ),
   ]);
@@ -87,7 +95,8 @@ async function runSearch(query: CatalogQuery): Promise<CatalogResult> {
   const figures = await keyFigures(rows);
   // The class facet is the query without its class filter: the total is its chosen class's count, or all of it.
   const total = classCounts.filter((c) => !query.deviceClass || c.value === query.deviceClass).reduce((sum, c) => sum + Number(c.count), 0);
-  return {
+  const pageVersion = versionOf(rows[0]);
+  const result: CatalogResult = {
     total,
     page: query.page,
     pageSize: query.pageSize,
@@ -99,6 +108,7 @@ async function runSearch(query: CatalogQuery): Promise<CatalogResult> {
       organization: orgCounts.map((c) => ({ value: c.value, label: c.label || c.value, count: c.count })),
     },
   };
+  return { result, version: pageVersion !== null && pageVersion === versionOf(counts[0]) ? pageVersion : null };
 }
 
 /** Counts summed per key, ordered by key (as the facets list them). */
@@ -178,7 +188,7 @@ function sortExpression(query: CatalogQuery): { select: string; replacements: un
   };
 }
 
-type HitRow = {
+type HitRow = VersionColumns & {
   revision_id: number;
   part_number: string;
   title: string;
