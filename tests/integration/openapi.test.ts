@@ -86,7 +86,8 @@ describe("the server's answers fit the document", () => {
     expect(zipped.headers.get("content-encoding")).toBe("gzip");
     expect(plain.headers.get("content-encoding")).toBeNull();
     expect(zipped.headers.get("vary")).toMatch(/accept-encoding/i);
-    // fetch (undici) undoes the gzip itself: both must read as the same documented answer.
+    // fetch (undici) undoes one gzip itself: both must read as the same documented answer (a body
+    // compressed twice would not parse).
     const body = await expectDocumented("/api/v1/sheets", "get", zipped);
     expect(await expectDocumented("/api/v1/sheets", "get", plain)).toEqual(body);
   });
