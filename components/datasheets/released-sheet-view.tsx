@@ -4,7 +4,8 @@ import type { RevisionSummary } from "@/lib/domain/reviews";
 import { formatDate } from "@/lib/format";
 import { buttonClass } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
-import { RevisionHistory } from "@/components/review/revision-history";
+// The table alone: the public page offers no withdrawal, so it ships none of that form's code.
+import { RevisionHistoryTable } from "@/components/review/revision-history-table";
 import { RevisionStandingBadge } from "@/components/review/review-state";
 
 type ReleasedSheetViewProps = {
@@ -91,7 +92,7 @@ export function ReleasedSheetView({ summary, history, organizationName, partNumb
       </div>
 
       <div className="mt-12 print:hidden">
-        <RevisionHistory revisions={history} shownLetter={summary.letter} emptyText="No revision has been released." />
+        <RevisionHistoryTable revisions={history} shownLetter={summary.letter} emptyText="No revision has been released." />
       </div>
     </div>
   );

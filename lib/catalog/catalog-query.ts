@@ -22,6 +22,8 @@ export const catalogMaxPageSize = 100;
 const MAX_TEXT = 200;
 const MAX_CONDITIONS = 8;
 const MAX_PAGE = 10_000;
+/** What the parser accepts at most: characters of a text field, conditions, page number (the API's description cites them). */
+export const catalogQueryLimits = { textCharacters: MAX_TEXT, conditions: MAX_CONDITIONS, page: MAX_PAGE } as const;
 
 export type SpecField = "min" | "typ" | "max";
 export const specFields: readonly SpecField[] = ["min", "typ", "max"];

@@ -46,7 +46,7 @@ function decimal(options: DecimalOptions, required: boolean) {
       return z.NEVER;
     }
     return x;
-  });
+  }).meta({ description: `${label}: a decimal number${min !== undefined && max !== undefined ? ` from ${min} to ${max}` : ""}${integer ? ", whole" : ""}` });
 }
 
 /** A number that may be left out or blank (undefined then). */

@@ -31,63 +31,72 @@ const cache = new Map<string, { version: string; at: number; result: CatalogResu
  * by any process, changes the version and the next search runs again.
  */
 export async function searchCatalog(query: CatalogQuery): Promise<CatalogResult> {
-  const version = await catalogVersion();
   const key = JSON.stringify(query);
   const kept = cache.get(key);
-  if (kept && kept.version === version && Date.now() - kept.at < CACHE_MS) {
+  if (kept && Date.now() - kept.at < CACHE_MS && kept.version === (await catalogVersion())) {
     cache.delete(key);
     cache.set(key, kept);
     return kept.result;
   }
-  const result = await runSearch(query);
+  const { result, version } = await runSearch(query);
   cache.delete(key);
-  cache.set(key, { version, at: Date.now(), result });
-  if (cache.size > CACHE_ENTRIES) cache.delete(cache.keys().next().value as string);
+  if (version !== null) {
+    cache.set(key, { version, at: Date.now(), result });
+    if (cache.size > CACHE_ENTRIES) cache.delete(cache.keys().next().value as string);
+  }
   return result;
 }
 
+// The catalog's version, read inside a statement: the search's own statements carry it as columns, so
+// an answer is kept under exactly the version its rows were read at (one statement, one read view).
+const versionColumns = "(SELECT MAX(revision_id) FROM released_sheets) AS catalog_revision, (SELECT MAX(id) FROM sheet_revision_withdrawals) AS catalog_withdrawal";
+type VersionColumns = { catalog_revision: number | null; catalog_withdrawal: number | null };
+const versionOf = (row: VersionColumns | undefined) => (row ? `${row.catalog_revision ?? 0}:${row.catalog_withdrawal ?? 0}` : null);
+
 async function catalogVersion(): Promise<string> {
-  const [row] = await db().sequelize.query<{ r: number | null; w: number | null }>(
-    "SELECT (SELECT MAX(revision_id) FROM released_sheets) AS r, (SELECT MAX(id) FROM sheet_revision_withdrawals) AS w",
-    { type: QueryTypes.SELECT },
-  );
-  return `${row?.r ?? 0}:${row?.w ?? 0}`;
+  const [row] = await db().sequelize.query<VersionColumns>(`SELECT ${versionColumns}`, { type: QueryTypes.SELECT });
+  return versionOf(row)!;
 }
 
-/** The search itself: the page, the facets (the total is read from them) and the page's key figures. */
-async function runSearch(query: CatalogQuery): Promise<CatalogResult> {
+/**
+ * The search itself: the page, the facets (the total is read from them) and the page's key figures,
+ * with the catalog version the page and the facets were read at; null (keep nothing) when they differ
+ * or either read no row, so a search never runs a separate version query.
+ */
+async function runSearch(query: CatalogQuery): Promise<{ result: CatalogResult; version: string | null }> {
   const { sequelize } = db();
   const from = "FROM released_sheets s JOIN organizations o ON o.id = s.organization_id";
   const all = whereOf(query);
+  const facetsWhere = whereOf(query, ["deviceClass", "organization"]);
   const where = (w: Where) => (w.sql.length ? `WHERE ${w.sql.join(" AND ")}` : "");
 
   const sort = sortExpression(query);
   const offset = (query.page - 1) * query.pageSize;
-  const [rows, classCounts, orgCounts] = await Promise.all([
+  const [rows, counts] = await Promise.all([
     sequelize.query<HitRow>(
       `SELECT s.revision_id, s.part_number, s.title, s.device_class, s.letter, s.released_at,
               s.input_min_hz, s.input_max_hz, s.output_min_hz, s.output_max_hz, s.drive_dbm,
-              o.slug AS organization_slug, o.name AS organization_name, ${sort.select} AS sort_value
+              o.slug AS organization_slug, o.name AS organization_name, ${sort.select} AS sort_value, ${versionColumns}
          ${from} ${where(all)}
         ORDER BY (sort_value IS NULL), sort_value ${query.dir === "desc" ? "DESC" : "ASC"}, s.part_number ${query.dir === "desc" && query.sort === "part" ? "DESC" : "ASC"}, s.revision_id
         LIMIT ? OFFSET ?`,
       { type: QueryTypes.SELECT, replacements: [...sort.replacements, ...all.replacements, query.pageSize, offset] },
     ),
-    facetCounts("s.device_class", whereOf(query, "deviceClass")),
-    facetCounts("o.slug", whereOf(query, "organization"), ", MAX(o.name) AS label"),
+    // Both facets from one query: counted per class and organization without either filter, then
+    // each facet keeps the other's filter (a class's count within the chosen organization, and back).
+    sequelize.query<{ device_class: string; slug: string; name: string; count: number } & VersionColumns>(
+      `SELECT s.device_class, o.slug, MAX(o.name) AS name, COUNT(*) AS count, ${versionColumns} ${from} ${where(facetsWhere)} GROUP BY s.device_class, o.slug`,
+      { type: QueryTypes.SELECT, replacements: facetsWhere.replacements },
+    ),
   ]);
-
-  async function facetCounts(column: string, w: Where, label = "") {
-    return sequelize.query<{ value: string; count: number; label?: string }>(
-      `SELECT ${column} AS value, COUNT(*) AS count${label} ${from} ${where(w)} GROUP BY ${column} ORDER BY ${column}`,
-      { type: QueryTypes.SELECT, replacements: w.replacements },
-    );
-  }
+  const classCounts = sumBy(counts.filter((c) => !query.organization || c.slug === query.organization), (c) => c.device_class, () => "");
+  const orgCounts = sumBy(counts.filter((c) => !query.deviceClass || c.device_class === query.deviceClass), (c) => c.slug, (c) => c.name);
 
   const figures = await keyFigures(rows);
   // The class facet is the query without its class filter: the total is its chosen class's count, or all of it.
   const total = classCounts.filter((c) => !query.deviceClass || c.value === query.deviceClass).reduce((sum, c) => sum + Number(c.count), 0);
-  return {
+  const pageVersion = versionOf(rows[0]);
+  const result: CatalogResult = {
     total,
     page: query.page,
     pageSize: query.pageSize,
@@ -95,14 +104,27 @@ async function runSearch(query: CatalogQuery): Promise<CatalogResult> {
     facets: {
       deviceClass: classCounts
         .filter((c) => (deviceClasses as readonly string[]).includes(c.value))
-        .map((c) => ({ value: c.value as DeviceClass, label: deviceClassLabels[c.value as DeviceClass], count: Number(c.count) })),
-      organization: orgCounts.map((c) => ({ value: c.value, label: c.label ?? c.value, count: Number(c.count) })),
+        .map((c) => ({ value: c.value as DeviceClass, label: deviceClassLabels[c.value as DeviceClass], count: c.count })),
+      organization: orgCounts.map((c) => ({ value: c.value, label: c.label || c.value, count: c.count })),
     },
   };
+  return { result, version: pageVersion !== null && pageVersion === versionOf(counts[0]) ? pageVersion : null };
 }
 
-/** The filters of a query as SQL; `except` leaves one facet's own filter out (for its counts). */
-function whereOf(query: CatalogQuery, except?: Facet): Where {
+/** Counts summed per key, ordered by key (as the facets list them). */
+function sumBy<T extends { count: number }>(rows: T[], key: (row: T) => string, label: (row: T) => string): { value: string; label: string; count: number }[] {
+  const sums = new Map<string, { value: string; label: string; count: number }>();
+  for (const row of rows) {
+    const k = key(row);
+    const entry = sums.get(k) ?? { value: k, label: label(row), count: 0 };
+    entry.count += Number(row.count);
+    sums.set(k, entry);
+  }
+  return [...sums.values()].sort((a, b) => (a.value < b.value ? -1 : a.value > b.value ? 1 : 0));
+}
+
+/** The filters of a query as SQL; `except` leaves the facets' own filters out (for their counts). */
+function whereOf(query: CatalogQuery, except: Facet[] = []): Where {
   const w: Where = { sql: [], replacements: [] };
   // Only classes this build offers (a test-only class's sheets stay out of a normal build's catalog).
   w.sql.push(`s.device_class IN (${deviceClasses.map(() => "?").join(", ")})`);
@@ -113,11 +135,11 @@ function whereOf(query: CatalogQuery, except?: Facet): Where {
       "NOT EXISTS (SELECT 1 FROM sheet_revision_withdrawals x WHERE x.revision_id = s.revision_id)",
     );
   }
-  if (query.deviceClass && except !== "deviceClass") {
+  if (query.deviceClass && !except.includes("deviceClass")) {
     w.sql.push("s.device_class = ?");
     w.replacements.push(query.deviceClass);
   }
-  if (query.organization && except !== "organization") {
+  if (query.organization && !except.includes("organization")) {
     w.sql.push("o.slug = ?");
     w.replacements.push(query.organization);
   }
@@ -144,12 +166,11 @@ function conditionSql(condition: CatalogCondition, w: Where): void {
     return;
   }
   const value = VALUE_COLUMN[condition.field ?? (condition.op === "le" ? "max" : "min")];
-  // Every condition group that states the figure meets it: its worst case does.
+  // Every condition group that states the figure meets it: its worst case does (a sheet that states
+  // none has NULL here, which meets nothing). Correlated, so each candidate row costs one lookup in the
+  // covering index (parameter|row_id, revision_id, …) instead of grouping every sheet's rows first.
   const worst = condition.op === "le" ? "MAX" : "MIN";
-  w.sql.push(
-    `s.revision_id IN (SELECT v.revision_id FROM released_spec_values v WHERE v.${parameter.column} = ? AND v.${value} IS NOT NULL
-       GROUP BY v.revision_id HAVING ${worst}(v.${value}) ${op} ?)`,
-  );
+  w.sql.push(`(SELECT ${worst}(v.${value}) FROM released_spec_values v WHERE v.${parameter.column} = ? AND v.revision_id = s.revision_id) ${op} ?`);
   w.replacements.push(condition.key, condition.value);
 }
 
@@ -167,7 +188,7 @@ function sortExpression(query: CatalogQuery): { select: string; replacements: un
   };
 }
 
-type HitRow = {
+type HitRow = VersionColumns & {
   revision_id: number;
   part_number: string;
   title: string;

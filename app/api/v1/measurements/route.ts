@@ -5,6 +5,7 @@ import { findDeviceByPartNumber } from "@/lib/server/devices/find-device-by-part
 import { ingestMeasurement } from "@/lib/server/measurements/ingest-measurement";
 import { readUploadForm } from "@/lib/server/measurements/read-upload-form";
 import { loadSetTables } from "@/lib/server/measurements/load-set-tables";
+import type { BenchUploadResponse } from "@/lib/schemas/api-v1";
 
 /**
  * Bench upload: `Authorization: Bearer <bench token>`, multipart with `file`, `device`
@@ -20,5 +21,5 @@ export const POST = tokenRoute(async (request) => {
   const set = await ingestMeasurement({ organizationId, deviceId: device.id, file, fields, actor: { kind: "bench-token", tokenId } });
   // Every value per frequency or drive step (S-parameter magnitude and phase, mismatch loss, dBm/Vrms/dBµV), beside the derived parameters.
   const tables = await loadSetTables({ organizationId, setId: set.id });
-  return Response.json({ measurementSet: set, tables }, { status: 201 });
+  return Response.json({ measurementSet: set, tables } satisfies BenchUploadResponse, { status: 201 });
 });

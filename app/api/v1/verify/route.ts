@@ -2,6 +2,7 @@ import { AppError } from "@/lib/errors";
 import { referencePattern, sha256Pattern, type VerifyQuery } from "@/lib/domain/verify";
 import { route } from "@/lib/server/auth/guard";
 import { verifyPrintout } from "@/lib/server/reviews/verify-printout";
+import type { VerifyResponse } from "@/lib/schemas/api-v1";
 
 export const dynamic = "force-dynamic";
 
@@ -24,5 +25,5 @@ export const GET = route({ resource: "released-sheets" }, async ({ request }) =>
     if (!referencePattern.test(reference[0])) throw new AppError("invalid", "reference must be two groups of five letters or digits, as printed in the PDF's footer (e.g. 7KQ2M-XR4TD).", { field: "reference" });
     query = { reference: reference[0].toUpperCase() };
   }
-  return { verification: await verifyPrintout(query) };
+  return { verification: await verifyPrintout(query) } satisfies VerifyResponse;
 });

@@ -1,6 +1,7 @@
 import { createHash } from "node:crypto";
 import { route } from "@/lib/server/auth/guard";
 import { findReleasedRevision } from "@/lib/server/reviews/list-revisions";
+import type { ReleasedSheetResponse } from "@/lib/schemas/api-v1";
 
 export const dynamic = "force-dynamic";
 
@@ -25,5 +26,5 @@ export const GET = route({ resource: "released-sheets" }, async ({ params, reque
   };
   const wanted = request.headers.get("if-none-match");
   if (wanted && wanted.split(",").some((tag) => tag.trim() === etag)) return new Response(null, { status: 304, headers });
-  return Response.json({ apiVersion: 1, revision: summary, history, sheet: released.model }, { headers });
+  return Response.json({ apiVersion: 1, revision: summary, history, sheet: released.model } satisfies ReleasedSheetResponse, { headers });
 });

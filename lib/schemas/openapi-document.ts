@@ -1,0 +1,212 @@
+import { z } from "zod";
+import { uploadFieldsSchema } from "./measurements";
+import {
+  benchUploadResponseSchema,
+  catalogHitSchema,
+  errorBodySchema,
+  measurementSetSchema,
+  releasedSheetResponseSchema,
+  revisionSummarySchema,
+  sheetPathParamsSchema,
+  sheetsSearchParamsSchema,
+  sheetsSearchResponseSchema,
+  verifyAnswerSchema,
+  verifyParamsSchema,
+  verifyResponseSchema,
+} from "./api-v1";
+import { proseBlockSchema, proseInlineSchema, sheetModelSchema } from "./sheet-model";
+
+/**
+ * The OpenAPI 3.1 document of the versioned public API (GET /api/v1/openapi.json), generated from
+ * the zod schemas the handlers use (lib/schemas/api-v1.ts, the upload's `uploadFieldsSchema`) with
+ * zod's own `z.toJSONSchema` (JSON Schema 2020-12, which OpenAPI 3.1 uses as is). Pure.
+ */
+
+type JsonSchema = Record<string, unknown>;
+export type OpenApiDocument = { openapi: "3.1.1"; info: Record<string, unknown>; paths: Record<string, unknown>; components: Record<string, unknown> } & Record<string, unknown>;
+
+/** The named schemas, in components.schemas; every other schema is inlined where it is used. */
+const components = {
+  ErrorBody: errorBodySchema,
+  SheetsSearchResponse: sheetsSearchResponseSchema,
+  CatalogHit: catalogHitSchema,
+  ReleasedSheetResponse: releasedSheetResponseSchema,
+  RevisionSummary: revisionSummarySchema,
+  SheetModel: sheetModelSchema,
+  ProseBlock: proseBlockSchema,
+  ProseInline: proseInlineSchema,
+  VerifyResponse: verifyResponseSchema,
+  VerifyAnswer: verifyAnswerSchema,
+  BenchUploadResponse: benchUploadResponseSchema,
+  MeasurementSet: measurementSetSchema,
+} as const;
+
+const ref = (name: keyof typeof components) => ({ $ref: `#/components/schemas/${name}` });
+
+/** components.schemas: one JSON Schema per named zod schema, references between them as $ref. */
+function componentSchemas(): Record<string, JsonSchema> {
+  const registry = z.registry<{ id: string }>();
+  for (const [id, schema] of Object.entries(components)) registry.add(schema, { id });
+  const { schemas } = z.toJSONSchema(registry, { uri: (id) => `#/components/schemas/${id}`, io: "output", cycles: "ref", reused: "inline" });
+  return Object.fromEntries(
+    Object.entries(schemas).map(([id, schema]) => {
+      const { $schema: _dialect, $id: _id, ...rest } = schema as JsonSchema;
+      return [id, rest as JsonSchema];
+    }),
+  );
+}
+
+/** Query or path parameters from a zod object: one entry per field, its JSON Schema and description. */
+function parameters(schema: z.ZodObject, where: "query" | "path"): JsonSchema[] {
+  const json = z.toJSONSchema(schema, { io: "input" }) as { properties: Record<string, JsonSchema>; required?: string[] };
+  return Object.entries(json.properties).map(([name, property]) => {
+    const { description, ...rest } = property;
+    return {
+      name,
+      in: where,
+      required: where === "path" || (json.required ?? []).includes(name),
+      ...(description ? { description } : {}),
+      schema: rest,
+      ...(rest.type === "array" ? { style: "form", explode: true } : {}),
+    };
+  });
+}
+
+/** The bench upload's multipart fields: the upload schema's own, each sent as text, plus the file and the part number. */
+function benchUploadForm(): JsonSchema {
+  const json = z.toJSONSchema(uploadFieldsSchema, { io: "input", unrepresentable: "any" }) as { properties: Record<string, JsonSchema> };
+  const asText = (property: JsonSchema): JsonSchema => {
+    if (property.type === "array") return { ...property, items: asText((property.items as JsonSchema) ?? {}) };
+    return property.type || property.anyOf ? property : { type: "string", ...property };
+  };
+  return {
+    type: "object",
+    required: ["file", "device"],
+    properties: {
+      file: { type: "string", contentMediaType: "application/octet-stream", description: "The bench file (fixtures/FORMATS.md)." },
+      device: { type: "string", maxLength: 64, description: "The part number of a device of the token's organization." },
+      ...Object.fromEntries(Object.entries(json.properties).map(([name, property]) => [name, asText(property)])),
+    },
+  };
+}
+
+const json = (schema: JsonSchema, description: string, headers?: Record<string, unknown>) => ({
+  description,
+  ...(headers ? { headers } : {}),
+  content: { "application/json": { schema } },
+});
+const refusal = (description: string) => json(ref("ErrorBody"), description);
+const unavailable = refusal("The database cannot be reached; try again (Retry-After).");
+
+const revisionHeaders = {
+  ETag: { schema: { type: "string" } },
+  "X-Benchfold-Revision": { description: "The revision letter answered.", schema: { type: "string" } },
+  "X-Benchfold-Standing": { description: "current, superseded or withdrawn.", schema: { type: "string", enum: ["current", "superseded", "withdrawn"] } },
+};
+
+let built: OpenApiDocument | null = null;
+
+export function buildOpenApiDocument(): OpenApiDocument {
+  if (built) return built;
+  const sheetPath = parameters(sheetPathParamsSchema, "path");
+  built = {
+    openapi: "3.1.1",
+    info: {
+      title: "Benchfold public API",
+      version: "1",
+      description:
+        "Released characterization sheets (catalog search, the frozen sheet model, the stored PDF), printout verification, and the bench upload. " +
+        "Every refusal is a 4xx with `{ error: { code, message, details? } }`.",
+    },
+    jsonSchemaDialect: "https://json-schema.org/draft/2020-12/schema",
+    paths: {
+      "/api/v1/sheets": {
+        get: {
+          operationId: "searchSheets",
+          summary: "Search released sheets (the catalog's search)",
+          parameters: parameters(sheetsSearchParamsSchema, "query"),
+          responses: {
+            "200": json(ref("SheetsSearchResponse"), "A page of results with the counts per class and organization."),
+            "422": refusal("A query that cannot be read; `details.fields` names each field."),
+            "503": unavailable,
+          },
+        },
+      },
+      "/api/v1/sheets/{org}/{part}/{rev}": {
+        get: {
+          operationId: "getReleasedSheet",
+          summary: "A released revision's sheet model as versioned JSON",
+          parameters: [...sheetPath, { name: "If-None-Match", in: "header", required: false, schema: { type: "string" } }],
+          responses: {
+            "200": json(ref("ReleasedSheetResponse"), "The revision, its history and its frozen model.", revisionHeaders),
+            "304": { description: "Unchanged since the ETag sent.", headers: revisionHeaders },
+            "404": refusal("No such organization, part or released revision."),
+            "503": unavailable,
+          },
+        },
+      },
+      "/api/v1/sheets/{org}/{part}/{rev}/pdf": {
+        get: {
+          operationId: "getReleasedSheetPdf",
+          summary: "The stored PDF of a released revision",
+          parameters: [
+            ...sheetPath,
+            { name: "download", in: "query", required: false, description: "`1`: as an attachment.", schema: { type: "string", enum: ["1"] } },
+            { name: "If-None-Match", in: "header", required: false, schema: { type: "string" } },
+          ],
+          responses: {
+            "200": {
+              description: "The same bytes on every download; the ETag is their SHA-256. A lettered revision is cached for a year, `current` revalidated.",
+              headers: revisionHeaders,
+              content: { "application/pdf": { schema: { type: "string", contentMediaType: "application/pdf" } } },
+            },
+            "304": { description: "Unchanged since the ETag sent.", headers: revisionHeaders },
+            "404": refusal("No such organization, part or released revision."),
+            "503": unavailable,
+          },
+        },
+      },
+      "/api/v1/verify": {
+        get: {
+          operationId: "verifyPrintout",
+          summary: "Which released revision a PDF or printout is, and its standing",
+          description: "Exactly one of `sha256` and `reference`.",
+          parameters: parameters(verifyParamsSchema, "query"),
+          responses: {
+            "200": json(ref("VerifyResponse"), "A released revision."),
+            "404": refusal("Not a released Benchfold sheet."),
+            "422": refusal("Neither or both parameters, or one that is not of its form."),
+            "503": unavailable,
+          },
+        },
+      },
+      "/api/v1/measurements": {
+        post: {
+          operationId: "uploadMeasurement",
+          summary: "Upload a bench file (bench token)",
+          security: [{ benchToken: [] }],
+          requestBody: { required: true, content: { "multipart/form-data": { schema: benchUploadForm() } } },
+          responses: {
+            "201": json(ref("BenchUploadResponse"), "Stored, awaiting review."),
+            "400": refusal("The multipart body cannot be read."),
+            "401": refusal("No bench token, or an unknown or revoked one."),
+            "404": refusal("No device with that part number in the token's organization."),
+            "409": refusal("The same file is stored for the device already."),
+            "413": refusal("The file is over the size limit."),
+            "415": refusal("Not multipart/form-data."),
+            "422": refusal("A field or the file's content is wrong; the message names file, line and column where it can."),
+            "429": refusal("Too many uploads; wait."),
+            "503": unavailable,
+          },
+        },
+      },
+    },
+    components: {
+      schemas: componentSchemas(),
+      securitySchemes: {
+        benchToken: { type: "http", scheme: "bearer", description: "A bench token an administrator made at /admin/bench-tokens." },
+      },
+    },
+  };
+  return built;
+}
