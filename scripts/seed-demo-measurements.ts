@@ -123,14 +123,16 @@ async function main() {
   let started = Date.now();
   const played = await seedDemoReleases(appUrl);
   console.error(`[benchfold] demo reviews and releases: ${played.length ? played.join("; ") : "already there"} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
-  // The demo catalog's parts: created, measured, limited and released as A through the same API.
-  started = Date.now();
-  const catalog = await seedDemoCatalog(appUrl);
-  console.error(`[benchfold] demo catalog: ${catalog.length ? `released ${catalog.join(", ")}` : "already there"} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
+  // Right after the releases, before the demo catalog, so that the demo story's sets keep the ids the
+  // sheet snapshots were recorded with (tests/integration/sheets.test.ts compares them).
   // After the releases: one unit outside KDX-2G4's released limit (a conformity alert), one in control.
   started = Date.now();
   const watched = await seedDemoConformity(appUrl);
   console.error(`[benchfold] demo conformity watch: ${watched.length ? watched.join("; ") : "already there"} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
+  // The demo catalog's parts: created, measured, limited and released as A through the same API.
+  started = Date.now();
+  const catalog = await seedDemoCatalog(appUrl);
+  console.error(`[benchfold] demo catalog: ${catalog.length ? `released ${catalog.join(", ")}` : "already there"} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
 }
 
 main()

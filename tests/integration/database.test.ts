@@ -4,6 +4,7 @@ import { db, closeDb } from "@/models";
 import { demoOrganizations } from "@/models/seeders/demo-scenario";
 import { assertLoopbackDatabase } from "./helpers/loopback";
 import { makeOrganization } from "./helpers/factories";
+import { demoCatalogParts } from "@/models/seeders/demo-catalog";
 
 beforeAll(() => assertLoopbackDatabase());
 afterAll(() => closeDb());
@@ -22,7 +23,9 @@ describe("migrations and demo seed on MariaDB", () => {
       const org = await Organization.findOne({ where: { slug: spec.slug } });
       expect(org, spec.slug).not.toBeNull();
       expect(await User.count({ where: { organizationId: org!.id } })).toBeGreaterThanOrEqual(spec.users.length);
-      expect(await Device.count({ where: { organizationId: org!.id } })).toBe(spec.devices.length);
+      // The scenario's devices, and the demo catalog's parts the loader adds through the API (scripts/seed-demo-catalog.ts).
+      const catalogParts = demoCatalogParts.filter((p) => p.org === spec.slug).length;
+      expect(await Device.count({ where: { organizationId: org!.id } })).toBe(spec.devices.length + catalogParts);
     }
     const kestrine = await Organization.findOne({ where: { slug: "kestrine" } });
     const roles = (await User.findAll({ where: { organizationId: kestrine!.id } })).map((u) => u.role).sort();

@@ -31,7 +31,7 @@ describe("design-in readings against NumPy", () => {
     expect(new Set(reference.cases.map((c) => c.part))).toEqual(new Set(["KDX-2G4", "KM-7H"]));
   });
 
-  it.each(reference.cases)("$part $series at $x", (expected) => {
+  it.each(reference.cases.filter((c) => c.basis === "draft"))("$part $series at $x", (expected) => {
     const answer = answered(models[expected.part], fixed[expected.part](expected.x));
     const reading = answer.readings.find((r) => r.chartId === expected.chartId && r.series === expected.series);
     expect(reading).toBeDefined();
