@@ -27,11 +27,11 @@ async function demoDoublerId(page: Page): Promise<number> {
  * The draft PDF takes many seconds of server CPU to render and would slow every other request of these
  * tests; where a test is not about the PDF, the frame gets a one-page stand-in instead.
  */
-async function stubDraftPdf(page: Page): Promise<string[]> {
+async function stubDraftPdf(page: Page, gate?: Promise<void>): Promise<string[]> {
   const requested: string[] = [];
   await page.route("**/api/devices/*/sheet/pdf*", async (route) => {
     requested.push(new URL(route.request().url()).pathname);
-    await new Promise((resolve) => setTimeout(resolve, 1_500));
+    await (gate ?? new Promise((resolve) => setTimeout(resolve, 1_500)));
     await route.fulfill({ status: 200, contentType: "application/pdf", body: minimalPdf });
   });
   return requested;
@@ -62,7 +62,10 @@ test("engineer: the sheet list, the preview with its banner and spec table, and 
   await expect(row.getByTestId("limits-set")).toHaveText(/^[1-9]\d*$/);
   await expect(row.getByTestId("approved-sets")).toHaveText(/^[1-9]\d*$/);
 
-  const pdfRequests = await stubDraftPdf(page);
+  // The stand-in is held back until the test has seen the frame say it is rendering (a fixed delay
+  // raced the scroll on a loaded machine).
+  let sendPdf = () => {};
+  const pdfRequests = await stubDraftPdf(page, new Promise<void>((resolve) => (sendPdf = resolve)));
   await page.goto(`/sheets/${id}`);
   const webSheet = page.getByTestId("web-sheet");
   await expect(webSheet.getByRole("status").filter({ hasText: "PRELIMINARY" })).toBeVisible();
@@ -97,6 +100,7 @@ test("engineer: the sheet list, the preview with its banner and spec table, and 
   const pdf = page.getByTestId("pdf-preview");
   await pdf.scrollIntoViewIfNeeded();
   await expect(pdf.getByText("Rendering PDF…")).toBeVisible();
+  sendPdf();
   await expect(pdf.locator("iframe")).toBeVisible();
   expect(pdfRequests.length).toBeGreaterThan(0);
   expect(new Set(pdfRequests)).toEqual(new Set([`/api/devices/${id}/sheet/pdf`]));
