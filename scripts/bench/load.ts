@@ -8,7 +8,8 @@
  * of the demo doubler's released PDF against a plain node:http server (released-download.ts). Nothing is asserted:
  * timings live here, never in the tests. Skipped with a note when no server answers.
  *
- *   BENCH_LOAD_CLIENTS (50), BENCH_LOAD_SECONDS (60), BENCH_LOAD_FRESH_RENDERS (4)
+ *   BENCH_LOAD_CLIENTS (50), BENCH_LOAD_SECONDS (60), BENCH_LOAD_FRESH_RENDERS (4), BENCH_LOAD_SETTLE_MS (30000),
+ *   BENCH_LOAD_DOWNLOAD (0 skips the released download)
  */
 import { execFileSync } from "node:child_process";
 import { readFileSync } from "node:fs";
@@ -126,7 +127,7 @@ async function main() {
       (rssStart && rssSettled ? `; settled ÷ warm: ${(rssSettled / rssStart).toFixed(2)}` : "") +
       (rssCold && rssSettled ? `, settled ÷ cold: ${(rssSettled / rssCold).toFixed(2)}` : ""),
   );
-  await benchReleasedDownload({ baseUrl, clients, seconds, org: "kestrine", part: "KDX-2G4" });
+  if (process.env.BENCH_LOAD_DOWNLOAD !== "0") await benchReleasedDownload({ baseUrl, clients, seconds, org: "kestrine", part: "KDX-2G4" });
 }
 
 main().catch((error) => {

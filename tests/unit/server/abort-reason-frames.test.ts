@@ -67,3 +67,29 @@ describe("an abort reason's stack (scripts/server.mjs releaseAbortReasonFrames)"
     expect(controller.signal.reason).toBe("a plain string");
   });
 });
+
+describe("the idle collection (scripts/server.mjs createIdleCollector)", () => {
+  it("collects once no request has been in flight for idleMs, after enough were served, and never during one", async () => {
+    const { createIdleCollector } = await import("@/scripts/server.mjs");
+    let clock = 0;
+    let collections = 0;
+    const idle = createIdleCollector({ collect: () => (collections += 1), now: () => clock, idleMs: 10_000, minRequests: 3 });
+    for (let i = 0; i < 3; i++) {
+      idle.started();
+      clock += 100;
+      idle.finished();
+    }
+    clock += 9_000;
+    expect(idle.tick(), "not idle long enough").toBe(false);
+    idle.started();
+    clock += 20_000;
+    expect(idle.tick(), "a request is in flight").toBe(false);
+    idle.finished();
+    clock += 10_000;
+    expect(idle.tick()).toBe(true);
+    expect(collections).toBe(1);
+    clock += 60_000;
+    expect(idle.tick(), "nothing served since").toBe(false);
+    expect(collections).toBe(1);
+  });
+});
