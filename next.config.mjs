@@ -9,6 +9,16 @@ const securityHeaders = [
   { key: "X-Frame-Options", value: "DENY" },
 ];
 
+// Route handlers answer JSON, PDF or next-auth's few plain HTML pages, never a document of ours
+// that runs script: their policy allows nothing to load (OWASP REST Security Cheat Sheet,
+// "Security headers": default-src 'none'; frame-ancestors 'none'), bar the inline <style> of
+// next-auth's sign-out page and its form posting back here. proxy.ts (pages, with a nonce) does
+// not reach /api, and neither does an /api address with no handler (Next's 404 page), which this
+// policy covers too: its text shows, its scripts do not run. A PDF gets the same: Chromium 156
+// still draws it in its own viewer under this policy (checked in a real window under Xvfb;
+// older Chromium refused object-src 'none' there, crbug.com/271452).
+const routeHandlerPolicy = "default-src 'none'; style-src 'unsafe-inline'; form-action 'self'; base-uri 'none'; frame-ancestors 'none'";
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // Native addons and packages that load optional drivers at run time stay outside the bundle.
@@ -29,10 +39,13 @@ const nextConfig = {
   typedRoutes: false,
   // forbidden() from next/navigation: a page refused to a signed-in role answers HTTP 403 (app/forbidden.tsx).
   experimental: { authInterrupts: true },
-  // On every response, pages, route handlers and static files alike. The per-request
-  // Content-Security-Policy (with its nonce) is added to pages by proxy.ts.
+  // On every response, pages, route handlers and static files alike; route handlers also get
+  // their policy. The per-request Content-Security-Policy (with its nonce) is added to pages by proxy.ts.
   async headers() {
-    return [{ source: "/:path*", headers: securityHeaders }];
+    return [
+      { source: "/:path*", headers: securityHeaders },
+      { source: "/api/:path*", headers: [{ key: "Content-Security-Policy", value: routeHandlerPolicy }] },
+    ];
   },
 };
 

@@ -20,9 +20,23 @@ export function proxy(request: NextRequest) {
   requestHeaders.set("x-nonce", nonce);
   requestHeaders.set("content-security-policy", policy);
 
-  const response = NextResponse.next({ request: { headers: requestHeaders } });
+  const response = isPrebuiltErrorPage(request.nextUrl.pathname)
+    ? NextResponse.rewrite(new URL("/_not-a-page", request.url), { request: { headers: requestHeaders } })
+    : NextResponse.next({ request: { headers: requestHeaders } });
   response.headers.set("content-security-policy", policy);
   return response;
+}
+
+/**
+ * Next builds its global error page at build time as `/_global-error`, so that HTML carries no
+ * nonce. When a page fails (the root layout cannot reach the database, say), Next draws the global
+ * error within that page's own request, with this request's nonce on every script (checked with
+ * MariaDB stopped: 500, the nonce on all scripts, no CSP report). Only a request for the address
+ * itself got the prebuilt HTML, whose scripts this policy refuses; it is not a page anyone is sent
+ * to, so it answers as an address with no page (404, rendered per request).
+ */
+function isPrebuiltErrorPage(pathname: string): boolean {
+  return pathname === "/_global-error" || pathname.startsWith("/_global-error/") || pathname.startsWith("/_global-error.");
 }
 
 function contentSecurityPolicy(nonce: string, development: boolean): string {

@@ -20,6 +20,10 @@ export BENCHFOLD_TEST_URL="http://localhost:$PORT"
 # Tests give each client its own address through X-Forwarded-For: the test server treats loopback
 # as its trusted proxy, so a test client on this machine counts as the right-most hop it sends.
 export BENCHFOLD_TRUSTED_PROXIES="127.0.0.1,::1"
+# bcrypt at cost 11 takes about a second here and the suite signs in hundreds of times: the test
+# server hashes at 5 (lib/server/accounts/hash-password.ts). Factory users are stored at 4, so
+# every first sign-in of one also takes the rehash path (auth.test.ts checks it).
+export BENCHFOLD_PASSWORD_HASH_COST=5
 unset SMTP_HOST
 load_env
 export NEXTAUTH_SECRET="test-secret-$(date +%s%N)"

@@ -2,13 +2,14 @@
  * Load benchmark (the last part of `npm run bench`): concurrent clients against a running
  * instance — `npm start` on BENCHFOLD_BENCH_URL (default http://localhost:3000) with the demo
  * loaded. For a workspace page, a JSON list and a sheet PDF already cached: requests per second,
- * p50/p95 latency, errors, and the server's resident memory before, right after and a few
- * seconds after the run. The PDF's reference run in the same process is a fresh render (a changed
+ * p50/p95 latency, errors, and the server's resident memory cold, warm (after one request to
+ * each target), right after the run and every 5 s for BENCH_LOAD_SETTLE_MS (30 s) after it. The PDF's reference run in the same process is a fresh render (a changed
  * device description makes a new model; the description is put back afterwards). Then the download
  * of the demo doubler's released PDF against a plain node:http server (released-download.ts). Nothing is asserted:
  * timings live here, never in the tests. Skipped with a note when no server answers.
  *
- *   BENCH_LOAD_CLIENTS (50), BENCH_LOAD_SECONDS (60), BENCH_LOAD_FRESH_RENDERS (4)
+ *   BENCH_LOAD_CLIENTS (50), BENCH_LOAD_SECONDS (60), BENCH_LOAD_FRESH_RENDERS (4), BENCH_LOAD_SETTLE_MS (30000),
+ *   BENCH_LOAD_DOWNLOAD (0 skips the released download)
  */
 import { execFileSync } from "node:child_process";
 import { readFileSync } from "node:fs";
@@ -78,27 +79,38 @@ async function main() {
   const doubler = devices.devices.find((d) => d.partNumber === "KDX-2G4");
   if (!doubler) throw new Error("the demo device KDX-2G4 is not there: load the demo with npm start");
   const pdfPath = `/api/devices/${doubler.id}/sheet/pdf`;
+  const targets = [
+    ["workspace page /devices", "/devices"],
+    ["JSON list /api/devices", "/api/devices"],
+    ["cached sheet PDF", pdfPath],
+  ] as const;
+  // Cold: the server as it started. Warm: after one request to each target, so the PDF worker
+  // thread runs (its own V8 heap, in this process) and each route's code is loaded: what the
+  // load adds is measured from there.
+  const rssCold = serverRssMb();
+  for (const [, path] of targets) await (await fetch(`${baseUrl}${path}`, { headers: { cookie } })).arrayBuffer();
   const rssStart = serverRssMb();
-  const warm = await fetch(`${baseUrl}${pdfPath}`, { headers: { cookie } });
-  await warm.arrayBuffer();
 
   console.log(`\nLoad: ${clients} concurrent clients, ${seconds} s per target, against ${baseUrl}, node ${process.version}`);
   const rows: string[] = [];
   const results: Record<string, LoadResult> = {};
-  for (const [name, path] of [
-    ["workspace page /devices", "/devices"],
-    ["JSON list /api/devices", "/api/devices"],
-    ["cached sheet PDF", pdfPath],
-  ] as const) {
+  for (const [name, path] of targets) {
     const result = await hammer(`${baseUrl}${path}`, { clients, seconds, headers: { cookie } });
     results[name] = result;
     rows.push(loadRow(name, result));
   }
   const rssEnd = serverRssMb();
-  // The PDF workers stop after BENCHFOLD_PDF_IDLE_MS idle (10 min unless set); what stays after a few seconds is the web server's own.
-  const settleMs = Number(process.env.BENCH_LOAD_SETTLE_MS ?? 5_000);
-  await new Promise((resolve) => setTimeout(resolve, settleMs));
-  const rssSettled = serverRssMb();
+  // V8 gives heap pages back once the process is idle (its memory reducer runs a few seconds
+  // after the load stops, and again later), so the resident size is read for a while after.
+  const settleMs = Number(process.env.BENCH_LOAD_SETTLE_MS ?? 30_000);
+  const settling: { atS: number; mb: number | null }[] = [];
+  for (let waitedMs = 0; waitedMs < settleMs; ) {
+    const stepMs = Math.min(5_000, settleMs - waitedMs);
+    await new Promise((resolve) => setTimeout(resolve, stepMs));
+    waitedMs += stepMs;
+    settling.push({ atS: Math.round(waitedMs / 1000), mb: serverRssMb() });
+  }
+  const rssSettled = settling.at(-1)?.mb ?? rssEnd;
   const freshS = await freshPdfSeconds(cookie, doubler.id);
 
   console.log(loadHeader());
@@ -110,10 +122,12 @@ async function main() {
   );
   const mb = (v: number | null) => (v === null ? "n/a" : `${v} MB`);
   console.log(
-    `server RSS: before ${mb(rssStart)}, right after ${mb(rssEnd)}, ${Math.round(settleMs / 1000)} s later ${mb(rssSettled)}` +
-      (rssStart && rssSettled ? ` (settled ÷ before: ${(rssSettled / rssStart).toFixed(2)})` : ""),
+    `server RSS: cold ${mb(rssCold)}, warm (one request to each target) ${mb(rssStart)}, right after the load ${mb(rssEnd)}, then ` +
+      settling.map((s) => `${s.atS} s ${mb(s.mb)}`).join(", ") +
+      (rssStart && rssSettled ? `; settled ÷ warm: ${(rssSettled / rssStart).toFixed(2)}` : "") +
+      (rssCold && rssSettled ? `, settled ÷ cold: ${(rssSettled / rssCold).toFixed(2)}` : ""),
   );
-  await benchReleasedDownload({ baseUrl, clients, seconds, org: "kestrine", part: "KDX-2G4" });
+  if (process.env.BENCH_LOAD_DOWNLOAD !== "0") await benchReleasedDownload({ baseUrl, clients, seconds, org: "kestrine", part: "KDX-2G4" });
 }
 
 main().catch((error) => {

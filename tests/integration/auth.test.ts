@@ -1,3 +1,4 @@
+import bcrypt from "bcryptjs";
 import { afterAll, describe, expect, it } from "vitest";
 import { db, closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
@@ -30,6 +31,50 @@ describe("sign-in", () => {
     const { users } = await makeOrganization();
     expect((await client.signIn(users.admin.email, factoryPassword)).error).toBe("too-many-attempts");
     expect((await new TestClient().signIn(users.admin.email, factoryPassword)).ok).toBe(true);
+  });
+});
+
+describe("a password hashed at an older bcrypt cost", () => {
+  // The test server hashes at BENCHFOLD_PASSWORD_HASH_COST (scripts/test.sh); a stored hash below
+  // it is replaced on the next successful sign-in (lib/server/auth/auth-options.ts).
+  const currentCost = Number(process.env.BENCHFOLD_PASSWORD_HASH_COST ?? 11);
+  const { AuditEvent, User } = db();
+
+  it("is rehashed at the current cost on a successful sign-in, and only then", async () => {
+    const { users } = await makeOrganization();
+    const password = "Cobalt-mixer-harmonic-77";
+    const oldCost = currentCost - 1;
+    const oldHash = bcrypt.hashSync(password, oldCost);
+    await User.update({ passwordHash: oldHash }, { where: { id: users.engineer.id } });
+    expect(bcrypt.getRounds(oldHash)).toBe(oldCost);
+
+    // A wrong password changes nothing.
+    expect((await new TestClient().signIn(users.engineer.email, "wrong-password-x")).error).toBe("invalid-credentials");
+    expect((await User.findByPk(users.engineer.id))!.passwordHash).toBe(oldHash);
+
+    const first = new TestClient();
+    expect((await first.signIn(users.engineer.email, password)).ok).toBe(true);
+    const rehashed = (await User.findByPk(users.engineer.id))!;
+    expect(rehashed.passwordHash).not.toBe(oldHash);
+    expect(bcrypt.getRounds(rehashed.passwordHash)).toBe(currentCost);
+    expect(bcrypt.compareSync(password, rehashed.passwordHash)).toBe(true);
+    expect(rehashed.tokenVersion, "the same password: no session ends").toBe(users.engineer.tokenVersion);
+    expect((await first.request("/api/me")).status).toBe(200);
+    const events = await AuditEvent.findAll({ where: { subjectType: "user", subjectId: String(users.engineer.id), action: "account.password-rehashed" } });
+    expect(events.map((e) => [e.before, e.after])).toEqual([[{ bcryptCost: oldCost }, { bcryptCost: currentCost }]]);
+
+    // The new hash signs in; a hash at the current cost is left as it is.
+    expect((await new TestClient().signIn(users.engineer.email, password)).ok).toBe(true);
+    expect((await User.findByPk(users.engineer.id))!.passwordHash).toBe(rehashed.passwordHash);
+  });
+
+  it("a hash at a higher cost than today's is kept", async () => {
+    const { users } = await makeOrganization();
+    const password = "Garnet-hybrid-quadrature-31";
+    const higher = bcrypt.hashSync(password, currentCost + 1);
+    await User.update({ passwordHash: higher }, { where: { id: users.reviewer.id } });
+    expect((await new TestClient().signIn(users.reviewer.email, password)).ok).toBe(true);
+    expect((await User.findByPk(users.reviewer.id))!.passwordHash).toBe(higher);
   });
 });
 

@@ -83,6 +83,22 @@ function expectPagePolicy(response: Response, what: string): string {
   return nonce;
 }
 
+/**
+ * A route handler's answer (JSON, PDF, next-auth's own pages): the base headers plus the policy
+ * that lets nothing load (next.config.mjs), the same on success, refusal and error.
+ */
+function expectRouteHandlerPolicy(response: Response, what: string): void {
+  expectBaseHeaders(response, what);
+  const policy = parsePolicy(response.headers.get("content-security-policy"));
+  expect(Object.fromEntries(policy), `${what}: Content-Security-Policy`).toEqual({
+    "default-src": ["'none'"],
+    "style-src": ["'unsafe-inline'"],
+    "form-action": ["'self'"],
+    "base-uri": ["'none'"],
+    "frame-ancestors": ["'none'"],
+  });
+}
+
 /** Every <script> in the HTML carries the header's nonce (Next stamps it while rendering). */
 function expectScriptsCarry(html: string, nonce: string, what: string): void {
   const tags = html.match(/<script\b[^>]*>/g) ?? [];
@@ -125,6 +141,14 @@ describe("pages", () => {
     expectScriptsCarry(await missing.text(), expectPagePolicy(missing, "404 page"), "404 page");
   });
 
+  it("Next's prebuilt global error page is not served by its address (its scripts would carry no nonce)", async () => {
+    // Next draws the global error per request, with the nonce, inside a failing page's own
+    // response; /_global-error itself was the build's HTML without one (answered 500).
+    const r = await anonymous.request("/_global-error");
+    expect(r.status).toBe(404);
+    expectScriptsCarry(await r.text(), expectPagePolicy(r, "/_global-error"), "/_global-error");
+  });
+
   it("two loads of the same page get different nonces", async () => {
     const nonces = new Set<string>();
     for (let i = 0; i < 2; i++) {
@@ -137,21 +161,21 @@ describe("pages", () => {
 });
 
 describe("route handlers", () => {
-  it("JSON behind a session: no-store on success and on errors, no CSP needed", async () => {
+  it("JSON behind a session: no-store and the route handlers' policy on success and on errors", async () => {
     const ok = await engineer.request("/api/devices");
     expect(ok.status).toBe(200);
-    expectBaseHeaders(ok, "GET /api/devices");
+    expectRouteHandlerPolicy(ok, "GET /api/devices");
     expect(ok.headers.get("cache-control")).toBe("no-store");
     expect(ok.headers.get("content-type")).toMatch(/^application\/json/);
 
     const signedOut = await anonymous.request("/api/devices");
     expect(signedOut.status).toBe(401);
-    expectBaseHeaders(signedOut, "401");
+    expectRouteHandlerPolicy(signedOut, "401");
     expect(signedOut.headers.get("cache-control")).toBe("no-store");
 
     const invalid = await engineer.request("/api/devices", { json: { partNumber: "" } });
     expect(invalid.status).toBe(422);
-    expectBaseHeaders(invalid, "422");
+    expectRouteHandlerPolicy(invalid, "422");
     expect(invalid.headers.get("cache-control")).toBe("no-store");
 
     const created = await engineer.request("/api/devices", {
@@ -159,6 +183,7 @@ describe("route handlers", () => {
     });
     expect(created.status, await created.clone().text()).toBe(201);
     expect(created.headers.get("cache-control")).toBe("no-store");
+    expectRouteHandlerPolicy(created, "201");
   });
 
   it("JSON behind a bench token: no-store on success and on errors", async () => {
@@ -174,19 +199,19 @@ describe("route handlers", () => {
       origin: null,
     });
     expect(posted.status, await posted.clone().text()).toBe(201);
-    expectBaseHeaders(posted, "bench upload");
+    expectRouteHandlerPolicy(posted, "bench upload");
     expect(posted.headers.get("cache-control")).toBe("no-store");
 
     const refused = await bench.request("/api/v1/measurements", { multipart: new FormData(), headers: { authorization: "Bearer bfd_not-a-token" }, origin: null });
     expect(refused.status).toBe(401);
-    expectBaseHeaders(refused, "bench upload refused");
+    expectRouteHandlerPolicy(refused, "bench upload refused");
     expect(refused.headers.get("cache-control")).toBe("no-store");
   });
 
   it("next-auth's session answer is not stored either", async () => {
     const r = await engineer.request("/api/auth/session");
     expect(r.status).toBe(200);
-    expectBaseHeaders(r, "GET /api/auth/session");
+    expectRouteHandlerPolicy(r, "GET /api/auth/session");
     expect(r.headers.get("cache-control")).toMatch(/\bno-store\b/);
   });
 
@@ -194,15 +219,44 @@ describe("route handlers", () => {
     const r = await demoEngineer.request(`/api/devices/${deviceId}/sheet/pdf`);
     expect(r.status).toBe(200);
     expect(r.headers.get("content-type")).toBe("application/pdf");
-    expectBaseHeaders(r, "PDF");
+    expectRouteHandlerPolicy(r, "PDF");
     expect(r.headers.get("cache-control")).toBe("private, no-cache");
     const etag = r.headers.get("etag");
     expect(etag).toMatch(/^W\/".+"$/);
     await r.arrayBuffer();
     const again = await demoEngineer.request(`/api/devices/${deviceId}/sheet/pdf`, { headers: { "if-none-match": etag! } });
     expect(again.status).toBe(304);
-    expectBaseHeaders(again, "PDF 304");
+    expectRouteHandlerPolicy(again, "PDF 304");
     expect(again.headers.get("cache-control")).toBe("private, no-cache");
+  });
+});
+
+describe("route handlers (continued)", () => {
+  it("a released sheet's public PDF and JSON carry the policy too", async () => {
+    const pdf = await anonymous.request("/api/v1/sheets/kestrine/KDX-2G4/current/pdf");
+    expect(pdf.status).toBe(200);
+    expect(pdf.headers.get("content-type")).toBe("application/pdf");
+    expectRouteHandlerPolicy(pdf, "released PDF");
+    await pdf.arrayBuffer();
+    const json = await anonymous.request("/api/v1/sheets/kestrine/KDX-2G4/current");
+    expect(json.status).toBe(200);
+    expectRouteHandlerPolicy(json, "released sheet JSON");
+    const missing = await anonymous.request("/api/v1/sheets/kestrine/NO-SUCH-PART/current/pdf");
+    expect(missing.status).toBe(404);
+    expectRouteHandlerPolicy(missing, "released PDF 404");
+  });
+
+  it("next-auth's own HTML (its sign-out page) and an /api address with no handler (Next's 404 page)", async () => {
+    const signOutPage = await engineer.request("/api/auth/signout");
+    expect(signOutPage.status).toBe(200);
+    expect(signOutPage.headers.get("content-type")).toMatch(/^text\/html/);
+    expectRouteHandlerPolicy(signOutPage, "next-auth sign-out page");
+    expect(await signOutPage.text()).toMatch(/<form[^>]+method="POST"/i);
+
+    const nothing = await anonymous.request("/api/no-such-endpoint");
+    expect(nothing.status).toBe(404);
+    expectRouteHandlerPolicy(nothing, "/api 404");
+    await nothing.arrayBuffer();
   });
 });
 

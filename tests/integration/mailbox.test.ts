@@ -1,3 +1,5 @@
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
@@ -61,6 +63,13 @@ describe("the dev mailbox", () => {
       expect(r.status, `${path} with ${JSON.stringify(headers)}`).toBe(404);
       expect(r.body).not.toContain(resetToken);
     }
+  });
+
+  it("the running server's own log says plainly that mail is not being delivered", () => {
+    // scripts/test.sh starts the server as npm start does, its output in this file.
+    const log = readFileSync(path.join(process.env.BENCHFOLD_DATA_DIR ?? ".data", "logs", "next-test-server.log"), "utf8");
+    expect(log).toContain("MAIL IS NOT BEING DELIVERED");
+    expect(log).toMatch(/\/dev\/mailbox, only from this machine/);
   });
 
   it("the fake SMTP server's own read-out answers only this machine's requests by a loopback name", async () => {

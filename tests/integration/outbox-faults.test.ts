@@ -206,6 +206,10 @@ describe("outbox under mail faults", () => {
     expect([...copies.keys()].sort()).toEqual([...recipients].sort());
     for (const row of sent) expect(copies.get(row.recipient)?.map((m) => m.messageId)).toEqual([row.messageId]);
     expect(sent.every((r) => r.lastError === null && r.attempts > 3)).toBe(true);
+    console.log(
+      `[outbox faults] outage: ${recipients.length} notices, ${sent.reduce((n, r) => n + r.attempts, 0)} attempts through refused and 451, ` +
+        `${recipients.length - copies.size} lost, ${relay.received.length} mails delivered`,
+    );
 
     worker.child.kill("SIGTERM");
     expect(await worker.exited).toEqual({ code: 0, signal: null });
@@ -251,6 +255,10 @@ describe("outbox under mail faults", () => {
     const duplicates = [...copies.values()].reduce((sum, list) => sum + list.length - 1, 0);
     expect(duplicates).toBeGreaterThan(0);
     expect(duplicates).toBeLessThanOrEqual(crashes);
+    console.log(
+      `[outbox faults] ${crashes} workers killed between send and mark: ${recipients.length} notices, ` +
+        `${recipients.length - copies.size} lost, ${duplicates} duplicate(s), ${relay.received.length} mails delivered`,
+    );
     // Every copy of a notice carries its row's Message-ID, so a client can drop the repeat.
     for (const row of rows) expect(new Set(copies.get(row.recipient)!.map((m) => m.messageId))).toEqual(new Set([row.messageId]));
 

@@ -4,7 +4,8 @@ import bcrypt from "bcryptjs";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { db } from "@/models";
-import { passwordHashCost } from "../accounts/hash-password";
+import { hashPassword, needsRehash, passwordHashCost } from "../accounts/hash-password";
+import { recordAuditEvent } from "../audit/record-audit-event";
 import { serverConfig } from "../config";
 import { isRole } from "@/lib/domain/permissions";
 import { clientAddress, isSignInThrottled, recordSignInAttempt } from "./rate-limit";
@@ -41,7 +42,26 @@ export const authOptions: NextAuthOptions = {
         const ok = Boolean(user && matches && !user.disabledAt);
         await recordSignInAttempt(email, address, ok);
         if (!ok || !user) throw new Error(signInErrors.invalid);
-        await user.update({ lastSignInAt: new Date() });
+        if (needsRehash(user.passwordHash)) {
+          // The password was just checked, so it can be stored again at today's cost; the same
+          // password, so no session ends. Only while the stored hash is still the one checked.
+          const passwordHash = await hashPassword(password);
+          await db().sequelize.transaction(async (transaction) => {
+            const [changed] = await User.update(
+              { passwordHash, lastSignInAt: new Date() },
+              { where: { id: user.id, passwordHash: user.passwordHash }, transaction },
+            );
+            if (changed) {
+              await recordAuditEvent(
+                { organizationId: user.organizationId, actorUserId: user.id, action: "account.password-rehashed", subjectType: "user", subjectId: user.id,
+                  before: { bcryptCost: bcrypt.getRounds(user.passwordHash) }, after: { bcryptCost: passwordHashCost } },
+                transaction,
+              );
+            }
+          });
+        } else {
+          await user.update({ lastSignInAt: new Date() });
+        }
         return {
           id: String(user.id),
           email: user.email,

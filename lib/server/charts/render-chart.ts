@@ -6,6 +6,7 @@ import * as vega from "vega";
 import { compile, type TopLevelSpec } from "vega-lite";
 import type { SheetModel } from "../../sheet/types";
 import { fontFiles, SANS_FAMILY } from "../pdf/fonts";
+import { KeptResults } from "../kept-results";
 
 /**
  * Vega-Lite spec → SVG with Vega's headless view (renderer "none", no canvas):
@@ -48,28 +49,18 @@ async function svgToPng(svg: string, scale: number): Promise<Buffer> {
 }
 
 // A spec's picture never changes, and previews render the same sheet again and again: SVGs (web)
-// and PNGs (PDF) are kept in a small content-addressed cache, oldest entry out first.
+// and PNGs (PDF) are kept in a small content-addressed cache, oldest entry out first, as values
+// (never a request's promise: lib/server/kept-results.ts).
 const CACHE_ENTRIES = 64;
-const svgCache = new Map<string, Promise<string>>();
-const pngCache = new Map<string, Promise<Buffer>>();
-
-function remember<T>(cache: Map<string, Promise<T>>, key: string, make: () => Promise<T>): Promise<T> {
-  let value = cache.get(key);
-  if (!value) {
-    value = make();
-    value.catch(() => cache.delete(key));
-    cache.set(key, value);
-    if (cache.size > CACHE_ENTRIES) cache.delete(cache.keys().next().value!);
-  }
-  return value;
-}
+const svgCache = new KeptResults<string>(CACHE_ENTRIES);
+const pngCache = new KeptResults<Buffer>(CACHE_ENTRIES);
 
 function specKey(vegaLite: Record<string, unknown>): string {
   return createHash("sha256").update(JSON.stringify(vegaLite)).digest("hex");
 }
 
 function cachedChartSvg(key: string, vegaLite: Record<string, unknown>): Promise<string> {
-  return remember(svgCache, key, () => renderChartSvg(vegaLite));
+  return svgCache.get(key, () => renderChartSvg(vegaLite));
 }
 
 /** Charts built for one page (the design-in calculator's) as SVG markup, keyed by id, through the same cache. */
@@ -94,7 +85,7 @@ export async function renderSheetChartPngs(model: SheetModel): Promise<Record<st
   const entries = await Promise.all(
     model.charts.map(async (chart) => {
       const key = specKey(chart.vegaLite);
-      return [chart.id, await remember(pngCache, key, async () => svgToPng(await cachedChartSvg(key, chart.vegaLite), 3))] as const;
+      return [chart.id, await pngCache.get(key, async () => svgToPng(await cachedChartSvg(key, chart.vegaLite), 3))] as const;
     }),
   );
   return Object.fromEntries(entries);

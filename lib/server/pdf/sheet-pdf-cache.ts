@@ -1,6 +1,7 @@
 import "server-only";
 import { createHash } from "node:crypto";
 import { serializeSheetModel, type SheetModel } from "../../sheet";
+import { KeptResults } from "../kept-results";
 import { sheetPdfRenderPool } from "./pdf-render-pool";
 
 /** The model's digest: the same model always gives the same PDF content, so it names the PDF. */
@@ -10,21 +11,11 @@ export function sheetModelDigest(model: SheetModel): string {
 
 // A PDF render costs a worker most of a second. The preview reloads the same draft after every
 // save and customers download the same revision again and again, so the last few PDFs are kept by
-// model digest (about 0.4 MB each), oldest out first. A failed render is not kept.
-const ENTRIES = 16;
-const pdfs = new Map<string, Promise<Buffer>>();
+// model digest (about 0.4 MB each), oldest out first: the bytes, not the promise of the request
+// that asked first (lib/server/kept-results.ts). A failed render is not kept.
+const pdfs = new KeptResults<Buffer>(16);
 
 /** The sheet's PDF, rendered once per distinct model while it stays among the last few asked for. */
 export function sheetPdfFor(model: SheetModel, digest = sheetModelDigest(model)): Promise<Buffer> {
-  let pdf = pdfs.get(digest);
-  if (pdf) {
-    pdfs.delete(digest);
-    pdfs.set(digest, pdf);
-    return pdf;
-  }
-  pdf = sheetPdfRenderPool().render(model);
-  pdf.catch(() => pdfs.delete(digest));
-  pdfs.set(digest, pdf);
-  if (pdfs.size > ENTRIES) pdfs.delete(pdfs.keys().next().value!);
-  return pdf;
+  return pdfs.get(digest, () => sheetPdfRenderPool().render(model));
 }

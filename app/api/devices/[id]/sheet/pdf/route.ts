@@ -1,4 +1,5 @@
 import { route } from "@/lib/server/auth/guard";
+import { pdfBody } from "@/lib/server/pdf/pdf-body";
 import { sheetModelDigest, sheetPdfFor } from "@/lib/server/pdf/sheet-pdf-cache";
 import { readIdParam } from "@/lib/server/route-params";
 import { buildDraftSheet } from "@/lib/server/sheets/load-draft-sheet";
@@ -26,5 +27,5 @@ export const GET = route({ resource: "sheet-drafts" }, async ({ user, params, re
   const wanted = request.headers.get("if-none-match");
   if (wanted && wanted.split(",").some((tag) => tag.trim() === etag)) return new Response(null, { status: 304, headers });
   const pdf = await sheetPdfFor(model, digest);
-  return new Response(new Uint8Array(pdf), { headers: { ...headers, "content-type": "application/pdf" } });
+  return new Response(pdfBody(pdf), { headers: { ...headers, "content-type": "application/pdf", "content-length": String(pdf.length) } });
 });

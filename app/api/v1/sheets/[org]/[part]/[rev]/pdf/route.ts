@@ -1,4 +1,5 @@
 import { route } from "@/lib/server/auth/guard";
+import { pdfBody } from "@/lib/server/pdf/pdf-body";
 import { findReleasedPdf } from "@/lib/server/reviews/list-revisions";
 import { sheetPdfFileName } from "@/lib/sheet/file-name";
 
@@ -22,5 +23,5 @@ export const GET = route({ resource: "released-sheets" }, async ({ params, reque
   };
   const wanted = request.headers.get("if-none-match");
   if (wanted && wanted.split(",").some((tag) => tag.trim() === etag)) return new Response(null, { status: 304, headers });
-  return new Response(new Uint8Array(released.pdf), { headers: { ...headers, "content-type": "application/pdf", "content-length": String(released.pdf.length) } });
+  return new Response(pdfBody(released.pdf), { headers: { ...headers, "content-type": "application/pdf", "content-length": String(released.pdf.length) } });
 });
