@@ -11,6 +11,7 @@ export type IngestErrorCode =
   | "unknown-kind"
   | "missing-header"
   | "mixed-delimiters"
+  | "bad-quoting"
   | "cell-count"
   | "empty-cell"
   | "bad-number"

@@ -59,6 +59,12 @@ const CASES: Case[] = [
   { file: "freq-negative.csv", code: "out-of-range", line: 6, column: 1, field: "frequency [MHz]", says: "-500 MHz is outside the plausible range" },
   { file: "freq-unknown-unit.csv", code: "unknown-unit", line: 5, column: 1, field: "frequency [THz]", says: "expected one of Hz, kHz, MHz, GHz" },
   { file: "freq-no-measured-column.csv", code: "missing-column", line: 5, says: "needs at least one of" },
+  { file: "quoted-unclosed.csv", code: "bad-quoting", line: 8, column: 2, says: "this cell opens a quote that is never closed" },
+  { file: "quoted-text-after-quote.csv", code: "bad-quoting", line: 8, column: 2, says: 'text after the closing quote of this cell ("dB")' },
+  { file: "quoted-stray-quote.csv", code: "bad-quoting", line: 8, column: 3, says: "a quote inside an unquoted cell" },
+  // Line 7 holds a quoted line break, so the row with "6,01" is physical line 9 (the 8th record line).
+  { file: "quoted-bad-number-after-line-break.csv", code: "bad-number", line: 9, column: 2, field: "conversion_loss [dB]", says: 'found "6,01"; a decimal comma is read only in semicolon-delimited files: write 6.01 or use semicolons' },
+  { file: "quoted-short-row.csv", code: "truncated", line: 8, says: "row has 3 cells, expected 4" },
   { file: "freq-too-many-cells.csv", code: "cell-count", line: 7, says: "row has 4 cells, expected 3" },
   { file: "two-tone-negative-milliwatts.csv", code: "out-of-range", line: 6, column: 1, field: "input_power [mW]", says: "must be greater than 0, found -1 mW" },
   { file: "two-tone-missing-im3.csv", code: "missing-column", line: 4, field: "im3_out", says: 'required column "im3_out [dBm]"' },
