@@ -12,7 +12,7 @@
  * A file without a single quote character is split by the fast scanner in csv-table.ts instead:
  * without quotes, RFC 4180 cells are exactly the text between delimiters.
  */
-import { parse, type InfoRecord } from "csv-parse/sync";
+import { parse } from "csv-parse/sync";
 import { IngestError, shortenFound } from "./errors";
 
 export type Delimiter = "," | ";" | "\t";
@@ -61,10 +61,11 @@ export function tokenizeCsv(opts: { fileName: string; text: string; from: number
   // csv-parse counts a CRLF inside a quoted cell as two lines; with LF only its count is exact.
   const slice = opts.text.slice(opts.from);
   const body = slice.includes("\r\n") ? slice.replace(/\r\n/g, "\n") : slice;
-  const cells: string[][] = [];
-  const lines: number[] = [];
+  let cells: string[][];
   try {
-    parse(body, {
+    // Plain array output: an on_record callback makes csv-parse build two info objects per record,
+    // which cost a third of the time in a profile; the lines are counted by recordLines instead.
+    cells = parse(body, {
       delimiter,
       record_delimiter: "\n",
       quote: '"',
@@ -74,16 +75,8 @@ export function tokenizeCsv(opts: { fileName: string; text: string; from: number
       comment_no_infix: true,
       skip_empty_lines: true,
       relax_column_count: true,
-      on_record: (record: string[], context: InfoRecord) => {
-        let spanned = 0;
-        for (let k = 0; k < record.length; k++) if (record[k].includes("\n")) spanned += countNewlines(record[k]);
-        cells.push(record);
-        lines.push(firstLine + context.lines - 1 - spanned);
-        return null;
-      },
     });
   } catch (error) {
-    if (error instanceof IngestError) throw error;
     const code = (error as { code?: string }).code ?? "";
     const found = locateQuoteProblem(body, delimiter);
     if (found) {
@@ -105,7 +98,39 @@ export function tokenizeCsv(opts: { fileName: string; text: string; from: number
       detail: `the rows cannot be split into cells (${code || "unreadable quoting"})`,
     });
   }
-  return { cells, lines };
+  return { cells, lines: recordLines(body, cells, firstLine) };
+}
+
+/**
+ * The physical line each record starts on, walking the LF-only text beside csv-parse's records:
+ * lines csv-parse skips (blank or whitespace only, or "#" after optional spaces) are stepped over
+ * with the same rule, and a record covers one line plus the line breaks inside its cells.
+ */
+function recordLines(body: string, cells: string[][], firstLine: number): number[] {
+  const lines = new Array<number>(cells.length);
+  let pos = 0;
+  let line = firstLine;
+  for (let r = 0; r < cells.length; r++) {
+    for (;;) {
+      let j = pos;
+      while (j < body.length && isSpace(body.charCodeAt(j))) j++;
+      const c = body.charCodeAt(j);
+      if (c !== 10 && c !== 35) break;
+      const nl = body.indexOf("\n", j);
+      pos = nl === -1 ? body.length : nl + 1;
+      line++;
+    }
+    lines[r] = line;
+    const record = cells[r];
+    let spanned = 1;
+    for (let k = 0; k < record.length; k++) if (record[k].includes("\n")) spanned += countNewlines(record[k]);
+    for (let h = 0; h < spanned; h++) {
+      const nl = body.indexOf("\n", pos);
+      pos = nl === -1 ? body.length : nl + 1;
+      line++;
+    }
+  }
+  return lines;
 }
 
 interface QuoteProblem {

@@ -1,3 +1,4 @@
+import { parse } from "csv-parse/sync";
 import { describe, expect, it } from "vitest";
 import { detectKind, IngestError, parseDriveSweep, parseFrequencySweep, parseMeasurementFile, parseTwoTone } from "@/lib/ingest";
 import { parseMappedFile, readForeignTable } from "@/lib/ingest/column-mapping";
@@ -36,6 +37,38 @@ describe("RFC 4180 quoting in our CSV files", () => {
     const t = tokenizeCsv({ fileName: "t.csv", text, from: 0, firstLine: 10, delimiter: "," });
     expect(t.cells).toEqual([["a", "b"], ["1", "x\ny"], ["2", "p\nq\nr"], ["3", "4"]]);
     expect(t.lines).toEqual([10, 11, 13, 18]);
+  });
+
+  it("record lines agree with csv-parse's own line count on random LF files with comments, blanks and quoted line breaks", () => {
+    let seed = 11;
+    const rand = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+    const pieces = ["1", " 2 ", '"3"', ' "a, b" ', '"x\ny"', '"p ""q"" r"', '"\n#not a comment\n"', "", '"#5"'];
+    for (let trial = 0; trial < 200; trial++) {
+      const out: string[] = [];
+      for (let r = 0; r < 12; r++) {
+        const u = rand();
+        if (u < 0.1) out.push("");
+        else if (u < 0.15) out.push("  \t ");
+        else if (u < 0.25) out.push(`${rand() < 0.5 ? "  " : ""}# note "with, quote`);
+        else out.push([0, 1, 2].map(() => pieces[Math.floor(rand() * pieces.length)]).join(","));
+      }
+      const text = `h1,h2,h3\n${out.join("\n")}\n`;
+      const expected: number[] = [];
+      parse(text, {
+        delimiter: ",",
+        record_delimiter: "\n",
+        trim: true,
+        comment: "#",
+        comment_no_infix: true,
+        skip_empty_lines: true,
+        relax_column_count: true,
+        on_record: (rec: string[], ctx: { lines: number }) => {
+          expected.push(ctx.lines - rec.reduce((n, c) => n + c.split("\n").length - 1, 0));
+          return null;
+        },
+      });
+      expect(tokenizeCsv({ fileName: "r.csv", text, from: 0, firstLine: 1, delimiter: "," }).lines).toEqual(expected);
+    }
   });
 
   it("a doubled quote is one quote, and spaces around a quoted cell are ignored", () => {
