@@ -24,6 +24,7 @@ export type IngestErrorCode =
   | "bad-metadata"
   | "duplicate-metadata"
   | "out-of-range"
+  | "implausible-value"
   | "non-monotonic"
   | "duplicate-value"
   | "too-few-points"

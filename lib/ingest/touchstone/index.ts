@@ -59,6 +59,7 @@ export function parseTouchstone(fileName: string, content: FileContent, options:
   }
   checkComplete(s);
   data.finish();
+  if (options.passive !== false) data.checkPassive(s.warnings);
 
   const referenceOhm = s.references ?? new Array<number>(s.ports).fill(s.referenceOhm);
   return {
