@@ -584,3 +584,19 @@ export function unusedColumns(doc: CsvDocument, requests: ColumnRequest[]): stri
   const used = new Set(requests.map((r) => r.cell.index));
   return doc.header.filter((c) => !used.has(c.index)).map((c) => c.raw);
 }
+
+/** The text of one cell, found again by its line (for messages that quote a value as written); undefined if not found. */
+export function cellText(doc: CsvDocument, line: number, index: number): string | undefined {
+  if (doc.quotedRows) {
+    const r = doc.quotedRows.lines.indexOf(line);
+    return r === -1 ? undefined : doc.quotedRows.cells[r][index];
+  }
+  let pos = 0;
+  for (let n = 1; n < line; n++) {
+    const nl = doc.text.indexOf("\n", pos);
+    if (nl === -1) return undefined;
+    pos = nl + 1;
+  }
+  const nl = doc.text.indexOf("\n", pos);
+  return doc.text.slice(pos, nl === -1 ? doc.text.length : nl).split(doc.delimiter)[index];
+}

@@ -10,7 +10,7 @@
  * file gives them.
  */
 import { formatQuantity } from "../format";
-import type { ColumnRequest, CsvDocument } from "./csv-table";
+import { cellText, type ColumnRequest, type CsvDocument } from "./csv-table";
 import { IngestError } from "./errors";
 
 /** Every plausibility warning starts with this, so the sheet can list them among its open issues. */
@@ -28,6 +28,7 @@ export function isPlausibilityWarning(warning: string): boolean {
  */
 export const POWER_READING_UNCERTAINTY_DB = 0.5;
 export const PASSIVE_GAIN_REFUSED_ABOVE_DB = 2 * POWER_READING_UNCERTAINTY_DB;
+const SLACK_DB = 1e-9;
 
 /**
  * A passive network's scattering matrix satisfies I − SᴴS ⪰ 0 (lossless when equal), so every
@@ -39,12 +40,25 @@ export const PASSIVE_GAIN_REFUSED_ABOVE_DB = 2 * POWER_READING_UNCERTAINTY_DB;
 export const S_WARN_ABOVE_DB = 0.1;
 export const S_REFUSED_ABOVE_DB = 1.0;
 
-/** Decimals of the shortest text that reads back as x: the precision the file gave it (at most 4). */
+/** Decimals of the shortest text that reads back as x, when the written text is not at hand (at most 4). */
 export function decimalsOf(x: number): number {
-  const t = String(Math.abs(x));
-  if (t.includes("e")) return 3;
-  const dot = t.indexOf(".");
-  return dot === -1 ? 0 : Math.min(4, t.length - dot - 1);
+  return writtenDecimals(String(Math.abs(x)));
+}
+
+/** Decimals as written: "15.00" → 2, "-7,5" → 1, "1e-3" → 3; at most 4. */
+export function writtenDecimals(text: string): number {
+  const t = text.trim();
+  if (/e/i.test(t)) return 3;
+  const sep = Math.max(t.indexOf("."), t.indexOf(","));
+  return sep === -1 ? 0 : Math.min(4, t.length - sep - 1);
+}
+
+/** Decimals of a CSV value as the file wrote it, when the column is in the unit printed (dBm, dB); else 2. */
+function csvDecimals(doc: CsvDocument, request: ColumnRequest, line: number, value: number): number {
+  const unit = request.conversion.unit.toLowerCase();
+  if (unit !== "dbm" && unit !== "db") return 2;
+  const text = cellText(doc, line, request.cell.index);
+  return text === undefined ? decimalsOf(value) : writtenDecimals(text);
 }
 
 /** A value printed by the one formatter, at a given number of decimals, as plain text (messages go to the CLI too). */
@@ -73,16 +87,20 @@ export function checkPassiveCsv(doc: CsvDocument, columns: PassiveColumns, warni
       let rows = 0;
       for (let r = 0; r < lines.length; r++) {
         const excess = out.values[r] - input.values[r];
-        if (!(excess > 0)) continue;
+        // Differences of decimal readings carry binary tails (11.37 − 10.37 = 1.0000000000000009): compare with a slack.
+        if (!(excess > SLACK_DB)) continue;
         rows++;
-        if (excess > PASSIVE_GAIN_REFUSED_ABOVE_DB) refuseGain(doc, out.request, input.request, out.values[r], input.values[r], lines[r]);
+        if (excess > PASSIVE_GAIN_REFUSED_ABOVE_DB + SLACK_DB) {
+          const d = Math.max(csvDecimals(doc, out.request, lines[r], out.values[r]), csvDecimals(doc, input.request, lines[r], input.values[r]));
+          refuseGain(doc, out.request, input.request, out.values[r], input.values[r], lines[r], d);
+        }
         if (excess > worstExcess) {
           worstExcess = excess;
           worst = r;
         }
       }
       if (worst >= 0) {
-        const d = Math.max(decimalsOf(out.values[worst]), decimalsOf(input.values[worst]));
+        const d = Math.max(csvDecimals(doc, out.request, lines[worst], out.values[worst]), csvDecimals(doc, input.request, lines[worst], input.values[worst]));
         warnings.push(
           `${PLAUSIBILITY_PREFIX}"${out.request.cell.raw}" is above "${input.request.cell.raw}" on ${rows} row${rows === 1 ? "" : "s"}, ` +
             `by up to ${printed(worstExcess, "dB", d)} (line ${lines[worst]}: ${printed(out.values[worst], "dBm", d)} out, ${printed(input.values[worst], "dBm", d)} in); ` +
@@ -97,24 +115,23 @@ export function checkPassiveCsv(doc: CsvDocument, columns: PassiveColumns, warni
     let rows = 0;
     for (let r = 0; r < lines.length; r++) {
       const v = loss.values[r];
-      if (!(v < 0)) continue;
+      if (!(v < -SLACK_DB)) continue;
       rows++;
-      if (-v > PASSIVE_GAIN_REFUSED_ABOVE_DB) refuseNegativeLoss(doc, loss.request, v, lines[r]);
+      if (-v > PASSIVE_GAIN_REFUSED_ABOVE_DB + SLACK_DB) refuseNegativeLoss(doc, loss.request, v, lines[r], csvDecimals(doc, loss.request, lines[r], v));
       if (worst === -1 || v < loss.values[worst]) worst = r;
     }
     if (worst >= 0) {
       const v = loss.values[worst];
       warnings.push(
         `${PLAUSIBILITY_PREFIX}"${loss.request.cell.raw}" is negative (a gain) on ${rows} row${rows === 1 ? "" : "s"}, ` +
-          `down to ${printed(v, "dB", decimalsOf(v))} on line ${lines[worst]}; within the ${printed(PASSIVE_GAIN_REFUSED_ABOVE_DB, "dB", 1)} ` +
+          `down to ${printed(v, "dB", csvDecimals(doc, loss.request, lines[worst], v))} on line ${lines[worst]}; within the ${printed(PASSIVE_GAIN_REFUSED_ABOVE_DB, "dB", 1)} ` +
           "that two readings allow, but a passive part has no gain: check the calibration and the offsets",
       );
     }
   }
 }
 
-function refuseGain(doc: CsvDocument, out: ColumnRequest, input: ColumnRequest, outDbm: number, inDbm: number, line: number): never {
-  const d = Math.max(decimalsOf(outDbm), decimalsOf(inDbm));
+function refuseGain(doc: CsvDocument, out: ColumnRequest, input: ColumnRequest, outDbm: number, inDbm: number, line: number, d: number): never {
   throw new IngestError({
     fileName: doc.fileName,
     code: "implausible-value",
@@ -130,8 +147,7 @@ function refuseGain(doc: CsvDocument, out: ColumnRequest, input: ColumnRequest, 
   });
 }
 
-function refuseNegativeLoss(doc: CsvDocument, loss: ColumnRequest, lossDb: number, line: number): never {
-  const d = decimalsOf(lossDb);
+function refuseNegativeLoss(doc: CsvDocument, loss: ColumnRequest, lossDb: number, line: number, d: number): never {
   throw new IngestError({
     fileName: doc.fileName,
     code: "implausible-value",

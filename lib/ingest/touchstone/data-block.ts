@@ -8,7 +8,7 @@ import { shortenFound } from "../errors";
 import { looksNonFinite, parseNumberAt } from "../number";
 import type { TouchstoneData } from "../types";
 import { formatQuantity } from "../../format";
-import { decimalsOf, PLAUSIBILITY_PREFIX, printed, S_REFUSED_ABOVE_DB, S_WARN_ABOVE_DB } from "../plausibility";
+import { PLAUSIBILITY_PREFIX, printed, S_REFUSED_ABOVE_DB, S_WARN_ABOVE_DB, writtenDecimals } from "../plausibility";
 import { RANGES } from "../units";
 import { entryName, fail, partName, type Pair, type State } from "./state";
 
@@ -83,6 +83,8 @@ export class DataBlock {
   /** Per data line: its number and the index of its first value in raw, for naming a value's line and column. */
   private lineNumbers = new Int32Array(256);
   private lineFirstValue = new Int32Array(256);
+  private lineStart = new Int32Array(256);
+  private text = "";
   private dataLines = 0;
   /** Numbers on the first data line, and whether every data line held as many (a port-count mismatch shows as such). */
   private firstLineCount = 0;
@@ -132,7 +134,8 @@ export class DataBlock {
       this.checkV2Line(n, lineNo);
     }
     if (this.recordPos === 0) this.checkFrequency(this.raw[lineFirst] * this.s.frequencyScale, text.slice(start, end), lineNo);
-    this.noteLine(lineNo, lineFirst, n);
+    this.noteLine(lineNo, lineFirst, n, start);
+    this.text = text;
     this.count += n;
     this.recordPos += n;
     if (this.recordPos === this.recordLength) {
@@ -142,15 +145,18 @@ export class DataBlock {
     this.lastDataLine = lineNo;
   }
 
-  private noteLine(lineNo: number, first: number, n: number): void {
+  private noteLine(lineNo: number, first: number, n: number, start: number): void {
     if (this.dataLines === this.lineNumbers.length) {
-      const numbers = new Int32Array(this.dataLines * 2);
-      numbers.set(this.lineNumbers);
-      this.lineNumbers = numbers;
-      const firsts = new Int32Array(this.dataLines * 2);
-      firsts.set(this.lineFirstValue);
-      this.lineFirstValue = firsts;
+      const grow = (a: Int32Array) => {
+        const b = new Int32Array(a.length * 2);
+        b.set(a);
+        return b;
+      };
+      this.lineNumbers = grow(this.lineNumbers);
+      this.lineFirstValue = grow(this.lineFirstValue);
+      this.lineStart = grow(this.lineStart);
     }
+    this.lineStart[this.dataLines] = start;
     if (this.dataLines === 0) this.firstLineCount = n;
     else if (n !== this.firstLineCount) this.uniformLines = false;
     this.lineNumbers[this.dataLines] = lineNo;
@@ -158,8 +164,22 @@ export class DataBlock {
     this.dataLines++;
   }
 
+  /** Decimals of raw[index] as the file wrote it. */
+  private decimalsAt(index: number): number {
+    const { column, at } = this.locate(index);
+    const text = this.text;
+    let i = this.lineStart[at];
+    for (let c = 1; ; c++) {
+      while (i < text.length && isBlank(text.charCodeAt(i))) i++;
+      let e = i;
+      while (e < text.length && !isBlank(text.charCodeAt(e)) && text.charCodeAt(e) !== 10) e++;
+      if (c === column || e === i) return writtenDecimals(text.slice(i, e));
+      i = e;
+    }
+  }
+
   /** Line and 1-based column (value on its line) of raw[index]. */
-  private locate(index: number): { line: number; column: number } {
+  private locate(index: number): { line: number; column: number; at: number } {
     let lo = 0;
     let hi = this.dataLines - 1;
     while (lo < hi) {
@@ -167,7 +187,7 @@ export class DataBlock {
       if (this.lineFirstValue[mid] <= index) lo = mid;
       else hi = mid - 1;
     }
-    return { line: this.lineNumbers[lo], column: index - this.lineFirstValue[lo] + 1 };
+    return { line: this.lineNumbers[lo], column: index - this.lineFirstValue[lo] + 1, at: lo };
   }
 
   /** "2-port data" when n numbers make one record of a k-port file with k ≤ 2 laid out on one line (v1.1 and v2.0 alike). */
@@ -183,7 +203,7 @@ export class DataBlock {
 
   /** The data does not fit the declared port count: say so, with what the lines look like. */
   private failPortCount(lineNo: number, detail: string): never {
-    return fail(this.s, "port-count", `${this.portSource()}, ${detail}${DataBlock.looksLike(this.firstLineCount)}; rename the file or fix the port count`, {
+    return fail(this.s, "port-count", `${this.portSource()}, ${detail}${DataBlock.looksLike(this.firstLineCount)}; ${this.s.version === 1 ? "rename the file to the data's port count" : "correct [Number of Ports]"}`, {
       line: lineNo,
       expected: `${this.recordLength} numbers per frequency (${this.s.ports}-port data)`,
     });
@@ -311,7 +331,7 @@ export class DataBlock {
       this.failPortCount(this.lastDataLine, `so a frequency's record is ${this.recordLength} numbers, but the file ends after ${this.recordPos}`);
     }
     if (s.version === 2 && this.records !== s.declaredFrequencies && this.uniformLines && DataBlock.looksLike(this.firstLineCount) !== "" && this.firstLineCount !== this.recordLength) {
-      this.failPortCount(this.lineNumbers[0], `so a frequency's record is ${this.recordLength} numbers, and [Number of Frequencies] ${s.declaredFrequencies} does not match the ${this.records} records read that way`);
+      this.failPortCount(this.lineNumbers[0], `so a frequency's record is ${this.recordLength} numbers, and [Number of Frequencies] ${s.declaredFrequencies} does not match the ${this.records} record${this.records === 1 ? "" : "s"} read that way`);
     }
     if (this.recordPos !== 0 || (s.version === 1 && this.patternIndex !== 0)) {
       fail(s, "truncated", `the last frequency has only ${this.recordPos} of its ${this.recordLength} numbers; the file is truncated`, {
@@ -338,10 +358,12 @@ export class DataBlock {
     const { s, pairs, records, recordLength, raw } = this;
     const ports = s.ports;
     const format = s.format;
-    const entryWarn = 10 ** (S_WARN_ABOVE_DB / 20);
-    const entryRefuse = 10 ** (S_REFUSED_ABOVE_DB / 20);
-    const sumWarn = 10 ** (S_WARN_ABOVE_DB / 10);
-    const sumRefuse = 10 ** (S_REFUSED_ABOVE_DB / 10);
+    // A value exactly at a threshold (written "0.10" dB) stays below it despite rounding in 10^(x/20) and its square.
+    const slack = 1 + 1e-9;
+    const entryWarn = 10 ** (S_WARN_ABOVE_DB / 20) * slack;
+    const entryRefuse = 10 ** (S_REFUSED_ABOVE_DB / 20) * slack;
+    const sumWarn = 10 ** (S_WARN_ABOVE_DB / 10) * slack;
+    const sumRefuse = 10 ** (S_REFUSED_ABOVE_DB / 10) * slack;
     const power = new Float64Array(ports * ports);
     const columnSum = new Float64Array(ports);
     let worstEntry = { k: -1, p: 0, mag: 0, count: 0 };
@@ -392,8 +414,8 @@ export class DataBlock {
     const at = k * this.recordLength + 1 + 2 * p;
     const a = this.raw[at];
     const db = 20 * Math.log10(mag);
-    if (this.s.format === "DB") return printed(a, "dB", decimalsOf(a), true);
-    const d = this.s.format === "MA" ? decimalsOf(a) : Math.max(decimalsOf(a), decimalsOf(this.raw[at + 1]));
+    if (this.s.format === "DB") return printed(a, "dB", this.decimalsAt(at), true);
+    const d = this.s.format === "MA" ? this.decimalsAt(at) : Math.max(this.decimalsAt(at), this.decimalsAt(at + 1));
     return `|S| ${printed(mag, "", d)} (${printed(db, "dB", 2, true)})`;
   }
 
