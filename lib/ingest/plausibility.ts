@@ -13,12 +13,9 @@ import { formatQuantity } from "../format";
 import { cellText, type ColumnRequest, type CsvDocument } from "./csv-table";
 import { IngestError } from "./errors";
 
-/** Every plausibility warning starts with this, so the sheet can list them among its open issues. */
-export const PLAUSIBILITY_PREFIX = "Plausibility: ";
+import { PLAUSIBILITY_PREFIX } from "./plausibility-warning";
 
-export function isPlausibilityWarning(warning: string): boolean {
-  return warning.startsWith(PLAUSIBILITY_PREFIX);
-}
+export { isPlausibilityWarning, PLAUSIBILITY_PREFIX } from "./plausibility-warning";
 
 /**
  * Uncertainty of one absolute power reading (power meter or spectrum analyser), ±0.5 dB: common

@@ -5,6 +5,7 @@ import type { SheetInput } from "@/lib/sheet";
 import type { Curve } from "@/lib/analysis";
 import { db } from "@/models";
 import type { MeasurementSet, Instrument, Device, Organization } from "@/models";
+import { isPlausibilityWarning } from "@/lib/ingest/plausibility-warning";
 
 type SetWithInstruments = MeasurementSet & { Instruments?: Instrument[] };
 
@@ -27,7 +28,7 @@ export async function loadSheetInput(opts: {
   const [sets, limits, content] = await Promise.all([
     MeasurementSet.unscoped().findAll({
       where: { deviceId: device.id, organizationId: opts.organizationId, state: "approved", supersededById: { [Op.is]: null } },
-      attributes: ["id", "kind", "conditions", "measuredOn", "parameters", "curves"],
+      attributes: ["id", "kind", "conditions", "measuredOn", "parameters", "curves", "warnings"],
       include: [{ model: Instrument, through: { attributes: [] } }],
       order: [["id", "ASC"]],
     }),
@@ -53,6 +54,7 @@ export async function loadSheetInput(opts: {
       measuredOn: s.measuredOn ?? opts.date,
       parameters: s.parameters,
       curves: (s.curves ?? []) as Curve[],
+      plausibilityWarnings: (s.warnings ?? []).filter(isPlausibilityWarning),
       instruments: (s.Instruments ?? []).map((i) => ({
         kind: i.kind,
         model: i.model,
