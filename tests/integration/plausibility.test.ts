@@ -53,7 +53,8 @@ describe("plausibility through the bench API", () => {
     const r = await benchUpload("implausible/drive-harmonic-at-input.csv");
     expect(r.status).toBe(201);
     const { measurementSet } = (await r.json()) as { measurementSet: { id: number; warnings: string[] } };
-    expect(measurementSet.warnings).toContain(`Plausibility: ${warning}`);
+    // Once: the parser's warnings are not stored a second time through the analysis' copy of them.
+    expect(measurementSet.warnings.filter((w) => w === `Plausibility: ${warning}`)).toHaveLength(1);
 
     const setPage = await as.reviewer.request(`/devices/${device.id}/measurements/${measurementSet.id}`);
     expect(setPage.status).toBe(200);

@@ -111,7 +111,8 @@ export async function ingestMeasurement(input: IngestInput): Promise<Measurement
   const warnings = [...parsed.warnings];
   const conditions = mergeUploadConditions(parsed, fields, warnings);
   const derived = deriveParameters(parsed);
-  warnings.push(...derived.warnings);
+  // derived.warnings begins with the parser's own (deriveParameters concatenates them): store each once.
+  warnings.push(...derived.warnings.slice(parsed.warnings.length));
   const sha256 = createHash("sha256").update(file.bytes).digest("hex");
   const measuredOn = uploadMeasuredOn(parsed, fields) ?? new Date().toISOString().slice(0, 10);
 
