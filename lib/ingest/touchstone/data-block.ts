@@ -354,49 +354,47 @@ export class DataBlock {
    * gives the source and the tolerances). Beyond +1.0 dB the file is refused at the value's line
    * and column; from +0.1 to +1.0 dB one warning per kind names the worst case.
    */
-  checkPassive(warnings: string[]): void {
-    const { s, pairs, records, recordLength, raw } = this;
+  checkPassive(network: Pick<TouchstoneData, "sRe" | "sIm">, warnings: string[]): void {
+    const { s, pairs, records, recordLength } = this;
+    const { sRe, sIm } = network;
     const ports = s.ports;
-    const format = s.format;
+    // Compared as |S|² on the converted values: no logarithm or power per value, only for what is flagged.
     // A value exactly at a threshold (written "0.10" dB) stays below it despite rounding in 10^(x/20) and its square.
     const slack = 1 + 1e-9;
-    const entryWarn = 10 ** (S_WARN_ABOVE_DB / 20) * slack;
-    const entryRefuse = 10 ** (S_REFUSED_ABOVE_DB / 20) * slack;
-    const sumWarn = 10 ** (S_WARN_ABOVE_DB / 10) * slack;
-    const sumRefuse = 10 ** (S_REFUSED_ABOVE_DB / 10) * slack;
-    const power = new Float64Array(ports * ports);
-    const columnSum = new Float64Array(ports);
-    let worstEntry = { k: -1, p: 0, mag: 0, count: 0 };
+    const warnPower = 10 ** (S_WARN_ABOVE_DB / 10) * slack;
+    const refusePower = 10 ** (S_REFUSED_ABOVE_DB / 10) * slack;
+    const pairOf = new Int32Array(ports * ports).fill(-1);
+    pairs.forEach((p, k) => {
+      pairOf[p.i * ports + p.j] = k;
+      if (pairOf[p.j * ports + p.i] === -1) pairOf[p.j * ports + p.i] = k;
+    });
+    let worstEntry = { k: -1, p: 0, power: 0, count: 0 };
     let worstSum = { k: -1, j: 0, sum: 0, count: 0 };
     for (let k = 0; k < records; k++) {
-      const base = k * recordLength;
-      for (let p = 0; p < pairs.length; p++) {
-        const a = raw[base + 1 + 2 * p];
-        const b = raw[base + 2 + 2 * p];
-        const mag = format === "MA" ? Math.abs(a) : format === "DB" ? 10 ** (a / 20) : Math.hypot(a, b);
-        if (mag > entryWarn) {
-          if (mag > entryRefuse) this.refuseEntry(k, p, mag);
-          worstEntry.count++;
-          if (mag > worstEntry.mag) worstEntry = { k, p, mag, count: worstEntry.count };
-        }
-        const { i, j } = pairs[p];
-        power[i * ports + j] = mag * mag;
-        if (s.matrix !== "full") power[j * ports + i] = mag * mag;
-      }
-      columnSum.fill(0);
-      for (let i = 0; i < ports; i++) for (let j = 0; j < ports; j++) columnSum[j] += power[i * ports + j];
       for (let j = 0; j < ports; j++) {
-        if (columnSum[j] <= sumWarn) continue;
-        if (columnSum[j] > sumRefuse) this.refuseColumn(k, j, columnSum[j]);
+        let sum = 0;
+        for (let i = 0; i < ports; i++) {
+          const at = (i * ports + j) * records + k;
+          const power = sRe[at] * sRe[at] + sIm[at] * sIm[at];
+          sum += power;
+          if (power > warnPower && pairs[pairOf[i * ports + j]].i === i) {
+            const p = pairOf[i * ports + j];
+            if (power > refusePower) this.refuseEntry(k, p, Math.sqrt(power));
+            worstEntry.count++;
+            if (power > worstEntry.power) worstEntry = { k, p, power, count: worstEntry.count };
+          }
+        }
+        if (sum <= warnPower) continue;
+        if (sum > refusePower) this.refuseColumn(k, j, sum);
         worstSum.count++;
-        if (columnSum[j] > worstSum.sum) worstSum = { k, j, sum: columnSum[j], count: worstSum.count };
+        if (sum > worstSum.sum) worstSum = { k, j, sum, count: worstSum.count };
       }
     }
     if (worstEntry.k >= 0) {
       const { line } = this.locate(worstEntry.k * recordLength + 1 + 2 * worstEntry.p);
       warnings.push(
         `${PLAUSIBILITY_PREFIX}${worstEntry.count} S-parameter value${worstEntry.count === 1 ? " is" : "s are"} above 0 dB by more than ${printed(S_WARN_ABOVE_DB, "dB", 1)}, ` +
-          `up to ${this.magnitudeText(worstEntry.k, worstEntry.p, worstEntry.mag)} (${entryName(pairs[worstEntry.p])} at ${this.frequencyText(worstEntry.k)}, line ${line}); ` +
+          `up to ${this.magnitudeText(worstEntry.k, worstEntry.p, Math.sqrt(worstEntry.power))} (${entryName(pairs[worstEntry.p])} at ${this.frequencyText(worstEntry.k)}, line ${line}); ` +
           `a passive network stays at or below 0 dB, so this is more than a calibrated analyser's uncertainty: check the calibration`,
       );
     }
