@@ -275,7 +275,11 @@ const scratchLines = new Int32Array(SCRATCH_VALUES);
  * cells as the header; blank lines and "#" comment lines are skipped.
  */
 export function readCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): ColumnValues {
-  if (doc.quotedRows) return readQuotedColumns(doc, doc.quotedRows, requests);
+  // The scanner below is left as it was: a branch at its top changed V8's inlining and cost a third of the plain path's time.
+  return doc.quotedRows ? readQuotedColumns(doc, doc.quotedRows, requests) : scanCsvColumns(doc, requests);
+}
+
+function scanCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): ColumnValues {
   const { text, fileName, delimiter, decimalComma } = doc;
   const width = doc.header.length;
   const slot = new Int32Array(width).fill(-1);

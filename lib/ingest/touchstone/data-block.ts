@@ -370,20 +370,28 @@ export class DataBlock {
     });
     let worstEntry = { k: -1, p: 0, power: 0, count: 0 };
     let worstSum = { k: -1, j: 0, sum: 0, count: 0 };
-    for (let k = 0; k < records; k++) {
-      for (let j = 0; j < ports; j++) {
-        let sum = 0;
-        for (let i = 0; i < ports; i++) {
-          const at = (i * ports + j) * records + k;
-          const power = sRe[at] * sRe[at] + sIm[at] * sIm[at];
-          sum += power;
-          if (power > warnPower && pairs[pairOf[i * ports + j]].i === i) {
-            const p = pairOf[i * ports + j];
+    // Entry by entry, each a contiguous run across frequency (the entry-major layout), summing into one column buffer.
+    const columnSum = new Float64Array(records);
+    for (let j = 0; j < ports; j++) {
+      columnSum.fill(0);
+      for (let i = 0; i < ports; i++) {
+        const p = pairOf[i * ports + j];
+        const own = pairs[p].i === i;
+        const start = (i * ports + j) * records;
+        for (let k = 0; k < records; k++) {
+          const re = sRe[start + k];
+          const im = sIm[start + k];
+          const power = re * re + im * im;
+          columnSum[k] += power;
+          if (power > warnPower && own) {
             if (power > refusePower) this.refuseEntry(k, p, Math.sqrt(power));
             worstEntry.count++;
             if (power > worstEntry.power) worstEntry = { k, p, power, count: worstEntry.count };
           }
         }
+      }
+      for (let k = 0; k < records; k++) {
+        const sum = columnSum[k];
         if (sum <= warnPower) continue;
         if (sum > refusePower) this.refuseColumn(k, j, sum);
         worstSum.count++;
