@@ -19,6 +19,8 @@ interface Case {
   /** Data points in all files together (trace points, frequencies, sweep rows). */
   points: number;
   pointName: string;
+  /** The plain reference for this input (readPlain unless the cells are quoted). */
+  plain?: (bytes: Uint8Array) => number;
 }
 
 /** 100,000 offsets, 1 Hz … 10 MHz, a power-law trace with 0.3 dB noise and a spur every decade. */
@@ -89,6 +91,36 @@ function makeDriveSweepCase(random: () => number): Case {
   return { label: "2,000 drive sweeps", files, points: 2000 * steps, pointName: "rows" };
 }
 
+/**
+ * A spreadsheet's export of a 100,000-point mixer frequency sweep (RFC 4180): CRLF line ends, every
+ * cell quoted, a quoted header whose last cell holds the delimiter, remarks with doubled quotes, and
+ * a line break inside a quoted remark every 1,000 rows. Read through csv-parse (lib/ingest/csv-tokens.ts).
+ */
+function makeQuotedSweepCase(random: () => number): Case {
+  const count = 100_000;
+  const lines = [
+    "# kind: frequency-sweep",
+    "# serial: BENCH-Q001",
+    "# lo_power: 7 dBm",
+    "# if_frequency: 70 MHz",
+    '"frequency [MHz]","conversion_loss [dB]","isolation_lo_rf [dB]","remark, operator"',
+  ];
+  for (let i = 0; i < count; i++) {
+    const frequencyMhz = 500 + i * 0.1;
+    const lossDb = 6 + 0.4 * Math.sin(i / 5000) + 0.05 * gaussian(random);
+    const isolationDb = 37 - 5 * (i / count) + 0.2 * gaussian(random);
+    const remark = i % 1000 === 0 ? '"recal, then ""warm"" start\r\nsecond line"' : i % 7 === 0 ? '"ok, checked"' : '""';
+    lines.push(`"${frequencyMhz.toFixed(1)}","${lossDb.toFixed(3)}","${isolationDb.toFixed(2)}",${remark}`);
+  }
+  return {
+    label: "quoted CSV",
+    files: [{ fileName: "bench-quoted-sweep.csv", bytes: new TextEncoder().encode(`${lines.join("\r\n")}\r\n`) }],
+    points: count,
+    pointName: "frequencies",
+    plain: readPlainQuoted,
+  };
+}
+
 function encode(fileName: string, lines: string[]): { fileName: string; bytes: Uint8Array } {
   return { fileName, bytes: new TextEncoder().encode(`${lines.join("\n")}\n`) };
 }
@@ -101,6 +133,20 @@ function readPlain(bytes: Uint8Array): number {
     const first = line.charCodeAt(0);
     if (line.length === 0 || first === 35 || first === 33 || (first >= 97 && first <= 122)) continue;
     for (const cell of line.trim().split(/[\s,;]+/)) sum += Number(cell);
+  }
+  return sum;
+}
+
+/** The quoted reference: decode, split lines and commas, strip the quotes, Number() each cell, keep the numbers. */
+function readPlainQuoted(bytes: Uint8Array): number {
+  const text = new TextDecoder().decode(bytes);
+  let sum = 0;
+  for (const line of text.split("\n")) {
+    if (line.length === 0 || line.charCodeAt(0) === 35) continue;
+    for (const cell of line.split(",")) {
+      const v = Number(cell.charCodeAt(0) === 34 ? cell.slice(1, cell.lastIndexOf('"')) : cell);
+      if (v === v) sum += v;
+    }
   }
   return sum;
 }
@@ -131,7 +177,7 @@ function main(): void {
   if (!(reps >= 1)) throw new RangeError("--reps needs a positive number");
 
   const random = mulberry32(20261201);
-  const cases = [makePhaseNoiseCase(random), makeTouchstoneCase(random), makeDriveSweepCase(random)];
+  const cases = [makePhaseNoiseCase(random), makeTouchstoneCase(random), makeDriveSweepCase(random), makeQuotedSweepCase(random)];
   console.log(`Benchfold engine benchmark: median of ${reps} runs after 2 warm-ups, node ${process.version}\n`);
   const header = ["input", "MB", "engine ms", "parse ms", "derive ms", "plain ms", "engine Mpts/s", "engine MB/s", "plain MB/s", "parse/plain", "engine/plain"];
   const rows: string[][] = [];
@@ -142,7 +188,7 @@ function main(): void {
       for (const f of c.files) sink += deriveParameters(parseMeasurementFile(f)).parameters.length;
     });
     const plainMs = timeMedianMs(reps, () => {
-      for (const f of c.files) sink += readPlain(f.bytes);
+      for (const f of c.files) sink += (c.plain ?? readPlain)(f.bytes);
     });
     const parsed = c.files.map((f) => parseMeasurementFile(f));
     const parseMs = timeMedianMs(reps, () => {

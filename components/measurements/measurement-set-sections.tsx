@@ -9,6 +9,7 @@ import { Notice } from "@/components/ui/notice";
 import { NumberQuantity } from "@/components/ui/quantity";
 import { ReviewActions } from "./review-actions";
 import { TermGrid } from "@/components/ui/term-grid";
+import { isPlausibilityWarning, PLAUSIBILITY_PREFIX } from "@/lib/ingest/plausibility-warning";
 
 type SetProps = { device: DeviceSummary; set: MeasurementSetDetail };
 
@@ -102,12 +103,19 @@ export function SetWarnings({ warnings }: { warnings: string[] }) {
         <p className="border-y border-rule py-3 text-ink-muted">None: the file and the stated conditions agree.</p>
       ) : (
         <ul className="divide-y divide-rule border-y border-rule" data-testid="set-warnings">
-          {warnings.map((w, i) => (
-            <li key={i} className="py-2 text-[0.9375rem]">
-              <span className="running-head mr-2 !text-signal-deep">Warning</span>
-              {w}
-            </li>
-          ))}
+          {warnings.map((w, i) =>
+            isPlausibilityWarning(w) ? (
+              <li key={i} className="py-2 text-[0.9375rem]" data-testid="plausibility-warning">
+                <span className="running-head mr-2 !text-signal-deep">Plausibility</span>
+                {w.slice(PLAUSIBILITY_PREFIX.length)}
+              </li>
+            ) : (
+              <li key={i} className="py-2 text-[0.9375rem]">
+                <span className="running-head mr-2 !text-signal-deep">Warning</span>
+                {w}
+              </li>
+            ),
+          )}
         </ul>
       )}
     </>

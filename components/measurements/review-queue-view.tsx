@@ -6,6 +6,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { kindLabel } from "@/lib/domain/measurements";
 import { ScrollTable } from "@/components/ui/scroll-table";
 import { SetFileCell, SetLink, SetUploadedCell } from "./set-cells";
+import { isPlausibilityWarning } from "@/lib/ingest/plausibility-warning";
 
 type ReviewQueueViewProps = {
   organizationName: string;
@@ -59,6 +60,7 @@ export function ReviewQueueView({ organizationName, sets, sheets }: ReviewQueueV
                     <SetUploadedCell set={set} />
                     <td className="num">
                       <span className={`figure ${set.warnings.length ? "font-semibold text-signal-deep" : "text-ink-muted"}`}>{set.warnings.length}</span>
+                      <PlausibilityCount warnings={set.warnings} />
                     </td>
                   </tr>
                 );
@@ -68,5 +70,16 @@ export function ReviewQueueView({ organizationName, sets, sheets }: ReviewQueueV
         )}
       </section>
     </>
+  );
+}
+
+/** How many of a set's warnings are plausibility warnings: values a passive part should not show, for the reviewer to weigh. */
+function PlausibilityCount({ warnings }: { warnings: string[] }) {
+  const count = warnings.filter(isPlausibilityWarning).length;
+  if (count === 0) return null;
+  return (
+    <span className="block whitespace-nowrap text-[0.8125rem] text-signal-deep" data-testid="plausibility-count">
+      <span className="figure">{count}</span> plausibility
+    </span>
   );
 }

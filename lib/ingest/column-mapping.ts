@@ -4,6 +4,7 @@
  * the ordinary parser, so a mapped file meets exactly the same checks; errors are
  * then moved back to the line and column of the original file.
  */
+import { cellLine, outsideQuotes, tokenizeCsv, type CsvRecords } from "./csv-tokens";
 import { decodeInput } from "./text-guards";
 import { IngestError } from "./errors";
 import { parseMeasurementFile } from "./parse-measurement-file";
@@ -51,25 +52,55 @@ export type ForeignTable = {
 
 function detectDelimiter(line: string): ForeignTable["delimiter"] {
   const counts = { "\t": 0, ";": 0, ",": 0 };
-  for (const ch of line) if (ch === "\t" || ch === ";" || ch === ",") counts[ch] += 1;
+  for (const ch of outsideQuotes(line)) if (ch === "\t" || ch === ";" || ch === ",") counts[ch] += 1;
   if (counts["\t"] > 0) return "\t";
   return counts[";"] > counts[","] ? ";" : ",";
 }
 
-/** The header row (first line that is neither blank nor a `#` line) and a preview of the data. */
-export function readForeignTable(fileName: string, bytes: Uint8Array, previewRows = 5): ForeignTable {
-  const text = decodeInput({ fileName, bytes });
-  const lines = text.split(/\r?\n/);
-  const headerIndex = lines.findIndex((l) => l.trim() !== "" && !l.trimStart().startsWith("#"));
-  if (headerIndex < 0) throw new IngestError({ fileName, code: "missing-header", detail: "no header row: every line is blank or a # line" });
-  const delimiter = detectDelimiter(lines[headerIndex]);
-  const headers = lines[headerIndex].split(delimiter).map((h) => h.trim());
-  const preview: string[][] = [];
-  for (let i = headerIndex + 1; i < lines.length && preview.length < previewRows; i++) {
-    if (lines[i].trim() === "" || lines[i].trimStart().startsWith("#")) continue;
-    preview.push(lines[i].split(delimiter).map((c) => c.trim()));
+interface ForeignRecords {
+  text: string;
+  delimiter: ForeignTable["delimiter"];
+  headerLine: number;
+  headers: string[];
+  /** Data records after the header (csv-parse: quotes honoured), with the physical line each starts on. */
+  rows: CsvRecords;
+}
+
+/** The header row (first line that is neither blank nor a `#` line) and the records after it, quotes honoured. */
+function readForeignRecords(fileName: string, text: string): ForeignRecords {
+  let pos = 0;
+  let lineNo = 0;
+  while (pos < text.length) {
+    lineNo++;
+    const nl = text.indexOf("\n", pos);
+    const line = text.slice(pos, nl === -1 ? text.length : nl);
+    if (line.trim() !== "" && !line.trimStart().startsWith("#")) {
+      const delimiter = detectDelimiter(line);
+      const records = tokenizeCsv({ fileName, text, from: pos, firstLine: lineNo, delimiter });
+      return {
+        text,
+        delimiter,
+        headerLine: lineNo,
+        headers: records.cells[0].map((h) => h.trim()),
+        rows: { cells: records.cells.slice(1), lines: records.lines.slice(1) },
+      };
+    }
+    pos = nl === -1 ? text.length : nl + 1;
   }
-  return { delimiter, headerLine: headerIndex + 1, headers, preview };
+  throw new IngestError({ fileName, code: "missing-header", detail: "no header row: every line is blank or a # line" });
+}
+
+/** The header row and a preview of the data; quoted cells ("Output, dBm") are read as RFC 4180 says. */
+export function readForeignTable(fileName: string, bytes: Uint8Array, previewRows = 5): ForeignTable {
+  const { delimiter, headerLine, headers, rows } = readForeignRecords(fileName, decodeInput({ fileName, bytes }));
+  const preview = rows.cells.slice(0, previewRows).map((r) => r.map((c) => c.trim()));
+  return { delimiter, headerLine, headers, preview };
+}
+
+/** A cell written back in our format: quoted only when it holds the delimiter or a quote; line breaks become spaces. */
+function writeCell(cell: string, delimiter: string): string {
+  const flat = cell.includes("\n") ? cell.replace(/\r?\n/g, " ") : cell;
+  return flat.includes(delimiter) || flat.includes('"') ? `"${flat.replace(/"/g, '""')}"` : flat;
 }
 
 /** The key a saved mapping is found by: the header cells, trimmed and lower-cased, in order. */
@@ -108,40 +139,38 @@ export function parseMappedFile(opts: {
 }): ParsedMeasurement {
   const { fileName, kind, mapping } = opts;
   const text = decodeInput({ fileName, bytes: opts.bytes, maxBytes: opts.maxBytes });
-  const table = readForeignTable(fileName, opts.bytes, 0);
+  const table = readForeignRecords(fileName, text);
   const problems = findMappingProblems(kind, table.headers, mapping);
   if (problems.length) {
     throw new IngestError({ fileName, code: "missing-column", line: table.headerLine, detail: `the column mapping does not fit this file: ${problems.join("; ")}` });
   }
-  const lines = text.split(/\r?\n/);
+  const before = text.split(/\r?\n/).slice(0, table.headerLine - 1);
   const keep = mapping.map((m) => table.headers.indexOf(m.column));
-  const present = new Set(
-    lines
-      .slice(0, table.headerLine - 1)
-      .map((l) => /^\s*#\s*([A-Za-z0-9_]+)\s*:/.exec(l)?.[1]?.toLowerCase())
-      .filter(Boolean) as string[],
-  );
+  const present = new Set(before.map((l) => /^\s*#\s*([A-Za-z0-9_]+)\s*:/.exec(l)?.[1]?.toLowerCase()).filter(Boolean) as string[]);
   const added = [`# kind: ${kind}`, ...Object.entries(opts.metadata ?? {}).filter(([k, v]) => v !== "" && !present.has(k)).map(([k, v]) => `# ${k}: ${v}`)].filter(
     (l) => !(l.startsWith("# kind:") && present.has("kind")),
   );
-  const out: string[] = [...added, ...lines.slice(0, table.headerLine - 1)];
+  // Each written line remembers where it came from: the original line, and the data record if any.
+  const out: string[] = [...added, ...before];
+  const origin: (number | undefined)[] = [...added.map(() => undefined), ...before.map((_, i) => i + 1)];
+  const recordOf: (number | undefined)[] = out.map(() => undefined);
   out.push(mapping.map((m) => `${m.target} [${m.unit}]`).join(table.delimiter));
-  for (let i = table.headerLine; i < lines.length; i++) {
-    const line = lines[i];
-    if (line.trim() === "" || line.trimStart().startsWith("#")) {
-      out.push(line);
-      continue;
-    }
-    const cells = line.split(table.delimiter);
-    out.push(keep.map((k) => cells[k] ?? "").join(table.delimiter));
-  }
-  const offset = added.length;
+  origin.push(table.headerLine);
+  recordOf.push(undefined);
+  table.rows.cells.forEach((cells, r) => {
+    out.push(keep.map((k) => writeCell(cells[k] ?? "", table.delimiter)).join(table.delimiter));
+    origin.push(table.rows.lines[r]);
+    recordOf.push(r);
+  });
   try {
     return parseMeasurementFile({ fileName, text: out.join("\n"), kind, maxBytes: Number.POSITIVE_INFINITY });
   } catch (error) {
     if (!(error instanceof IngestError)) throw error;
-    const line = error.line !== undefined && error.line > offset ? error.line - offset : undefined;
+    const at = error.line === undefined ? undefined : error.line - 1;
     const column = error.column !== undefined && keep[error.column - 1] !== undefined ? keep[error.column - 1] + 1 : undefined;
+    const record = at === undefined ? undefined : recordOf[at];
+    let line = at === undefined ? undefined : origin[at];
+    if (record !== undefined && column !== undefined) line = cellLine(table.rows.cells[record], table.rows.lines[record], column - 1);
     const field = column !== undefined ? table.headers[column - 1] : error.field;
     const detail = error.message.slice(error.message.indexOf(": ") + 2);
     throw new IngestError({ fileName, code: error.code, line, column, field, detail, expected: error.expected, found: error.found });

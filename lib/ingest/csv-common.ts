@@ -1,5 +1,5 @@
 import { metaDate, metaQuantity, metaString, rawMetadata, unknownMetadataKeys } from "./csv-metadata";
-import { checkIncreasing, readCsvColumns, readCsvDocument, requireRows, unusedColumns, type ColumnRequest, type CsvDocument } from "./csv-table";
+import { checkIncreasing, readCsvColumns, readCsvDocument, requireRows, unusedColumns, type ColumnRequest, type ColumnValues, type CsvDocument } from "./csv-table";
 import { IngestError } from "./errors";
 import { readParserInput } from "./text-guards";
 import type { MeasurementKind, UnitConditions } from "./types";
@@ -12,6 +12,11 @@ export interface ParseOptions {
   maxBytes?: number;
   /** The content is text that already passed decodeInput's guards (parseMeasurementFile). */
   textChecked?: boolean;
+  /**
+   * Check the values as a passive part's (default true: every device class Benchfold knows is
+   * passive): output above input, a negative loss or |S| above 0 dB is refused or warned (plausibility.ts).
+   */
+  passive?: boolean;
 }
 
 export function openCsv(fileName: string, content: FileContent, kind: MeasurementKind, options: ParseOptions = {}): CsvDocument {
@@ -52,9 +57,14 @@ export function warnUnused(doc: CsvDocument, requests: ColumnRequest[], knownMet
  * metadata other than `knownMetadata` are reported in `warnings`. Returns one array per request.
  */
 export function readSweepColumns(doc: CsvDocument, requests: ColumnRequest[], minRows: number, knownMetadata: string[], warnings: string[]): number[][] {
-  const { values, lines } = readCsvColumns(doc, requests);
-  requireRows(doc, lines, minRows);
-  checkIncreasing(doc, requests[0], values[0], lines);
+  return readSweepRows(doc, requests, minRows, knownMetadata, warnings).values;
+}
+
+/** readSweepColumns with the file line of each row, for checks that name a row. */
+export function readSweepRows(doc: CsvDocument, requests: ColumnRequest[], minRows: number, knownMetadata: string[], warnings: string[]): ColumnValues {
+  const read = readCsvColumns(doc, requests);
+  requireRows(doc, read.lines, minRows);
+  checkIncreasing(doc, requests[0], read.values[0], read.lines);
   warnUnused(doc, requests, knownMetadata, warnings);
-  return values;
+  return read;
 }

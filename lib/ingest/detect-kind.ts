@@ -1,4 +1,5 @@
 import { normalizeName } from "./csv-table";
+import { outsideQuotes, splitCsvLine } from "./csv-tokens";
 import { IngestError, shortenFound } from "./errors";
 import { portsFromExtension } from "./touchstone";
 import { measurementKinds } from "../domain/measurements";
@@ -15,8 +16,9 @@ function looksLikeOptionLine(body: string): boolean {
 }
 
 function headerNames(line: string): string[] {
-  const delimiter = line.includes("\t") ? "\t" : line.includes(";") ? ";" : ",";
-  return line.split(delimiter).map((cell) => {
+  const bare = outsideQuotes(line);
+  const delimiter = bare.includes("\t") ? "\t" : bare.includes(";") ? ";" : ",";
+  return splitCsvLine(line, delimiter).map((cell) => {
     const open = cell.indexOf("[");
     return normalizeName(open === -1 ? cell : cell.slice(0, open));
   });

@@ -1,7 +1,8 @@
-import { openCsv, readSweepColumns, readUnitConditions, type FileContent, type ParseOptions } from "./csv-common";
+import { openCsv, readSweepRows, readUnitConditions, type FileContent, type ParseOptions } from "./csv-common";
 import { metaInteger, metaQuantity } from "./csv-metadata";
 import { columnRequest, requireColumn, type ColumnRequest } from "./csv-table";
 import { IngestError } from "./errors";
+import { checkPassiveCsv } from "./plausibility";
 import type { DriveSweep, ParseResult } from "./types";
 import { RANGES } from "./units";
 
@@ -67,7 +68,12 @@ export function parseDriveSweep(fileName: string, content: FileContent, options:
   }
 
   const requests = [input, ...harmonicColumns.map((h) => h.request)];
-  const values = readSweepColumns(doc, requests, 1, METADATA_KEYS, warnings);
+  const { values, lines } = readSweepRows(doc, requests, 1, METADATA_KEYS, warnings);
+  if (options.passive !== false) {
+    // The input column is the total power at the source: a passive part's every harmonic stays below it.
+    const outputs = harmonicColumns.map((h, k) => ({ request: h.request, values: values[k + 1] }));
+    checkPassiveCsv(doc, { input: { request: input, values: values[0] }, outputs, losses: [], lines }, warnings);
+  }
 
   // The unit conditions are listed rather than spread: object spread showed up in profiles of
   // many small files (one per file, thousands of files per upload).

@@ -1,7 +1,8 @@
-import { openCsv, readSweepColumns, readUnitConditions, type FileContent, type ParseOptions } from "./csv-common";
+import { openCsv, readSweepRows, readUnitConditions, type FileContent, type ParseOptions } from "./csv-common";
 import { metaQuantity } from "./csv-metadata";
 import { findColumn, requireColumn, type ColumnRequest } from "./csv-table";
 import { IngestError } from "./errors";
+import { checkPassiveCsv } from "./plausibility";
 import type { FrequencySweep, ParseResult } from "./types";
 import { RANGES, type Quantity, type ValueRange } from "./units";
 
@@ -44,9 +45,28 @@ export function parseFrequencySweep(fileName: string, content: FileContent, opti
     });
   }
   const requests = [frequency, ...present.map((p) => p.request)];
-  const values = readSweepColumns(doc, requests, 1, METADATA_KEYS, warnings);
+  const { values, lines } = readSweepRows(doc, requests, 1, METADATA_KEYS, warnings);
 
   const data: FrequencySweep = { ...unit, frequencyHz: values[0], loPowerDbm, loFrequencyHz, ifFrequencyHz };
   present.forEach((p, k) => (data[p.key] = values[k + 1]));
+  if (options.passive !== false) {
+    // Isolation columns are losses too: a passive part cannot show negative isolation beyond the uncertainty.
+    const column = (key: SeriesKey) => {
+      const k = present.findIndex((p) => p.key === key);
+      return k === -1 ? undefined : { request: present[k].request, values: values[k + 1] };
+    };
+    const lossKeys: SeriesKey[] = ["conversionLossDb", "isolationLoRfDb", "isolationLoIfDb", "isolationRfIfDb"];
+    const output = column("outputPowerDbm");
+    checkPassiveCsv(
+      doc,
+      {
+        input: column("inputPowerDbm"),
+        outputs: output ? [output] : [],
+        losses: lossKeys.map(column).filter((c) => c !== undefined),
+        lines,
+      },
+      warnings,
+    );
+  }
   return { data, warnings };
 }

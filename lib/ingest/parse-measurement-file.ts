@@ -24,7 +24,7 @@ export function parseMeasurementFile(input: MeasurementFileInput): ParsedMeasure
   const kind = input.kind ?? detectKind(fileName, text);
   // The text is already checked: the parsers neither apply the size limit to a decoded string
   // nor run the guards over it again.
-  const options = { maxBytes: Number.POSITIVE_INFINITY, textChecked: true };
+  const options = { maxBytes: Number.POSITIVE_INFINITY, textChecked: true, passive: input.passive };
   switch (kind) {
     case "drive-sweep":
       return { kind, ...parseDriveSweep(fileName, text, options) };

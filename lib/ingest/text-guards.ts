@@ -52,6 +52,16 @@ export function decodeInput(input: TextInput): string {
   let text: string;
   if (input.bytes) {
     const bytes = input.bytes;
+    const utf16 = utf16Order(bytes);
+    if (utf16) {
+      throw new IngestError({
+        fileName,
+        code: "invalid-encoding",
+        detail: `this file is UTF-16 text (${utf16}); save it as UTF-8 (in a spreadsheet: "CSV UTF-8"; plain ASCII is fine too)`,
+        expected: "UTF-8 text",
+        found: "UTF-16",
+      });
+    }
     const nul = bytes.indexOf(0);
     if (nul !== -1) {
       throw new IngestError({
@@ -116,6 +126,30 @@ export function readParserInput(input: TextInput & { content: string | Uint8Arra
     return decodeInput({ fileName, text: content, maxBytes });
   }
   return decodeInput({ fileName, bytes: content, maxBytes });
+}
+
+/**
+ * UTF-16 by its byte-order mark (FF FE little-endian, FE FF big-endian; Unicode Standard §23.8),
+ * or, without one, by its NUL pattern: text in the Latin range written as UTF-16 has a NUL in
+ * every other byte. Judged on the first 1,024 bytes: most of one parity NUL and almost none of
+ * the other, so a binary file with scattered NULs is still called binary.
+ */
+function utf16Order(bytes: Uint8Array): string | undefined {
+  if (bytes.length >= 2 && bytes[0] === 0xff && bytes[1] === 0xfe) return "little-endian, byte-order mark FF FE";
+  if (bytes.length >= 2 && bytes[0] === 0xfe && bytes[1] === 0xff) return "big-endian, byte-order mark FE FF";
+  // Text in UTF-16 starts with a NUL in its first or second byte; anything else is not looked at further.
+  if (bytes.length < 8 || (bytes[0] !== 0 && bytes[1] !== 0)) return undefined;
+  const n = Math.min(bytes.length, 1024) & ~1;
+  let evenNul = 0;
+  let oddNul = 0;
+  for (let i = 0; i < n; i += 2) {
+    if (bytes[i] === 0) evenNul++;
+    if (bytes[i + 1] === 0) oddNul++;
+  }
+  const pairs = n / 2;
+  if (oddNul >= 0.8 * pairs && evenNul <= 0.05 * pairs) return "little-endian, no byte-order mark: a NUL after every character";
+  if (evenNul >= 0.8 * pairs && oddNul <= 0.05 * pairs) return "big-endian, no byte-order mark: a NUL before every character";
+  return undefined;
 }
 
 function findControlChar(text: string): number {

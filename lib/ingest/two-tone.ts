@@ -1,7 +1,8 @@
-import { openCsv, readSweepColumns, readUnitConditions, type FileContent, type ParseOptions } from "./csv-common";
+import { openCsv, readSweepRows, readUnitConditions, type FileContent, type ParseOptions } from "./csv-common";
 import { metaQuantity } from "./csv-metadata";
 import { requireColumn } from "./csv-table";
 import { IngestError } from "./errors";
+import { checkPassiveCsv } from "./plausibility";
 import type { ParseResult, TwoTone } from "./types";
 import { RANGES } from "./units";
 
@@ -46,7 +47,11 @@ export function parseTwoTone(fileName: string, content: FileContent, options: Pa
   const fundamental = requireColumn(doc, "fund_out", "power", RANGES.powerDbm, "fund_out [dBm]");
   const im3 = requireColumn(doc, "im3_out", "power", RANGES.powerDbm, "im3_out [dBm]");
   const requests = [input, fundamental, im3];
-  const values = readSweepColumns(doc, requests, 1, METADATA_KEYS, warnings);
+  const { values, lines } = readSweepRows(doc, requests, 1, METADATA_KEYS, warnings);
+  if (options.passive !== false) {
+    const outputs = [fundamental, im3].map((request, k) => ({ request, values: values[k + 1] }));
+    checkPassiveCsv(doc, { input: { request: input, values: values[0] }, outputs, losses: [], lines }, warnings);
+  }
   return {
     data: {
       ...unit,

@@ -9,6 +9,7 @@ import { buildCharts } from "./sheet-charts";
 import { buildSpecTable, type SpecTable } from "./spec-table";
 import { buildTraceability } from "./traceability";
 import type { ApprovedSetInput, SheetInput, SheetModel } from "./types";
+import { PLAUSIBILITY_PREFIX } from "../ingest/plausibility-warning";
 
 export const PRELIMINARY_BANNER = "PRELIMINARY — NOT RELEASED";
 
@@ -89,6 +90,14 @@ function selectSets(template: SheetTemplate, approvedSets: ApprovedSetInput[], c
     }
   }
   const sets = allSets.filter((set) => kinds.has(set.kind));
+  for (const set of sets) {
+    for (const warning of set.plausibilityWarnings ?? []) {
+      issues.push({
+        code: "implausible-value",
+        message: `Measurement set ${String(set.id)} (${set.kind}, ${set.serial}) carries a plausibility warning: ${warning.slice(PLAUSIBILITY_PREFIX.length)}.`,
+      });
+    }
+  }
   if (sets.length === 0) {
     issues.push({
       code: "no-approved-data",

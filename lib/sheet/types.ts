@@ -38,6 +38,8 @@ export interface ApprovedSetInput {
   parameters: DerivedParameter[];
   curves: Curve[];
   instruments: SheetInstrumentInput[];
+  /** The set's plausibility warnings (lib/ingest/plausibility.ts): each is an open issue of the sheet it feeds. */
+  plausibilityWarnings?: string[];
 }
 
 export interface SpecLimitInput {

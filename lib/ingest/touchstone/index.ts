@@ -59,10 +59,12 @@ export function parseTouchstone(fileName: string, content: FileContent, options:
   }
   checkComplete(s);
   data.finish();
+  const network = data.toNetwork();
+  if (options.passive !== false) data.checkPassive(network, s.warnings);
 
   const referenceOhm = s.references ?? new Array<number>(s.ports).fill(s.referenceOhm);
   return {
-    data: { version: s.version!, portCount: s.ports, ...data.toNetwork(), referenceOhm, sourceFormat: s.format, comments: s.comments },
+    data: { version: s.version!, portCount: s.ports, ...network, referenceOhm, sourceFormat: s.format, comments: s.comments },
     warnings: s.warnings,
   };
 }

@@ -127,7 +127,9 @@ export async function ingestMeasurement(input: IngestInput): Promise<Measurement
   const warnings = [...parsed.warnings];
   const conditions = mergeUploadConditions(parsed, fields, warnings);
   const derived = deriveWithSettings({ parsed, fields, deviceClass: device.deviceClass, fileName: file.name });
-  warnings.push(...derived.warnings);
+  // derived.warnings repeats the parser's own (deriveParameters begins with them): store each once.
+  const fromParser = new Set(parsed.warnings);
+  warnings.push(...derived.warnings.filter((w) => !fromParser.has(w)));
   const sha256 = createHash("sha256").update(file.bytes).digest("hex");
   const measuredOn = uploadMeasuredOn(parsed, fields) ?? new Date().toISOString().slice(0, 10);
 

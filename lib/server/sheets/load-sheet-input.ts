@@ -6,6 +6,7 @@ import type { Curve } from "@/lib/analysis";
 import { db } from "@/models";
 import type { MeasurementSet, Instrument, Device, Organization } from "@/models";
 import { openConformityIssues } from "../conformity/get-conformity-watch";
+import { isPlausibilityWarning } from "@/lib/ingest/plausibility-warning";
 
 type SetWithInstruments = MeasurementSet & { Instruments?: Instrument[] };
 
@@ -28,7 +29,7 @@ export async function loadSheetInput(opts: {
   const [sets, limits, content, conformityAlerts] = await Promise.all([
     MeasurementSet.unscoped().findAll({
       where: { deviceId: device.id, organizationId: opts.organizationId, state: "approved", supersededById: { [Op.is]: null } },
-      attributes: ["id", "kind", "conditions", "measuredOn", "parameters", "curves"],
+      attributes: ["id", "kind", "conditions", "measuredOn", "parameters", "curves", "warnings"],
       include: [{ model: Instrument, through: { attributes: [] } }],
       order: [["id", "ASC"]],
     }),
@@ -55,6 +56,7 @@ export async function loadSheetInput(opts: {
       measuredOn: s.measuredOn ?? opts.date,
       parameters: s.parameters,
       curves: (s.curves ?? []) as Curve[],
+      plausibilityWarnings: (s.warnings ?? []).filter(isPlausibilityWarning),
       instruments: (s.Instruments ?? []).map((i) => ({
         kind: i.kind,
         model: i.model,

@@ -17,6 +17,9 @@ function expectPolar(d: TouchstoneData, i: number, j: number, mag: number, deg: 
   expect(im).toBeCloseTo(mag * Math.sin(rad(deg)), 12);
 }
 
+// Layout tests use marker values (S21 = 121) and the specification's amplifier example: not a passive part.
+const ACTIVE = { passive: false };
+
 describe("Touchstone specification examples", () => {
   it("v1 1-port: '# MHz S MA R 50' and '2.000 0.894 -12.136' is 2 MHz, S11 = 0.894∠−12.136°", () => {
     // IBIS Open Forum, Touchstone File Format Specification Rev 1.1, Example 1
@@ -44,12 +47,12 @@ describe("Touchstone specification examples", () => {
       "1 111 0 121 0 112 0 122 0",
       "[End]",
     ].join("\n");
-    const { data } = parseTouchstone("order-21-12.ts", text);
+    const { data } = parseTouchstone("order-21-12.ts", text, ACTIVE);
     expect(s(data, 1, 1)).toEqual([111, 0]);
     expect(s(data, 2, 1)).toEqual([121, 0]);
     expect(s(data, 1, 2)).toEqual([112, 0]);
     expect(s(data, 2, 2)).toEqual([122, 0]);
-    const swapped = parseTouchstone("order-12-21.ts", text.replace("21_12", "12_21")).data;
+    const swapped = parseTouchstone("order-12-21.ts", text.replace("21_12", "12_21"), ACTIVE).data;
     expect(s(swapped, 1, 2)).toEqual([121, 0]);
     expect(s(swapped, 2, 1)).toEqual([112, 0]);
   });
@@ -66,7 +69,7 @@ describe("Touchstone specification examples", () => {
       "4 .7 .64 69 .38",
       "18 2.7 .46 -33 .40",
     ].join("\n");
-    const { data, warnings } = parseTouchstone("example8.s2p", text);
+    const { data, warnings } = parseTouchstone("example8.s2p", text, ACTIVE);
     expect(Array.from(data.frequencyHz)).toEqual([2e9, 22e9]);
     expectPolar(data, 1, 1, 0.95, -26);
     expectPolar(data, 2, 1, 3.57, 157);
@@ -102,7 +105,7 @@ describe("Touchstone options and keywords", () => {
 
   it("reads v1 3- and 4-port rows with each matrix row on its own line, row by row", () => {
     const text = ["# GHz S RI R 50", "1 11 0 12 0 13 0", "21 0 22 0 23 0", "31 0 32 0 33 0"].join("\n");
-    const { data } = parseTouchstone("rows.s3p", text);
+    const { data } = parseTouchstone("rows.s3p", text, ACTIVE);
     for (let i = 1; i <= 3; i++) for (let j = 1; j <= 3; j++) expect(s(data, i, j)).toEqual([10 * i + j, 0]);
   });
 
@@ -114,7 +117,7 @@ describe("Touchstone options and keywords", () => {
       const row = Array.from({ length: n }, (_, j) => `${10 * i + j + 1} 0`);
       lines.push((i === 1 ? "7 " : "") + row.slice(0, 4).join(" "), row.slice(4).join(" "));
     }
-    const { data } = parseTouchstone("five.s5p", lines.join("\n"));
+    const { data } = parseTouchstone("five.s5p", lines.join("\n"), ACTIVE);
     expect(s(data, 5, 5)).toEqual([55, 0]);
     expect(s(data, 3, 5)).toEqual([35, 0]);
   });
@@ -140,7 +143,7 @@ describe("Touchstone options and keywords", () => {
       "10 1 0.5 10 0.3",
       "[End]",
     ].join("\n");
-    const { data, warnings } = parseTouchstone("lower.ts", text);
+    const { data, warnings } = parseTouchstone("lower.ts", text, ACTIVE);
     expect(data.referenceOhm).toEqual([50, 75, 100]);
     expect(Array.from(data.frequencyHz)).toEqual([10e6, 20e6]);
     expect(s(data, 1, 2)).toEqual([21, 2]);

@@ -108,6 +108,20 @@ describe("buildSheetModel on the doubler fixture", () => {
     expect(model.issues.map((i) => i.code)).toContain("rating-missing");
   });
 
+  it("lists a used set's plausibility warning among the open issues, and none for a clean set", () => {
+    expect(model.issues.map((i) => i.code)).not.toContain("implausible-value");
+    const warning = 'Plausibility: "p2_out [dBm]" is above "input_power [dBm]" on 1 row, by up to 0.37 dB (line 14: 15.37 dBm out, 15.00 dBm in)';
+    const [first, ...rest] = input.approvedSets;
+    const flagged = buildSheetModel({ ...input, approvedSets: [{ ...first, plausibilityWarnings: [warning] }, ...rest] });
+    const issues = flagged.issues.filter((i) => i.code === "implausible-value");
+    expect(issues).toEqual([
+      {
+        code: "implausible-value",
+        message: `Measurement set ${String(first.id)} (${first.kind}, ${first.serial}) carries a plausibility warning: "p2_out [dBm]" is above "input_power [dBm]" on 1 row, by up to 0.37 dB (line 14: 15.37 dBm out, 15.00 dBm in).`,
+      },
+    ]);
+  });
+
   it("carries charts as Vega-Lite specs with the data inlined", () => {
     expect(model.charts.map((c) => c.id)).toEqual([
       "conversion-loss-vs-drive",
