@@ -6,7 +6,7 @@ export function sheetPdfFileName(partNumber: string, revisionLabel: string | nul
 
 /** A file-name part: only safe filename characters, runs of others one underscore, none at either end. */
 function safePart(s: string): string {
-  return s.replace(/\u2212/g, "-").replace(/°/g, "").replace(/[^A-Za-z0-9.-]+/g, "_").replace(/^[_.]+|[_.]+$/g, "") || "x";
+  return s.replace(/\u2212/g, "-").replace(/\s*°\s*/gu, "").replace(/[^A-Za-z0-9.-]+/g, "_").replace(/^[_.]+|[_.]+$/g, "") || "x";
 }
 
 /** One Touchstone set behind a released revision, as its frozen model lists it. */

@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { formatTemperature } from "@/lib/sheet/format";
 import { attachmentDisposition, specificationsCsvFileName, touchstoneFileNames } from "@/lib/sheet/file-name";
 
 describe("names of a released revision's files", () => {
@@ -7,8 +8,9 @@ describe("names of a released revision's files", () => {
       partNumber: "KQH-2G",
       letter: "A",
       sets: [
-        { setId: "11", serial: "BFD-0301", temperature: "25°C", portCount: 4 },
-        { setId: "12", serial: "BFD-0301", temperature: "\u221240°C", portCount: 4 },
+                // The temperature as the frozen model's traceability prints it (a space before "°C", a true minus).
+        { setId: "11", serial: "BFD-0301", temperature: formatTemperature(25), portCount: 4 },
+        { setId: "12", serial: "BFD-0301", temperature: formatTemperature(-40), portCount: 4 },
         { setId: "13", serial: "BFD 03/02", temperature: "", portCount: 2 },
       ],
     });
