@@ -165,7 +165,10 @@ describe("the specification table as CSV", () => {
     expect(r.headers.get("content-type")).toBe("text/csv; charset=utf-8; header=present");
     expect(r.headers.get("content-disposition")).toBe(`attachment; filename="${partNumber}-rev-A-specifications.csv"`);
     expect(r.headers.get("cache-control")).toBe("public, max-age=31536000, immutable");
-    const text = await r.text();
+    // Read as bytes: fetch's text() drops a UTF-8 byte-order mark.
+    const bytes = Buffer.from(await r.arrayBuffer());
+    expect([...bytes.subarray(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
+    const text = bytes.toString("utf8");
     expect(text.startsWith("\uFEFFParameter,Symbol,")).toBe(true);
     const model = ((await (await anon.request(base)).json()) as { sheet: { specifications: { rows: unknown[] } } }).sheet;
     expect(text.trimEnd().split("\r\n").length).toBe(model.specifications.rows.length + 1);
@@ -174,7 +177,7 @@ describe("the specification table as CSV", () => {
     const current = await anon.request(`${currentBase}/csv`);
     expect(current.status).toBe(200);
     expect(current.headers.get("cache-control")).toBe("public, no-cache");
-    expect(await current.text()).toBe(text);
+    expect(Buffer.from(await current.arrayBuffer()).equals(bytes)).toBe(true);
     expect((await anon.request(`${base.replace(/\/A$/, "/Q")}/csv`)).status).toBe(404);
   });
 });
