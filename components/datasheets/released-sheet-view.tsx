@@ -21,13 +21,15 @@ type ReleasedSheetViewProps = {
   follow?: ReactNode;
   /** The design-in calculator (components/datasheets/design-in-calculator.tsx), for a multiplier or a mixer. */
   designIn?: ReactNode;
+  /** The revision's data as files (components/datasheets/released-downloads.tsx). */
+  downloads?: ReactNode;
 };
 
 /**
  * The public page of one released revision: which revision it is and how it stands, the other
  * revisions, the stored PDF, then the sheet itself and the revision history.
  */
-export function ReleasedSheetView({ summary, history, organizationName, partNumber, addressedAsCurrent, sheetView, follow, designIn }: ReleasedSheetViewProps) {
+export function ReleasedSheetView({ summary, history, organizationName, partNumber, addressedAsCurrent, sheetView, follow, designIn, downloads }: ReleasedSheetViewProps) {
   const current = history.find((r) => r.standing === "current") ?? null;
   return (
     <div data-testid="released-sheet">
@@ -76,6 +78,8 @@ export function ReleasedSheetView({ summary, history, organizationName, partNumb
       </nav>
 
       {follow ? <div className="mb-6 print:hidden">{follow}</div> : null}
+
+      {downloads}
 
       {summary.standing === "superseded" && current ? (
         <div className="mb-6 max-w-prose print:hidden" data-testid="superseded-notice">

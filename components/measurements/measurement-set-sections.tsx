@@ -201,6 +201,12 @@ export function RawFileFacts({ set }: { set: MeasurementSetDetail }) {
         <dt className="text-ink-muted">SHA-256</dt>
         <dd className="figure break-all text-[0.8125rem]">{set.sha256}</dd>
       </dl>
+      <p className="mt-3 text-[0.9375rem]">
+        <a href={`/api/measurements/${set.id}/file`} download={set.fileName} data-testid="download-raw-file">
+          Download the raw file
+        </a>{" "}
+        <span className="text-[0.8125rem] text-ink-muted">(the bytes as uploaded)</span>
+      </p>
     </>
   );
 }

@@ -31,7 +31,12 @@ export function compareTableCsv(table: CompareTable): string {
     ...row.cells.flatMap((cell) => (cell ? [cell.text.replace(/\u2212/g, "-"), cell.conditionsText, cell.basis] : ["", "", ""])),
     table.sheets.filter((_, i) => row.cells[i]?.better).map((s) => s.label).join("; "),
   ]);
-  return BOM + [header, ...lines].map((fields) => fields.map(csvField).join(",")).join("\r\n") + "\r\n";
+  return csvDocument([header, ...lines]);
+}
+
+/** Lines of fields as one CSV text: the one writer of Benchfold's CSV downloads (compare, a released sheet's specifications). */
+export function csvDocument(lines: string[][]): string {
+  return BOM + lines.map((fields) => fields.map(csvField).join(",")).join("\r\n") + "\r\n";
 }
 
 /** "same", "differ: band, temperature", or "" when one sheet alone states the figure. */

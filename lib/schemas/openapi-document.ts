@@ -115,7 +115,7 @@ export function buildOpenApiDocument(): OpenApiDocument {
       title: "Benchfold public API",
       version: "1",
       description:
-        "Released characterization sheets (catalog search, the frozen sheet model, the stored PDF), printout verification, and the bench upload. " +
+        "Released characterization sheets (catalog search, the frozen sheet model, the stored PDF, the specifications as CSV, the Touchstone files behind them), printout verification, and the bench upload. " +
         "Every refusal is a 4xx with `{ error: { code, message, details? } }`.",
     },
     jsonSchemaDialect: "https://json-schema.org/draft/2020-12/schema",
@@ -162,6 +162,48 @@ export function buildOpenApiDocument(): OpenApiDocument {
             },
             "304": { description: "Unchanged since the ETag sent.", headers: revisionHeaders },
             "404": refusal("No such organization, part or released revision."),
+            "503": unavailable,
+          },
+        },
+      },
+      "/api/v1/sheets/{org}/{part}/{rev}/csv": {
+        get: {
+          operationId: "getReleasedSheetCsv",
+          summary: "A released revision's specification table as CSV",
+          description:
+            "RFC 4180 (CRLF, UTF-8 with a byte-order mark): parameter, symbol, one column per condition column of the sheet, min, typ, max as printed (hyphen-minus), unit, basis, whether typ is the measured mean, units measured. Text a spreadsheet would run as a formula starts with an apostrophe.",
+          parameters: [...sheetPath, { name: "If-None-Match", in: "header", required: false, schema: { type: "string" } }],
+          responses: {
+            "200": {
+              description: "The table of the frozen model; the ETag is the SHA-256 of the text. A lettered revision is cached for a year, `current` and a withdrawn one revalidated.",
+              headers: revisionHeaders,
+              content: { "text/csv": { schema: { type: "string" } } },
+            },
+            "304": { description: "Unchanged since the ETag sent.", headers: revisionHeaders },
+            "404": refusal("No such organization, part or released revision."),
+            "503": unavailable,
+          },
+        },
+      },
+      "/api/v1/sheets/{org}/{part}/{rev}/touchstone/{setId}": {
+        get: {
+          operationId: "getReleasedTouchstone",
+          summary: "The raw Touchstone file of one S-parameter set a released revision rests on",
+          description:
+            "The set ids are the `touchstone` entries of the model's `traceability.measurementSets`. The bytes are exactly as uploaded; the file is named `<part>_rev<letter>_<serial>_<temperature>.sNp`.",
+          parameters: [
+            ...sheetPath,
+            { name: "setId", in: "path", required: true, description: "A measurement set id the revision's traceability lists.", schema: { type: "string", pattern: "^[0-9]+$" } },
+            { name: "If-None-Match", in: "header", required: false, schema: { type: "string" } },
+          ],
+          responses: {
+            "200": {
+              description: "The stored bytes; the ETag is their SHA-256. A lettered revision is cached for a year, `current` and a withdrawn one revalidated.",
+              headers: revisionHeaders,
+              content: { "application/octet-stream": { schema: { type: "string", contentMediaType: "application/octet-stream" } } },
+            },
+            "304": { description: "Unchanged since the ETag sent.", headers: revisionHeaders },
+            "404": refusal("No such released revision, or a set it does not rest on."),
             "503": unavailable,
           },
         },

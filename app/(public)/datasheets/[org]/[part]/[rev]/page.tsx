@@ -12,6 +12,9 @@ import { SheetViewWithCharts } from "@/components/sheets/sheet-view-with-charts"
 import { ReleasedSheetView } from "@/components/datasheets/released-sheet-view";
 import { FollowButton } from "@/components/subscriptions/follow-button";
 import { DesignInCalculator } from "@/components/datasheets/design-in-calculator";
+import { ReleasedDownloads } from "@/components/datasheets/released-downloads";
+import { listReleasedTouchstone } from "@/lib/server/reviews/released-files";
+import { specificationsCsvFileName } from "@/lib/sheet/file-name";
 import { datasheetPath, type RevisionSummary } from "@/lib/domain/reviews";
 import { designInOutcome, isDesignInDeviceClass, readDesignInCurves } from "@/lib/sheet/design-in";
 import { buildDesignInCharts } from "@/lib/sheet/design-in-charts";
@@ -54,7 +57,9 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 /** A released revision, public: drawn from its frozen model, never from live data. */
 export default async function ReleasedDatasheetPage({ params, searchParams }: Props) {
   const { org, part, rev } = await params;
-  const { summary, model, history } = await loadForPage(() => releasedSheet(org, part, rev));
+  const released = await loadForPage(() => releasedSheet(org, part, rev));
+  const { summary, model, history } = released;
+  const touchstone = await listReleasedTouchstone(released);
   // A withdrawn revision stays readable and downloadable; its standing is known now, never frozen in the model.
   const withdrawn = summary.withdrawal ? { reason: summary.withdrawal.reason, withdrawnOn: summary.withdrawal.withdrawnAt } : undefined;
   // Customers follow a part (the API checks the role again); a visitor is offered the way to sign in.
@@ -78,6 +83,15 @@ export default async function ReleasedDatasheetPage({ params, searchParams }: Pr
       partNumber={model.header.partNumber}
       addressedAsCurrent={segment(rev) === "current"}
       follow={follow}
+      downloads={
+        <ReleasedDownloads
+          letter={summary.letter}
+          // The lettered address: the files are this revision's, whatever "current" names tomorrow.
+          csvPath={summary.pdfPath.replace(/\/pdf$/, "/csv")}
+          csvFileName={specificationsCsvFileName(model.header.partNumber, summary.letter)}
+          touchstone={touchstone}
+        />
+      }
       designIn={await designIn({ model, search: await searchParams, action: datasheetPath(segment(org), segment(part), segment(rev)), summary })}
       sheetView={
         <Suspense fallback={<SheetView model={model} withdrawn={withdrawn} />}>
