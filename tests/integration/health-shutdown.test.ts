@@ -206,17 +206,16 @@ describe("(b) an app server on SIGTERM", () => {
     await new Promise((resolve) => setTimeout(resolve, 500));
 
     server.child.kill("SIGTERM");
-    await waitFor("the server saying it stops", async () => /SIGTERM: stopping/.test(server.output()), 10_000, server.output);
-    expect(server.output()).toMatch(/1 request\(s\) in flight/);
-
-    const refused = await new Promise<string>((resolve) => {
-      const socket = net.connect({ host: "127.0.0.1", port: serverPort }, () => {
-        socket.destroy();
-        resolve("connected");
+    const connectOutcome = () =>
+      new Promise<string>((resolve) => {
+        const socket = net.connect({ host: "127.0.0.1", port: serverPort }, () => {
+          socket.destroy();
+          resolve("connected");
+        });
+        socket.once("error", (error: NodeJS.ErrnoException) => resolve(error.code ?? "error"));
       });
-      socket.once("error", (error: NodeJS.ErrnoException) => resolve(error.code ?? "error"));
-    });
-    expect(refused).toBe("ECONNREFUSED");
+    // Once the signal is handled, a new connection is refused (while the two above stay open).
+    await waitFor("a new connection refused", async () => (await connectOutcome()) === "ECONNREFUSED", 10_000, server.output);
 
     ready.write("\r\n");
     const readyAnswer = await ready.response();
@@ -231,6 +230,7 @@ describe("(b) an app server on SIGTERM", () => {
     expect((JSON.parse(patchAnswer.body) as { device: { title: string } }).device.title).toBe(title);
 
     expect(await server.exited).toEqual({ code: 0, signal: null });
+    expect(server.output()).toMatch(/SIGTERM: stopping; new connections refused, 1 request\(s\) in flight/);
     expect(server.output()).toMatch(/requests finished in \d+ ms/);
     expect(server.output()).toMatch(/stopped after \d+ ms: .*database pool closed/);
     const { Device } = db();
