@@ -1,4 +1,5 @@
 import type { Sequelize } from "sequelize";
+import { onShutdown } from "../lib/shutdown";
 import { createSequelize } from "./connection";
 import { AccountMailRequest } from "./account-mail-request";
 import { AuditEvent } from "./audit-event";
@@ -125,6 +126,7 @@ export type Database = typeof models & { sequelize: Sequelize };
 // the model classes; every copy needs its own initialised Sequelize, so the instance lives here,
 // in the module, not on globalThis.
 let instance: Database | undefined;
+let forgetShutdownHook: (() => void) | undefined;
 
 /**
  * The one way to a model: `const { Device, sequelize } = db()`. The models come only from here
@@ -132,7 +134,11 @@ let instance: Database | undefined;
  * connection is set up.
  */
 export function db(): Database {
-  instance ??= { ...models, sequelize: initModels(createSequelize()) };
+  if (!instance) {
+    instance = { ...models, sequelize: initModels(createSequelize()) };
+    // The app server closes every copy's pool on SIGTERM, after its requests are finished (lib/shutdown.ts).
+    forgetShutdownHook = onShutdown("database pool", closeDb);
+  }
   return instance;
 }
 
@@ -140,6 +146,8 @@ export async function closeDb(): Promise<void> {
   if (instance) {
     const closing = instance.sequelize;
     instance = undefined;
+    forgetShutdownHook?.();
+    forgetShutdownHook = undefined;
     await closing.close();
   }
 }

@@ -299,6 +299,110 @@ export function releaseAbortReasonFrames(Controller = globalThis.AbortController
   Object.defineProperty(proto, abortPatched, { value: true });
 }
 
+/** The process-wide symbols shared with the app's code (lib/shutdown.ts). */
+export const shuttingDownMarker = Symbol.for("benchfold.shutting-down");
+export const shutdownHooksKey = Symbol.for("benchfold.shutdown-hooks");
+
+/** BENCHFOLD_SHUTDOWN_GRACE_MS: how long SIGTERM waits for requests in flight (25 s: inside a 30 s orchestrator limit). */
+export function readShutdownGraceMs(/** @type {string | undefined} */ setting) {
+  if (setting === undefined || setting === "") return 25_000;
+  if (!/^\d+$/.test(setting)) throw new Error(`BENCHFOLD_SHUTDOWN_GRACE_MS: "${setting}" is not a whole number of milliseconds`);
+  return Number(setting);
+}
+
+/**
+ * Stopping on SIGTERM (or SIGINT) without cutting anyone off:
+ *
+ *  1. the readiness probe answers 503 at once (the marker lib/shutdown.ts reads), and every answer
+ *     from now on carries `Connection: close`;
+ *  2. the listener closes: a new connection is refused; idle keep-alive connections are closed
+ *     (Node ≥ 19 does that in server.close()); a connection already sending a request keeps it;
+ *  3. the requests in flight finish, for at most `graceMs`; then any left are cut;
+ *  4. Next is closed, then the app's shutdown hooks run (each bundled copy's database pool, the
+ *     PDF render workers), each for at most 5 s;
+ *  5. the process exits 0. A second signal while stopping exits 1 at once.
+ *
+ * @param {{ httpServer: import("node:http").Server, app: { close(): Promise<void> }, graceMs: number, log?: (line: string) => void, exit?: (code: number) => void }} options
+ */
+export function createGracefulShutdown({ httpServer, app, graceMs, log = (line) => console.log(`[benchfold] ${line}`), exit = (code) => process.exit(code) }) {
+  /** @type {Set<import("node:http").ServerResponse>} */
+  const inFlight = new Set();
+  let began = false;
+  /** @type {(() => void) | null} */
+  let drained = null;
+
+  return {
+    /** Counts a request from its headers until its answer is sent or its connection closes. */
+    track(/** @type {import("node:http").ServerResponse} */ res) {
+      inFlight.add(res);
+      if (began) res.shouldKeepAlive = false;
+      res.once("close", () => {
+        inFlight.delete(res);
+        if (began && inFlight.size === 0) drained?.();
+      });
+    },
+    get inFlight() {
+      return inFlight.size;
+    },
+    async begin(/** @type {string} */ signal) {
+      if (began) {
+        log(`${signal} again while stopping: exiting now`);
+        exit(1);
+        return;
+      }
+      began = true;
+      const started = Date.now();
+      /** @type {Record<symbol, unknown>} */ (globalThis)[shuttingDownMarker] = true;
+      for (const res of inFlight) res.shouldKeepAlive = false;
+      httpServer.close();
+      log(`${signal}: stopping; new connections refused, ${inFlight.size} request(s) in flight, waiting up to ${graceMs} ms`);
+      // A last resort should a hook hang: the grace period, 5 s per hook, and a margin.
+      setTimeout(() => {
+        log("shutdown did not finish in time: exiting");
+        exit(1);
+      }, graceMs + 20_000).unref();
+
+      const finished = await new Promise((resolve) => {
+        if (inFlight.size === 0) return resolve(true);
+        const timer = setTimeout(() => resolve(false), graceMs);
+        drained = () => {
+          clearTimeout(timer);
+          resolve(true);
+        };
+      });
+      const cut = inFlight.size;
+      httpServer.closeAllConnections();
+      if (!finished) log(`grace period over: ${cut} request(s) cut off`);
+      else log(`requests finished in ${Date.now() - started} ms`);
+
+      await app.close().catch((/** @type {Error} */ error) => log(`closing Next failed: ${error.message}`));
+      /** @type {Set<{ name: string, run: () => Promise<void> }> | undefined} */
+      const hooks = /** @type {any} */ (globalThis)[shutdownHooksKey];
+      const closed = await Promise.all(
+        [...(hooks ?? [])].map(async (hook) => {
+          /** @type {NodeJS.Timeout | undefined} */
+          let timer;
+          const limit = new Promise((_, reject) => {
+            timer = setTimeout(() => reject(new Error("no answer within 5 s")), 5_000);
+          });
+          try {
+            await Promise.race([hook.run(), limit]);
+            return `${hook.name} closed`;
+          } catch (error) {
+            return `${hook.name} not closed (${/** @type {Error} */ (error).message})`;
+          } finally {
+            clearTimeout(timer);
+          }
+        }),
+      );
+      const counts = new Map();
+      for (const line of closed) counts.set(line, (counts.get(line) ?? 0) + 1);
+      log(`stopped after ${Date.now() - started} ms: ${[...counts].map(([line, n]) => (n > 1 ? `${line} (×${n})` : line)).join(", ") || "nothing to close"}`);
+      exit(0);
+    },
+  };
+}
+
 async function main() {
   const dev = process.argv.includes("--dev");
   // Before Next (and React) load: they pick their production or development builds from it.
@@ -309,6 +413,8 @@ async function main() {
   /** @type {Record<symbol, unknown>} */ (globalThis)[serverMarker] = true;
   releaseAbortReasonFrames();
 
+  /** @type {ReturnType<typeof createGracefulShutdown> | undefined} */
+  let shutdown;
   const { default: next } = await import("next");
   const httpServer = createServer();
   const app = next({ dev, hostname: "localhost", port, httpServer });
@@ -325,6 +431,7 @@ async function main() {
       idle.started();
       res.once("close", () => idle.finished());
     }
+    shutdown?.track(res);
     try {
       prepareRequestHeaders(req, trusted, proxyHeader);
     } catch (error) {
@@ -360,13 +467,10 @@ async function main() {
     process.exit(1);
   });
 
-  const stop = () => {
-    httpServer.close();
-    httpServer.closeAllConnections();
-    void app.close().finally(() => process.exit(0));
-  };
-  process.on("SIGTERM", stop);
-  process.on("SIGINT", stop);
+  shutdown = createGracefulShutdown({ httpServer, app, graceMs: readShutdownGraceMs(process.env.BENCHFOLD_SHUTDOWN_GRACE_MS) });
+  const stopping = shutdown;
+  process.on("SIGTERM", () => stopping.begin("SIGTERM"));
+  process.on("SIGINT", () => stopping.begin("SIGINT"));
 
   // No host: every interface, as `next start` does.
   httpServer.listen(port, () => {

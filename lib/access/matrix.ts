@@ -40,7 +40,7 @@ export const resources = {
   "bench-upload": { access: "bench-token", what: "a bench posting a file with its token (versioned API)" },
   subscriptions: { access: "subscription:manage", what: "the parts and device classes a customer follows, and the notices sent to them" },
   unsubscribe: { access: "public", what: "leaving a change notice by the signed link in its mail, without signing in" },
-  service: { access: "public", what: "the service's own description and state: the OpenAPI document of api/v1 and the liveness probe" },
+  service: { access: "public", what: "the service's own description and state: the OpenAPI document of api/v1, the liveness probe and the readiness probe" },
 } as const satisfies Record<string, { access: Access; what: string }>;
 
 export type Resource = keyof typeof resources;
@@ -141,6 +141,7 @@ export const apiResources = {
   "POST /api/v1/measurements": "bench-upload",
   "GET /api/v1/openapi.json": "service",
   "GET /api/health/live": "service",
+  "GET /api/health/ready": "service",
 } as const satisfies Record<string, Resource>;
 
 export type PageRoute = keyof typeof pageResources;

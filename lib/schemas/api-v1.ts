@@ -7,6 +7,7 @@ import { revisionStandings, type RevisionSummary } from "@/lib/domain/reviews";
 import { referencePattern, sha256Pattern, type VerifyAnswer } from "@/lib/domain/verify";
 import { errorStatus, type AppError } from "@/lib/errors";
 import type { ValueTable } from "@/lib/analysis/tables";
+import type { Readiness } from "@/lib/server/health/check-readiness";
 import type { Same } from "./same-type";
 import { sheetModelSchema } from "./sheet-model";
 
@@ -226,4 +227,24 @@ export const benchUploadResponseSchema = z
   .meta({ description: "The stored measurement set, awaiting review, with the parameters the engine derived and every value per point." });
 export type BenchUploadResponse = z.infer<typeof benchUploadResponseSchema>;
 
-void [valueTableMatches, errorBodyMatches, catalogResultMatches, revisionSummaryMatches, verifyAnswerMatches, measurementSetMatches];
+/* ---------- readiness (GET /api/health/ready, outside /api/v1 but described with it) ---------- */
+
+const readinessCheckSchema = z.object({
+  status: z.enum(["ok", "failing"]),
+  ms: z.number().int().meta({ description: "How long the check took, ms." }),
+  message: z.string().optional().meta({ description: "Why it fails, in words; never a host, port or driver message." }),
+});
+export const readinessResponseSchema = z
+  .object({
+    status: z.enum(["ready", "not-ready", "stopping"]),
+    notReady: z.array(z.enum(["database", "storage", "mail", "instance"])).meta({ description: "What is not ready: a check, or `instance` while it shuts down." }),
+    checks: z
+      .object({ database: readinessCheckSchema.optional(), storage: readinessCheckSchema.optional(), mail: readinessCheckSchema.optional() })
+      .meta({ description: "Each check's result; empty while the instance shuts down (no check is run then)." }),
+    note: z.string(),
+  })
+  .meta({ description: "Whether this app instance should get traffic: 200 ready, 503 not ready or stopping." });
+export type ReadinessResponse = z.infer<typeof readinessResponseSchema>;
+const readinessMatches: Same<ReadinessResponse, Readiness> = true;
+
+void [readinessMatches, valueTableMatches, errorBodyMatches, catalogResultMatches, revisionSummaryMatches, verifyAnswerMatches, measurementSetMatches];

@@ -5,6 +5,7 @@ import {
   catalogHitSchema,
   errorBodySchema,
   measurementSetSchema,
+  readinessResponseSchema,
   releasedSheetResponseSchema,
   revisionSummarySchema,
   sheetPathParamsSchema,
@@ -39,6 +40,7 @@ const components = {
   VerifyAnswer: verifyAnswerSchema,
   BenchUploadResponse: benchUploadResponseSchema,
   MeasurementSet: measurementSetSchema,
+  ReadinessResponse: readinessResponseSchema,
 } as const;
 
 const ref = (name: keyof typeof components) => ({ $ref: `#/components/schemas/${name}` });
@@ -239,6 +241,22 @@ export function buildOpenApiDocument(): OpenApiDocument {
             "422": refusal("A field or the file's content is wrong; the message names file, line and column where it can."),
             "429": refusal("Too many uploads; wait."),
             "503": unavailable,
+          },
+        },
+      },
+      "/api/health/ready": {
+        get: {
+          operationId: "getReadiness",
+          summary: "Readiness of this app instance, for a load balancer",
+          description:
+            "Checks the database (a `SELECT 1`), the file storage (a read of the file table: files are kept in the database) and the mail relay (it greets with 220), " +
+            "each within BENCHFOLD_READY_TIMEOUT_MS (2 s). 503 from the moment the instance begins to shut down. Never cached (`no-store`); no session. " +
+            "Liveness (the process answers, no checks) is `GET /api/health/live`.",
+          responses: {
+            "200": json(ref("ReadinessResponse"), "Ready: every check passed."),
+            "503": json(ref("ReadinessResponse"), "Not ready: `notReady` names each failing check, or `instance` while it shuts down.", {
+              "Retry-After": { schema: { type: "string" } },
+            }),
           },
         },
       },

@@ -109,6 +109,7 @@ const probes: Record<ApiRoute, Probe> = {
   "POST /api/v1/measurements": { path: () => "/api/v1/measurements", form: {}, allowedStatus: 201 },
   "GET /api/v1/openapi.json": { path: () => "/api/v1/openapi.json", allowedStatus: 200 },
   "GET /api/health/live": { path: () => "/api/health/live", allowedStatus: 200 },
+  "GET /api/health/ready": { path: () => "/api/health/ready", allowedStatus: 200 },
 };
 
 /** A client of its own for one probe: signed in as the role's person when there is one. */

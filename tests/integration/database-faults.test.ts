@@ -14,21 +14,15 @@
  * It stops and starts the MariaDB instance the whole run shares, so it runs alone in its file
  * (integration files run one at a time) and always leaves the database running.
  */
-import { execFile } from "node:child_process";
-import { readFileSync } from "node:fs";
-import path from "node:path";
-import { promisify } from "node:util";
 import { QueryTypes } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { mulberry32 } from "@/lib/stats/seeded-random";
 import { closeDb, db } from "@/models";
 import { TestClient } from "./helpers/client";
+import { killDatabase, startDatabase } from "./helpers/database-process";
 import { clientsByRole, factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
 import { deviceWithApprovedData, release, sign, submitDraft } from "./helpers/reviews";
 
-const run = promisify(execFile);
-const ROOT = path.resolve(__dirname, "../..");
-const DATA_DIR = process.env.BENCHFOLD_DATA_DIR ?? path.join(ROOT, ".data");
 const TRIALS = 20;
 
 /** A phase-noise trace of 30,000 offsets: big enough that parsing, deriving and storing take a while. */
@@ -42,8 +36,6 @@ function bigTrace(serial: string): Uint8Array<ArrayBuffer> {
   return new TextEncoder().encode(`${lines.join("\n")}\n`) as Uint8Array<ArrayBuffer>;
 }
 
-const killDatabase = () => process.kill(Number(readFileSync(path.join(DATA_DIR, "run/mariadb.pid"), "utf8").trim()), "SIGKILL");
-const startDatabase = () => run("bash", [path.join(ROOT, "scripts/db.sh"), "start"], { cwd: ROOT, env: process.env });
 
 async function waitUntil(check: () => Promise<boolean>, timeoutMs: number): Promise<number> {
   const started = Date.now();

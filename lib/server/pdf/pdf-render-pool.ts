@@ -2,6 +2,7 @@ import "server-only";
 import os from "node:os";
 import { type ResourceLimits, Worker } from "node:worker_threads";
 import { AppError } from "../../errors";
+import { onShutdown } from "../../shutdown";
 import type { SheetModel } from "../../sheet/types";
 import type { RenderReply, RenderRequest } from "./pdf-render-protocol";
 
@@ -251,11 +252,15 @@ const POOL = Symbol.for("benchfold.pdf-render-pool");
  * reloaded after an edit brings a rebuilt worker file, so its pool replaces the one before.
  */
 export function sheetPdfRenderPool(): PdfRenderPool {
-  const holder = globalThis as { [POOL]?: { pool: PdfRenderPool; spawn: SpawnRenderWorker } };
+  const holder = globalThis as { [POOL]?: { pool: PdfRenderPool; spawn: SpawnRenderWorker; forget: () => void } };
   const held = holder[POOL];
   if (held && (held.spawn === spawnRenderWorker || process.env.NODE_ENV === "production")) return held.pool;
-  void held?.pool.close();
+  if (held) {
+    held.forget();
+    void held.pool.close();
+  }
   const pool = new PdfRenderPool(spawnRenderWorker, pdfRenderLimitsFromEnv());
-  holder[POOL] = { pool, spawn: spawnRenderWorker };
+  // The app server stops the workers on SIGTERM, after the requests in flight (lib/shutdown.ts).
+  holder[POOL] = { pool, spawn: spawnRenderWorker, forget: onShutdown("PDF render workers", () => pool.close()) };
   return pool;
 }
