@@ -37,7 +37,7 @@ export const resources = {
   people: { access: "user:manage", what: "the organization's people, their roles and invitations" },
   "instrument-admin": { access: "instrument:manage", what: "the instrument register and calibration dates" },
   "bench-tokens": { access: "token:manage", what: "the organization's bench API tokens" },
-  "bench-upload": { access: "bench-token", what: "a bench posting a file with its token (versioned API)" },
+  "bench-upload": { access: "bench-token", what: "a bench posting a file with its token, and reading one of its organization's sets back (versioned API)" },
   subscriptions: { access: "subscription:manage", what: "the parts and device classes a customer follows, and the notices sent to them" },
   unsubscribe: { access: "public", what: "leaving a change notice by the signed link in its mail, without signing in" },
   service: { access: "public", what: "the service's own description and state: the OpenAPI document of api/v1 and the liveness probe" },
@@ -136,6 +136,7 @@ export const apiResources = {
   "POST /api/admin/bench-tokens": "bench-tokens",
   "DELETE /api/admin/bench-tokens/[id]": "bench-tokens",
   "POST /api/v1/measurements": "bench-upload",
+  "GET /api/v1/measurements/[id]": "bench-upload",
   "GET /api/v1/openapi.json": "service",
   "GET /api/health/live": "service",
 } as const satisfies Record<string, Resource>;

@@ -4,6 +4,8 @@ import {
   benchUploadResponseSchema,
   catalogHitSchema,
   errorBodySchema,
+  measurementSetPathParamsSchema,
+  measurementSetResponseSchema,
   measurementSetSchema,
   releasedSheetResponseSchema,
   revisionSummarySchema,
@@ -39,6 +41,7 @@ const components = {
   VerifyAnswer: verifyAnswerSchema,
   BenchUploadResponse: benchUploadResponseSchema,
   MeasurementSet: measurementSetSchema,
+  MeasurementSetResponse: measurementSetResponseSchema,
 } as const;
 
 const ref = (name: keyof typeof components) => ({ $ref: `#/components/schemas/${name}` });
@@ -115,7 +118,7 @@ export function buildOpenApiDocument(): OpenApiDocument {
       title: "Benchfold public API",
       version: "1",
       description:
-        "Released characterization sheets (catalog search, the frozen sheet model, the stored PDF), printout verification, and the bench upload. " +
+        "Released characterization sheets (catalog search, the frozen sheet model, the stored PDF), printout verification, and the bench upload and read-back. " +
         "Every refusal is a 4xx with `{ error: { code, message, details? } }`.",
     },
     jsonSchemaDialect: "https://json-schema.org/draft/2020-12/schema",
@@ -196,6 +199,21 @@ export function buildOpenApiDocument(): OpenApiDocument {
             "415": refusal("Not multipart/form-data."),
             "422": refusal("A field or the file's content is wrong; the message names file, line and column where it can."),
             "429": refusal("Too many uploads; wait."),
+            "503": unavailable,
+          },
+        },
+      },
+      "/api/v1/measurements/{id}": {
+        get: {
+          operationId: "getMeasurementSet",
+          summary: "Read back one measurement set of the token's organization (bench token)",
+          description: "The same answer as the upload's: the set as it stands now (state, review, parameters) and every value per point.",
+          security: [{ benchToken: [] }],
+          parameters: parameters(measurementSetPathParamsSchema, "path"),
+          responses: {
+            "200": json(ref("MeasurementSetResponse"), "The set and its per-point tables."),
+            "401": refusal("No bench token, or an unknown or revoked one."),
+            "404": refusal("No such set in the token's organization (another organization's set is not found either)."),
             "503": unavailable,
           },
         },
