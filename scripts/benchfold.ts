@@ -43,7 +43,7 @@ function main(argv: string[]): number {
 
   if (command.json) {
     const { kind, settings, parameters, warnings } = result;
-    const tables = tabulateValues(parsed, { impedanceOhm: command.impedanceOhm });
+    const tables = tabulateValues(parsed, { impedanceOhm: settings.impedance.value, impedanceSource: settings.impedance.source });
     process.stdout.write(`${JSON.stringify({ kind, settings, parameters, warnings, tables }, null, 2)}\n`);
     return 0;
   }

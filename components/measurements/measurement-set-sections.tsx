@@ -232,6 +232,7 @@ export function ConditionsList({ set }: { set: MeasurementSetDetail }) {
     ["Drive level", k.driveLevelDbm === undefined ? "—" : <NumberQuantity value={k.driveLevelDbm} unit="dBm" signed />],
     ["Splitter excess loss", k.splitterExcessLossDb === undefined ? "—" : <NumberQuantity value={k.splitterExcessLossDb} unit="dB" />],
     ["Cable loss", k.cableLossDb === undefined ? "—" : <NumberQuantity value={k.cableLossDb} unit="dB" />],
+    ...(k.impedanceOhm === undefined ? [] : ([["Impedance", <NumberQuantity key="z" value={k.impedanceOhm} unit="Ω" />]] as [string, React.ReactNode][])),
     ["Measured on", set.measuredOn ? <span className="figure">{formatDate(set.measuredOn)}</span> : "—"],
   ];
   return (

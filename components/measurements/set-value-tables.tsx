@@ -1,4 +1,5 @@
 import type { ValueTable } from "@/lib/analysis/tables";
+import { settingSourceWords } from "@/lib/domain/analysis-settings";
 import { formatNumber, formatQuantity, MISSING } from "@/lib/format";
 
 /** Rows drawn on the page; the API (GET /api/measurements/[id], the bench API's answer) and the CLI's --json give every row. */
@@ -18,7 +19,7 @@ export function SetValueTables({ tables }: { tables: ValueTable[] }) {
       {tables.map((table) => (
         <details key={table.id} className="mb-4 border-b border-rule pb-2">
           <summary className="cursor-pointer py-1 text-[0.9375rem] font-semibold">
-            {table.title} <span className="figure font-normal text-ink-muted">({table.rows.length} rows{table.impedanceOhm ? `, ${formatQuantity(table.impedanceOhm, "Ω", { digits: { maxSignificant: 4 } })}` : ""})</span>
+            {table.title} <span className="figure font-normal text-ink-muted">({table.rows.length} rows{table.impedanceOhm ? `, ${impedanceWords(table)}` : ""})</span>
           </summary>
           {table.rows.length > MAX_ROWS ? (
             <p className="mt-2 text-sm text-ink-muted">
@@ -57,6 +58,12 @@ export function SetValueTables({ tables }: { tables: ValueTable[] }) {
       ))}
     </section>
   );
+}
+
+/** "into 75 Ω, set by the file": the impedance the Vrms and dBµV columns (or the S-parameters) are referred to, and who stated it. */
+function impedanceWords(table: ValueTable): string {
+  const ohm = formatQuantity(table.impedanceOhm ?? Number.NaN, "Ω", { digits: { maxSignificant: 4 } });
+  return table.impedanceSource ? `${ohm}, set by ${settingSourceWords[table.impedanceSource]}` : ohm;
 }
 
 function formatCell(value: number, unit: string): string {

@@ -108,8 +108,8 @@ export function UploadConditionsForm({ conditions, onChange: set, disabled, inst
 
 /**
  * The settings the engine uses for this batch: the phase-noise integration band (a named band, or two
- * ends) and the compression reference drive. A file's own "# integration_start:" / "# integration_stop:" /
- * "# compression_reference:" lines win over these; left empty, the device class's defaults apply.
+ * ends), the compression reference drive and the impedance of power readings. A file's own "# integration_start:" /
+ * "# integration_stop:" / "# compression_reference:" / "# impedance:" lines win over these; left empty, the device class's defaults apply.
  */
 function MeasurementSettings({ conditions, onChange: set }: Pick<UploadConditionsFormProps, "conditions" | "onChange">) {
   const id = useId();
@@ -134,6 +134,13 @@ function MeasurementSettings({ conditions, onChange: set }: Pick<UploadCondition
           value={conditions.compressionReferenceDbm}
           onChange={(v) => set("compressionReferenceDbm", v)}
           hint="Small-signal gain for P1dB is read here; empty: the leading steps within 0.1 dB of the first"
+        />
+        <UnitInput
+          label="Impedance"
+          unit="Ω"
+          value={conditions.impedanceOhm}
+          onChange={(v) => set("impedanceOhm", v)}
+          hint="For Vrms and dBµV of power readings, 1 to 1000 Ω; empty: 50 Ω. A Touchstone file keeps its own"
         />
       </div>
       {conditions.integrationBand === "custom" ? (

@@ -2,6 +2,7 @@ import type { IngestDetail, MappingDetail } from "./upload-request";
 import type { FrequencyUnit } from "@/components/devices/frequency-units";
 import { toHz } from "@/components/devices/frequency-units";
 import { parseDecimalText } from "@/lib/ingest/number";
+import { impedanceProblem } from "@/lib/domain/analysis-settings";
 
 /** What the upload form holds for a batch: strings as typed, converted when the form is sent. */
 export type SupersedableSet = { id: number; kind: string; fileName: string; serial?: string };
@@ -37,6 +38,7 @@ export type UploadConditions = {
   integrationStop: string;
   integrationStopUnit: FrequencyUnit;
   compressionReferenceDbm: string;
+  impedanceOhm: string;
 };
 
 export const initialConditions: UploadConditions = {
@@ -59,6 +61,7 @@ export const initialConditions: UploadConditions = {
   integrationStop: "",
   integrationStopUnit: "MHz",
   compressionReferenceDbm: "",
+  impedanceOhm: "",
 };
 
 /** The form fields the upload routes read (lib/schemas/measurements uploadFieldsSchema). */
@@ -77,6 +80,7 @@ export function buildForm(file: File, c: UploadConditions): FormData {
     ["kind", c.kind],
     ["supersedesId", c.supersedesId],
     ["compressionReferenceDbm", c.compressionReferenceDbm],
+    ["impedanceOhm", c.impedanceOhm],
   ];
   for (const [key, value] of text) if (value.trim() !== "") form.append(key, value.trim().replace("\u2212", "-"));
   const hz = toHz(c.inputFrequency, c.inputFrequencyUnit);
@@ -100,10 +104,13 @@ export function checkConditions(c: UploadConditions, fileCount: number): string 
     ["Splitter excess loss", c.splitterExcessLossDb],
     ["Cable loss", c.cableLossDb],
     ["Compression reference drive", c.compressionReferenceDbm],
+    ["Impedance", c.impedanceOhm],
   ];
   for (const [label, value] of numbers) {
     if (Number.isNaN(parseDecimalText(value))) return `${label} must be a decimal number.`;
   }
+  const ohm = parseDecimalText(c.impedanceOhm);
+  if (ohm !== undefined && impedanceProblem(ohm)) return `The ${impedanceProblem(ohm)}.`;
   const hz = toHz(c.inputFrequency, c.inputFrequencyUnit);
   if (hz !== undefined && !(hz > 0)) return "Input frequency must be a number above 0.";
   if (c.integrationBand === "custom") {

@@ -1,5 +1,5 @@
 import { deviceClasses, type DeviceClass } from "../domain/device-classes";
-import { findNamedIntegrationBand, namedIntegrationBands, type StatedAnalysisSettings } from "../domain/analysis-settings";
+import { findNamedIntegrationBand, impedanceProblem, namedIntegrationBands, type StatedAnalysisSettings } from "../domain/analysis-settings";
 import { measurementKinds, type MeasurementKind } from "../domain/measurements";
 import { parseDecimalText } from "../ingest/number";
 
@@ -14,8 +14,6 @@ export type CliCommand =
       settings?: StatedAnalysisSettings;
       /** Take the defaults of this class's template (the fourth source). */
       deviceClass?: DeviceClass;
-      /** Impedance for dBm ↔ Vrms ↔ dBµV of CSV power readings, Ω; 50 by default (a Touchstone file states its own). */
-      impedanceOhm?: number;
     }
   | { command: "error"; message: string };
 
@@ -33,10 +31,11 @@ Parses a bench measurement file and prints the parameters Benchfold derives from
   --compression-reference <dBm>
                      small-signal reference drive for P1dB (the axis input P1dB is reported on)
   --class <class>    use this device class's defaults: ${deviceClasses.join(", ")}
-  --impedance <ohm>  impedance for dBm, Vrms and dBµV of power readings (50 by default)
+  --impedance <ohm>  impedance for dBm, Vrms and dBµV of power readings, 1 to 1000 (50 by default;
+                     a Touchstone file keeps its own reference impedance)
   --help, -h         show this help
 
-A setting in the file ("# integration_start:", "# integration_stop:", "# compression_reference:")
+A setting in the file ("# integration_start:", "# integration_stop:", "# compression_reference:", "# impedance:")
 wins over the command line, which wins over the class's default.
 
 Exit codes: 0 done, 2 bad usage, a file that does not parse or a setting the data cannot honour, 1 anything else.`;
@@ -92,8 +91,8 @@ function readOption(name: string, value: string, out: Omit<Analyze, "command" | 
       return undefined;
     case "--impedance": {
       const ohm = parseDecimalText(value);
-      if (ohm === undefined || !(ohm > 0 && ohm <= 1e6)) return `--impedance needs a resistance in ohms above 0, e.g. 50; found "${value}"`;
-      out.impedanceOhm = ohm;
+      if (ohm === undefined || impedanceProblem(ohm)) return `--impedance needs a resistance in ohms from 1 to 1000, e.g. 75; found "${value}"`;
+      settings.impedanceOhm = ohm;
       return undefined;
     }
     case "--compression-reference": {

@@ -1,4 +1,5 @@
 import {
+  DEFAULT_ANALYSIS_IMPEDANCE_OHM,
   settingSources,
   settingSourceWords,
   type IntegrationBandHz,
@@ -20,6 +21,8 @@ export interface ResolvedSetting<T> {
 export interface ResolvedAnalysisSettings {
   integrationBand: ResolvedSetting<IntegrationBandHz>;
   compressionReferenceDbm?: ResolvedSetting<number>;
+  /** The impedance of power readings for dBm ↔ Vrms ↔ dBµV (lib/analysis/tables.ts); 50 Ω from the engine when no source states one. */
+  impedance: ResolvedSetting<number>;
 }
 
 /** A setting the data cannot honour (a band outside the trace, a reference drive outside the sweep): a 422 in the app, exit 2 in the CLI. */
@@ -35,6 +38,12 @@ export class AnalysisSettingError extends Error {
 export function isAnalysisSettingError(error: unknown): error is AnalysisSettingError {
   return error instanceof AnalysisSettingError;
 }
+
+const settingLabels: Record<keyof StatedAnalysisSettings, string> = {
+  integrationBandHz: "Integration band",
+  compressionReferenceDbm: "Compression reference drive",
+  impedanceOhm: "Impedance",
+};
 
 export type SettingLayers = Partial<Record<Exclude<SettingSource, "engine">, StatedAnalysisSettings | undefined>>;
 
@@ -55,7 +64,7 @@ export function resolveAnalysisSettings(layers: SettingLayers): { settings: Reso
       if (!chosen) chosen = { value, source };
       else if (source !== "template" && describe(value) !== describe(chosen.value)) {
         conflicts.push(
-          `${key === "integrationBandHz" ? "Integration band" : "Compression reference drive"}: ${settingSourceWords[chosen.source]} says ${describe(chosen.value)}, ${settingSourceWords[source]} said ${describe(value)}; ${settingSourceWords[chosen.source]}'s is used`,
+          `${settingLabels[key]}: ${settingSourceWords[chosen.source]} says ${describe(chosen.value)}, ${settingSourceWords[source]} said ${describe(value)}; ${settingSourceWords[chosen.source]}'s is used`,
         );
       }
     }
@@ -63,10 +72,12 @@ export function resolveAnalysisSettings(layers: SettingLayers): { settings: Reso
   };
   const band = pick("integrationBandHz", describeBand);
   const reference = pick("compressionReferenceDbm", describeDbm);
+  const impedance = pick("impedanceOhm", describeOhm);
   return {
     settings: {
       integrationBand: band ?? { value: ENGINE_INTEGRATION_BAND_HZ, source: "engine" },
       ...(reference ? { compressionReferenceDbm: reference } : {}),
+      impedance: impedance ?? { value: DEFAULT_ANALYSIS_IMPEDANCE_OHM, source: "engine" },
     },
     conflicts,
   };
@@ -81,16 +92,22 @@ function describeDbm(valueDbm: number): string {
   return `${valueDbm > 0 ? "+" : ""}${valueDbm} dBm`;
 }
 
-/** What a parsed file states about its own analysis (its `# key: value` lines). */
+function describeOhm(ohm: number): string {
+  return `${ohm} Ω`;
+}
+
+/** What a parsed file states about its own analysis (its `# key: value` lines; a Touchstone file's reference impedance). */
 export function fileAnalysisSettings(parsed: ParsedMeasurement): StatedAnalysisSettings {
+  if (parsed.kind === "touchstone") return { impedanceOhm: parsed.data.referenceOhm[0] };
+  const impedance = parsed.data.impedanceOhm !== undefined ? { impedanceOhm: parsed.data.impedanceOhm } : {};
   switch (parsed.kind) {
     case "phase-noise":
-      return parsed.data.integrationBandHz ? { integrationBandHz: parsed.data.integrationBandHz } : {};
+      return { ...(parsed.data.integrationBandHz ? { integrationBandHz: parsed.data.integrationBandHz } : {}), ...impedance };
     case "drive-sweep":
     case "two-tone":
-      return parsed.data.compressionReferenceDbm !== undefined ? { compressionReferenceDbm: parsed.data.compressionReferenceDbm } : {};
+      return { ...(parsed.data.compressionReferenceDbm !== undefined ? { compressionReferenceDbm: parsed.data.compressionReferenceDbm } : {}), ...impedance };
     default:
-      return {};
+      return impedance;
   }
 }
 

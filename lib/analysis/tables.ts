@@ -1,4 +1,5 @@
 import type { ParsedMeasurement, TouchstoneData } from "../ingest/types";
+import type { SettingSource } from "../domain/analysis-settings";
 import { convertDbmToDbuv, convertDbmToVrms, DEFAULT_IMPEDANCE_OHM } from "../rf/units";
 
 export interface ValueTableColumn {
@@ -15,6 +16,8 @@ export interface ValueTable {
   title: string;
   /** Impedance the Vrms and dBµV columns are referred to, Ω. */
   impedanceOhm?: number;
+  /** Who stated that impedance: the file (a Touchstone file's reference impedance, or `# impedance:`), the upload, the command line, or Benchfold's default. */
+  impedanceSource?: SettingSource;
   x: ValueTableColumn;
   columns: ValueTableColumn[];
   /** One row per point: x first, then one cell per column (null where a value cannot be computed). */
@@ -24,6 +27,8 @@ export interface ValueTable {
 export interface TabulateOptions {
   /** For dBm ↔ Vrms ↔ dBµV of CSV power readings; a Touchstone file's own reference impedance is used for it. 50 Ω by default. */
   impedanceOhm?: number;
+  /** Where `impedanceOhm` came from (lib/analysis/settings.ts resolveAnalysisSettings); "engine" when it is not given. */
+  impedanceSource?: SettingSource;
 }
 
 /**
@@ -32,6 +37,7 @@ export interface TabulateOptions {
  */
 export function tabulateValues(parsed: ParsedMeasurement, options: TabulateOptions = {}): ValueTable[] {
   const impedanceOhm = options.impedanceOhm ?? DEFAULT_IMPEDANCE_OHM;
+  const impedanceSource: SettingSource = options.impedanceOhm === undefined ? "engine" : (options.impedanceSource ?? "engine");
   switch (parsed.kind) {
     case "touchstone":
       return [tabulateSParameters(parsed.data)];
@@ -43,6 +49,7 @@ export function tabulateValues(parsed: ParsedMeasurement, options: TabulateOptio
           x: { label: "Source power", unit: "dBm", values: parsed.data.inputPowerDbm },
           series: parsed.data.harmonics.map((h) => ({ label: `order ${h.order}`, valuesDbm: h.outputPowerDbm })),
           impedanceOhm,
+          impedanceSource,
         }),
       ];
     case "two-tone":
@@ -56,6 +63,7 @@ export function tabulateValues(parsed: ParsedMeasurement, options: TabulateOptio
             { label: "IM3", valuesDbm: parsed.data.im3OutputDbm },
           ],
           impedanceOhm,
+          impedanceSource,
         }),
       ];
     case "frequency-sweep": {
@@ -65,7 +73,7 @@ export function tabulateValues(parsed: ParsedMeasurement, options: TabulateOptio
         ...(outputPowerDbm ? [{ label: "output", valuesDbm: outputPowerDbm }] : []),
       ];
       if (series.length === 0) return [];
-      return [powerTable({ id: "power-per-frequency", title: "Power at each frequency", x: { label: "Frequency", unit: "Hz", values: frequencyHz }, series, impedanceOhm })];
+      return [powerTable({ id: "power-per-frequency", title: "Power at each frequency", x: { label: "Frequency", unit: "Hz", values: frequencyHz }, series, impedanceOhm, impedanceSource })];
     }
     case "phase-noise":
       return [];
@@ -79,8 +87,9 @@ function powerTable(input: {
   x: ValueTableColumn & { values: ArrayLike<number> };
   series: { label: string; valuesDbm: ArrayLike<number> }[];
   impedanceOhm: number;
+  impedanceSource: SettingSource;
 }): ValueTable {
-  const { x, series, impedanceOhm } = input;
+  const { x, series, impedanceOhm, impedanceSource } = input;
   const columns: ValueTableColumn[] = [];
   for (const s of series) {
     columns.push({ label: `${s.label}`, unit: "dBm" }, { label: `${s.label}`, unit: "Vrms" }, { label: `${s.label}`, unit: "dBµV" });
@@ -94,7 +103,7 @@ function powerTable(input: {
     }
     rows.push(row);
   }
-  return { id: input.id, title: input.title, impedanceOhm, x: { label: x.label, unit: x.unit }, columns, rows };
+  return { id: input.id, title: input.title, impedanceOhm, impedanceSource, x: { label: x.label, unit: x.unit }, columns, rows };
 }
 
 /**
@@ -135,6 +144,7 @@ function tabulateSParameters(data: TouchstoneData): ValueTable {
     id: "s-parameters-per-frequency",
     title: "S-parameters and mismatch loss at each frequency",
     impedanceOhm: data.referenceOhm[0],
+    impedanceSource: "file",
     x: { label: "Frequency", unit: "Hz" },
     columns,
     rows,

@@ -1,6 +1,6 @@
 /**
  * The measurement settings an engineer chooses per measurement (the phase-noise integration band,
- * the small-signal reference of compression), where each can be stated, and the named bands the
+ * the small-signal reference of compression, the impedance of power readings), where each can be stated, and the named bands the
  * upload form offers. Pure, so the form, the schemas, the engine and the CLI share it.
  */
 
@@ -40,6 +40,21 @@ export interface StatedAnalysisSettings {
   integrationBandHz?: IntegrationBandHz;
   /** The small-signal reference drive for compression, dBm, on the axis the input P1dB is reported on. */
   compressionReferenceDbm?: number;
+  /** The impedance power readings are referred to for dBm ↔ Vrms ↔ dBµV, Ω (a Touchstone file states its own). */
+  impedanceOhm?: number;
+}
+
+/** Impedance when no source states one, Ω (common practice: RF benches are 50 Ω systems, video and cable TV 75 Ω). */
+export const DEFAULT_ANALYSIS_IMPEDANCE_OHM = 50;
+
+/** The impedances the file, the upload and the CLI may state, Ω: wide enough for 50, 75, 100, 300 and 600 Ω systems, narrow enough to catch a typo. */
+export const impedanceRangeOhm = { min: 1, max: 1000 } as const;
+
+/** Why an impedance cannot be used, or undefined when it can. */
+export function impedanceProblem(ohm: number): string | undefined {
+  if (!Number.isFinite(ohm)) return "the impedance must be a number of ohms";
+  if (ohm < impedanceRangeOhm.min || ohm > impedanceRangeOhm.max) return `the impedance must lie from ${impedanceRangeOhm.min} to ${impedanceRangeOhm.max} Ω`;
+  return undefined;
 }
 
 export function findNamedIntegrationBand(id: string): (typeof namedIntegrationBands)[number] | undefined {

@@ -1,4 +1,4 @@
-import { metaDate, metaQuantity, metaString, rawMetadata, unknownMetadataKeys } from "./csv-metadata";
+import { metaDate, metaImpedance, metaQuantity, metaString, rawMetadata, unknownMetadataKeys } from "./csv-metadata";
 import { checkIncreasing, readCsvColumns, readCsvDocument, requireRows, unusedColumns, type ColumnRequest, type ColumnValues, type CsvDocument } from "./csv-table";
 import { IngestError } from "./errors";
 import { readParserInput } from "./text-guards";
@@ -43,7 +43,8 @@ export function readUnitConditions(doc: CsvDocument, warnings: string[]): UnitCo
   const temperatureC = metaQuantity(doc, "temperature", "temperature", RANGES.temperatureC, false, "25 C");
   if (temperatureC === undefined) warnings.push('no "# temperature:" metadata; the measurement temperature is unknown');
   metaDate(doc, "date");
-  return { serial, lot, temperatureC, metadata: rawMetadata(doc) };
+  const impedanceOhm = metaImpedance(doc);
+  return { serial, lot, temperatureC, ...(impedanceOhm !== undefined ? { impedanceOhm } : {}), metadata: rawMetadata(doc) };
 }
 
 export function warnUnused(doc: CsvDocument, requests: ColumnRequest[], knownMetadata: string[], warnings: string[]): void {

@@ -1,3 +1,4 @@
+import { impedanceProblem, impedanceRangeOhm } from "../domain/analysis-settings";
 import { calendarDateProblem } from "../schemas/calendar-date";
 import type { CsvDocument, MetadataEntry } from "./csv-table";
 import { IngestError, shortenFound } from "./errors";
@@ -5,7 +6,7 @@ import { parseNumberAt } from "./number";
 import { acceptedUnits, describeQuantity, describeRange, findConversion, inRange, RANGES, type Quantity, type ValueRange } from "./units";
 
 /** Metadata keys every CSV kind understands. */
-export const COMMON_METADATA_KEYS = ["kind", "serial", "lot", "temperature", "device", "notes", "operator", "date", "instrument"];
+export const COMMON_METADATA_KEYS = ["kind", "serial", "lot", "temperature", "device", "notes", "operator", "date", "instrument", "impedance"];
 
 function missing(doc: CsvDocument, key: string, example: string): never {
   throw new IngestError({
@@ -153,4 +154,22 @@ export function metaFrequencyBand(doc: CsvDocument, startKey: string, stopKey: s
   if (stopHz === undefined) missing(doc, stopKey, "20 MHz");
   if (!(stopHz > startHz)) bad(doc, doc.metadata.get(stopKey)!, `a frequency above ${startKey}`, `${stopKey} must lie above ${startKey}`);
   return { startHz, stopHz };
+}
+
+/**
+ * "# impedance: 75" (or "75 ohm", "75 Ω"): the impedance the file's power readings are referred to
+ * for dBm ↔ Vrms ↔ dBµV, in ohms, from 1 to 1000 Ω.
+ */
+export function metaImpedance(doc: CsvDocument): number | undefined {
+  const entry = doc.metadata.get("impedance");
+  if (!entry) return undefined;
+  const expected = `a resistance in ohms from ${impedanceRangeOhm.min} to ${impedanceRangeOhm.max}, e.g. "75" or "75 ohm"`;
+  const match = /^(\S+?)\s*(ohms?|Ω|Ohms?)?$/i.exec(entry.value.trim());
+  const ohm = match ? parseNumberAt(match[1], 0, match[1].length, doc.decimalComma) : Number.NaN;
+  if (!Number.isFinite(ohm)) bad(doc, entry, expected, `expected ${expected}, found "${shortenFound(entry.value)}"`);
+  const problem = impedanceProblem(ohm);
+  if (problem) {
+    throw new IngestError({ fileName: doc.fileName, code: "out-of-range", line: entry.line, field: "impedance", expected, found: shortenFound(entry.value), detail: `${problem}, found "${shortenFound(entry.value)}"` });
+  }
+  return ohm;
 }

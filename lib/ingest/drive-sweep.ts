@@ -82,6 +82,7 @@ export function parseDriveSweep(fileName: string, content: FileContent, options:
       serial: unit.serial,
       lot: unit.lot,
       temperatureC: unit.temperatureC,
+      ...(unit.impedanceOhm !== undefined ? { impedanceOhm: unit.impedanceOhm } : {}),
       metadata: unit.metadata,
       inputFrequencyHz,
       wantedOrder,

@@ -13,6 +13,8 @@ export interface UnitConditions {
   serial: string;
   lot?: string;
   temperatureC?: number;
+  /** `# impedance:` the impedance the power readings are referred to, Ω (dBm ↔ Vrms ↔ dBµV); 50 Ω when no source states one. */
+  impedanceOhm?: number;
   /** Every "# key: value" line as written, including the ones read above. */
   metadata: Record<string, string>;
 }

@@ -2,7 +2,7 @@ import { AppError } from "../errors";
 import { isCalendarDate } from "../schemas/calendar-date";
 import type { UploadFields } from "../schemas/measurements";
 import type { ParsedMeasurement } from "./types";
-import { findNamedIntegrationBand, type StatedAnalysisSettings } from "../domain/analysis-settings";
+import { findNamedIntegrationBand, impedanceProblem, type StatedAnalysisSettings } from "../domain/analysis-settings";
 
 /** The conditions a measurement set is filed under: the unit, and what it was measured at. */
 export type MeasurementConditions = {
@@ -14,6 +14,8 @@ export type MeasurementConditions = {
   splitterExcessLossDb?: number;
   cableLossDb?: number;
   notes?: string;
+  /** The impedance the power readings are referred to, Ω, when the file or the upload stated one (lib/analysis/settings.ts decides which). */
+  impedanceOhm?: number;
 };
 
 /** Conditions from the file's own metadata, filled in (never overridden) by what the engineer stated. */
@@ -69,10 +71,10 @@ export function uploadMeasuredOn(parsed: ParsedMeasurement, fields: Pick<UploadF
 
 /**
  * The measurement settings an upload states (form or bench API): a named band or both ends of one,
- * and the compression reference drive. Half a band, a stop not above its start, or a name and ends
+ * the compression reference drive and the impedance of power readings. Half a band, a stop not above its start, or a name and ends
  * that disagree are refused (422 naming the field).
  */
-export function uploadAnalysisSettings(fields: Pick<UploadFields, "integrationBand" | "integrationStartHz" | "integrationStopHz" | "compressionReferenceDbm">): StatedAnalysisSettings {
+export function uploadAnalysisSettings(fields: Pick<UploadFields, "integrationBand" | "integrationStartHz" | "integrationStopHz" | "compressionReferenceDbm" | "impedanceOhm">): StatedAnalysisSettings {
   const out: StatedAnalysisSettings = {};
   const { integrationStartHz: startHz, integrationStopHz: stopHz } = fields;
   if ((startHz === undefined) !== (stopHz === undefined)) {
@@ -91,5 +93,10 @@ export function uploadAnalysisSettings(fields: Pick<UploadFields, "integrationBa
     out.integrationBandHz = { startHz: named.startHz, stopHz: named.stopHz };
   }
   if (fields.compressionReferenceDbm !== undefined) out.compressionReferenceDbm = fields.compressionReferenceDbm;
+  if (fields.impedanceOhm !== undefined) {
+    const problem = impedanceProblem(fields.impedanceOhm);
+    if (problem) throw new AppError("invalid", `The ${problem}.`, { field: "impedanceOhm" });
+    out.impedanceOhm = fields.impedanceOhm;
+  }
   return out;
 }

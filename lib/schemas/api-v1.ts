@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { catalogMaxPageSize, catalogQueryLimits } from "@/lib/catalog/catalog-query";
 import type { CatalogResult } from "@/lib/catalog/types";
+import { settingSources } from "@/lib/domain/analysis-settings";
 import { deviceClasses } from "@/lib/domain/device-classes";
 import { measurementSetStates, measurementSources, type MeasurementSetSummary } from "@/lib/domain/measurements";
 import { revisionStandings, type RevisionSummary } from "@/lib/domain/reviews";
@@ -187,6 +188,7 @@ export const measurementSetSchema = z.object({
     splitterExcessLossDb: optionalNumber,
     cableLossDb: optionalNumber,
     notes: z.string().optional(),
+    impedanceOhm: optionalNumber.meta({ description: "The impedance power readings are referred to, Ω, when the file or the upload stated one; 50 Ω otherwise." }),
   }),
   measuredOn: z.string().nullable(),
   parameters: z.array(
@@ -215,6 +217,7 @@ export const valueTableSchema = z
     id: z.string(),
     title: z.string(),
     impedanceOhm: z.number().optional().meta({ description: "Impedance the Vrms and dBµV columns are referred to, Ω." }),
+    impedanceSource: z.enum(settingSources).optional().meta({ description: "Who stated the impedance: `file`, `upload`, `cli`, `template` or `engine` (Benchfold's default, 50 Ω)." }),
     x: valueTableColumnSchema,
     columns: z.array(valueTableColumnSchema),
     rows: z.array(z.array(z.number().nullable())).meta({ description: "One row per point: x first, then one cell per column (null where a value cannot be computed)." }),
@@ -246,5 +249,15 @@ export const readinessResponseSchema = z
   .meta({ description: "Whether this app instance should get traffic: 200 ready, 503 not ready or stopping." });
 export type ReadinessResponse = z.infer<typeof readinessResponseSchema>;
 const readinessMatches: Same<ReadinessResponse, Readiness> = true;
+
+export const measurementSetResponseSchema = z
+  .object({ measurementSet: measurementSetSchema, tables: z.array(valueTableSchema) })
+  .meta({ description: "One measurement set of the token's organization, in any state, with its derived parameters and every value per point: the same shape as the upload's answer." });
+export type MeasurementSetResponse = z.infer<typeof measurementSetResponseSchema>;
+
+export const measurementSetPathParamsSchema = z.object({
+  id: z.string().regex(/^[1-9][0-9]{0,9}$/).meta({ description: "The measurement set's id, as the upload answered it (`measurementSet.id`)." }),
+});
+
 
 void [readinessMatches, valueTableMatches, errorBodyMatches, catalogResultMatches, revisionSummaryMatches, verifyAnswerMatches, measurementSetMatches];

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { deviceClasses } from "@/lib/domain/device-classes";
 import { mappableKinds, measurementKinds } from "@/lib/domain/measurements";
 import { calendarDateSchema, optionalCalendarDateSchema } from "./calendar-date";
-import { namedIntegrationBandIds } from "@/lib/domain/analysis-settings";
+import { impedanceRangeOhm, namedIntegrationBandIds } from "@/lib/domain/analysis-settings";
 import { findProseLimitBreach } from "@/lib/sheet/render-prose";
 import { minNotAboveMax, optionalDecimal, requiredDecimal } from "./decimal";
 
@@ -29,6 +29,8 @@ export const measurementConditionsSchema = z.object({
   integrationStartHz: optionalNumber(1e-3, 3e12, "integration band start (Hz)"),
   integrationStopHz: optionalNumber(1e-3, 3e12, "integration band stop (Hz)"),
   compressionReferenceDbm: optionalNumber(-200, 60, "compression reference drive (dBm)"),
+  // The impedance power readings are referred to for dBm ↔ Vrms ↔ dBµV; a Touchstone file keeps its own.
+  impedanceOhm: optionalNumber(impedanceRangeOhm.min, impedanceRangeOhm.max, "impedance (Ω)"),
 });
 export type MeasurementConditionsInput = z.infer<typeof measurementConditionsSchema>;
 

@@ -4,6 +4,8 @@ import {
   benchUploadResponseSchema,
   catalogHitSchema,
   errorBodySchema,
+  measurementSetPathParamsSchema,
+  measurementSetResponseSchema,
   measurementSetSchema,
   readinessResponseSchema,
   releasedSheetResponseSchema,
@@ -41,6 +43,7 @@ const components = {
   BenchUploadResponse: benchUploadResponseSchema,
   MeasurementSet: measurementSetSchema,
   ReadinessResponse: readinessResponseSchema,
+  MeasurementSetResponse: measurementSetResponseSchema,
 } as const;
 
 const ref = (name: keyof typeof components) => ({ $ref: `#/components/schemas/${name}` });
@@ -117,7 +120,7 @@ export function buildOpenApiDocument(): OpenApiDocument {
       title: "Benchfold public API",
       version: "1",
       description:
-        "Released characterization sheets (catalog search, the frozen sheet model, the stored PDF, the specifications as CSV, the Touchstone files behind them), printout verification, and the bench upload. " +
+        "Released characterization sheets (catalog search, the frozen sheet model, the stored PDF, the specifications as CSV, the Touchstone files behind them), printout verification, and the bench upload and read-back. " +
         "Every refusal is a 4xx with `{ error: { code, message, details? } }`.",
     },
     jsonSchemaDialect: "https://json-schema.org/draft/2020-12/schema",
@@ -257,6 +260,21 @@ export function buildOpenApiDocument(): OpenApiDocument {
             "503": json(ref("ReadinessResponse"), "Not ready: `notReady` names each failing check, or `instance` while it shuts down.", {
               "Retry-After": { schema: { type: "string" } },
             }),
+          },
+        },
+      },
+      "/api/v1/measurements/{id}": {
+        get: {
+          operationId: "getMeasurementSet",
+          summary: "Read back one measurement set of the token's organization (bench token)",
+          description: "The same answer as the upload's: the set as it stands now (state, review, parameters) and every value per point.",
+          security: [{ benchToken: [] }],
+          parameters: parameters(measurementSetPathParamsSchema, "path"),
+          responses: {
+            "200": json(ref("MeasurementSetResponse"), "The set and its per-point tables."),
+            "401": refusal("No bench token, or an unknown or revoked one."),
+            "404": refusal("No such set in the token's organization (another organization's set is not found either)."),
+            "503": unavailable,
           },
         },
       },

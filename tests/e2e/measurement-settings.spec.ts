@@ -35,6 +35,7 @@ test("an engineer states the integration band in the upload form and reads it be
   await settings.getByLabel("Band start offset unit").selectOption("kHz");
   await settings.getByLabel("Band stop offset", { exact: true }).fill("100");
   await settings.getByLabel("Band stop offset unit").selectOption("kHz");
+  await settings.getByLabel("Impedance", { exact: true }).fill("75");
   await expectAccessible(page, "the device page's upload form with its settings");
   if (process.env.BENCHFOLD_E2E_SCREENS) await settings.screenshot({ path: path.join(process.env.BENCHFOLD_E2E_SCREENS, "upload-settings.png") });
 
@@ -51,6 +52,9 @@ test("an engineer states the integration band in the upload form and reads it be
   await expect(jitter).toContainText("to 100\u00a0kHz");
   await expect(jitter).toContainText("band set by the upload");
   await expect(parameters.getByRole("row").filter({ hasText: "RMS phase error" })).toContainText("band set by the upload");
+  // The impedance the form stated is kept with the set's conditions.
+  await expect(page.getByTestId("set-conditions")).toContainText("Impedance");
+  await expect(page.getByTestId("set-conditions")).toContainText("75\u00a0Ω");
   await expectAccessible(page, "the phase-noise set page");
   if (process.env.BENCHFOLD_E2E_SCREENS) await page.screenshot({ path: path.join(process.env.BENCHFOLD_E2E_SCREENS, "set-page-band.png"), fullPage: true });
 });

@@ -107,6 +107,8 @@ const probes: Record<ApiRoute, Probe> = {
   "POST /api/admin/bench-tokens": { path: () => "/api/admin/bench-tokens", json: () => ({}), allowedStatus: 422 },
   "DELETE /api/admin/bench-tokens/[id]": { path: () => `/api/admin/bench-tokens/${missing}`, allowedStatus: 404 },
   "POST /api/v1/measurements": { path: () => "/api/v1/measurements", form: {}, allowedStatus: 201 },
+  // A session is no bench token: every role gets 401, even for its own organization's set.
+  "GET /api/v1/measurements/[id]": { path: () => `/api/v1/measurements/${ownSetId}`, allowedStatus: 200 },
   "GET /api/v1/openapi.json": { path: () => "/api/v1/openapi.json", allowedStatus: 200 },
   "GET /api/health/live": { path: () => "/api/health/live", allowedStatus: 200 },
   "GET /api/health/ready": { path: () => "/api/health/ready", allowedStatus: 200 },

@@ -152,3 +152,68 @@ describe("compression reference and per-point values through the bench API", () 
     expect(html).toContain("mismatch loss port 1");
   });
 });
+
+describe("the impedance of power readings (issue 12: dBm ↔ Vrms ↔ dBµV for the stated impedance)", () => {
+  type Table = Posted["tables"][number] & { impedanceOhm?: number; impedanceSource?: string };
+  /** The two-tone example under a fresh serial, with extra `# key: value` lines after the serial. */
+  function twoToneFile(extraLines: string[] = []): Uint8Array<ArrayBuffer> {
+    const text = readFileSync(path.join(fixturesDir, "examples/two-tone-mixer.tsv"), "utf8").replace(/^# serial: .*$/m, [`# serial: Z-${Date.now()}-${serial++}`, ...extraLines].join("\n"));
+    return new Uint8Array(Buffer.from(text, "utf8"));
+  }
+  const upload = (fields: Record<string, string>, lines: string[] = []) => benchUpload(fields, twoToneFile(lines), "examples/two-tone-mixer.tsv");
+
+  it("the upload's field is used, stored with the set and named by the table; read back the same through GET /api/v1/measurements/{id}", async () => {
+    const r = await upload({ impedanceOhm: "75" });
+    const body = (await r.json()) as Posted & { measurementSet: { conditions: { impedanceOhm?: number } } };
+    expect(r.status, JSON.stringify(body)).toBe(201);
+    const table = body.tables[0] as Table;
+    expect(table).toMatchObject({ impedanceOhm: 75, impedanceSource: "upload" });
+    expect(body.measurementSet.conditions.impedanceOhm).toBe(75);
+    // V = √(P·R), dBµV = 20·log10(V / 1 µV) (definitions; IEC 60050-112 for the decibel): 0 dBm into 75 Ω
+    // is √(1e-3·75) = 0.27386 Vrms = 108.75 dBµV, so each row's cells follow that ratio.
+    const [, toneDbm, toneVrms, toneDbuv] = table.rows[0] as number[];
+    expect(toneVrms).toBeCloseTo(0.27386127875 * 10 ** (toneDbm / 20), 12);
+    expect(toneDbuv).toBeCloseTo(toneDbm + 108.7506, 4);
+
+    const read = await bench.request(`/api/v1/measurements/${body.measurementSet.id}`, { headers: { authorization: `Bearer ${token}` }, origin: null });
+    expect(read.status).toBe(200);
+    const again = (await read.json()) as Posted;
+    expect(again.tables).toEqual(body.tables);
+    expect(again.measurementSet.id).toBe(body.measurementSet.id);
+
+    const page = await engineer.request(`/devices/${deviceId}/measurements/${body.measurementSet.id}`);
+    expect(noBreak(await page.text())).toContain("75 Ω, set by the upload");
+  });
+
+  it("the file's `# impedance:` line wins over the upload's field, and the set's warnings say so", async () => {
+    const r = await upload({ impedanceOhm: "50" }, ["# impedance: 75 ohm"]);
+    const body = (await r.json()) as Posted;
+    expect(r.status, JSON.stringify(body)).toBe(201);
+    expect(body.tables[0]).toMatchObject({ impedanceOhm: 75, impedanceSource: "file" });
+    expect(noBreak(body.measurementSet.warnings.join("\n"))).toContain("Impedance: the file says 75 Ω, the upload said 50 Ω; the file's is used");
+  });
+
+  it("without a stated impedance the tables use 50 Ω and say it is Benchfold's default", async () => {
+    const r = await upload({});
+    const body = (await r.json()) as Posted;
+    expect(r.status).toBe(201);
+    expect(body.tables[0]).toMatchObject({ impedanceOhm: 50, impedanceSource: "engine" });
+  });
+
+  it.each([
+    [{ impedanceOhm: "0" }, [], "impedanceOhm"],
+    [{ impedanceOhm: "-75" }, [], "impedanceOhm"],
+    [{ impedanceOhm: "5000" }, [], "impedanceOhm"],
+    [{ impedanceOhm: "Infinity" }, [], "impedanceOhm"],
+    [{}, ["# impedance: 0.5 ohm"], "impedance"],
+    [{}, ["# impedance: fifty"], "impedance"],
+  ])("%j %j is refused with 422 naming %s, nothing stored", async (fields, lines, field) => {
+    const before = await uploadRowCounts();
+    const r = await upload(fields as Record<string, string>, lines as string[]);
+    const text = await r.text();
+    expect(r.status, text).toBe(422);
+    expect(text).toContain(field);
+    expect(await uploadRowCounts()).toEqual(before);
+  });
+});
+

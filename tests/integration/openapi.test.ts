@@ -179,6 +179,51 @@ describe("the server's answers fit the document", () => {
   });
 });
 
+describe("GET /api/v1/measurements/{id}", () => {
+  it("200 with the set and its tables for the token's organization; 401 without a token; 404 for another organization's set or an unknown id", async () => {
+    const device = await makeDevice(org.organization.id);
+    const created = await as("admin").request("/api/admin/bench-tokens", { json: { name: "Read-back bench" } });
+    const { token } = (await created.json()) as { token: string };
+    const bench = new TestClient();
+    const get = (path: string, bearer: string | null = token) =>
+      bench.request(path, { headers: bearer === null ? {} : { authorization: `Bearer ${bearer}` }, origin: null });
+    const posted = await bench.request("/api/v1/measurements", {
+      multipart: fixtureUpload("examples/drive-sweep-doubler.csv", { device: device.partNumber, serial: "RB-1", impedanceOhm: "75" }),
+      headers: { authorization: `Bearer ${token}` },
+      origin: null,
+    });
+    expect(posted.status, await posted.clone().text()).toBe(201);
+    const upload = (await posted.json()) as { measurementSet: { id: number }; tables: unknown[] };
+    const id = upload.measurementSet.id;
+
+    const ok = await get(`/api/v1/measurements/${id}`);
+    expect(ok.status).toBe(200);
+    const body = (await expectDocumented("/api/v1/measurements/{id}", "get", ok)) as typeof upload & { measurementSet: { state: string } };
+    expect(body.measurementSet.id).toBe(id);
+    expect(body.measurementSet.state).toBe("submitted");
+    expect(body.tables).toEqual(upload.tables);
+    expect(body.tables.length).toBeGreaterThan(0);
+
+    // Another organization's token does not see this set: the same 404 as an id that does not exist.
+    const other = await makeOrganization();
+    const otherAdmin = (await clientsByRole(other)).get("admin")!;
+    const otherToken = ((await (await otherAdmin.request("/api/admin/bench-tokens", { json: { name: "Other bench" } })).json()) as { token: string }).token;
+    const refusals: [number, Response][] = [
+      [401, await get(`/api/v1/measurements/${id}`, null)],
+      [401, await get(`/api/v1/measurements/${id}`, "not-a-token")],
+      [404, await get(`/api/v1/measurements/${id}`, otherToken)],
+      [404, await get("/api/v1/measurements/2147483000")],
+      [404, await get("/api/v1/measurements/0x10")],
+    ];
+    for (const [status, response] of refusals) {
+      const text = await response.clone().text();
+      expect(response.status, text).toBe(status);
+      expect(text).not.toContain("RB-1");
+      await expectDocumented("/api/v1/measurements/{id}", "get", response);
+    }
+  });
+});
+
 describe("GET /api/health/live", () => {
   it("answers constant JSON, never cached, with no session", async () => {
     const r = await anyone.request("/api/health/live");

@@ -107,10 +107,10 @@ export function route<B = undefined, R extends Resource = Resource>(
  * For route handlers that authenticate without a session (the bench API's bearer token, which
  * the handler checks itself): the same error answers and caching as route().
  */
-export function tokenRoute(handler: (request: Request) => Promise<Response>) {
-  return async (request: Request): Promise<Response> => {
+export function tokenRoute(handler: (request: Request, context?: RouteContext) => Promise<Response>) {
+  return async (request: Request, context?: RouteContext): Promise<Response> => {
     try {
-      return withDefaultCaching(await handler(request));
+      return withDefaultCaching(await handler(request, context));
     } catch (error) {
       return errorResponse(error);
     }

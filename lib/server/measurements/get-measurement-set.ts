@@ -19,14 +19,19 @@ export async function getMeasurementSet(opts: { viewer: SessionUser; setId: numb
   const { organizationId } = authorize(opts.viewer, "devices");
   const [summary] = await loadMeasurementSets({ id: opts.setId, organizationId, ...(opts.deviceId === undefined ? {} : { deviceId: opts.deviceId }) });
   if (!summary) throw new AppError("not-found", "No such measurement set in your organization.");
-  const row = await MeasurementSet.unscoped().findOne({ where: { id: opts.setId, organizationId }, attributes: ["curves", "kind", "parsed"] });
+  const row = await MeasurementSet.unscoped().findOne({ where: { id: opts.setId, organizationId }, attributes: ["curves", "kind", "parsed", "conditions"] });
   return { ...summary, curves: row?.curves ?? [], tables: row ? tabulateStoredSet(row) : [] };
 }
 
 /**
  * Every value at each point (frequency or drive step) from the stored parse: S-parameter magnitude and
  * phase, mismatch loss, power as dBm, Vrms and dBµV (lib/analysis/tables.ts). Computed when asked, not stored.
+ * Power readings are referred to the impedance the upload stored in the set's conditions (the file's
+ * `# impedance:` line, else the upload's field), else 50 Ω; a Touchstone file's own reference impedance.
  */
-export function tabulateStoredSet(row: Pick<MeasurementSet, "kind" | "parsed">): ValueTable[] {
-  return tabulateValues({ kind: row.kind, data: row.parsed, warnings: [] } as ParsedMeasurement);
+export function tabulateStoredSet(row: Pick<MeasurementSet, "kind" | "parsed" | "conditions">): ValueTable[] {
+  const parsed = { kind: row.kind, data: row.parsed, warnings: [] } as ParsedMeasurement;
+  const stated = row.conditions?.impedanceOhm;
+  if (parsed.kind === "touchstone" || stated === undefined) return tabulateValues(parsed);
+  return tabulateValues(parsed, { impedanceOhm: stated, impedanceSource: parsed.data.impedanceOhm !== undefined ? "file" : "upload" });
 }

@@ -127,6 +127,8 @@ export async function ingestMeasurement(input: IngestInput): Promise<Measurement
   const warnings = [...parsed.warnings];
   const conditions = mergeUploadConditions(parsed, fields, warnings);
   const derived = deriveWithSettings({ parsed, fields, deviceClass: device.deviceClass, fileName: file.name });
+  // The impedance of power readings, when the file or the upload stated one: the set's tables use it (tabulateStoredSet).
+  if (parsed.kind !== "touchstone" && derived.settings.impedance.source !== "engine") conditions.impedanceOhm = derived.settings.impedance.value;
   // derived.warnings repeats the parser's own (deriveParameters begins with them): store each once.
   const fromParser = new Set(parsed.warnings);
   warnings.push(...derived.warnings.filter((w) => !fromParser.has(w)));

@@ -1,7 +1,9 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { analyzeWithSettings, AnalysisSettingError, resolveAnalysisSettings } from "@/lib/analysis";
+import { analyzeWithSettings, AnalysisSettingError, fileAnalysisSettings, resolveAnalysisSettings, tabulateValues } from "@/lib/analysis";
+import { isIngestError } from "@/lib/ingest";
+import { uploadFieldsSchema } from "@/lib/schemas/measurements";
 import { parseMeasurementFile } from "@/lib/ingest";
 import { uploadAnalysisSettings } from "@/lib/ingest/upload-conditions";
 import { frequencyMultiplierTemplate } from "@/templates";
@@ -102,3 +104,79 @@ describe("the new metadata lines", () => {
     expect(parsed.kind === "drive-sweep" && parsed.data.compressionReferenceDbm).toBe(5);
   });
 });
+
+describe("the impedance of power readings (dBm ↔ Vrms ↔ dBµV)", () => {
+  it.each([
+    [{ file: { impedanceOhm: 75 }, upload: { impedanceOhm: 50 }, cli: { impedanceOhm: 100 } }, 75, "file"],
+    [{ upload: { impedanceOhm: 75 }, cli: { impedanceOhm: 100 } }, 75, "upload"],
+    [{ cli: { impedanceOhm: 100 } }, 100, "cli"],
+    [{}, 50, "engine"],
+  ])("%j → %d Ω from %s", (layers, value, source) => {
+    expect(resolveAnalysisSettings(layers).settings.impedance).toEqual({ value, source });
+  });
+
+  it("a lower source that disagrees is named", () => {
+    const { conflicts } = resolveAnalysisSettings({ file: { impedanceOhm: 75 }, upload: { impedanceOhm: 50 } });
+    expect(conflicts.map(noBreak)).toEqual(["Impedance: the file says 75 Ω, the upload said 50 Ω; the file's is used"]);
+  });
+
+  it("the file's `# impedance:` line is read (with or without its unit) and beats the upload", () => {
+    for (const line of ["# impedance: 75", "# impedance: 75 ohm", "# impedance: 75 Ω", "# impedance: 75ohms"]) {
+      const parsed = example("two-tone-mixer.tsv", (t) => t.replace("# serial:", `${line}\n# serial:`));
+      expect(fileAnalysisSettings(parsed), line).toEqual(expect.objectContaining({ impedanceOhm: 75 }));
+      expect(parsed.warnings.join(" ")).not.toContain("impedance");
+      expect(analyzeWithSettings(parsed, { upload: { impedanceOhm: 50 } }).settings.impedance).toEqual({ value: 75, source: "file" });
+    }
+  });
+
+  it.each(["0", "0.5", "-75", "1001 ohm", "fifty", "75 dB"])("`# impedance: %s` is refused naming the line and the field", (value) => {
+    let caught: unknown;
+    try {
+      example("drive-sweep-doubler.csv", (t) => t.replace("# lot:", `# impedance: ${value}\n# lot:`));
+    } catch (error) {
+      caught = error;
+    }
+    expect(isIngestError(caught)).toBe(true);
+    expect(caught).toMatchObject({ line: 3, field: "impedance" });
+    expect((caught as Error).message).toMatch(/impedance/);
+  });
+
+  it("a Touchstone file keeps its own reference impedance over the upload's, and says so", () => {
+    const parsed = example("attenuator-2port.s2p");
+    expect(fileAnalysisSettings(parsed)).toEqual({ impedanceOhm: 50 });
+    const result = analyzeWithSettings(parsed, { upload: { impedanceOhm: 75 } });
+    expect(result.settings.impedance).toEqual({ value: 50, source: "file" });
+    expect(result.warnings.map(noBreak)).toContain("Impedance: the file says 50 Ω, the upload said 75 Ω; the file's is used");
+    expect(tabulateValues(parsed, { impedanceOhm: 75, impedanceSource: "upload" })[0]).toMatchObject({ impedanceOhm: 50, impedanceSource: "file" });
+  });
+
+  it("0 dBm into 75 Ω is 0.2739 Vrms and 108.75 dBµV in the tables", () => {
+    // V = √(P·R) = √(1 mW · 75 Ω) = 0.273861 V; dBµV = 20·log10(V / 1 µV) = 108.7506 (definitions of
+    // rms voltage across a resistance and of the dBµV; computed with python3's math module).
+    const parsed = example("two-tone-mixer.tsv");
+    if (parsed.kind !== "two-tone") throw new Error("not two-tone");
+    parsed.data.fundamentalOutputDbm[0] = 0;
+    const [table] = tabulateValues(parsed, { impedanceOhm: 75, impedanceSource: "upload" });
+    expect(table).toMatchObject({ impedanceOhm: 75, impedanceSource: "upload" });
+    const [, dbm, vrms, dbuv] = table.rows[0] as number[];
+    expect(dbm).toBe(0);
+    expect(vrms).toBeCloseTo(0.2738612788, 9);
+    expect(dbuv).toBeCloseTo(108.7506126, 6);
+    // Without a stated impedance: 50 Ω, Benchfold's default, 0.2236 Vrms and 106.99 dBµV.
+    const [fifty] = tabulateValues(parsed);
+    expect(fifty).toMatchObject({ impedanceOhm: 50, impedanceSource: "engine" });
+    expect(fifty.rows[0][2]).toBeCloseTo(0.2236067977, 9);
+    expect(fifty.rows[0][3]).toBeCloseTo(106.9897000, 6);
+  });
+
+  it("the upload's field: 1 to 1000 Ω, refused otherwise naming impedanceOhm", () => {
+    expect(uploadAnalysisSettings({ impedanceOhm: 75 })).toEqual({ impedanceOhm: 75 });
+    expect(uploadFieldsSchema.parse({ impedanceOhm: "75" }).impedanceOhm).toBe(75);
+    for (const bad of ["0", "-75", "1000.5", "1e6", "Infinity", "0x4b", "75 ohm"]) {
+      const result = uploadFieldsSchema.safeParse({ impedanceOhm: bad });
+      expect(result.success, bad).toBe(false);
+      expect(result.error?.issues[0].path, bad).toEqual(["impedanceOhm"]);
+    }
+  });
+});
+

@@ -108,7 +108,7 @@ describe.concurrent("benchfold analyze on bad input", () => {
 function inProcess(file: string, layers: Parameters<typeof analyzeWithSettings>[1]) {
   const parsed = parseMeasurementFile({ fileName: file, bytes: readFileSync(path.join(ROOT, file)) });
   const result = analyzeWithSettings(parsed, layers);
-  return JSON.parse(JSON.stringify({ kind: result.kind, settings: result.settings, parameters: result.parameters, warnings: result.warnings, tables: tabulateValues(parsed) }));
+  return JSON.parse(JSON.stringify({ kind: result.kind, settings: result.settings, parameters: result.parameters, warnings: result.warnings, tables: tabulateValues(parsed, { impedanceOhm: result.settings.impedance.value, impedanceSource: result.settings.impedance.source }) }));
 }
 
 describe.concurrent("the CLI and the engine give the same numbers for the same settings", () => {
@@ -123,6 +123,20 @@ describe.concurrent("the CLI and the engine give the same numbers for the same s
     expect(jitter.conditions).toMatchObject({ startHz: 12e3, stopHz: 1e6, bandSource: "cli" });
     // Narrower than the default 10 Hz – 1 MHz, so less jitter (the default's 1.361 fs is in the table snapshot).
     expect(jitter.value).toBeLessThan(1.361);
+  }, 60_000);
+
+  it("--impedance 75: the tables' Vrms and dBµV of power readings into 75 Ω, the same as the engine's", async () => {
+    const twoTone = "fixtures/examples/two-tone-mixer.tsv";
+    const run = await benchfold("analyze", twoTone, "--impedance", "75", "--json");
+    expect(run.stderr).toBe("");
+    const cli = JSON.parse(run.stdout);
+    expect(cli).toEqual(inProcess(twoTone, { cli: { impedanceOhm: 75 } }));
+    expect(cli.settings.impedance).toEqual({ value: 75, source: "cli" });
+    expect(cli.tables[0]).toMatchObject({ impedanceOhm: 75, impedanceSource: "cli" });
+    // V = √(P·R) and dBµV = 20·log10(V / 1 µV): 0 dBm into 75 Ω is 0.273861 Vrms, 108.7506 dBµV (computed by hand, python3 math).
+    const [, dbm, vrms, dbuv] = cli.tables[0].rows[0];
+    expect(vrms).toBeCloseTo(0.27386127875 * 10 ** (dbm / 20), 12);
+    expect(dbuv).toBeCloseTo(dbm + 108.750613, 5);
   }, 60_000);
 
   it("a named band, the class default, and the table output name the band and its source", async () => {

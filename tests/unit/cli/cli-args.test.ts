@@ -40,7 +40,7 @@ describe("benchfold CLI settings", () => {
   });
 
   it("--class and --impedance", () => {
-    expect(parseCliArgs(["analyze", "a.csv", "--class", "frequency-multiplier", "--impedance", "75"])).toMatchObject({ deviceClass: "frequency-multiplier", impedanceOhm: 75 });
+    expect(parseCliArgs(["analyze", "a.csv", "--class", "frequency-multiplier", "--impedance", "75"])).toMatchObject({ deviceClass: "frequency-multiplier", settings: { impedanceOhm: 75 } });
   });
 
   it.each([

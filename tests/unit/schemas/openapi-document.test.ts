@@ -33,13 +33,13 @@ describe("the OpenAPI document of /api/v1", () => {
     expect(validate({ ...document, paths: { "/x": { get: { responses: "none" } } } })).toBe(false);
   });
 
-  it("describes the seven operations of the public API, and the readiness probe", () => {
+  it("describes the eight operations of the public API, and the readiness probe", () => {
     const operations = Object.entries(document.paths).flatMap(([path, item]) => Object.keys(item as object).map((m) => `${m.toUpperCase()} ${path}`));
     expect(operations.sort()).toEqual(
       ["GET /api/v1/sheets", "GET /api/v1/sheets/{org}/{part}/{rev}", "GET /api/v1/sheets/{org}/{part}/{rev}/pdf",
         "GET /api/v1/sheets/{org}/{part}/{rev}/csv",
         "GET /api/v1/sheets/{org}/{part}/{rev}/touchstone/{setId}",
-        "GET /api/v1/verify", "POST /api/v1/measurements", "GET /api/health/ready"].sort(),
+        "GET /api/v1/verify", "POST /api/v1/measurements", "GET /api/v1/measurements/{id}", "GET /api/health/ready"].sort(),
     );
   });
 
@@ -65,7 +65,7 @@ describe("the OpenAPI document of /api/v1", () => {
     const form = (document.paths["/api/v1/measurements"] as { post: { requestBody: { content: Record<string, { schema: { properties: Record<string, unknown>; required: string[] } }> } } }).post
       .requestBody.content["multipart/form-data"].schema;
     expect(form.required).toEqual(["file", "device"]);
-    expect(Object.keys(form.properties)).toEqual(expect.arrayContaining(["file", "device", "serial", "kind", "temperatureC", "instrumentIds", "supersedesId"]));
+    expect(Object.keys(form.properties)).toEqual(expect.arrayContaining(["file", "device", "serial", "kind", "temperatureC", "instrumentIds", "supersedesId", "impedanceOhm"]));
   });
 
   it("fits a released sheet model built from the doubler fixture, and refuses it with a field added or a type changed", () => {
