@@ -206,7 +206,10 @@ function LimitFigures({ group: g, cpkThreshold }: { group: StatisticsGroup; cpkT
           </span>
         ) : g.cpkAbsentReason ? (
           <span className="text-ink-muted">
-            — <span className="text-sm">{g.cpkAbsentReason}</span>
+            —{" "}
+            <span className="text-sm">
+              {g.cpkAbsentReason} (threshold {formatNumber(cpkThreshold, { digits: { maxDecimals: 2 } })})
+            </span>
           </span>
         ) : (
           <span className="text-ink-muted">

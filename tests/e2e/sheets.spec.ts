@@ -50,7 +50,7 @@ async function openTab(page: Page, name: string, testId: string) {
   }).toPass();
 }
 
-type GroupJson = { groupId: string; n: number; cpk: { text: string } };
+type GroupJson = { groupId: string; n: number; cpk: { text: string }; cpkAbsentReason?: string };
 
 test("engineer: the sheet list, the preview with its banner and spec table, and the data behind a figure", async ({ page }) => {
   await signInViaApi(page, kestrine.engineer);
@@ -86,6 +86,8 @@ test("engineer: the sheet list, the preview with its banner and spec table, and 
   await expect(panel.getByTestId("panel-n")).toHaveText(String(group.n));
   await expect(panel.getByTestId("panel-cpk")).toContainText(group.cpk.text || "—");
   await expect(panel.getByTestId("panel-cpk")).toContainText("threshold");
+  // Below the organization's minimum of units the panel says why Cpk is blank (lib/sheet/statistics.ts).
+  if (group.cpkAbsentReason) await expect(panel.getByTestId("panel-cpk")).toContainText(group.cpkAbsentReason);
   await expect(panel.getByTestId("panel-units").locator("tbody tr")).toHaveCount(group.n);
   await expect(panel.getByTestId("panel-units").getByRole("link").first()).toHaveAttribute("href", new RegExp(`^/devices/${id}/measurements/\\d+$`));
 
