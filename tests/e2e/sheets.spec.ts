@@ -129,12 +129,13 @@ test("engineer: a limit entered in the editor is judged (Cpk and flags), then ta
     await expect(editor.getByRole("status").filter({ hasText: "Saved" })).toBeVisible();
     await expect(line.getByTestId("flag-list")).toContainText("Cpk below threshold");
     await expect(line.getByTestId("flag-list")).toContainText("Unit outside the guard-banded limit");
-    await expect(statistics.locator("dd").last()).toHaveText(/^\u2212\d/);
+    // The demo's optimum drive has 5 units, fewer than the organization's 10 behind a printed Cpk: blank, yet still judged.
+    await expect(statistics.locator("dd").last()).toHaveText("\u2014");
 
     await page.getByRole("tab", { name: "Preview" }).click();
     await page.getByTestId("spec-data-table").getByRole("button", { name: /^Data for Optimum drive/ }).first().click();
     const panel = page.getByTestId("statistics-panel");
-    await expect(panel.getByTestId("panel-cpk")).toContainText("below the threshold");
+    await expect(panel.getByTestId("panel-cpk")).toContainText("Cpk is not stated: 5 units were measured");
     await expect(panel.getByTestId("panel-units")).toContainText("fail");
     await page.keyboard.press("Escape");
 
