@@ -10,6 +10,8 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
   declare kind: OrganizationKind;
   /** A spec limit whose Cpk falls below this is flagged on the sheet. */
   declare cpkThreshold: CreationOptional<number>;
+  /** Cpk is printed only from this many units or more; below, the statistics annex says why it is absent. */
+  declare cpkMinUnits: CreationOptional<number>;
   declare toleranceCoverage: CreationOptional<number>;
   declare toleranceConfidence: CreationOptional<number>;
   /** Signatures a sheet candidate needs before it may be released (1, or 2 e.g. engineering and quality). */
@@ -25,6 +27,7 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
         name: { type: DataTypes.STRING(160), allowNull: false },
         kind: { type: DataTypes.ENUM(...organizationKinds), allowNull: false },
         cpkThreshold: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 1.33 },
+        cpkMinUnits: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 10 },
         toleranceCoverage: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0.99 },
         toleranceConfidence: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0.95 },
         requiredSignatures: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 1 },

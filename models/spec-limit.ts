@@ -12,6 +12,10 @@ export class SpecLimit extends Model<InferAttributes<SpecLimit>, InferCreationAt
   declare minValue: number | null;
   declare typValue: number | null;
   declare maxValue: number | null;
+  /** The decimals each figure was typed with (9.5 → 1, 10.0 → 1); null when not known. */
+  declare minDecimals: CreationOptional<number | null>;
+  declare typDecimals: CreationOptional<number | null>;
+  declare maxDecimals: CreationOptional<number | null>;
   declare unit: string;
   declare basis: LimitBasis;
   declare footnote: string | null;
@@ -29,6 +33,9 @@ export class SpecLimit extends Model<InferAttributes<SpecLimit>, InferCreationAt
         minValue: { type: DataTypes.DOUBLE, allowNull: true },
         typValue: { type: DataTypes.DOUBLE, allowNull: true },
         maxValue: { type: DataTypes.DOUBLE, allowNull: true },
+        minDecimals: { type: DataTypes.TINYINT.UNSIGNED, allowNull: true },
+        typDecimals: { type: DataTypes.TINYINT.UNSIGNED, allowNull: true },
+        maxDecimals: { type: DataTypes.TINYINT.UNSIGNED, allowNull: true },
         unit: { type: DataTypes.STRING(16), allowNull: false },
         basis: { type: DataTypes.ENUM(...limitBases), allowNull: false },
         footnote: { type: DataTypes.STRING(500), allowNull: true },

@@ -1,3 +1,4 @@
+import { describeAbsentCpk, formatPassCount } from "@/lib/sheet/format";
 import type { SheetModel } from "@/lib/sheet/types";
 import { NoDataNotice } from "./no-data-notice";
 import { Notation } from "./notation";
@@ -97,6 +98,7 @@ export function SheetTraceability({ model }: { model: SheetModel }) {
 export function SheetStatistics({ model }: { model: SheetModel }) {
   const { statistics } = model;
   const flagged = statistics.groups.filter((g) => !g.supported);
+  const cpkAbsent = describeAbsentCpk(statistics);
   return (
     <section aria-labelledby="sheet-statistics" className="mt-10">
       <SheetHeading id="sheet-statistics">Statistics annex</SheetHeading>
@@ -136,13 +138,28 @@ export function SheetStatistics({ model }: { model: SheetModel }) {
                 <td className="num figure">{g.toleranceInterval?.upper.text ?? ""}</td>
                 <td className="num figure">{g.cpk.text}</td>
                 <td className="num figure">{g.expandedUncertainty.text}</td>
-                <td className="num figure">{g.limits ? `${g.passCount}/${g.n}` : ""}</td>
+                <td className="num figure">{formatPassCount(g)}</td>
               </tr>
             ))}
           </tbody>
         </table>
       </div>
       )}
+      {cpkAbsent ? (
+        <div className="sheet-keep mt-6 max-w-prose" data-testid="cpk-absent">
+          <h3 className="font-semibold">Cpk not stated</h3>
+          <p className="mt-2">{cpkAbsent}</p>
+          <ul className="mt-1 text-sm">
+            {statistics.groups
+              .filter((g) => g.cpkAbsentReason)
+              .map((g) => (
+                <li key={g.groupId}>
+                  {g.label}, <Notation text={g.conditionsText} />: n = <span className="figure">{g.n}</span>
+                </li>
+              ))}
+          </ul>
+        </div>
+      ) : null}
       {flagged.length > 0 ? (
         <div className="sheet-keep mt-6">
           <h3 className="font-semibold">Limits the data do not support</h3>

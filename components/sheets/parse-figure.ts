@@ -10,7 +10,8 @@ export function parseFigure(text: string): { value: number | undefined; error?: 
   return Number.isNaN(value) ? { value: undefined, error: "not a number" } : { value };
 }
 
-/** A stored number shown in an input: plain ASCII so it can be edited and sent back unchanged. */
-export function figureInputText(value: number | null | undefined): string {
-  return value === null || value === undefined ? "" : String(value);
+/** A stored number shown in an input as it was typed (10.0 stays "10.0"): plain ASCII so it can be edited and sent back unchanged. */
+export function figureInputText(value: number | null | undefined, typedDecimals?: number): string {
+  if (value === null || value === undefined) return "";
+  return typedDecimals !== undefined && Number(value.toFixed(typedDecimals)) === value ? value.toFixed(typedDecimals) : String(value);
 }

@@ -1,5 +1,6 @@
 import type { LimitBasis } from "@/lib/domain/sheets";
 import type { SpecLimitInput, StatisticsGroup } from "@/lib/sheet/types";
+import { countTypedDecimals } from "@/lib/format/typed-decimals";
 import { figureInputText, parseFigure } from "./parse-figure";
 
 export type LimitDraft = { min: string; typ: string; max: string; basis: LimitBasis; footnote: string };
@@ -14,9 +15,9 @@ export const limitKey = (parameter: string, conditionsKey: string) => `${paramet
 
 export function draftOf(limit: SpecLimitInput | undefined, defaultBasis: LimitBasis): LimitDraft {
   return {
-    min: figureInputText(limit?.min),
-    typ: figureInputText(limit?.typ),
-    max: figureInputText(limit?.max),
+    min: figureInputText(limit?.min, limit?.decimals?.min),
+    typ: figureInputText(limit?.typ, limit?.decimals?.typ),
+    max: figureInputText(limit?.max, limit?.decimals?.max),
     basis: limit?.basis ?? defaultBasis,
     footnote: limit?.footnote ?? "",
   };
@@ -99,6 +100,11 @@ export function checkLimitDrafts(rows: EditorRow[], draftFor: (row: EditorRow) =
     }
     if (!hasValue(d)) continue;
     sentRows.push(row);
+    const decimals = {
+      ...(min.value !== undefined ? { min: countTypedDecimals(d.min) } : {}),
+      ...(typ.value !== undefined ? { typ: countTypedDecimals(d.typ) } : {}),
+      ...(max.value !== undefined ? { max: countTypedDecimals(d.max) } : {}),
+    };
     limits.push({
       parameter: row.parameter,
       conditionsKey: row.conditionsKey,
@@ -108,6 +114,7 @@ export function checkLimitDrafts(rows: EditorRow[], draftFor: (row: EditorRow) =
       unit: row.unit,
       basis: d.basis,
       ...(d.footnote.trim() ? { footnote: d.footnote.trim() } : {}),
+      decimals,
     });
   }
   return { errors, limits, sentRows };

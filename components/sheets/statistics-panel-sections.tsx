@@ -204,6 +204,13 @@ function LimitFigures({ group: g, cpkThreshold }: { group: StatisticsGroup; cpkT
               {cpkLow ? "below" : "meets"} the threshold <span className="figure">{formatNumber(cpkThreshold, { digits: { maxDecimals: 2 } })}</span>
             </span>
           </span>
+        ) : g.cpkAbsentReason ? (
+          <span className="text-ink-muted">
+            —{" "}
+            <span className="text-sm">
+              {g.cpkAbsentReason} (threshold {formatNumber(cpkThreshold, { digits: { maxDecimals: 2 } })})
+            </span>
+          </span>
         ) : (
           <span className="text-ink-muted">
             — <span className="text-sm">(needs a limit; threshold {formatNumber(cpkThreshold, { digits: { maxDecimals: 2 } })})</span>
@@ -224,7 +231,7 @@ function LimitFigures({ group: g, cpkThreshold }: { group: StatisticsGroup; cpkT
       ) : null}
       <dt>Pass · fail</dt>
       <dd>
-        {g.limits ? (
+        {g.acceptance ? (
           <>
             <span className="figure">{g.passCount}</span> · <span className="figure">{g.failCount}</span>
           </>

@@ -1,3 +1,4 @@
 export * from "./quantity";
 export * from "./date";
 export * from "./byte-size";
+export * from "./typed-decimals";

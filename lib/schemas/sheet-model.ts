@@ -98,6 +98,7 @@ const specTableRow = z.object({
 
 const statisticsGroup = z.object({
   ...groupIdentity,
+  cpkAbsentReason: z.string().optional(),
   ...sampleFigures,
   conditionsText: z.string(),
   limits: z.object({ min: formattedValue, typ: formattedValue, max: formattedValue, basis: z.enum(limitBases) }).nullable(),
@@ -194,6 +195,7 @@ export const sheetModelSchema = z
       coverage: z.number(),
       confidence: z.number(),
       cpkThreshold: z.number(),
+      cpkMinUnits: z.number().int().optional(),
       method: z.string(),
       decisionRules: z.array(z.string()),
       groups: z.array(statisticsGroup),

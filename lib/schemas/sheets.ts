@@ -5,6 +5,20 @@ import { minNotAboveMax } from "./decimal";
 
 const finite = z.number().refine(Number.isFinite, "must be a finite number");
 
+const typedDecimals = z.number().int().min(0).max(15);
+
+/** Typed decimals that would print a figure as another number (9.55 with 1 decimal reads 9.6) are refused, on that figure. */
+function decimalsHoldTheValue(l: { min?: number | null; typ?: number | null; max?: number | null; decimals?: { min?: number; typ?: number; max?: number } }, ctx: z.RefinementCtx) {
+  for (const key of ["min", "typ", "max"] as const) {
+    const value = l[key];
+    const decimals = l.decimals?.[key];
+    if (value == null || decimals === undefined) continue;
+    if (Number(value.toFixed(decimals)) !== value) {
+      ctx.addIssue({ code: "custom", path: ["decimals", key], message: `${key} ${value} has more decimals than the ${decimals} stated` });
+    }
+  }
+}
+
 /** The whole set of a device's spec limits, replaced at once by the limits editor. */
 export const specLimitsBodySchema = z.object({
   limits: z
@@ -19,8 +33,13 @@ export const specLimitsBodySchema = z.object({
           unit: z.string().trim().min(1).max(16),
           basis: z.enum(limitBases),
           footnote: z.string().trim().max(500).optional(),
+          /** The decimals each figure was typed with: "9.50" is 9.5 with 2. The sheet prints exactly these. */
+          decimals: z
+            .object({ min: typedDecimals.optional(), typ: typedDecimals.optional(), max: typedDecimals.optional() })
+            .optional(),
         })
         .refine((l) => l.min != null || l.typ != null || l.max != null, "Give at least one of min, typ, max.")
+        .superRefine(decimalsHoldTheValue)
         .superRefine(minNotAboveMax("limits")),
     )
     .max(400),

@@ -7,6 +7,7 @@ import { formatNumber, formatQuantity, quantityParts, rangeParts } from "../form
 import { renderProse } from "./render-prose";
 import { buildCharts } from "./sheet-charts";
 import { buildSpecTable, type SpecTable } from "./spec-table";
+import { DEFAULT_CPK_MIN_UNITS } from "./statistics";
 import { buildTraceability } from "./traceability";
 import type { ApprovedSetInput, SheetInput, SheetModel } from "./types";
 import { PLAUSIBILITY_PREFIX } from "../ingest/plausibility-warning";
@@ -148,13 +149,16 @@ function buildStatisticsSection(settings: SheetInput["settings"], specTable: Spe
     coverage: settings.toleranceCoverage,
     confidence: settings.toleranceConfidence,
     cpkThreshold: settings.cpkThreshold,
+    cpkMinUnits: settings.cpkMinUnits ?? DEFAULT_CPK_MIN_UNITS,
     method:
       `Per parameter and condition group across units: n, mean, sample standard deviation s (n − 1), median, min, max. ` +
       `Proposed limits are the two-sided normal tolerance interval mean ± k·s covering ${formatQuantity(settings.toleranceCoverage * 100, "%", { digits: { maxDecimals: 2 } })} ` +
       `of units with ${formatQuantity(settings.toleranceConfidence * 100, "%", { digits: { maxDecimals: 2 } })} confidence, exact factor k ` +
       `(NIST/SEMATECH e-Handbook of Statistical Methods §7.2.6.3; Odeh & Owen 1980). ` +
       `Cpk = min[(USL − mean)/(3s), (mean − LSL)/(3s)] (NIST/SEMATECH §6.1.6). A limit is flagged as not supported by the data ` +
-      `when Cpk < ${formatNumber(settings.cpkThreshold, { digits: { maxDecimals: 2 } })} or when any unit falls outside the guard-banded limit.`,
+      `when Cpk < ${formatNumber(settings.cpkThreshold, { digits: { maxDecimals: 2 } })} or when any unit falls outside the guard-banded limit. ` +
+      `Cpk is printed only from ${settings.cpkMinUnits ?? DEFAULT_CPK_MIN_UNITS} units or more (the organization's setting): from fewer its estimate is too uncertain to mean something, ` +
+      `though it is still judged against the threshold.`,
     decisionRules: specTable.decisionRules,
     groups: specTable.groups,
     flaggedGroupCount: specTable.groups.filter((g) => !g.supported).length,

@@ -4,6 +4,7 @@
  */
 
 import { formatNumber, formatQuantity } from "../format/quantity";
+import { shortestDecimals } from "../format/typed-decimals";
 import type { FormattedValue } from "./types";
 
 /** Keeps computed floats stable across runs and readable in JSON: 10 significant digits. */
@@ -29,4 +30,51 @@ export function formatDrive(dbm: number): string {
 /** A temperature as the sheet states conditions: one decimal at most ("25 °C", "−40 °C"). */
 export function formatTemperature(celsius: number): string {
   return formatQuantity(celsius, "°C", { digits: { maxDecimals: 1 } });
+}
+
+/**
+ * A stated limit (min, typ or max) with the digits the engineer typed: 9.5 stays "9.5" and 10.0
+ * stays "10.0", whatever the template's decimals. A limit saved without its typed digits (through
+ * the API as a JSON number, or before they were kept) prints the stored number's shortest exact
+ * form: 9.5 → "9.5", 10 → "10". Never a digit the engineer did not write.
+ */
+export function formatLimitValue(value: number | null | undefined, typedDecimals: number | undefined): FormattedValue {
+  if (value === null || value === undefined || !Number.isFinite(value)) return emptyValue;
+  const stable = roundStable(value);
+  return formatValue(stable, typedDecimals ?? shortestDecimals(stable));
+}
+
+/**
+ * The decimals a typical value taken from the measured units is printed with: the decade of the
+ * spread s of the units (one significant digit of s; JCGM 100:2008 §7.2.6: quote an uncertainty with
+ * at most two significant digits and round the estimate to the same last place), never more than
+ * the template's decimals, never fewer than none. s = 0.31 dB → 1 decimal, s = 0.04 dB → 2, s = 3 dB → 0.
+ * The spread of the units, not the uncertainty of their mean (s/√n): a typical value says where a
+ * unit lies, and a unit departs from it by s. With fewer than two units or no spread, the template's decimals.
+ */
+export function typicalDecimals(options: { standardDeviation: number; n: number; templateDecimals: number }): number {
+  const { standardDeviation: s, n, templateDecimals } = options;
+  if (n < 2 || !(s > 0) || !Number.isFinite(s)) return templateDecimals;
+  // Round s to one significant digit first: 0.096 is 0.1, whose decade is the first decimal.
+  const rounded = Number(s.toPrecision(1));
+  return Math.min(templateDecimals, Math.max(0, -Math.floor(Math.log10(rounded))));
+}
+
+/** The annex's pass count, "4/5": only where a min or max limit exists to pass against (a typ alone judges nothing). */
+export function formatPassCount(group: { acceptance: unknown; passCount: number; n: number }): string {
+  return group.acceptance ? `${group.passCount}/${group.n}` : "";
+}
+
+/**
+ * The statistics annex's word on the Cpk it leaves blank: one sentence for all the groups whose
+ * limit has too few units behind it, or null when every limit's Cpk is stated.
+ */
+export function describeAbsentCpk(statistics: { cpkMinUnits?: number; groups: { cpkAbsentReason?: string }[] }): string | null {
+  const count = statistics.groups.filter((g) => g.cpkAbsentReason).length;
+  if (count === 0) return null;
+  const minimum = statistics.cpkMinUnits !== undefined ? `the ${statistics.cpkMinUnits} units` : "the units";
+  return (
+    `Cpk is left blank for ${count === 1 ? "one limit" : `${count} limits`}: fewer than ${minimum} the organization requires were measured, ` +
+    `and from so few units the estimate is too uncertain to mean something. Such a Cpk is still judged against the threshold.`
+  );
 }

@@ -2,12 +2,13 @@ import { limitBasisWords } from "../domain/sheets";
 import type { SheetTemplate, SpecRowTemplate } from "../../templates/types";
 import { compareStrings } from "./compare";
 import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
-import { formatValue } from "./format";
-import { computeGroupStatistics, type GroupStatistics, type UnitValue } from "./statistics";
+import { formatLimitValue, formatValue, typicalDecimals } from "./format";
+import { computeGroupStatistics, DEFAULT_CPK_MIN_UNITS, type GroupStatistics, type UnitValue } from "./statistics";
 import type { ApprovedSetInput, GroupIdentity, SheetInput, SheetModel, SpecLimitInput, SpecTableRow, StatisticsGroup } from "./types";
 
 const MEASURED_MEAN_FOOTNOTE =
-  "No typical value is stated: the figure is the mean of the units measured (n in the statistics annex).";
+  "No typical value is stated: the figure is the mean of the units measured (n in the statistics annex), " +
+  "rounded to the decade of their spread s (JCGM 100:2008 §7.2.6).";
 
 type Issues = SheetModel["issues"];
 
@@ -58,6 +59,7 @@ export function buildSpecTable(options: {
         limit,
         expandedUncertainty: settings.measurementUncertainty?.[row.parameter],
         cpkThreshold: settings.cpkThreshold,
+        cpkMinUnits: settings.cpkMinUnits ?? DEFAULT_CPK_MIN_UNITS,
         coverage: settings.toleranceCoverage,
         confidence: settings.toleranceConfidence,
       });
@@ -125,9 +127,9 @@ function buildStatisticsGroup({ row, conditionsKey, limit, stats }: RowGroup, co
     toleranceInterval: stats.toleranceInterval,
     limits: limit
       ? {
-          min: formatValue(limit.min, row.decimals),
-          typ: formatValue(limit.typ, row.decimals),
-          max: formatValue(limit.max, row.decimals),
+          min: formatLimitValue(limit.min, limit.decimals?.min),
+          typ: formatLimitValue(limit.typ, limit.decimals?.typ),
+          max: formatLimitValue(limit.max, limit.decimals?.max),
           basis,
         }
       : null,
@@ -140,6 +142,7 @@ function buildStatisticsGroup({ row, conditionsKey, limit, stats }: RowGroup, co
     units: stats.units,
     flags: stats.flags,
     supported: stats.flags.length === 0,
+    ...(stats.cpkAbsentReason ? { cpkAbsentReason: stats.cpkAbsentReason } : {}),
   };
 }
 
@@ -156,9 +159,11 @@ function buildSpecRow(
   return {
     ...groupIdentity(row, conditionsKey),
     conditions: conditionCells,
-    min: formatValue(limit?.min, row.decimals),
-    typ: formatValue(limit?.typ ?? stats.meanValue, row.decimals),
-    max: formatValue(limit?.max, row.decimals),
+    min: formatLimitValue(limit?.min, limit?.decimals?.min),
+    typ: typIsMeasuredMean
+      ? formatValue(stats.meanValue, typicalDecimals({ standardDeviation: stats.spreadValue, n: stats.n, templateDecimals: row.decimals }))
+      : formatLimitValue(limit?.typ, limit?.decimals?.typ),
+    max: formatLimitValue(limit?.max, limit?.decimals?.max),
     typIsMeasuredMean,
     basis,
     basisMark: limitBasisWords[basis].mark,

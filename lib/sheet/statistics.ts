@@ -19,14 +19,23 @@ export interface GroupStatisticsOptions {
   /** Expanded uncertainty U (k = 2); undefined when none was stated. */
   expandedUncertainty: number | undefined;
   cpkThreshold: number;
+  /** Cpk is printed only from this many units or more (the organization's setting). */
+  cpkMinUnits: number;
   coverage: number;
   confidence: number;
 }
 
 export interface GroupStatistics extends SampleFigures {
   meanValue: number | null;
+  /** The sample standard deviation unrounded (NaN below two units): what a typical value's digits follow. */
+  spreadValue: number;
+  /** Why Cpk is left blank although a limit is stated and the units vary: too few of them. */
+  cpkAbsentReason: string | null;
   ruleStatement: string | null;
 }
+
+/** The organization's default minimum of units behind a printed Cpk (organizations.cpkMinUnits). */
+export const DEFAULT_CPK_MIN_UNITS = 10;
 
 const toleranceFactors = new Map<string, number>();
 
@@ -50,7 +59,7 @@ function toleranceFactor(sampleSize: number, coverage: number, confidence: numbe
  * (ILAC-G8:09/2019 §4.2.2), simple acceptance otherwise (§4.2.1).
  */
 export function computeGroupStatistics(options: GroupStatisticsOptions): GroupStatistics {
-  const { label, unit, decimals, values, limit, expandedUncertainty, cpkThreshold, coverage, confidence } = options;
+  const { label, unit, decimals, values, limit, expandedUncertainty, cpkThreshold, cpkMinUnits, coverage, confidence } = options;
   const statDecimals = decimals + 1;
   const flags: StatisticsFlag[] = [];
   const stated = limit !== undefined && (limit.min !== undefined || limit.max !== undefined) ? limit : undefined;
@@ -59,7 +68,7 @@ export function computeGroupStatistics(options: GroupStatisticsOptions): GroupSt
   if (limit && limit.unit !== unit) {
     flags.push({ code: "limit-unit-mismatch", message: `The limit is stated in ${limit.unit || "no unit"}, the parameter in ${unit}.` });
   }
-  const cpk = stated ? judgeCapability(sample, stated, cpkThreshold, flags) : emptyValue;
+  const capability = stated ? judgeCapability({ sample, limit: stated, cpkThreshold, cpkMinUnits, flags }) : { cpk: emptyValue, absentReason: null };
   const known = expandedUncertainty !== undefined && expandedUncertainty >= 0 ? expandedUncertainty : undefined;
   const decisions = decideUnits({ values, limit: stated, expandedUncertainty: known, unit, statDecimals, flags });
 
@@ -72,8 +81,10 @@ export function computeGroupStatistics(options: GroupStatisticsOptions): GroupSt
     min: sample.min,
     max: sample.max,
     meanValue: sample.meanValue === null ? null : roundStable(sample.meanValue),
+    spreadValue: sample.s,
     toleranceInterval: sample.toleranceInterval,
-    cpk,
+    cpk: capability.cpk,
+    cpkAbsentReason: capability.absentReason,
     expandedUncertainty: known !== undefined ? formatValue(known, statDecimals) : emptyValue,
     decisionRule: decisions.decisionRule,
     ruleStatement: decisions.ruleStatement ? `${label}: ${decisions.ruleStatement}` : null,
@@ -120,32 +131,59 @@ function describeSample(values: UnitValue[], statDecimals: number, coverage: num
   };
 }
 
-/** Cpk against the stated limits, flagging a limit the data cannot judge or do not support. */
-function judgeCapability(sample: SampleDescription, limit: SpecLimitInput, cpkThreshold: number, flags: StatisticsFlag[]): FormattedValue {
+/**
+ * Cpk against the stated limits, flagging a limit the data cannot judge or do not support. Cpk is
+ * printed only from `cpkMinUnits` units or more: from fewer, its estimate is too uncertain to mean
+ * something (the approximate standard error sqrt(1/(9n) + Cpk²/(2(n − 1))), Bissell 1990, as given in
+ * NIST/SEMATECH §6.1.6, is about 0.49 for Cpk 1.33 from 5 units). It is still judged against the
+ * threshold, so a limit whose few units fall short is flagged all the same, without the figure.
+ */
+function judgeCapability(options: {
+  sample: SampleDescription;
+  limit: SpecLimitInput;
+  cpkThreshold: number;
+  cpkMinUnits: number;
+  flags: StatisticsFlag[];
+}): { cpk: FormattedValue; absentReason: string | null } {
+  const { sample, limit, cpkThreshold, cpkMinUnits, flags } = options;
   const { n, s, meanValue } = sample;
+  const absent = { cpk: emptyValue, absentReason: null };
   if (n === 0) {
     flags.push({ code: "limit-without-data", message: "A limit is stated but no approved measurement supports it." });
-    return emptyValue;
+    return absent;
   }
   if (n < 2 || !(s > 0) || meanValue === null) {
     flags.push({
       code: "insufficient-data",
       message: n < 2 ? `Only ${n} unit measured: Cpk and a tolerance interval need at least 2.` : "All units read the same value: Cpk is undefined.",
     });
-    return emptyValue;
+    return absent;
   }
+  const threshold = formatNumber(cpkThreshold, { digits: { maxDecimals: 2 } });
   try {
     const capability = computeCapability({ mean: meanValue, standardDeviation: s, lowerSpecLimit: limit.min, upperSpecLimit: limit.max });
+    if (n < cpkMinUnits) {
+      if (capability.cpk < cpkThreshold) {
+        flags.push({
+          code: "cpk-below-threshold",
+          message: `Cpk from these ${n} units falls below the threshold ${threshold} (too few units to state it): the data do not support this limit.`,
+        });
+      }
+      return {
+        cpk: emptyValue,
+        absentReason: `Cpk is not stated: ${n} units were measured, fewer than the ${cpkMinUnits} the organization requires for a capability index to mean something.`,
+      };
+    }
     if (capability.cpk < cpkThreshold) {
       flags.push({
         code: "cpk-below-threshold",
-        message: `Cpk ${formatNumber(capability.cpk, { digits: { maxDecimals: 2 } })} is below the threshold ${formatNumber(cpkThreshold, { digits: { maxDecimals: 2 } })}: the data do not support this limit.`,
+        message: `Cpk ${formatNumber(capability.cpk, { digits: { maxDecimals: 2 } })} is below the threshold ${threshold}: the data do not support this limit.`,
       });
     }
-    return formatValue(capability.cpk, 2);
+    return { cpk: formatValue(capability.cpk, 2), absentReason: null };
   } catch (error) {
     flags.push({ code: "insufficient-data", message: error instanceof Error ? error.message : String(error) });
-    return emptyValue;
+    return absent;
   }
 }
 

@@ -52,6 +52,8 @@ export interface SpecLimitInput {
   unit: string;
   basis: LimitBasis;
   footnote?: string;
+  /** How many decimals each figure was typed with (lib/format countTypedDecimals): printed with exactly those. */
+  decimals?: { min?: number; typ?: number; max?: number };
 }
 
 export interface KeyConditionsInput {
@@ -88,6 +90,8 @@ export interface SheetInput {
   settings: {
     /** A limit whose Cpk falls below this is flagged, e.g. 1.33. */
     cpkThreshold: number;
+    /** Cpk is stated only from this many units or more (the organization's setting, default 10). */
+    cpkMinUnits?: number;
     /** Tolerance-interval coverage and confidence, e.g. 0.99 and 0.95. */
     toleranceCoverage: number;
     toleranceConfidence: number;
@@ -191,6 +195,8 @@ export interface StatisticsGroup extends GroupIdentity, SampleFigures {
   limits: { min: FormattedValue; typ: FormattedValue; max: FormattedValue; basis: LimitBasis } | null;
   /** False when a limit is stated that the data does not support. */
   supported: boolean;
+  /** Why a limit's Cpk is not stated (too few units to mean something); absent when stated or no limit. */
+  cpkAbsentReason?: string;
 }
 
 export interface SpecTableRow extends GroupIdentity {
@@ -312,6 +318,8 @@ export interface SheetModel {
     coverage: number;
     confidence: number;
     cpkThreshold: number;
+    /** Cpk is stated only from this many units or more (absent on sheets released before it was kept). */
+    cpkMinUnits?: number;
     method: string;
     decisionRules: string[];
     groups: StatisticsGroup[];

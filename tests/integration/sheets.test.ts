@@ -97,6 +97,20 @@ describe("the draft sheet of a demo device", () => {
     await putLimits(before);
   });
 
+  it("keeps the digits the engineer typed for each limit, and refuses decimals that would print another number", async () => {
+    const before = await currentLimits();
+    const cl = (await sheet(engineer)).statistics.groups.find((g) => g.parameter === "conversion-loss")!;
+    const limit = { parameter: cl.parameter, conditionsKey: cl.conditionsKey, min: 9.5, typ: 10, max: 12, unit: cl.unit, basis: "test" };
+    await putLimits([{ ...limit, decimals: { min: 2, max: 1 } }]);
+    const row = (await sheet(engineer)).specifications.rows.find((r) => r.groupId === cl.groupId)!;
+    // min typed "9.50", typ sent as a bare JSON number (shortest form), max typed "12.0".
+    expect([row.min.text, row.typ.text, row.max.text]).toEqual(["9.50", "10", "12.0"]);
+    const bad = await engineer.request(`/api/devices/${deviceId}/spec-limits`, { method: "PUT", json: { limits: [{ ...limit, max: 12.25, decimals: { max: 1 } }] } });
+    expect(bad.status).toBe(422);
+    expect(JSON.stringify(await bad.json())).toContain("limits.0.decimals.max");
+    await putLimits(before);
+  });
+
   it("renders the engineer's markdown sanitized", async () => {
     const saved = await SheetContent.findOne({ where: { deviceId } });
     const r = await engineer.request(`/api/devices/${deviceId}/sheet-content`, {

@@ -8,6 +8,7 @@ import { renderSheetChartPngs } from "../charts/render-chart";
 import { settleGlyphCodePoints } from "./settle-glyph-code-points";
 import { stampPageNumbers } from "./stamp-page-numbers";
 import { proseLayout } from "../../sheet/prose-layout";
+import { describeAbsentCpk, formatPassCount } from "../../sheet/format";
 import { candidateDigestLabel, signedAtText } from "../../sheet/release-text";
 
 let fontsRegistered = false;
@@ -472,6 +473,7 @@ function unitsOf(sets: SheetModel["traceability"]["measurementSets"]) {
 function StatisticsAnnex({ model }: { model: SheetModel }) {
   const { statistics } = model;
   const flagged = statistics.groups.filter((g) => !g.supported);
+  const cpkAbsent = describeAbsentCpk(statistics);
   const columns: Column[] = [
     { header: "Parameter, conditions", width: "27%" },
     { header: "n", width: "4%", align: "right", mono: true },
@@ -504,7 +506,7 @@ function StatisticsAnnex({ model }: { model: SheetModel }) {
     g.toleranceInterval?.upper.text ?? "",
     g.cpk.text,
     g.expandedUncertainty.text,
-    g.limits ? `${g.passCount}/${g.n}` : "",
+    formatPassCount(g),
     g.supported ? "" : <Text style={{ color: colors.signal, fontWeight: 700 }}>!</Text>,
   ]);
   return (
@@ -512,6 +514,22 @@ function StatisticsAnnex({ model }: { model: SheetModel }) {
       <SectionHeading>Statistics annex</SectionHeading>
       <Text style={styles.paragraph}>{statistics.method}</Text>
       {model.noDataNotice ? <PdfNoDataNotice text={model.noDataNotice} /> : <PdfTable columns={columns} rows={rows} />}
+      {cpkAbsent ? (
+        <View wrap={false}>
+          <Text style={styles.subHeading}>Cpk not stated</Text>
+          <Text style={styles.paragraph}>
+            {cpkAbsent}{" "}
+            {statistics.groups
+              .filter((g) => g.cpkAbsentReason)
+              .map((g, i, all) => (
+                <Text key={g.groupId}>
+                  {g.label}, <PdfNotation text={g.conditionsText} />: n = {g.n}
+                  {i < all.length - 1 ? "; " : "."}
+                </Text>
+              ))}
+          </Text>
+        </View>
+      ) : null}
       {flagged.length > 0 ? (
         <View>
           <Text style={styles.subHeading}>Limits the data do not support</Text>

@@ -4,7 +4,7 @@ import { AppError } from "@/lib/errors";
 import type { SheetInput } from "@/lib/sheet";
 import type { Curve } from "@/lib/analysis";
 import { db } from "@/models";
-import type { MeasurementSet, Instrument, Device, Organization } from "@/models";
+import type { MeasurementSet, Instrument, Device, Organization, SpecLimit } from "@/models";
 import { openConformityIssues } from "../conformity/get-conformity-watch";
 import { isPlausibilityWarning } from "@/lib/ingest/plausibility-warning";
 
@@ -75,15 +75,27 @@ export async function loadSheetInput(opts: {
       unit: l.unit,
       basis: l.basis,
       ...(l.footnote ? { footnote: l.footnote } : {}),
+      ...typedDecimalsOf(l),
     })),
     prose: content?.prose ?? {},
     absoluteMaximumRatings: content?.absoluteMaximumRatings ?? [],
     ...(conformityAlerts.length ? { conformityAlerts } : {}),
     settings: {
       cpkThreshold: organization.cpkThreshold,
+      cpkMinUnits: organization.cpkMinUnits,
       toleranceCoverage: organization.toleranceCoverage,
       toleranceConfidence: organization.toleranceConfidence,
       measurementUncertainty: content?.measurementUncertainty ?? {},
     },
   };
+}
+
+/** The decimals each figure of a limit was typed with, where known. */
+function typedDecimalsOf(l: SpecLimit): Pick<SheetInput["limits"][number], "decimals"> {
+  const decimals = {
+    ...(l.minDecimals != null ? { min: l.minDecimals } : {}),
+    ...(l.typDecimals != null ? { typ: l.typDecimals } : {}),
+    ...(l.maxDecimals != null ? { max: l.maxDecimals } : {}),
+  };
+  return Object.keys(decimals).length ? { decimals } : {};
 }

@@ -73,8 +73,8 @@ describe("SheetDiffView", () => {
       expect(body).toContain(`</span>${words[kind]}</span>`);
     });
     // The tightened max reads old → new with its direction in words for a screen reader.
-    expect(bodies[0]).toContain("12.00");
-    expect(bodies[0]).toContain("11.50");
+    expect(bodies[0]).toContain('<span class="figure">12</span>');
+    expect(bodies[0]).toContain('<span class="figure">11.5</span>');
     expect(bodies[0]).toContain('<span class="sr-only"> (down)</span>');
   });
 

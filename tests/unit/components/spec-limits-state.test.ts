@@ -59,7 +59,7 @@ describe("spec limits editor state", () => {
     const checked = checkLimitDrafts(rows, (row) => drafts[rows.indexOf(row)]);
     expect(checked.sentRows).toEqual([rows[0]]);
     expect(checked.limits).toEqual([
-      { parameter: rows[0].parameter, conditionsKey: rows[0].conditionsKey, min: -1.5, max: 2, unit: rows[0].unit, basis: "design", footnote: "at 25 °C" },
+      { parameter: rows[0].parameter, conditionsKey: rows[0].conditionsKey, min: -1.5, max: 2, unit: rows[0].unit, basis: "design", footnote: "at 25 °C", decimals: { min: 1, max: 0 } },
     ]);
     expect(checked.errors).toEqual({
       [rows[1].key]: ["Min must not exceed max."],

@@ -40,6 +40,20 @@ describe("renderSheetPdf", () => {
     expect(pageCount(draft, "draft")).toBeGreaterThanOrEqual(2);
   });
 
+  it("prints a limit as typed and, below the organization's minimum of units, the annex's word on a blank Cpk", async () => {
+    const text = poppler("pdftotext", draft, "draft").replace(/\s+/g, " ");
+    const pn = draftModel.specifications.rows.find((r) => r.rowId === "residual-phase-noise" && r.max.text)!;
+    expect(pn.max.text).toBe("\u2212155"); // the fixture states max −155 with no typed digits: never an invented ".0"
+    expect(text).not.toContain("\u2212155.0");
+    expect(text).not.toContain("Cpk not stated"); // every limited group of the fixture has 10 units
+    const strict = buildSheetModel({ ...input, settings: { ...input.settings, cpkMinUnits: 11 } });
+    const blank = strict.statistics.groups.filter((g) => g.cpkAbsentReason).length;
+    expect(blank).toBeGreaterThan(0);
+    const strictText = poppler("pdftotext", await renderSheetPdf(strict), "strict").replace(/\s+/g, " ");
+    expect(strictText).toContain("Cpk not stated");
+    expect(strictText).toContain(`Cpk is left blank for ${blank} limits: fewer than the 11 units`);
+  }, 120_000);
+
   it("numbers every page k of the real page count, across its page sequences", () => {
     const pages = pageCount(draft, "draft");
     // pdftotext separates pages with a form feed.
@@ -85,7 +99,7 @@ describe("renderSheetPdf", () => {
     expect(text).toContain("50 Ω");
     expect(text).toContain("25 µm");
     expect(text).toContain("±0.5 dB");
-    expect(text).toContain("−155.0");
+    expect(text).toContain("−155");
     expect(text).toMatch(/Page 1 of \d+/);
   });
 

@@ -94,9 +94,9 @@ describe("diffSheetModels: spec-table limits", () => {
     const diff = diffSheetModels(revA, candidate(editLimit("conversion-loss", CL_2GHZ, { max: 11.5 })));
     const change = rowChange(diff, `${CL_ROW}:${CL_2GHZ}`);
     expect(change.kind).toBe("tightened");
-    expect(limitField(change, "max")).toMatchObject({ direction: "down", effect: "tightened", previousText: `12.00${NBSP}dB`, nextText: `11.50${NBSP}dB` });
+    expect(limitField(change, "max")).toMatchObject({ direction: "down", effect: "tightened", previousText: `12${NBSP}dB`, nextText: `11.5${NBSP}dB` });
     expect(decidedChanges(diff.rows)).toHaveLength(1);
-    expect(summaryLines(diff)).toEqual([`${CL_2GHZ_NAME}: max 12.00${NBSP}dB → 11.50${NBSP}dB (tightened)`]);
+    expect(summaryLines(diff)).toEqual([`${CL_2GHZ_NAME}: max 12${NBSP}dB → 11.5${NBSP}dB (tightened)`]);
     expect(diffIsEmpty(diff)).toBe(false);
   });
 
@@ -105,13 +105,13 @@ describe("diffSheetModels: spec-table limits", () => {
     const change = rowChange(diff, `${CL_ROW}:${CL_2GHZ}`);
     expect(change.kind).toBe("loosened");
     expect(limitField(change, "max")).toMatchObject({ direction: "up", effect: "loosened" });
-    expect(summaryLines(diff)).toEqual([`${CL_2GHZ_NAME}: max 12.00${NBSP}dB → 12.50${NBSP}dB (loosened)`]);
+    expect(summaryLines(diff)).toEqual([`${CL_2GHZ_NAME}: max 12${NBSP}dB → 12.5${NBSP}dB (loosened)`]);
   });
 
   it("a higher min tightens and a lower min loosens", () => {
     const up = rowChange(diffSheetModels(revA, candidate(editLimit("harmonic-suppression", HS1_2GHZ, { min: 28 }))), `fundamental-suppression:${HS1_2GHZ}`);
     expect(up.kind).toBe("tightened");
-    expect(limitField(up, "min")).toMatchObject({ direction: "up", effect: "tightened", previousText: `27.0${NBSP}dBc`, nextText: `28.0${NBSP}dBc` });
+    expect(limitField(up, "min")).toMatchObject({ direction: "up", effect: "tightened", previousText: `27${NBSP}dBc`, nextText: `28${NBSP}dBc` });
     const down = rowChange(diffSheetModels(revA, candidate(editLimit("harmonic-suppression", HS1_2GHZ, { min: 25.5 }))), `fundamental-suppression:${HS1_2GHZ}`);
     expect(down.kind).toBe("loosened");
     expect(limitField(down, "min")).toMatchObject({ direction: "down", effect: "loosened" });
@@ -120,12 +120,12 @@ describe("diffSheetModels: spec-table limits", () => {
   it("a limit stated where there was none tightens; one withdrawn loosens", () => {
     const added = rowChange(diffSheetModels(revA, candidate(editLimit("conversion-loss", CL_2GHZ, { min: 8 }))), `${CL_ROW}:${CL_2GHZ}`);
     expect(added.kind).toBe("tightened");
-    expect(limitField(added, "min")).toMatchObject({ direction: null, effect: "tightened", previousText: "", nextText: `8.00${NBSP}dB` });
+    expect(limitField(added, "min")).toMatchObject({ direction: null, effect: "tightened", previousText: "", nextText: `8${NBSP}dB` });
     const withdrawn = diffSheetModels(revA, candidate(editLimit("conversion-loss", CL_2GHZ, { max: undefined })));
     const change = rowChange(withdrawn, `${CL_ROW}:${CL_2GHZ}`);
     expect(change.kind).toBe("loosened");
     expect(limitField(change, "max")).toMatchObject({ direction: null, effect: "loosened", nextText: "" });
-    expect(summaryLines(withdrawn)).toEqual([`${CL_2GHZ_NAME}: max 12.00${NBSP}dB → none (loosened)`]);
+    expect(summaryLines(withdrawn)).toEqual([`${CL_2GHZ_NAME}: max 12${NBSP}dB → none (loosened)`]);
   });
 
   it("a changed typ is neutral: it is not a guarantee", () => {
@@ -134,7 +134,7 @@ describe("diffSheetModels: spec-table limits", () => {
     expect(change.kind).toBe("changed");
     expect(change.fields).toHaveLength(1);
     expect(limitField(change, "typ")).toMatchObject({ direction: "down", effect: "neutral", measuredMean: false });
-    expect(summaryLines(diff)).toEqual([`${CL_2GHZ_NAME}: typ 10.60${NBSP}dB → 10.40${NBSP}dB`]);
+    expect(summaryLines(diff)).toEqual([`${CL_2GHZ_NAME}: typ 10.6${NBSP}dB → 10.4${NBSP}dB`]);
   });
 
   it("lists a row with one limit tightened and another loosened among the tightened, each field with its own effect", () => {
@@ -152,7 +152,7 @@ describe("diffSheetModels: spec-table limits", () => {
 
     const added = diffSheetModels(revA, withRow);
     expect(rowChange(added, `${CL_ROW}:${CL_5GHZ}`)).toMatchObject({ kind: "added", previous: null, fields: [] });
-    expect(summaryLines(added)).toEqual([`Added: Conversion loss (Frequency 5${NBSP}GHz in, Drive optimum, T_A 25${NBSP}°C): max 13.00${NBSP}dB`]);
+    expect(summaryLines(added)).toEqual([`Added: Conversion loss (Frequency 5${NBSP}GHz in, Drive optimum, T_A 25${NBSP}°C): max 13${NBSP}dB`]);
 
     const removed = diffSheetModels(withRow, revA);
     expect(rowChange(removed, `${CL_ROW}:${CL_5GHZ}`)).toMatchObject({ kind: "removed", next: null });
@@ -234,10 +234,10 @@ describe("diffSheetModels: units", () => {
     expect(change.fields.filter((f) => f.field !== "typ")).toEqual([{ field: "unit", previous: "MHz", next: "GHz", convertible: true }]);
   });
 
-  it("finds the direction across an SI prefix: 2400 MHz → 2.50 GHz loosens a max", () => {
+  it("finds the direction across an SI prefix: 2400 MHz → 2.5 GHz loosens a max", () => {
     const change = rowChange(diffSheetModels(inUnit("MHz", 2400), inUnit("GHz", 2.5)), `${CL_ROW}:${CL_2GHZ}`);
     expect(change.kind).toBe("loosened");
-    expect(limitField(change, "max")).toMatchObject({ direction: "up", effect: "loosened", previousText: `2400.00${NBSP}MHz`, nextText: `2.50${NBSP}GHz` });
+    expect(limitField(change, "max")).toMatchObject({ direction: "up", effect: "loosened", previousText: `2400${NBSP}MHz`, nextText: `2.5${NBSP}GHz` });
   });
 
   it("never converts dB-type units: dB → dBm is reported, not compared", () => {
@@ -247,7 +247,7 @@ describe("diffSheetModels: units", () => {
     expect(limitField(change, "max")).toMatchObject({ direction: null, effect: "incomparable" });
     expect(change.fields).toContainEqual({ field: "unit", previous: "dB", next: "dBm", convertible: false });
     const line = summaryLines(diff).find((l) => l.startsWith(CL_2GHZ_NAME))!;
-    expect(line).toContain(`max 12.00${NBSP}dB → 11.00${NBSP}dBm (units differ, not compared)`);
+    expect(line).toContain(`max 12${NBSP}dB → 11${NBSP}dBm (units differ, not compared)`);
     expect(line).toContain("unit dB → dBm");
   });
 });

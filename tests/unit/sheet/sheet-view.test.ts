@@ -14,7 +14,7 @@ describe("SheetView", () => {
     expect(html).toContain("OCX-2D40");
     expect(html).toContain("PRELIMINARY — NOT RELEASED");
     expect(html).toContain("Electrical specifications");
-    expect(html).toContain("\u2212155.0");
+    expect(html).toContain("\u2212155");
     expect(html).toContain("T<sub>A</sub>");
     expect(html).toContain("Statistics annex");
     expect(html).toContain("@media print");
