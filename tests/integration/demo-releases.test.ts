@@ -66,7 +66,7 @@ describe("the demo's releases", () => {
     }
     expect(doubler[0].notes.at(-1)).toBe(demoDoublerStory.revisionB.releaseNote);
     // B's generated notes (the diff against A) name the tightened limit and the added unit.
-    expect(doubler[0].notes.some((n) => /^Conversion loss.*11\.50\sdB → 11\.00\sdB/.test(n)), doubler[0].notes.join(" | ")).toBe(true);
+    expect(doubler[0].notes.some((n) => /^Conversion loss.*11\.5\sdB → 11\sdB/.test(n)), doubler[0].notes.join(" | ")).toBe(true);
     expect(doubler[0].notes.some((n) => n.includes("BFD-0004"))).toBe(true);
     expect(doubler[1].notes).toEqual(["First release.", demoDoublerStory.revisionA.releaseNote]);
   });
@@ -188,7 +188,7 @@ describe("the demo customer", () => {
     expect(notices).toHaveLength(1);
     const [notice] = notices;
     expect(notice.text).toContain("What changed since revision A:");
-    expect(notice.text).toMatch(/Conversion loss.*max 11\.50\sdB → 11\.00\sdB \(tightened\)/);
+    expect(notice.text).toMatch(/Conversion loss.*max 11\.5\sdB → 11\sdB \(tightened\)/);
     expect(notice.text).toMatch(/Revision B: https?:\/\/\S+\/datasheets\/kestrine\/KDX-2G4\/B/);
     expect(notice.text).toMatch(/Revision A: https?:\/\/\S+\/datasheets\/kestrine\/KDX-2G4\/A/);
     expect(notice.text).toMatch(/\/unsubscribe\/\S+/);

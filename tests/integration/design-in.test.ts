@@ -44,7 +44,7 @@ describe("the design-in endpoint", () => {
     expect(loss.typical).toBeCloseTo(expected.typical, 8);
     expect(loss.spread.standardDeviation!).toBeCloseTo(expected.standardDeviation, 8);
     expect(loss.spread.n).toBe(4);
-    expect(loss.limits[0]).toMatchObject({ rowId: "conversion-loss-optimum", maxText: "11.00", basis: "test" });
+    expect(loss.limits[0]).toMatchObject({ rowId: "conversion-loss-optimum", maxText: "11", basis: "test" });
     const fundamental = answer.readings.find((r) => r.label === "Fundamental suppression")!;
     expect(fundamental.typical).toBeCloseTo(numpyAt("harmonic-suppression-vs-drive", "fundamental (×1)", 10).typical, 8);
   });
