@@ -5,8 +5,8 @@ import { useId } from "react";
 import type { RevisionSummary } from "@/lib/domain/reviews";
 import { withdrawBodySchema, type WithdrawBody } from "@/lib/schemas/reviews";
 import { buttonClass } from "@/components/ui/button";
-import { selectClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { ReasonField } from "@/components/ui/reason-field";
 import { checkInput, useJsonForm } from "@/components/use-json-form";
 
 /** Withdraws a released revision with a reason; it stays readable and downloadable with a withdrawn notice. */
@@ -22,25 +22,7 @@ export function WithdrawRevisionForm({ revisionId, letter }: { revisionId: numbe
     <details className="mt-2" data-testid="withdraw-revision">
       <summary className="cursor-pointer text-[0.8125rem] text-ink-muted">Withdraw…</summary>
       <form onSubmit={(e) => void submit(e)} noValidate className="mt-2 w-[18rem] space-y-2">
-        <label htmlFor={`${id}-reason`} className="block text-[0.8125rem] font-semibold">
-          Why Rev. {letter} is withdrawn
-        </label>
-        <textarea
-          id={`${id}-reason`}
-          name="reason"
-          rows={3}
-          required
-          minLength={10}
-          maxLength={2000}
-          aria-invalid={errors.reason ? true : undefined}
-          aria-describedby={errors.reason ? `${id}-reason-error` : undefined}
-          className={`${selectClass} text-[0.875rem]`}
-        />
-        {errors.reason ? (
-          <p id={`${id}-reason-error`} className="text-sm text-signal-deep">
-            {errors.reason}
-          </p>
-        ) : null}
+        <ReasonField id={id} label={`Why Rev. ${letter} is withdrawn`} error={errors.reason} />
         <button type="submit" disabled={pending} className={buttonClass.secondary}>
           {pending ? "Withdrawing…" : `Withdraw Rev. ${letter}`}
         </button>
