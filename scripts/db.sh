@@ -1,6 +1,9 @@
 #!/usr/bin/env bash
 # A private MariaDB instance for Benchfold: own data directory (.data/mariadb), own port and
 # socket, bound to 127.0.0.1. Usage: scripts/db.sh start|stop|status|reset <database>
+# It writes a row-based binary log (server id 1), so scripts/replica.sh can start a replica of it;
+# the benchfold user creates triggers, which a binary log allows only with
+# log-bin-trust-function-creators.
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 load_env
@@ -50,7 +53,9 @@ start() {
     setsid mariadbd --no-defaults "${userflag[@]}" --datadir="$DATADIR" --socket="$SOCK" \
       --port="$DB_PORT" --bind-address=127.0.0.1 --pid-file="$PIDFILE" --log-error="$LOGFILE" \
       --skip-name-resolve --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
-      --default-time-zone=+00:00 --max-connections=300 --max-allowed-packet=64M </dev/null >/dev/null 2>&1 &
+      --default-time-zone=+00:00 --max-connections=300 --max-allowed-packet=64M \
+      --server-id=1 --log-bin=mariadb-bin --binlog-format=ROW --binlog-expire-logs-seconds=86400 \
+      --log-bin-trust-function-creators=1 </dev/null >/dev/null 2>&1 &
     local i
     for i in $(seq 1 150); do
       ping_db && break

@@ -59,12 +59,22 @@ load_env() {
   export BENCHFOLD_DATA_DIR="${BENCHFOLD_DATA_DIR:-$BENCHFOLD_ROOT/.data}"
   export PORT="${PORT:-3000}"
   export NEXTAUTH_URL="${NEXTAUTH_URL:-http://localhost:$PORT}"
-  if [ -z "${NEXTAUTH_SECRET:-}" ]; then
-    mkdir -p "$BENCHFOLD_DATA_DIR"
-    [ -s "$BENCHFOLD_DATA_DIR/nextauth-secret" ] || node -e 'process.stdout.write(require("crypto").randomBytes(32).toString("base64url"))' > "$BENCHFOLD_DATA_DIR/nextauth-secret"
-    NEXTAUTH_SECRET="$(cat "$BENCHFOLD_DATA_DIR/nextauth-secret")"
-    export NEXTAUTH_SECRET
-  fi
+}
+
+# next-auth's signing secret: NEXTAUTH_SECRET when configured, else the one made once in the
+# database (scripts/instance-secret.ts), so every instance on it honours the others' sessions.
+# Call after the migrations (the table is theirs).
+ensure_shared_secret() {
+  [ -n "${NEXTAUTH_SECRET:-}" ] && return 0
+  NEXTAUTH_SECRET="$(run_tsx "$BENCHFOLD_ROOT/scripts/instance-secret.ts")" || die "could not read the shared secret from the database"
+  export NEXTAUTH_SECRET
+}
+
+# True when the database is not this machine's own (DB_HOST elsewhere, or BENCHFOLD_EXTERNAL_DB=1):
+# the scripts then neither start nor initialise MariaDB, and use the one configured.
+uses_external_database() {
+  [ "${BENCHFOLD_EXTERNAL_DB:-}" = 1 ] && return 0
+  case "$DB_HOST" in 127.0.0.1|localhost|::1) return 1 ;; *) return 0 ;; esac
 }
 
 # Starts the fake SMTP server (and its HTTP read-out) in the background unless one answers already.

@@ -1,10 +1,13 @@
-// Applies pending migrations to the database named by DB_NAME (scripts/lib.sh sets the defaults).
+// Applies pending migrations to the database named by DB_NAME (scripts/lib.sh sets the defaults),
+// holding MariaDB's named lock benchfold-migrate so two instances starting at once cannot race.
 import { db, closeDb } from "../models";
+import { withDatabaseLock } from "../models/instance-secrets";
 import { createMigrator } from "../models/migrator";
 
 async function main() {
   const { sequelize } = db();
-  const done = await createMigrator(sequelize).up();
+  // Under a database lock: instances booting together migrate one after the other.
+  const done = await withDatabaseLock(sequelize, "benchfold-migrate", 300, () => createMigrator(sequelize).up());
   console.error(`[benchfold] migrations: ${done.length ? done.map((m) => m.name).join(", ") : "up to date"}`);
   await closeDb();
 }

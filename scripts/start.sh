@@ -10,9 +10,14 @@ started=$(date +%s)
 ensure_debian_packages mariadbd:mariadb-server curl:curl
 ensure_node_modules
 load_env
-bash scripts/db.sh start
+if uses_external_database; then
+  log "using the database at $DB_HOST:$DB_PORT (not starting one here)"
+else
+  bash scripts/db.sh start
+fi
 run_tsx scripts/migrate.ts
 run_tsx scripts/seed.ts
+ensure_shared_secret
 
 # Mail: a real relay when SMTP_HOST is configured, otherwise the local fake server and its mailbox page.
 SERVER_PID=""; FAKE_SMTP_PID=""; OUTBOX_WORKER_PID=""

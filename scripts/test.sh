@@ -24,9 +24,8 @@ export BENCHFOLD_TRUSTED_PROXIES="127.0.0.1,::1"
 # server hashes at 5 (lib/server/accounts/hash-password.ts). Factory users are stored at 4, so
 # every first sign-in of one also takes the rehash path (auth.test.ts checks it).
 export BENCHFOLD_PASSWORD_HASH_COST=5
-unset SMTP_HOST
+unset SMTP_HOST NEXTAUTH_SECRET
 load_env
-export NEXTAUTH_SECRET="test-secret-$(date +%s%N)"
 
 RESULTS="$BENCHFOLD_DATA_DIR/test-results"
 rm -rf "$RESULTS"; mkdir -p "$RESULTS" "$BENCHFOLD_DATA_DIR/logs"
@@ -35,6 +34,8 @@ bash scripts/db.sh start || die "MariaDB did not start"
 bash scripts/db.sh reset "$DB_NAME" || die "could not reset $DB_NAME"
 run_tsx scripts/migrate.ts || die "migrations failed"
 run_tsx scripts/seed.ts || die "seeding failed"
+# The secret is made in the (fresh) database, as npm start's is: a second instance reads the same one.
+ensure_shared_secret
 start_fake_smtp
 SERVER_PID=""
 OUTBOX_WORKER_PID=""

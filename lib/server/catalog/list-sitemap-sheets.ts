@@ -1,7 +1,6 @@
 import "server-only";
-import { QueryTypes } from "sequelize";
 import { datasheetPath, type RevisionStanding } from "@/lib/domain/reviews";
-import { db } from "@/models";
+import { publicSelect } from "../db/public-reads";
 
 /** One released sheet's public address for the sitemap. */
 export interface SitemapSheet {
@@ -22,7 +21,7 @@ export const SITEMAP_LIMIT = 50_000;
  * stays readable at its address but is not offered for indexing.
  */
 export async function listSitemapSheets(): Promise<SitemapSheet[]> {
-  const rows = await db().sequelize.query<{ slug: string; part_number: string; letter: string; superseded: number; changed_at: Date | string }>(
+  const rows = await publicSelect<{ slug: string; part_number: string; letter: string; superseded: number; changed_at: Date | string }>(
     `SELECT o.slug, d.part_number, r.letter,
             EXISTS (SELECT 1 FROM sheet_revisions n WHERE n.previous_revision_id = r.id) AS superseded,
             (SELECT GREATEST(MAX(r2.released_at), COALESCE(MAX(w2.withdrawn_at), MAX(r2.released_at)))
@@ -34,7 +33,6 @@ export async function listSitemapSheets(): Promise<SitemapSheet[]> {
       WHERE NOT EXISTS (SELECT 1 FROM sheet_revision_withdrawals w WHERE w.revision_id = r.id)
       ORDER BY superseded, o.slug, d.part_number, r.sequence DESC
       LIMIT ${SITEMAP_LIMIT}`,
-    { type: QueryTypes.SELECT },
   );
   return rows.map((row) => ({
     path: datasheetPath(row.slug, row.part_number, row.letter),

@@ -1,11 +1,10 @@
 import "server-only";
-import { QueryTypes } from "sequelize";
 import { catalogFacts, catalogParameters, type CatalogCondition, type CatalogFact, type CatalogQuery, type SpecField } from "@/lib/catalog/catalog-query";
 import { catalogKeyColumns } from "@/lib/catalog/key-columns";
 import type { CatalogFigure, CatalogHit, CatalogResult } from "@/lib/catalog/types";
 import { deviceClassLabels, deviceClasses, type DeviceClass } from "@/lib/domain/device-classes";
 import { datasheetPath } from "@/lib/domain/reviews";
-import { db } from "@/models";
+import { publicSelect } from "../db/public-reads";
 
 type Where = { sql: string[]; replacements: unknown[] };
 type Facet = "deviceClass" | "organization";
@@ -54,7 +53,7 @@ type VersionColumns = { catalog_revision: number | null; catalog_withdrawal: num
 const versionOf = (row: VersionColumns | undefined) => (row ? `${row.catalog_revision ?? 0}:${row.catalog_withdrawal ?? 0}` : null);
 
 async function catalogVersion(): Promise<string> {
-  const [row] = await db().sequelize.query<VersionColumns>(`SELECT ${versionColumns}`, { type: QueryTypes.SELECT });
+  const [row] = await publicSelect<VersionColumns>(`SELECT ${versionColumns}`);
   return versionOf(row)!;
 }
 
@@ -64,7 +63,6 @@ async function catalogVersion(): Promise<string> {
  * or either read no row, so a search never runs a separate version query.
  */
 async function runSearch(query: CatalogQuery): Promise<{ result: CatalogResult; version: string | null }> {
-  const { sequelize } = db();
   const from = "FROM released_sheets s JOIN organizations o ON o.id = s.organization_id";
   const all = whereOf(query);
   const facetsWhere = whereOf(query, ["deviceClass", "organization"]);
@@ -73,20 +71,20 @@ async function runSearch(query: CatalogQuery): Promise<{ result: CatalogResult; 
   const sort = sortExpression(query);
   const offset = (query.page - 1) * query.pageSize;
   const [rows, counts] = await Promise.all([
-    sequelize.query<HitRow>(
+    publicSelect<HitRow>(
       `SELECT s.revision_id, s.part_number, s.title, s.device_class, s.letter, s.released_at,
               s.input_min_hz, s.input_max_hz, s.output_min_hz, s.output_max_hz, s.drive_dbm,
               o.slug AS organization_slug, o.name AS organization_name, ${sort.select} AS sort_value, ${versionColumns}
          ${from} ${where(all)}
         ORDER BY (sort_value IS NULL), sort_value ${query.dir === "desc" ? "DESC" : "ASC"}, s.part_number ${query.dir === "desc" && query.sort === "part" ? "DESC" : "ASC"}, s.revision_id
         LIMIT ? OFFSET ?`,
-      { type: QueryTypes.SELECT, replacements: [...sort.replacements, ...all.replacements, query.pageSize, offset] },
+      [...sort.replacements, ...all.replacements, query.pageSize, offset],
     ),
     // Both facets from one query: counted per class and organization without either filter, then
     // each facet keeps the other's filter (a class's count within the chosen organization, and back).
-    sequelize.query<{ device_class: string; slug: string; name: string; count: number } & VersionColumns>(
+    publicSelect<{ device_class: string; slug: string; name: string; count: number } & VersionColumns>(
       `SELECT s.device_class, o.slug, MAX(o.name) AS name, COUNT(*) AS count, ${versionColumns} ${from} ${where(facetsWhere)} GROUP BY s.device_class, o.slug`,
-      { type: QueryTypes.SELECT, replacements: facetsWhere.replacements },
+      facetsWhere.replacements,
     ),
   ]);
   const classCounts = sumBy(counts.filter((c) => !query.organization || c.slug === query.organization), (c) => c.device_class, () => "");
@@ -209,11 +207,11 @@ type HitRow = VersionColumns & {
 async function keyFigures(rows: HitRow[]): Promise<Map<number, CatalogFigure[]>> {
   const out = new Map<number, CatalogFigure[]>();
   if (!rows.length) return out;
-  const groups = await db().sequelize.query<{ revision_id: number; row_id: string; parameter: string; min_value: number | null; typ_value: number | null; max_value: number | null; unit: string }>(
+  const groups = await publicSelect<{ revision_id: number; row_id: string; parameter: string; min_value: number | null; typ_value: number | null; max_value: number | null; unit: string }>(
     `SELECT revision_id, row_id, parameter, MIN(min_value) AS min_value, AVG(typ_value) AS typ_value, MAX(max_value) AS max_value, MAX(unit) AS unit
        FROM released_spec_values WHERE revision_id IN (${rows.map(() => "?").join(", ")})
       GROUP BY revision_id, row_id, parameter`,
-    { type: QueryTypes.SELECT, replacements: rows.map((r) => r.revision_id) },
+    rows.map((r) => r.revision_id),
   );
   for (const row of rows) {
     const columns = catalogKeyColumns[row.device_class as DeviceClass] ?? [];

@@ -6,6 +6,7 @@ import type { SheetModel } from "@/lib/sheet";
 import { db } from "@/models";
 import type { Device, Organization, SheetRevision, SheetRevisionWithdrawal, User } from "@/models";
 import { authorize } from "../auth/authorize";
+import { publicSelect } from "../db/public-reads";
 import type { SessionUser } from "../auth/session-user";
 
 type RevisionRow = SheetRevision & { SheetRevisionWithdrawal?: SheetRevisionWithdrawal | null };
@@ -114,7 +115,8 @@ const pdfBytes = new Map<number, Buffer>();
  */
 export async function findReleasedPdf(opts: { organizationSlug: string; partNumber: string; revision: string }): Promise<ReleasedPdf> {
   const current = opts.revision === "current";
-  const rows = await db().sequelize.query<{ id: number; letter: string; pdf_sha256: string; withdrawn: number; superseded: number }>(
+  // The lookup may come from a read replica (public data); the bytes from the primary.
+  const rows = await publicSelect<{ id: number; letter: string; pdf_sha256: string; withdrawn: number; superseded: number }>(
     `SELECT r.id, r.letter, r.pdf_sha256,
             EXISTS (SELECT 1 FROM sheet_revision_withdrawals w WHERE w.revision_id = r.id) AS withdrawn,
             EXISTS (SELECT 1 FROM sheet_revisions n WHERE n.previous_revision_id = r.id) AS superseded
@@ -124,7 +126,7 @@ export async function findReleasedPdf(opts: { organizationSlug: string; partNumb
       WHERE o.slug = :slug AND (:current OR r.letter = :letter)
         ${current ? "AND NOT EXISTS (SELECT 1 FROM sheet_revision_withdrawals w WHERE w.revision_id = r.id)" : ""}
       ORDER BY r.sequence DESC LIMIT 1`,
-    { type: QueryTypes.SELECT, replacements: { slug: opts.organizationSlug, part: opts.partNumber, current, letter: opts.revision } },
+    { slug: opts.organizationSlug, part: opts.partNumber, current, letter: opts.revision },
   );
   const row = rows[0];
   // "current" is the newest revision, and only while it is not withdrawn.
