@@ -26,7 +26,7 @@ export type ReplicaHost = { host: string; port: number };
  * `host:port` (or `host`, port 3306) separated by commas; none when it is unset or empty. They
  * take DB_NAME and DB_REPLICA_USER / DB_REPLICA_PASSWORD (default: DB_USER / DB_PASSWORD).
  */
-export function readReplicaHosts(env: NodeJS.ProcessEnv = process.env): ReplicaHost[] {
+export function readReplicaHosts(env: Record<string, string | undefined> = process.env): ReplicaHost[] {
   return (env.DB_REPLICA_HOSTS ?? "")
     .split(",")
     .map((entry) => entry.trim())
@@ -44,7 +44,7 @@ export function readReplicaHosts(env: NodeJS.ProcessEnv = process.env): ReplicaH
  * (Sequelize's `replication`: every SELECT outside a transaction goes to a read pool, taking the
  * replicas in turn; the rest to the primary). Only lib/server/db/public-reads.ts makes the second.
  */
-export function createSequelize(settings: DatabaseSettings = readDatabaseSettings(), replicas: ReplicaHost[] = [], env: NodeJS.ProcessEnv = process.env): Sequelize {
+export function createSequelize(settings: DatabaseSettings = readDatabaseSettings(), replicas: ReplicaHost[] = [], env: Record<string, string | undefined> = process.env): Sequelize {
   const primary = { host: settings.host, port: settings.port, username: settings.user, password: settings.password };
   const reader = (r: ReplicaHost) => ({ host: r.host, port: r.port, username: env.DB_REPLICA_USER ?? settings.user, password: env.DB_REPLICA_PASSWORD ?? settings.password });
   return new Sequelize(settings.database, settings.user, settings.password, {

@@ -56,6 +56,7 @@ export type {
   User,
 };
 export * from "./connection";
+export { sharedSecret, withDatabaseLock } from "./instance-secrets";
 
 /** Every model, by name: what db() hands out, and what initModels sets up (one list, so none is left out). */
 const models = {

@@ -3,8 +3,7 @@
 // earlier version kept in .data/nextauth-secret becomes the database's, so its sessions stay valid.
 import { existsSync, readFileSync } from "node:fs";
 import path from "node:path";
-import { db, closeDb } from "../models";
-import { sharedSecret } from "../models/instance-secrets";
+import { db, closeDb, sharedSecret } from "../models";
 
 async function main() {
   const legacy = path.join(process.env.BENCHFOLD_DATA_DIR ?? ".data", "nextauth-secret");

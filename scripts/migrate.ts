@@ -1,7 +1,6 @@
 // Applies pending migrations to the database named by DB_NAME (scripts/lib.sh sets the defaults),
 // holding MariaDB's named lock benchfold-migrate so two instances starting at once cannot race.
-import { db, closeDb } from "../models";
-import { withDatabaseLock } from "../models/instance-secrets";
+import { db, closeDb, withDatabaseLock } from "../models";
 import { createMigrator } from "../models/migrator";
 
 async function main() {

@@ -1,6 +1,5 @@
 // Adds the demo scenario once (each seeder is recorded in benchfold_seeds and never runs twice).
-import { db, closeDb } from "../models";
-import { withDatabaseLock } from "../models/instance-secrets";
+import { db, closeDb, withDatabaseLock } from "../models";
 import { createSeeder } from "../models/migrator";
 
 async function main() {

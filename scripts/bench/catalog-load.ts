@@ -12,20 +12,29 @@
  *     memory, so each one runs its SQL): the cost of the search itself.
  *
  * Printed: requests, req/s, p50, p95, errors, and each search's throughput ÷ the reference's, with
- * the aims (p95 under 50 ms, at least half the reference's throughput, no errors). Nothing is
- * asserted. Skipped with a note when MariaDB is not running or there is no build.
+ * the aims (p95 under 50 ms, at least half the reference's throughput, no errors).
+ *
+ * Then one instance against two: a second server from the same build on the same database, and the
+ * distinct searches sent through scripts/bench/round-robin-proxy.ts once with only the first
+ * instance behind it and once with both (the same proxy both times, so its own cost is in both
+ * figures): the two throughputs and their ratio (aim ≥ 1.6 with cores enough: the machine's count
+ * is printed, and two Node processes plus MariaDB cannot scale on two cores).
+ * Nothing is asserted. Skipped with a note when MariaDB is not running or there is no build.
  *
  *   BENCH_CATALOG_DEVICES (1000), BENCH_CATALOG_CLIENTS (50), BENCH_CATALOG_SECONDS (30),
- *   BENCH_CATALOG_PORT (3190), BENCH_CATALOG_DB (benchfold_bench_test)
+ *   BENCH_CATALOG_PORT (3190; the second instance and the proxy take the next two),
+ *   BENCH_CATALOG_DB (benchfold_bench_test)
  */
 import { spawn, spawnSync } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import { existsSync, mkdirSync, openSync } from "node:fs";
+import { availableParallelism } from "node:os";
 import path from "node:path";
 import { createSequelize, readDatabaseSettings } from "../../models/connection";
 import { hammer, loadHeader, loadRow, type LoadResult } from "./http-load";
 import { distinctSearches, typicalSearch } from "./catalog-queries";
 import { seedSyntheticCatalog } from "./synthetic-catalog";
+import { startRoundRobinProxy } from "./round-robin-proxy";
 
 const root = path.resolve(__dirname, "../..");
 const devices = Number(process.env.BENCH_CATALOG_DEVICES ?? 1000);
@@ -73,12 +82,16 @@ async function main() {
   const seededS = (performance.now() - seeding) / 1000;
 
   mkdirSync(path.join(dataDir, "logs"), { recursive: true });
-  const log = openSync(path.join(dataDir, "logs", "bench-catalog-server.log"), "w");
-  const server = spawn(process.execPath, ["scripts/server.mjs"], {
-    cwd: root,
-    env: { ...env, PORT: String(port), NEXTAUTH_URL: baseUrl, NEXTAUTH_SECRET: randomBytes(32).toString("base64url"), BENCHFOLD_FAKE_SMTP: "", SMTP_HOST: "127.0.0.1" },
-    stdio: ["ignore", log, log],
-  });
+  // Both instances share one secret, as instances behind one load balancer do.
+  const secret = randomBytes(32).toString("base64url");
+  const startServer = (serverPort: number, logName: string) =>
+    spawn(process.execPath, ["scripts/server.mjs"], {
+      cwd: root,
+      env: { ...env, PORT: String(serverPort), NEXTAUTH_URL: baseUrl, NEXTAUTH_SECRET: secret, BENCHFOLD_FAKE_SMTP: "", SMTP_HOST: "127.0.0.1" },
+      stdio: ["ignore", openSync(path.join(dataDir, "logs", logName), "w"), openSync(path.join(dataDir, "logs", logName), "a")],
+    });
+  const server = startServer(port, "bench-catalog-server.log");
+  const servers = [server];
   try {
     if (!(await waitFor(`${baseUrl}/api/health/live`, 60_000))) throw new Error(`the app did not answer on ${baseUrl} (see .data/logs/bench-catalog-server.log)`);
     const searches = distinctSearches();
@@ -112,9 +125,37 @@ async function main() {
           `p95 ${result.p95.toFixed(1)} ms (aim < 50 ms), errors ${[...result.failures.values()].reduce((a, b) => a + b, 0)} (aim 0)`,
       );
     }
+
+    // One instance against two behind a round-robin proxy, same searches, same clients.
+    const secondPort = port + 1;
+    servers.push(startServer(secondPort, "bench-catalog-server-2.log"));
+    if (!(await waitFor(`http://localhost:${secondPort}/api/health/ready`, 60_000))) throw new Error(`the second instance did not answer on port ${secondPort} (see .data/logs/bench-catalog-server-2.log)`);
+    await hammer((n) => `http://localhost:${secondPort}/api/v1/sheets?${searches[n % searches.length]}`, { clients, seconds: 5 });
+    const scaled: [string, LoadResult][] = [];
+    for (const upstreams of [[port], [port, secondPort]]) {
+      const proxy = await startRoundRobinProxy(port + 2, upstreams);
+      try {
+        const url = (n: number) => `http://localhost:${port + 2}/api/v1/sheets?${searches[n % searches.length]}`;
+        await hammer(url, { clients, seconds: 2 });
+        scaled.push([`search via proxy, ${upstreams.length} instance${upstreams.length > 1 ? "s" : ""}`, await hammer(url, { clients, seconds })]);
+      } finally {
+        await proxy.close();
+      }
+    }
+    console.log(`\nOne instance against two on one database, ${clients} concurrent clients, ${searches.length} searches in turn, through a round-robin proxy (scripts/bench/round-robin-proxy.ts)`);
+    console.log(loadHeader());
+    for (const [name, result] of scaled) console.log(loadRow(name, result));
+    const cores = availableParallelism();
+    console.log(
+      `two instances ÷ one: ${(scaled[1][1].perSecond / scaled[0][1].perSecond).toFixed(2)} (aim ≥ 1.6 given cores enough; this machine has ${cores} core${cores === 1 ? "" : "s"}` +
+        `${cores < 4 ? ", too few: two app processes, the proxy, the clients and MariaDB share them" : ""})`,
+    );
   } finally {
-    server.kill("SIGTERM");
-    await new Promise((resolve) => server.once("exit", resolve));
+    for (const child of servers) {
+      if (child.exitCode !== null) continue;
+      child.kill("SIGTERM");
+      await new Promise((resolve) => child.once("exit", resolve));
+    }
   }
 }
 
