@@ -9,7 +9,7 @@
  */
 import { randomBytes, createHash } from "node:crypto";
 import { QueryTypes } from "sequelize";
-import { db, closeDb } from "../models";
+import { db, closeDb, withDatabaseLock } from "../models";
 import type { User, BenchToken } from "../models";
 import { demoInstruments, demoUploads } from "../models/seeders/demo-measurements";
 import { demoPassword } from "../models/seeders/demo-scenario";
@@ -135,7 +135,8 @@ async function main() {
   console.error(`[benchfold] demo catalog: ${catalog.length ? `released ${catalog.join(", ")}` : "already there"} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
 }
 
-main()
+// Under a database lock, like the migrations: two instances booting together load the demo once.
+withDatabaseLock(db().sequelize, "benchfold-demo", 600, main)
   .catch((error) => {
     console.error("[benchfold] demo measurements failed:", error instanceof Error ? error.message : error);
     process.exitCode = 1;
