@@ -129,7 +129,7 @@ async function main() {
     // One instance against two behind a round-robin proxy, same searches, same clients.
     const secondPort = port + 1;
     servers.push(startServer(secondPort, "bench-catalog-server-2.log"));
-    if (!(await waitFor(`http://localhost:${secondPort}/api/health/ready`, 60_000))) throw new Error(`the second instance did not answer on port ${secondPort} (see .data/logs/bench-catalog-server-2.log)`);
+    if (!(await waitFor(`http://localhost:${secondPort}/api/health/live`, 60_000))) throw new Error(`the second instance did not answer on port ${secondPort} (see .data/logs/bench-catalog-server-2.log)`);
     await hammer((n) => `http://localhost:${secondPort}/api/v1/sheets?${searches[n % searches.length]}`, { clients, seconds: 5 });
     const scaled: [string, LoadResult][] = [];
     for (const upstreams of [[port], [port, secondPort]]) {
