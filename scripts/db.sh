@@ -46,6 +46,11 @@ start() {
       --skip-test-db --skip-name-resolve >"$BENCHFOLD_DATA_DIR/logs/mariadb-install.log" 2>&1 \
       || die "mariadb-install-db failed: see $BENCHFOLD_DATA_DIR/logs/mariadb-install.log"
   fi
+  # One started by an older db.sh writes no binary log, which a replica (scripts/replica.sh) needs.
+  if ping_db && [ "$(client -N -e 'SELECT @@log_bin' 2>/dev/null)" = 0 ]; then
+    log "MariaDB on $DB_PORT was started without a binary log: restarting it with one"
+    mariadb-admin --no-defaults --socket="$SOCK" -uroot shutdown
+  fi
   if ping_db; then
     log "MariaDB already running on 127.0.0.1:$DB_PORT"
   else
