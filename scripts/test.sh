@@ -43,6 +43,8 @@ cleanup() {
   [ -n "$SERVER_PID" ] && kill "$SERVER_PID" 2>/dev/null
   [ -n "$OUTBOX_WORKER_PID" ] && kill "$OUTBOX_WORKER_PID" 2>/dev/null
   [ -n "${FAKE_SMTP_PID:-}" ] && kill "$FAKE_SMTP_PID" 2>/dev/null
+  # The read-replica test stops its replica; this one only if the test was cut short.
+  [ -S "$BENCHFOLD_DATA_DIR/run/replica.sock" ] && bash scripts/replica.sh stop >/dev/null 2>&1
   true
 }
 trap cleanup EXIT
