@@ -11,6 +11,9 @@ ensure_debian_packages mariadbd:mariadb-server curl:curl
 ensure_node_modules
 load_env
 bash scripts/db.sh start
+# Files: the configured bucket, or the local fake S3 store (before migrating: a migration moves files to it).
+FAKE_S3_PID=""
+start_fake_s3
 run_tsx scripts/migrate.ts
 run_tsx scripts/seed.ts
 
@@ -18,7 +21,7 @@ run_tsx scripts/seed.ts
 SERVER_PID=""; FAKE_SMTP_PID=""; OUTBOX_WORKER_PID=""
 stop_children() {
   local pid
-  for pid in "$SERVER_PID" "$OUTBOX_WORKER_PID" "$FAKE_SMTP_PID"; do [ -n "$pid" ] && kill "$pid" 2>/dev/null; done
+  for pid in "$SERVER_PID" "$OUTBOX_WORKER_PID" "$FAKE_SMTP_PID" "$FAKE_S3_PID"; do [ -n "$pid" ] && kill "$pid" 2>/dev/null; done
   true
 }
 trap stop_children EXIT
