@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # A private MariaDB instance for Benchfold: own data directory (.data/mariadb), own port and
-# socket, bound to 127.0.0.1. Usage: scripts/db.sh start|stop|status|reset <database>
+# socket, bound to 127.0.0.1. Usage: scripts/db.sh start|stop|status|reset <database>|create <database>
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 load_env
@@ -80,5 +80,7 @@ case "${1:-}" in
     ping_db || start
     client -e "DROP DATABASE IF EXISTS \`$db\`;"
     ensure_database "$db" ;;
-  *) echo "usage: $0 start|stop|status|reset <test-database>" >&2; exit 2 ;;
+  # An empty database for the app user (npm run restore's target), left as it is when it exists.
+  create) ping_db || start; ensure_database "${2:?database name}" ;;
+  *) echo "usage: $0 start|stop|status|reset <test-database>|create <database>" >&2; exit 2 ;;
 esac
