@@ -18,6 +18,7 @@ import path from "node:path";
 import { performance } from "node:perf_hooks";
 import { Worker } from "node:worker_threads";
 import { expect, it, vi } from "vitest";
+import { ensureBenchStore } from "./bench-store";
 import type { SheetInput, SheetModel } from "@/lib/sheet";
 
 vi.mock("server-only", () => ({}));
@@ -145,6 +146,8 @@ it("times the release of the bench doubler sheet", { timeout: 900_000 }, async (
     await closeDb();
     return;
   }
+  // The release writes its PDF to the object store: the configured one, or a local fake.
+  const benchStore = await ensureBenchStore();
   const { PdfRenderPool } = await import("@/lib/server/pdf/pdf-render-pool");
   const { buildRenderWorkerForNode } = await import("../../tests/unit/pdf/workers/build-render-worker");
   const workerFile = await buildRenderWorkerForNode();
@@ -159,6 +162,7 @@ it("times the release of the bench doubler sheet", { timeout: 900_000 }, async (
   } finally {
     await pool.close();
     await closeDb();
+    await benchStore.stop();
   }
 });
 

@@ -128,7 +128,7 @@ describe("reading a stored file", () => {
 });
 
 describe("a release", () => {
-  it("leaves no revision and answers 503 when the store refuses the PDF; releases once it takes it", async () => {
+  it("leaves no revision and answers 503 when the store refuses the PDF; releases once it takes it", { timeout: 180_000 }, async () => {
     const deviceId = await deviceWithApprovedData(org.organization.id, as("engineer"), as("reviewer"));
     const candidate = await submitDraft(as("engineer"), deviceId);
     expect((await sign(as("reviewer"), candidate.id)).status).toBe(200);
