@@ -59,6 +59,8 @@ load_env() {
   export BENCHFOLD_DATA_DIR="${BENCHFOLD_DATA_DIR:-$BENCHFOLD_ROOT/.data}"
   export PORT="${PORT:-3000}"
   export NEXTAUTH_URL="${NEXTAUTH_URL:-http://localhost:$PORT}"
+  # @aws-sdk/client-s3 is pinned at a release that runs on Node 20 (TOOLCHAIN.md); its notice that later releases want Node 22 is known.
+  export AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED="${AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED:-true}"
   if [ -z "${NEXTAUTH_SECRET:-}" ]; then
     mkdir -p "$BENCHFOLD_DATA_DIR"
     [ -s "$BENCHFOLD_DATA_DIR/nextauth-secret" ] || node -e 'process.stdout.write(require("crypto").randomBytes(32).toString("base64url"))' > "$BENCHFOLD_DATA_DIR/nextauth-secret"

@@ -1,7 +1,7 @@
 /**
  * Migration 20261203-1500 (files to the object store) on a database of its own
  * (benchfold_migrate_test, emptied by scripts/db.sh reset), migrated to the step before it and
- * filled with files the old way (bytes in stored_files and sheet_revisions.pdf, foreign keys off):
+ * filled with files the old way (bytes in stored_files and sheet_revisions.pdf):
  * - a row whose bytes are not its recorded SHA-256 stops the migration naming the row, and the
  *   bytes stay in the database;
  * - run again once the row is repaired, it carries on (rows already moved keep their key), puts
@@ -38,7 +38,17 @@ beforeAll(async () => {
   await createMigrator(sequelize).up({ to: "20261202-0920-spec-limit-typed-decimals.ts" });
   await sequelize.transaction(async (transaction) => {
     const q = (sql: string, replacements: unknown[]) => sequelize.query(sql, { replacements, transaction });
-    await q("SET FOREIGN_KEY_CHECKS = 0", []);
+    // The parents the file rows point at (a migration's ALTER TABLE checks every foreign key).
+    await q("INSERT INTO organizations (id, slug, name, kind, created_at, updated_at) VALUES (1, 'migration-test', 'Migration Test', 'vendor', NOW(3), NOW(3))", []);
+    await q("INSERT INTO users (id, organization_id, email, name, password_hash, role, created_at, updated_at) VALUES (1, 1, 'm@migration-test.example', 'M', 'x', 'engineer', NOW(3), NOW(3))", []);
+    await q("INSERT INTO devices (id, organization_id, part_number, device_class, title, description, key_conditions, created_at, updated_at) VALUES (1, 1, 'MIGR-1', 'doubler', 'Migration test', '', '{}', NOW(3), NOW(3))", []);
+    for (const id of [1, 2]) {
+      await q(
+        `INSERT INTO sheet_candidates (id, organization_id, device_id, state, model_json, model_digest, model_date, acknowledgements, note, required_signatures, submitted_by_id, submitted_at, created_at, updated_at)
+         VALUES (?, 1, 1, 'released', '{}', REPEAT('0', 64), '2026-12-01', '[]', '', 1, 1, NOW(3), NOW(3), NOW(3))`,
+        [id],
+      );
+    }
     for (const [i, bytes] of files.entries()) {
       // The second file's recorded SHA-256 is wrong: the first run must stop there.
       const recorded = i === 1 ? "f".repeat(64) : sha(bytes);
@@ -51,7 +61,6 @@ beforeAll(async () => {
         [i + 1, i + 1, i + 1, "AB"[i], i === 0 ? null : 1, pdf, sha(pdf), pdf.length, `MIGR${i}-${randomBytes(3).toString("hex")}`],
       );
     }
-    await q("SET FOREIGN_KEY_CHECKS = 1", []);
   });
 }, 180_000);
 

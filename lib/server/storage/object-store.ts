@@ -79,18 +79,23 @@ export async function readVerified(store: ObjectStore, record: { key: string; sh
 
 /** The S3 driver (AWS SDK for JavaScript v3): AWS itself or any S3-compatible endpoint. */
 export function createS3ObjectStore(settings: StorageSettings, options: { timeoutMs?: number; maxAttempts?: number } = {}): ObjectStore {
-  const client = new S3Client({
-    region: settings.region,
-    ...(settings.endpoint ? { endpoint: settings.endpoint } : {}),
-    forcePathStyle: settings.forcePathStyle,
-    ...(settings.credentials ? { credentials: settings.credentials } : {}),
-    maxAttempts: options.maxAttempts ?? 3,
-    // Our own SHA-256 goes with each write (ChecksumSHA256, checked by S3 on arrival) and each read
-    // is verified against the database's record; no second CRC on top.
-    requestChecksumCalculation: "WHEN_REQUIRED",
-    responseChecksumValidation: "WHEN_REQUIRED",
-    requestHandler: { requestTimeout: options.timeoutMs ?? 30_000, connectionTimeout: Math.min(options.timeoutMs ?? 30_000, 5_000) },
-  });
+  const makeClient = (maxAttempts: number, timeoutMs: number) =>
+    new S3Client({
+      region: settings.region,
+      ...(settings.endpoint ? { endpoint: settings.endpoint } : {}),
+      forcePathStyle: settings.forcePathStyle,
+      ...(settings.credentials ? { credentials: settings.credentials } : {}),
+      maxAttempts,
+      // Our own SHA-256 goes with each write (ChecksumSHA256, checked by S3 on arrival) and each read
+      // is verified against the database's record; no second CRC on top.
+      requestChecksumCalculation: "WHEN_REQUIRED",
+      responseChecksumValidation: "WHEN_REQUIRED",
+      requestHandler: { requestTimeout: timeoutMs, connectionTimeout: Math.min(timeoutMs, 5_000) },
+    });
+  const client = makeClient(options.maxAttempts ?? 3, options.timeoutMs ?? 30_000);
+  // The readiness probe asks once, without the SDK's retries and their back-off: a load balancer
+  // asks again in a few seconds anyway, and the probe must answer within its own time limit.
+  let probeClient: S3Client | null = null;
   const bucket = settings.bucket;
   const full = (key: string) => `${settings.prefix}${key}`;
   const description = `s3://${bucket}/${settings.prefix}${settings.endpoint ? ` at ${settings.endpoint}` : ""}`;
@@ -137,7 +142,7 @@ export function createS3ObjectStore(settings: StorageSettings, options: { timeou
     },
     async probe() {
       try {
-        await client.send(new HeadBucketCommand({ Bucket: bucket }));
+        await (probeClient ??= makeClient(1, Math.min(options.timeoutMs ?? 30_000, 1_500))).send(new HeadBucketCommand({ Bucket: bucket }));
       } catch (error) {
         throw new StorageUnavailableError("The file store cannot be reached.", error);
       }
