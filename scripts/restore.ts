@@ -1,9 +1,10 @@
 /**
- * npm run restore -- <backup folder>: brings a backup of npm run backup into a fresh database and store.
+ * npm run restore -- <backup folder> [--database NAME] [--bucket NAME]: brings a backup of npm run
+ * backup into a fresh database and store.
  *
- * The target is the database DB_NAME (it must have no tables: a restore never merges into live data;
+ * The target is the database `--database` (default DB_NAME; it must have no tables: a restore never merges into live data;
  * on this machine's own MariaDB it is created when missing, through scripts/db.sh create) and the
- * bucket S3_BUCKET (created when missing). Before anything is written, the dump and every object file
+ * bucket `--bucket` (default S3_BUCKET) of the configured store (created when missing). Before anything is written, the dump and every object file
  * are checked against the manifest's SHA-256 and size; a mismatch stops the restore naming the file.
  * Then the dump is loaded with Debian's `mariadb` client (DEFINER clauses removed, so the restoring
  * user owns the triggers), the objects are written to the store, and every object the restored
@@ -47,14 +48,15 @@ async function requireEmptyDatabase(settings: DatabaseSettings): Promise<void> {
   try {
     tables = await count();
   } catch (error) {
-    const unknown = /Unknown database|ER_BAD_DB_ERROR|1049/.test(String((error as Error).message) + String((error as { parent?: { code?: string } }).parent?.code));
+    // 1049: no such database; 1044: the user may not see it (MariaDB says so for a missing one it has no grant on).
+    const unknown = /Unknown database|ER_BAD_DB_ERROR|no: 1049|Access denied for user .* to database|ER_DBACCESS_DENIED_ERROR|no: 1044/.test(String((error as Error).message) + String((error as { parent?: { code?: string } }).parent?.code));
     if (!unknown) throw error;
     if (!isLoopback(settings.host)) throw new Error(`database ${settings.database} does not exist on ${settings.host}: create it (empty) first`);
     const made = spawnSync("bash", [path.join(__dirname, "db.sh"), "create", settings.database], { stdio: "inherit" });
     if (made.status !== 0) throw new Error(`could not create database ${settings.database} (scripts/db.sh create)`);
     tables = await count();
   }
-  if (tables > 0) throw new Error(`database ${settings.database} has ${tables} tables: a restore goes into an empty database (set DB_NAME to a new one)`);
+  if (tables > 0) throw new Error(`database ${settings.database} has ${tables} tables: a restore goes into an empty database (name a new one with --database)`);
 }
 
 /** Streams the dump into the `mariadb` client, line by line, without DEFINER clauses. */
@@ -87,8 +89,14 @@ async function main() {
   if (!folder) throw new Error("usage: npm run restore -- <backup folder> (a folder written by npm run backup)");
   if (!existsSync(path.join(folder, "manifest.json"))) throw new Error(`${folder} has no manifest.json: not a backup of npm run backup`);
   const manifest = parseManifest(readFileSync(path.join(folder, "manifest.json"), "utf8"));
-  const database = readDatabaseSettings();
-  const store = createS3ObjectStore(readStorageSettings());
+  const option = (name: string) => {
+    const i = process.argv.indexOf(name);
+    return i >= 0 ? process.argv[i + 1] : undefined;
+  };
+  const databaseName = option("--database") ?? readDatabaseSettings().database;
+  if (!/^[A-Za-z0-9_]+$/.test(databaseName)) throw new Error(`database name "${databaseName}" must be letters, digits and _`);
+  const database = { ...readDatabaseSettings(), database: databaseName };
+  const store = createS3ObjectStore(readStorageSettings({ ...process.env, S3_BUCKET: option("--bucket") ?? process.env.S3_BUCKET }));
   const started = Date.now();
 
   // Everything is checked before anything is written.
