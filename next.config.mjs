@@ -25,6 +25,7 @@ const nextConfig = {
   serverExternalPackages: [
     "sequelize",
     "mariadb",
+    "@aws-sdk/client-s3",
     "@resvg/resvg-js",
     "vega",
     "vega-lite",

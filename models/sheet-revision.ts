@@ -1,8 +1,9 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
 /**
- * A released revision (append-only by trigger): the frozen sheet model, the PDF bytes rendered from
- * it once, their SHA-256, the letter, the release notes. A later revision names this one as
+ * A released revision (append-only by trigger): the frozen sheet model, the PDF rendered from it
+ * once (its bytes an object in the file store, here their SHA-256, size and key), the letter, the
+ * release notes. A later revision names this one as
  * `previousRevisionId`, which is what makes it superseded.
  */
 export class SheetRevision extends Model<InferAttributes<SheetRevision>, InferCreationAttributes<SheetRevision>> {
@@ -15,9 +16,13 @@ export class SheetRevision extends Model<InferAttributes<SheetRevision>, InferCr
   declare previousRevisionId: number | null;
   declare modelJson: string;
   declare modelDigest: string;
-  declare pdf: Buffer;
   declare pdfSha256: string;
   declare pdfBytes: number;
+  /**
+   * The PDF's key in the file store: a generated column of pdf_sha256 (the content key of
+   * lib/server/storage/object-key.ts), never written, so a revision row never needs an UPDATE.
+   */
+  declare pdfKey: CreationOptional<string>;
   /** The short verification reference printed in the PDF's footer. */
   declare reference: string;
   declare releaseNotes: string[];
@@ -38,9 +43,9 @@ export class SheetRevision extends Model<InferAttributes<SheetRevision>, InferCr
         previousRevisionId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
         modelJson: { type: DataTypes.TEXT("long"), allowNull: false },
         modelDigest: { type: DataTypes.CHAR(64), allowNull: false },
-        pdf: { type: DataTypes.BLOB("long"), allowNull: false },
         pdfSha256: { type: DataTypes.CHAR(64), allowNull: false },
         pdfBytes: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
+        pdfKey: { type: DataTypes.STRING(80) },
         reference: { type: DataTypes.STRING(16), allowNull: false },
         releaseNotes: { type: DataTypes.JSON, allowNull: false },
         engineerNote: { type: DataTypes.TEXT, allowNull: false },
@@ -53,8 +58,7 @@ export class SheetRevision extends Model<InferAttributes<SheetRevision>, InferCr
         modelName: "SheetRevision",
         tableName: "sheet_revisions",
         updatedAt: false,
-        // The PDF bytes are read only by the download: everything else leaves them in the database.
-        defaultScope: { attributes: { exclude: ["pdf", "modelJson"] } },
+        defaultScope: { attributes: { exclude: ["modelJson"] } },
       },
     );
   }

@@ -1,6 +1,9 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 
-/** Raw bytes of an uploaded file, exactly as received, with their SHA-256. */
+/**
+ * An uploaded file, exactly as received: its bytes are an object in the file store under
+ * `storage_key` (lib/server/storage), its size and SHA-256 are here, and a read checks both.
+ */
 export class StoredFile extends Model<InferAttributes<StoredFile>, InferCreationAttributes<StoredFile>> {
   declare id: CreationOptional<number>;
   declare organizationId: number;
@@ -8,7 +11,7 @@ export class StoredFile extends Model<InferAttributes<StoredFile>, InferCreation
   declare sizeBytes: number;
   declare originalName: string;
   declare contentType: string;
-  declare bytes: Buffer;
+  declare storageKey: string;
   declare createdAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize) {
@@ -20,10 +23,10 @@ export class StoredFile extends Model<InferAttributes<StoredFile>, InferCreation
         sizeBytes: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
         originalName: { type: DataTypes.STRING(255), allowNull: false },
         contentType: { type: DataTypes.STRING(100), allowNull: false },
-        bytes: { type: DataTypes.BLOB("long"), allowNull: false },
+        storageKey: { type: DataTypes.STRING(255), allowNull: false },
         createdAt: DataTypes.DATE(3),
       },
-      { sequelize, modelName: "StoredFile", tableName: "stored_files", updatedAt: false, defaultScope: { attributes: { exclude: ["bytes"] } } },
+      { sequelize, modelName: "StoredFile", tableName: "stored_files", updatedAt: false },
     );
   }
 }

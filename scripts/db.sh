@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # A private MariaDB instance for Benchfold: own data directory (.data/mariadb), own port and
-# socket, bound to 127.0.0.1. Usage: scripts/db.sh start|stop|status|reset <database>
+# socket, bound to 127.0.0.1. Usage: scripts/db.sh start|stop|status|reset <database>|create <database>
 # It writes a row-based binary log (server id 1), so scripts/replica.sh can start a replica of it;
 # the benchfold user creates triggers, which a binary log allows only with
 # log-bin-trust-function-creators.
@@ -90,5 +90,7 @@ case "${1:-}" in
     ping_db || start
     client -e "DROP DATABASE IF EXISTS \`$db\`;"
     ensure_database "$db" ;;
-  *) echo "usage: $0 start|stop|status|reset <test-database>" >&2; exit 2 ;;
+  # An empty database for the app user (npm run restore's target), left as it is when it exists.
+  create) ping_db || start; ensure_database "${2:?database name}" ;;
+  *) echo "usage: $0 start|stop|status|reset <test-database>|create <database>" >&2; exit 2 ;;
 esac

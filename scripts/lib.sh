@@ -59,6 +59,8 @@ load_env() {
   export BENCHFOLD_DATA_DIR="${BENCHFOLD_DATA_DIR:-$BENCHFOLD_ROOT/.data}"
   export PORT="${PORT:-3000}"
   export NEXTAUTH_URL="${NEXTAUTH_URL:-http://localhost:$PORT}"
+  # @aws-sdk/client-s3 is pinned at a release that runs on Node 20 (TOOLCHAIN.md); its notice that later releases want Node 22 is known.
+  export AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED="${AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED:-true}"
 }
 
 # next-auth's signing secret: NEXTAUTH_SECRET when configured, else the one made once in the
@@ -103,6 +105,41 @@ start_fake_smtp() {
     sleep 0.1
   done
   die "fake SMTP did not answer in 10 s"
+}
+
+# Files: a configured S3 bucket (S3_BUCKET, S3_ENDPOINT, ...) or, when none is, the local fake store
+# (scripts/fake-s3.ts: s3rver on 127.0.0.1:$BENCHFOLD_FAKE_S3_PORT, objects in .data/s3-<port>/), with
+# the settings exported so the app, the worker and the migrations use it through the same S3 driver.
+# `start_fake_s3 --empty` starts an empty store (tests). Sets FAKE_S3_PID when it started one.
+start_fake_s3() {
+  FAKE_S3_PID=""
+  if [ -n "${S3_BUCKET:-}" ] && [ "${BENCHFOLD_FAKE_S3:-}" != 1 ]; then log "files in bucket $S3_BUCKET${S3_ENDPOINT:+ at $S3_ENDPOINT}"; return 0; fi
+  export BENCHFOLD_FAKE_S3=1
+  export BENCHFOLD_FAKE_S3_PORT="${BENCHFOLD_FAKE_S3_PORT:-4566}"
+  export BENCHFOLD_FAKE_S3_DIR="${BENCHFOLD_FAKE_S3_DIR:-$BENCHFOLD_DATA_DIR/s3-$BENCHFOLD_FAKE_S3_PORT}"
+  export S3_BUCKET="${S3_BUCKET:-benchfold-local}"
+  export S3_ENDPOINT="http://127.0.0.1:$BENCHFOLD_FAKE_S3_PORT"
+  export S3_REGION="${S3_REGION:-us-east-1}"
+  # The fake's fixed account (s3rver's documented default credentials).
+  export S3_ACCESS_KEY_ID=S3RVER S3_SECRET_ACCESS_KEY=S3RVER
+  local health="$S3_ENDPOINT/_fake/health"
+  if curl -fsS "$health" >/dev/null 2>&1; then
+    log "fake S3 already answering on $BENCHFOLD_FAKE_S3_PORT${1:+ (not emptied: another run may be using it)}"
+    # A fault test may have left it refusing requests: back to normal.
+    curl -fsS -X PUT -d '{}' "$S3_ENDPOINT/_fake/faults" >/dev/null 2>&1 || true
+    return 0
+  fi
+  mkdir -p "$BENCHFOLD_DATA_DIR/logs"
+  node "$BENCHFOLD_ROOT/node_modules/tsx/dist/cli.mjs" "$BENCHFOLD_ROOT/scripts/fake-s3.ts" "$@" \
+    >"$BENCHFOLD_DATA_DIR/logs/fake-s3-$BENCHFOLD_FAKE_S3_PORT.log" 2>&1 &
+  FAKE_S3_PID=$!
+  local i
+  for i in $(seq 1 150); do
+    curl -fsS "$health" >/dev/null 2>&1 && { log "fake S3 store on $S3_ENDPOINT, bucket $S3_BUCKET (files in ${BENCHFOLD_FAKE_S3_DIR#"$BENCHFOLD_ROOT/"})"; return 0; }
+    kill -0 "$FAKE_S3_PID" 2>/dev/null || die "fake S3 did not start: $(tail -5 "$BENCHFOLD_DATA_DIR/logs/fake-s3-$BENCHFOLD_FAKE_S3_PORT.log")"
+    sleep 0.1
+  done
+  die "fake S3 did not answer in 15 s"
 }
 
 # Starts the outbox worker (scripts/outbox-worker.ts: mails the queued review and release notices)

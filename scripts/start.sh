@@ -15,6 +15,9 @@ if uses_external_database; then
 else
   bash scripts/db.sh start
 fi
+# Files: the configured bucket, or the local fake S3 store (before migrating: a migration moves files to it).
+FAKE_S3_PID=""
+start_fake_s3
 run_tsx scripts/migrate.ts
 run_tsx scripts/seed.ts
 ensure_shared_secret
@@ -23,7 +26,7 @@ ensure_shared_secret
 SERVER_PID=""; FAKE_SMTP_PID=""; OUTBOX_WORKER_PID=""
 stop_children() {
   local pid
-  for pid in "$SERVER_PID" "$OUTBOX_WORKER_PID" "$FAKE_SMTP_PID"; do [ -n "$pid" ] && kill "$pid" 2>/dev/null; done
+  for pid in "$SERVER_PID" "$OUTBOX_WORKER_PID" "$FAKE_SMTP_PID" "$FAKE_S3_PID"; do [ -n "$pid" ] && kill "$pid" 2>/dev/null; done
   true
 }
 trap stop_children EXIT

@@ -15,6 +15,11 @@ export DB_NAME="${TEST_DB_NAME:-benchfold_test}"
 export PORT="${TEST_PORT:-3100}"
 export SMTP_PORT="${TEST_SMTP_PORT:-2526}"
 export BENCHFOLD_MAILBOX_PORT="${TEST_MAILBOX_PORT:-2581}"
+# The run's files go to an empty local fake S3 store of its own (a bucket configured in S3_BUCKET is never used by tests).
+unset S3_ENDPOINT S3_PREFIX
+export BENCHFOLD_FAKE_S3=1 S3_BUCKET=benchfold-test
+export BENCHFOLD_FAKE_S3_PORT="${TEST_S3_PORT:-4567}"
+export BENCHFOLD_FAKE_S3_DIR="${BENCHFOLD_DATA_DIR:-$BENCHFOLD_ROOT/.data}/s3-test-$BENCHFOLD_FAKE_S3_PORT"
 export NEXTAUTH_URL="http://localhost:$PORT"
 export BENCHFOLD_TEST_URL="http://localhost:$PORT"
 # Tests give each client its own address through X-Forwarded-For: the test server treats loopback
@@ -32,6 +37,8 @@ rm -rf "$RESULTS"; mkdir -p "$RESULTS" "$BENCHFOLD_DATA_DIR/logs"
 
 bash scripts/db.sh start || die "MariaDB did not start"
 bash scripts/db.sh reset "$DB_NAME" || die "could not reset $DB_NAME"
+FAKE_S3_PID=""
+start_fake_s3 --empty
 run_tsx scripts/migrate.ts || die "migrations failed"
 run_tsx scripts/seed.ts || die "seeding failed"
 # The secret is made in the (fresh) database, as npm start's is: a second instance reads the same one.
@@ -45,6 +52,7 @@ cleanup() {
   [ -n "${FAKE_SMTP_PID:-}" ] && kill "$FAKE_SMTP_PID" 2>/dev/null
   # The read-replica test stops its replica; this one only if the test was cut short.
   [ -S "$BENCHFOLD_DATA_DIR/run/replica.sock" ] && bash scripts/replica.sh stop >/dev/null 2>&1
+  [ -n "${FAKE_S3_PID:-}" ] && kill "$FAKE_S3_PID" 2>/dev/null
   true
 }
 trap cleanup EXIT

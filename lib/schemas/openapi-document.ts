@@ -252,7 +252,7 @@ export function buildOpenApiDocument(): OpenApiDocument {
           operationId: "getReadiness",
           summary: "Readiness of this app instance, for a load balancer",
           description:
-            "Checks the database (a `SELECT 1`), the file storage (a read of the file table: files are kept in the database) and the mail relay (it greets with 220), " +
+            "Checks the database (a `SELECT 1`), the file storage (a HEAD of its S3 bucket) and the mail relay (it greets with 220), " +
             "each within BENCHFOLD_READY_TIMEOUT_MS (2 s). 503 from the moment the instance begins to shut down. Never cached (`no-store`); no session. " +
             "Liveness (the process answers, no checks) is `GET /api/health/live`.",
           responses: {

@@ -18,6 +18,7 @@ import path from "node:path";
 import { performance } from "node:perf_hooks";
 import { Worker } from "node:worker_threads";
 import { expect, it, vi } from "vitest";
+import { ensureBenchStore } from "./bench-store";
 import type { SheetInput, SheetModel } from "@/lib/sheet";
 
 vi.mock("server-only", () => ({}));
@@ -68,7 +69,7 @@ async function storeBenchDevice(input: SheetInput) {
   const [engineer, reviewer] = [await person("engineer"), await person("reviewer")];
   const { organizationName: _name, ...fields } = input.device;
   const device = await Device.create({ ...fields, organizationId: organization.id, createdById: engineer.id } as never);
-  const file = await StoredFile.create({ organizationId: organization.id, sha256: "0".repeat(64), sizeBytes: 1, originalName: "bench.csv", contentType: "text/csv", bytes: Buffer.from("x") });
+  const file = await StoredFile.create({ organizationId: organization.id, sha256: "0".repeat(64), sizeBytes: 1, originalName: "bench.csv", contentType: "text/csv", storageKey: "sha256/00/placeholder-never-read" });
   const instrumentIds = new Map<string, number>();
   for (const set of input.approvedSets) {
     const created = await MeasurementSet.create({
@@ -119,9 +120,11 @@ async function releaseOnce(bench: Awaited<ReturnType<typeof storeBenchDevice>>, 
   const freshnessMs = spent.modelMs.splice(0).reduce((a, b) => a + b, 0);
   const pdfMs = spent.pdfMs.splice(0).reduce((a, b) => a + b, 0);
 
-  const stored = (await SheetRevision.unscoped().findByPk(revision.id, { attributes: ["pdf", "modelJson", "pdfSha256"] }))!;
+  const stored = (await SheetRevision.unscoped().findByPk(revision.id, { attributes: ["pdfKey", "modelJson", "pdfSha256"] }))!;
+  const { objectStore } = await import("@/lib/server/storage/stored-objects");
+  const pdf = await objectStore().get(stored.pdfKey);
   t0 = performance.now();
-  const sha = createHash("sha256").update(stored.pdf).digest("hex");
+  const sha = createHash("sha256").update(pdf).digest("hex");
   const hashMs = performance.now() - t0;
   expect(sha).toBe(stored.pdfSha256);
   // The reference, in the same process: one more render of the released model through the same pool.
@@ -129,7 +132,7 @@ async function releaseOnce(bench: Awaited<ReturnType<typeof storeBenchDevice>>, 
   await spent.pool!.render(JSON.parse(stored.modelJson) as SheetModel);
   const referencePdfMs = performance.now() - t0;
   const released = JSON.parse(stored.modelJson) as SheetModel;
-  return { rows: released.specifications.rows.length, charts: released.charts.length, submitMs, freezeMs, signMs, releaseMs, freshnessMs, pdfMs, hashMs, referencePdfMs, pdfKb: stored.pdf.length / 1024 };
+  return { rows: released.specifications.rows.length, charts: released.charts.length, submitMs, freezeMs, signMs, releaseMs, freshnessMs, pdfMs, hashMs, referencePdfMs, pdfKb: pdf.length / 1024 };
 }
 
 it("times the release of the bench doubler sheet", { timeout: 900_000 }, async () => {
@@ -143,6 +146,8 @@ it("times the release of the bench doubler sheet", { timeout: 900_000 }, async (
     await closeDb();
     return;
   }
+  // The release writes its PDF to the object store: the configured one, or a local fake.
+  const benchStore = await ensureBenchStore();
   const { PdfRenderPool } = await import("@/lib/server/pdf/pdf-render-pool");
   const { buildRenderWorkerForNode } = await import("../../tests/unit/pdf/workers/build-render-worker");
   const workerFile = await buildRenderWorkerForNode();
@@ -157,6 +162,7 @@ it("times the release of the bench doubler sheet", { timeout: 900_000 }, async (
   } finally {
     await pool.close();
     await closeDb();
+    await benchStore.stop();
   }
 });
 

@@ -114,6 +114,7 @@ export async function seedSyntheticCatalog(sequelize: Sequelize, opts: { devices
 
   const placeholderModel = JSON.stringify({ synthetic: "catalog benchmark" });
   const digest = createHash("sha256").update(placeholderModel).digest("hex");
+  // Only the record: the catalog search never reads a PDF, so no object is written to the store.
   const pdf = Buffer.from("%PDF-1.4\n% synthetic placeholder for the catalog benchmark\n");
   const pdfSha = createHash("sha256").update(pdf).digest("hex");
 
@@ -139,10 +140,10 @@ export async function seedSyntheticCatalog(sequelize: Sequelize, opts: { devices
     await insertRows(
       sequelize,
       "sheet_revisions",
-      ["organization_id", "device_id", "candidate_id", "sequence", "letter", "previous_revision_id", "model_json", "model_digest", "pdf", "pdf_sha256", "pdf_bytes", "reference", "release_notes", "engineer_note", "released_by_id", "released_at", "created_at"],
+      ["organization_id", "device_id", "candidate_id", "sequence", "letter", "previous_revision_id", "model_json", "model_digest", "pdf_sha256", "pdf_bytes", "reference", "release_notes", "engineer_note", "released_by_id", "released_at", "created_at"],
       batch.map((p) => {
         const deviceId = deviceIds.get(p.part)!;
-        return [orgIds[p.org], deviceId, candidates.get(deviceId), letter === "A" ? 1 : 2, letter, previous.get(deviceId) ?? null, placeholderModel, digest, pdf, pdfSha, pdf.length, `SYN${letter}${String(p.n).padStart(6, "0")}`, "[]", "", userIds[p.org], releasedAt(p), releasedAt(p)];
+        return [orgIds[p.org], deviceId, candidates.get(deviceId), letter === "A" ? 1 : 2, letter, previous.get(deviceId) ?? null, placeholderModel, digest, pdfSha, pdf.length, `SYN${letter}${String(p.n).padStart(6, "0")}`, "[]", "", userIds[p.org], releasedAt(p), releasedAt(p)];
       }),
     );
     const revisionIds = new Map(

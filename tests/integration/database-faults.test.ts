@@ -17,8 +17,10 @@
 import { QueryTypes } from "sequelize";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { mulberry32 } from "@/lib/stats/seeded-random";
+import { readVerified } from "@/lib/server/storage/object-store";
 import { closeDb, db } from "@/models";
 import { TestClient } from "./helpers/client";
+import { runStore } from "./helpers/object-store";
 import { killDatabase, startDatabase } from "./helpers/database-process";
 import { clientsByRole, factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
 import { deviceWithApprovedData, release, sign, submitDraft } from "./helpers/reviews";
@@ -136,15 +138,23 @@ async function releaseState(deviceId: number, candidateId: number): Promise<Rele
   const [row] = await db().sequelize.query<ReleaseState>(
     `SELECT
        (SELECT COUNT(*) FROM sheet_revisions WHERE device_id = :deviceId) AS revisions,
-       (SELECT COUNT(*) FROM sheet_revisions WHERE device_id = :deviceId
-          AND LENGTH(pdf) = pdf_bytes AND pdf_bytes > 0 AND SHA2(pdf, 256) = pdf_sha256) AS pdfOk,
        (SELECT state FROM sheet_candidates WHERE id = :candidateId) AS candidateState,
        (SELECT COUNT(*) FROM audit_events WHERE action = 'sheet.released' AND subject_id IN
           (SELECT id FROM sheet_revisions WHERE device_id = :deviceId)) AS audits,
        (SELECT COUNT(*) FROM outbox_messages WHERE event_key = CONCAT('sheet-candidate:', :candidateId, ':released')) AS notices`,
     { type: QueryTypes.SELECT, replacements: { deviceId, candidateId } },
   );
-  return { ...row, revisions: Number(row.revisions), pdfOk: Number(row.pdfOk), audits: Number(row.audits), notices: Number(row.notices) };
+  // A revision's PDF is whole when its object in the file store has the recorded size and SHA-256.
+  const pdfs = await db().sequelize.query<{ pdf_key: string; pdf_sha256: string; pdf_bytes: number }>(
+    "SELECT pdf_key, pdf_sha256, pdf_bytes FROM sheet_revisions WHERE device_id = :deviceId AND pdf_bytes > 0",
+    { type: QueryTypes.SELECT, replacements: { deviceId } },
+  );
+  let pdfOk = 0;
+  for (const p of pdfs) {
+    const ok = await readVerified(runStore(), { key: p.pdf_key, sha256: p.pdf_sha256, sizeBytes: p.pdf_bytes }).then(() => true, () => false);
+    if (ok) pdfOk++;
+  }
+  return { ...row, revisions: Number(row.revisions), pdfOk, audits: Number(row.audits), notices: Number(row.notices) };
 }
 
 describe("MariaDB killed in the middle of a release", () => {

@@ -2,9 +2,10 @@
  * Health and shutdown (DEVELOPERS.md, "Health and shutdown"):
  *
  * (a) GET /api/health/ready on the run's server: 200 with every check, then 503 naming the
- *     database (and the file storage that lives in it) while the run's MariaDB is killed, and 200
- *     again once it is started (tests/integration/helpers/database-process.ts, as the database
- *     fault test does); the answers fit the OpenAPI document and name no address.
+ *     database while the run's MariaDB is killed, and 200 again once it is started
+ *     (tests/integration/helpers/database-process.ts, as the database fault test does); 503 naming
+ *     the storage while the run's fake S3 refuses requests; the answers fit the OpenAPI document and
+ *     name no address.
  * (b) A second app server (scripts/server.mjs, the run's build, the run's database) on a port of
  *     its own gets SIGTERM while a request is in flight (a PATCH whose body is still arriving) and
  *     another has begun (a readiness request whose headers are still arriving): a new connection
@@ -26,6 +27,7 @@ import { closeDb, db } from "@/models";
 import { openApiValidator } from "../helpers/openapi-validator";
 import { TestClient } from "./helpers/client";
 import { killDatabase, startDatabase } from "./helpers/database-process";
+import { setFakeS3Faults } from "./helpers/object-store";
 import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
 import { assertLoopbackDatabase } from "./helpers/loopback";
 
@@ -146,10 +148,10 @@ describe("(a) readiness", () => {
     expect(ready.cacheControl).toBe("no-store");
     expect(ready.body).toMatchObject({ status: "ready", notReady: [] });
     expect(Object.keys(ready.body.checks).sort()).toEqual(["database", "mail", "storage"]);
-    expect(ready.body.note).toMatch(/kept in the database/);
+    expect(ready.body.note).toMatch(/S3-compatible object store/);
     expect(validator.check("/api/health/ready", "get", 200, ready.body)).toBeNull();
     // No address, port or user of the database or the relay in a public answer.
-    const secrets = [process.env.DB_PORT, process.env.SMTP_PORT, process.env.DB_USER ?? "benchfold", "127.0.0.1", "localhost"].filter(Boolean) as string[];
+    const secrets = [process.env.DB_PORT, process.env.SMTP_PORT, process.env.BENCHFOLD_FAKE_S3_PORT, process.env.S3_BUCKET, process.env.DB_USER ?? "benchfold", "127.0.0.1", "localhost"].filter(Boolean) as string[];
     for (const secret of secrets) expect(ready.text).not.toContain(secret);
 
     killDatabase();
@@ -159,7 +161,8 @@ describe("(a) readiness", () => {
         return r.status === 503 && r;
       }, 30_000);
       expect(down.body.status).toBe("not-ready");
-      expect(down.body.notReady).toEqual(["database", "storage"]);
+      // The files are in the object store, which does not go down with the database.
+      expect(down.body.notReady).toEqual(["database"]);
       expect(down.body.checks.database).toMatchObject({ status: "failing" });
       expect(down.body.checks.mail).toMatchObject({ status: "ok" });
       expect(down.cacheControl).toBe("no-store");
@@ -174,7 +177,22 @@ describe("(a) readiness", () => {
       return r.status === 200 && r;
     }, 60_000);
     expect(back.body.status).toBe("ready");
-  }, 120_000);
+
+    await setFakeS3Faults({ reads: "fail" });
+    try {
+      const noStore = await waitFor("503 while the store refuses requests", async () => {
+        const r = await readiness();
+        return r.status === 503 && r;
+      }, 30_000);
+      expect(noStore.body.notReady).toEqual(["storage"]);
+      expect(noStore.body.checks.storage).toMatchObject({ status: "failing", message: "The file store cannot be reached." });
+      expect(validator.check("/api/health/ready", "get", 503, noStore.body)).toBeNull();
+      for (const secret of secrets) expect(noStore.text).not.toContain(secret);
+    } finally {
+      await setFakeS3Faults({});
+    }
+    await waitFor("200 once the store answers", async () => (await readiness()).status === 200, 30_000);
+  }, 150_000);
 });
 
 describe("(b) an app server on SIGTERM", () => {

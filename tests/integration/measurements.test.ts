@@ -3,7 +3,9 @@ import { readFileSync, readdirSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, closeDb } from "@/models";
+import { contentKey } from "@/lib/server/storage/object-key";
 import { TestClient } from "./helpers/client";
+import { runStore } from "./helpers/object-store";
 import { factoryPassword, makeDevice, makeOrganization } from "./helpers/factories";
 import { fixtureUpload, fixturesDir, uploadRowCounts } from "./helpers/uploads";
 
@@ -44,7 +46,9 @@ describe("upload", () => {
     expect(body.measurementSet.conditions.serial).toBe("BFD-0001");
     expect(body.measurementSet.parameters.map((p) => p.name)).toContain("conversion-loss");
     const stored = await StoredFile.unscoped().findOne({ where: { sha256: body.measurementSet.sha256, organizationId: org.organization.id } });
-    expect(Buffer.compare(stored!.bytes, bytes)).toBe(0);
+    // The bytes are an object in the file store under their content key, exactly as uploaded.
+    expect(stored!.storageKey).toBe(contentKey(body.measurementSet.sha256));
+    expect(Buffer.compare(await runStore().get(stored!.storageKey), bytes)).toBe(0);
   });
 
   it("refuses the same bytes again on the device, naming the earlier set", async () => {

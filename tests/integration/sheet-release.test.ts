@@ -241,7 +241,7 @@ describe("release", () => {
   it("records are immutable: raw SQL UPDATE and DELETE are refused on revisions, signatures and withdrawals", async () => {
     const q = (sql: string) => db().sequelize.query(sql, { replacements: [revisionA.id] });
     await expect(q("UPDATE sheet_revisions SET letter = 'Z' WHERE id = ?")).rejects.toThrow(/append-only/);
-    await expect(q("UPDATE sheet_revisions SET pdf = 'x' WHERE id = ?")).rejects.toThrow(/append-only/);
+    await expect(q("UPDATE sheet_revisions SET pdf_sha256 = REPEAT('0', 64) WHERE id = ?")).rejects.toThrow(/append-only/);
     await expect(q("DELETE FROM sheet_revisions WHERE id = ?")).rejects.toThrow(/append-only/);
     const cand = "(SELECT candidate_id FROM sheet_revisions WHERE id = ?)";
     await expect(q(`UPDATE sheet_signatures SET printed_name = 'Someone else' WHERE candidate_id = ${cand}`)).rejects.toThrow(/append-only/);

@@ -19,7 +19,7 @@ export type ReadinessProbes = Record<ReadinessCheckName, (timeoutMs: number) => 
 
 const defaultProbes: ReadinessProbes = { database: probeDatabase, storage: probeStorage, mail: probeMailRelay };
 
-const storageNote = "Stored files (bench files, released PDFs) are kept in the database; the storage check reads their table there.";
+const storageNote = "Stored files (bench files, released PDFs, drawings) are kept in an S3-compatible object store; the storage check asks for its bucket.";
 
 /** BENCHFOLD_READY_TIMEOUT_MS (2000): how long each check may take; the checks run at once. */
 export function readinessTimeoutMs(env: Record<string, string | undefined> = process.env): number {

@@ -4,6 +4,8 @@ import tls from "node:tls";
 import { QueryTypes } from "sequelize";
 import { db } from "@/models";
 import { isDatabaseUnavailable } from "../db/database-unavailable";
+import { StorageUnavailableError } from "../storage/object-store";
+import { objectStore } from "../storage/stored-objects";
 
 /**
  * The probes behind GET /api/health/ready, one per thing the app instance needs to serve. Each
@@ -31,15 +33,16 @@ export async function probeDatabase(): Promise<void> {
 }
 
 /**
- * Stored files (bench files, released PDFs) are rows in MariaDB (stored_files, sheet_revisions.pdf):
- * there is no separate store yet, so this is a read of the file table on the same database. It
- * fails with the database, and also when that table cannot be read (e.g. migrations not run).
+ * The object store that holds the files (bench files, released PDFs, drawings) answers a HEAD of
+ * its bucket with this instance's own client and credentials: a store that is down, a bucket that
+ * is gone and credentials it refuses all count as not ready.
  */
 export async function probeStorage(): Promise<void> {
   try {
-    await db().sequelize.query("SELECT id FROM stored_files LIMIT 1", { type: QueryTypes.SELECT });
+    await objectStore().probe();
   } catch (error) {
-    throw new ReadinessFailure(isDatabaseUnavailable(error) ? "The file store (in the database) cannot be reached." : "The file table cannot be read.", error);
+    if (error instanceof StorageUnavailableError) throw new ReadinessFailure("The file store cannot be reached.", error.detail);
+    throw new ReadinessFailure("The file store is not configured.", error);
   }
 }
 

@@ -17,6 +17,7 @@ import type { MeasurementSetSummary } from "./measurement-set-summary";
 import { maxUploadBytes, type UploadedFile } from "./read-upload-form";
 import { toPlainJson } from "./to-plain-json";
 import { refreshOpenCandidates } from "../reviews/freshness";
+import { storeFile } from "../storage/store-file";
 
 export type UploadActor = { kind: "user"; userId: number } | { kind: "bench-token"; tokenId: number };
 
@@ -113,7 +114,7 @@ function deriveWithSettings(input: { parsed: ParsedMeasurement; fields: UploadFi
 }
 
 /**
- * Parse → derive → store, in one transaction: the raw bytes with their SHA-256, the parsed
+ * Parse → derive → store, in one transaction: the raw bytes (to the file store) with their SHA-256, the parsed
  * data, the derived parameters and the audit event. A bad file leaves nothing behind.
  * Shared by the browser upload and the bench API.
  */
@@ -166,10 +167,9 @@ export async function ingestMeasurement(input: IngestInput): Promise<Measurement
         if (!superseded) throw new AppError("invalid", `Measurement set #${fields.supersedesId} is not on this device.`, { field: "supersedesId" });
         if (superseded.supersededById) throw new AppError("conflict", `Measurement set #${superseded.id} is already superseded by #${superseded.supersededById}.`);
       }
-      const stored = await StoredFile.create(
-        { organizationId, sha256, sizeBytes: file.bytes.byteLength, originalName: file.name, contentType: file.contentType, bytes: Buffer.from(file.bytes) },
-        { transaction },
-      );
+      // The bytes go to the file store last of the checks, inside the transaction: a store that
+      // refuses them throws a 503 and the transaction rolls back, so the upload leaves nothing.
+      const stored = await storeFile({ organizationId, bytes: file.bytes, sha256, originalName: file.name, contentType: file.contentType }, transaction);
       const set = await MeasurementSet.create(
         {
           organizationId,

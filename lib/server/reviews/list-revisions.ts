@@ -7,6 +7,7 @@ import { db } from "@/models";
 import type { Device, Organization, SheetRevision, SheetRevisionWithdrawal, User } from "@/models";
 import { authorize } from "../auth/authorize";
 import { publicSelect } from "../db/public-reads";
+import { readObject } from "../storage/stored-objects";
 import type { SessionUser } from "../auth/session-user";
 
 type RevisionRow = SheetRevision & { SheetRevisionWithdrawal?: SheetRevisionWithdrawal | null };
@@ -94,16 +95,17 @@ export async function findRevisionByReference(reference: string): Promise<Revisi
   return getRevision(row.id);
 }
 
-/** The stored PDF bytes of a released revision, exactly as released. */
+/** The stored PDF bytes of a released revision, exactly as released: read from the file store and checked against its SHA-256. */
 export async function readRevisionPdf(revisionId: number): Promise<{ pdf: Buffer; sha256: string }> {
-  const row = await db().SheetRevision.unscoped().findByPk(revisionId, { attributes: ["pdf", "pdfSha256"] });
+  const row = await db().SheetRevision.unscoped().findByPk(revisionId, { attributes: ["pdfKey", "pdfSha256", "pdfBytes", "letter"] });
   if (!row) throw new AppError("not-found", "No such revision.");
-  return { pdf: row.pdf, sha256: row.pdfSha256 };
+  const pdf = await readObject({ key: row.pdfKey, sha256: row.pdfSha256, sizeBytes: row.pdfBytes }, `the released PDF of Rev. ${row.letter}`);
+  return { pdf, sha256: row.pdfSha256 };
 }
 
 export type ReleasedPdf = { revisionId: number; letter: string; standing: RevisionStanding; sha256: string; pdf: Buffer };
 
-// A revision's PDF bytes never change (the table refuses it), so the last few are kept in memory by
+// A revision's PDF bytes never change (the table refuses it, the key is their hash), so the last few verified ones are kept in memory by
 // revision id; only the revision's standing (current, superseded, withdrawn) is read each time.
 const PDF_ENTRIES = 32;
 const pdfBytes = new Map<number, Buffer>();
@@ -115,7 +117,7 @@ const pdfBytes = new Map<number, Buffer>();
  */
 export async function findReleasedPdf(opts: { organizationSlug: string; partNumber: string; revision: string }): Promise<ReleasedPdf> {
   const current = opts.revision === "current";
-  // The lookup may come from a read replica (public data); the bytes from the primary.
+  // The lookup may come from a read replica (public data); the bytes from the file store.
   const rows = await publicSelect<{ id: number; letter: string; pdf_sha256: string; withdrawn: number; superseded: number }>(
     `SELECT r.id, r.letter, r.pdf_sha256,
             EXISTS (SELECT 1 FROM sheet_revision_withdrawals w WHERE w.revision_id = r.id) AS withdrawn,

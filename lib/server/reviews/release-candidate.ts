@@ -1,5 +1,5 @@
 import "server-only";
-import { createHash, randomInt } from "node:crypto";
+import { randomInt } from "node:crypto";
 import { AppError } from "@/lib/errors";
 import { datasheetPath, signatureMeaningWords } from "@/lib/domain/reviews";
 import type { ReleaseBody } from "@/lib/schemas/reviews";
@@ -13,6 +13,7 @@ import { lockOwnRow } from "../auth/own-row";
 import type { SessionUser } from "../auth/session-user";
 import { serverConfig } from "../config";
 import { sheetPdfRenderPool } from "../pdf/pdf-render-pool";
+import { putObject } from "../storage/stored-objects";
 import { historySummary, modelDigest } from "./candidate-model";
 import { releaseNotesFor } from "./release-notes";
 import { requireFreshCandidate } from "./freshness";
@@ -26,9 +27,11 @@ import type { RevisionSummary } from "@/lib/domain/reviews";
  * Releases an approved candidate, all in one MariaDB transaction: the candidate row is locked
  * (so of concurrent requests exactly one proceeds; the others find it released and get 409), the
  * next revision letter is taken, the released model (the candidate plus letter, date, signatures
- * and verification reference) is frozen, its PDF rendered once and stored with its SHA-256, the
+ * and verification reference) is frozen, its PDF rendered once and written to the file store (its
+ * SHA-256, size and key in the row), the
  * release notes written, the previous revision superseded (named as `previous_revision_id`), the
- * audit event and the notices queued. Any failure rolls all of it back: no revision, no PDF.
+ * audit event and the notices queued. Any failure rolls all of it back: no revision (a PDF already
+ * written stays in the store only as an unreferenced copy under its content key).
  */
 export async function releaseCandidate(opts: { engineer: SessionUser; candidateId: number; body: ReleaseBody }): Promise<RevisionSummary> {
   const { SheetCandidate, SheetRevision, SheetSignature, Organization, Device, sequelize } = db();
@@ -84,6 +87,9 @@ export async function releaseCandidate(opts: { engineer: SessionUser; candidateI
     });
     const json = serializeSheetModel(model);
     const pdf = await sheetPdfRenderPool().render(model);
+    // To the file store before the revision row: a store that refuses the PDF throws a 503 and the
+    // transaction rolls back, so a failed upload leaves no revision.
+    const storedPdf = await putObject({ bytes: pdf, contentType: "application/pdf" });
     const revision = await SheetRevision.create(
       {
         organizationId: candidate.organizationId,
@@ -94,9 +100,8 @@ export async function releaseCandidate(opts: { engineer: SessionUser; candidateI
         previousRevisionId: previous?.id ?? null,
         modelJson: json,
         modelDigest: modelDigest(json),
-        pdf,
-        pdfSha256: createHash("sha256").update(pdf).digest("hex"),
-        pdfBytes: pdf.length,
+        pdfSha256: storedPdf.sha256,
+        pdfBytes: storedPdf.sizeBytes,
         reference,
         releaseNotes: notes,
         engineerNote: body.note,

@@ -3,6 +3,7 @@ import { QueryTypes } from "sequelize";
 import { AppError } from "@/lib/errors";
 import { touchstoneFileNames } from "@/lib/sheet/file-name";
 import { db } from "@/models";
+import { readStoredFile } from "../storage/store-file";
 import { findReleasedRevision, type ReleasedSheet } from "./list-revisions";
 
 /** One Touchstone file behind a released revision: its set, the name it is downloaded under, and where. */
@@ -70,12 +71,13 @@ export async function readReleasedTouchstone(opts: { organizationSlug: string; p
   return { released, file, bytes };
 }
 
-/** A stored set's raw bytes; the caller has decided the set may be read. */
+/** A stored set's raw bytes, checked against their SHA-256; the caller has decided the set may be read. */
 export async function readSetBytes(setId: number): Promise<Buffer> {
-  const rows = await db().sequelize.query<{ bytes: Buffer }>(
-    `SELECT f.bytes FROM measurement_sets ms JOIN stored_files f ON f.id = ms.stored_file_id WHERE ms.id = :setId`,
+  const rows = await db().sequelize.query<{ original_name: string; sha256: string; size_bytes: number; storage_key: string }>(
+    `SELECT f.original_name, f.sha256, f.size_bytes, f.storage_key FROM measurement_sets ms JOIN stored_files f ON f.id = ms.stored_file_id WHERE ms.id = :setId`,
     { type: QueryTypes.SELECT, replacements: { setId } },
   );
-  if (!rows[0]) throw new AppError("not-found", "No such measurement set.");
-  return Buffer.from(rows[0].bytes);
+  const row = rows[0];
+  if (!row) throw new AppError("not-found", "No such measurement set.");
+  return readStoredFile({ storageKey: row.storage_key, sha256: row.sha256, sizeBytes: row.size_bytes, originalName: row.original_name });
 }
