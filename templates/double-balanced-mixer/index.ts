@@ -9,6 +9,7 @@ import {
   temperatureRatings,
   worstVswrRow,
 } from "../common";
+import { doubleBalancedMixerConditions } from "./conditions";
 import type { SheetTemplate, SpecRowTemplate } from "../types";
 
 
@@ -29,6 +30,7 @@ function isolationRow(path: "LO-RF" | "LO-IF" | "RF-IF", basis: SpecRowTemplate[
 /** Passive double-balanced diode mixers. */
 export const doubleBalancedMixerTemplate: SheetTemplate = {
   deviceClass: "double-balanced-mixer",
+  conditions: doubleBalancedMixerConditions,
   measurementKinds: ["frequency-sweep", "two-tone", "touchstone"],
   specifications: {
     conditionColumns: [

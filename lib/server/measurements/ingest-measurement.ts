@@ -6,7 +6,9 @@ import { findSheetTemplate } from "@/templates";
 import { AppError } from "@/lib/errors";
 import { isIngestError, parseMeasurementFile, type ParsedMeasurement } from "@/lib/ingest";
 import { mappingTargets, parseMappedFile, readForeignTable, type MappableKind } from "@/lib/ingest/column-mapping";
-import { mergeUploadConditions, uploadAnalysisSettings, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
+import { deviceClassLabels, isDeviceClass } from "@/lib/domain/device-classes";
+import { uploadConditionFields } from "@/templates/upload-conditions";
+import { checkClassConditions, mergeUploadConditions, uploadAnalysisSettings, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
 import type { UploadFields } from "@/lib/schemas/measurements";
 import { db } from "@/models";
 import type { ColumnMapping, MeasurementSet, StoredFile } from "@/models";
@@ -46,7 +48,9 @@ function metadataFromFields(kind: MappableKind, fields: UploadFields): Record<st
   if (fields.inputFrequencyHz !== undefined) m[kind === "phase-noise" ? "carrier_frequency" : "input_frequency"] = `${fields.inputFrequencyHz} Hz`;
   if (fields.splitterExcessLossDb !== undefined) m.splitter_excess_loss = `${fields.splitterExcessLossDb} dB`;
   if (fields.cableLossDb !== undefined) m.cable_loss = `${fields.cableLossDb} dB`;
-  if (fields.driveLevelDbm !== undefined && (kind === "frequency-sweep" || kind === "two-tone")) m.lo_power = `${fields.driveLevelDbm} dBm`;
+  if (fields.loDriveDbm !== undefined && (kind === "frequency-sweep" || kind === "two-tone")) m.lo_power = `${fields.loDriveDbm} dBm`;
+  if (fields.loFrequencyHz !== undefined && kind === "frequency-sweep") m.lo_frequency = `${fields.loFrequencyHz} Hz`;
+  if (fields.ifFrequencyHz !== undefined && kind === "frequency-sweep") m.if_frequency = `${fields.ifFrequencyHz} Hz`;
   return m;
 }
 
@@ -122,6 +126,9 @@ export async function ingestMeasurement(input: IngestInput): Promise<Measurement
   const { organizationId, deviceId, file, fields, actor } = input;
   const device = await Device.findOne({ where: { id: deviceId, organizationId } });
   if (!device) throw new AppError("not-found", "No such device in your organization.");
+  if (isDeviceClass(device.deviceClass)) {
+    checkClassConditions({ classLabel: deviceClassLabels[device.deviceClass], allowed: uploadConditionFields(device.deviceClass), fields });
+  }
 
   const parsed = await parseUpload({ organizationId, file, fields });
   const warnings = [...parsed.warnings];
