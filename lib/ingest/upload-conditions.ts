@@ -105,6 +105,27 @@ export function checkClassConditions(opts: { classLabel: string; allowed: readon
   }
 }
 
+/**
+ * A mixer's figures carry what they were measured at: the LO drive, LO and IF frequencies (and, for a
+ * spot figure, the RF) the file or the upload stated, where the engine found none in the file itself,
+ * so the sheet's rows state them (templates/double-balanced-mixer). Returns new parameters.
+ */
+export function stampStatedConditions<P extends { conditions: Record<string, string | number> }>(parameters: P[], conditions: MeasurementConditions): P[] {
+  const stamps: [string, number | undefined][] = [
+    ["loPowerDbm", conditions.loDriveDbm],
+    ["loFrequencyHz", conditions.loFrequencyHz],
+    ["ifFrequencyHz", conditions.ifFrequencyHz],
+  ];
+  if (stamps.every(([, v]) => v === undefined) && conditions.rfFrequencyHz === undefined) return parameters;
+  return parameters.map((p) => {
+    const added: Record<string, number> = {};
+    for (const [key, value] of stamps) if (value !== undefined && p.conditions[key] === undefined) added[key] = value;
+    // A band figure's RF is its band; a spot figure (IIP3, P1dB) takes the stated RF.
+    if (conditions.rfFrequencyHz !== undefined && p.conditions.rfFrequencyHz === undefined && p.conditions.startHz === undefined) added.rfFrequencyHz = conditions.rfFrequencyHz;
+    return Object.keys(added).length ? { ...p, conditions: { ...p.conditions, ...added } } : p;
+  });
+}
+
 /** The measurement date an upload states, else the file's own `# date:` line (YYYY-MM-DD); null if neither. */
 export function uploadMeasuredOn(parsed: ParsedMeasurement, fields: Pick<UploadFields, "measuredOn">): string | null {
   if (fields.measuredOn) return fields.measuredOn;

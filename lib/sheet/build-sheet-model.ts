@@ -58,8 +58,7 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
     keyFacts: buildKeyFacts(input.device.keyConditions),
     noDataNotice: sets.length === 0 ? NO_DATA_NOTICE : null,
     specifications: {
-      conditionColumns: template.specifications.conditionColumns.map(({ id, label }) => ({ id, label })),
-      rows: specTable.rows,
+      ...withoutEmptyConditionColumns(template, specTable.rows),
       notes: [...template.specifications.notes],
       basisLegend: BASIS_LEGEND.map((entry) => ({ ...entry })),
       footnotes: specTable.footnotes,
@@ -208,4 +207,17 @@ function buildKeyFacts(conditions: SheetInput["device"]["keyConditions"]): Sheet
     facts.push({ label: "Multiplication factor", value: `×${formatNumber(conditions.multiplicationFactor, { digits: { maxDecimals: 0 } })}`, unit: "" });
   }
   return facts;
+}
+
+/**
+ * The template's condition columns that some row fills, and each row's cells for those: a column no
+ * row uses (the LO frequency of a mixer swept at a fixed IF, the offset of a doubler without phase
+ * noise) would print an empty column across the table.
+ */
+function withoutEmptyConditionColumns(template: SheetTemplate, rows: SheetModel["specifications"]["rows"]) {
+  const used = template.specifications.conditionColumns.map((_, i) => rows.some((row) => row.conditions[i] !== ""));
+  return {
+    conditionColumns: template.specifications.conditionColumns.filter((_, i) => used[i]).map(({ id, label }) => ({ id, label })),
+    rows: rows.map((row) => ({ ...row, conditions: row.conditions.filter((_, i) => used[i]) })),
+  };
 }

@@ -2,13 +2,14 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { UniqueConstraintError } from "sequelize";
 import { analyzeWithSettings, isAnalysisSettingError } from "@/lib/analysis";
+import { restrictTouchstoneToBand } from "@/lib/analysis/touchstone-band";
 import { findSheetTemplate } from "@/templates";
 import { AppError } from "@/lib/errors";
 import { isIngestError, parseMeasurementFile, type ParsedMeasurement } from "@/lib/ingest";
 import { mappingTargets, parseMappedFile, readForeignTable, type MappableKind } from "@/lib/ingest/column-mapping";
 import { deviceClassLabels, isDeviceClass } from "@/lib/domain/device-classes";
 import { uploadConditionFields } from "@/templates/upload-conditions";
-import { checkClassConditions, mergeUploadConditions, uploadAnalysisSettings, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
+import { checkClassConditions, mergeUploadConditions, stampStatedConditions, uploadAnalysisSettings, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
 import type { UploadFields } from "@/lib/schemas/measurements";
 import { db } from "@/models";
 import type { ColumnMapping, MeasurementSet, StoredFile } from "@/models";
@@ -108,12 +109,21 @@ export async function parseUpload(opts: { organizationId: number; file: Uploaded
  */
 function deriveWithSettings(input: { parsed: ParsedMeasurement; fields: UploadFields; deviceClass: string; fileName: string }) {
   const upload = uploadAnalysisSettings(input.fields);
+  const parsed = inStatedBand(input.parsed, input.fields, input.fileName);
   try {
-    return analyzeWithSettings(input.parsed, { upload, template: findSheetTemplate(input.deviceClass)?.analysisDefaults });
+    return analyzeWithSettings(parsed, { upload, template: findSheetTemplate(input.deviceClass)?.analysisDefaults });
   } catch (error) {
     if (isAnalysisSettingError(error)) throw new AppError("invalid", `${input.fileName}: ${error.message}.`, { field: error.field });
     throw error;
   }
+}
+
+/** A network measured over more than the band the upload states is derived over that band (a hybrid's band condition). */
+function inStatedBand(parsed: ParsedMeasurement, fields: UploadFields, fileName: string): ParsedMeasurement {
+  if (parsed.kind !== "touchstone" || fields.bandStartHz === undefined || fields.bandStopHz === undefined) return parsed;
+  const restricted = restrictTouchstoneToBand(parsed.data, { startHz: fields.bandStartHz, stopHz: fields.bandStopHz });
+  if ("problem" in restricted) throw new AppError("invalid", `${fileName}: ${restricted.problem}.`, { field: restricted.field });
+  return { ...parsed, data: restricted.data };
 }
 
 /**
@@ -188,7 +198,7 @@ export async function ingestMeasurement(input: IngestInput): Promise<Measurement
           supersedesId: superseded?.id ?? null,
           conditions,
           parsed: toPlainJson(parsed.data),
-          parameters: derived.parameters,
+          parameters: stampStatedConditions(derived.parameters, conditions),
           curves: toPlainJson(derived.curves),
           warnings,
           measuredOn,

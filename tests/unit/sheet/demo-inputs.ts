@@ -2,7 +2,7 @@ import { analyzeWithSettings } from "@/lib/analysis";
 import { uploadAnalysisSettings } from "@/lib/ingest/upload-conditions";
 import { findSheetTemplate } from "@/templates";
 import { parseMeasurementFile } from "@/lib/ingest";
-import { mergeUploadConditions, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
+import { mergeUploadConditions, stampStatedConditions, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
 import { uploadFieldsSchema } from "@/lib/schemas/measurements";
 import type { ApprovedSetInput, SheetInput } from "@/lib/sheet";
 import { demoConformityUnits } from "@/models/seeders/demo-conformity";
@@ -39,7 +39,7 @@ export function demoSheetInputs(date: string): { partNumber: string; input: Shee
       lot: conditions.lot,
       temperatureC: conditions.temperatureC,
       measuredOn: uploadMeasuredOn(parsed, fields) ?? date,
-      parameters: derived.parameters,
+      parameters: stampStatedConditions(derived.parameters, conditions),
       curves: derived.curves,
       instruments: instruments.map(({ kind, model, serial, calibratedOn, calibrationDueOn, uncertainty }) => ({ kind, model, serial, calibratedOn, calibrationDueOn, uncertainty })),
     });
