@@ -2,6 +2,7 @@ import type { IngestDetail, MappingDetail } from "./upload-request";
 import type { FrequencyUnit } from "@/components/devices/frequency-units";
 import { toHz } from "@/components/devices/frequency-units";
 import { parseDecimalText } from "@/lib/ingest/number";
+import { formatNumber } from "@/lib/format";
 import { impedanceProblem } from "@/lib/domain/analysis-settings";
 import { conditionFieldPairs, conditionFields, type ConditionFieldId } from "@/lib/domain/measurement-conditions";
 
@@ -129,7 +130,7 @@ export function checkConditions(c: UploadConditions, fileCount: number): string 
       if (hz !== undefined && !(hz > 0)) return `${field.label} must be a number above 0.`;
     } else {
       const x = parseDecimalText(typed);
-      if (x !== undefined && (x < field.min || x > field.max)) return `${field.label} must lie between ${field.min} and ${field.max} ${field.unit}.`;
+      if (x !== undefined && (x < field.min || x > field.max)) return `${field.label} must lie between ${formatNumber(field.min)} and ${formatNumber(field.max)} ${field.unit}.`;
     }
   }
   for (const [startId, stopId] of conditionFieldPairs) {
