@@ -106,6 +106,13 @@ export interface AbsoluteMaximumRatingTemplate {
  */
 export interface ClassConditions {
   uploadFields: readonly ConditionFieldId[];
+  /** The class's words for the device's key conditions on the sheet (a mixer's input is its RF, its drive the LO's). */
+  keyConditionWords?: KeyConditionWords;
+}
+
+export interface KeyConditionWords {
+  inputFrequency?: string;
+  driveLevel?: string;
 }
 
 export interface SheetTemplate {

@@ -1,4 +1,4 @@
-import type { TouchstoneData } from "../ingest/types";
+import type { ParsedMeasurement, TouchstoneData } from "../ingest/types";
 
 export type StatedBand = { startHz: number; stopHz: number };
 
@@ -30,4 +30,17 @@ export function restrictTouchstoneToBand(data: TouchstoneData, band: StatedBand)
     sIm.set(data.sIm.subarray(entry * count + first, entry * count + last + 1), entry * kept);
   }
   return { data: { ...data, frequencyHz: f.slice(first, last + 1), sRe, sIm } };
+}
+
+/**
+ * The parse an upload's figures are derived from: a network over the band the upload states (bandStartHz,
+ * bandStopHz), anything else as parsed. One path for the server's upload and the demo snapshots.
+ */
+export function parsedInStatedBand(
+  parsed: ParsedMeasurement,
+  band: { bandStartHz?: number; bandStopHz?: number },
+): { parsed: ParsedMeasurement } | { problem: string; field: "bandStartHz" | "bandStopHz" } {
+  if (parsed.kind !== "touchstone" || band.bandStartHz === undefined || band.bandStopHz === undefined) return { parsed };
+  const restricted = restrictTouchstoneToBand(parsed.data, { startHz: band.bandStartHz, stopHz: band.bandStopHz });
+  return "problem" in restricted ? restricted : { parsed: { ...parsed, data: restricted.data } };
 }

@@ -1,7 +1,7 @@
 import { deviceClassLabels } from "../domain/device-classes";
 import { limitBases, limitBasisWords, revisionStateLabels } from "../domain/sheets";
 import { findSheetTemplate } from "../../templates";
-import type { SheetTemplate } from "../../templates/types";
+import type { KeyConditionWords, SheetTemplate } from "../../templates/types";
 import { compareSets, compareStrings } from "./compare";
 import { formatNumber, formatQuantity, quantityParts, rangeParts } from "../format/quantity";
 import { renderProse } from "./render-prose";
@@ -55,7 +55,7 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
     schemaVersion: 1,
     template: { deviceClass: template.deviceClass, label: classLabel },
     header,
-    keyFacts: buildKeyFacts(input.device.keyConditions),
+    keyFacts: buildKeyFacts(input.device.keyConditions, template.conditions.keyConditionWords),
     noDataNotice: sets.length === 0 ? NO_DATA_NOTICE : null,
     specifications: {
       ...withoutEmptyConditionColumns(template, specTable.rows),
@@ -192,16 +192,16 @@ function buildAbsoluteMaximumRatings(
   return rows;
 }
 
-function buildKeyFacts(conditions: SheetInput["device"]["keyConditions"]): SheetModel["keyFacts"] {
+function buildKeyFacts(conditions: SheetInput["device"]["keyConditions"], words: KeyConditionWords = {}): SheetModel["keyFacts"] {
   const facts: SheetModel["keyFacts"] = [];
   const range = (label: string, r: { min: number; max: number } | undefined) => {
     if (!r) return;
     facts.push({ label, ...rangeParts(r.min, r.max, "Hz") });
   };
-  range("Input frequency", conditions.inputFrequencyHz);
+  range(words.inputFrequency ?? "Input frequency", conditions.inputFrequencyHz);
   range("Output frequency", conditions.outputFrequencyHz);
   if (conditions.driveLevelDbm !== undefined) {
-    facts.push({ label: "Drive level", ...quantityParts(conditions.driveLevelDbm, "dBm", { signed: true, digits: { maxDecimals: 1 } }) });
+    facts.push({ label: words.driveLevel ?? "Drive level", ...quantityParts(conditions.driveLevelDbm, "dBm", { signed: true, digits: { maxDecimals: 1 } }) });
   }
   if (conditions.multiplicationFactor !== undefined) {
     facts.push({ label: "Multiplication factor", value: `×${formatNumber(conditions.multiplicationFactor, { digits: { maxDecimals: 0 } })}`, unit: "" });

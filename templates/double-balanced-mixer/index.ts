@@ -115,7 +115,7 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
     ],
     notes: [
       "Conversion loss is P_RF − P_IF (positive for a lossy mixer). Intercepts are per tone, from slope-1 and slope-3 fits over the small-signal points.",
-      "System impedance 50 Ω; LO drive is the available power at the LO port. A band figure with an IF and no LO was swept at a fixed IF, the LO following the RF.",
+      "System impedance 50 Ω; LO drive is the available power at the LO port. Where a row states an IF and no LO, the RF was swept at that fixed IF with the LO following it.",
     ],
   },
   curves: [

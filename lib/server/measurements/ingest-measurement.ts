@@ -2,7 +2,7 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { UniqueConstraintError } from "sequelize";
 import { analyzeWithSettings, isAnalysisSettingError } from "@/lib/analysis";
-import { restrictTouchstoneToBand } from "@/lib/analysis/touchstone-band";
+import { parsedInStatedBand } from "@/lib/analysis/touchstone-band";
 import { findSheetTemplate } from "@/templates";
 import { AppError } from "@/lib/errors";
 import { isIngestError, parseMeasurementFile, type ParsedMeasurement } from "@/lib/ingest";
@@ -120,10 +120,9 @@ function deriveWithSettings(input: { parsed: ParsedMeasurement; fields: UploadFi
 
 /** A network measured over more than the band the upload states is derived over that band (a hybrid's band condition). */
 function inStatedBand(parsed: ParsedMeasurement, fields: UploadFields, fileName: string): ParsedMeasurement {
-  if (parsed.kind !== "touchstone" || fields.bandStartHz === undefined || fields.bandStopHz === undefined) return parsed;
-  const restricted = restrictTouchstoneToBand(parsed.data, { startHz: fields.bandStartHz, stopHz: fields.bandStopHz });
-  if ("problem" in restricted) throw new AppError("invalid", `${fileName}: ${restricted.problem}.`, { field: restricted.field });
-  return { ...parsed, data: restricted.data };
+  const result = parsedInStatedBand(parsed, fields);
+  if ("problem" in result) throw new AppError("invalid", `${fileName}: ${result.problem}.`, { field: result.field });
+  return result.parsed;
 }
 
 /**
