@@ -7,6 +7,7 @@ import type { DeviceClass } from "../lib/domain/device-classes";
 import type { MeasurementKind } from "../lib/domain/measurements";
 import type { LimitBasis, ProseSectionId } from "../lib/domain/sheets";
 import type { StatedAnalysisSettings } from "../lib/domain/analysis-settings";
+import type { ConditionFieldId } from "../lib/domain/measurement-conditions";
 
 export type { DeviceClass, LimitBasis, ProseSectionId };
 
@@ -99,9 +100,26 @@ export interface AbsoluteMaximumRatingTemplate {
   unit: string;
 }
 
+/**
+ * A class's conditions, in one place per class (templates/<class>/conditions.ts): what an upload
+ * of this class states beside its file (the form's fields and the bench API's, in this order).
+ */
+export interface ClassConditions {
+  uploadFields: readonly ConditionFieldId[];
+  /** The class's words for the device's key conditions on the sheet (a mixer's input is its RF, its drive the LO's). */
+  keyConditionWords?: KeyConditionWords;
+}
+
+export interface KeyConditionWords {
+  inputFrequency?: string;
+  driveLevel?: string;
+}
+
 export interface SheetTemplate {
   /** A name from lib/domain/device-classes.ts, which also holds the class's human name. */
   deviceClass: DeviceClass;
+  /** The class's conditions (templates/<class>/conditions.ts). */
+  conditions: ClassConditions;
   /** Measurement kinds whose approved sets feed the sheet. */
   measurementKinds: MeasurementKind[];
   specifications: {

@@ -1,5 +1,5 @@
 import { buttonClass } from "@/components/ui/button";
-import { selectClass } from "@/components/ui/field";
+import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { NumberQuantity, Quantity, RangeQuantity } from "@/components/ui/quantity";
 import { ScrollTable } from "@/components/ui/scroll-table";
@@ -136,28 +136,9 @@ function MeasuredRange({ curves }: { curves: DesignInCurves }) {
   );
 }
 
-function DesignField({ id, name, label, defaultValue, placeholder, hint, messageId }: { id: string; name: string; label: string; defaultValue: string; placeholder: string; hint: string; messageId?: string }) {
-  return (
-    <div className="space-y-1.5">
-      <label htmlFor={id} className="block text-[0.9375rem] font-semibold">
-        {label}
-      </label>
-      <input
-        id={id}
-        name={name}
-        defaultValue={defaultValue}
-        placeholder={placeholder}
-        maxLength={40}
-        autoComplete="off"
-        aria-invalid={messageId ? true : undefined}
-        aria-describedby={`${id}-hint${messageId ? ` ${messageId}` : ""}`}
-        className={`${selectClass} figure placeholder:text-ink-muted aria-[invalid=true]:border-signal`}
-      />
-      <p id={`${id}-hint`} className="text-sm text-ink-muted">
-        {hint}
-      </p>
-    </div>
-  );
+/** A typed quantity of the design-in form: the house Field, bounded as the API bounds it (40 characters). */
+function DesignField(props: { id: string; name: string; label: string; defaultValue: string; placeholder: string; hint: string; messageId?: string }) {
+  return <Field {...props} maxLength={40} autoComplete="off" figure />;
 }
 
 function DesignInResult({ answer, charts, chartSvgs }: { answer: DesignInAnswer; charts: DesignInChart[]; chartSvgs: Record<string, string> }) {

@@ -90,7 +90,7 @@ export function DeviceView({ device, organizationName, sets, revisions, sheetHre
 
       {conformity ? <ConformitySection watch={conformity.watch} canClose={conformity.canClose} /> : null}
 
-      {upload ? <UploadPanel deviceId={device.id} instruments={upload.instruments} supersedable={supersedable} /> : null}
+      {upload ? <UploadPanel deviceId={device.id} deviceClass={device.deviceClass} instruments={upload.instruments} supersedable={supersedable} /> : null}
     </>
   );
 }

@@ -8,7 +8,7 @@ import { Notice } from "@/components/ui/notice";
 import { kindLabel } from "@/lib/domain/measurements";
 import { findMappingProblems, guessTarget, likeliestKind, metadataFor, type Choice, type MappingMetadata } from "./column-mapping-choices";
 import { MappingTable, MissingMetadataFields } from "./column-mapping-fields";
-import type { UploadConditions } from "./upload-form-data";
+import { unitOf, type UploadConditions } from "./upload-form-data";
 import type { MappingDetail } from "./upload-request";
 
 type ColumnMappingPanelProps = {
@@ -27,7 +27,11 @@ export function ColumnMappingPanel({ fileName, detail, conditions, onCancel, onS
   const targets = useMemo(() => detail.targets[kind] ?? [], [detail, kind]);
   const [choices, setChoices] = useState<Choice[]>(() => detail.headers.map((h) => guessTarget(h, detail.targets[kind] ?? [])));
   const [name, setName] = useState(() => `${fileName.replace(/\.[^.]+$/, "")} columns`);
-  const [metadata, setMetadata] = useState<MappingMetadata>({ frequency: conditions.inputFrequency, frequencyUnit: conditions.inputFrequencyUnit, wantedOrder: "2" });
+  const [metadata, setMetadata] = useState<MappingMetadata>({
+    frequency: conditions.values.inputFrequencyHz ?? "",
+    frequencyUnit: unitOf(conditions, "inputFrequencyHz"),
+    wantedOrder: "2",
+  });
   const [problems, setProblems] = useState<string[]>([]);
   const [error, setError] = useState<string | null>(null);
   const [pending, setPending] = useState(false);

@@ -7,6 +7,7 @@ import { CurveFigure } from "@/components/charts/curve-figure";
 import { formatByteSize, formatDate, formatDateTime } from "@/lib/format";
 import { Notice } from "@/components/ui/notice";
 import { NumberQuantity } from "@/components/ui/quantity";
+import { conditionFieldIds, conditionFields } from "@/lib/domain/measurement-conditions";
 import { ReviewActions } from "./review-actions";
 import { TermGrid } from "@/components/ui/term-grid";
 import { isPlausibilityWarning, PLAUSIBILITY_PREFIX } from "@/lib/ingest/plausibility-warning";
@@ -228,10 +229,13 @@ export function ConditionsList({ set }: { set: MeasurementSetDetail }) {
     ["Serial", k.serial ? <span className="figure">{k.serial}</span> : "—"],
     ["Lot", k.lot ? <span className="figure">{k.lot}</span> : "—"],
     ["Temperature", k.temperatureC === undefined ? "—" : <NumberQuantity value={k.temperatureC} unit="°C" />],
-    ["Input frequency", k.inputFrequencyHz === undefined ? "—" : <NumberQuantity value={k.inputFrequencyHz} unit="Hz" />],
-    ["Drive level", k.driveLevelDbm === undefined ? "—" : <NumberQuantity value={k.driveLevelDbm} unit="dBm" signed />],
-    ["Splitter excess loss", k.splitterExcessLossDb === undefined ? "—" : <NumberQuantity value={k.splitterExcessLossDb} unit="dB" />],
-    ["Cable loss", k.cableLossDb === undefined ? "—" : <NumberQuantity value={k.cableLossDb} unit="dB" />],
+    // The condition fields the upload or the file stated (lib/domain/measurement-conditions.ts), in that list's order.
+    ...conditionFieldIds.flatMap((fieldId): [string, React.ReactNode][] => {
+      const value = k[fieldId];
+      if (value === undefined) return [];
+      const field = conditionFields[fieldId];
+      return [[field.label, <NumberQuantity key={fieldId} value={value} unit={field.unit} signed={field.kind === "power-dbm"} />]];
+    }),
     ...(k.impedanceOhm === undefined ? [] : ([["Impedance", <NumberQuantity key="z" value={k.impedanceOhm} unit="Ω" />]] as [string, React.ReactNode][])),
     ["Measured on", set.measuredOn ? <span className="figure">{formatDate(set.measuredOn)}</span> : "—"],
   ];

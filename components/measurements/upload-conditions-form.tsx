@@ -7,10 +7,13 @@ import { frequencyUnitNames, type FrequencyUnit } from "@/components/devices/fre
 import { selectClass } from "@/components/ui/field";
 import { kindLabel, measurementKindLabels } from "@/lib/domain/measurements";
 import { namedIntegrationBands } from "@/lib/domain/analysis-settings";
-import type { SupersedableSet, UploadConditions } from "./upload-form-data";
+import { conditionFields, type ConditionFieldId } from "@/lib/domain/measurement-conditions";
+import { unitOf, type SupersedableSet, type UploadConditions } from "./upload-form-data";
 
 type UploadConditionsFormProps = {
   conditions: UploadConditions;
+  /** The device class's name, for the sentence saying which conditions it is stated at. */
+  classLabel: string;
   onChange: <K extends keyof UploadConditions>(key: K, value: UploadConditions[K]) => void;
   disabled: boolean;
   instruments: InstrumentSummary[];
@@ -18,45 +21,21 @@ type UploadConditionsFormProps = {
 };
 
 /** The conditions that apply to every file of a batch: unit, environment, set-up, instruments, notes. */
-export function UploadConditionsForm({ conditions, onChange: set, disabled, instruments, supersedable }: UploadConditionsFormProps) {
+export function UploadConditionsForm({ conditions, classLabel, onChange: set, disabled, instruments, supersedable }: UploadConditionsFormProps) {
   const id = useId();
   return (
     <fieldset className="space-y-4" disabled={disabled} data-testid="upload-conditions">
       <legend className="running-head mb-3">Conditions for this batch</legend>
+      <p className="text-sm text-ink-muted" data-testid="upload-class-conditions">
+        A {classLabel.toLowerCase()} is stated at: {conditions.classFields.map((f) => conditionFields[f].label.replace(/^(?!RF|LO|IF)./, (c) => c.toLowerCase())).join(", ")}, besides the unit and temperature.
+      </p>
       <div className="grid gap-4 sm:grid-cols-2">
         <TextInput label="Serial" value={conditions.serial} onChange={(v) => set("serial", v)} hint="Used when the file has no # serial: line" mono />
         <TextInput label="Lot" value={conditions.lot} onChange={(v) => set("lot", v)} mono />
         <UnitInput label="Temperature" unit="°C" value={conditions.temperatureC} onChange={(v) => set("temperatureC", v)} />
-        <div className="space-y-1.5">
-          <label htmlFor={`${id}-fin`} className="block text-[0.9375rem] font-semibold">
-            Input frequency
-          </label>
-          <div className="flex items-center gap-2">
-            <input
-              id={`${id}-fin`}
-              inputMode="decimal"
-              value={conditions.inputFrequency}
-              onChange={(e) => set("inputFrequency", e.target.value)}
-              className={`${selectClass} figure !w-28`}
-            />
-            <label htmlFor={`${id}-fin-unit`} className="sr-only">
-              Input frequency unit
-            </label>
-            <select
-              id={`${id}-fin-unit`}
-              value={conditions.inputFrequencyUnit}
-              onChange={(e) => set("inputFrequencyUnit", e.target.value as FrequencyUnit)}
-              className={`${selectClass} !w-24`}
-            >
-              {frequencyUnitNames.map((u) => (
-                <option key={u}>{u}</option>
-              ))}
-            </select>
-          </div>
-        </div>
-        <UnitInput label="Drive level" unit="dBm" value={conditions.driveLevelDbm} onChange={(v) => set("driveLevelDbm", v)} />
-        <UnitInput label="Splitter excess loss" unit="dB" value={conditions.splitterExcessLossDb} onChange={(v) => set("splitterExcessLossDb", v)} hint="Beyond the ideal 3.01 dB split" />
-        <UnitInput label="Cable loss" unit="dB" value={conditions.cableLossDb} onChange={(v) => set("cableLossDb", v)} />
+        {conditions.classFields.map((fieldId) => (
+          <ClassConditionInput key={fieldId} fieldId={fieldId} conditions={conditions} onChange={set} />
+        ))}
         <div className="space-y-1.5">
           <label htmlFor={`${id}-date`} className="block text-[0.9375rem] font-semibold">
             Measured on
@@ -153,15 +132,43 @@ function MeasurementSettings({ conditions, onChange: set }: Pick<UploadCondition
   );
 }
 
-function FrequencyInput(props: { label: string; value: string; unit: FrequencyUnit; onValue: (v: string) => void; onUnit: (u: FrequencyUnit) => void }) {
+/** One of the class's condition fields: a frequency with its unit, or a number in dBm or dB. */
+function ClassConditionInput({ fieldId, conditions, onChange: set }: { fieldId: ConditionFieldId } & Pick<UploadConditionsFormProps, "conditions" | "onChange">) {
+  const field = conditionFields[fieldId];
+  const value = conditions.values[fieldId] ?? "";
+  const setValue = (v: string) => set("values", { ...conditions.values, [fieldId]: v });
+  if (field.kind === "frequency") {
+    return (
+      <FrequencyInput
+        label={field.label}
+        hint={field.hint}
+        value={value}
+        unit={unitOf(conditions, fieldId)}
+        onValue={setValue}
+        onUnit={(u) => set("units", { ...conditions.units, [fieldId]: u })}
+        testId={`condition-${fieldId}`}
+      />
+    );
+  }
+  return <UnitInput label={field.label} unit={field.unit} value={value} onChange={setValue} hint={field.hint} testId={`condition-${fieldId}`} />;
+}
+
+function FrequencyInput(props: { label: string; hint?: string; value: string; unit: FrequencyUnit; onValue: (v: string) => void; onUnit: (u: FrequencyUnit) => void; testId?: string }) {
   const id = useId();
   return (
-    <div className="space-y-1.5">
+    <div className="space-y-1.5" data-testid={props.testId}>
       <label htmlFor={id} className="block text-[0.9375rem] font-semibold">
         {props.label}
       </label>
       <div className="flex items-center gap-2">
-        <input id={id} inputMode="decimal" value={props.value} onChange={(e) => props.onValue(e.target.value)} className={`${selectClass} figure !w-28`} />
+        <input
+          id={id}
+          inputMode="decimal"
+          value={props.value}
+          onChange={(e) => props.onValue(e.target.value)}
+          className={`${selectClass} figure !w-28`}
+          aria-describedby={props.hint ? `${id}-hint` : undefined}
+        />
         <label htmlFor={`${id}-unit`} className="sr-only">
           {props.label} unit
         </label>
@@ -171,6 +178,11 @@ function FrequencyInput(props: { label: string; value: string; unit: FrequencyUn
           ))}
         </select>
       </div>
+      {props.hint ? (
+        <p id={`${id}-hint`} className="text-sm text-ink-muted">
+          {props.hint}
+        </p>
+      ) : null}
     </div>
   );
 }
@@ -228,10 +240,10 @@ function TextInput({ label, value, onChange, hint, mono }: { label: string; valu
   );
 }
 
-function UnitInput({ label, unit, value, onChange, hint }: { label: string; unit: string; value: string; onChange: (v: string) => void; hint?: string }) {
+function UnitInput({ label, unit, value, onChange, hint, testId }: { label: string; unit: string; value: string; onChange: (v: string) => void; hint?: string; testId?: string }) {
   const id = useId();
   return (
-    <LabelledInput id={id} label={label} hint={hint}>
+    <LabelledInput id={id} label={label} hint={hint} testId={testId}>
       <div className="flex items-center gap-2">
         <input id={id} inputMode="decimal" value={value} onChange={(e) => onChange(e.target.value)} className={`${selectClass} figure !w-28`} aria-describedby={hint ? `${id}-hint` : undefined} />
         <span className="unit">{unit}</span>
@@ -241,9 +253,9 @@ function UnitInput({ label, unit, value, onChange, hint }: { label: string; unit
 }
 
 /** The label above an input (given as children, with this `id`) and its hint below, as `${id}-hint`. */
-function LabelledInput({ id, label, hint, children }: { id: string; label: string; hint?: string; children: React.ReactNode }) {
+function LabelledInput({ id, label, hint, children, testId }: { id: string; label: string; hint?: string; children: React.ReactNode; testId?: string }) {
   return (
-    <div className="space-y-1.5">
+    <div className="space-y-1.5" data-testid={testId}>
       <label htmlFor={id} className="block text-[0.9375rem] font-semibold">
         {label}
       </label>

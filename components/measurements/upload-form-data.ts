@@ -2,7 +2,9 @@ import type { IngestDetail, MappingDetail } from "./upload-request";
 import type { FrequencyUnit } from "@/components/devices/frequency-units";
 import { toHz } from "@/components/devices/frequency-units";
 import { parseDecimalText } from "@/lib/ingest/number";
+import { formatNumber } from "@/lib/format";
 import { impedanceProblem } from "@/lib/domain/analysis-settings";
+import { conditionFieldPairs, conditionFields, type ConditionFieldId } from "@/lib/domain/measurement-conditions";
 
 /** What the upload form holds for a batch: strings as typed, converted when the form is sent. */
 export type SupersedableSet = { id: number; kind: string; fileName: string; serial?: string };
@@ -21,11 +23,11 @@ export type UploadConditions = {
   serial: string;
   lot: string;
   temperatureC: string;
-  inputFrequency: string;
-  inputFrequencyUnit: FrequencyUnit;
-  driveLevelDbm: string;
-  splitterExcessLossDb: string;
-  cableLossDb: string;
+  /** The device class's own condition fields (templates/<class>/conditions.ts), in the form's order. */
+  classFields: readonly ConditionFieldId[];
+  /** Each condition as typed; a frequency in the unit beside it. */
+  values: Partial<Record<ConditionFieldId, string>>;
+  units: Partial<Record<ConditionFieldId, FrequencyUnit>>;
   measuredOn: string;
   notes: string;
   kind: string;
@@ -41,15 +43,13 @@ export type UploadConditions = {
   impedanceOhm: string;
 };
 
-export const initialConditions: UploadConditions = {
+export const initialConditions = (classFields: readonly ConditionFieldId[]): UploadConditions => ({
   serial: "",
   lot: "",
   temperatureC: "",
-  inputFrequency: "",
-  inputFrequencyUnit: "GHz",
-  driveLevelDbm: "",
-  splitterExcessLossDb: "",
-  cableLossDb: "",
+  classFields,
+  values: {},
+  units: {},
   measuredOn: "",
   notes: "",
   kind: "",
@@ -62,7 +62,21 @@ export const initialConditions: UploadConditions = {
   integrationStopUnit: "MHz",
   compressionReferenceDbm: "",
   impedanceOhm: "",
-};
+});
+
+/** A frequency field's unit until the engineer picks another. */
+export function unitOf(c: UploadConditions, id: ConditionFieldId): FrequencyUnit {
+  return c.units[id] ?? (id === "ifFrequencyHz" ? "MHz" : "GHz");
+}
+
+/** A class field's value as the API takes it (Hz for frequencies); undefined when blank. */
+function classFieldValue(c: UploadConditions, id: ConditionFieldId): string | undefined {
+  const typed = (c.values[id] ?? "").trim().replace("\u2212", "-");
+  if (typed === "") return undefined;
+  if (conditionFields[id].kind !== "frequency") return typed;
+  const hz = toHz(typed, unitOf(c, id));
+  return hz === undefined || Number.isNaN(hz) ? typed : String(hz);
+}
 
 /** The form fields the upload routes read (lib/schemas/measurements uploadFieldsSchema). */
 export function buildForm(file: File, c: UploadConditions): FormData {
@@ -72,9 +86,6 @@ export function buildForm(file: File, c: UploadConditions): FormData {
     ["serial", c.serial],
     ["lot", c.lot],
     ["temperatureC", c.temperatureC],
-    ["driveLevelDbm", c.driveLevelDbm],
-    ["splitterExcessLossDb", c.splitterExcessLossDb],
-    ["cableLossDb", c.cableLossDb],
     ["measuredOn", c.measuredOn],
     ["notes", c.notes],
     ["kind", c.kind],
@@ -83,8 +94,10 @@ export function buildForm(file: File, c: UploadConditions): FormData {
     ["impedanceOhm", c.impedanceOhm],
   ];
   for (const [key, value] of text) if (value.trim() !== "") form.append(key, value.trim().replace("\u2212", "-"));
-  const hz = toHz(c.inputFrequency, c.inputFrequencyUnit);
-  if (hz !== undefined) form.append("inputFrequencyHz", String(hz));
+  for (const id of c.classFields) {
+    const value = classFieldValue(c, id);
+    if (value !== undefined) form.append(id, value);
+  }
   if (c.instrumentIds.length) form.append("instrumentIds", c.instrumentIds.join(","));
   if (c.integrationBand === "custom") {
     const startHz = toHz(c.integrationStart, c.integrationStartUnit);
@@ -100,9 +113,7 @@ export function buildForm(file: File, c: UploadConditions): FormData {
 export function checkConditions(c: UploadConditions, fileCount: number): string | null {
   const numbers: [string, string][] = [
     ["Temperature", c.temperatureC],
-    ["Drive level", c.driveLevelDbm],
-    ["Splitter excess loss", c.splitterExcessLossDb],
-    ["Cable loss", c.cableLossDb],
+    ...c.classFields.map((id): [string, string] => [conditionFields[id].label, c.values[id] ?? ""]),
     ["Compression reference drive", c.compressionReferenceDbm],
     ["Impedance", c.impedanceOhm],
   ];
@@ -111,8 +122,24 @@ export function checkConditions(c: UploadConditions, fileCount: number): string 
   }
   const ohm = parseDecimalText(c.impedanceOhm);
   if (ohm !== undefined && impedanceProblem(ohm)) return `The ${impedanceProblem(ohm)}.`;
-  const hz = toHz(c.inputFrequency, c.inputFrequencyUnit);
-  if (hz !== undefined && !(hz > 0)) return "Input frequency must be a number above 0.";
+  for (const id of c.classFields) {
+    const field = conditionFields[id];
+    const typed = c.values[id] ?? "";
+    if (field.kind === "frequency") {
+      const hz = toHz(typed, unitOf(c, id));
+      if (hz !== undefined && !(hz > 0)) return `${field.label} must be a number above 0.`;
+    } else {
+      const x = parseDecimalText(typed);
+      if (x !== undefined && (x < field.min || x > field.max)) return `${field.label} must lie between ${formatNumber(field.min)} and ${formatNumber(field.max)} ${field.unit}.`;
+    }
+  }
+  for (const [startId, stopId] of conditionFieldPairs) {
+    if (!c.classFields.includes(startId)) continue;
+    const start = toHz(c.values[startId] ?? "", unitOf(c, startId));
+    const stop = toHz(c.values[stopId] ?? "", unitOf(c, stopId));
+    if ((start === undefined) !== (stop === undefined)) return `State both ends: ${conditionFields[startId].label.toLowerCase()} and ${conditionFields[stopId].label.toLowerCase()}.`;
+    if (start !== undefined && stop !== undefined && !(stop > start)) return `The ${conditionFields[stopId].label.toLowerCase()} must lie above the ${conditionFields[startId].label.toLowerCase()}.`;
+  }
   if (c.integrationBand === "custom") {
     const startHz = toHz(c.integrationStart, c.integrationStartUnit);
     const stopHz = toHz(c.integrationStop, c.integrationStopUnit);

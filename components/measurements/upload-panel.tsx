@@ -2,6 +2,8 @@
 
 import { useId, useState } from "react";
 import type { InstrumentSummary } from "@/lib/domain/instruments";
+import { deviceClassLabels, type DeviceClass } from "@/lib/domain/device-classes";
+import { uploadConditionFields } from "@/templates/upload-conditions";
 import { buttonClass } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { ColumnMappingPanel } from "./column-mapping-panel";
@@ -13,11 +15,11 @@ import { UploadRowView } from "./upload-row";
 
 export type { SupersedableSet, UploadConditions } from "./upload-form-data";
 
-type UploadPanelProps = { deviceId: number; instruments: InstrumentSummary[]; supersedable: SupersedableSet[] };
+type UploadPanelProps = { deviceId: number; deviceClass: DeviceClass; instruments: InstrumentSummary[]; supersedable: SupersedableSet[] };
 
-export function UploadPanel({ deviceId, instruments, supersedable }: UploadPanelProps) {
+export function UploadPanel({ deviceId, deviceClass, instruments, supersedable }: UploadPanelProps) {
   const id = useId();
-  const [conditions, setConditions] = useState<UploadConditions>(initialConditions);
+  const [conditions, setConditions] = useState<UploadConditions>(() => initialConditions(uploadConditionFields(deviceClass)));
   const { rows, setRows, updateRow, addFiles, uploadRows, formError, running } = useUploadQueue(deviceId, conditions);
 
   const set = <K extends keyof UploadConditions>(key: K, value: UploadConditions[K]) => setConditions((c) => ({ ...c, [key]: value }));
@@ -35,7 +37,7 @@ export function UploadPanel({ deviceId, instruments, supersedable }: UploadPanel
       </p>
 
       <div className="grid gap-10 lg:grid-cols-[minmax(0,1fr)_minmax(0,1.1fr)]">
-        <UploadConditionsForm conditions={conditions} onChange={set} disabled={running} instruments={instruments} supersedable={supersedable} />
+        <UploadConditionsForm conditions={conditions} classLabel={deviceClassLabels[deviceClass]} onChange={set} disabled={running} instruments={instruments} supersedable={supersedable} />
 
         <div className="min-w-0 space-y-4">
           <UploadDropzone onFiles={addFiles} />

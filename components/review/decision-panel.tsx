@@ -6,6 +6,7 @@ import { signatureMeanings, signatureMeaningWords, type CandidateDetail } from "
 import { buttonClass } from "@/components/ui/button";
 import { selectClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { ReasonField } from "@/components/ui/reason-field";
 import { useJsonForm, type FieldErrors, type FormCheck } from "@/components/use-json-form";
 import type { CandidateDecisionBody } from "@/lib/schemas/reviews";
 
@@ -103,25 +104,7 @@ function RequestChangesForm({ candidateId, onDone }: { candidateId: number; onDo
       </h3>
       <p className="text-[0.9375rem] text-ink-muted">The engineer reads your reason, fixes the sheet and submits it again; this candidate then closes.</p>
       <div className="space-y-1.5">
-        <label htmlFor={`${id}-reason`} className="block text-[0.9375rem] font-semibold">
-          What must change
-        </label>
-        <textarea
-          id={`${id}-reason`}
-          name="reason"
-          rows={4}
-          required
-          minLength={10}
-          maxLength={2000}
-          aria-invalid={errors.reason ? true : undefined}
-          aria-describedby={errors.reason ? `${id}-reason-error` : undefined}
-          className={selectClass}
-        />
-        {errors.reason ? (
-          <p id={`${id}-reason-error`} className="text-sm text-signal-deep">
-            {errors.reason}
-          </p>
-        ) : null}
+        <ReasonField id={id} label="What must change" error={errors.reason} rows={4} />
       </div>
       <button type="submit" disabled={pending} className={buttonClass.secondary}>
         {pending ? "Sending…" : "Request changes"}

@@ -4,7 +4,8 @@
  */
 import { selectClass } from "./field";
 
-export function ReasonField({ id, label, error, placeholder }: { id: string; label: string; error?: string; placeholder?: string }) {
+/** `rows` is the textarea's height (3 by default; the review decision asks for a longer reason and gives 4). */
+export function ReasonField({ id, label, error, placeholder, rows = 3 }: { id: string; label: string; error?: string; placeholder?: string; rows?: number }) {
   return (
     <>
       <label htmlFor={`${id}-reason`} className="block text-[0.8125rem] font-semibold">
@@ -13,7 +14,7 @@ export function ReasonField({ id, label, error, placeholder }: { id: string; lab
       <textarea
         id={`${id}-reason`}
         name="reason"
-        rows={3}
+        rows={rows}
         required
         minLength={10}
         maxLength={2000}

@@ -20,6 +20,7 @@ export function analyzeFrequencySweep(data: FrequencySweep, maxPoints: number): 
   const band: Record<string, number> = { startHz: f[0], stopHz: f[f.length - 1] };
   if (data.loPowerDbm !== undefined) band.loPowerDbm = data.loPowerDbm;
   if (data.ifFrequencyHz !== undefined) band.ifFrequencyHz = data.ifFrequencyHz;
+  if (data.loFrequencyHz !== undefined) band.loFrequencyHz = data.loFrequencyHz;
   const decimate = { maxPoints };
   const xAxis = { label: "Frequency", unit: "Hz", scale: "linear" as const };
 

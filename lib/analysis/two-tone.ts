@@ -25,6 +25,8 @@ export function analyzeTwoTone(data: TwoTone, options: DeriveOptions, maxPoints:
   const base: Record<string, number> = {};
   if (data.toneSpacingHz !== undefined) base.toneSpacingHz = data.toneSpacingHz;
   if (data.loPowerDbm !== undefined) base.loPowerDbm = data.loPowerDbm;
+  // The RF a mixer's intercept is stated at: tone 1 (the product beside it is 2f1 − f2).
+  if (data.tone1FrequencyHz !== undefined) base.rfFrequencyHz = data.tone1FrequencyHz;
 
   const gainDb = tone.map((out, i) => out - input[i]);
   let maxInputPowerDbm = options.twoTone?.maxInputPowerDbm;

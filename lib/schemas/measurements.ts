@@ -4,6 +4,7 @@ import { mappableKinds, measurementKinds } from "@/lib/domain/measurements";
 import { calendarDateSchema, optionalCalendarDateSchema } from "./calendar-date";
 import { impedanceRangeOhm, namedIntegrationBandIds } from "@/lib/domain/analysis-settings";
 import { findProseLimitBreach } from "@/lib/sheet/render-prose";
+import { conditionFieldIds, conditionFieldLabel, conditionFields, type ConditionFieldId } from "@/lib/domain/measurement-conditions";
 import { minNotAboveMax, optionalDecimal, requiredDecimal } from "./decimal";
 
 /** Shared by the upload form, the browser upload route and the bench API. */
@@ -14,10 +15,9 @@ export const measurementConditionsSchema = z.object({
   serial: z.string().trim().max(64).optional(),
   lot: z.string().trim().max(64).optional(),
   temperatureC: optionalNumber(-273.15, 500, "temperature (°C)"),
-  inputFrequencyHz: optionalNumber(1, 3e12, "input frequency (Hz)"),
-  driveLevelDbm: optionalNumber(-200, 60, "drive level (dBm)"),
-  splitterExcessLossDb: optionalNumber(0, 30, "splitter excess loss (dB)"),
-  cableLossDb: optionalNumber(0, 30, "cable loss (dB)"),
+  // The class's own conditions (lib/domain/measurement-conditions.ts); which a device's class asks for is
+  // checked against its template's list by the upload (checkClassConditions), a field of another class is a 422.
+  ...conditionFieldSchemas(),
   measuredOn: optionalCalendarDateSchema,
   notes: z.string().trim().max(2000).optional(),
   // Measurement settings (lib/domain/analysis-settings.ts): a named integration band or its two ends, and the
@@ -32,6 +32,14 @@ export const measurementConditionsSchema = z.object({
   // The impedance power readings are referred to for dBm ↔ Vrms ↔ dBµV; a Touchstone file keeps its own.
   impedanceOhm: optionalNumber(impedanceRangeOhm.min, impedanceRangeOhm.max, "impedance (Ω)"),
 });
+function conditionFieldSchemas() {
+  const entries = conditionFieldIds.map((id) => {
+    const field = conditionFields[id];
+    return [id, optionalNumber(field.min, field.max, conditionFieldLabel(id))] as const;
+  });
+  return Object.fromEntries(entries) as Record<ConditionFieldId, ReturnType<typeof optionalNumber>>;
+}
+
 export type MeasurementConditionsInput = z.infer<typeof measurementConditionsSchema>;
 
 export const uploadFieldsSchema = measurementConditionsSchema.extend({

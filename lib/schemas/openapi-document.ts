@@ -1,5 +1,7 @@
 import { z } from "zod";
 import { uploadFieldsSchema } from "./measurements";
+import { deviceClasses, deviceClassLabels } from "@/lib/domain/device-classes";
+import { uploadConditionFields } from "@/templates/upload-conditions";
 import {
   benchUploadResponseSchema,
   catalogHitSchema,
@@ -75,6 +77,12 @@ function parameters(schema: z.ZodObject, where: "query" | "path"): JsonSchema[] 
       ...(rest.type === "array" ? { style: "form", explode: true } : {}),
     };
   });
+}
+
+/** Which condition fields each device class takes (templates/<class>/conditions.ts); another class's field is a 422. */
+function classConditionsDescription(): string {
+  const lines = deviceClasses.map((c) => `- ${deviceClassLabels[c]}: ${uploadConditionFields(c).map((f) => `\`${f}\``).join(", ")}`);
+  return ["Besides the unit, temperature, date, notes and measurement settings, each device class states its own conditions; a condition field of another class is refused (422 naming it):", ...lines].join("\n");
 }
 
 /** The bench upload's multipart fields: the upload schema's own, each sent as text, plus the file and the part number. */
@@ -231,6 +239,7 @@ export function buildOpenApiDocument(): OpenApiDocument {
         post: {
           operationId: "uploadMeasurement",
           summary: "Upload a bench file (bench token)",
+          description: classConditionsDescription(),
           security: [{ benchToken: [] }],
           requestBody: { required: true, content: { "multipart/form-data": { schema: benchUploadForm() } } },
           responses: {

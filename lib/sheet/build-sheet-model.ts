@@ -1,7 +1,7 @@
 import { deviceClassLabels } from "../domain/device-classes";
 import { limitBases, limitBasisWords, revisionStateLabels } from "../domain/sheets";
 import { findSheetTemplate } from "../../templates";
-import type { SheetTemplate } from "../../templates/types";
+import type { KeyConditionWords, SheetTemplate } from "../../templates/types";
 import { compareSets, compareStrings } from "./compare";
 import { formatNumber, formatQuantity, quantityParts, rangeParts } from "../format/quantity";
 import { renderProse } from "./render-prose";
@@ -55,11 +55,10 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
     schemaVersion: 1,
     template: { deviceClass: template.deviceClass, label: classLabel },
     header,
-    keyFacts: buildKeyFacts(input.device.keyConditions),
+    keyFacts: buildKeyFacts(input.device.keyConditions, template.conditions.keyConditionWords),
     noDataNotice: sets.length === 0 ? NO_DATA_NOTICE : null,
     specifications: {
-      conditionColumns: template.specifications.conditionColumns.map(({ id, label }) => ({ id, label })),
-      rows: specTable.rows,
+      ...withoutEmptyConditionColumns(template, specTable.rows),
       notes: [...template.specifications.notes],
       basisLegend: BASIS_LEGEND.map((entry) => ({ ...entry })),
       footnotes: specTable.footnotes,
@@ -193,19 +192,32 @@ function buildAbsoluteMaximumRatings(
   return rows;
 }
 
-function buildKeyFacts(conditions: SheetInput["device"]["keyConditions"]): SheetModel["keyFacts"] {
+function buildKeyFacts(conditions: SheetInput["device"]["keyConditions"], words: KeyConditionWords = {}): SheetModel["keyFacts"] {
   const facts: SheetModel["keyFacts"] = [];
   const range = (label: string, r: { min: number; max: number } | undefined) => {
     if (!r) return;
     facts.push({ label, ...rangeParts(r.min, r.max, "Hz") });
   };
-  range("Input frequency", conditions.inputFrequencyHz);
+  range(words.inputFrequency ?? "Input frequency", conditions.inputFrequencyHz);
   range("Output frequency", conditions.outputFrequencyHz);
   if (conditions.driveLevelDbm !== undefined) {
-    facts.push({ label: "Drive level", ...quantityParts(conditions.driveLevelDbm, "dBm", { signed: true, digits: { maxDecimals: 1 } }) });
+    facts.push({ label: words.driveLevel ?? "Drive level", ...quantityParts(conditions.driveLevelDbm, "dBm", { signed: true, digits: { maxDecimals: 1 } }) });
   }
   if (conditions.multiplicationFactor !== undefined) {
     facts.push({ label: "Multiplication factor", value: `×${formatNumber(conditions.multiplicationFactor, { digits: { maxDecimals: 0 } })}`, unit: "" });
   }
   return facts;
+}
+
+/**
+ * The template's condition columns that some row fills, and each row's cells for those: a column no
+ * row uses (the LO frequency of a mixer swept at a fixed IF, the offset of a doubler without phase
+ * noise) would print an empty column across the table.
+ */
+function withoutEmptyConditionColumns(template: SheetTemplate, rows: SheetModel["specifications"]["rows"]) {
+  const used = template.specifications.conditionColumns.map((_, i) => rows.some((row) => row.conditions[i] !== ""));
+  return {
+    conditionColumns: template.specifications.conditionColumns.filter((_, i) => used[i]).map(({ id, label }) => ({ id, label })),
+    rows: rows.map((row) => ({ ...row, conditions: row.conditions.filter((_, i) => used[i]) })),
+  };
 }

@@ -139,11 +139,14 @@ const mixer = (serial: string, seed: number, measuredOn: string, approve: boolea
   bytes: anotherMixerUnit(serial, seed),
 });
 
+/** KQH-2G is a 1.7–2.3 GHz part measured from 1.5 to 2.5 GHz: each upload states the band its figures hold over. */
+const kqhBand = { bandStartHz: "1.7e9", bandStopHz: "2.3e9" };
+
 const hybrid = (serial: string, seed: number, measuredOn: string): DemoUpload => ({
   org: "kestrine",
   part: "KQH-2G",
   file: `hybrid-${serial.toLowerCase()}.s4p`,
-  fields: { serial, lot: "L2610", temperatureC: "25", measuredOn },
+  fields: { serial, lot: "L2610", temperatureC: "25", measuredOn, ...kqhBand },
   instruments: ["vna"],
   approve: true,
   bytes: anotherHybridUnit(serial, seed),
@@ -162,7 +165,7 @@ export const demoUploads: DemoUpload[] = [
   mixer("BFD-0109", 22, "2026-09-23", true),
   mixer("BFD-0110", 23, "2026-09-23", true),
   { org: "kestrine", part: "KM-7H", file: "two-tone-mixer.tsv", fields: { measuredOn: "2026-09-24" }, instruments: ["source", "analyzer"], approve: false, bytes: example("two-tone-mixer.tsv") },
-  { org: "kestrine", part: "KQH-2G", file: "hybrid-4port.s4p", fields: { serial: "BFD-0401", lot: "L2610", temperatureC: "25", measuredOn: "2026-11-03" }, instruments: ["vna"], approve: true, bytes: example("hybrid-4port.s4p") },
+  { org: "kestrine", part: "KQH-2G", file: "hybrid-4port.s4p", fields: { serial: "BFD-0401", lot: "L2610", temperatureC: "25", measuredOn: "2026-11-03", ...kqhBand }, instruments: ["vna"], approve: true, bytes: example("hybrid-4port.s4p") },
   hybrid("BFD-0402", 31, "2026-11-03"),
   hybrid("BFD-0403", 32, "2026-11-04"),
   { org: "pellacourt", part: "PS-2W", file: "splitter-3port.s3p", fields: { serial: "PS-0007", temperatureC: "25", measuredOn: "2026-08-17" }, instruments: ["vna"], approve: true, bytes: example("splitter-3port.s3p") },

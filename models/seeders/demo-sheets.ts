@@ -20,8 +20,9 @@ const temperatures = (operating: string, storage: string) => [
 ];
 
 const doubler1GHz = "drive=optimum;inputFrequencyHz=1000000000;temperatureC=25";
-const mixerBand = "loPowerDbm=7;startHz=500000000;stopHz=3000000000;temperatureC=25";
-const hybridBand = "startHz=1500000000;stopHz=2500000000;temperatureC=25";
+const mixerBand = "ifFrequencyHz=70000000;loPowerDbm=7;startHz=500000000;stopHz=3000000000;temperatureC=25";
+// KQH-2G is a 1.7–2.3 GHz part measured 1.5–2.5 GHz: its upload states the band (demo-measurements.ts).
+const hybridBand = "startHz=1700000000;stopHz=2300000000;temperatureC=25";
 
 /** Sheets of devices that have no approved measurements yet: words and ratings only. */
 const shell = (description: string, features: string, ratings: DemoSheetContent["absoluteMaximumRatings"]): DemoSheetContent => ({
@@ -64,7 +65,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
     limits: [
       { parameter: "conversion-loss", conditionsKey: `${mixerBand.replace("stopHz", "statistic=max;stopHz")}`, max: 8.5, unit: "dB", basis: "test" },
       { parameter: "conversion-loss", conditionsKey: `${mixerBand.replace("stopHz", "statistic=typ;stopHz")}`, typ: 6.6, unit: "dB", basis: "characterization" },
-      { parameter: "isolation", conditionsKey: `loPowerDbm=7;path=LO-RF;startHz=500000000;statistic=min;stopHz=3000000000;temperatureC=25`, min: 22, unit: "dB", basis: "test" },
+      { parameter: "isolation", conditionsKey: `ifFrequencyHz=70000000;loPowerDbm=7;path=LO-RF;startHz=500000000;statistic=min;stopHz=3000000000;temperatureC=25`, min: 22, unit: "dB", basis: "test" },
     ],
     prose: {
       description:

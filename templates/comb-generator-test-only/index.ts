@@ -1,3 +1,4 @@
+import { combGeneratorConditions } from "./conditions";
 import type { SheetTemplate } from "../types";
 
 /**
@@ -8,6 +9,7 @@ import type { SheetTemplate } from "../types";
  */
 export const combGeneratorTemplate: SheetTemplate = {
   deviceClass: "comb-generator-test-only",
+  conditions: combGeneratorConditions,
   measurementKinds: ["drive-sweep"],
   specifications: {
     conditionColumns: [{ id: "frequency", label: "f_IN", sources: [{ key: "inputFrequencyHz", format: "frequency" }] }],

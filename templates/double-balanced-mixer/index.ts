@@ -9,8 +9,12 @@ import {
   temperatureRatings,
   worstVswrRow,
 } from "../common";
+import { doubleBalancedMixerConditions } from "./conditions";
 import type { SheetTemplate, SpecRowTemplate } from "../types";
 
+
+/** What every mixer figure is stated at besides its RF: LO frequency, IF frequency and LO drive (templates/double-balanced-mixer/conditions.ts). */
+const mixerKeys = ["loFrequencyHz", "ifFrequencyHz", "loPowerDbm"];
 
 function isolationRow(path: "LO-RF" | "LO-IF" | "RF-IF", basis: SpecRowTemplate["defaultBasis"]): SpecRowTemplate {
   return {
@@ -21,7 +25,7 @@ function isolationRow(path: "LO-RF" | "LO-IF" | "RF-IF", basis: SpecRowTemplate[
     unit: "dB",
     decimals: 1,
     match: { path, statistic: "min" },
-    groupBy: [...bandKeys, "loPowerDbm", "temperatureC"],
+    groupBy: [...bandKeys, ...mixerKeys, "temperatureC"],
     defaultBasis: basis,
   };
 }
@@ -29,13 +33,27 @@ function isolationRow(path: "LO-RF" | "LO-IF" | "RF-IF", basis: SpecRowTemplate[
 /** Passive double-balanced diode mixers. */
 export const doubleBalancedMixerTemplate: SheetTemplate = {
   deviceClass: "double-balanced-mixer",
+  conditions: doubleBalancedMixerConditions,
   measurementKinds: ["frequency-sweep", "two-tone", "touchstone"],
   specifications: {
     conditionColumns: [
       {
-        id: "band",
-        label: "RF band",
-        sources: [{ key: "startHz", stopKey: "stopHz", format: "frequency-range" }],
+        id: "rf",
+        label: "RF",
+        sources: [
+          { key: "startHz", stopKey: "stopHz", format: "frequency-range" },
+          { key: "rfFrequencyHz", format: "frequency" },
+        ],
+      },
+      {
+        id: "lo-frequency",
+        label: "LO",
+        sources: [{ key: "loFrequencyHz", format: "frequency" }],
+      },
+      {
+        id: "if",
+        label: "IF",
+        sources: [{ key: "ifFrequencyHz", format: "frequency" }],
       },
       {
         id: "lo",
@@ -54,7 +72,7 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
         unit: "dB",
         decimals: 2,
         match: { statistic: "max" },
-        groupBy: [...bandKeys, "loPowerDbm", "temperatureC"],
+        groupBy: [...bandKeys, ...mixerKeys, "temperatureC"],
         defaultBasis: "test",
       },
       {
@@ -65,7 +83,7 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
         unit: "dB",
         decimals: 2,
         match: { statistic: "typ" },
-        groupBy: [...bandKeys, "loPowerDbm", "temperatureC"],
+        groupBy: [...bandKeys, ...mixerKeys, "temperatureC"],
         defaultBasis: "characterization",
       },
       isolationRow("LO-RF", "test"),
@@ -79,7 +97,7 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
         unit: "dBm",
         decimals: 1,
         match: { method: "slope-fit" },
-        groupBy: ["loPowerDbm", "temperatureC"],
+        groupBy: ["rfFrequencyHz", ...mixerKeys, "temperatureC"],
         defaultBasis: "characterization",
       },
       {
@@ -90,14 +108,14 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
         unit: "dBm",
         decimals: 1,
         match: { method: "two-tone, per tone" },
-        groupBy: ["loPowerDbm", "temperatureC"],
+        groupBy: ["rfFrequencyHz", ...mixerKeys, "temperatureC"],
         defaultBasis: "characterization",
       },
       worstVswrRow("design"),
     ],
     notes: [
       "Conversion loss is P_RF − P_IF (positive for a lossy mixer). Intercepts are per tone, from slope-1 and slope-3 fits over the small-signal points.",
-      "System impedance 50 Ω; LO drive is the available power at the LO port.",
+      "System impedance 50 Ω; LO drive is the available power at the LO port. Where a row states an IF and no LO, the RF was swept at that fixed IF with the LO following it.",
     ],
   },
   curves: [

@@ -1,4 +1,5 @@
 import { composeCautions, composeProse, defaultHandlingProse, esdRating, temperatureColumn, temperatureRatings } from "../common";
+import { frequencyMultiplierConditions } from "./conditions";
 import type { SheetTemplate } from "../types";
 
 const frequencyColumn = {
@@ -13,6 +14,7 @@ const frequencyColumn = {
 /** Frequency multipliers, including a double-balanced mixer driven on both ports as a doubler. */
 export const frequencyMultiplierTemplate: SheetTemplate = {
   deviceClass: "frequency-multiplier",
+  conditions: frequencyMultiplierConditions,
   measurementKinds: ["drive-sweep", "phase-noise"],
   specifications: {
     conditionColumns: [

@@ -10,6 +10,7 @@ import {
   temperatureRatings,
   worstVswrRow,
 } from "../common";
+import { quadratureHybridConditions } from "./conditions";
 import type { SheetTemplate, SpecRowTemplate } from "../types";
 
 
@@ -25,6 +26,7 @@ function bandRow(row: Omit<SpecRowTemplate, "groupBy">): SpecRowTemplate {
  */
 export const quadratureHybridTemplate: SheetTemplate = {
   deviceClass: "quadrature-hybrid",
+  conditions: quadratureHybridConditions,
   measurementKinds: ["touchstone"],
   specifications: {
     conditionColumns: [

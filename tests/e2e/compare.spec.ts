@@ -46,7 +46,7 @@ test("ticks two hybrids in the catalog and compares them: aligned figures, the b
   await expect(better).toHaveAttribute("data-better", "true");
   await expect(better).toContainText("✓");
   await expect(better).toContainText("Better:");
-  await expect(better).toContainText("Band 1.5–2.5");
+  await expect(better).toContainText("Band 1.7–2.3");
 
   const curves = page.getByTestId("compare-curves");
   await expect(curves.getByTestId("compare-chart").first()).toBeVisible();

@@ -78,7 +78,7 @@ describe("GET /api/v1/compare/csv", () => {
     expect(header[9]).toBe("PS-2W Rev. A");
     const il = lines.find((l) => l[0] === "Insertion loss, port 1 to 2 (S21)" && l[2] === "typ")!;
     expect(il[5]).toBe("differ: band");
-    expect(il[7]).toContain("Band 1.5–2.5");
+    expect(il[7]).toContain("Band 1.7–2.3");
     expect(il[10]).toContain("Band 0.5–2.5");
     expect(Number(il[6])).toBeLessThan(Number(il[9]));
     expect(il[12]).toBe("KQH-2G Rev. A");

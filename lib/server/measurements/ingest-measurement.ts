@@ -2,11 +2,14 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { UniqueConstraintError } from "sequelize";
 import { analyzeWithSettings, isAnalysisSettingError } from "@/lib/analysis";
+import { parsedInStatedBand } from "@/lib/analysis/touchstone-band";
 import { findSheetTemplate } from "@/templates";
 import { AppError } from "@/lib/errors";
 import { isIngestError, parseMeasurementFile, type ParsedMeasurement } from "@/lib/ingest";
 import { mappingTargets, parseMappedFile, readForeignTable, type MappableKind } from "@/lib/ingest/column-mapping";
-import { mergeUploadConditions, uploadAnalysisSettings, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
+import { deviceClassLabels, isDeviceClass } from "@/lib/domain/device-classes";
+import { uploadConditionFields } from "@/templates/upload-conditions";
+import { checkClassConditions, mergeUploadConditions, stampStatedConditions, uploadAnalysisSettings, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
 import type { UploadFields } from "@/lib/schemas/measurements";
 import { db } from "@/models";
 import type { ColumnMapping, MeasurementSet, StoredFile } from "@/models";
@@ -47,7 +50,9 @@ function metadataFromFields(kind: MappableKind, fields: UploadFields): Record<st
   if (fields.inputFrequencyHz !== undefined) m[kind === "phase-noise" ? "carrier_frequency" : "input_frequency"] = `${fields.inputFrequencyHz} Hz`;
   if (fields.splitterExcessLossDb !== undefined) m.splitter_excess_loss = `${fields.splitterExcessLossDb} dB`;
   if (fields.cableLossDb !== undefined) m.cable_loss = `${fields.cableLossDb} dB`;
-  if (fields.driveLevelDbm !== undefined && (kind === "frequency-sweep" || kind === "two-tone")) m.lo_power = `${fields.driveLevelDbm} dBm`;
+  if (fields.loDriveDbm !== undefined && (kind === "frequency-sweep" || kind === "two-tone")) m.lo_power = `${fields.loDriveDbm} dBm`;
+  if (fields.loFrequencyHz !== undefined && kind === "frequency-sweep") m.lo_frequency = `${fields.loFrequencyHz} Hz`;
+  if (fields.ifFrequencyHz !== undefined && kind === "frequency-sweep") m.if_frequency = `${fields.ifFrequencyHz} Hz`;
   return m;
 }
 
@@ -105,12 +110,20 @@ export async function parseUpload(opts: { organizationId: number; file: Uploaded
  */
 function deriveWithSettings(input: { parsed: ParsedMeasurement; fields: UploadFields; deviceClass: string; fileName: string }) {
   const upload = uploadAnalysisSettings(input.fields);
+  const parsed = inStatedBand(input.parsed, input.fields, input.fileName);
   try {
-    return analyzeWithSettings(input.parsed, { upload, template: findSheetTemplate(input.deviceClass)?.analysisDefaults });
+    return analyzeWithSettings(parsed, { upload, template: findSheetTemplate(input.deviceClass)?.analysisDefaults });
   } catch (error) {
     if (isAnalysisSettingError(error)) throw new AppError("invalid", `${input.fileName}: ${error.message}.`, { field: error.field });
     throw error;
   }
+}
+
+/** A network measured over more than the band the upload states is derived over that band (a hybrid's band condition). */
+function inStatedBand(parsed: ParsedMeasurement, fields: UploadFields, fileName: string): ParsedMeasurement {
+  const result = parsedInStatedBand(parsed, fields);
+  if ("problem" in result) throw new AppError("invalid", `${fileName}: ${result.problem}.`, { field: result.field });
+  return result.parsed;
 }
 
 /**
@@ -123,6 +136,9 @@ export async function ingestMeasurement(input: IngestInput): Promise<Measurement
   const { organizationId, deviceId, file, fields, actor } = input;
   const device = await Device.findOne({ where: { id: deviceId, organizationId } });
   if (!device) throw new AppError("not-found", "No such device in your organization.");
+  if (isDeviceClass(device.deviceClass)) {
+    checkClassConditions({ classLabel: deviceClassLabels[device.deviceClass], allowed: uploadConditionFields(device.deviceClass), fields });
+  }
 
   const parsed = await parseUpload({ organizationId, file, fields });
   const warnings = [...parsed.warnings];
@@ -181,7 +197,7 @@ export async function ingestMeasurement(input: IngestInput): Promise<Measurement
           supersedesId: superseded?.id ?? null,
           conditions,
           parsed: toPlainJson(parsed.data),
-          parameters: derived.parameters,
+          parameters: stampStatedConditions(derived.parameters, conditions),
           curves: toPlainJson(derived.curves),
           warnings,
           measuredOn,

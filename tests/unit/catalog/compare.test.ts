@@ -116,11 +116,11 @@ describe("the compare table of two released hybrids (demo KQH-2G and PS-2W)", ()
 
   it("aligns each figure by parameter and port, with one value per sheet", () => {
     const vswrPort2 = find(table.rows, "VSWR, highest in band", "typ", "Port 2");
-    expect(vswrPort2.cells.map((c) => c?.text)).toEqual(["1.16", "1.17"]);
-    expect(vswrPort2.cells.map((c) => c?.conditionsText)).toEqual(["Band 1.5–2.5\u00a0GHz, Port 2, T_A 25\u00a0°C", "Band 0.5–2.5\u00a0GHz, Port 2, T_A 25\u00a0°C"]);
+    expect(vswrPort2.cells.map((c) => c?.text)).toEqual(["1.15", "1.17"]);
+    expect(vswrPort2.cells.map((c) => c?.conditionsText)).toEqual(["Band 1.7–2.3\u00a0GHz, Port 2, T_A 25\u00a0°C", "Band 0.5–2.5\u00a0GHz, Port 2, T_A 25\u00a0°C"]);
     // Port 4 exists on the 90° hybrid only: the splitter's cell is empty, not filled from another port.
     const vswrPort4 = find(table.rows, "VSWR, highest in band", "typ", "Port 4");
-    expect(vswrPort4.cells.map((c) => c?.text ?? null)).toEqual(["1.17", null]);
+    expect(vswrPort4.cells.map((c) => c?.text ?? null)).toEqual(["1.16", null]);
     expect(vswrPort4.statedCount).toBe(1);
     expect(vswrPort4.cells[0]!.better).toBe(false);
   });
@@ -131,12 +131,12 @@ describe("the compare table of two released hybrids (demo KQH-2G and PS-2W)", ()
     expect(il.differingConditions).toEqual(["band"]);
     // What both share is said once for the line; what differs stays with each value.
     expect(il.conditionsText).toBe("T_A 25\u00a0°C");
-    expect(il.cells.map((c) => c?.ownConditionsText)).toEqual(["Band 1.5–2.5\u00a0GHz", "Band 0.5–2.5\u00a0GHz"]);
+    expect(il.cells.map((c) => c?.ownConditionsText)).toEqual(["Band 1.7–2.3\u00a0GHz", "Band 0.5–2.5\u00a0GHz"]);
   });
 
   it("marks the better value per line by the parameter's direction", () => {
     const il = find(table.rows, "Insertion loss, port 1 to 2 (S21)", "typ");
-    expect(il.cells.map((c) => c?.better)).toEqual([true, false]); // 3.28 dB against 3.50 dB: lower is better
+    expect(il.cells.map((c) => c?.better)).toEqual([true, false]); // 3.24 dB against 3.50 dB: lower is better
     const amplitude = find(table.rows, "Amplitude balance", "typ");
     expect(amplitude.cells.map((c) => c?.better)).toEqual([false, true]); // 0.28 against 0.05 dB: nearer zero
     const phase = find(table.rows, "Phase balance, from nominal", "typ");
@@ -271,7 +271,7 @@ describe("the CSV export", () => {
     );
     expect(lines).toHaveLength(table.rows.length + 2); // header, rows, and the empty string after the last CRLF
     expect(lines[1]).toBe(
-      '"Insertion loss, port 1 to 2 (S21)",IL,typ,dB,lower is better,differ: band,3.28,"Band 1.5–2.5\u00a0GHz, T_A 25\u00a0°C",test,3.50,"Band 0.5–2.5\u00a0GHz, T_A 25\u00a0°C",test,KQH-2G Rev. A',
+      '"Insertion loss, port 1 to 2 (S21)",IL,typ,dB,lower is better,differ: band,3.24,"Band 1.7–2.3\u00a0GHz, T_A 25\u00a0°C",test,3.50,"Band 0.5–2.5\u00a0GHz, T_A 25\u00a0°C",test,KQH-2G Rev. A',
     );
     // The page's figures, with a hyphen-minus for a spreadsheet.
     expect(lines.find((l) => l.startsWith('"Phase balance, from nominal",Δφ,typ'))).toContain(",-1.5,");
@@ -303,7 +303,7 @@ describe("the overlaid curves", () => {
     expect(transmission.panels.map((p) => p.series)).toEqual(["insertion loss S21", "insertion loss S31", "isolation S32"]);
     // S41 and port 4 exist on the 90° hybrid only: named, not drawn as a one-sheet "comparison".
     expect(transmission.unmatched).toEqual([{ series: "isolation S41", label: "KQH-2G Rev. A" }]);
-    expect(transmission.sources.map((s) => s.drawnAt)).toEqual(["1.5–2.5\u00a0GHz, 25\u00a0°C", "0.5–2.5\u00a0GHz, 25\u00a0°C", null]);
+    expect(transmission.sources.map((s) => s.drawnAt)).toEqual(["1.7–2.3\u00a0GHz, 25\u00a0°C", "0.5–2.5\u00a0GHz, 25\u00a0°C", null]);
     expect(transmission.conditionsDiffer).toBe(true);
   });
 

@@ -1,8 +1,9 @@
 import { analyzeWithSettings } from "@/lib/analysis";
+import { parsedInStatedBand } from "@/lib/analysis/touchstone-band";
 import { uploadAnalysisSettings } from "@/lib/ingest/upload-conditions";
 import { findSheetTemplate } from "@/templates";
 import { parseMeasurementFile } from "@/lib/ingest";
-import { mergeUploadConditions, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
+import { mergeUploadConditions, stampStatedConditions, uploadMeasuredOn } from "@/lib/ingest/upload-conditions";
 import { uploadFieldsSchema } from "@/lib/schemas/measurements";
 import type { ApprovedSetInput, SheetInput } from "@/lib/sheet";
 import { demoConformityUnits } from "@/models/seeders/demo-conformity";
@@ -27,7 +28,9 @@ export function demoSheetInputs(date: string): { partNumber: string; input: Shee
     const conditions = mergeUploadConditions(parsed, fields, []);
     // The settings an upload resolves: the file's lines, the upload's fields, then the device class's defaults.
     const deviceClass = demoOrganizations.find((o) => o.slug === upload.org)!.devices.find((d) => d.partNumber === upload.part)!.deviceClass;
-    const analyzed = analyzeWithSettings(parsed, { upload: uploadAnalysisSettings(fields), template: findSheetTemplate(deviceClass)?.analysisDefaults });
+    const inBand = parsedInStatedBand(parsed, fields);
+    if ("problem" in inBand) throw new Error(`${upload.file}: ${inBand.problem}`);
+    const analyzed = analyzeWithSettings(inBand.parsed, { upload: uploadAnalysisSettings(fields), template: findSheetTemplate(deviceClass)?.analysisDefaults });
     const derived = JSON.parse(JSON.stringify(analyzed)) as typeof analyzed;
     if (!upload.approve) return;
     const instruments = upload.instruments.map((key) => demoInstruments[upload.org].find((i) => i.key === key)!);
@@ -39,7 +42,7 @@ export function demoSheetInputs(date: string): { partNumber: string; input: Shee
       lot: conditions.lot,
       temperatureC: conditions.temperatureC,
       measuredOn: uploadMeasuredOn(parsed, fields) ?? date,
-      parameters: derived.parameters,
+      parameters: stampStatedConditions(derived.parameters, conditions),
       curves: derived.curves,
       instruments: instruments.map(({ kind, model, serial, calibratedOn, calibrationDueOn, uncertainty }) => ({ kind, model, serial, calibratedOn, calibrationDueOn, uncertainty })),
     });
