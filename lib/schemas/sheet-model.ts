@@ -204,6 +204,7 @@ export const sheetModelSchema = z
     revisionHistory: z.array(z.object({ label: z.string(), date: z.string(), summary: z.string() })),
     release: sheetRelease.nullable(),
     issues: z.array(z.object({ code: z.string(), message: z.string() })),
+    reviewChecks: z.array(z.string()).optional(),
   })
   .meta({ description: "The frozen sheet model of a released revision: everything the web sheet and the PDF draw." });
 

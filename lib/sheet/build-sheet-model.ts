@@ -9,6 +9,15 @@ import { buildCharts } from "./sheet-charts";
 import { buildSpecTable, type SpecTable } from "./spec-table";
 import { DEFAULT_CPK_MIN_UNITS } from "./statistics";
 import { buildTraceability } from "./traceability";
+import {
+  checkLimitSpread,
+  checkLimitUnitCount,
+  checkStatedBands,
+  checkStatedUncertainty,
+  DEFAULT_LIMIT_MIN_UNITS,
+  ratedOperatingTemperature,
+  reviewCheckStatements,
+} from "./consistency-checks";
 import type { ApprovedSetInput, SheetInput, SheetModel } from "./types";
 import { PLAUSIBILITY_PREFIX } from "../ingest/plausibility-warning";
 
@@ -48,6 +57,7 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
   const traceability = buildTraceability(sets, issues);
   const charts = buildCharts(template, sets);
   const prose = buildProse(template, input, issues);
+  issues.push(...consistencyIssues(template, input, sets, specTable));
   // Units approved after the release that the released limits or the control charts disagree with.
   for (const message of input.conformityAlerts ?? []) issues.push({ code: "conformity-alert", message });
 
@@ -75,7 +85,18 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
       .map(({ label, date, summary }) => ({ label, date, summary })),
     release: null,
     issues,
+    reviewChecks: [...reviewCheckStatements],
   };
+}
+
+/** The consistency checks before review (lib/sheet/consistency-checks.ts), in the order the sheet reads. */
+function consistencyIssues(template: SheetTemplate, input: SheetInput, sets: ApprovedSetInput[], specTable: SpecTable): Issues {
+  return [
+    ...checkStatedBands({ template, keyConditions: input.device.keyConditions, groups: specTable.groups }),
+    ...checkStatedUncertainty({ rows: template.specifications.rows, sets, measurementUncertainty: input.settings.measurementUncertainty }),
+    ...checkLimitSpread({ groups: specTable.groups, operatingTemperatureC: ratedOperatingTemperature(input.absoluteMaximumRatings) }),
+    ...checkLimitUnitCount({ groups: specTable.groups, minUnits: input.settings.limitMinUnits ?? DEFAULT_LIMIT_MIN_UNITS }),
+  ];
 }
 
 /** The approved sets of the kinds the template takes, in a fixed order; any other set, or none, is an issue. */

@@ -92,6 +92,8 @@ export interface SheetInput {
     cpkThreshold: number;
     /** Cpk is stated only from this many units or more (the organization's setting, default 10). */
     cpkMinUnits?: number;
+    /** Fewer units than this behind a limit guaranteed by characterization is an open issue (the organization's setting, default 5). */
+    limitMinUnits?: number;
     /** Tolerance-interval coverage and confidence, e.g. 0.99 and 0.95. */
     toleranceCoverage: number;
     toleranceConfidence: number;
@@ -330,4 +332,9 @@ export interface SheetModel {
   release: SheetRelease | null;
   /** Problems a reviewer must see before approving (missing ratings, unknown limits, lapsed calibration). */
   issues: { code: string; message: string }[];
+  /**
+   * Which consistency checks were made before review and what no check can see (lib/sheet/consistency-checks.ts),
+   * printed with the review notes of an unreleased sheet; absent on sheets built before it was kept.
+   */
+  reviewChecks?: string[];
 }

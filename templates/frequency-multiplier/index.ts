@@ -156,6 +156,11 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       "RMS jitter and phase integrate L(f) over the offset band printed beside them: φ_rms = √(2∫L(f)df), σ_t = φ_rms/(2π f_0).",
     ],
   },
+  // The input band holds the drive sweeps' input frequency; the output band the phase-noise carrier.
+  statedBands: [
+    { deviceKey: "inputFrequencyHz", label: "input band", sources: [{ key: "inputFrequencyHz" }] },
+    { deviceKey: "outputFrequencyHz", label: "output band", sources: [{ key: "carrierFrequencyHz" }] },
+  ],
   curves: [
     {
       id: "conversion-loss-vs-drive",
