@@ -10,6 +10,7 @@ import { differenceUnit, formatNumber, formatQuantity, formatRange } from "../fo
 import { combineUncertainty } from "../stats/uncertainty";
 import { parseConditionsKey, type Conditions } from "./conditions";
 import { formatTemperature } from "./format";
+import { notationSegments } from "./notation";
 import type { ApprovedSetInput, SheetInput, SheetModel, StatisticsGroup } from "./types";
 
 
@@ -215,7 +216,10 @@ type LimitGroup = Pick<StatisticsGroup, "rowId" | "label" | "conditionsKey" | "c
 /** A stated min or max: a typical value guarantees nothing. */
 const guarantees = (g: LimitGroup) => g.limits !== null && (g.limits.min.value !== null || g.limits.max.value !== null);
 
-const describeGroup = (g: LimitGroup) => (g.conditionsText ? `${g.label} (${g.conditionsText})` : g.label);
+/** Issue messages are plain text everywhere they are shown: the notation's subscripts are written inline ("TA 25 °C"). */
+const plainNotation = (text: string) => notationSegments(text).map((s) => s.text + (s.sub ?? "")).join("");
+
+const describeGroup = (g: LimitGroup) => plainNotation(g.conditionsText ? `${g.label} (${g.conditionsText})` : g.label);
 
 /** "−40 to +85" (U+2212 or a hyphen, "to", an en dash or "…" between) → the two ends, in °C; null when not two numbers. */
 export function readTemperatureRange(text: string): { min: number; max: number } | null {

@@ -175,12 +175,18 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
         <StatisticsAnnex model={model} />
         <RevisionHistory model={model} />
         <ReleaseRecord model={model} />
-        {!header.released && model.issues.length > 0 ? (
+        {!header.released && (model.issues.length > 0 || (model.reviewChecks ?? []).length > 0) ? (
           <View>
             <SectionHeading>Review notes (not printed on a released sheet)</SectionHeading>
+            {model.issues.length === 0 ? <Text style={styles.paragraph}>No open issue.</Text> : null}
             {model.issues.map((issue, i) => (
               <Text key={i} style={styles.paragraph}>
                 • {issue.message}
+              </Text>
+            ))}
+            {(model.reviewChecks ?? []).map((text, i) => (
+              <Text key={`check-${i}`} style={[styles.paragraph, { color: colors["ink-muted"] }]}>
+                {text}
               </Text>
             ))}
           </View>
