@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { RefObject } from "react";
 import type { StatisticsGroup } from "@/lib/sheet/types";
-import { formatNumber, formatQuantity } from "@/lib/format";
+import { differenceUnit, formatNumber, formatQuantity } from "@/lib/format";
 import { Notation } from "@/components/sheet/notation";
 
 const basisWords = { test: "guaranteed by test", characterization: "guaranteed by characterization", design: "guaranteed by design" } as const;
@@ -150,7 +150,7 @@ function SpreadFigures({ group: g, coverage, confidence }: { group: StatisticsGr
       </dd>
       <dt>s</dt>
       <dd>
-        <Figure text={g.standardDeviation.text} unit={g.unit} />
+        <Figure text={g.standardDeviation.text} unit={differenceUnit(g.unit)} />
       </dd>
       <dt>Median</dt>
       <dd>
@@ -219,7 +219,7 @@ function LimitFigures({ group: g, cpkThreshold }: { group: StatisticsGroup; cpkT
       </dd>
       <dt>U (k = 2)</dt>
       <dd>
-        <Figure text={g.expandedUncertainty.text} unit={g.expandedUncertainty.text ? g.unit : undefined} />
+        <Figure text={g.expandedUncertainty.text} unit={g.expandedUncertainty.text ? differenceUnit(g.unit) : undefined} />
       </dd>
       {g.acceptance ? (
         <>

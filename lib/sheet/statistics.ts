@@ -1,5 +1,5 @@
 import { computeCapability, computeToleranceFactorExact, decideConformity, describeDecisionRule, summarizeSample } from "../stats";
-import { formatNumber, formatQuantity } from "../format/quantity";
+import { differenceUnit, formatNumber, formatQuantity } from "../format/quantity";
 import { emptyValue, formatValue, roundStable } from "./format";
 import type { FormattedValue, SampleFigures, SpecLimitInput, StatisticsFlag, UnitResult } from "./types";
 
@@ -224,7 +224,7 @@ function decideUnits(options: {
     if (guardLower !== null && guardUpper !== null && guardLower > guardUpper) {
       flags.push({
         code: "guard-band-closes-acceptance",
-        message: `Guard bands of U = ${formatQuantity(u, unit)} leave no acceptance zone between the limits.`,
+        message: `Guard bands of U = ${formatQuantity(u, differenceUnit(unit))} leave no acceptance zone between the limits.`,
       });
     }
   }

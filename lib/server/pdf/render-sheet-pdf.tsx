@@ -8,7 +8,7 @@ import { renderSheetChartPngs } from "../charts/render-chart";
 import { settleGlyphCodePoints } from "./settle-glyph-code-points";
 import { stampPageNumbers } from "./stamp-page-numbers";
 import { proseLayout } from "../../sheet/prose-layout";
-import { describeAbsentCpk, formatPassCount } from "../../sheet/format";
+import { annexUnitText, describeAbsentCpk, formatPassCount } from "../../sheet/format";
 import { candidateDigestLabel, signedAtText } from "../../sheet/release-text";
 
 let fontsRegistered = false;
@@ -497,7 +497,7 @@ function StatisticsAnnex({ model }: { model: SheetModel }) {
   const rows = statistics.groups.map((g: StatisticsGroup): Cell[] => [
     [
       <>
-        {g.label} <Text style={{ color: colors["ink-muted"] }}>({g.unit})</Text>
+        {g.label} <Text style={{ color: colors["ink-muted"] }}>{annexUnitText(g.unit)}</Text>
       </>,
       <Text style={{ color: colors["ink-muted"], fontSize: 6.8 }}>
         <PdfNotation text={g.conditionsText} subSize={5} />

@@ -3,6 +3,8 @@ import * as checks from "@/lib/sheet/consistency-checks";
 import { buildSheetModel, type ApprovedSetInput, type StatisticsGroup } from "@/lib/sheet";
 import { differenceUnit } from "@/lib/format";
 import { combGeneratorTemplate, doubleBalancedMixerTemplate, frequencyMultiplierTemplate, quadratureHybridTemplate } from "@/templates";
+import { annexUnitText } from "@/lib/sheet/format";
+import { describeDecisionRule } from "@/lib/stats";
 import { loadDoublerInput } from "./fixture";
 
 const { readTemperatureRange, reviewCheckStatements } = checks;
@@ -256,5 +258,20 @@ describe("the checks in the sheet model", () => {
     expect(model.reviewChecks!.join(" ")).toMatch(/Not checked: the prose .* free text/);
     expect(model.issues.some((i) => i.code === "limit-from-few-units" && i.message.includes("minimum of 1000"))).toBe(true);
     expect(buildSheetModel(input).issues.some((i) => i.code === "limit-from-few-units")).toBe(false);
+  });
+});
+
+describe("the uncertainty and spread of a level are said in dB", () => {
+  it("in the statistics annex's unit beside the parameter", () => {
+    expect(annexUnitText("dBc")).toBe("(dBc; s, U in dB)");
+    expect(annexUnitText("dBc/Hz")).toBe("(dBc/Hz; s, U in dB)");
+    expect(annexUnitText("dB")).toBe("(dB)");
+    expect(annexUnitText("deg")).toBe("(°)");
+  });
+
+  it("in the decision rule", () => {
+    const rule = describeDecisionRule("guard-band", 0.3, "dBc").replace(/\u00a0/g, " ");
+    expect(rule).toContain("U = 0.3 dB (k = 2)");
+    expect(rule).not.toContain("dBc");
   });
 });
