@@ -1,5 +1,6 @@
 import { composeCautions, composeProse, defaultHandlingProse, esdRating, temperatureColumn, temperatureRatings } from "../common";
 import type { SheetTemplate } from "../types";
+import { harmonicSuppressionLabel } from "../../lib/domain/parameter-names";
 
 const frequencyColumn = {
   id: "frequency",
@@ -58,7 +59,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "fundamental-suppression",
         parameter: "harmonic-suppression",
-        label: "Fundamental suppression",
+        label: harmonicSuppressionLabel(1),
         symbol: "HS1",
         unit: "dBc",
         decimals: 1,
@@ -69,7 +70,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "third-harmonic-suppression",
         parameter: "harmonic-suppression",
-        label: "3rd harmonic suppression",
+        label: harmonicSuppressionLabel(3),
         symbol: "HS3",
         unit: "dBc",
         decimals: 1,
@@ -80,7 +81,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "fourth-harmonic-suppression",
         parameter: "harmonic-suppression",
-        label: "4th harmonic suppression",
+        label: harmonicSuppressionLabel(4),
         symbol: "HS4",
         unit: "dBc",
         decimals: 1,
@@ -202,7 +203,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       parameter: "harmonic-suppression",
       match: { order: 1, drive: "optimum" },
       x: { key: "inputFrequencyHz", label: "Input frequency", unit: "Hz" },
-      y: { label: "Fundamental suppression", unit: "dBc" },
+      y: { label: harmonicSuppressionLabel(1), unit: "dBc" },
       title: "Fundamental suppression at optimum drive vs input frequency",
       caption: "Each line one unit, through its measured frequencies.",
     },
