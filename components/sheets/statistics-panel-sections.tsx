@@ -2,6 +2,7 @@ import Link from "next/link";
 import type { RefObject } from "react";
 import type { StatisticsGroup } from "@/lib/sheet/types";
 import { differenceUnit, formatNumber, formatQuantity } from "@/lib/format";
+import { formatCpkInterval } from "@/lib/sheet/format";
 import { Notation } from "@/components/sheet/notation";
 
 const basisWords = { test: "guaranteed by test", characterization: "guaranteed by characterization", design: "guaranteed by design" } as const;
@@ -199,6 +200,7 @@ function LimitFigures({ group: g, cpkThreshold }: { group: StatisticsGroup; cpkT
         {g.cpk.text ? (
           <span className={cpkLow ? "font-semibold text-signal-deep" : ""}>
             <span className="figure">{g.cpk.text}</span>
+            {g.cpkInterval ? <span className="figure text-sm text-ink-muted"> ({formatCpkInterval(g)})</span> : null}
             <span className="text-sm">
               {" "}
               {cpkLow ? "below" : "meets"} the threshold <span className="figure">{formatNumber(cpkThreshold, { digits: { maxDecimals: 2 } })}</span>

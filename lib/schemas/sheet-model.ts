@@ -64,6 +64,7 @@ const sampleFigures = {
   max: formattedValue,
   toleranceInterval: z.object({ lower: formattedValue, upper: formattedValue, factor: formattedValue }).nullable(),
   cpk: formattedValue,
+  cpkInterval: z.object({ lower: formattedValue, upper: formattedValue }).optional(),
   expandedUncertainty: formattedValue,
   decisionRule: z.enum(["guard-band", "simple-acceptance"]).nullable(),
   acceptance: z.object({ lower: formattedValue, upper: formattedValue }).nullable(),

@@ -179,7 +179,9 @@ function buildStatisticsSection(settings: SheetInput["settings"], specTable: Spe
       `Cpk = min[(USL − mean)/(3s), (mean − LSL)/(3s)] (NIST/SEMATECH §6.1.6). A limit is flagged as not supported by the data ` +
       `when Cpk < ${formatNumber(settings.cpkThreshold, { digits: { maxDecimals: 2 } })} or when any unit falls outside the guard-banded limit. ` +
       `Cpk is printed only from ${settings.cpkMinUnits ?? DEFAULT_CPK_MIN_UNITS} units or more (the organization's setting): from fewer its estimate is too uncertain to mean something, ` +
-      `though it is still judged against the threshold.`,
+      `though it is still judged against the threshold. A printed Cpk carries its two-sided ` +
+      `${formatQuantity(settings.toleranceConfidence * 100, "%", { digits: { maxDecimals: 2 } })} confidence interval ` +
+      `Ĉpk ± z·√(1/(9n) + Ĉpk²/(2(n − 1))) (Bissell 1990, normal approximation).`,
     decisionRules: specTable.decisionRules,
     groups: specTable.groups,
     flaggedGroupCount: specTable.groups.filter((g) => !g.supported).length,

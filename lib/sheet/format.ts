@@ -88,3 +88,8 @@ export function annexUnitText(unit: string): string {
   const spread = differenceUnit(unit);
   return spread === unit ? `(${displayUnit(unit)})` : `(${displayUnit(unit)}; s, U in ${displayUnit(spread)})`;
 }
+
+/** A printed Cpk's confidence interval as the annex shows it under the figure, "1.10–1.94"; "" when there is none. */
+export function formatCpkInterval(group: { cpkInterval?: { lower: FormattedValue; upper: FormattedValue } }): string {
+  return group.cpkInterval ? `${group.cpkInterval.lower.text}\u2013${group.cpkInterval.upper.text}` : "";
+}

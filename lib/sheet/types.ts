@@ -183,6 +183,8 @@ export interface SampleFigures {
   max: FormattedValue;
   toleranceInterval: { lower: FormattedValue; upper: FormattedValue; factor: FormattedValue } | null;
   cpk: FormattedValue;
+  /** The two-sided confidence interval of a printed Cpk (Bissell 1990), at the sheet's stated confidence; absent otherwise. */
+  cpkInterval?: { lower: FormattedValue; upper: FormattedValue };
   expandedUncertainty: FormattedValue;
   decisionRule: "guard-band" | "simple-acceptance" | null;
   acceptance: { lower: FormattedValue; upper: FormattedValue } | null;

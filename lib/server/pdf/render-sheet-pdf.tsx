@@ -8,7 +8,7 @@ import { renderSheetChartPngs } from "../charts/render-chart";
 import { settleGlyphCodePoints } from "./settle-glyph-code-points";
 import { stampPageNumbers } from "./stamp-page-numbers";
 import { proseLayout } from "../../sheet/prose-layout";
-import { annexUnitText, describeAbsentCpk, formatPassCount } from "../../sheet/format";
+import { annexUnitText, describeAbsentCpk, formatCpkInterval, formatPassCount } from "../../sheet/format";
 import { candidateDigestLabel, signedAtText } from "../../sheet/release-text";
 
 let fontsRegistered = false;
@@ -510,7 +510,7 @@ function StatisticsAnnex({ model }: { model: SheetModel }) {
     g.max.text,
     g.toleranceInterval?.lower.text ?? "",
     g.toleranceInterval?.upper.text ?? "",
-    g.cpk.text,
+    g.cpkInterval ? [g.cpk.text, <Text style={{ color: colors["ink-muted"], fontSize: 6.8 }}>{formatCpkInterval(g)}</Text>] : g.cpk.text,
     g.expandedUncertainty.text,
     formatPassCount(g),
     g.supported ? "" : <Text style={{ color: colors.signal, fontWeight: 700 }}>!</Text>,
