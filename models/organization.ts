@@ -12,6 +12,8 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
   declare cpkThreshold: CreationOptional<number>;
   /** Cpk is printed only from this many units or more; below, the statistics annex says why it is absent. */
   declare cpkMinUnits: CreationOptional<number>;
+  /** Fewer units than this behind a limit guaranteed by characterization is an open issue of the sheet. */
+  declare limitMinUnits: CreationOptional<number>;
   declare toleranceCoverage: CreationOptional<number>;
   declare toleranceConfidence: CreationOptional<number>;
   /** Signatures a sheet candidate needs before it may be released (1, or 2 e.g. engineering and quality). */
@@ -28,6 +30,7 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
         kind: { type: DataTypes.ENUM(...organizationKinds), allowNull: false },
         cpkThreshold: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 1.33 },
         cpkMinUnits: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 10 },
+        limitMinUnits: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: false, defaultValue: 5 },
         toleranceCoverage: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0.99 },
         toleranceConfidence: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0.95 },
         requiredSignatures: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 1 },

@@ -48,7 +48,7 @@ export const revisionLetters = async (session: DemoApiSession, deviceId: number)
 const deviceReview = (session: DemoApiSession, deviceId: number) => session.call<DeviceReview>("GET", `/api/devices/${deviceId}/review`);
 
 /** Each open issue of the draft with the engineer's reason for letting it stand; an issue the story has no reason for stops the run. */
-async function acknowledgements(engineer: DemoApiSession, deviceId: number, reasons: Record<string, string>): Promise<{ issue: string; reason: string }[]> {
+async function acknowledgements(engineer: DemoApiSession, deviceId: number, reasons: Readonly<Record<string, string>>): Promise<{ issue: string; reason: string }[]> {
   const { sheet } = await engineer.call<{ sheet: SheetModel }>("GET", `/api/devices/${deviceId}/sheet`);
   return sheet.issues.map((issue) => {
     const reason = reasons[issue.code];
@@ -58,7 +58,7 @@ async function acknowledgements(engineer: DemoApiSession, deviceId: number, reas
 }
 
 /** Submits the draft (a changes-requested candidate is replaced); the one already in review when it is identical. */
-async function submitDraft(team: Team, deviceId: number, note: string, issueReasons: Record<string, string> = {}): Promise<number> {
+async function submitDraft(team: Team, deviceId: number, note: string, issueReasons: Readonly<Record<string, string>> = {}): Promise<number> {
   const body = { acknowledgements: await acknowledgements(team.engineer, deviceId, issueReasons), note };
   const answer = await team.engineer.send<{ candidate: CandidateDetail; error?: { message: string } }>("POST", `/api/devices/${deviceId}/candidates`, body);
   if (answer.status === 201) return answer.body.candidate.id;
@@ -74,11 +74,15 @@ const requestChanges = (reviewer: DemoApiSession, candidateId: number, reason: s
   reviewer.call("POST", `/api/sheet-candidates/${candidateId}/decision`, { decision: "request-changes", reason }, 200);
 
 /** Submit, sign and release the draft as the next revision, going on from an approved candidate if there is one. */
-export async function releaseNext(team: Team, deviceId: number, notes: { submitNote: string; releaseNote: string }): Promise<string> {
+export async function releaseNext(
+  team: Team,
+  deviceId: number,
+  notes: { submitNote: string; releaseNote: string; issueReasons?: Readonly<Record<string, string>> },
+): Promise<string> {
   const { open } = await deviceReview(team.engineer, deviceId);
   let candidateId = open?.state === "approved" ? open.id : null;
   if (candidateId === null) {
-    candidateId = await submitDraft(team, deviceId, notes.submitNote);
+    candidateId = await submitDraft(team, deviceId, notes.submitNote, notes.issueReasons);
     await sign(team.reviewer, candidateId);
   }
   const { revision } = await team.engineer.call<{ revision: RevisionSummary }>("POST", `/api/sheet-candidates/${candidateId}/release`, { note: notes.releaseNote });
@@ -131,7 +135,7 @@ async function playDoublerStory(team: Team): Promise<string[]> {
   // The conformity watch flags BFD-0004 against revision A's narrow three-unit charts; the engineer closes it with a reason.
   await closeDemoAlerts(team.engineer, deviceId, demoRevisionAAlertReason);
   if ((await deviceReview(team.engineer, deviceId)).latest?.state === "released") {
-    const candidateId = await submitDraft(team, deviceId, story.firstResubmission.note);
+    const candidateId = await submitDraft(team, deviceId, story.firstResubmission.note, story.issueReasons);
     await requestChanges(team.reviewer, candidateId, story.firstResubmission.changeRequest);
   }
   await putSheet(team.engineer, deviceId, story.part);
@@ -156,7 +160,7 @@ async function leaveOpenReview(team: Team): Promise<string[]> {
   const story = demoOpenReview;
   const deviceId = await deviceIdOf(team.engineer, story.part);
   if ((await deviceReview(team.engineer, deviceId)).latest) return [];
-  const candidateId = await submitDraft(team, deviceId, story.submitNote);
+  const candidateId = await submitDraft(team, deviceId, story.submitNote, story.issueReasons);
   const { candidate } = await team.reviewer.call<{ candidate: CandidateDetail }>("GET", `/api/sheet-candidates/${candidateId}`);
   const row = candidate.model.specifications.rows.find((r) => r.parameter === story.comment.parameter);
   if (!row) throw new Error(`${story.part} has no ${story.comment.parameter} row to comment on`);

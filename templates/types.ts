@@ -115,6 +115,22 @@ export interface KeyConditionWords {
   driveLevel?: string;
 }
 
+/**
+ * A frequency band the device states in its key conditions, and the condition keys by which the sheet's
+ * rows say where in that band they are specified: a spot frequency, or a band's start and stop. Read by
+ * the consistency checks (lib/sheet/consistency-checks.ts), which compare the two.
+ */
+export interface StatedBandTemplate {
+  /** The device's key condition holding the band. */
+  deviceKey: "inputFrequencyHz" | "outputFrequencyHz";
+  /** The band's name in messages: "input band", "RF band". */
+  label: string;
+  /** Condition keys of a row in this band; a row takes the first source it carries. */
+  sources: { key: string; stopKey?: string }[];
+  /** Only these rows (template row ids) are in the band; every row carrying a source by default. */
+  rowIds?: string[];
+}
+
 export interface SheetTemplate {
   /** A name from lib/domain/device-classes.ts, which also holds the class's human name. */
   deviceClass: DeviceClass;
@@ -128,6 +144,8 @@ export interface SheetTemplate {
     /** Printed under the table, e.g. the reference impedance. */
     notes: string[];
   };
+  /** The bands the device states and how the rows name frequencies in them; none: the band is not checked. */
+  statedBands?: StatedBandTemplate[];
   curves: CurveTemplate[];
   /** Parameter-against-condition charts, drawn after the curves; none by default. */
   trends?: TrendTemplate[];

@@ -2,10 +2,13 @@ import { parameterCatalog } from "@/lib/analysis/catalog";
 import type { DerivedParameter } from "@/lib/analysis/types";
 import { NumberQuantity } from "@/components/ui/quantity";
 import { describeConditions } from "./parameter-conditions";
+import { harmonicSuppressionLabel } from "@/lib/domain/parameter-names";
 
-function labelOf(name: string): { label: string; description?: string } {
+/** The parameter's name; a harmonic order's suppression is named as the sheet's row and the charts' legend name it. */
+function labelOf(name: string, conditions: DerivedParameter["conditions"] = {}): { label: string; description?: string } {
   const entry = (parameterCatalog as Record<string, { label: string; description: string }>)[name];
-  return entry ? { label: entry.label, description: entry.description } : { label: name };
+  const label = name === "harmonic-suppression" && typeof conditions.order === "number" ? harmonicSuppressionLabel(conditions.order) : entry?.label ?? name;
+  return entry ? { label, description: entry.description } : { label };
 }
 
 function ParameterValue({ p }: { p: DerivedParameter }) {
@@ -59,7 +62,7 @@ function ParameterRows({ parameters, testId }: { parameters: DerivedParameter[];
         </thead>
         <tbody>
           {parameters.map((p, i) => {
-            const { label, description } = labelOf(p.name);
+            const { label, description } = labelOf(p.name, p.conditions);
             const parts = describeConditions(p.conditions);
             return (
               <tr key={i}>

@@ -1,4 +1,4 @@
-import { describeAbsentCpk, formatPassCount } from "@/lib/sheet/format";
+import { annexUnitText, describeAbsentCpk, formatCpkInterval, formatPassCount } from "@/lib/sheet/format";
 import type { SheetModel } from "@/lib/sheet/types";
 import { NoDataNotice } from "./no-data-notice";
 import { Notation } from "./notation";
@@ -122,7 +122,7 @@ export function SheetStatistics({ model }: { model: SheetModel }) {
             {statistics.groups.map((g) => (
               <tr key={g.groupId}>
                 <th scope="row">
-                  {g.label} <span className="unit">({g.unit})</span>
+                  {g.label} <span className="unit">{annexUnitText(g.unit)}</span>
                   {!g.supported ? <span className="ml-1 font-semibold text-signal">!</span> : null}
                   <div className="text-sm text-ink-muted">
                     <Notation text={g.conditionsText} />
@@ -136,7 +136,10 @@ export function SheetStatistics({ model }: { model: SheetModel }) {
                 <td className="num figure">{g.max.text}</td>
                 <td className="num figure">{g.toleranceInterval?.lower.text ?? ""}</td>
                 <td className="num figure">{g.toleranceInterval?.upper.text ?? ""}</td>
-                <td className="num figure">{g.cpk.text}</td>
+                <td className="num figure">
+                  {g.cpk.text}
+                  {g.cpkInterval ? <div className="text-sm text-ink-muted">{formatCpkInterval(g)}</div> : null}
+                </td>
                 <td className="num figure">{g.expandedUncertainty.text}</td>
                 <td className="num figure">{formatPassCount(g)}</td>
               </tr>

@@ -124,19 +124,29 @@ export function SheetRevisionHistory({ model }: ModelProps) {
   );
 }
 
-/** The build's open issues, on a sheet that is not released; never printed. */
+/** The build's open issues and the checks that were made, on a sheet that is not released; never printed. */
 export function SheetReviewNotes({ model }: ModelProps) {
-  if (model.header.released || model.issues.length === 0) return null;
+  const checks = model.reviewChecks ?? [];
+  if (model.header.released || (model.issues.length === 0 && checks.length === 0)) return null;
   return (
     <section aria-labelledby="sheet-review-notes" className="sheet-no-print mt-10 border-l-2 border-signal pl-4">
       <h2 id="sheet-review-notes" className="font-semibold">
         Review notes <span className="font-normal text-ink-muted">(not shown on a released sheet)</span>
       </h2>
-      <ul className="mt-2 list-disc space-y-1 pl-5">
-        {model.issues.map((issue, i) => (
-          <li key={i}>{issue.message}</li>
-        ))}
-      </ul>
+      {model.issues.length > 0 ? (
+        <ul className="mt-2 list-disc space-y-1 pl-5">
+          {model.issues.map((issue, i) => (
+            <li key={i}>{issue.message}</li>
+          ))}
+        </ul>
+      ) : (
+        <p className="mt-2">No open issue.</p>
+      )}
+      {checks.map((text, i) => (
+        <p key={i} className="mt-2 max-w-prose text-sm text-ink-muted" data-testid="review-checks">
+          {text}
+        </p>
+      ))}
     </section>
   );
 }

@@ -1,7 +1,8 @@
 import Link from "next/link";
 import type { RefObject } from "react";
 import type { StatisticsGroup } from "@/lib/sheet/types";
-import { formatNumber, formatQuantity } from "@/lib/format";
+import { differenceUnit, formatNumber, formatQuantity } from "@/lib/format";
+import { formatCpkInterval } from "@/lib/sheet/format";
 import { Notation } from "@/components/sheet/notation";
 
 const basisWords = { test: "guaranteed by test", characterization: "guaranteed by characterization", design: "guaranteed by design" } as const;
@@ -150,7 +151,7 @@ function SpreadFigures({ group: g, coverage, confidence }: { group: StatisticsGr
       </dd>
       <dt>s</dt>
       <dd>
-        <Figure text={g.standardDeviation.text} unit={g.unit} />
+        <Figure text={g.standardDeviation.text} unit={differenceUnit(g.unit)} />
       </dd>
       <dt>Median</dt>
       <dd>
@@ -199,6 +200,7 @@ function LimitFigures({ group: g, cpkThreshold }: { group: StatisticsGroup; cpkT
         {g.cpk.text ? (
           <span className={cpkLow ? "font-semibold text-signal-deep" : ""}>
             <span className="figure">{g.cpk.text}</span>
+            {g.cpkInterval ? <span className="figure text-sm text-ink-muted"> ({formatCpkInterval(g)})</span> : null}
             <span className="text-sm">
               {" "}
               {cpkLow ? "below" : "meets"} the threshold <span className="figure">{formatNumber(cpkThreshold, { digits: { maxDecimals: 2 } })}</span>
@@ -219,7 +221,7 @@ function LimitFigures({ group: g, cpkThreshold }: { group: StatisticsGroup; cpkT
       </dd>
       <dt>U (k = 2)</dt>
       <dd>
-        <Figure text={g.expandedUncertainty.text} unit={g.expandedUncertainty.text ? g.unit : undefined} />
+        <Figure text={g.expandedUncertainty.text} unit={g.expandedUncertainty.text ? differenceUnit(g.unit) : undefined} />
       </dd>
       {g.acceptance ? (
         <>

@@ -18,10 +18,12 @@ export function addCompressionPoint(input: {
   parameters: DerivedParameter[];
   warnings: string[];
   /**
-   * False where a linear start cannot be asked of the sweep: a multiplier's conversion gain rises with
-   * drive below its optimum (square law for a doubler), so it has no linear region to start in.
+   * False where compression cannot be asked of the sweep: a passive multiplier's conversion gain rises
+   * with drive below its optimum (square law for a doubler), so it has no linear region to start in,
+   * and a sweep that stops before its gain falls 1 dB below the first steps' is what it was meant to
+   * be. Neither warning is raised then; a point the sweep does reach is still reported.
    */
-  linearStartExpected?: boolean;
+  compressionExpected?: boolean;
 }): CompressionPoint | undefined {
   const { base, options, parameters, warnings } = input;
   const stated = options.compression?.referenceInputPowerDbm;
@@ -39,14 +41,15 @@ export function addCompressionPoint(input: {
     return undefined;
   }
   const conditions = { ...base, ...compressionConditions(compression, stated?.source) };
-  if (compression.nonLinearStart && input.linearStartExpected !== false) warnings.push(compression.nonLinearStart);
+  const expected = input.compressionExpected !== false;
+  if (compression.nonLinearStart && expected) warnings.push(compression.nonLinearStart);
   if (compression.reached) {
     parameters.push(makeParameter("input-p1db", compression.inputCompressionPointDbm, conditions));
     parameters.push(makeParameter("output-p1db", compression.outputCompressionPointDbm, conditions));
   } else {
     parameters.push(makeParameter("input-p1db", null, conditions));
     parameters.push(makeParameter("output-p1db", null, conditions));
-    warnings.push(`No 1 dB compression in this sweep: ${compression.reason}`);
+    if (expected) warnings.push(`No 1 dB compression in this sweep: ${compression.reason}`);
   }
   return compression;
 }

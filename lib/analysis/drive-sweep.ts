@@ -97,7 +97,7 @@ function addOptimum(data: DriveSweep, sweep: DeEmbeddedSweep, parameters: Derive
 /**
  * For a doubler the "gain" is −CL of the wanted order, against the input reaching the device (all ports);
  * the small-signal reference is read as for any sweep (lib/analysis/compression.ts), but a multiplier is
- * not warned that its sweep starts outside a linear region it never has.
+ * not warned that its sweep starts outside a linear region it never has, nor that it never compresses.
  */
 function addCompression(data: DriveSweep, sweep: DeEmbeddedSweep, parameters: DerivedParameter[], warnings: string[], options: DeriveOptions): void {
   addCompressionPoint({
@@ -107,7 +107,7 @@ function addCompression(data: DriveSweep, sweep: DeEmbeddedSweep, parameters: De
     options,
     parameters,
     warnings,
-    linearStartExpected: data.wantedOrder === 1,
+    compressionExpected: data.wantedOrder === 1,
   });
 }
 

@@ -6,6 +6,7 @@
  * the colours are design tokens (lib/design/tokens.ts), so they follow the page.
  */
 import { tokens } from "../design/tokens";
+import { harmonicOrderName } from "../domain/parameter-names";
 
 export type PointShape = "circle" | "square" | "triangle-up" | "diamond" | "cross" | "triangle-down";
 
@@ -50,14 +51,12 @@ export function seriesStyle(name: string, curveSeriesNames: readonly string[]): 
   return SERIES_STYLES[seriesStyleIndex(name, curveSeriesNames) % SERIES_STYLES.length];
 }
 
-/** "order 2" → "2nd harmonic (×2)"; order 1 is the fundamental. Other names as the engine gives them. */
+/** "order 2" → "2nd harmonic (×2)"; order 1 is the fundamental (the names of lib/domain/parameter-names.ts). Other names as the engine gives them. */
 export function seriesLabel(name: string): string {
   const m = /^order (\d+)$/.exec(name);
   if (!m) return name;
   const n = Number(m[1]);
-  if (n === 1) return "fundamental (×1)";
-  const suffix = n % 10 === 2 && n % 100 !== 12 ? "nd" : n % 10 === 3 && n % 100 !== 13 ? "rd" : "th";
-  return `${n}${suffix} harmonic (×${n})`;
+  return `${harmonicOrderName(n)} (×${n})`;
 }
 
 export type ChartFonts = { text: string; figures: string };

@@ -109,6 +109,18 @@ export function displayUnit(unit: string): string {
   return unit === "deg" ? "°" : unit;
 }
 
+/** Levels in decibels relative to a reference (mW, the carrier, the carrier per hertz, …). */
+const DECIBEL_LEVEL = /^dB(m|W|c|c\/Hz|µV|uV|FS|i)$/;
+
+/**
+ * The unit of a difference, spread or uncertainty of a figure in this unit: the difference of two
+ * levels in dBm, dBc or dBc/Hz is a ratio, in dB (common practice: a level meter's accuracy reads
+ * "±0.5 dB", never "±0.5 dBm"). Any other unit is its own.
+ */
+export function differenceUnit(unit: string): string {
+  return DECIBEL_LEVEL.test(unit) ? "dB" : unit;
+}
+
 /** Units that follow the number without a space. */
 const ATTACHED_UNITS = new Set(["°", ":1"]);
 

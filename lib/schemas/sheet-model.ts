@@ -64,6 +64,7 @@ const sampleFigures = {
   max: formattedValue,
   toleranceInterval: z.object({ lower: formattedValue, upper: formattedValue, factor: formattedValue }).nullable(),
   cpk: formattedValue,
+  cpkInterval: z.object({ lower: formattedValue, upper: formattedValue }).optional(),
   expandedUncertainty: formattedValue,
   decisionRule: z.enum(["guard-band", "simple-acceptance"]).nullable(),
   acceptance: z.object({ lower: formattedValue, upper: formattedValue }).nullable(),
@@ -204,6 +205,7 @@ export const sheetModelSchema = z
     revisionHistory: z.array(z.object({ label: z.string(), date: z.string(), summary: z.string() })),
     release: sheetRelease.nullable(),
     issues: z.array(z.object({ code: z.string(), message: z.string() })),
+    reviewChecks: z.array(z.string()).optional(),
   })
   .meta({ description: "The frozen sheet model of a released revision: everything the web sheet and the PDF draw." });
 

@@ -9,6 +9,15 @@ import { buildCharts } from "./sheet-charts";
 import { buildSpecTable, type SpecTable } from "./spec-table";
 import { DEFAULT_CPK_MIN_UNITS } from "./statistics";
 import { buildTraceability } from "./traceability";
+import {
+  checkLimitSpread,
+  checkLimitUnitCount,
+  checkStatedBands,
+  checkStatedUncertainty,
+  DEFAULT_LIMIT_MIN_UNITS,
+  ratedOperatingTemperature,
+  reviewCheckStatements,
+} from "./consistency-checks";
 import type { ApprovedSetInput, SheetInput, SheetModel } from "./types";
 import { PLAUSIBILITY_PREFIX } from "../ingest/plausibility-warning";
 
@@ -48,6 +57,7 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
   const traceability = buildTraceability(sets, issues);
   const charts = buildCharts(template, sets);
   const prose = buildProse(template, input, issues);
+  issues.push(...consistencyIssues(template, input, sets, specTable));
   // Units approved after the release that the released limits or the control charts disagree with.
   for (const message of input.conformityAlerts ?? []) issues.push({ code: "conformity-alert", message });
 
@@ -74,7 +84,18 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
       .map(({ label, date, summary }) => ({ label, date, summary })),
     release: null,
     issues,
+    reviewChecks: [...reviewCheckStatements],
   };
+}
+
+/** The consistency checks before review (lib/sheet/consistency-checks.ts), in the order the sheet reads. */
+function consistencyIssues(template: SheetTemplate, input: SheetInput, sets: ApprovedSetInput[], specTable: SpecTable): Issues {
+  return [
+    ...checkStatedBands({ template, keyConditions: input.device.keyConditions, groups: specTable.groups }),
+    ...checkStatedUncertainty({ rows: template.specifications.rows, sets, measurementUncertainty: input.settings.measurementUncertainty }),
+    ...checkLimitSpread({ groups: specTable.groups, operatingTemperatureC: ratedOperatingTemperature(input.absoluteMaximumRatings) }),
+    ...checkLimitUnitCount({ groups: specTable.groups, minUnits: input.settings.limitMinUnits ?? DEFAULT_LIMIT_MIN_UNITS }),
+  ];
 }
 
 /** The approved sets of the kinds the template takes, in a fixed order; any other set, or none, is an issue. */
@@ -157,7 +178,9 @@ function buildStatisticsSection(settings: SheetInput["settings"], specTable: Spe
       `Cpk = min[(USL − mean)/(3s), (mean − LSL)/(3s)] (NIST/SEMATECH §6.1.6). A limit is flagged as not supported by the data ` +
       `when Cpk < ${formatNumber(settings.cpkThreshold, { digits: { maxDecimals: 2 } })} or when any unit falls outside the guard-banded limit. ` +
       `Cpk is printed only from ${settings.cpkMinUnits ?? DEFAULT_CPK_MIN_UNITS} units or more (the organization's setting): from fewer its estimate is too uncertain to mean something, ` +
-      `though it is still judged against the threshold.`,
+      `though it is still judged against the threshold. A printed Cpk carries its two-sided ` +
+      `${formatQuantity(settings.toleranceConfidence * 100, "%", { digits: { maxDecimals: 2 } })} confidence interval ` +
+      `Ĉpk ± z·√(1/(9n) + Ĉpk²/(2(n − 1))) (Bissell 1990, normal approximation).`,
     decisionRules: specTable.decisionRules,
     groups: specTable.groups,
     flaggedGroupCount: specTable.groups.filter((g) => !g.supported).length,

@@ -3,7 +3,7 @@
  * its text as printed, from the one formatter in lib/format.
  */
 
-import { formatNumber, formatQuantity } from "../format/quantity";
+import { differenceUnit, displayUnit, formatNumber, formatQuantity } from "../format/quantity";
 import { shortestDecimals } from "../format/typed-decimals";
 import type { FormattedValue } from "./types";
 
@@ -77,4 +77,19 @@ export function describeAbsentCpk(statistics: { cpkMinUnits?: number; groups: { 
     `Cpk is left blank for ${count === 1 ? "one limit" : `${count} limits`}: fewer than ${minimum} the organization requires were measured, ` +
     `and from so few units the estimate is too uncertain to mean something. Such a Cpk is still judged against the threshold.`
   );
+}
+
+/**
+ * The unit beside a parameter in the statistics annex, where one row holds values, their spread and
+ * their uncertainty: "(dB)", or for a level "(dBc; s, U in dB)", since the spread and the uncertainty
+ * of a level in dBc, dBc/Hz or dBm are ratios, in dB.
+ */
+export function annexUnitText(unit: string): string {
+  const spread = differenceUnit(unit);
+  return spread === unit ? `(${displayUnit(unit)})` : `(${displayUnit(unit)}; s, U in ${displayUnit(spread)})`;
+}
+
+/** A printed Cpk's confidence interval as the annex shows it under the figure, "1.10–1.94"; "" when there is none. */
+export function formatCpkInterval(group: { cpkInterval?: { lower: FormattedValue; upper: FormattedValue } }): string {
+  return group.cpkInterval ? `${group.cpkInterval.lower.text}\u2013${group.cpkInterval.upper.text}` : "";
 }

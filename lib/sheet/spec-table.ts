@@ -134,6 +134,7 @@ function buildStatisticsGroup({ row, conditionsKey, limit, stats }: RowGroup, co
         }
       : null,
     cpk: stats.cpk,
+    ...(stats.cpkInterval ? { cpkInterval: stats.cpkInterval } : {}),
     expandedUncertainty: stats.expandedUncertainty,
     decisionRule: stats.decisionRule,
     acceptance: stats.acceptance,

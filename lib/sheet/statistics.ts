@@ -1,5 +1,5 @@
-import { computeCapability, computeToleranceFactorExact, decideConformity, describeDecisionRule, summarizeSample } from "../stats";
-import { formatNumber, formatQuantity } from "../format/quantity";
+import { computeCapability, computeCpkConfidenceInterval, computeToleranceFactorExact, decideConformity, describeDecisionRule, summarizeSample } from "../stats";
+import { differenceUnit, formatNumber, formatQuantity } from "../format/quantity";
 import { emptyValue, formatValue, roundStable } from "./format";
 import type { FormattedValue, SampleFigures, SpecLimitInput, StatisticsFlag, UnitResult } from "./types";
 
@@ -68,7 +68,7 @@ export function computeGroupStatistics(options: GroupStatisticsOptions): GroupSt
   if (limit && limit.unit !== unit) {
     flags.push({ code: "limit-unit-mismatch", message: `The limit is stated in ${limit.unit || "no unit"}, the parameter in ${unit}.` });
   }
-  const capability = stated ? judgeCapability({ sample, limit: stated, cpkThreshold, cpkMinUnits, flags }) : { cpk: emptyValue, absentReason: null };
+  const capability = stated ? judgeCapability({ sample, limit: stated, cpkThreshold, cpkMinUnits, confidence, flags }) : { cpk: emptyValue, absentReason: null };
   const known = expandedUncertainty !== undefined && expandedUncertainty >= 0 ? expandedUncertainty : undefined;
   const decisions = decideUnits({ values, limit: stated, expandedUncertainty: known, unit, statDecimals, flags });
 
@@ -84,6 +84,7 @@ export function computeGroupStatistics(options: GroupStatisticsOptions): GroupSt
     spreadValue: sample.s,
     toleranceInterval: sample.toleranceInterval,
     cpk: capability.cpk,
+    ...(capability.interval ? { cpkInterval: capability.interval } : {}),
     cpkAbsentReason: capability.absentReason,
     expandedUncertainty: known !== undefined ? formatValue(known, statDecimals) : emptyValue,
     decisionRule: decisions.decisionRule,
@@ -143,9 +144,11 @@ function judgeCapability(options: {
   limit: SpecLimitInput;
   cpkThreshold: number;
   cpkMinUnits: number;
+  /** Of the printed Cpk's confidence interval. */
+  confidence: number;
   flags: StatisticsFlag[];
-}): { cpk: FormattedValue; absentReason: string | null } {
-  const { sample, limit, cpkThreshold, cpkMinUnits, flags } = options;
+}): { cpk: FormattedValue; absentReason: string | null; interval?: { lower: FormattedValue; upper: FormattedValue } } {
+  const { sample, limit, cpkThreshold, cpkMinUnits, confidence, flags } = options;
   const { n, s, meanValue } = sample;
   const absent = { cpk: emptyValue, absentReason: null };
   if (n === 0) {
@@ -180,7 +183,8 @@ function judgeCapability(options: {
         message: `Cpk ${formatNumber(capability.cpk, { digits: { maxDecimals: 2 } })} is below the threshold ${threshold}: the data do not support this limit.`,
       });
     }
-    return { cpk: formatValue(capability.cpk, 2), absentReason: null };
+    const interval = computeCpkConfidenceInterval({ cpk: capability.cpk, sampleSize: n, confidence });
+    return { cpk: formatValue(capability.cpk, 2), absentReason: null, interval: { lower: formatValue(interval.lower, 2), upper: formatValue(interval.upper, 2) } };
   } catch (error) {
     flags.push({ code: "insufficient-data", message: error instanceof Error ? error.message : String(error) });
     return absent;
@@ -224,7 +228,7 @@ function decideUnits(options: {
     if (guardLower !== null && guardUpper !== null && guardLower > guardUpper) {
       flags.push({
         code: "guard-band-closes-acceptance",
-        message: `Guard bands of U = ${formatQuantity(u, unit)} leave no acceptance zone between the limits.`,
+        message: `Guard bands of U = ${formatQuantity(u, differenceUnit(unit))} leave no acceptance zone between the limits.`,
       });
     }
   }

@@ -92,6 +92,8 @@ export interface SheetInput {
     cpkThreshold: number;
     /** Cpk is stated only from this many units or more (the organization's setting, default 10). */
     cpkMinUnits?: number;
+    /** Fewer units than this behind a limit guaranteed by characterization is an open issue (the organization's setting, default 5). */
+    limitMinUnits?: number;
     /** Tolerance-interval coverage and confidence, e.g. 0.99 and 0.95. */
     toleranceCoverage: number;
     toleranceConfidence: number;
@@ -181,6 +183,8 @@ export interface SampleFigures {
   max: FormattedValue;
   toleranceInterval: { lower: FormattedValue; upper: FormattedValue; factor: FormattedValue } | null;
   cpk: FormattedValue;
+  /** The two-sided confidence interval of a printed Cpk (Bissell 1990), at the sheet's stated confidence; absent otherwise. */
+  cpkInterval?: { lower: FormattedValue; upper: FormattedValue };
   expandedUncertainty: FormattedValue;
   decisionRule: "guard-band" | "simple-acceptance" | null;
   acceptance: { lower: FormattedValue; upper: FormattedValue } | null;
@@ -330,4 +334,9 @@ export interface SheetModel {
   release: SheetRelease | null;
   /** Problems a reviewer must see before approving (missing ratings, unknown limits, lapsed calibration). */
   issues: { code: string; message: string }[];
+  /**
+   * Which consistency checks were made before review and what no check can see (lib/sheet/consistency-checks.ts),
+   * printed with the review notes of an unreleased sheet; absent on sheets built before it was kept.
+   */
+  reviewChecks?: string[];
 }

@@ -1,4 +1,4 @@
-import { formatQuantity } from "../format/quantity";
+import { differenceUnit, formatQuantity } from "../format/quantity";
 /**
  * Conformity decisions against specification limits, with the decision rule
  * stated beside each result as ISO/IEC 17025:2017 §7.8.6 requires. Rules follow
@@ -46,7 +46,7 @@ export function decideConformity(options: ConformityOptions): ConformityDecision
   const acceptanceUpperLimit = upperLimit === undefined ? null : upperLimit - guardBand;
   if (acceptanceLowerLimit !== null && acceptanceUpperLimit !== null && acceptanceLowerLimit > acceptanceUpperLimit) {
     throw new RangeError(
-      `Guard bands of U = ${formatQuantity(u, unit, { digits: { maxSignificant: 6 } })} close the acceptance zone between ${lowerLimit} and ${upperLimit}`,
+      `Guard bands of U = ${formatQuantity(u, differenceUnit(unit), { digits: { maxSignificant: 6 } })} close the acceptance zone between ${lowerLimit} and ${upperLimit}`,
     );
   }
   const passes =
@@ -68,7 +68,8 @@ export function decideConformity(options: ConformityOptions): ConformityDecision
 
 /** The decision rule in words, for the sheet and for each per-unit result. */
 export function describeDecisionRule(rule: DecisionRule, expandedUncertainty: number, unit = ""): string {
-  const uText = `U = ${formatQuantity(expandedUncertainty, unit, { digits: { maxSignificant: 3 } })} (k = 2)`;
+  // The uncertainty of a level in dBm, dBc or dBc/Hz is a ratio, in dB.
+  const uText = `U = ${formatQuantity(expandedUncertainty, differenceUnit(unit), { digits: { maxSignificant: 3 } })} (k = 2)`;
   if (rule === "simple-acceptance") {
     return (
       `Simple acceptance (ILAC-G8:09/2019 §4.2.1, guard band w = 0): a unit passes when its measured value lies ` +

@@ -63,6 +63,23 @@ export interface DemoCatalogPart {
   releaseNote: string;
 }
 
+/**
+ * Why each open issue a catalog part is submitted with may stand, by issue code, in the engineers' words
+ * (lib/sheet/consistency-checks.ts raises them: the parts are characterized at a few frequencies inside
+ * their band, at +25 °C, from one lot of a first build). An issue with no reason here stops the loader.
+ */
+export const demoCatalogIssueReasons: Readonly<Record<string, string>> = {
+  "stated-band-not-specified":
+    "The stated band is the design band; production test screens every unit at the frequencies the rows state, and units at the band edges are characterized with the next lot.",
+  "uncertainty-below-instruments":
+    "The stated U is the bench's budget for its method, which corrects the instruments' level error at every point (the generator levelled " +
+    "against the analyzer, the network analyzer calibrated on the board), so the register's uncorrected figures do not enter it.",
+  "limit-at-one-temperature":
+    "The limits are stated at +25 °C, as the table's T_A column says; the temperature runs are planned for the next revision.",
+  "limit-from-one-lot": "All units come from the first production lot; the second lot joins the characterization before the next revision.",
+  "limit-from-few-units": "The characterization limits rest on the first build's units; more are added as production tests them.",
+};
+
 /** Instruments the loader enters where an organization has none of that kind (through the admin API). */
 export const demoCatalogInstruments: Record<string, DemoInstrument[]> = {
   pellacourt: [

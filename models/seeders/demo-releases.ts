@@ -15,7 +15,50 @@ export interface DemoRelease {
   part: string;
   submitNote: string;
   releaseNote: string;
+  /** Why each open issue of the draft may stand, by issue code, in the engineer's words (lib/sheet/consistency-checks.ts raises most). */
+  issueReasons: Readonly<Record<string, string>>;
 }
+
+/** The same words on every sheet measured at room temperature on one bench. */
+const atRoomTemperature =
+  "The limits are stated at +25 °C, as the table's T_A column says; the −40 °C and +85 °C runs are planned for the next revision.";
+const sourceLevelledOnAnalyzer =
+  "On this bench the generator is levelled against the analyzer at every step, so its own 0.6 dB level uncertainty does not enter the " +
+  "conversion loss; the stated U is the bench budget for that method.";
+
+/** The open issues each demo sheet is submitted with, and why the engineer lets each stand. */
+const demoIssueReasons = {
+  "KDX-2G4": {
+    "stated-band-not-specified":
+      "Production test screens every unit at 1 GHz in (2 GHz out), and every row states it; units at the band edges are on the bench for the next revision.",
+    "uncertainty-below-instruments": sourceLevelledOnAnalyzer,
+    "limit-at-one-temperature": atRoomTemperature,
+    "limit-from-one-lot": "All units are from the October build; the next build's units join the characterization before the next revision.",
+    "limit-from-few-units": "The characterization limits rest on the October build's units; more are added as production tests them.",
+  },
+  "KM-7H": {
+    "specified-outside-stated-band":
+      "The device record states the balun's design band; this lot was characterized on the 0.5–3 GHz bench, and the rows say so. The record follows the characterized band at the next revision.",
+    "stated-band-not-specified": "Below 500 MHz the mixer is specified by design only; the low-band bench is being built.",
+    "uncertainty-below-instruments": sourceLevelledOnAnalyzer,
+    "limit-at-one-temperature": atRoomTemperature,
+  },
+  "KQH-2G": {
+    "specified-outside-stated-band":
+      "The worst-in-band figures are taken over 1.5–2.5 GHz, wider than the 1.7–2.3 GHz the part is offered for, so they hold inside it as well.",
+    "limit-from-one-lot": "Lot L2610 is the only lot built so far; VSWR is stated as characterization until the second lot is measured.",
+    "limit-from-few-units": "Three units of lot L2610 are all the pilot build made; the VSWR limit is reviewed when the second lot is in.",
+    "limit-at-one-temperature": atRoomTemperature,
+  },
+  "PS-2W": {
+    "stated-band-not-specified": "Only typical values are given, from one unit measured to 2.5 GHz; the 2.5–3 GHz part of the band is by design until the production lot is measured.",
+  },
+  "WL-C2611-KDX": {
+    "stated-band-not-specified": "The customer uses the part at 1 GHz in only; this lab report characterizes it there.",
+    "uncertainty-below-instruments":
+      "Our generator is levelled against the analyzer at every step, so its level uncertainty does not enter; the stated U is the lab's budget for that method.",
+  },
+} satisfies Record<string, Record<string, string>>;
 
 const doubler1GHz = "drive=optimum;inputFrequencyHz=1000000000;temperatureC=25";
 
@@ -48,7 +91,9 @@ export const demoDoublerStory = {
   followerBeforeRevisionB: "anneli.vos@tarnby-radio.example",
   /** Serials approved only after revision A is released. */
   addedAfterRevisionA: ["BFD-0004"],
+  issueReasons: demoIssueReasons["KDX-2G4"],
   revisionA: {
+    issueReasons: demoIssueReasons["KDX-2G4"],
     submitNote:
       "First release of the KDX-2G4: units BFD-0001 to BFD-0003 from the October build, plus the residual phase-noise run. BFD-0004's sweep is still in review, so conversion loss is guaranteed at 11.5 dB for now.",
     releaseNote: "Initial release from three production units; the conversion-loss maximum keeps a margin until the fourth unit is reviewed.",
@@ -60,6 +105,7 @@ export const demoDoublerStory = {
       "With BFD-0004 in, all four units sit well inside 11.5 dB at optimum drive. Tighten the conversion-loss maximum to 11.0 dB as we agreed at revision A, so the sheet states what production test actually screens.",
   },
   revisionB: {
+    issueReasons: demoIssueReasons["KDX-2G4"],
     submitNote: "Conversion-loss maximum tightened from 11.5 to 11.0 dB on the four-unit spread, as requested, and the features line says so.",
     releaseNote:
       "Fourth unit (BFD-0004) added to the test population; conversion-loss maximum tightened from 11.5 dB to 11.0 dB.",
@@ -71,18 +117,21 @@ export const demoFirstReleases: DemoRelease[] = [
   {
     org: "kestrine",
     part: "KM-7H",
+    issueReasons: demoIssueReasons["KM-7H"],
     submitNote: "Four units at +7 dBm LO across 500–3000 MHz. The two-tone intercept set is still in review and is not part of this sheet.",
     releaseNote: "First release: four units, conversion loss and LO-to-RF isolation. Intercept figures follow in a later revision.",
   },
   {
     org: "kestrine",
     part: "KQH-2G",
+    issueReasons: demoIssueReasons["KQH-2G"],
     submitNote: "Three units of lot L2610 on the four-port board, TRL-corrected. VSWR is stated as characterization only.",
     releaseNote: "First release: three units of lot L2610, 1.5–2.5 GHz.",
   },
   {
     org: "pellacourt",
     part: "PS-2W",
+    issueReasons: demoIssueReasons["PS-2W"],
     submitNote: "One unit (PS-0007) measured from 0.5 to 2.5 GHz. Typical values only: no limit is guaranteed until a production lot is measured.",
     releaseNote: "First release, from one characterized unit: typical values, no guaranteed limits.",
   },
@@ -92,6 +141,7 @@ export const demoFirstReleases: DemoRelease[] = [
 export const demoOpenReview = {
   org: "wrenfield-lab",
   part: "WL-C2611-KDX",
+  issueReasons: demoIssueReasons["WL-C2611-KDX"],
   submitNote: "Characterization of one unit of the customer's lot 2611, used as a doubler. Phase noise is not included yet.",
   comment: {
     parameter: "conversion-loss",
@@ -106,7 +156,7 @@ export const demoChangesRequested = {
   org: "pellacourt",
   part: "PX-40",
   submitNote: "Words, features and absolute maximum ratings for review ahead of the first lot.",
-  /** Why each open issue may stand, by issue code, in the engineer's words. The released sheets have none. */
+  /** Why each open issue may stand, by issue code, in the engineer's words. */
   issueReasons: {
     "no-approved-data":
       "Submitted early on purpose: the ratings, features and wording are to be agreed before lot 1 goes on the bench. The figures follow from the drive sweeps.",

@@ -118,6 +118,16 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
       "System impedance 50 Ω; LO drive is the available power at the LO port. Where a row states an IF and no LO, the RF was swept at that fixed IF with the LO following it.",
     ],
   },
+  // The device states its RF band; the conversion-loss and isolation rows are figures over an RF band.
+  // (A port's VSWR band may be the LO port's, so it is not compared with the RF band.)
+  statedBands: [
+    {
+      deviceKey: "inputFrequencyHz",
+      label: "RF band",
+      sources: [{ key: "startHz", stopKey: "stopHz" }],
+      rowIds: ["conversion-loss-worst", "conversion-loss-typical", "isolation-lo-rf", "isolation-lo-if", "isolation-rf-if"],
+    },
+  ],
   curves: [
     {
       id: "conversion-loss-vs-frequency",

@@ -1,6 +1,7 @@
 import { composeCautions, composeProse, defaultHandlingProse, esdRating, temperatureColumn, temperatureRatings } from "../common";
 import { frequencyMultiplierConditions } from "./conditions";
 import type { SheetTemplate } from "../types";
+import { harmonicSuppressionLabel } from "../../lib/domain/parameter-names";
 
 const frequencyColumn = {
   id: "frequency",
@@ -60,7 +61,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "fundamental-suppression",
         parameter: "harmonic-suppression",
-        label: "Fundamental suppression",
+        label: harmonicSuppressionLabel(1),
         symbol: "HS1",
         unit: "dBc",
         decimals: 1,
@@ -71,7 +72,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "third-harmonic-suppression",
         parameter: "harmonic-suppression",
-        label: "3rd harmonic suppression",
+        label: harmonicSuppressionLabel(3),
         symbol: "HS3",
         unit: "dBc",
         decimals: 1,
@@ -82,7 +83,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "fourth-harmonic-suppression",
         parameter: "harmonic-suppression",
-        label: "4th harmonic suppression",
+        label: harmonicSuppressionLabel(4),
         symbol: "HS4",
         unit: "dBc",
         decimals: 1,
@@ -158,6 +159,11 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       "RMS jitter and phase integrate L(f) over the offset band printed beside them: φ_rms = √(2∫L(f)df), σ_t = φ_rms/(2π f_0).",
     ],
   },
+  // The input band holds the drive sweeps' input frequency; the output band the phase-noise carrier.
+  statedBands: [
+    { deviceKey: "inputFrequencyHz", label: "input band", sources: [{ key: "inputFrequencyHz" }] },
+    { deviceKey: "outputFrequencyHz", label: "output band", sources: [{ key: "carrierFrequencyHz" }] },
+  ],
   curves: [
     {
       id: "conversion-loss-vs-drive",
@@ -199,7 +205,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       parameter: "harmonic-suppression",
       match: { order: 1, drive: "optimum" },
       x: { key: "inputFrequencyHz", label: "Input frequency", unit: "Hz" },
-      y: { label: "Fundamental suppression", unit: "dBc" },
+      y: { label: harmonicSuppressionLabel(1), unit: "dBc" },
       title: "Fundamental suppression at optimum drive vs input frequency",
       caption: "Each line one unit, through its measured frequencies.",
     },

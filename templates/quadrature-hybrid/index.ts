@@ -101,6 +101,7 @@ export const quadratureHybridTemplate: SheetTemplate = {
       "Measured with a vector network analyzer, all ports terminated in 50 Ω.",
     ],
   },
+  statedBands: [{ deviceKey: "inputFrequencyHz", label: "band", sources: [{ key: "startHz", stopKey: "stopHz" }] }],
   curves: [
     { id: "transmission", curveId: "transmission", title: "Insertion loss and isolation vs frequency", caption: "Line style tells the paths apart." },
     { id: "amplitude-balance", curveId: "amplitude-balance", title: "Amplitude balance vs frequency", caption: "Each line one unit." },

@@ -8,7 +8,7 @@ import { renderSheetChartPngs } from "../charts/render-chart";
 import { settleGlyphCodePoints } from "./settle-glyph-code-points";
 import { stampPageNumbers } from "./stamp-page-numbers";
 import { proseLayout } from "../../sheet/prose-layout";
-import { describeAbsentCpk, formatPassCount } from "../../sheet/format";
+import { annexUnitText, describeAbsentCpk, formatCpkInterval, formatPassCount } from "../../sheet/format";
 import { candidateDigestLabel, signedAtText } from "../../sheet/release-text";
 
 let fontsRegistered = false;
@@ -175,12 +175,18 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
         <StatisticsAnnex model={model} />
         <RevisionHistory model={model} />
         <ReleaseRecord model={model} />
-        {!header.released && model.issues.length > 0 ? (
+        {!header.released && (model.issues.length > 0 || (model.reviewChecks ?? []).length > 0) ? (
           <View>
             <SectionHeading>Review notes (not printed on a released sheet)</SectionHeading>
+            {model.issues.length === 0 ? <Text style={styles.paragraph}>No open issue.</Text> : null}
             {model.issues.map((issue, i) => (
               <Text key={i} style={styles.paragraph}>
                 • {issue.message}
+              </Text>
+            ))}
+            {(model.reviewChecks ?? []).map((text, i) => (
+              <Text key={`check-${i}`} style={[styles.paragraph, { color: colors["ink-muted"] }]}>
+                {text}
               </Text>
             ))}
           </View>
@@ -491,7 +497,7 @@ function StatisticsAnnex({ model }: { model: SheetModel }) {
   const rows = statistics.groups.map((g: StatisticsGroup): Cell[] => [
     [
       <>
-        {g.label} <Text style={{ color: colors["ink-muted"] }}>({g.unit})</Text>
+        {g.label} <Text style={{ color: colors["ink-muted"] }}>{annexUnitText(g.unit)}</Text>
       </>,
       <Text style={{ color: colors["ink-muted"], fontSize: 6.8 }}>
         <PdfNotation text={g.conditionsText} subSize={5} />
@@ -504,7 +510,7 @@ function StatisticsAnnex({ model }: { model: SheetModel }) {
     g.max.text,
     g.toleranceInterval?.lower.text ?? "",
     g.toleranceInterval?.upper.text ?? "",
-    g.cpk.text,
+    g.cpkInterval ? [g.cpk.text, <Text style={{ color: colors["ink-muted"], fontSize: 6.8 }}>{formatCpkInterval(g)}</Text>] : g.cpk.text,
     g.expandedUncertainty.text,
     formatPassCount(g),
     g.supported ? "" : <Text style={{ color: colors.signal, fontWeight: 700 }}>!</Text>,

@@ -83,6 +83,7 @@ export async function loadSheetInput(opts: {
     settings: {
       cpkThreshold: organization.cpkThreshold,
       cpkMinUnits: organization.cpkMinUnits,
+      limitMinUnits: organization.limitMinUnits,
       toleranceCoverage: organization.toleranceCoverage,
       toleranceConfidence: organization.toleranceConfidence,
       measurementUncertainty: content?.measurementUncertainty ?? {},

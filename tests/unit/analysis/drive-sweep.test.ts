@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { analyzeExample, log10, pick, valueOf } from "./helpers";
+import { addCompressionPoint } from "@/lib/analysis/compression";
 
 // fixtures/examples/drive-sweep-doubler.csv: splitter_excess_loss 0.4 dB, cable_loss 0.6 dB, wanted order 2, 1 GHz.
 describe("drive sweep of a doubler (drive-sweep-doubler.csv)", () => {
@@ -33,9 +34,19 @@ describe("drive sweep of a doubler (drive-sweep-doubler.csv)", () => {
     expect(p.some((x) => x.name === "harmonic-suppression" && x.conditions.order === 2)).toBe(false);
   });
 
-  it("reports no P1dB: a doubler's conversion gain rises from its lowest-drive value", () => {
+  it("reports no P1dB, and warns of none: a doubler's conversion gain rises from its lowest-drive value, it was never meant to compress", () => {
     expect(pick(p, "input-p1db").value).toBeNull();
-    expect(result.warnings.some((w) => w.includes("compression"))).toBe(true);
+    expect(result.warnings.filter((w) => /compression|linear region/i.test(w))).toEqual([]);
+  });
+
+  it("still warns a sweep of the fundamental that never compresses, or starts outside its linear region", () => {
+    const flat = { inputPowerDbm: [-10, -5, 0, 5], gainDb: [-6, -6, -6, -6.2], base: {}, options: {} };
+    const warned: string[] = [];
+    addCompressionPoint({ ...flat, parameters: [], warnings: warned });
+    expect(warned.some((w) => w.startsWith("No 1 dB compression in this sweep"))).toBe(true);
+    const quiet: string[] = [];
+    addCompressionPoint({ ...flat, parameters: [], warnings: quiet, compressionExpected: false });
+    expect(quiet).toEqual([]);
   });
 
   it("uses catalog units and plain-JSON curves", () => {

@@ -57,7 +57,10 @@ describe.concurrent("benchfold analyze on every example", () => {
     const valueEnds = lines.filter((l) => /^conversion-loss /.test(l)).map((l) => l.lastIndexOf(" dB"));
     expect(new Set(valueEnds).size).toBe(1);
     expect(header.indexOf("value") + "value".length).toBe(valueEnds[0]);
-    expect(run.stdout).toContain("Warnings:");
+    // A doubler is not warned that it never compresses; a mixer's two-tone run that does not reach compression is.
+    expect(run.stdout).not.toContain("Warnings:");
+    const mixer = await benchfold("analyze", "fixtures/examples/two-tone-mixer.tsv");
+    expect(mixer.stdout).toContain("Warnings:\n  - No 1 dB compression in this sweep");
   }, 60_000);
 
   it("honours --kind", async () => {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { buildSheetModel, type SheetInput } from "@/lib/sheet";
-import { describeAbsentCpk, formatLimitValue, formatPassCount, typicalDecimals } from "@/lib/sheet/format";
+import { describeAbsentCpk, formatCpkInterval, formatLimitValue, formatPassCount, typicalDecimals } from "@/lib/sheet/format";
+import { computeCpkConfidenceInterval } from "@/lib/stats";
 import { computeGroupStatistics, type UnitValue } from "@/lib/sheet/statistics";
 import type { SpecLimitInput } from "@/lib/sheet/types";
 import { specLimitsBodySchema } from "@/lib/schemas/sheets";
@@ -189,3 +190,21 @@ describe("pass counts only where a limit exists", () => {
   }
 });
 
+
+describe("a printed Cpk carries its confidence interval", () => {
+  it("at the sheet's stated confidence, by Bissell's approximation, and none where Cpk is left blank", () => {
+    const input = loadDoublerInput();
+    const model = buildSheetModel({ ...input, settings: { ...input.settings, cpkMinUnits: 2 } });
+    const printed = model.statistics.groups.filter((g) => g.cpk.text !== "");
+    expect(printed.length).toBeGreaterThan(0);
+    for (const g of printed) {
+      const interval = computeCpkConfidenceInterval({ cpk: g.cpk.value!, sampleSize: g.n, confidence: input.settings.toleranceConfidence });
+      // Two decimals, as the Cpk itself; the interval of the unrounded Cpk within half a last digit of the printed one's.
+      expect(Math.abs(g.cpkInterval!.lower.value! - interval.lower)).toBeLessThanOrEqual(0.0051);
+      expect(Math.abs(g.cpkInterval!.upper.value! - interval.upper)).toBeLessThanOrEqual(0.0051);
+      expect(formatCpkInterval(g)).toBe(`${g.cpkInterval!.lower.text}\u2013${g.cpkInterval!.upper.text}`);
+    }
+    const blank = buildSheetModel(input).statistics.groups.filter((g) => g.cpk.text === "");
+    for (const g of blank) expect(g.cpkInterval).toBeUndefined();
+  });
+});

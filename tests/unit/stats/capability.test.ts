@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { computeCapability } from "@/lib/stats/capability";
+import { computeCapability, computeCpkConfidenceInterval } from "@/lib/stats/capability";
 
 describe("process capability", () => {
   it("NIST/SEMATECH e-Handbook §6.1.6 example (from memory: USL 20, LSL 8, mean 16, s 2)", () => {
@@ -24,5 +24,24 @@ describe("process capability", () => {
   it("refuses no limits and zero spread", () => {
     expect(() => computeCapability({ mean: 1, standardDeviation: 1 })).toThrow(RangeError);
     expect(() => computeCapability({ mean: 1, standardDeviation: 0, upperSpecLimit: 2 })).toThrow(RangeError);
+  });
+});
+
+describe("confidence interval of Cpk (Bissell 1990, normal approximation)", () => {
+  // scipy 1.17.1: z = norm.ppf(1 − (1 − c)/2); Ĉpk ± z·sqrt(1/(9n) + Ĉpk²/(2(n − 1))).
+  it.each([
+    [1.33, 30, 0.95, 0.9675286272156964, 1.6924713727843037],
+    [1.5, 10, 0.95, 0.7769057956446782, 2.2230942043553217],
+    [2.0, 50, 0.9, 1.6587630385611818, 2.341236961438818],
+  ])("Ĉpk %f from %i units at %f confidence", (cpk, sampleSize, confidence, lower, upper) => {
+    const interval = computeCpkConfidenceInterval({ cpk, sampleSize, confidence });
+    expect(interval.lower).toBeCloseTo(lower, 6);
+    expect(interval.upper).toBeCloseTo(upper, 6);
+  });
+
+  it("refuses fewer than 2 units or a confidence outside (0, 1), and keeps the lower end at 0 or above", () => {
+    expect(() => computeCpkConfidenceInterval({ cpk: 1, sampleSize: 1, confidence: 0.95 })).toThrow(RangeError);
+    expect(() => computeCpkConfidenceInterval({ cpk: 1, sampleSize: 10, confidence: 1 })).toThrow(RangeError);
+    expect(computeCpkConfidenceInterval({ cpk: 0.1, sampleSize: 3, confidence: 0.95 }).lower).toBe(0);
   });
 });
