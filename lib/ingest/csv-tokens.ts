@@ -61,21 +61,23 @@ export function tokenizeCsv(opts: { fileName: string; text: string; from: number
   // csv-parse counts a CRLF inside a quoted cell as two lines; with LF only its count is exact.
   const slice = opts.text.slice(opts.from);
   const body = slice.includes("\r\n") ? slice.replace(/\r\n/g, "\n") : slice;
+  return splitRecordByRecord(body, delimiter, firstLine) ?? tokenizeWhole(fileName, body, delimiter, firstLine);
+}
+
+/**
+ * tokenizeCsv with the whole text through csv-parse at once: the reading every quoting error's
+ * message comes from, and the reference tokenizeCsv's record-by-record reading is tested against.
+ */
+export function tokenizeCsvWhole(opts: { fileName: string; text: string; from: number; firstLine: number; delimiter: Delimiter }): CsvRecords {
+  const slice = opts.text.slice(opts.from);
+  const body = slice.includes("\r\n") ? slice.replace(/\r\n/g, "\n") : slice;
+  return tokenizeWhole(opts.fileName, body, opts.delimiter, opts.firstLine);
+}
+
+function tokenizeWhole(fileName: string, body: string, delimiter: Delimiter, firstLine: number): CsvRecords {
   let cells: string[][];
   try {
-    // Plain array output: an on_record callback makes csv-parse build two info objects per record,
-    // which cost a third of the time in a profile; the lines are counted by recordLines instead.
-    cells = parse(body, {
-      delimiter,
-      record_delimiter: "\n",
-      quote: '"',
-      escape: '"',
-      trim: true,
-      comment: "#",
-      comment_no_infix: true,
-      skip_empty_lines: true,
-      relax_column_count: true,
-    });
+    cells = parse(body, { ...CSV_PARSE_OPTIONS, delimiter });
   } catch (error) {
     const code = (error as { code?: string }).code ?? "";
     const found = locateQuoteProblem(body, delimiter);
@@ -99,6 +101,148 @@ export function tokenizeCsv(opts: { fileName: string; text: string; from: number
     });
   }
   return { cells, lines: recordLines(body, cells, firstLine) };
+}
+
+// Plain array output: an on_record callback makes csv-parse build two info objects per record,
+// which cost a third of the time in a profile; the lines are counted by recordLines instead.
+const CSV_PARSE_OPTIONS = {
+  record_delimiter: "\n",
+  quote: '"',
+  escape: '"',
+  trim: true,
+  comment: "#",
+  comment_no_infix: true,
+  skip_empty_lines: true,
+  relax_column_count: true,
+} as const;
+
+/**
+ * The records of LF-only text one at a time, with csv-parse's result: a record whose cells are each
+ * unquoted or quoted on one line without a quote inside (nearly every record of a spreadsheet
+ * export) is cut at its delimiters here; any other record (a doubled quote, a line break inside
+ * quotes, a "#", unusual spaces at a cell's edge) goes to csv-parse alone. csv-parse's per-byte
+ * loop over the whole file cost twice the plain reading of it, most of a quoted file's time.
+ * Returns undefined, so that tokenizeWhole reads the text and words any error exactly as before,
+ * whenever a record does not come out as one clean record of csv-parse's (a quoting mistake, a
+ * blank-looking line of tabs in a tab file, text that is not well-formed UTF-16).
+ */
+function splitRecordByRecord(body: string, delimiter: Delimiter, firstLine: number): CsvRecords | undefined {
+  if (!(body as string & { isWellFormed(): boolean }).isWellFormed()) return undefined;
+  const d = delimiter.charCodeAt(0);
+  const n = body.length;
+  const cells: string[][] = [];
+  const lines: number[] = [];
+  const cursor: ScanCursor = { nextDelimiter: -1, nextQuote: -1, nextHash: -1 };
+  let pos = 0;
+  let line = firstLine;
+  while (pos < n) {
+    // Blank and "#" lines are skipped by recordLines' rule; a tab in front of them in a tab file is a
+    // delimiter to csv-parse (a record of empty cells), so such a file is read whole.
+    let j = pos;
+    while (j < n && isSpace(body.charCodeAt(j))) j++;
+    const first = j < n ? body.charCodeAt(j) : 10;
+    if (first === 10 || first === 35) {
+      if (d === 9 && body.lastIndexOf("\t", j) >= pos) return undefined;
+      const nl = body.indexOf("\n", j);
+      pos = nl === -1 ? n : nl + 1;
+      line++;
+      continue;
+    }
+    const lineEnd = body.indexOf("\n", pos);
+    const end = lineEnd === -1 ? n : lineEnd;
+    const record = splitPlainRecord(body, pos, end, d, delimiter, cursor);
+    if (record) {
+      cells.push(record);
+      lines.push(line);
+      pos = end + 1;
+      line++;
+      continue;
+    }
+    const next = recordEnd(body, pos);
+    let parsed: string[][];
+    try {
+      parsed = parse(body.slice(pos, next), { ...CSV_PARSE_OPTIONS, delimiter });
+    } catch {
+      return undefined;
+    }
+    if (parsed.length !== 1) return undefined;
+    let spanned = 1;
+    for (const cell of parsed[0]) if (cell.includes("\n")) spanned += countNewlines(cell);
+    if (spanned !== countNewlines(body.slice(pos, next)) + (next === n && body.charCodeAt(n - 1) !== 10 ? 1 : 0)) return undefined;
+    cells.push(parsed[0]);
+    lines.push(line);
+    line += spanned;
+    pos = next;
+  }
+  return { cells, lines };
+}
+
+/** Where the next delimiter, quote and "#" are at or after the scan position (cached: -1 until looked up, the length when none). */
+interface ScanCursor {
+  nextDelimiter: number;
+  nextQuote: number;
+  nextHash: number;
+}
+
+const nextAt = (body: string, cached: number, what: string, from: number): number => {
+  if (cached >= from) return cached;
+  const at = body.indexOf(what, from);
+  return at === -1 ? body.length : at;
+};
+
+/** A space or tab that is not the delimiter: what csv-parse trims around a cell, short of its rarer spaces. */
+const isCellSpace = (c: number, d: number) => (c === 32 || c === 9) && c !== d;
+
+/**
+ * Spaces csv-parse also trims (String.prototype.trim's set, csv-parse 7) that this scanner leaves
+ * to csv-parse: CR, FF, VT and any character above ASCII (the no-break and Unicode spaces among them).
+ */
+const isUnusualEdge = (c: number) => c === 13 || c === 12 || c === 11 || c >= 0x80;
+
+/**
+ * The cells of body[start, end) (one physical line) when each is unquoted without a quote, or
+ * quoted whole with no quote inside; spaces and tabs around a cell are dropped as csv-parse's
+ * trim does. Undefined for any other line, and for a line with a "#" (csv-parse's comment rules).
+ */
+function splitPlainRecord(body: string, start: number, end: number, d: number, delimiter: string, cursor: ScanCursor): string[] | undefined {
+  cursor.nextHash = nextAt(body, cursor.nextHash, "#", start);
+  if (cursor.nextHash < end) return undefined;
+  const out: string[] = [];
+  let p = start;
+  for (;;) {
+    while (p < end && isCellSpace(body.charCodeAt(p), d)) p++;
+    let stop: number;
+    if (p < end && body.charCodeAt(p) === QUOTE) {
+      const close = body.indexOf('"', p + 1);
+      if (close === -1 || close >= end) return undefined;
+      out.push(body.slice(p + 1, close));
+      stop = close + 1;
+      while (stop < end && isCellSpace(body.charCodeAt(stop), d)) stop++;
+      if (stop < end && body.charCodeAt(stop) !== d) return undefined;
+    } else {
+      cursor.nextDelimiter = nextAt(body, cursor.nextDelimiter, delimiter, p);
+      stop = cursor.nextDelimiter < end ? cursor.nextDelimiter : end;
+      cursor.nextQuote = nextAt(body, cursor.nextQuote, '"', p);
+      if (cursor.nextQuote < stop) return undefined;
+      let e = stop;
+      while (e > p && isCellSpace(body.charCodeAt(e - 1), d)) e--;
+      if (e > p && (isUnusualEdge(body.charCodeAt(p)) || isUnusualEdge(body.charCodeAt(e - 1)))) return undefined;
+      out.push(body.slice(p, e));
+    }
+    if (stop >= end) return out;
+    p = stop + 1;
+  }
+}
+
+/** The end of the record starting at `start` (after its line break): the first LF outside quotes. */
+function recordEnd(body: string, start: number): number {
+  let quoted = false;
+  for (let i = start; i < body.length; i++) {
+    const c = body.charCodeAt(i);
+    if (c === QUOTE) quoted = !quoted;
+    else if (c === 10 && !quoted) return i + 1;
+  }
+  return body.length;
 }
 
 /**
