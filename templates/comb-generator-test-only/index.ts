@@ -9,6 +9,7 @@ import type { SheetTemplate } from "../types";
 export const combGeneratorTemplate: SheetTemplate = {
   deviceClass: "comb-generator-test-only",
   measurementKinds: ["drive-sweep"],
+  passive: true,
   specifications: {
     conditionColumns: [{ id: "frequency", label: "f_IN", sources: [{ key: "inputFrequencyHz", format: "frequency" }] }],
     rows: [

@@ -30,6 +30,7 @@ function isolationRow(path: "LO-RF" | "LO-IF" | "RF-IF", basis: SpecRowTemplate[
 export const doubleBalancedMixerTemplate: SheetTemplate = {
   deviceClass: "double-balanced-mixer",
   measurementKinds: ["frequency-sweep", "two-tone", "touchstone"],
+  passive: true,
   specifications: {
     conditionColumns: [
       {

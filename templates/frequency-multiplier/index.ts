@@ -14,6 +14,7 @@ const frequencyColumn = {
 export const frequencyMultiplierTemplate: SheetTemplate = {
   deviceClass: "frequency-multiplier",
   measurementKinds: ["drive-sweep", "phase-noise"],
+  passive: true,
   specifications: {
     conditionColumns: [
       frequencyColumn,

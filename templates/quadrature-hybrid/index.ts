@@ -26,6 +26,7 @@ function bandRow(row: Omit<SpecRowTemplate, "groupBy">): SpecRowTemplate {
 export const quadratureHybridTemplate: SheetTemplate = {
   deviceClass: "quadrature-hybrid",
   measurementKinds: ["touchstone"],
+  passive: true,
   specifications: {
     conditionColumns: [
       bandColumn,
