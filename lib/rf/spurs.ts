@@ -45,10 +45,11 @@ export function findSpurs(options: FindSpursOptions): Spur[] {
   // so a point within thresholdDb of that lowest level (a running minimum, O(1) per step) is no
   // spur and its median is left uncomputed. Only the others (the spurs and their near misses) get
   // the exact median; on a 100,000-point trace that is a handful of points instead of every one.
-  const windowLow = new Int32Array(count);
-  const windowHigh = new Int32Array(count);
   const candidates: number[] = [];
+  const candidateLow: number[] = [];
+  const candidateHigh: number[] = [];
   let candidateWork = 0;
+  let widestWindow = 0;
   const minQueue = new Int32Array(count);
   let queueHead = 0;
   let queueTail = 0;
@@ -62,47 +63,53 @@ export function findSpurs(options: FindSpursOptions): Spur[] {
     }
     while (logOffsets[i] - logOffsets[low] > halfWindow) low++;
     while (minQueue[queueHead] < low) queueHead++;
-    windowLow[i] = low;
-    windowHigh[i] = high;
     const size = high - low + 1;
     if (size > 1 ? levels[i] - levels[minQueue[queueHead]] > thresholdDb : 0 > thresholdDb) {
       candidates.push(i);
+      candidateLow.push(low);
+      candidateHigh.push(high);
       candidateWork += size;
+      if (size > widestWindow) widestWindow = size;
     }
   }
-  const floors = new Float64Array(count);
-  for (let i = 0; i < count; i++) floors[i] = levels[i];
+  // Every other point's floor is its own level (a rise of 0, no spur), as a one-point window's is.
+  const floors = new Float64Array(candidates.length);
+  for (let c = 0; c < candidates.length; c++) floors[c] = levels[candidates[c]];
   // Few candidates: select each median from a copy of its window (linear time). Many (a steep or
   // noisy trace): slide a Fenwick tree of the levels across the whole trace (n log n, built once).
   if (candidateWork <= 64 * count) {
-    const scratch = new Float64Array(count);
-    for (const i of candidates) {
-      if (windowHigh[i] > windowLow[i]) floors[i] = medianWithoutPoint(levels, windowLow[i], windowHigh[i], i, scratch);
+    const scratch = new Float64Array(widestWindow);
+    for (let c = 0; c < candidates.length; c++) {
+      if (candidateHigh[c] > candidateLow[c]) floors[c] = medianWithoutPoint(levels, candidateLow[c], candidateHigh[c], candidates[c], scratch);
     }
-  } else if (candidates.length > 0) {
+  } else {
     const window = new LevelCounts(levels);
     let inLow = 0;
     let inHigh = -1;
-    for (const i of candidates) {
-      while (inHigh < windowHigh[i]) window.add(++inHigh, 1);
-      while (inLow < windowLow[i]) window.add(inLow++, -1);
-      if (window.size > 1) floors[i] = window.medianWithout(i);
+    for (let c = 0; c < candidates.length; c++) {
+      while (inHigh < candidateHigh[c]) window.add(++inHigh, 1);
+      while (inLow < candidateLow[c]) window.add(inLow++, -1);
+      if (window.size > 1) floors[c] = window.medianWithout(candidates[c]);
     }
   }
 
+  // Runs of adjacent spur points are one spur: a point that is not a candidate, or a candidate
+  // that does not rise enough, ends a run.
   const spurs: Spur[] = [];
   let current: Spur | undefined;
-  for (let i = 0; i < count; i++) {
-    const riseDb = levels[i] - floors[i];
+  let previous = -2;
+  for (let c = 0; c < candidates.length; c++) {
+    const i = candidates[c];
+    const riseDb = levels[i] - floors[c];
+    if (current && i !== previous + 1) {
+      spurs.push(current);
+      current = undefined;
+    }
     if (riseDb > thresholdDb) {
-      const candidate = {
-        offsetHz: offsets[i],
-        levelDbcHz: levels[i],
-        localFloorDbcHz: floors[i],
-        riseDb,
-      };
+      const candidate = { offsetHz: offsets[i], levelDbcHz: levels[i], localFloorDbcHz: floors[c], riseDb };
       if (!current) current = candidate;
       else if (candidate.levelDbcHz > current.levelDbcHz) current = candidate;
+      previous = i;
     } else if (current) {
       spurs.push(current);
       current = undefined;
