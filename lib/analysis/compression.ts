@@ -32,7 +32,13 @@ export function addCompressionPoint(input: {
   }
   let compression: CompressionPoint;
   try {
-    compression = findCompressionPoint({ inputPowerDbm: input.inputPowerDbm, gainDb: input.gainDb, linearToleranceDb, referenceInputPowerDbm: stated?.value });
+    compression = findCompressionPoint({
+      inputPowerDbm: input.inputPowerDbm,
+      gainDb: input.gainDb,
+      linearToleranceDb,
+      referenceInputPowerDbm: stated?.value,
+      describeNonLinearStart: input.linearStartExpected !== false,
+    });
   } catch (error) {
     if (stated) throw new AnalysisSettingError("compressionReferenceDbm", errorMessage(error));
     warnings.push(`Compression point not computed: ${errorMessage(error)}`);

@@ -20,6 +20,12 @@ export interface CompressionOptions {
   referenceInputPowerDbm?: number;
   /** Compression to find, dB below small-signal gain; 1 for P1dB. */
   compressionDb?: number;
+  /**
+   * Word `nonLinearStart` when the sweep does not start linear (default true). A caller that never
+   * shows it (a multiplier's sweep, which has no linear region) skips composing it: two thousand
+   * small sweeps spent a tenth of their analysis printing numbers for a message nobody reads.
+   */
+  describeNonLinearStart?: boolean;
 }
 
 /** How the small-signal gain was taken, for the report beside the figure. */
@@ -104,7 +110,7 @@ export function findCompressionPoint(options: CompressionOptions): CompressionPo
  */
 export function findSmallSignalReference(
   points: readonly SweepPoint[],
-  options: Pick<CompressionOptions, "linearToleranceDb" | "referenceInputPowerDbm">,
+  options: Pick<CompressionOptions, "linearToleranceDb" | "referenceInputPowerDbm" | "describeNonLinearStart">,
 ): SmallSignalReference {
   const { linearToleranceDb = DEFAULT_LINEAR_TOLERANCE_DB, referenceInputPowerDbm } = options;
   if (!(linearToleranceDb > 0)) throw new RangeError(`The linear-region tolerance must be above 0 dB, got ${linearToleranceDb}`);
@@ -127,7 +133,7 @@ export function findSmallSignalReference(
     referenceInputPowerDbm: points[count - 1].x,
     pointCount: count,
   };
-  if (count === 1) {
+  if (count === 1 && options.describeNonLinearStart !== false) {
     const stepDb = points[1].y - first.y;
     reference.nonLinearStart =
       `The sweep does not start in its linear region: the gain changes by ${formatNumber(stepDb, { digits: { decimals: 2 }, signed: true })} dB ` +
