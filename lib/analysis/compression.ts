@@ -44,7 +44,7 @@ export function addCompressionPoint(input: {
     warnings.push(`Compression point not computed: ${errorMessage(error)}`);
     return undefined;
   }
-  const conditions = { ...base, ...compressionConditions(compression, stated?.source) };
+  const conditions = Object.assign({}, base, compressionConditions(compression, stated?.source));
   if (compression.nonLinearStart && input.linearStartExpected !== false) warnings.push(compression.nonLinearStart);
   if (compression.reached) {
     parameters.push(makeParameter("input-p1db", compression.inputCompressionPointDbm, conditions));
