@@ -14,19 +14,24 @@
  */
 import { cellLine, outsideQuotes, recordCells, spansFrom, tokenizeCsvSpans, type CsvSpans, type Delimiter } from "./csv-tokens";
 import { IngestError, shortenFound } from "./errors";
-import { looksNonFinite, parseNumberAt } from "./number";
+import { looksNonFinite, parseNumberAt as parseNumberAtImport } from "./number";
 import {
   acceptedUnits,
   describeQuantity,
   describeRange,
   findConversion,
-  inRange,
+  inRange as inRangeImport,
   type Quantity,
   type UnitConversion,
   type ValueRange,
 } from "./units";
 
 export type { Delimiter };
+
+// Read once into locals: through tsx (the CLI, the benchmark) an imported function is a getter on
+// its module, and these two are called for every cell.
+const parseNumberAt = parseNumberAtImport;
+const inRange = inRangeImport;
 
 export interface MetadataEntry {
   key: string;
