@@ -10,7 +10,11 @@
  * line and column of the quote itself rather than the place where csv-parse noticed the problem.
  *
  * A file without a single quote character is split by the fast scanner in csv-table.ts instead:
- * without quotes, RFC 4180 cells are exactly the text between delimiters.
+ * without quotes, RFC 4180 cells are exactly the text between delimiters. In a file with quotes,
+ * a record whose cells are plain or quoted on one line with no quote inside is cut here, and only
+ * the other records go to csv-parse (splitRecordByRecord); whenever that reading meets anything it
+ * does not expect, the whole text goes through csv-parse as before, so cells, lines and messages
+ * are csv-parse's in every case.
  */
 import { parse } from "csv-parse/sync";
 import { IngestError, shortenFound } from "./errors";
