@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import { analyzeWithSettings, CLI_USAGE, describeBand, formatParameterTable, isAnalysisSettingError, parseCliArgs, tabulateValues } from "../lib/analysis";
 import { settingSourceWords } from "../lib/domain/analysis-settings";
 import { isIngestError, parseMeasurementFile } from "../lib/ingest";
-import { findSheetTemplate } from "../templates";
+import { findSheetTemplate, ingestOptionsFor } from "../templates";
 
 /** Batch analysis of one measurement file, through the same parse → settings → derive path as the app. */
 function main(argv: string[]): number {
@@ -26,9 +26,9 @@ function main(argv: string[]): number {
   let result;
   let parsed;
   try {
-    parsed = parseMeasurementFile({ fileName: command.file, bytes, kind: command.kind });
-    const template = command.deviceClass ? findSheetTemplate(command.deviceClass)?.analysisDefaults : undefined;
-    result = analyzeWithSettings(parsed, { cli: command.settings, template });
+    const sheetTemplate = command.deviceClass ? findSheetTemplate(command.deviceClass) : undefined;
+    parsed = parseMeasurementFile({ fileName: command.file, bytes, kind: command.kind, ...ingestOptionsFor(sheetTemplate) });
+    result = analyzeWithSettings(parsed, { cli: command.settings, template: sheetTemplate?.analysisDefaults });
   } catch (error) {
     if (isIngestError(error)) {
       process.stderr.write(`${error.message}\n`);

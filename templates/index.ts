@@ -24,4 +24,13 @@ export function findSheetTemplate(deviceClass: string): SheetTemplate | undefine
   return isDeviceClass(deviceClass) ? sheetTemplates[deviceClass] : undefined;
 }
 
+/**
+ * The engine's parse options for a device of this class: a passive class's files are checked for
+ * values no passive part can produce, an active class's are not. A file read without a device
+ * (no class) is checked as a passive part's, as every shipped class is.
+ */
+export function ingestOptionsFor(template: Pick<SheetTemplate, "passive"> | undefined): { passive: boolean } {
+  return { passive: template?.passive ?? true };
+}
+
 export { combGeneratorTemplate, doubleBalancedMixerTemplate, frequencyMultiplierTemplate, quadratureHybridTemplate };

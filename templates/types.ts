@@ -138,6 +138,13 @@ export interface SheetTemplate {
   conditions: ClassConditions;
   /** Measurement kinds whose approved sets feed the sheet. */
   measurementKinds: MeasurementKind[];
+  /**
+   * The class neither amplifies nor generates power (diode mixers and multipliers, hybrids): its
+   * files are refused or warned for values no passive part can produce (output above the input,
+   * a negative loss, |S| above 0 dB; lib/ingest/plausibility.ts). false for a class with gain
+   * (an amplifier, an active multiplier), whose files are not held to those bounds.
+   */
+  passive: boolean;
   specifications: {
     conditionColumns: ConditionColumn[];
     rows: SpecRowTemplate[];

@@ -30,7 +30,7 @@ Parses a bench measurement file and prints the parameters Benchfold derives from
                      or a name: ${namedIntegrationBands.map((b) => b.id).join(", ")}
   --compression-reference <dBm>
                      small-signal reference drive for P1dB (the axis input P1dB is reported on)
-  --class <class>    use this device class's defaults: ${deviceClasses.join(", ")}
+  --class <class>    use this device class's defaults and plausibility bounds: ${deviceClasses.join(", ")}
   --impedance <ohm>  impedance for dBm, Vrms and dBµV of power readings, 1 to 1000 (50 by default;
                      a Touchstone file keeps its own reference impedance)
   --help, -h         show this help

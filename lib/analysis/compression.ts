@@ -34,22 +34,27 @@ export function addCompressionPoint(input: {
   }
   let compression: CompressionPoint;
   try {
-    compression = findCompressionPoint({ inputPowerDbm: input.inputPowerDbm, gainDb: input.gainDb, linearToleranceDb, referenceInputPowerDbm: stated?.value });
+    compression = findCompressionPoint({
+      inputPowerDbm: input.inputPowerDbm,
+      gainDb: input.gainDb,
+      linearToleranceDb,
+      referenceInputPowerDbm: stated?.value,
+      describeNonLinearStart: input.compressionExpected !== false,
+    });
   } catch (error) {
     if (stated) throw new AnalysisSettingError("compressionReferenceDbm", errorMessage(error));
     warnings.push(`Compression point not computed: ${errorMessage(error)}`);
     return undefined;
   }
-  const conditions = { ...base, ...compressionConditions(compression, stated?.source) };
-  const expected = input.compressionExpected !== false;
-  if (compression.nonLinearStart && expected) warnings.push(compression.nonLinearStart);
+  const conditions = Object.assign({}, base, compressionConditions(compression, stated?.source));
+  if (compression.nonLinearStart && input.compressionExpected !== false) warnings.push(compression.nonLinearStart);
   if (compression.reached) {
     parameters.push(makeParameter("input-p1db", compression.inputCompressionPointDbm, conditions));
     parameters.push(makeParameter("output-p1db", compression.outputCompressionPointDbm, conditions));
   } else {
     parameters.push(makeParameter("input-p1db", null, conditions));
     parameters.push(makeParameter("output-p1db", null, conditions));
-    if (expected) warnings.push(`No 1 dB compression in this sweep: ${compression.reason}`);
+    if (input.compressionExpected !== false) warnings.push(`No 1 dB compression in this sweep: ${compression.reason}`);
   }
   return compression;
 }

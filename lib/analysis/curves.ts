@@ -20,8 +20,8 @@ export function decimateSeries(xs: ArrayLike<number>, ys: ArrayLike<number>, opt
   const n = Math.min(xs.length, ys.length);
   const { maxPoints, logX = false, keep = [] } = options;
   if (n <= maxPoints) {
-    const all: [number, number][] = [];
-    for (let i = 0; i < n; i++) all.push([xs[i], ys[i]]);
+    const all = new Array<[number, number]>(n);
+    for (let i = 0; i < n; i++) all[i] = [xs[i], ys[i]];
     return all;
   }
   const keepIndices = keep.filter((i) => i >= 0 && i < n);

@@ -1,12 +1,16 @@
 import type { DriveSweep } from "../ingest/types";
-import {
-  computeConversionLossDb,
-  computePerPortDriveDbm,
-  computeSuppressionDbc,
-  findOptimumDrive,
-} from "../rf";
+import { computeConversionLossDb, computePerPortDriveDbm } from "../rf/conversion";
+import { computeSuppressionDbc, findOptimumDrive } from "../rf/harmonics";
 import { addCompressionPoint } from "./compression";
-import { makeParameter, makeSeries, roundCondition } from "./curves";
+import { makeParameter as makeParameterImport, makeSeries, roundCondition as roundConditionImport } from "./curves";
+
+// The per-step functions are read into locals once: through tsx (the CLI, the benchmark) an imported
+// function is a getter on its module, called again at every step of every sweep.
+const makeParameter = makeParameterImport;
+const roundCondition = roundConditionImport;
+const perPortDrive = computePerPortDriveDbm;
+const conversionLoss = computeConversionLossDb;
+const suppression = computeSuppressionDbc;
 import type { Section } from "./section";
 import type { Curve, DeriveOptions, DerivedParameter } from "./types";
 
@@ -49,7 +53,7 @@ interface DeEmbeddedSweep {
 function deEmbedDrive(data: DriveSweep, splitWays: number): DeEmbeddedSweep {
   const splitDb = 10 * Math.log10(splitWays);
   const perPortDbm = data.inputPowerDbm.map((totalInputPowerDbm) =>
-    computePerPortDriveDbm({
+    perPortDrive({
       totalInputPowerDbm,
       splitterExcessLossDb: data.splitterExcessLossDb,
       cableLossDb: data.cableLossDb,
@@ -59,7 +63,7 @@ function deEmbedDrive(data: DriveSweep, splitWays: number): DeEmbeddedSweep {
   const deviceInputDbm = perPortDbm.map((p) => p + splitDb);
   const wanted = data.harmonics.find((h) => h.order === data.wantedOrder);
   if (!wanted) throw new RangeError(`No trace for the wanted order ${data.wantedOrder}`);
-  const conversionLossDb = wanted.outputPowerDbm.map((out, i) => computeConversionLossDb(deviceInputDbm[i], out));
+  const conversionLossDb = wanted.outputPowerDbm.map((out, i) => conversionLoss(deviceInputDbm[i], out));
   return { perPortDbm, deviceInputDbm, wanted, conversionLossDb };
 }
 
@@ -86,7 +90,7 @@ function addOptimum(data: DriveSweep, sweep: DeEmbeddedSweep, parameters: Derive
     parameters.push(
       makeParameter(
         "harmonic-suppression",
-        computeSuppressionDbc(wanted.outputPowerDbm[optimumStep], trace.outputPowerDbm[optimumStep]),
+        suppression(wanted.outputPowerDbm[optimumStep], trace.outputPowerDbm[optimumStep]),
         { order: trace.order, inputFrequencyHz: data.inputFrequencyHz, drive: "optimum" },
       ),
     );
@@ -141,7 +145,7 @@ function driveSweepCurves(data: DriveSweep, sweep: DeEmbeddedSweep, markers: Non
           makeSeries(
             `order ${h.order}`,
             perPortDbm,
-            h.outputPowerDbm.map((p, i) => computeSuppressionDbc(wanted.outputPowerDbm[i], p)),
+            h.outputPowerDbm.map((p, i) => suppression(wanted.outputPowerDbm[i], p)),
             decimate,
           ),
         ),

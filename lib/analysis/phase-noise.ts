@@ -154,9 +154,8 @@ function addNoiseFloor(out: Derivation): void {
   const lastHz = lastOffsetHz(data);
   const floorWidthDecades = Math.min(1, Math.log10(lastHz / firstHz) / 5);
   const floorStartHz = lastHz / 10 ** floorWidthDecades;
-  const floorValues: number[] = [];
-  for (let i = 0; i < data.offsetHz.length; i++) if (data.offsetHz[i] >= floorStartHz) floorValues.push(data.lDbcHz[i]);
-  const floorDbcHz = computeMedian(floorValues);
+  // The offsets increase (the parser checks it): the floor's points are the trace's tail.
+  const floorDbcHz = computeMedian(data.lDbcHz.slice(lowerBound(data.offsetHz, floorStartHz)));
   const floorBand = { ...out.base, startHz: floorStartHz, stopHz: lastHz };
   out.parameters.push(makeParameter("noise-floor", floorDbcHz, floorBand));
   if (data.carrierPowerDbm === undefined) {

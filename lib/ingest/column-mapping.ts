@@ -136,6 +136,8 @@ export function parseMappedFile(opts: {
   mapping: ColumnMappingEntry[];
   metadata?: Record<string, string>;
   maxBytes?: number;
+  /** As ParseOptions.passive: the device class's switch (default true). */
+  passive?: boolean;
 }): ParsedMeasurement {
   const { fileName, kind, mapping } = opts;
   const text = decodeInput({ fileName, bytes: opts.bytes, maxBytes: opts.maxBytes });
@@ -163,7 +165,7 @@ export function parseMappedFile(opts: {
     recordOf.push(r);
   });
   try {
-    return parseMeasurementFile({ fileName, text: out.join("\n"), kind, maxBytes: Number.POSITIVE_INFINITY });
+    return parseMeasurementFile({ fileName, text: out.join("\n"), kind, maxBytes: Number.POSITIVE_INFINITY, passive: opts.passive });
   } catch (error) {
     if (!(error instanceof IngestError)) throw error;
     const at = error.line === undefined ? undefined : error.line - 1;

@@ -12,21 +12,26 @@
  * any other by the single-pass scanner below, which needs no tokenizer since
  * unquoted cells are the text between delimiters.
  */
-import { cellLine, outsideQuotes, tokenizeCsv, type CsvRecords, type Delimiter } from "./csv-tokens";
+import { cellLine, outsideQuotes, recordCells, spansFrom, tokenizeCsvSpans, type CsvSpans, type Delimiter } from "./csv-tokens";
 import { IngestError, shortenFound } from "./errors";
-import { looksNonFinite, parseNumberAt } from "./number";
+import { looksNonFinite, parseNumberAt as parseNumberAtImport } from "./number";
 import {
   acceptedUnits,
   describeQuantity,
   describeRange,
   findConversion,
-  inRange,
+  inRange as inRangeImport,
   type Quantity,
   type UnitConversion,
   type ValueRange,
 } from "./units";
 
 export type { Delimiter };
+
+// Read once into locals: through tsx (the CLI, the benchmark) an imported function is a getter on
+// its module, and these two are called for every cell.
+const parseNumberAt = parseNumberAtImport;
+const inRange = inRangeImport;
 
 export interface MetadataEntry {
   key: string;
@@ -56,8 +61,8 @@ export interface CsvDocument {
   headerLine: number;
   /** Offset of the first character after the header row. */
   dataOffset: number;
-  /** The data rows already split, when the file uses quotes (read by csv-parse); else undefined. */
-  quotedRows?: CsvRecords;
+  /** The data rows already split, when the file uses quotes (csv-tokens.ts); else undefined. */
+  quotedRows?: CsvSpans;
 }
 
 const DELIMITER_NAMES: Record<Delimiter, string> = { ",": "comma", ";": "semicolon", "\t": "tab" };
@@ -189,11 +194,11 @@ export function readCsvDocument(fileName: string, text: string): CsvDocument {
     const quoted = text.indexOf('"', start) !== -1;
     const delimiter = detectDelimiter(fileName, quoted ? outsideQuotes(line) : line, lineNo);
     let rawCells: string[];
-    let quotedRows: CsvRecords | undefined;
+    let quotedRows: CsvSpans | undefined;
     if (quoted) {
-      const records = tokenizeCsv({ fileName, text, from: pos, firstLine: lineNo, delimiter });
-      rawCells = records.cells[0];
-      quotedRows = { cells: records.cells.slice(1), lines: records.lines.slice(1) };
+      const records = tokenizeCsvSpans({ fileName, text, from: pos, firstLine: lineNo, delimiter });
+      rawCells = recordCells(records, 0);
+      quotedRows = spansFrom(records, 1);
     } else {
       rawCells = line.split(delimiter);
     }
@@ -354,28 +359,33 @@ function scanCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): ColumnValu
 
 const isBlankChar = (c: number) => c === 32 || c === 9;
 
-/** readCsvColumns for a file whose rows csv-parse already split: the same checks and messages, on cell strings. */
-function readQuotedColumns(doc: CsvDocument, rows: CsvRecords, requests: ColumnRequest[]): ColumnValues {
+/**
+ * readCsvColumns for a file with quotes, whose rows csv-tokens.ts already split: the same checks and
+ * messages, reading each number straight from the text between its cell's bounds (or from the
+ * cell strings of a record csv-parse read).
+ */
+function readQuotedColumns(doc: CsvDocument, rows: CsvSpans, requests: ColumnRequest[]): ColumnValues {
   const width = doc.header.length;
-  const count = rows.cells.length;
+  const count = rows.lines.length;
+  const { body, firstCell, bounds } = rows;
   const values = requests.map(() => new Array<number>(count));
   for (let r = 0; r < count; r++) {
-    const record = rows.cells[r];
-    if (record.length !== width) throwQuotedRowShape(doc, rows, r);
+    const parsed = rows.parsed.size > 0 ? rows.parsed.get(r) : undefined;
+    const base = firstCell[r];
+    if ((parsed ? parsed.length : firstCell[r + 1] - base) !== width) throwQuotedRowShape(doc, rows, r);
     for (let k = 0; k < requests.length; k++) {
       const req = requests[k];
       const cell = req.cell.index;
-      const textCell = record[cell];
-      let s = 0;
-      let e = textCell.length;
+      const textCell = parsed ? parsed[cell] : body;
+      let s = parsed ? 0 : bounds[2 * (base + cell)];
+      let e = parsed ? textCell.length : bounds[2 * (base + cell) + 1];
       while (s < e && isBlankChar(textCell.charCodeAt(s))) s++;
       while (e > s && isBlankChar(textCell.charCodeAt(e - 1))) e--;
       const x = parseNumberAt(textCell, s, e, doc.decimalComma);
-      const line = Number.isFinite(x) ? 0 : cellLine(record, rows.lines[r], cell);
-      if (!Number.isFinite(x)) throwCellError(doc, req, line, cell, textCell.slice(s, e), x);
+      if (!Number.isFinite(x)) throwCellError(doc, req, quotedCellLine(rows, r, cell), cell, textCell.slice(s, e), x);
       const v = req.conversion.toCanonical(x);
       if (req.conversion.invalid !== undefined || !inRange(v, req.range)) {
-        convertChecked(doc, req, x, cellLine(record, rows.lines[r], cell), cell, textCell.slice(s, e));
+        convertChecked(doc, req, x, quotedCellLine(rows, r, cell), cell, textCell.slice(s, e));
       }
       values[k][r] = v;
     }
@@ -383,10 +393,16 @@ function readQuotedColumns(doc: CsvDocument, rows: CsvRecords, requests: ColumnR
   return { values, lines: rows.lines };
 }
 
-function throwQuotedRowShape(doc: CsvDocument, rows: CsvRecords, r: number): never {
+/** The physical line of a cell of a quoted file: its record's line, plus line breaks inside earlier cells. */
+function quotedCellLine(rows: CsvSpans, r: number, cell: number): number {
+  const parsed = rows.parsed.get(r);
+  return parsed ? cellLine(parsed, rows.lines[r], cell) : rows.lines[r];
+}
+
+function throwQuotedRowShape(doc: CsvDocument, rows: CsvSpans, r: number): never {
   const { fileName, delimiter } = doc;
   const width = doc.header.length;
-  const record = rows.cells[r];
+  const record = recordCells(rows, r);
   const cell = record.length;
   const line = rows.lines[r];
   const others: Delimiter[] = delimiter === "," ? [";", "\t"] : delimiter === ";" ? ["\t"] : [",", ";"];
@@ -400,7 +416,7 @@ function throwQuotedRowShape(doc: CsvDocument, rows: CsvRecords, r: number): nev
       expected: `${width} cells separated by ${DELIMITER_NAMES[delimiter]}s`,
     });
   }
-  const truncated = cell < width && r === rows.cells.length - 1;
+  const truncated = cell < width && r === rows.lines.length - 1;
   throw new IngestError({
     fileName,
     code: truncated ? "truncated" : "cell-count",
@@ -593,7 +609,7 @@ export function unusedColumns(doc: CsvDocument, requests: ColumnRequest[]): stri
 export function cellText(doc: CsvDocument, line: number, index: number): string | undefined {
   if (doc.quotedRows) {
     const r = doc.quotedRows.lines.indexOf(line);
-    return r === -1 ? undefined : doc.quotedRows.cells[r][index];
+    return r === -1 ? undefined : recordCells(doc.quotedRows, r)[index];
   }
   let pos = 0;
   for (let n = 1; n < line; n++) {

@@ -10,7 +10,11 @@
  * line and column of the quote itself rather than the place where csv-parse noticed the problem.
  *
  * A file without a single quote character is split by the fast scanner in csv-table.ts instead:
- * without quotes, RFC 4180 cells are exactly the text between delimiters.
+ * without quotes, RFC 4180 cells are exactly the text between delimiters. In a file with quotes,
+ * a record whose cells are plain or quoted on one line with no quote inside is cut here, and only
+ * the other records go to csv-parse (splitRecordByRecord); whenever that reading meets anything it
+ * does not expect, the whole text goes through csv-parse as before, so cells, lines and messages
+ * are csv-parse's in every case.
  */
 import { parse } from "csv-parse/sync";
 import { IngestError, shortenFound } from "./errors";
@@ -57,25 +61,70 @@ export function cellLine(record: string[], recordLine: number, index: number): n
  * IngestError "bad-quoting" at the line and column (cell number) of a quoting mistake.
  */
 export function tokenizeCsv(opts: { fileName: string; text: string; from: number; firstLine: number; delimiter: Delimiter }): CsvRecords {
+  const spans = tokenizeCsvSpans(opts);
+  const cells: string[][] = new Array(spans.lines.length);
+  for (let r = 0; r < cells.length; r++) cells[r] = recordCells(spans, r);
+  return { cells, lines: spans.lines };
+}
+
+/**
+ * Records as spans of the (LF-only) text instead of strings: a 100,000-row file read into arrays of
+ * cell strings kept half a million small objects alive until its numbers were read, and the garbage
+ * collector's copying of them was a third of the time. Record r's cells are body[bounds[2c],
+ * bounds[2c + 1]) for c from firstCell[r] to firstCell[r + 1], or, for a record csv-parse read
+ * (a doubled quote, a quoted line break…), the strings in `parsed`.
+ */
+export interface CsvSpans {
+  body: string;
+  /** The physical (1-based) line each record starts on. */
+  lines: number[];
+  firstCell: Int32Array;
+  bounds: Int32Array;
+  parsed: Map<number, string[]>;
+}
+
+/** tokenizeCsv's records as spans (see CsvSpans), with the same cells, lines and errors. */
+export function tokenizeCsvSpans(opts: { fileName: string; text: string; from: number; firstLine: number; delimiter: Delimiter }): CsvSpans {
   const { fileName, delimiter, firstLine } = opts;
   // csv-parse counts a CRLF inside a quoted cell as two lines; with LF only its count is exact.
   const slice = opts.text.slice(opts.from);
   const body = slice.includes("\r\n") ? slice.replace(/\r\n/g, "\n") : slice;
+  const spans = splitRecordByRecord(body, delimiter, firstLine);
+  if (spans) return spans;
+  const whole = tokenizeWhole(fileName, body, delimiter, firstLine);
+  return { body, lines: whole.lines, firstCell: new Int32Array(whole.lines.length + 1), bounds: new Int32Array(0), parsed: new Map(whole.cells.map((c, r) => [r, c])) };
+}
+
+/** The cells of record r as strings. */
+export function recordCells(spans: CsvSpans, r: number): string[] {
+  const parsed = spans.parsed.get(r);
+  if (parsed) return parsed;
+  const out: string[] = [];
+  for (let c = spans.firstCell[r]; c < spans.firstCell[r + 1]; c++) out.push(spans.body.slice(spans.bounds[2 * c], spans.bounds[2 * c + 1]));
+  return out;
+}
+
+/** The records from record `from` on (the data rows after a header). */
+export function spansFrom(spans: CsvSpans, from: number): CsvSpans {
+  const parsed = new Map<number, string[]>();
+  for (const [r, cells] of spans.parsed) if (r >= from) parsed.set(r - from, cells);
+  return { body: spans.body, lines: spans.lines.slice(from), firstCell: spans.firstCell.subarray(from), bounds: spans.bounds, parsed };
+}
+
+/**
+ * tokenizeCsv with the whole text through csv-parse at once: the reading every quoting error's
+ * message comes from, and the reference tokenizeCsv's record-by-record reading is tested against.
+ */
+export function tokenizeCsvWhole(opts: { fileName: string; text: string; from: number; firstLine: number; delimiter: Delimiter }): CsvRecords {
+  const slice = opts.text.slice(opts.from);
+  const body = slice.includes("\r\n") ? slice.replace(/\r\n/g, "\n") : slice;
+  return tokenizeWhole(opts.fileName, body, opts.delimiter, opts.firstLine);
+}
+
+function tokenizeWhole(fileName: string, body: string, delimiter: Delimiter, firstLine: number): CsvRecords {
   let cells: string[][];
   try {
-    // Plain array output: an on_record callback makes csv-parse build two info objects per record,
-    // which cost a third of the time in a profile; the lines are counted by recordLines instead.
-    cells = parse(body, {
-      delimiter,
-      record_delimiter: "\n",
-      quote: '"',
-      escape: '"',
-      trim: true,
-      comment: "#",
-      comment_no_infix: true,
-      skip_empty_lines: true,
-      relax_column_count: true,
-    });
+    cells = parse(body, { ...CSV_PARSE_OPTIONS, delimiter });
   } catch (error) {
     const code = (error as { code?: string }).code ?? "";
     const found = locateQuoteProblem(body, delimiter);
@@ -99,6 +148,175 @@ export function tokenizeCsv(opts: { fileName: string; text: string; from: number
     });
   }
   return { cells, lines: recordLines(body, cells, firstLine) };
+}
+
+// Plain array output: an on_record callback makes csv-parse build two info objects per record,
+// which cost a third of the time in a profile; the lines are counted by recordLines instead.
+const CSV_PARSE_OPTIONS = {
+  record_delimiter: "\n",
+  quote: '"',
+  escape: '"',
+  trim: true,
+  comment: "#",
+  comment_no_infix: true,
+  skip_empty_lines: true,
+  relax_column_count: true,
+} as const;
+
+/**
+ * The records of LF-only text one at a time, with csv-parse's result: a record whose cells are each
+ * unquoted or quoted on one line without a quote inside (nearly every record of a spreadsheet
+ * export) is cut at its delimiters here; any other record (a doubled quote, a line break inside
+ * quotes, a "#", unusual spaces at a cell's edge) goes to csv-parse alone. csv-parse's per-byte
+ * loop over the whole file cost twice the plain reading of it, most of a quoted file's time.
+ * Returns undefined, so that tokenizeWhole reads the text and words any error exactly as before,
+ * whenever a record does not come out as one clean record of csv-parse's (a quoting mistake, a
+ * blank-looking line of tabs in a tab file, text that is not well-formed UTF-16).
+ */
+function splitRecordByRecord(body: string, delimiter: Delimiter, firstLine: number): CsvSpans | undefined {
+  if (!(body as string & { isWellFormed(): boolean }).isWellFormed()) return undefined;
+  const d = delimiter.charCodeAt(0);
+  const n = body.length;
+  const lines: number[] = [];
+  const parsedRecords = new Map<number, string[]>();
+  const out: SpanBuffer = { bounds: new Int32Array(1024), count: 0 };
+  let firstCell = new Int32Array(256);
+  const cursor: ScanCursor = { nextDelimiter: -1, nextQuote: -1, nextHash: -1 };
+  let pos = 0;
+  let line = firstLine;
+  while (pos < n) {
+    // Blank and "#" lines are skipped by recordLines' rule; a tab in front of them in a tab file is a
+    // delimiter to csv-parse (a record of empty cells), so such a file is read whole.
+    let j = pos;
+    while (j < n && isSpace(body.charCodeAt(j))) j++;
+    const first = j < n ? body.charCodeAt(j) : 10;
+    if (first === 10 || first === 35) {
+      if (d === 9 && body.lastIndexOf("\t", j) >= pos) return undefined;
+      const nl = body.indexOf("\n", j);
+      pos = nl === -1 ? n : nl + 1;
+      line++;
+      continue;
+    }
+    const r = lines.length;
+    if (r + 2 > firstCell.length) {
+      const grown = new Int32Array(firstCell.length * 2);
+      grown.set(firstCell);
+      firstCell = grown;
+    }
+    firstCell[r] = out.count;
+    const lineEnd = body.indexOf("\n", pos);
+    const end = lineEnd === -1 ? n : lineEnd;
+    if (splitPlainRecord(body, pos, end, d, delimiter, cursor, out)) {
+      lines.push(line);
+      pos = end + 1;
+      line++;
+      continue;
+    }
+    out.count = firstCell[r];
+    const next = recordEnd(body, pos);
+    let parsed: string[][];
+    try {
+      parsed = parse(body.slice(pos, next), { ...CSV_PARSE_OPTIONS, delimiter });
+    } catch {
+      return undefined;
+    }
+    if (parsed.length !== 1) return undefined;
+    let spanned = 1;
+    for (const cell of parsed[0]) if (cell.includes("\n")) spanned += countNewlines(cell);
+    if (spanned !== countNewlines(body.slice(pos, next)) + (next === n && body.charCodeAt(n - 1) !== 10 ? 1 : 0)) return undefined;
+    parsedRecords.set(r, parsed[0]);
+    lines.push(line);
+    line += spanned;
+    pos = next;
+  }
+  firstCell[lines.length] = out.count;
+  return { body, lines, firstCell: firstCell.subarray(0, lines.length + 1), bounds: out.bounds, parsed: parsedRecords };
+}
+
+/** Cell bounds (start, end pairs) written so far, in a buffer grown by doubling. */
+interface SpanBuffer {
+  bounds: Int32Array;
+  /** Cells written. */
+  count: number;
+}
+
+function pushSpan(out: SpanBuffer, start: number, end: number): void {
+  if (2 * out.count + 2 > out.bounds.length) {
+    const grown = new Int32Array(out.bounds.length * 2);
+    grown.set(out.bounds);
+    out.bounds = grown;
+  }
+  out.bounds[2 * out.count] = start;
+  out.bounds[2 * out.count + 1] = end;
+  out.count++;
+}
+
+/** Where the next delimiter, quote and "#" are at or after the scan position (cached: -1 until looked up, the length when none). */
+interface ScanCursor {
+  nextDelimiter: number;
+  nextQuote: number;
+  nextHash: number;
+}
+
+const nextAt = (body: string, cached: number, what: string, from: number): number => {
+  if (cached >= from) return cached;
+  const at = body.indexOf(what, from);
+  return at === -1 ? body.length : at;
+};
+
+/** A space or tab that is not the delimiter: what csv-parse trims around a cell, short of its rarer spaces. */
+const isCellSpace = (c: number, d: number) => (c === 32 || c === 9) && c !== d;
+
+/**
+ * Spaces csv-parse also trims (String.prototype.trim's set, csv-parse 7) that this scanner leaves
+ * to csv-parse: CR, FF, VT and any character above ASCII (the no-break and Unicode spaces among them).
+ */
+const isUnusualEdge = (c: number) => c === 13 || c === 12 || c === 11 || c >= 0x80;
+
+/**
+ * Writes the cells of body[start, end) (one physical line) to `out` when each is unquoted without
+ * a quote, or quoted whole with no quote inside; spaces and tabs around a cell are dropped as
+ * csv-parse's trim does. False for any other line, and for a line with a "#" (csv-parse's comment
+ * rules); the caller then drops what was written.
+ */
+function splitPlainRecord(body: string, start: number, end: number, d: number, delimiter: string, cursor: ScanCursor, out: SpanBuffer): boolean {
+  cursor.nextHash = nextAt(body, cursor.nextHash, "#", start);
+  if (cursor.nextHash < end) return false;
+  let p = start;
+  for (;;) {
+    while (p < end && isCellSpace(body.charCodeAt(p), d)) p++;
+    let stop: number;
+    if (p < end && body.charCodeAt(p) === QUOTE) {
+      const close = body.indexOf('"', p + 1);
+      if (close === -1 || close >= end) return false;
+      pushSpan(out, p + 1, close);
+      stop = close + 1;
+      while (stop < end && isCellSpace(body.charCodeAt(stop), d)) stop++;
+      if (stop < end && body.charCodeAt(stop) !== d) return false;
+    } else {
+      cursor.nextDelimiter = nextAt(body, cursor.nextDelimiter, delimiter, p);
+      stop = cursor.nextDelimiter < end ? cursor.nextDelimiter : end;
+      cursor.nextQuote = nextAt(body, cursor.nextQuote, '"', p);
+      if (cursor.nextQuote < stop) return false;
+      let e = stop;
+      while (e > p && isCellSpace(body.charCodeAt(e - 1), d)) e--;
+      if (e > p && (isUnusualEdge(body.charCodeAt(p)) || isUnusualEdge(body.charCodeAt(e - 1)))) return false;
+      pushSpan(out, p, e);
+    }
+    if (stop >= end) return true;
+    p = stop + 1;
+  }
+}
+
+/** The end of the record starting at `start` (after its line break): the first LF outside quotes. */
+function recordEnd(body: string, start: number): number {
+  let quoted = false;
+  for (let i = start; i < body.length; i++) {
+    const c = body.charCodeAt(i);
+    if (c === QUOTE) quoted = !quoted;
+    else if (c === 10 && !quoted) return i + 1;
+  }
+  return body.length;
 }
 
 /**

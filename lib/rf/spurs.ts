@@ -1,4 +1,5 @@
 import { type PhaseNoiseTrace, readSortedTrace } from "./phase-noise";
+import { medianInPlace } from "../stats/select-kth";
 import { lowerBound } from "./sorted-search";
 
 export interface FindSpursOptions {
@@ -39,33 +40,76 @@ export function findSpurs(options: FindSpursOptions): Spur[] {
   for (let i = 0; i < count; i++) logOffsets[i] = Math.log10(offsets[i]);
   // The 1e-9 decade slack keeps points exactly on the window edge on both sides despite rounding.
   const halfWindow = windowDecades / 2 + 1e-9;
-  // The window slides with the offset. Its levels are counted in a Fenwick tree over the trace's
-  // levels in sorted order, so adding, removing and finding the k-th lowest level each cost
-  // O(log n): a 100,000-point trace has windows of thousands of points, and keeping a sorted
-  // array of them up to date (a splice per step) cost a copy of the window per point.
-  const window = new LevelCounts(levels);
-  const floors = new Float64Array(count);
+  // A point's floor is only needed when the point could be a spur. The median of the other points
+  // in the window is never below the window's lowest level, and rounding a difference is monotonic,
+  // so a point within thresholdDb of that lowest level (a running minimum, O(1) per step) is no
+  // spur and its median is left uncomputed. Only the others (the spurs and their near misses) get
+  // the exact median; on a 100,000-point trace that is a handful of points instead of every one.
+  const candidates: number[] = [];
+  const candidateLow: number[] = [];
+  const candidateHigh: number[] = [];
+  let candidateWork = 0;
+  let widestWindow = 0;
+  const minQueue = new Int32Array(count);
+  let queueHead = 0;
+  let queueTail = 0;
   let low = 0;
   let high = -1;
   for (let i = 0; i < count; i++) {
-    while (high + 1 < count && logOffsets[high + 1] - logOffsets[i] <= halfWindow) window.add(++high, 1);
-    while (logOffsets[i] - logOffsets[low] > halfWindow) window.add(low++, -1);
-    floors[i] = window.size > 1 ? window.medianWithout(i) : levels[i];
+    while (high + 1 < count && logOffsets[high + 1] - logOffsets[i] <= halfWindow) {
+      high++;
+      while (queueTail > queueHead && levels[minQueue[queueTail - 1]] >= levels[high]) queueTail--;
+      minQueue[queueTail++] = high;
+    }
+    while (logOffsets[i] - logOffsets[low] > halfWindow) low++;
+    while (minQueue[queueHead] < low) queueHead++;
+    const size = high - low + 1;
+    if (size > 1 ? levels[i] - levels[minQueue[queueHead]] > thresholdDb : 0 > thresholdDb) {
+      candidates.push(i);
+      candidateLow.push(low);
+      candidateHigh.push(high);
+      candidateWork += size;
+      if (size > widestWindow) widestWindow = size;
+    }
+  }
+  // Every other point's floor is its own level (a rise of 0, no spur), as a one-point window's is.
+  const floors = new Float64Array(candidates.length);
+  for (let c = 0; c < candidates.length; c++) floors[c] = levels[candidates[c]];
+  // Few candidates: select each median from a copy of its window (linear time). Many (a steep or
+  // noisy trace): slide a Fenwick tree of the levels across the whole trace (n log n, built once).
+  if (candidateWork <= 64 * count) {
+    const scratch = new Float64Array(widestWindow);
+    for (let c = 0; c < candidates.length; c++) {
+      if (candidateHigh[c] > candidateLow[c]) floors[c] = medianWithoutPoint(levels, candidateLow[c], candidateHigh[c], candidates[c], scratch);
+    }
+  } else {
+    const window = new LevelCounts(levels);
+    let inLow = 0;
+    let inHigh = -1;
+    for (let c = 0; c < candidates.length; c++) {
+      while (inHigh < candidateHigh[c]) window.add(++inHigh, 1);
+      while (inLow < candidateLow[c]) window.add(inLow++, -1);
+      if (window.size > 1) floors[c] = window.medianWithout(candidates[c]);
+    }
   }
 
+  // Runs of adjacent spur points are one spur: a point that is not a candidate, or a candidate
+  // that does not rise enough, ends a run.
   const spurs: Spur[] = [];
   let current: Spur | undefined;
-  for (let i = 0; i < count; i++) {
-    const riseDb = levels[i] - floors[i];
+  let previous = -2;
+  for (let c = 0; c < candidates.length; c++) {
+    const i = candidates[c];
+    const riseDb = levels[i] - floors[c];
+    if (current && i !== previous + 1) {
+      spurs.push(current);
+      current = undefined;
+    }
     if (riseDb > thresholdDb) {
-      const candidate = {
-        offsetHz: offsets[i],
-        levelDbcHz: levels[i],
-        localFloorDbcHz: floors[i],
-        riseDb,
-      };
+      const candidate = { offsetHz: offsets[i], levelDbcHz: levels[i], localFloorDbcHz: floors[c], riseDb };
       if (!current) current = candidate;
       else if (candidate.levelDbcHz > current.levelDbcHz) current = candidate;
+      previous = i;
     } else if (current) {
       spurs.push(current);
       current = undefined;
@@ -73,6 +117,16 @@ export function findSpurs(options: FindSpursOptions): Spur[] {
   }
   if (current) spurs.push(current);
   return spurs;
+}
+
+/**
+ * The median of levels[low…high] without point `point` (as LevelCounts.medianWithout gives it:
+ * the middle value, or the mean of the two middle values), by selection on a copy in `scratch`.
+ */
+function medianWithoutPoint(levels: ArrayLike<number>, low: number, high: number, point: number, scratch: Float64Array): number {
+  let size = 0;
+  for (let j = low; j <= high; j++) if (j !== point) scratch[size++] = levels[j];
+  return medianInPlace(scratch, size);
 }
 
 /**

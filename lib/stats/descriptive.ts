@@ -1,3 +1,5 @@
+import { medianInPlace } from "./select-kth";
+
 export interface SampleSummary {
   n: number;
   mean: number;
@@ -27,9 +29,8 @@ export function computeSampleStandardDeviation(values: ArrayLike<number>): numbe
 
 export function computeMedian(values: ArrayLike<number>): number {
   assertNonEmpty(values);
-  const sorted = Array.from(values).sort((a, b) => a - b);
-  const middle = sorted.length >> 1;
-  return sorted.length % 2 === 1 ? sorted[middle] : (sorted[middle - 1] + sorted[middle]) / 2;
+  // Selection on a typed copy: sorting a 100,000-value array with a comparator was a tenth of a sweep's analysis.
+  return medianInPlace(Float64Array.from(values), values.length);
 }
 
 export function summarizeSample(values: ArrayLike<number>): SampleSummary {

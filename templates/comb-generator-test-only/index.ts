@@ -11,6 +11,7 @@ export const combGeneratorTemplate: SheetTemplate = {
   deviceClass: "comb-generator-test-only",
   conditions: combGeneratorConditions,
   measurementKinds: ["drive-sweep"],
+  passive: true,
   specifications: {
     conditionColumns: [{ id: "frequency", label: "f_IN", sources: [{ key: "inputFrequencyHz", format: "frequency" }] }],
     rows: [

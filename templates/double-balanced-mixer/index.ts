@@ -35,6 +35,7 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
   deviceClass: "double-balanced-mixer",
   conditions: doubleBalancedMixerConditions,
   measurementKinds: ["frequency-sweep", "two-tone", "touchstone"],
+  passive: true,
   specifications: {
     conditionColumns: [
       {

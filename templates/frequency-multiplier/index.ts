@@ -17,6 +17,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
   deviceClass: "frequency-multiplier",
   conditions: frequencyMultiplierConditions,
   measurementKinds: ["drive-sweep", "phase-noise"],
+  passive: true,
   specifications: {
     conditionColumns: [
       frequencyColumn,

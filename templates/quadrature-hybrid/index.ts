@@ -28,6 +28,7 @@ export const quadratureHybridTemplate: SheetTemplate = {
   deviceClass: "quadrature-hybrid",
   conditions: quadratureHybridConditions,
   measurementKinds: ["touchstone"],
+  passive: true,
   specifications: {
     conditionColumns: [
       bandColumn,

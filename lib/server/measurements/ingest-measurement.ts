@@ -3,7 +3,7 @@ import { createHash } from "node:crypto";
 import { UniqueConstraintError } from "sequelize";
 import { analyzeWithSettings, isAnalysisSettingError } from "@/lib/analysis";
 import { parsedInStatedBand } from "@/lib/analysis/touchstone-band";
-import { findSheetTemplate } from "@/templates";
+import { findSheetTemplate, ingestOptionsFor } from "@/templates";
 import { AppError } from "@/lib/errors";
 import { isIngestError, parseMeasurementFile, type ParsedMeasurement } from "@/lib/ingest";
 import { mappingTargets, parseMappedFile, readForeignTable, type MappableKind } from "@/lib/ingest/column-mapping";
@@ -56,8 +56,8 @@ function metadataFromFields(kind: MappableKind, fields: UploadFields): Record<st
   return m;
 }
 
-async function parseWithMapping(opts: { organizationId: number; file: UploadedFile; fields: UploadFields; mapping: ColumnMapping }): Promise<ParsedMeasurement> {
-  const { file, fields, mapping } = opts;
+async function parseWithMapping(opts: { organizationId: number; file: UploadedFile; fields: UploadFields; mapping: ColumnMapping; passive: boolean }): Promise<ParsedMeasurement> {
+  const { file, fields, mapping, passive } = opts;
   const kind = mapping.kind as MappableKind;
   try {
     return parseMappedFile({
@@ -67,6 +67,7 @@ async function parseWithMapping(opts: { organizationId: number; file: UploadedFi
       mapping: mapping.mapping.entries,
       metadata: { ...mapping.mapping.metadata, ...metadataFromFields(kind, fields) },
       maxBytes: maxUploadBytes(),
+      passive,
     });
   } catch (error) {
     rejectIngest(error, { mappingName: mapping.name });
@@ -78,16 +79,18 @@ async function parseWithMapping(opts: { organizationId: number; file: UploadedFi
  * header row). A foreign file without a mapping gets a 422 carrying its headers and a preview,
  * so the upload form can open the mapping step. Errors name file, line, column and field.
  */
-export async function parseUpload(opts: { organizationId: number; file: UploadedFile; fields: UploadFields }): Promise<ParsedMeasurement> {
+export async function parseUpload(opts: { organizationId: number; file: UploadedFile; fields: UploadFields; deviceClass: string }): Promise<ParsedMeasurement> {
   const { ColumnMapping } = db();
   const { organizationId, file, fields } = opts;
+  // The device's class says whether its files are held to a passive part's bounds (templates/*: passive).
+  const { passive } = ingestOptionsFor(findSheetTemplate(opts.deviceClass));
   if (fields.mappingId) {
     const mapping = await ColumnMapping.findOne({ where: { id: fields.mappingId, organizationId } });
     if (!mapping) throw new AppError("invalid", "No such column mapping in your organization.", { field: "mappingId" });
-    return parseWithMapping({ organizationId, file, fields, mapping });
+    return parseWithMapping({ organizationId, file, fields, mapping, passive });
   }
   try {
-    return parseMeasurementFile({ fileName: file.name, bytes: file.bytes, kind: fields.kind, maxBytes: maxUploadBytes() });
+    return parseMeasurementFile({ fileName: file.name, bytes: file.bytes, kind: fields.kind, maxBytes: maxUploadBytes(), passive });
   } catch (error) {
     if (!isIngestError(error) || !FOREIGN_HEADER_CODES.has(error.code) || /\.(s\d+p|ts)$/i.test(file.name)) rejectIngest(error);
     let table: ReturnType<typeof readForeignTable>;
@@ -98,7 +101,7 @@ export async function parseUpload(opts: { organizationId: number; file: Uploaded
     }
     if (error.line !== undefined && error.line !== table.headerLine) rejectIngest(error);
     const saved = await ColumnMapping.findOne({ where: { organizationId, headerSignature: headerSignature(table.headers) } });
-    if (saved) return parseWithMapping({ organizationId, file, fields, mapping: saved });
+    if (saved) return parseWithMapping({ organizationId, file, fields, mapping: saved, passive });
     rejectIngest(error, { mapping: { headers: table.headers, preview: table.preview, headerLine: table.headerLine, targets: mappingTargets } });
   }
 }
@@ -140,7 +143,7 @@ export async function ingestMeasurement(input: IngestInput): Promise<Measurement
     checkClassConditions({ classLabel: deviceClassLabels[device.deviceClass], allowed: uploadConditionFields(device.deviceClass), fields });
   }
 
-  const parsed = await parseUpload({ organizationId, file, fields });
+  const parsed = await parseUpload({ organizationId, file, fields, deviceClass: device.deviceClass });
   const warnings = [...parsed.warnings];
   const conditions = mergeUploadConditions(parsed, fields, warnings);
   const derived = deriveWithSettings({ parsed, fields, deviceClass: device.deviceClass, fileName: file.name });

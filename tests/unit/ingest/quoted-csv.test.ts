@@ -2,7 +2,8 @@ import { parse } from "csv-parse/sync";
 import { describe, expect, it } from "vitest";
 import { detectKind, IngestError, parseDriveSweep, parseFrequencySweep, parseMeasurementFile, parseTwoTone } from "@/lib/ingest";
 import { parseMappedFile, readForeignTable } from "@/lib/ingest/column-mapping";
-import { locateQuoteProblem, tokenizeCsv } from "@/lib/ingest/csv-tokens";
+import { locateQuoteProblem, tokenizeCsv, tokenizeCsvWhole } from "@/lib/ingest/csv-tokens";
+import { mulberry32 } from "@/lib/stats/seeded-random";
 import { fixtureBytes } from "./fixture-files";
 
 // RFC 4180 ("Common Format and MIME Type for Comma-Separated Values Files", IETF 2005), §2:
@@ -68,6 +69,43 @@ describe("RFC 4180 quoting in our CSV files", () => {
         },
       });
       expect(tokenizeCsv({ fileName: "r.csv", text, from: 0, firstLine: 1, delimiter: "," }).lines).toEqual(expected);
+    }
+  });
+
+  it("record by record reads exactly as csv-parse on the whole text: cells, lines and every error", () => {
+    // Seeded files of every delimiter mixing plain records with the ones handed to csv-parse (doubled
+    // quotes, quoted line breaks, "#", CR, FF, no-break spaces, tabs) and quoting mistakes.
+    const random = mulberry32(4180);
+    const pick = <T,>(items: readonly T[]) => items[Math.floor(random() * items.length)];
+    const pieces = ["1", " 2.5 ", '"3"', ' "a, b" ', '"a; b"', '"x\ny"', '"x\r\ny"', '"p ""q"" r"', '""', "", '"#5"', "a#b", " \u00a0 7", "8\u00a0",
+      "\f9", "1\r", "4\t ", " \t5\t", '"u" \t', "\t", '"\n#not a comment\n"', "µ", '"Ω"'];
+    const broken = ['a"b', '"a"b', '"open', '"a" "b"', ' "x""'];
+    for (let trial = 0; trial < 400; trial++) {
+      const delimiter = pick([",", ";", "\t"] as const);
+      const out: string[] = [];
+      for (let r = 0; r < 10; r++) {
+        const u = random();
+        if (u < 0.08) out.push("");
+        else if (u < 0.12) out.push(pick(["  \t ", "\t", "  "]));
+        else if (u < 0.2) out.push(`${pick(["", "  ", "\t"])}# note "with, quote`);
+        else if (u < 0.22 && trial % 4 === 0) out.push(["1", pick(broken), "2"].join(delimiter));
+        else out.push([0, 1, 2].map(() => pick(pieces)).join(delimiter));
+      }
+      const text = `h1${delimiter}h2${delimiter}h3${pick(["\n", "\r\n"])}${out.join(pick(["\n", "\r\n"]))}${pick(["\n", ""])}`;
+      const opts = { fileName: "r.csv", text, from: 0, firstLine: 3, delimiter };
+      const read = (f: typeof tokenizeCsv) => {
+        try {
+          return f(opts);
+        } catch (e) {
+          return { error: e instanceof IngestError ? e.toJSON() : String(e) };
+        }
+      };
+      const whole = read(tokenizeCsvWhole);
+      expect(read(tokenizeCsv), JSON.stringify(text)).toEqual(whole);
+      if (!("error" in whole)) {
+        const direct = parse(text.replace(/\r\n/g, "\n"), { delimiter, record_delimiter: "\n", quote: '"', escape: '"', trim: true, comment: "#", comment_no_infix: true, skip_empty_lines: true, relax_column_count: true });
+        expect(whole.cells).toEqual(direct);
+      }
     }
   });
 

@@ -116,6 +116,10 @@ describe("1 dB compression against the cubic-nonlinearity textbook value", () =>
     const result = findCompressionPoint(early);
     expect(result.pointCount).toBe(1);
     expect(result.nonLinearStart).toMatch(/does not start in its linear region: the gain changes by −0\.\d\d dB from −1\.5 dBm to −0\.5 dBm/);
+    // A caller that never shows the message (a multiplier) gets the same figures without it.
+    const { nonLinearStart, ...figures } = result;
+    expect(nonLinearStart).toBeDefined();
+    expect(findCompressionPoint({ ...early, describeNonLinearStart: false })).toEqual(figures);
     expect(result.reached).toBe(true);
     if (!result.reached) return;
     // The first point's gain is the reference: P1dB comes out late, at the point where gain is 1 dB below the
