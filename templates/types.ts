@@ -117,6 +117,11 @@ export interface SheetTemplate {
   cautions: string[];
   absoluteMaximumRatings: AbsoluteMaximumRatingTemplate[];
   /**
+   * What the workspace offers to fill in for a designer: the class's usual pins and the recommended
+   * operating conditions (parameter and unit; the figures always come from the engineer).
+   */
+  designIn?: { pins: { pin: string; name: string; function: string }[]; recommendedOperatingConditions: { parameter: string; unit: string }[] };
+  /**
    * The class's default measurement settings (the last source, after the file, the upload and the
    * command line): e.g. the phase-noise integration band for rms phase and jitter.
    */

@@ -116,4 +116,18 @@ export const quadratureHybridTemplate: SheetTemplate = {
   }),
   cautions: composeCautions("Do not exceed the maximum CW input power stated under absolute maximum ratings."),
   absoluteMaximumRatings: [{ label: "Input power, CW", unit: "W" }, ...temperatureRatings, esdRating],
+  // Port numbering of a four-port hybrid (common practice: 1 input, 2 through, 3 coupled, 4 isolated).
+  designIn: {
+    pins: [
+      { pin: "1", name: "IN", function: "Input" },
+      { pin: "2", name: "0°", function: "Through output" },
+      { pin: "3", name: "−90°", function: "Coupled output" },
+      { pin: "4", name: "ISO", function: "Isolated port, terminate in 50 Ω" },
+      { pin: "", name: "GND", function: "Ground" },
+    ],
+    recommendedOperatingConditions: [
+      { parameter: "Input power, CW", unit: "W" },
+      { parameter: "Ambient temperature", unit: "°C" },
+    ],
+  },
 };
