@@ -7,6 +7,7 @@ import { type Cell, colors, type Column, PdfNotation, PdfProse, PdfTable, Sectio
 import { renderSheetChartPngs } from "../charts/render-chart";
 import { settleGlyphCodePoints } from "./settle-glyph-code-points";
 import { stampPageNumbers } from "./stamp-page-numbers";
+import { PdfDesignIn } from "./pdf-design-in";
 import { proseLayout } from "../../sheet/prose-layout";
 import { describeAbsentCpk, formatPassCount } from "../../sheet/format";
 import { candidateDigestLabel, signedAtText } from "../../sheet/release-text";
@@ -136,6 +137,7 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
           <>
             <AbsoluteMaximumRatings model={model} />
             <Cautions model={model} />
+            <PdfDesignIn model={model} />
           </>
         ) : null}
       </SheetPage>
@@ -146,6 +148,7 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
         <SheetPage model={model}>
           <AbsoluteMaximumRatings model={model} />
           <Cautions model={model} />
+          <PdfDesignIn model={model} />
           <View>
             <SectionHeading>Typical performance</SectionHeading>
             {model.charts.map((chart, i) => (
