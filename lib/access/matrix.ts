@@ -131,6 +131,7 @@ export const apiResources = {
   "GET /api/v1/sheets/[org]/[part]/[rev]/design-in": "released-sheets",
   "GET /api/v1/sheets/[org]/[part]/[rev]/csv": "released-sheets",
   "GET /api/v1/sheets/[org]/[part]/[rev]/touchstone/[setId]": "released-sheets",
+  "GET /api/v1/sheets/[org]/[part]/[rev]/touchstone/median/[group]": "released-sheets",
   "GET /api/admin/users": "people",
   "PATCH /api/admin/users/[id]": "people",
   "GET /api/admin/invitations": "people",

@@ -98,6 +98,7 @@ const probes: Record<ApiRoute, Probe> = {
   "GET /api/v1/sheets/[org]/[part]/[rev]": { path: () => "/api/v1/sheets/no-such-org/NO-PART/current", allowedStatus: 404 },
   "GET /api/v1/sheets/[org]/[part]/[rev]/csv": { path: () => "/api/v1/sheets/no-such-org/NO-PART/A/csv", allowedStatus: 404 },
   "GET /api/v1/sheets/[org]/[part]/[rev]/touchstone/[setId]": { path: () => "/api/v1/sheets/no-such-org/NO-PART/A/touchstone/1", allowedStatus: 404 },
+  "GET /api/v1/sheets/[org]/[part]/[rev]/touchstone/median/[group]": { path: () => "/api/v1/sheets/no-such-org/NO-PART/A/touchstone/median/25C-s4p", allowedStatus: 404 },
   "GET /api/v1/sheets/[org]/[part]/[rev]/design-in": { path: () => "/api/v1/sheets/no-such-org/NO-PART/current/design-in?drive=10&frequency=1%20GHz", allowedStatus: 404 },
   "GET /api/admin/users": { path: () => "/api/admin/users", allowedStatus: 200 },
   "PATCH /api/admin/users/[id]": { path: () => `/api/admin/users/${org.users.reviewer.id}`, json: () => ({ role: "wizard" }), allowedStatus: 422 },
