@@ -6,31 +6,10 @@ import { describe, expect, it } from "vitest";
 import { parseTouchstone } from "@/lib/ingest";
 import { writeTouchstone } from "@/lib/ingest/touchstone/write-touchstone";
 import { medianNetwork, unwrapPhase } from "@/lib/rf/median-network";
+import { perturbedNetwork } from "./perturbed-network";
 
 const dir = mkdtempSync(path.join(tmpdir(), "benchfold-median-"));
-const example = readFileSync("fixtures/examples/hybrid-4port.s4p", "utf8");
-
-/**
- * Unit u of an invented lot: the example hybrid with every |S| scaled by (1 + 0.03·u) and every
- * phase turned by 7°·u, written as RI data with the example's own option line. Four units: an even
- * count, so the median is the mean of the middle two.
- */
-function unitFile(u: number): string {
-  const scale = 1 + 0.03 * u;
-  const turn = (7 * u * Math.PI) / 180;
-  const lines = example.split("\n").map((line) => {
-    if (line.startsWith("!") || line.startsWith("#") || !line.trim()) return line;
-    const cells = line.trim().split(/\s+/).map(Number);
-    const head = cells.length % 2 === 1 ? [cells.shift()!] : [];
-    const out: number[] = [];
-    for (let i = 0; i < cells.length; i += 2) {
-      const [re, im] = [cells[i], cells[i + 1]];
-      out.push(scale * (re * Math.cos(turn) - im * Math.sin(turn)), scale * (re * Math.sin(turn) + im * Math.cos(turn)));
-    }
-    return [...head, ...out].join(" ");
-  });
-  return lines.join("\n");
-}
+const unitFile = (u: number) => perturbedNetwork(readFileSync("fixtures/examples/hybrid-4port.s4p", "utf8"), u);
 
 describe("unwrapPhase", () => {
   it("removes jumps of more than π like numpy.unwrap", () => {
