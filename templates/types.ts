@@ -64,6 +64,8 @@ export interface CurveTemplate {
   caption: string;
   /** Keep only some series of the curve (by series name); all by default. */
   selectSeries?: (seriesName: string) => boolean;
+  /** The y axis's word when the kept series are one quantity of a curve that holds several (unit unchanged). */
+  yLabel?: string;
 }
 
 /**

@@ -100,7 +100,24 @@ export const quadratureHybridTemplate: SheetTemplate = {
     ],
   },
   curves: [
-    { id: "transmission", curveId: "transmission", title: "Insertion loss and isolation vs frequency", caption: "Line style tells the paths apart." },
+    // Insertion loss and isolation are one curve of the engine but two quantities: each on its own axis
+    // (a 0–25 dB axis would flatten the insertion loss to a line).
+    {
+      id: "insertion-loss",
+      curveId: "transmission",
+      title: "Insertion loss vs frequency",
+      caption: "Line style tells the paths apart.",
+      selectSeries: (name) => name.startsWith("insertion loss"),
+      yLabel: "Insertion loss",
+    },
+    {
+      id: "isolation",
+      curveId: "transmission",
+      title: "Isolation vs frequency",
+      caption: "Line style tells the paths apart.",
+      selectSeries: (name) => name.startsWith("isolation"),
+      yLabel: "Isolation",
+    },
     { id: "amplitude-balance", curveId: "amplitude-balance", title: "Amplitude balance vs frequency", caption: "Each line one unit." },
     { id: "phase-balance", curveId: "phase-balance", title: "Phase balance vs frequency", caption: "Deviation from the nominal 90° (hybrid) or 0° (splitter); each line one unit." },
     { id: "return-loss", curveId: "return-loss", title: "Return loss vs frequency", caption: "Line style tells the ports apart." },
