@@ -78,7 +78,7 @@ test("an engineer states pins, ordering, operating conditions and the outline dr
   await expectAccessible(page, "the design-in tab");
   if (screens) await editor.screenshot({ path: path.join(screens, "design-in-editor.png") });
   await editor.getByTestId("save-design-in").click();
-  await expect(editor.getByText(/^Saved\./)).toBeVisible();
+  await expect(editor.getByRole("status").filter({ hasText: "Saved." })).toBeVisible();
 
   await page.getByRole("tab", { name: "Preview" }).click();
   const sheet = page.locator("#sheet-panel-preview, [data-testid=sheet-workspace]").first();
