@@ -37,8 +37,14 @@ export function outlinePng(upload: OutlineUpload): { png: Buffer; widthPx: numbe
         fitTo: { mode: "width", value: packageOutlineLimits.rasterWidthPx },
         background: "#ffffff",
       });
+      // A drawing far taller than wide would be rasterised into a huge bitmap at the fixed width: refused before drawing.
+      const heightPx = Math.ceil((packageOutlineLimits.rasterWidthPx * resvg.height) / resvg.width);
+      if (!(heightPx > 0) || heightPx > packageOutlineLimits.sidePx) {
+        throw new AppError("invalid", `The SVG is ${resvg.width} × ${resvg.height} units; drawn ${packageOutlineLimits.rasterWidthPx} pixels wide it would be ${heightPx} pixels tall, more than ${packageOutlineLimits.sidePx}.`, { field: "file" });
+      }
       png = Buffer.from(resvg.render().asPng());
     } catch (error) {
+      if (error instanceof AppError) throw error;
       throw new AppError("invalid", `${upload.name} could not be drawn as SVG: ${(error as Error).message.slice(0, 200)}`, { field: "file" });
     }
   }

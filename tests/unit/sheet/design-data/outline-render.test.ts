@@ -45,6 +45,8 @@ describe("outlinePng", () => {
     expect(codeOf(() => outlinePng({ name: "o.svg", bytes: Buffer.from(`<svg><script>alert(1)</script></svg>`) }))).toBe("invalid");
     expect(codeOf(() => outlinePng({ name: "o.svg", bytes: Buffer.from(`<svg xmlns="http://www.w3.org/2000/svg" width="10" height="10"><rect`) }))).toBe("invalid");
     expect(codeOf(() => outlinePng({ name: "o.png", bytes: Buffer.concat([png, Buffer.alloc(600 * 1024)]) }))).toBe("payload-too-large");
+    // 1 × 10 000 units would be 1200 × 12 000 000 pixels at the raster width: refused before any drawing.
+    expect(codeOf(() => outlinePng({ name: "tall.svg", bytes: Buffer.from(`<svg xmlns="http://www.w3.org/2000/svg" width="1" height="10000"><rect width="1" height="10000"/></svg>`) }))).toBe("invalid");
   });
 });
 
