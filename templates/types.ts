@@ -65,6 +65,8 @@ export interface CurveTemplate {
   caption: string;
   /** Keep only some series of the curve (by series name); all by default. */
   selectSeries?: (seriesName: string) => boolean;
+  /** The y axis's word when the kept series are one quantity of a curve that holds several (unit unchanged). */
+  yLabel?: string;
 }
 
 /**
@@ -159,6 +161,11 @@ export interface SheetTemplate {
   prose: ProseTemplate[];
   cautions: string[];
   absoluteMaximumRatings: AbsoluteMaximumRatingTemplate[];
+  /**
+   * What the workspace offers to fill in for a designer: the class's usual pins and the recommended
+   * operating conditions (parameter and unit; the figures always come from the engineer).
+   */
+  designIn?: { pins: { pin: string; name: string; function: string }[]; recommendedOperatingConditions: { parameter: string; unit: string }[] };
   /**
    * The class's default measurement settings (the last source, after the file, the upload and the
    * command line): e.g. the phase-noise integration band for rms phase and jitter.

@@ -63,7 +63,7 @@ export function SheetCharts({ model, chartSvgs }: ModelProps & { chartSvgs: Reco
               <div
                 role="img"
                 aria-label={chart.description}
-                className="[&>svg]:h-auto [&>svg]:max-w-full"
+                className="[&>svg]:h-auto [&>svg]:w-full [&>svg]:max-w-full"
                 // Markup made on our server by Vega from the model's own spec; Vega escapes text it writes.
                 dangerouslySetInnerHTML={{ __html: chartSvgs[chart.id] }}
               />

@@ -3,6 +3,7 @@ import { SheetStatistics, SheetTraceability } from "./sheet-annex";
 import { SheetBanner, SheetOverview, SheetTitleBlock } from "./sheet-front";
 import { SheetPrintStyle } from "./sheet-print-style";
 import { SheetFoot, SheetReleaseRecord } from "./sheet-release";
+import { SheetDesignIn } from "./sheet-design-in";
 import { SheetCautions, SheetCharts, SheetLaterProse, SheetRatings, SheetReviewNotes, SheetRevisionHistory } from "./sheet-sections";
 import { SheetSpecTable } from "./sheet-spec-table";
 import { type SheetWithdrawal, SheetWithdrawnNotice } from "./sheet-withdrawn-notice";
@@ -34,6 +35,7 @@ export function SheetView({ model, chartSvgs = {}, withdrawn }: SheetViewProps) 
       <SheetSpecTable model={model} />
       <SheetRatings model={model} />
       <SheetCautions model={model} />
+      <SheetDesignIn model={model} />
       <SheetCharts model={model} chartSvgs={chartSvgs} />
       <SheetLaterProse model={model} />
       <SheetTraceability model={model} />

@@ -149,8 +149,9 @@ export function PreviewPanel({
         <SpecDataTable model={model} openGroupId={openGroupId} onOpen={openGroup} />
       </section>
 
-      <section aria-label="Web sheet and PDF, side by side" className="relative left-1/2 w-screen max-w-[120rem] -translate-x-1/2 px-4 sm:px-8 print:static print:w-auto print:max-w-none print:translate-x-0 print:px-0">
-        <div className="grid gap-8 xl:grid-cols-2 print:block">
+      <section aria-label="Web sheet and PDF" className="relative left-1/2 w-screen max-w-[120rem] -translate-x-1/2 px-4 sm:px-8 print:static print:w-auto print:max-w-none print:translate-x-0 print:px-0">
+        {/* Side by side from 1536 px: below that each would be too narrow for the specifications table (issue 13, read at 1360 px). */}
+        <div className="grid gap-8 2xl:grid-cols-2 print:block">
           <div className="min-w-0">
             <p className="running-head mb-2 print:hidden">Web sheet · draft</p>
             <div
@@ -161,7 +162,7 @@ export function PreviewPanel({
               {sheetView}
             </div>
           </div>
-          <div className="min-w-0 xl:sticky xl:top-4 xl:h-[calc(100dvh-2rem)] print:hidden">
+          <div className="min-w-0 2xl:sticky 2xl:top-4 2xl:h-[calc(100dvh-2rem)] print:hidden">
             <PdfPreview deviceId={deviceId} version={pdfVersion} partNumber={model.header.partNumber} />
           </div>
         </div>

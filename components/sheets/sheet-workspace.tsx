@@ -2,12 +2,13 @@
 
 import { useRouter } from "next/navigation";
 import { useCallback, useMemo, useRef, useState, useTransition, type ReactNode } from "react";
+import { DesignInEditor } from "./design-in-editor";
 import { ProseEditor } from "./prose-editor";
 import { PreviewPanel, WorkspaceHeader, WorkspaceIssues, WorkspaceTabList } from "./sheet-workspace-sections";
 import { SpecLimitsEditor } from "./spec-limits-editor";
 import { StatisticsPanel } from "./statistics-panel";
 import { useWorkspaceTabs } from "./use-workspace-tabs";
-import type { WorkspaceContent, WorkspaceModel, WorkspaceTemplate } from "./workspace-types";
+import type { WorkspaceContent, WorkspaceDesignIn, WorkspaceModel, WorkspaceTemplate } from "./workspace-types";
 
 type SheetWorkspaceProps = {
   deviceId: number;
@@ -15,6 +16,7 @@ type SheetWorkspaceProps = {
   model: WorkspaceModel;
   content: WorkspaceContent;
   template: WorkspaceTemplate;
+  designIn: WorkspaceDesignIn;
   approvedSetCount: number;
   /** The web sheet, rendered on the server. */
   sheetView: ReactNode;
@@ -29,7 +31,7 @@ const printSheetOnly = `@media print {
 }`;
 
 /** The preview workspace of one draft sheet: issues, the figures and their data, web and PDF side by side, and the editors. */
-export function SheetWorkspace({ deviceId, canEdit, model, content, template, approvedSetCount, sheetView, reviewPanel }: SheetWorkspaceProps) {
+export function SheetWorkspace({ deviceId, canEdit, model, content, template, designIn, approvedSetCount, sheetView, reviewPanel }: SheetWorkspaceProps) {
   const router = useRouter();
   const [refreshing, startRefresh] = useTransition();
   const [pdfVersion, setPdfVersion] = useState(0);
@@ -88,6 +90,9 @@ export function SheetWorkspace({ deviceId, canEdit, model, content, template, ap
           </div>
           <div id="sheet-panel-prose" role="tabpanel" aria-labelledby="sheet-tab-prose" hidden={tab !== "prose"} className="print:hidden">
             <ProseEditor deviceId={deviceId} model={model} content={content} template={template} onSaved={refreshPreview} />
+          </div>
+          <div id="sheet-panel-design-in" role="tabpanel" aria-labelledby="sheet-tab-design-in" hidden={tab !== "design-in"} className="print:hidden">
+            <DesignInEditor deviceId={deviceId} designIn={designIn} onSaved={refreshPreview} />
           </div>
         </>
       ) : null}

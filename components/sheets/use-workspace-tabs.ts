@@ -6,6 +6,7 @@ export const workspaceTabs = [
   { id: "preview", label: "Preview" },
   { id: "limits", label: "Spec limits" },
   { id: "prose", label: "Prose and ratings" },
+  { id: "design-in", label: "Design-in" },
 ] as const;
 export type WorkspaceTabId = (typeof workspaceTabs)[number]["id"];
 export type WorkspaceTab = (typeof workspaceTabs)[number];

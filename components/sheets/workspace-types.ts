@@ -17,3 +17,14 @@ export interface WorkspaceTemplate {
   prose: { id: ProseSectionId; title: string; markdown: string; defaultSource: "template" | "device" }[];
   absoluteMaximumRatings: { label: string; unit: string }[];
 }
+
+/** The design-in lists as stored (figures as typed), the drawing's size, and the class's suggested pins and conditions. */
+export interface WorkspaceDesignIn {
+  pinFunctions: { pin: string; name: string; function: string }[];
+  ordering: { partNumber: string; options: string; packing: string }[];
+  recommendedOperatingConditions: { parameter: string; min: string; typ: string; max: string; unit: string }[];
+  packageOutline: { widthPx: number; heightPx: number } | null;
+  packageOutlineCaption: string;
+  templatePins: { pin: string; name: string; function: string }[];
+  templateConditions: { parameter: string; unit: string }[];
+}

@@ -69,7 +69,8 @@ export type ChartMedium = "screen" | "print";
 
 const SIZES = {
   screen: { axisLabel: 11, axisTitle: 12.5, legendLabel: 12, annotation: 11.5, strokeWidth: 1.5, viewStroke: 1 },
-  print: { axisLabel: 9, axisTitle: 10, legendLabel: 10, annotation: 9, strokeWidth: 1.25, viewStroke: 0.75 },
+  // In points: a printed chart is drawn at its printed size (two figures a row on A4), no type below 7 pt.
+  print: { axisLabel: 7.5, axisTitle: 8, legendLabel: 7.5, annotation: 7.5, strokeWidth: 1, viewStroke: 0.6 },
 } as const;
 
 export function chartSizes(medium: ChartMedium) {
@@ -106,12 +107,12 @@ export function chartConfig(medium: ChartMedium, fonts: ChartFonts = CHART_FONTS
       labelFont: fonts.text,
       labelFontSize: size.legendLabel,
       labelColor: c.ink,
-      labelLimit: medium === "print" ? 150 : 260,
-      // Printed charts are narrow: three entries a row, so a long legend wraps instead of shrinking the plot.
-      ...(medium === "print" ? { columns: 3 } : {}),
+      labelLimit: medium === "print" ? 110 : 260,
+      // Printed charts are narrow: one entry a row, so a long legend grows down instead of widening the figure.
+      ...(medium === "print" ? { columns: 1 } : {}),
       symbolType: "stroke",
       symbolStrokeWidth: 1.5,
-      symbolSize: medium === "print" ? 220 : 160,
+      symbolSize: medium === "print" ? 140 : 160,
     },
     text: { font: fonts.text, color: c.ink },
   };

@@ -117,6 +117,50 @@ const revisionHeaders = {
   "X-Benchfold-Standing": { description: "current, superseded or withdrawn.", schema: { type: "string", enum: ["current", "superseded", "withdrawn"] } },
 };
 
+type Parameter = { name: string; in: "path" | "query"; required: boolean; description?: string; schema: Record<string, unknown> };
+
+/**
+ * One download of a released revision, `/api/v1/sheets/{org}/{part}/{rev}/<suffix>`: the sheet's path
+ * parameters, If-None-Match, and the same 200 (with the revision headers), 304, 404 and 503.
+ */
+function sheetDownloadPath(opts: {
+  suffix: string;
+  operationId: string;
+  summary: string;
+  description?: string;
+  path?: Parameter[];
+  query?: Parameter[];
+  mediaType: string;
+  okDescription: string;
+  notFound: string;
+}) {
+  return {
+    [`/api/v1/sheets/{org}/{part}/{rev}/${opts.suffix}`]: {
+      get: {
+        operationId: opts.operationId,
+        summary: opts.summary,
+        ...(opts.description ? { description: opts.description } : {}),
+        parameters: [
+          ...parameters(sheetPathParamsSchema, "path"),
+          ...(opts.path ?? []),
+          ...(opts.query ?? []),
+          { name: "If-None-Match", in: "header", required: false, schema: { type: "string" } },
+        ],
+        responses: {
+          "200": {
+            description: opts.okDescription,
+            headers: revisionHeaders,
+            content: { [opts.mediaType]: { schema: opts.mediaType === "text/csv" ? { type: "string" } : { type: "string", contentMediaType: opts.mediaType } } },
+          },
+          "304": { description: "Unchanged since the ETag sent.", headers: revisionHeaders },
+          "404": refusal(opts.notFound),
+          "503": unavailable,
+        },
+      },
+    },
+  };
+}
+
 let built: OpenApiDocument | null = null;
 
 export function buildOpenApiDocument(): OpenApiDocument {
@@ -158,69 +202,47 @@ export function buildOpenApiDocument(): OpenApiDocument {
           },
         },
       },
-      "/api/v1/sheets/{org}/{part}/{rev}/pdf": {
-        get: {
-          operationId: "getReleasedSheetPdf",
-          summary: "The stored PDF of a released revision",
-          parameters: [
-            ...sheetPath,
-            { name: "download", in: "query", required: false, description: "`1`: as an attachment.", schema: { type: "string", enum: ["1"] } },
-            { name: "If-None-Match", in: "header", required: false, schema: { type: "string" } },
-          ],
-          responses: {
-            "200": {
-              description: "The same bytes on every download; the ETag is their SHA-256. A lettered revision is cached for a year, `current` revalidated.",
-              headers: revisionHeaders,
-              content: { "application/pdf": { schema: { type: "string", contentMediaType: "application/pdf" } } },
-            },
-            "304": { description: "Unchanged since the ETag sent.", headers: revisionHeaders },
-            "404": refusal("No such organization, part or released revision."),
-            "503": unavailable,
-          },
-        },
-      },
-      "/api/v1/sheets/{org}/{part}/{rev}/csv": {
-        get: {
-          operationId: "getReleasedSheetCsv",
-          summary: "A released revision's specification table as CSV",
-          description:
-            "RFC 4180 (CRLF, UTF-8 with a byte-order mark): parameter, symbol, one column per condition column of the sheet, min, typ, max as printed (hyphen-minus), unit, basis, whether typ is the measured mean, units measured. Text a spreadsheet would run as a formula starts with an apostrophe.",
-          parameters: [...sheetPath, { name: "If-None-Match", in: "header", required: false, schema: { type: "string" } }],
-          responses: {
-            "200": {
-              description: "The table of the frozen model; the ETag is the SHA-256 of the text. A lettered revision is cached for a year, `current` and a withdrawn one revalidated.",
-              headers: revisionHeaders,
-              content: { "text/csv": { schema: { type: "string" } } },
-            },
-            "304": { description: "Unchanged since the ETag sent.", headers: revisionHeaders },
-            "404": refusal("No such organization, part or released revision."),
-            "503": unavailable,
-          },
-        },
-      },
-      "/api/v1/sheets/{org}/{part}/{rev}/touchstone/{setId}": {
-        get: {
-          operationId: "getReleasedTouchstone",
-          summary: "The raw Touchstone file of one S-parameter set a released revision rests on",
-          description:
-            "The set ids are the `touchstone` entries of the model's `traceability.measurementSets`. The bytes are exactly as uploaded; the file is named `<part>_rev<letter>_<serial>_<temperature>.sNp`.",
-          parameters: [
-            ...sheetPath,
-            { name: "setId", in: "path", required: true, description: "A measurement set id the revision's traceability lists.", schema: { type: "string", pattern: "^[0-9]+$" } },
-            { name: "If-None-Match", in: "header", required: false, schema: { type: "string" } },
-          ],
-          responses: {
-            "200": {
-              description: "The stored bytes; the ETag is their SHA-256. A lettered revision is cached for a year, `current` and a withdrawn one revalidated.",
-              headers: revisionHeaders,
-              content: { "application/octet-stream": { schema: { type: "string", contentMediaType: "application/octet-stream" } } },
-            },
-            "304": { description: "Unchanged since the ETag sent.", headers: revisionHeaders },
-            "404": refusal("No such released revision, or a set it does not rest on."),
-            "503": unavailable,
-          },
-        },
-      },
+      ...sheetDownloadPath({
+        suffix: "pdf",
+        operationId: "getReleasedSheetPdf",
+        summary: "The stored PDF of a released revision",
+        mediaType: "application/pdf",
+        query: [{ name: "download", in: "query", required: false, description: "`1`: as an attachment.", schema: { type: "string", enum: ["1"] } }],
+        okDescription: "The same bytes on every download; the ETag is their SHA-256. A lettered revision is cached for a year, `current` revalidated.",
+        notFound: "No such organization, part or released revision.",
+      }),
+      ...sheetDownloadPath({
+        suffix: "csv",
+        operationId: "getReleasedSheetCsv",
+        summary: "A released revision's specification table as CSV",
+        description:
+          "RFC 4180 (CRLF, UTF-8 with a byte-order mark): parameter, symbol, one column per condition column of the sheet, min, typ, max as printed (hyphen-minus), unit, basis, whether typ is the measured mean, units measured. Text a spreadsheet would run as a formula starts with an apostrophe.",
+        mediaType: "text/csv",
+        okDescription: "The table of the frozen model; the ETag is the SHA-256 of the text. A lettered revision is cached for a year, `current` and a withdrawn one revalidated.",
+        notFound: "No such organization, part or released revision.",
+      }),
+      ...sheetDownloadPath({
+        suffix: "touchstone/{setId}",
+        operationId: "getReleasedTouchstone",
+        summary: "The raw Touchstone file of one S-parameter set a released revision rests on",
+        description:
+          "The set ids are the `touchstone` entries of the model's `traceability.measurementSets`. The bytes are exactly as uploaded; the file is named `<part>_rev<letter>_<serial>_<temperature>.sNp`.",
+        path: [{ name: "setId", in: "path", required: true, description: "A measurement set id the revision's traceability lists.", schema: { type: "string", pattern: "^[0-9]+$" } }],
+        mediaType: "application/octet-stream",
+        okDescription: "The stored bytes; the ETag is their SHA-256. A lettered revision is cached for a year, `current` and a withdrawn one revalidated.",
+        notFound: "No such released revision, or a set it does not rest on.",
+      }),
+      ...sheetDownloadPath({
+        suffix: "touchstone/median/{group}",
+        operationId: "getReleasedMedianTouchstone",
+        summary: "The median unit of a released revision's Touchstone sets of one condition",
+        description:
+          "Offered where two or more units were measured at one temperature with one port count. Written by the engine as Touchstone 1.1 (`# Hz S DB R <ohms>`): at each frequency and for each S(i,j), the median across units of |S| in dB and of the phase unwrapped along frequency; each unit counts once, by its latest set. Named `<part>_rev<letter>_median-of-<n>_<temperature>.sNp`.",
+        path: [{ name: "group", in: "path", required: true, description: "The condition: temperature and port count, e.g. `25C-s4p`, `-40C-s2p`, `nominal-s3p`.", schema: { type: "string", pattern: "^[A-Za-z0-9.-]+-s[0-9]+p$" } }],
+        mediaType: "application/octet-stream",
+        okDescription: "The merged file; the ETag is the SHA-256 of its text. A lettered revision is cached for a year, `current` and a withdrawn one revalidated.",
+        notFound: "No such released revision, or no condition with two or more units of this name.",
+      }),
       "/api/v1/verify": {
         get: {
           operationId: "verifyPrintout",

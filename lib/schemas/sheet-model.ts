@@ -163,6 +163,19 @@ export const sheetModelSchema = z
       footnotes: z.array(z.object({ mark: z.string(), text: z.string() })),
     }),
     absoluteMaximumRatings: z.array(labelled.extend({ missing: z.boolean() })),
+    designData: z
+      .object({
+        packageOutline: z
+          .object({ caption: z.string(), sha256: z.string(), widthPx: z.number().int(), heightPx: z.number().int(), dataUri: z.string().meta({ description: "The drawing as a PNG data URI." }) })
+          .nullable(),
+        pinFunctions: z.array(z.object({ pin: z.string(), name: z.string(), function: z.string() })),
+        ordering: z.array(z.object({ partNumber: z.string(), options: z.string(), packing: z.string() })),
+        recommendedOperatingConditions: z.array(
+          z.object({ parameter: z.string(), min: formattedValue, typ: formattedValue, max: formattedValue, unit: z.string() }),
+        ),
+      })
+      .optional()
+      .meta({ description: "What a designer needs beside the specifications; absent on sheets released before it was kept." }),
     charts: z.array(chartSpec),
     prose: z.array(
       z.object({

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { limitBases, proseSectionIds, proseSectionTitles } from "@/lib/domain/sheets";
 import { findProseLimitBreach } from "@/lib/sheet/render-prose";
+import { parseDecimalText } from "@/lib/ingest/number";
 import { minNotAboveMax } from "./decimal";
 
 const finite = z.number().refine(Number.isFinite, "must be a finite number");
@@ -64,3 +65,27 @@ export const sheetContentBodySchema = z.object({
   measurementUncertainty: z.record(z.string().regex(/^[a-z0-9-]+$/).max(64), z.number().positive().max(100)).default({}),
 });
 export type SheetContentBody = z.infer<typeof sheetContentBodySchema>;
+
+const cell = (max: number) => z.string().trim().max(max);
+/** A figure as typed ("9.5", "−40"), kept as text so the sheet prints its digits; blank is not stated. */
+const typedFigureText = z
+  .string()
+  .trim()
+  .max(24)
+  .refine((t) => t === "" || Number.isFinite(parseDecimalText(t) ?? NaN), "must be a decimal number, or blank");
+
+/** What a designer needs beside the specifications, replaced at once by the design-in editor. */
+export const designDataBodySchema = z.object({
+  pinFunctions: z.array(z.object({ pin: cell(16), name: cell(40).min(1), function: cell(200).min(1) })).max(100),
+  ordering: z.array(z.object({ partNumber: cell(64).min(1), options: cell(200), packing: cell(120) })).max(50),
+  recommendedOperatingConditions: z
+    .array(
+      z
+        .object({ parameter: cell(120).min(1), min: typedFigureText, typ: typedFigureText, max: typedFigureText, unit: cell(16) })
+        .refine((c) => c.min !== "" || c.typ !== "" || c.max !== "", { message: "Give at least one of min, typ, max.", path: ["typ"] })
+        .refine((c) => c.min === "" || c.max === "" || parseDecimalText(c.min)! <= parseDecimalText(c.max)!, { message: "min is above max", path: ["max"] }),
+    )
+    .max(40),
+  packageOutlineCaption: cell(200).optional(),
+});
+export type DesignDataBody = z.infer<typeof designDataBodySchema>;

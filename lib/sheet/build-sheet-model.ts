@@ -5,6 +5,7 @@ import type { KeyConditionWords, SheetTemplate } from "../../templates/types";
 import { compareSets, compareStrings } from "./compare";
 import { formatNumber, formatQuantity, quantityParts, rangeParts } from "../format/quantity";
 import { renderProse } from "./render-prose";
+import { buildDesignData } from "./design-data";
 import { buildCharts } from "./sheet-charts";
 import { buildSpecTable, type SpecTable } from "./spec-table";
 import { DEFAULT_CPK_MIN_UNITS } from "./statistics";
@@ -74,6 +75,7 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
       footnotes: specTable.footnotes,
     },
     absoluteMaximumRatings,
+    designData: buildDesignData(input.designData),
     charts,
     prose,
     cautions: [...template.cautions],

@@ -7,8 +7,13 @@ import type { ChartSpec } from "./types";
 /** Lines per chart beyond which more units add ink, not information. */
 export const MAX_UNITS_PER_CHART = 12;
 const MAX_POINTS_PER_SERIES = 300;
-export const CHART_WIDTH = 470;
-export const CHART_HEIGHT = 210;
+/**
+ * The plot area of a sheet chart, in points: the PDF prints a chart at the size Vega draws it (one
+ * unit one point), two figures a row on an A4 page, so its type prints at the sizes lib/charts
+ * states for print (7.5 pt and up) and never smaller than 7 pt (lib/sheet/print-figure.ts).
+ */
+export const CHART_WIDTH = 168;
+export const CHART_HEIGHT = 118;
 
 export interface ChartSource {
   serial: string;
@@ -27,7 +32,7 @@ export interface ChartOptions {
  * curve the look it has everywhere (lib/charts), with a legend when there is more than one series.
  */
 export function buildChartSpec(
-  template: Pick<CurveTemplate, "id" | "title" | "caption" | "selectSeries">,
+  template: Pick<CurveTemplate, "id" | "title" | "caption" | "selectSeries" | "yLabel">,
   sources: ChartSource[],
   options: ChartOptions = {},
 ): ChartSpec | null {
@@ -50,7 +55,7 @@ export function buildChartSpec(
     {
       title: template.title,
       x: first.x,
-      y: first.y,
+      y: template.yLabel ? { ...first.y, label: template.yLabel } : first.y,
       seriesNames,
       traces: drawn.flatMap(({ serial, curve }) =>
         curve.series.filter((s) => !template.selectSeries || template.selectSeries(s.name)).map((s) => ({ series: s.name, unit: serial, points: s.points })),

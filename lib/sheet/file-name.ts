@@ -30,6 +30,16 @@ export function touchstoneFileNames(opts: { partNumber: string; letter: string; 
   );
 }
 
+/** The condition a merged Touchstone file stands for, as an address part: "25C-s4p", "-40C-s2p", "nominal-s3p". */
+export function touchstoneGroupId(temperature: string, portCount: number): string {
+  return `${temperature ? safePart(temperature) : "nominal"}-s${Math.max(1, Math.trunc(portCount))}p`;
+}
+
+/** "KQH-2G_revA_median-of-5_25C.s4p": the median unit of a condition's released sets. */
+export function medianTouchstoneFileName(opts: { partNumber: string; letter: string; unitCount: number; temperature: string; portCount: number }): string {
+  return `${safePart(opts.partNumber)}_rev${safePart(opts.letter)}_median-of-${opts.unitCount}_${opts.temperature ? safePart(opts.temperature) : "nominal"}.s${Math.max(1, Math.trunc(opts.portCount))}p`;
+}
+
 /** "KQH-2G-rev-A-specifications.csv". */
 export function specificationsCsvFileName(partNumber: string, letter: string): string {
   return sheetPdfFileName(partNumber, letter).replace(/\.pdf$/, "-specifications.csv");

@@ -85,6 +85,8 @@ export interface SheetInput {
   /** Markdown per prose section; a missing section takes the template's default. */
   prose: Partial<Record<ProseSectionId, string>>;
   absoluteMaximumRatings: { label: string; value: string; unit: string }[];
+  /** What a designer needs beside the specifications (lib/sheet/design-data.ts); none stated when absent. */
+  designData?: DesignDataInput;
   /** The device's open conformity alerts, each in one sentence: listed among the sheet's open issues. */
   conformityAlerts?: string[];
   settings: {
@@ -100,6 +102,27 @@ export interface SheetInput {
     /** Expanded uncertainty U (k = 2) per parameter name, in the parameter's unit. */
     measurementUncertainty?: Record<string, number>;
   };
+}
+
+/* ---------- what a designer needs ---------- */
+
+export type PinFunction = { pin: string; name: string; function: string };
+export type OrderingEntry = { partNumber: string; options: string; packing: string };
+
+export interface DesignDataInput {
+  pinFunctions: PinFunction[];
+  ordering: OrderingEntry[];
+  /** Figures as the engineer typed them (decimal text, blank when not stated). */
+  recommendedOperatingConditions: { parameter: string; min: string; typ: string; max: string; unit: string }[];
+  /** The drawing as the sheet prints it: a PNG (an SVG upload is rasterised on the server first). */
+  packageOutline: { caption: string; sha256: string; widthPx: number; heightPx: number; pngBase64: string } | null;
+}
+
+export interface DesignData {
+  packageOutline: { caption: string; sha256: string; widthPx: number; heightPx: number; dataUri: string } | null;
+  pinFunctions: PinFunction[];
+  ordering: OrderingEntry[];
+  recommendedOperatingConditions: { parameter: string; min: FormattedValue; typ: FormattedValue; max: FormattedValue; unit: string }[];
 }
 
 /* ---------- prose ---------- */
@@ -293,6 +316,8 @@ export interface SheetModel {
     footnotes: { mark: string; text: string }[];
   };
   absoluteMaximumRatings: { label: string; value: string; unit: string; missing: boolean }[];
+  /** Package outline, pin functions, ordering information, recommended operating conditions (absent on sheets released before they were kept). */
+  designData?: DesignData;
   charts: ChartSpec[];
   prose: ProseSection[];
   cautions: string[];

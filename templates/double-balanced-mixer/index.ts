@@ -174,4 +174,18 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
     ...temperatureRatings,
     esdRating,
   ],
+  // The usual pins of a packaged double-balanced mixer (common practice).
+  designIn: {
+    pins: [
+      { pin: "", name: "LO", function: "Local-oscillator input" },
+      { pin: "", name: "RF", function: "RF input" },
+      { pin: "", name: "IF", function: "IF output, DC-coupled" },
+      { pin: "", name: "GND", function: "Ground" },
+    ],
+    recommendedOperatingConditions: [
+      { parameter: "LO drive", unit: "dBm" },
+      { parameter: "RF input power", unit: "dBm" },
+      { parameter: "Ambient temperature", unit: "°C" },
+    ],
+  },
 };

@@ -229,4 +229,16 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
   absoluteMaximumRatings: [{ label: "RF input power, per port", unit: "dBm" }, ...temperatureRatings, esdRating],
   // A multiplier's residual noise matters close in: 10 Hz–1 MHz unless the file or the upload states another band.
   analysisDefaults: { integrationBandHz: { startHz: 10, stopHz: 1e6 } },
+  // The usual pins of a packaged doubler (common practice).
+  designIn: {
+    pins: [
+      { pin: "", name: "IN", function: "Input (fundamental)" },
+      { pin: "", name: "OUT", function: "Output (multiplied)" },
+      { pin: "", name: "GND", function: "Ground" },
+    ],
+    recommendedOperatingConditions: [
+      { parameter: "Input drive", unit: "dBm" },
+      { parameter: "Ambient temperature", unit: "°C" },
+    ],
+  },
 };

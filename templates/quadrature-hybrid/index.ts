@@ -104,7 +104,24 @@ export const quadratureHybridTemplate: SheetTemplate = {
   },
   statedBands: [{ deviceKey: "inputFrequencyHz", label: "band", sources: [{ key: "startHz", stopKey: "stopHz" }] }],
   curves: [
-    { id: "transmission", curveId: "transmission", title: "Insertion loss and isolation vs frequency", caption: "Line style tells the paths apart." },
+    // Insertion loss and isolation are one curve of the engine but two quantities: each on its own axis
+    // (a 0–25 dB axis would flatten the insertion loss to a line).
+    {
+      id: "insertion-loss",
+      curveId: "transmission",
+      title: "Insertion loss vs frequency",
+      caption: "Line style tells the paths apart.",
+      selectSeries: (name) => name.startsWith("insertion loss"),
+      yLabel: "Insertion loss",
+    },
+    {
+      id: "isolation",
+      curveId: "transmission",
+      title: "Isolation vs frequency",
+      caption: "Line style tells the paths apart.",
+      selectSeries: (name) => name.startsWith("isolation"),
+      yLabel: "Isolation",
+    },
     { id: "amplitude-balance", curveId: "amplitude-balance", title: "Amplitude balance vs frequency", caption: "Each line one unit." },
     { id: "phase-balance", curveId: "phase-balance", title: "Phase balance vs frequency", caption: "Deviation from the nominal 90° (hybrid) or 0° (splitter); each line one unit." },
     { id: "return-loss", curveId: "return-loss", title: "Return loss vs frequency", caption: "Line style tells the ports apart." },
@@ -120,4 +137,18 @@ export const quadratureHybridTemplate: SheetTemplate = {
   }),
   cautions: composeCautions("Do not exceed the maximum CW input power stated under absolute maximum ratings."),
   absoluteMaximumRatings: [{ label: "Input power, CW", unit: "W" }, ...temperatureRatings, esdRating],
+  // Port numbering of a four-port hybrid (common practice: 1 input, 2 through, 3 coupled, 4 isolated).
+  designIn: {
+    pins: [
+      { pin: "1", name: "IN", function: "Input" },
+      { pin: "2", name: "0°", function: "Through output" },
+      { pin: "3", name: "−90°", function: "Coupled output" },
+      { pin: "4", name: "ISO", function: "Isolated port, terminate in 50 Ω" },
+      { pin: "", name: "GND", function: "Ground" },
+    ],
+    recommendedOperatingConditions: [
+      { parameter: "Input power, CW", unit: "W" },
+      { parameter: "Ambient temperature", unit: "°C" },
+    ],
+  },
 };

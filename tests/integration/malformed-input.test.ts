@@ -23,6 +23,7 @@ const endpoints: Endpoint[] = [
   { method: "PATCH", path: () => `/api/devices/${ids.device}`, as: "engineer", kind: "json", fields: ["partNumber", "deviceClass", "title", "keyConditions"] },
   { method: "PUT", path: () => `/api/devices/${ids.device}/spec-limits`, as: "engineer", kind: "json", fields: ["limits"] },
   { method: "PUT", path: () => `/api/devices/${ids.device}/sheet-content`, as: "engineer", kind: "json", fields: ["prose", "absoluteMaximumRatings", "measurementUncertainty"] },
+  { method: "PUT", path: () => `/api/devices/${ids.device}/design-data`, as: "engineer", kind: "json", fields: ["pinFunctions", "ordering", "recommendedOperatingConditions", "packageOutlineCaption"] },
   { method: "POST", path: () => "/api/column-mappings", as: "engineer", kind: "json", fields: ["name", "kind", "headers", "mapping", "metadata"] },
   { method: "POST", path: () => `/api/measurements/${ids.set}/review`, as: "reviewer", kind: "json", fields: ["decision", "reason"] },
   // No alert is needed: the body is read (and refused) before the alert is looked up.
@@ -41,6 +42,7 @@ const endpoints: Endpoint[] = [
   { method: "POST", path: () => "/api/unsubscribe", as: "signed-out", kind: "json", fields: ["token"] },
   { method: "POST", path: () => `/api/devices/${ids.device}/measurements`, as: "engineer", kind: "multipart", fields: [] },
   { method: "POST", path: () => "/api/v1/measurements", as: "bench", kind: "multipart", fields: [] },
+  { method: "POST", path: () => `/api/devices/${ids.device}/package-outline`, as: "engineer", kind: "multipart", fields: [] },
 ];
 
 const RUNS_PER_ENDPOINT = 14;

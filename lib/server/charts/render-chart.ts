@@ -81,11 +81,14 @@ export async function renderChartSvgs(charts: readonly { id: string; vegaLite: R
 }
 
 /** Every chart of a sheet as PNG, keyed by chart id, for the PDF. */
+/** Pixels a point of a sheet chart's PNG: printed at its drawn size, 4 px a point is 288 dpi. */
+export const CHART_PNG_SCALE = 4;
+
 export async function renderSheetChartPngs(model: SheetModel): Promise<Record<string, Buffer>> {
   const entries = await Promise.all(
     model.charts.map(async (chart) => {
       const key = specKey(chart.vegaLite);
-      return [chart.id, await pngCache.get(key, async () => svgToPng(await cachedChartSvg(key, chart.vegaLite), 3))] as const;
+      return [chart.id, await pngCache.get(key, async () => svgToPng(await cachedChartSvg(key, chart.vegaLite), CHART_PNG_SCALE))] as const;
     }),
   );
   return Object.fromEntries(entries);

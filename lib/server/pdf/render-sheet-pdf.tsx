@@ -4,9 +4,11 @@ import type { ReactNode } from "react";
 import type { SheetModel, SheetSignature, StatisticsGroup } from "../../sheet/types";
 import { fontFiles, MONO_FAMILY, SANS_FAMILY } from "./fonts";
 import { type Cell, colors, type Column, PdfNotation, PdfProse, PdfTable, SectionHeading, styles } from "./pdf-parts";
-import { renderSheetChartPngs } from "../charts/render-chart";
+import { CHART_PNG_SCALE, renderSheetChartPngs } from "../charts/render-chart";
+import { A4_HEIGHT_PT, A4_WIDTH_PT, FIGURE_COLUMN_PT, PAGE_MARGIN_PT, printedFigureWidthPt } from "../../sheet/print-figure";
 import { settleGlyphCodePoints } from "./settle-glyph-code-points";
 import { stampPageNumbers } from "./stamp-page-numbers";
+import { PdfDesignIn } from "./pdf-design-in";
 import { proseLayout } from "../../sheet/prose-layout";
 import { annexUnitText, describeAbsentCpk, formatCpkInterval, formatPassCount } from "../../sheet/format";
 import { candidateDigestLabel, signedAtText } from "../../sheet/release-text";
@@ -53,7 +55,7 @@ export async function renderSheetPdf(model: SheetModel): Promise<Buffer> {
   });
 }
 
-const PAGE_MARGIN = 42;
+const PAGE_MARGIN = PAGE_MARGIN_PT;
 
 /**
  * One A4 page sequence with the running head and foot and, until release, the diagonal mark.
@@ -86,8 +88,6 @@ function SheetPage({ model, children }: { model: SheetModel; children: ReactNode
     </Page>
   );
 }
-const A4_WIDTH_PT = 595.28;
-const A4_HEIGHT_PT = 841.89;
 const FOOT_TOP = A4_HEIGHT_PT - 40;
 /** The running head's and foot's text, and the page number stamped into the foot. */
 const BAND_FONT_SIZE = 7.5;
@@ -136,6 +136,7 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
           <>
             <AbsoluteMaximumRatings model={model} />
             <Cautions model={model} />
+            <PdfDesignIn model={model} />
           </>
         ) : null}
       </SheetPage>
@@ -146,17 +147,15 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
         <SheetPage model={model}>
           <AbsoluteMaximumRatings model={model} />
           <Cautions model={model} />
+          <PdfDesignIn model={model} />
           <View>
             <SectionHeading>Typical performance</SectionHeading>
-            {model.charts.map((chart, i) => (
-              <View key={chart.id} wrap={false} style={{ marginBottom: 10 }}>
-                <Text style={{ fontWeight: 600, marginBottom: 2 }}>
-                  Figure {i + 1}. {chart.title}
-                </Text>
-                {charts[chart.id] ? <Image src={{ data: charts[chart.id], format: "png" }} style={{ width: 400, alignSelf: "flex-start" }} /> : null}
-                <Text style={styles.small}>{chart.caption}</Text>
-              </View>
-            ))}
+            {/* Two figures a row, each printed at the size it was drawn (lib/sheet/print-figure.ts). */}
+            <View style={{ flexDirection: "row", flexWrap: "wrap", justifyContent: "space-between" }}>
+              {model.charts.map((chart, i) => (
+                <PdfFigure key={chart.id} number={i + 1} title={chart.title} caption={chart.caption} png={charts[chart.id]} />
+              ))}
+            </View>
           </View>
         </SheetPage>
       ) : null}
@@ -193,6 +192,21 @@ function SheetDocument({ model, charts }: { model: SheetModel; charts: Record<st
         ) : null}
       </SheetPage>
     </Document>
+  );
+}
+
+function PdfFigure({ number, title, caption, png }: { number: number; title: string; caption: string; png: Buffer | undefined }) {
+  // The PNG is drawn at CHART_PNG_SCALE pixels a point; its IHDR holds its size (ISO/IEC 15948 §11.2.2).
+  const drawn = png ? { width: png.readUInt32BE(16) / CHART_PNG_SCALE, height: png.readUInt32BE(20) / CHART_PNG_SCALE } : null;
+  const width = drawn ? printedFigureWidthPt(drawn.width) : FIGURE_COLUMN_PT;
+  return (
+    <View wrap={false} style={{ width: FIGURE_COLUMN_PT, marginBottom: 10 }}>
+      <Text style={{ fontWeight: 600, marginBottom: 2 }}>
+        Figure {number}. {title}
+      </Text>
+      {png && drawn ? <Image src={{ data: png, format: "png" }} style={{ width, height: (drawn.height * width) / drawn.width }} /> : null}
+      <Text style={styles.small}>{caption}</Text>
+    </View>
   );
 }
 

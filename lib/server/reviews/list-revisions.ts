@@ -116,10 +116,32 @@ const pdfBytes = new Map<number, Buffer>();
  * last few sent, one read of the bytes: a download is a lookup and a send.
  */
 export async function findReleasedPdf(opts: { organizationSlug: string; partNumber: string; revision: string }): Promise<ReleasedPdf> {
+  const row = await locateReleasedRevision(opts);
+  const standing = row.standing;
+  let pdf = pdfBytes.get(row.id);
+  if (pdf) {
+    pdfBytes.delete(row.id);
+  } else {
+    pdf = (await readRevisionPdf(row.id)).pdf;
+  }
+  pdfBytes.set(row.id, pdf);
+  if (pdfBytes.size > PDF_ENTRIES) pdfBytes.delete(pdfBytes.keys().next().value!);
+  return { revisionId: row.id, letter: row.letter, standing, sha256: row.pdfSha256, pdf };
+}
+
+/** A released revision's row as its public address finds it: what every download reads before its bytes. */
+export type ReleasedRevisionHead = { id: number; deviceId: number; letter: string; pdfSha256: string; standing: RevisionStanding };
+
+/**
+ * A released revision by its public address in one indexed query: the letter, or the newest revision
+ * not withdrawn for "current", with its standing. The downloads (PDF, CSV, Touchstone) start here and
+ * keep what they make from the frozen model by the revision id, which never changes meaning.
+ */
+export async function locateReleasedRevision(opts: { organizationSlug: string; partNumber: string; revision: string }): Promise<ReleasedRevisionHead> {
   const current = opts.revision === "current";
   // The lookup may come from a read replica (public data); the bytes from the file store.
-  const rows = await publicSelect<{ id: number; letter: string; pdf_sha256: string; withdrawn: number; superseded: number }>(
-    `SELECT r.id, r.letter, r.pdf_sha256,
+  const rows = await publicSelect<{ id: number; device_id: number; letter: string; pdf_sha256: string; withdrawn: number; superseded: number }>(
+    `SELECT r.id, r.device_id, r.letter, r.pdf_sha256,
             EXISTS (SELECT 1 FROM sheet_revision_withdrawals w WHERE w.revision_id = r.id) AS withdrawn,
             EXISTS (SELECT 1 FROM sheet_revisions n WHERE n.previous_revision_id = r.id) AS superseded
        FROM organizations o
@@ -134,13 +156,5 @@ export async function findReleasedPdf(opts: { organizationSlug: string; partNumb
   // "current" is the newest revision, and only while it is not withdrawn.
   if (!row || (current && Number(row.superseded))) throw new AppError("not-found", "No such released sheet.");
   const standing: RevisionStanding = Number(row.withdrawn) ? "withdrawn" : Number(row.superseded) ? "superseded" : "current";
-  let pdf = pdfBytes.get(row.id);
-  if (pdf) {
-    pdfBytes.delete(row.id);
-  } else {
-    pdf = (await readRevisionPdf(row.id)).pdf;
-  }
-  pdfBytes.set(row.id, pdf);
-  if (pdfBytes.size > PDF_ENTRIES) pdfBytes.delete(pdfBytes.keys().next().value!);
-  return { revisionId: row.id, letter: row.letter, standing, sha256: row.pdf_sha256, pdf };
+  return { id: Number(row.id), deviceId: Number(row.device_id), letter: row.letter, pdfSha256: row.pdf_sha256, standing };
 }

@@ -6,6 +6,7 @@ import type { Curve } from "@/lib/analysis";
 import { db } from "@/models";
 import type { MeasurementSet, Instrument, Device, Organization, SpecLimit } from "@/models";
 import { openConformityIssues } from "../conformity/get-conformity-watch";
+import { loadDesignData } from "./load-design-data";
 import { isPlausibilityWarning } from "@/lib/ingest/plausibility-warning";
 
 type SetWithInstruments = MeasurementSet & { Instruments?: Instrument[] };
@@ -37,6 +38,7 @@ export async function loadSheetInput(opts: {
     SheetContent.findOne({ where: { deviceId: device.id, organizationId: opts.organizationId } }),
     openConformityIssues({ organizationId: opts.organizationId, deviceId: device.id }),
   ]);
+  const designData = await loadDesignData(content, opts.organizationId);
   return {
     device: {
       partNumber: device.partNumber,
@@ -79,6 +81,7 @@ export async function loadSheetInput(opts: {
     })),
     prose: content?.prose ?? {},
     absoluteMaximumRatings: content?.absoluteMaximumRatings ?? [],
+    ...(designData ? { designData } : {}),
     ...(conformityAlerts.length ? { conformityAlerts } : {}),
     settings: {
       cpkThreshold: organization.cpkThreshold,

@@ -297,14 +297,16 @@ describe("the overlaid curves", () => {
   const { charts, single } = buildCompareCharts(inputs, { width: 560 });
 
   it("overlays each chart two or more sheets carry, one panel per series, and names the rest", () => {
-    expect(charts.map((c) => c.chartId)).toEqual(["transmission", "amplitude-balance", "phase-balance", "return-loss"]);
+    expect(charts.map((c) => c.chartId)).toEqual(["insertion-loss", "isolation", "amplitude-balance", "phase-balance", "return-loss"]);
     expect(single).toEqual([{ label: "KM-7H Rev. A", titles: ["Conversion loss vs RF frequency", "Isolation vs RF frequency"] }]);
-    const transmission = charts[0];
-    expect(transmission.panels.map((p) => p.series)).toEqual(["insertion loss S21", "insertion loss S31", "isolation S32"]);
+    const [insertionLoss, isolation] = charts;
+    expect(insertionLoss.panels.map((p) => p.series)).toEqual(["insertion loss S21", "insertion loss S31"]);
+    expect(insertionLoss.unmatched).toEqual([]);
+    expect(isolation.panels.map((p) => p.series)).toEqual(["isolation S32"]);
     // S41 and port 4 exist on the 90° hybrid only: named, not drawn as a one-sheet "comparison".
-    expect(transmission.unmatched).toEqual([{ series: "isolation S41", label: "KQH-2G Rev. A" }]);
-    expect(transmission.sources.map((s) => s.drawnAt)).toEqual(["1.7–2.3\u00a0GHz, 25\u00a0°C", "0.5–2.5\u00a0GHz, 25\u00a0°C", null]);
-    expect(transmission.conditionsDiffer).toBe(true);
+    expect(isolation.unmatched).toEqual([{ series: "isolation S41", label: "KQH-2G Rev. A" }]);
+    expect(insertionLoss.sources.map((s) => s.drawnAt)).toEqual(["1.7–2.3\u00a0GHz, 25\u00a0°C", "0.5–2.5\u00a0GHz, 25\u00a0°C", null]);
+    expect(insertionLoss.conditionsDiffer).toBe(true);
   });
 
   it("tells the sheets apart by colour, dash and point shape, each sheet the same on every panel", () => {
@@ -327,7 +329,7 @@ describe("the overlaid curves", () => {
   });
 
   it("draws each sheet's typical curve: the median of its units at each frequency", () => {
-    const panel = charts[1].panels[0];
+    const panel = charts[2].panels[0];
     const hybrid = demoModel("KQH-2G").charts.find((c) => c.id === "amplitude-balance")!;
     const values = (hybrid.vegaLite as { data: { values: { x: number; y: number; unit: string }[] } }).data.values;
     const x0 = Math.min(...values.map((v) => v.x));

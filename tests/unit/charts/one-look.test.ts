@@ -51,8 +51,9 @@ describe("the sheet and the workspace draw a series kind alike", () => {
     // A doubler's unwanted orders: the sheet's chart of four units, the workspace's chart of one set.
     ["KDX-2G4", "harmonic-suppression-vs-drive", "drive-sweep-doubler.csv", "harmonic-suppression-vs-drive"],
     ["KDX-2G4", "output-spectrum-vs-drive", "drive-sweep-doubler.csv", "output-spectrum-vs-drive"],
-    // A hybrid's transmission paths: insertion loss and isolation.
-    ["KQH-2G", "transmission", "hybrid-4port.s4p", "transmission"],
+    // A hybrid's transmission paths: insertion loss and isolation, each a chart of its own on the sheet.
+    ["KQH-2G", "insertion-loss", "hybrid-4port.s4p", "transmission"],
+    ["KQH-2G", "isolation", "hybrid-4port.s4p", "transmission"],
   ])("%s %s against %s %s", (part, chartId, file, curveId) => {
     const sheet = looksOf(sheetChart(part, chartId));
     const workspace = looksOf(workspaceCurve(file, curveId));

@@ -33,12 +33,13 @@ describe("the OpenAPI document of /api/v1", () => {
     expect(validate({ ...document, paths: { "/x": { get: { responses: "none" } } } })).toBe(false);
   });
 
-  it("describes the eight operations of the public API, and the readiness probe", () => {
+  it("describes the nine operations of the public API, and the readiness probe", () => {
     const operations = Object.entries(document.paths).flatMap(([path, item]) => Object.keys(item as object).map((m) => `${m.toUpperCase()} ${path}`));
     expect(operations.sort()).toEqual(
       ["GET /api/v1/sheets", "GET /api/v1/sheets/{org}/{part}/{rev}", "GET /api/v1/sheets/{org}/{part}/{rev}/pdf",
         "GET /api/v1/sheets/{org}/{part}/{rev}/csv",
         "GET /api/v1/sheets/{org}/{part}/{rev}/touchstone/{setId}",
+        "GET /api/v1/sheets/{org}/{part}/{rev}/touchstone/median/{group}",
         "GET /api/v1/verify", "POST /api/v1/measurements", "GET /api/v1/measurements/{id}", "GET /api/health/ready"].sort(),
     );
   });

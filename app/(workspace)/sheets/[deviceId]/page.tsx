@@ -51,6 +51,15 @@ export default async function SheetPage({ params }: Props) {
         ),
         absoluteMaximumRatings: template?.absoluteMaximumRatings ?? [],
       }}
+      designIn={{
+        pinFunctions: input.designData?.pinFunctions ?? [],
+        ordering: input.designData?.ordering ?? [],
+        recommendedOperatingConditions: input.designData?.recommendedOperatingConditions ?? [],
+        packageOutline: input.designData?.packageOutline ? { widthPx: input.designData.packageOutline.widthPx, heightPx: input.designData.packageOutline.heightPx } : null,
+        packageOutlineCaption: input.designData?.packageOutline?.caption ?? "",
+        templatePins: template?.designIn?.pins ?? [],
+        templateConditions: template?.designIn?.recommendedOperatingConditions ?? [],
+      }}
       reviewPanel={
         <ReviewReleasePanel
           deviceId={deviceId}

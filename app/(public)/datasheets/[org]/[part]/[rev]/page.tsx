@@ -13,7 +13,7 @@ import { ReleasedSheetView } from "@/components/datasheets/released-sheet-view";
 import { FollowButton } from "@/components/subscriptions/follow-button";
 import { DesignInCalculator } from "@/components/datasheets/design-in-calculator";
 import { ReleasedDownloads } from "@/components/datasheets/released-downloads";
-import { listReleasedTouchstone } from "@/lib/server/reviews/released-files";
+import { listReleasedTouchstone, medianTouchstoneGroups } from "@/lib/server/reviews/released-files";
 import { specificationsCsvFileName } from "@/lib/sheet/file-name";
 import { datasheetPath, type RevisionSummary } from "@/lib/domain/reviews";
 import { designInOutcome, isDesignInDeviceClass, readDesignInCurves } from "@/lib/sheet/design-in";
@@ -90,6 +90,7 @@ export default async function ReleasedDatasheetPage({ params, searchParams }: Pr
           csvPath={summary.pdfPath.replace(/\/pdf$/, "/csv")}
           csvFileName={specificationsCsvFileName(model.header.partNumber, summary.letter)}
           touchstone={touchstone}
+          medians={medianTouchstoneGroups(touchstone, { partNumber: model.header.partNumber, letter: summary.letter, basePath: summary.pdfPath.replace(/\/pdf$/, "") })}
         />
       }
       designIn={await designIn({ model, search: await searchParams, action: datasheetPath(segment(org), segment(part), segment(rev)), summary })}

@@ -14,14 +14,14 @@ export const dynamic = "force-dynamic";
  */
 export const GET = route({ resource: "released-sheets" }, async ({ params, request }) => {
   const setId = readIdParam(params.setId, "Touchstone file behind this released sheet");
-  const { released, file, bytes } = await readReleasedTouchstone({ organizationSlug: params.org, partNumber: params.part, revision: params.rev, setId });
+  const { head, file, bytes } = await readReleasedTouchstone({ organizationSlug: params.org, partNumber: params.part, revision: params.rev, setId });
   const etag = `"${file.sha256}"`;
   const headers: Record<string, string> = {
     "content-disposition": attachmentDisposition(file.fileName),
-    "cache-control": releasedFileCaching(params.rev, released.summary.standing),
+    "cache-control": releasedFileCaching(params.rev, head.standing),
     etag,
-    "x-benchfold-revision": released.summary.letter,
-    "x-benchfold-standing": released.summary.standing,
+    "x-benchfold-revision": head.letter,
+    "x-benchfold-standing": head.standing,
   };
   if (matchesEtag(request, etag)) return new Response(null, { status: 304, headers });
   return new Response(new Uint8Array(bytes), { headers: { ...headers, "content-type": "application/octet-stream", "content-length": String(bytes.length) } });

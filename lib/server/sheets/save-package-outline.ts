@@ -1,0 +1,121 @@
+import "server-only";
+import { createHash } from "node:crypto";
+import { Resvg } from "@resvg/resvg-js";
+import sharp from "sharp";
+import { AppError } from "@/lib/errors";
+import { formatByteSize } from "@/lib/format";
+import { checkPng, packageOutlineLimits, refuseSvg, sniffOutlineKind } from "@/lib/sheet/package-outline";
+import { db } from "@/models";
+import { recordAuditEvent } from "../audit/record-audit-event";
+import { authorize } from "../auth/authorize";
+import type { SessionUser } from "../auth/session-user";
+import { lockOwnRow } from "../auth/own-row";
+import { refreshOpenCandidates } from "../reviews/freshness";
+import { fontFiles, SANS_FAMILY } from "../pdf/fonts";
+import { findOrCreateSheetContent } from "./save-design-data";
+import { storeFile } from "../storage/store-file";
+
+export type OutlineUpload = { name: string; bytes: Uint8Array };
+
+/**
+ * The PNG the sheet prints for an uploaded drawing: a PNG as it is, once its signature, header and
+ * size pass; an SVG refused if it could reach beyond itself, then rasterised here with resvg (no
+ * system fonts, no external files), so no uploaded SVG is ever served.
+ */
+export function outlinePng(upload: OutlineUpload): { png: Buffer; widthPx: number; heightPx: number } {
+  const kind = sniffOutlineKind(upload.bytes);
+  if (!kind) throw new AppError("unsupported-media-type", `${upload.name} is neither a PNG nor an SVG drawing.`, { field: "file" });
+  let png: Buffer;
+  if (kind === "png") {
+    png = Buffer.from(upload.bytes);
+  } else {
+    const text = new TextDecoder("utf-8", { fatal: false }).decode(upload.bytes);
+    const refusal = refuseSvg(text);
+    if (refusal) throw new AppError("invalid", refusal, { field: "file" });
+    try {
+      const resvg = new Resvg(text, {
+        font: { fontFiles: [fontFiles.sansRegular, fontFiles.sansSemiBold, fontFiles.monoRegular], loadSystemFonts: false, defaultFontFamily: SANS_FAMILY },
+        fitTo: { mode: "width", value: packageOutlineLimits.rasterWidthPx },
+        background: "#ffffff",
+      });
+      // A drawing far taller than wide would be rasterised into a huge bitmap at the fixed width: refused before drawing.
+      const heightPx = Math.ceil((packageOutlineLimits.rasterWidthPx * resvg.height) / resvg.width);
+      if (!(heightPx > 0) || heightPx > packageOutlineLimits.sidePx) {
+        throw new AppError("invalid", `The SVG is ${resvg.width} × ${resvg.height} units; drawn ${packageOutlineLimits.rasterWidthPx} pixels wide it would be ${heightPx} pixels tall, more than ${packageOutlineLimits.sidePx}.`, { field: "file" });
+      }
+      png = Buffer.from(resvg.render().asPng());
+    } catch (error) {
+      if (error instanceof AppError) throw error;
+      throw new AppError("invalid", `${upload.name} could not be drawn as SVG: ${(error as Error).message.slice(0, 200)}`, { field: "file" });
+    }
+  }
+  const check = checkPng(png);
+  if (!check.ok) throw new AppError(check.message.includes("at most") ? "payload-too-large" : "invalid", check.message, { field: "file" });
+  return { png, widthPx: check.widthPx, heightPx: check.heightPx };
+}
+
+/** Reads the multipart upload of a drawing: one `file`, within the size limit (checked before and after buffering). */
+export async function readOutlineUpload(request: Request): Promise<OutlineUpload> {
+  const limit = packageOutlineLimits.uploadBytes;
+  const declared = Number(request.headers.get("content-length") ?? NaN);
+  if (Number.isFinite(declared) && declared > limit + 16 * 1024) {
+    throw new AppError("payload-too-large", `The upload is ${formatByteSize(declared)}; a package outline may be at most ${formatByteSize(limit)}.`);
+  }
+  if (!(request.headers.get("content-type") ?? "").includes("multipart/form-data")) {
+    throw new AppError("unsupported-media-type", 'Send the drawing as multipart/form-data with a field named "file".');
+  }
+  let form: FormData;
+  try {
+    form = await request.formData();
+  } catch {
+    throw new AppError("bad-request", "The multipart body could not be read.");
+  }
+  const file = form.get("file");
+  if (!(file instanceof File)) throw new AppError("invalid", 'Attach the drawing (SVG or PNG) in a field named "file".', { field: "file" });
+  if (file.size > limit) throw new AppError("payload-too-large", `${file.name} is ${formatByteSize(file.size)}; a package outline may be at most ${formatByteSize(limit)}.`, { field: "file" });
+  if (file.size === 0) throw new AppError("invalid", `${file.name} is empty.`, { field: "file" });
+  return { name: file.name || "outline", bytes: new Uint8Array(await file.arrayBuffer()) };
+}
+
+/** Stores the drawing (as the PNG the sheet prints) and points the device's sheet at it. */
+export async function savePackageOutline(opts: { actor: SessionUser; deviceId: number; upload: OutlineUpload }): Promise<{ sha256: string; widthPx: number; heightPx: number; sizeBytes: number }> {
+  const { Device, sequelize } = db();
+  const { actor, deviceId, upload } = opts;
+  authorize(actor, "sheet-edit");
+  const { png, widthPx, heightPx } = outlinePng(upload);
+  const sha256 = createHash("sha256").update(png).digest("hex");
+  await sequelize.transaction(async (transaction) => {
+    await lockOwnRow(Device, deviceId, actor, transaction, "device");
+    const content = await findOrCreateSheetContent({ actor, deviceId, transaction });
+    const stored = await storeFile(
+      { organizationId: actor.organizationId, sha256, originalName: upload.name.replace(/\.svg$/i, ".png").slice(0, 255), contentType: "image/png", bytes: png },
+      transaction,
+    );
+    const before = { packageOutlineFileId: content.packageOutlineFileId ?? null };
+    await content.update({ packageOutlineFileId: stored.id, updatedById: actor.id }, { transaction });
+    await recordAuditEvent(
+      { organizationId: actor.organizationId, actorUserId: actor.id, action: "sheet-package-outline.save", subjectType: "device", subjectId: deviceId, before, after: { packageOutlineFileId: stored.id, sha256, widthPx, heightPx, uploadedName: upload.name } },
+      transaction,
+    );
+  });
+  await refreshOpenCandidates({ organizationId: actor.organizationId, deviceId });
+  return { sha256, widthPx, heightPx, sizeBytes: png.byteLength };
+}
+
+/** Takes the drawing off the sheet (the stored file stays: a released sheet may print it). */
+export async function removePackageOutline(opts: { actor: SessionUser; deviceId: number }): Promise<void> {
+  const { Device, sequelize } = db();
+  const { actor, deviceId } = opts;
+  authorize(actor, "sheet-edit");
+  await sequelize.transaction(async (transaction) => {
+    await lockOwnRow(Device, deviceId, actor, transaction, "device");
+    const content = await findOrCreateSheetContent({ actor, deviceId, transaction });
+    const before = { packageOutlineFileId: content.packageOutlineFileId ?? null };
+    await content.update({ packageOutlineFileId: null, updatedById: actor.id }, { transaction });
+    await recordAuditEvent(
+      { organizationId: actor.organizationId, actorUserId: actor.id, action: "sheet-package-outline.remove", subjectType: "device", subjectId: deviceId, before, after: { packageOutlineFileId: null } },
+      transaction,
+    );
+  });
+  await refreshOpenCandidates({ organizationId: actor.organizationId, deviceId });
+}
