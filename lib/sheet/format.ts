@@ -32,6 +32,13 @@ export function formatTemperature(celsius: number): string {
   return formatQuantity(celsius, "°C", { digits: { maxDecimals: 1 } });
 }
 
+/** A span of temperatures as ratings write it, "−40 to +85 °C"; one temperature when both ends agree. */
+export function formatTemperatureRange(lowC: number, highC: number): string {
+  if (lowC === highC) return formatTemperature(lowC);
+  const end = (c: number) => formatNumber(c, { digits: { maxDecimals: 1 }, signed: true });
+  return `${end(lowC)} to ${end(highC)} °C`;
+}
+
 /**
  * A stated limit (min, typ or max) with the digits the engineer typed: 9.5 stays "9.5" and 10.0
  * stays "10.0", whatever the template's decimals. A limit saved without its typed digits (through

@@ -266,7 +266,8 @@ function groupConditions(row: SpecRowTemplate, conditions: Conditions): Conditio
   const match = row.match ?? {};
   for (const key of Object.keys(match)) if (conditions[key] !== match[key]) return null;
   const picked: Conditions = { ...match };
-  for (const key of row.groupBy) if (conditions[key] !== undefined) picked[key] = conditions[key];
+  const keys = row.overTemperature ? [...row.groupBy.filter((k) => k !== "temperatureC"), "temperatureMinC", "temperatureMaxC"] : row.groupBy;
+  for (const key of keys) if (conditions[key] !== undefined) picked[key] = conditions[key];
   return picked;
 }
 
@@ -283,6 +284,7 @@ interface Candidate extends UnitValue {
 
 /** Values of one row by condition group, one per unit: the latest set wins when a unit was measured twice. */
 function collectRowValues(row: SpecRowTemplate, sets: ApprovedSetInput[]): Map<string, UnitValue[]> {
+  if (row.overTemperature) return collectOverTemperatureValues(row, row.overTemperature, sets);
   const byGroup = new Map<string, Map<string, Candidate>>();
   for (const set of sets) {
     const setId = String(set.id);
@@ -321,6 +323,37 @@ function collectRowValues(row: SpecRowTemplate, sets: ApprovedSetInput[]): Map<s
         .sort((a, b) => compareStrings(a.serial, b.serial))
         .map(({ serial, lot, setId, value }) => ({ serial, lot, setId, value })),
     );
+  }
+  return result;
+}
+
+/**
+ * A row over temperature: the values of the row's groups taken without their temperature, per unit and
+ * temperature the latest set (as in any row), then per unit its worst value over its temperatures (the
+ * highest for "max", the lowest for "min"). A group is kept only when its sets span two or more
+ * temperatures, and carries that span as temperatureMinC and temperatureMaxC. A set's temperature is its
+ * own condition: the file's temperature line or the upload's field (lib/ingest mergeUploadConditions).
+ */
+function collectOverTemperatureValues(row: SpecRowTemplate, worst: "max" | "min", sets: ApprovedSetInput[]): Map<string, UnitValue[]> {
+  const perTemperature = collectRowValues({ ...row, overTemperature: undefined, groupBy: [...row.groupBy.filter((k) => k !== "temperatureC"), "temperatureC"] }, sets);
+  const byGroup = new Map<string, { temperatures: Set<number>; units: Map<string, UnitValue> }>();
+  for (const [key, values] of perTemperature) {
+    const { temperatureC, ...rest } = parseConditionsKey(key);
+    if (typeof temperatureC !== "number") continue;
+    const groupKey = makeConditionsKey(rest);
+    let group = byGroup.get(groupKey);
+    if (!group) byGroup.set(groupKey, (group = { temperatures: new Set(), units: new Map() }));
+    group.temperatures.add(temperatureC);
+    for (const value of values) {
+      const current = group.units.get(value.serial);
+      if (!current || (worst === "max" ? value.value > current.value : value.value < current.value)) group.units.set(value.serial, value);
+    }
+  }
+  const result = new Map<string, UnitValue[]>();
+  for (const [groupKey, { temperatures, units }] of byGroup) {
+    if (temperatures.size < 2) continue;
+    const conditions = { ...parseConditionsKey(groupKey), temperatureMinC: Math.min(...temperatures), temperatureMaxC: Math.max(...temperatures) };
+    result.set(makeConditionsKey(conditions), [...units.values()].sort((a, b) => compareStrings(a.serial, b.serial)));
   }
   return result;
 }

@@ -68,6 +68,18 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
         groupBy: [...bandKeys, "loPowerDbm", "temperatureC"],
         defaultBasis: "characterization",
       },
+      {
+        id: "conversion-loss-worst-over-temperature",
+        parameter: "conversion-loss",
+        label: "Conversion loss over temperature, highest in band",
+        symbol: "CL",
+        unit: "dB",
+        decimals: 2,
+        match: { statistic: "max" },
+        groupBy: [...bandKeys, "loPowerDbm", "temperatureC"],
+        defaultBasis: "characterization",
+        overTemperature: "max",
+      },
       isolationRow("LO-RF", "test"),
       isolationRow("LO-IF", "characterization"),
       isolationRow("RF-IF", "characterization"),
@@ -100,6 +112,18 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
       "System impedance 50 Ω; LO drive is the available power at the LO port.",
     ],
   },
+  trends: [
+    {
+      id: "conversion-loss-vs-temperature",
+      parameter: "conversion-loss",
+      match: { statistic: "max" },
+      groupBy: [...bandKeys, "loPowerDbm"],
+      x: { key: "temperatureC", label: "Ambient temperature", unit: "°C" },
+      y: { label: "Conversion loss, highest in band", unit: "dB" },
+      title: "Highest conversion loss in band vs temperature",
+      caption: "Each line one unit, through the temperatures it was measured at.",
+    },
+  ],
   curves: [
     {
       id: "conversion-loss-vs-frequency",
