@@ -32,11 +32,14 @@ export function formatTemperature(celsius: number): string {
   return formatQuantity(celsius, "°C", { digits: { maxDecimals: 1 } });
 }
 
-/** A span of temperatures as ratings write it, "−40 to +85 °C"; one temperature when both ends agree. */
+/**
+ * A span of temperatures as ratings write it: "−40 to +85 °C" (the high end signed when the low end is
+ * below zero), "25 to 85 °C"; one temperature when both ends agree.
+ */
 export function formatTemperatureRange(lowC: number, highC: number): string {
   if (lowC === highC) return formatTemperature(lowC);
-  const end = (c: number) => formatNumber(c, { digits: { maxDecimals: 1 }, signed: true });
-  return `${end(lowC)} to ${end(highC)} °C`;
+  const digits = { maxDecimals: 1 };
+  return `${formatNumber(lowC, { digits })} to ${formatNumber(highC, { digits, signed: lowC < 0 })} °C`;
 }
 
 /**

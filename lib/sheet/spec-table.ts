@@ -4,6 +4,7 @@ import { compareStrings } from "./compare";
 import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
 import { formatLimitValue, formatValue, typicalDecimals } from "./format";
 import { computeGroupStatistics, DEFAULT_CPK_MIN_UNITS, type GroupStatistics, type UnitValue } from "./statistics";
+import type { LimitBasis } from "../domain/sheets";
 import type { ApprovedSetInput, GroupIdentity, SheetInput, SheetModel, SpecLimitInput, SpecTableRow, StatisticsGroup } from "./types";
 
 const MEASURED_MEAN_FOOTNOTE =
@@ -112,8 +113,20 @@ function groupIdentity(row: SpecRowTemplate, conditionsKey: string): GroupIdenti
   };
 }
 
+/**
+ * The basis a group states when no limit gives one: the row's default, except that production test
+ * runs at room temperature, so a group at another temperature (or over a span of them) is
+ * characterization where the row's default is test.
+ */
+function unlimitedBasis(row: SpecRowTemplate, conditionsKey: string): LimitBasis {
+  if (row.defaultBasis !== "test") return row.defaultBasis;
+  const conditions = parseConditionsKey(conditionsKey);
+  const atRoom = conditions.temperatureMinC === undefined && (conditions.temperatureC === undefined || conditions.temperatureC === 25);
+  return atRoom ? "test" : "characterization";
+}
+
 function buildStatisticsGroup({ row, conditionsKey, limit, stats }: RowGroup, conditionsText: string): StatisticsGroup {
-  const basis = limit?.basis ?? row.defaultBasis;
+  const basis = limit?.basis ?? unlimitedBasis(row, conditionsKey);
   return {
     ...groupIdentity(row, conditionsKey),
     conditionsText,
@@ -151,7 +164,7 @@ function buildSpecRow(
   conditionCells: string[],
   footnoteMark: (text: string) => string,
 ): SpecTableRow {
-  const basis = limit?.basis ?? row.defaultBasis;
+  const basis = limit?.basis ?? unlimitedBasis(row, conditionsKey);
   const typIsMeasuredMean = limit?.typ === undefined && stats.meanValue !== null;
   const marks: string[] = [];
   if (limit?.footnote) marks.push(footnoteMark(limit.footnote.trim()));

@@ -298,7 +298,14 @@ describe("the overlaid curves", () => {
 
   it("overlays each chart two or more sheets carry, one panel per series, and names the rest", () => {
     expect(charts.map((c) => c.chartId)).toEqual(["transmission", "amplitude-balance", "phase-balance", "return-loss"]);
-    expect(single).toEqual([{ label: "KM-7H Rev. A", titles: ["Conversion loss vs RF frequency", "Isolation vs RF frequency"] }]);
+    expect(single).toEqual([
+      {
+        label: "KM-7H Rev. A",
+        titles: ["Conversion loss vs RF frequency", "Isolation vs RF frequency", "Tone and IM3 output vs input per tone", "Highest conversion loss in band vs temperature"],
+      },
+    ]);
+    // The mixer's port match joins the network analyzer's return-loss panel of the hybrid and the splitter.
+    expect(charts[3].sources.map((s) => s.label)).toEqual(["KQH-2G Rev. A", "PS-2W Rev. A", "KM-7H Rev. A"]);
     const transmission = charts[0];
     expect(transmission.panels.map((p) => p.series)).toEqual(["insertion loss S21", "insertion loss S31", "isolation S32"]);
     // S41 and port 4 exist on the 90° hybrid only: named, not drawn as a one-sheet "comparison".
