@@ -39,7 +39,7 @@ export function formatTemperature(celsius: number): string {
 export function formatTemperatureRange(lowC: number, highC: number): string {
   if (lowC === highC) return formatTemperature(lowC);
   const digits = { maxDecimals: 1 };
-  return `${formatNumber(lowC, { digits })} to ${formatNumber(highC, { digits, signed: lowC < 0 })} °C`;
+  return `${formatNumber(lowC, { digits })} to ${formatNumber(highC, { digits, signed: lowC < 0 })}\u00a0°C`;
 }
 
 /**
