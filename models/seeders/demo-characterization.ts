@@ -9,8 +9,8 @@
  *   hot: their own 25 °C response slid along the drive axis by the shift of the optimum drive (the
  *   diodes' turn-on voltage) and its loss raised by the temperature coefficient. Lot L2410's BFD-0011 and BFD-0012
  *   come from the doubler model at all three temperatures, swept over the same source powers as lot
- *   L2405 (−5 to +20 dBm). Approved after revision A, with BFD-0004:
- *   revision B carries them.
+ *   L2405 (−5 to +20 dBm), and at 0.6 and 1.2 GHz input as well (25 °C). Approved after revision A,
+ *   with BFD-0004: revision B carries them.
  * - KM-7H (mixer): −40, +25 and +85 °C RF sweeps on two lots (L2409's BFD-0108 and BFD-0109 cold and
  *   hot from their 25 °C sweeps; L2412's BFD-0131 and BFD-0132 from the mixer model, with LO–IF and
  *   RF–IF isolation); LO–IF and RF–IF isolation sweeps of L2409's four units; two-tone sweeps (IIP3 and
@@ -173,6 +173,13 @@ function doublerUploads(at25: Record<string, () => Buffer>): DemoUpload[] {
     for (const t of TEMPERATURES) {
       const text = doublerDriveSweep(kdxModel, { serial, lot: "L2410", inputFrequencyHz: 1e9, temperatureC: t, sourceSweepDbm: { start: -5, stop: 20 } }, 4100 + u);
       uploads.push({ ...base, file: `drive-sweep-${serial.toLowerCase()}-${temperatureWord(t)}.csv`, fields: { measuredOn: t < 0 ? "2026-10-20" : t > 25 ? "2026-10-21" : "2026-10-22" }, bytes: () => Buffer.from(text) });
+    }
+  });
+  // Lot L2410 across the input band at 25 °C as well: conversion loss against input frequency.
+  ["BFD-0011", "BFD-0012"].forEach((serial, u) => {
+    for (const inputFrequencyHz of [0.6e9, 1.2e9]) {
+      const text = doublerDriveSweep(kdxModel, { serial, lot: "L2410", inputFrequencyHz, sourceSweepDbm: { start: -5, stop: 20 } }, 4100 + u);
+      uploads.push({ ...base, file: `drive-sweep-${serial.toLowerCase()}-${inputFrequencyHz / 1e6}mhz.csv`, fields: { measuredOn: "2026-10-23" }, bytes: () => Buffer.from(text) });
     }
   });
   return uploads;
