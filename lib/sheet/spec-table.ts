@@ -114,19 +114,16 @@ function groupIdentity(row: SpecRowTemplate, conditionsKey: string): GroupIdenti
 }
 
 /**
- * The basis a group states when no limit gives one: the row's default, except that production test
- * runs at room temperature, so a group at another temperature (or over a span of them) is
- * characterization where the row's default is test.
+ * The basis a group states when no limit gives one: the row's default, except that a figure with no
+ * limit is screened on no unit, so "tested on every unit" cannot be its basis: characterization (a row
+ * at another temperature or input frequency than production test's, say).
  */
-function unlimitedBasis(row: SpecRowTemplate, conditionsKey: string): LimitBasis {
-  if (row.defaultBasis !== "test") return row.defaultBasis;
-  const conditions = parseConditionsKey(conditionsKey);
-  const atRoom = conditions.temperatureMinC === undefined && (conditions.temperatureC === undefined || conditions.temperatureC === 25);
-  return atRoom ? "test" : "characterization";
+function unlimitedBasis(row: SpecRowTemplate): LimitBasis {
+  return row.defaultBasis === "test" ? "characterization" : row.defaultBasis;
 }
 
 function buildStatisticsGroup({ row, conditionsKey, limit, stats }: RowGroup, conditionsText: string): StatisticsGroup {
-  const basis = limit?.basis ?? unlimitedBasis(row, conditionsKey);
+  const basis = limit?.basis ?? unlimitedBasis(row);
   return {
     ...groupIdentity(row, conditionsKey),
     conditionsText,
@@ -164,7 +161,7 @@ function buildSpecRow(
   conditionCells: string[],
   footnoteMark: (text: string) => string,
 ): SpecTableRow {
-  const basis = limit?.basis ?? unlimitedBasis(row, conditionsKey);
+  const basis = limit?.basis ?? unlimitedBasis(row);
   const typIsMeasuredMean = limit?.typ === undefined && stats.meanValue !== null;
   const marks: string[] = [];
   if (limit?.footnote) marks.push(footnoteMark(limit.footnote.trim()));

@@ -34,7 +34,7 @@ function proseAtRevisionA(): DemoSheetContent["prose"] {
   const prose = demoSheets["KDX-2G4"].prose;
   return {
     ...prose,
-    features: prose.features?.replace("Conversion loss below 11 dB at optimum drive, tested on every unit at 25 °C and characterized from −40 to +85 °C", "Conversion loss below 11.5 dB at optimum drive, tested on every unit"),
+    features: prose.features?.replace("Conversion loss below 11 dB at optimum drive, tested on every unit at 25 °C; below 11.5 dB from −40 to +85 °C", "Conversion loss below 11.5 dB at optimum drive, tested on every unit"),
   };
 }
 
@@ -43,7 +43,7 @@ function proseAtRevisionA(): DemoSheetContent["prose"] {
  * temperature wait for review, see demo-measurements.ts and demo-characterization.ts) with a
  * conversion-loss maximum of 11.5 dB (and a features line to match); then BFD-0004 and the −40, +25 and
  * +85 °C runs of lots L2405 and L2410 are approved, the reviewer sends the first resubmission back, the
- * engineer tightens the maximum to 11.0 dB, states it over the rated range too and puts the feature
+ * engineer tightens the maximum to 11.0 dB, states 11.5 dB over the rated range and puts the feature
  * line right (the content of demo-sheets.ts) and revision B goes out.
  * Between A and B the demo customer follows the part, so B's release queues a change notice to them.
  */
@@ -63,13 +63,13 @@ export const demoDoublerStory = {
   firstResubmission: {
     note: "BFD-0004 and the −40, +25 and +85 °C runs of lots L2405 and L2410 added to the sheet; limits unchanged from revision A.",
     changeRequest:
-      "With BFD-0004 and lot L2410 in, all six units sit well inside 11.5 dB at optimum drive at 25 °C, and none exceeds 11 dB anywhere from −40 to +85 °C. Tighten the conversion-loss maximum to 11.0 dB as we agreed at revision A, so the sheet states what production test actually screens, and guarantee it over the rated range from the temperature runs.",
+      "With BFD-0004 and lot L2410 in, all six units sit well inside 11.5 dB at optimum drive at 25 °C, and the temperature runs of both lots stay near 10 dB from −40 to +85 °C. Tighten the conversion-loss maximum to 11.0 dB as we agreed at revision A, so the sheet states what production test actually screens, and state what holds over the rated range: 11.5 dB keeps the six units' spread capable there.",
   },
   revisionB: {
     submitNote:
-      "Conversion-loss maximum tightened from 11.5 to 11.0 dB on the six-unit spread at 25 °C and stated over −40 to +85 °C from the runs of two lots, as requested; the features line says so.",
+      "Conversion-loss maximum tightened from 11.5 to 11.0 dB on the six-unit spread at 25 °C, and 11.5 dB stated over −40 to +85 °C from the runs of two lots, as requested; the features line says so.",
     releaseNote:
-      "Fourth unit (BFD-0004) and lot L2410 added to the test population; conversion-loss maximum tightened from 11.5 dB to 11.0 dB and characterized from −40 to +85 °C on two lots.",
+      "Fourth unit (BFD-0004) and lot L2410 added to the test population; conversion-loss maximum tightened from 11.5 dB to 11.0 dB at 25 °C, 11.5 dB from −40 to +85 °C characterized on two lots.",
   },
 } as const;
 

@@ -40,7 +40,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
       {
         parameter: "conversion-loss",
         conditionsKey: `drive=optimum;inputFrequencyHz=1000000000;${ratedRange}`,
-        max: 11,
+        max: 11.5,
         unit: "dB",
         basis: "characterization",
         footnote: "Each unit's highest value over −40, +25 and +85 °C, from two lots; tested at 25 °C only.",
@@ -62,7 +62,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
       description:
         "The **KDX-2G4** doubles a 0.5–1.2 GHz input to 1.0–2.4 GHz. A Schottky diode ring is driven on both ports from one source through an in-phase splitter, so the second harmonic adds at the output while the fundamental and the odd orders cancel.\n\nNo bias supply is needed. Best conversion is near +10.8 dBm per port.",
       features:
-        "- Conversion loss below 11 dB at optimum drive, tested on every unit at 25 °C and characterized from −40 to +85 °C\n- Fundamental suppression above 22 dBc\n- Residual phase noise typically −152 dBc/Hz at 10 kHz offset\n- Passive: no DC supply",
+        "- Conversion loss below 11 dB at optimum drive, tested on every unit at 25 °C; below 11.5 dB from −40 to +85 °C\n- Fundamental suppression above 22 dBc\n- Residual phase noise typically −152 dBc/Hz at 10 kHz offset\n- Passive: no DC supply",
       applications: "- Local-oscillator multiplier chains\n- Clock doubling in frequency synthesizers\n- Laboratory frequency extension",
       "test-fixture":
         "Units are soldered to a 0.508 mm laminate fixture with SMA launches. Both device ports are fed from one signal generator through a two-way in-phase splitter; its 0.4 dB excess loss and the 0.6 dB cable loss are taken out of the stated drive. Output orders 1 to 4 are read on a spectrum analyzer. Reference impedance 50 Ω.\n\nThe runs over temperature put the fixture in a chamber at −40, +25 and +85 °C, soaked 20 minutes at each; the temperature of each run is the one its bench file states.",
@@ -88,7 +88,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
       description:
         "The **KM-7H** is a level-7 double-balanced mixer: a quad of Schottky diodes between two wideband baluns. With +7 dBm of LO it converts 500–3000 MHz to an IF from DC to 1 GHz with about 6.6 dB of loss.",
       features:
-        "- Conversion loss below 8.5 dB across 500–3000 MHz at 25 °C, below 9 dB from −40 to +85 °C\n- LO-to-RF isolation above 22 dB, LO-to-IF typically 23 dB\n- Input IP3 typically +16 dBm, input P1dB typically +1 dBm\n- +7 dBm LO drive",
+        "- Conversion loss below 8.5 dB across 500–3000 MHz at 25 °C, below 9 dB from −40 to +85 °C\n- LO-to-RF isolation above 22 dB, LO-to-IF typically 23 dB\n- Input IP3 typically +16 dBm, input P1dB typically +0.8 dBm\n- +7 dBm LO drive",
       applications: "- Up- and down-conversion in receivers and transmitters\n- Phase detection\n- Frequency doubling with both ports driven",
       "test-fixture":
         "Units are measured on a 50 Ω evaluation board. The RF port is swept from 500 to 3000 MHz at −10 dBm against a +7 dBm LO, the IF held at 70 MHz; conversion loss and LO-to-RF leakage are read on a spectrum analyzer, corrected for fixture and cable loss. LO-to-IF and RF-to-IF leakage are read the same way with the IF port to the analyzer.\n\nThe two-tone runs put 1000 and 1001 MHz on the RF port, −20 to +6 dBm per tone; the intercept comes from the slope-fitted small-signal points, the compression point from the tone output. Port match is a three-port network-analyzer measurement with the LO off: port 1 RF, port 2 LO, port 3 IF.\n\nThe runs over temperature put the board in a chamber at −40, +25 and +85 °C; the temperature of each run is the one its bench file states.",

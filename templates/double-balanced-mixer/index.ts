@@ -105,11 +105,12 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
         groupBy: ["loPowerDbm", "temperatureC"],
         defaultBasis: "characterization",
       },
-      worstVswrRow("design"),
+      worstVswrRow("characterization"),
     ],
     notes: [
       "Conversion loss is P_RF − P_IF (positive for a lossy mixer). Intercepts are per tone, from slope-1 and slope-3 fits over the small-signal points.",
       "System impedance 50 Ω; LO drive is the available power at the LO port.",
+      "Port match (VSWR, return loss) is measured as a three-port network: port 1 RF, port 2 LO, port 3 IF, with the LO off.",
     ],
   },
   trends: [

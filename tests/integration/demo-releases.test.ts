@@ -95,7 +95,8 @@ describe("the demo's releases", () => {
     const overTemperature = (m: (typeof models)[number]) => m.statistics.groups.find((g) => g.rowId === "conversion-loss-over-temperature");
     expect(overTemperature(models[1])).toBeUndefined();
     expect(overTemperature(models[0])).toMatchObject({ conditionsKey: "drive=optimum;inputFrequencyHz=1000000000;temperatureMaxC=85;temperatureMinC=-40", n: 6, lots: 2 });
-    expect(overTemperature(models[0])!.limits?.max.value).toBe(11);
+    expect(overTemperature(models[0])!.limits?.max.value).toBe(11.5);
+    expect(overTemperature(models[0])!.supported).toBe(true);
   });
 
   it("released the mixer, the hybrid and the Pellacourt splitter as revision A", async () => {

@@ -74,13 +74,15 @@ describe("a row over temperature", () => {
     expect(model.issues.filter((i) => i.code === "limit-not-shown")).toEqual([]);
   });
 
-  it("keeps the rows at each temperature, those away from 25 °C without a limit stated as characterization", () => {
+  it("keeps the rows at each temperature; without a limit nothing is screened, so none claims basis test", () => {
     const atEach = model.specifications.rows.filter((r) => r.rowId === "conversion-loss-optimum");
     expect(atEach.map((r) => [r.conditions.at(-1), r.n, r.basis])).toEqual([
       ["−40\u00a0°C", 1, "characterization"],
-      ["25\u00a0°C", 3, "test"],
+      ["25\u00a0°C", 3, "characterization"],
       ["85\u00a0°C", 2, "characterization"],
     ]);
+    const tested = buildSheetModel(input(readings.map((r, i) => set(i + 1, r)), [{ parameter: "conversion-loss", conditionsKey: "drive=optimum;inputFrequencyHz=1000000000;temperatureC=25", max: 11, unit: "dB", basis: "test" }]));
+    expect(tested.specifications.rows.find((r) => r.rowId === "conversion-loss-optimum" && r.conditionsKey.endsWith("temperatureC=25"))!.basis).toBe("test");
   });
 
   it("is left out when every set is at one temperature", () => {
