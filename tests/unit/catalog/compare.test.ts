@@ -271,7 +271,8 @@ describe("the CSV export", () => {
     );
     expect(lines).toHaveLength(table.rows.length + 2); // header, rows, and the empty string after the last CRLF
     expect(lines[1]).toBe(
-      '"Insertion loss, port 1 to 2 (S21)",IL,typ,dB,lower is better,differ: band,3.28,"Band 1.5–2.5\u00a0GHz, T_A 25\u00a0°C",test,3.50,"Band 0.5–2.5\u00a0GHz, T_A 25\u00a0°C",test,KQH-2G Rev. A',
+      // PS-2W states no limit (typical values of one unit): characterization, not test.
+      '"Insertion loss, port 1 to 2 (S21)",IL,typ,dB,lower is better,differ: band,3.28,"Band 1.5–2.5\u00a0GHz, T_A 25\u00a0°C",test,3.50,"Band 0.5–2.5\u00a0GHz, T_A 25\u00a0°C",characterization,KQH-2G Rev. A',
     );
     // The page's figures, with a hyphen-minus for a spreadsheet.
     expect(lines.find((l) => l.startsWith('"Phase balance, from nominal",Δφ,typ'))).toContain(",-1.5,");
