@@ -51,6 +51,7 @@ async function loadDemoMeasurements() {
     return;
   }
   const slugs = [...new Set(demoUploads.map((u) => u.org))];
+  const started = Date.now();
 
   // Instruments, entered by each organization's admin.
   const instrumentIds = new Map<string, number>();
@@ -113,7 +114,7 @@ async function loadDemoMeasurements() {
   await sequelize.query("INSERT INTO benchfold_seeds (name) VALUES (?)", { replacements: [marker] });
   console.error(
     `[benchfold] demo measurements: ${demoUploads.length} files uploaded through the bench API, ${[...toApprove.values()].flat().length} approved; ` +
-      `${instrumentIds.size} instruments; ${sheets} sheets with limits and prose`,
+      `${instrumentIds.size} instruments; ${sheets} sheets with limits and prose (${((Date.now() - started) / 1000).toFixed(1)} s)`,
   );
 }
 

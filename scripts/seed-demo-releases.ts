@@ -101,6 +101,10 @@ export async function approveWaiting(reviewer: DemoApiSession, deviceId: number,
 const approvedBeforeRelease = (part: string) => (set: MeasurementSetSummary) =>
   demoUploads.some((u) => u.part === part && u.file === set.fileName && u.approve && !u.approveAfterRevisionA);
 
+/** The files the demo approves only once revision A is out: BFD-0004 and the runs over temperature. */
+const approvedAfterRevisionA = (part: string) => (set: MeasurementSetSummary) =>
+  demoUploads.some((u) => u.part === part && u.file === set.fileName && u.approve && u.approveAfterRevisionA);
+
 /** The sheet's limits and words as given, the rest of its content as demo-sheets.ts has it. */
 async function putSheet(engineer: DemoApiSession, deviceId: number, part: string, edits: Partial<Pick<DemoSheetContent, "limits" | "prose">> = {}) {
   const { limits, prose, absoluteMaximumRatings, measurementUncertainty } = { ...demoSheets[part], ...edits };
@@ -131,7 +135,7 @@ async function playDoublerStory(team: Team): Promise<string[]> {
     done.push(`${story.part} ${await releaseNext(team, deviceId, story.revisionA)}`);
   }
   await followAsCustomer(team.engineer.appUrl, story.org, story.part, story.followerBeforeRevisionB);
-  await approveWaiting(team.reviewer, deviceId, (set) => (story.addedAfterRevisionA as readonly string[]).includes(String(set.conditions.serial)));
+  await approveWaiting(team.reviewer, deviceId, approvedAfterRevisionA(story.part));
   // The conformity watch flags BFD-0004 against revision A's narrow three-unit charts; the engineer closes it with a reason.
   await closeDemoAlerts(team.engineer, deviceId, demoRevisionAAlertReason);
   if ((await deviceReview(team.engineer, deviceId)).latest?.state === "released") {

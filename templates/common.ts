@@ -18,7 +18,11 @@ export function composeCautions(maximumInputPowerCaution: string): string[] {
 export const temperatureColumn: ConditionColumn = {
   id: "temperature",
   label: "T_A",
-  sources: [{ key: "temperatureC", format: "temperature-c" }],
+  // A row over temperature carries the span of its sets' temperatures instead of one.
+  sources: [
+    { key: "temperatureC", format: "temperature-c" },
+    { key: "temperatureMinC", stopKey: "temperatureMaxC", format: "temperature-range" },
+  ],
 };
 
 /** Condition keys of a figure taken over a whole band (lib/analysis "worst" and min/typ/max figures). */

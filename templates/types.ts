@@ -18,6 +18,7 @@ export type ConditionFormat =
   | "frequency-band" // two keys decades apart, each end with its own prefix → "12 kHz–20 MHz"
   | "power-dbm"
   | "temperature-c"
+  | "temperature-range" // two keys, lowest and highest set temperature in °C → "−40 to 85 °C"
   | "port"
   | "text";
 
@@ -53,6 +54,13 @@ export interface SpecRowTemplate {
   /** Condition keys that split the row into groups; each group is one table line and one statistics entry. */
   groupBy: string[];
   defaultBasis: LimitBasis;
+  /**
+   * A row over temperature: the sets' temperatures are not split into groups; each unit's worst value
+   * over the temperatures it was measured at ("max": its highest, "min": its lowest) is its value, and the
+   * group carries the span of set temperatures as temperatureMinC and temperatureMaxC. Shown only where
+   * the group's sets span two or more temperatures.
+   */
+  overTemperature?: "max" | "min";
 }
 
 export interface CurveTemplate {
@@ -81,8 +89,16 @@ export interface TrendTemplate {
   parameter: string;
   /** Conditions the parameter must carry, value for value (as SpecRowTemplate.match). */
   match?: Record<string, string | number>;
-  /** The condition key on the x axis, with its axis words. */
+  /**
+   * The condition key on the x axis, with its axis words. "temperatureC" draws against each set's
+   * temperature (the set's own condition, as the statistics read it) instead of picking one temperature.
+   */
   x: { key: string; label: string; unit: string };
+  /**
+   * For a chart against temperature: condition keys that must agree along one line (e.g. the input
+   * frequency); the group with the most units is drawn and named in the caption.
+   */
+  groupBy?: string[];
   /** The y axis words; the unit is the parameter's. */
   y: { label: string; unit: string };
   title: string;

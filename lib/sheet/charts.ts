@@ -25,6 +25,8 @@ export interface ChartOptions {
   conditionsLabel?: string;
   /** Draw a dot at every point as well as the line (few, discrete x values). */
   points?: boolean;
+  /** A sentence after the caption and the description, e.g. the lowest and highest value drawn. */
+  note?: string;
 }
 
 /**
@@ -36,7 +38,7 @@ export function buildChartSpec(
   sources: ChartSource[],
   options: ChartOptions = {},
 ): ChartSpec | null {
-  const { conditionsLabel = "", points: drawPoints = false } = options;
+  const { conditionsLabel = "", points: drawPoints = false, note } = options;
   const sorted = [...sources].sort((a, b) => (a.serial < b.serial ? -1 : a.serial > b.serial ? 1 : 0));
   const seenSerials = new Set<string>();
   const chosen: ChartSource[] = [];
@@ -76,11 +78,13 @@ export function buildChartSpec(
   const caption =
     `${template.caption} ${drawn.length} ${unitWord} drawn${at}` +
     (omitted > 0 ? ` (first ${drawn.length} of ${chosen.length} by serial).` : ".") +
-    markerText;
+    markerText +
+    (note ? ` ${note}` : "");
   const description =
     `${template.title}${at}: ${drawn.length} ${unitWord}` +
     (multiSeries ? `, series ${names.join(", ")}` : "") +
     `; ${built.yTitle} from ${formatNumber(built.yMin, { digits: { maxDecimals: 2 } })} to ${formatNumber(built.yMax, { digits: { maxDecimals: 2 } })}.` +
-    markerText;
+    markerText +
+    (note ? ` ${note}` : "");
   return { id: template.id, title: template.title, caption, description, unitCount: drawn.length, vegaLite: built.vegaLite };
 }

@@ -1,6 +1,6 @@
 import type { ConditionColumn, ConditionSource } from "../../templates/types";
 import { formatBand, formatNumber, formatQuantity, formatRange } from "../format/quantity";
-import { formatDrive, formatTemperature } from "./format";
+import { formatDrive, formatTemperature, formatTemperatureRange } from "./format";
 
 export type Conditions = Record<string, string | number>;
 
@@ -57,6 +57,11 @@ function formatSource(source: ConditionSource, conditions: Conditions): string |
       return typeof value === "number" ? formatDrive(value) : String(value);
     case "temperature-c":
       return typeof value === "number" ? formatTemperature(value) : String(value);
+    case "temperature-range": {
+      const stop = source.stopKey ? conditions[source.stopKey] : undefined;
+      if (typeof value === "number" && typeof stop === "number") return formatTemperatureRange(value, stop);
+      return typeof value === "number" ? formatTemperature(value) : String(value);
+    }
     case "port":
       return String(value);
     case "text":

@@ -479,7 +479,7 @@ function bracket(points: Point[], x: number): DesignInReading["between"] {
 /**
  * The specification rows of the figure's parameter at the design's conditions: an input frequency
  * that is the design's, a band that contains it, an LO drive that is the design's, the curves'
- * temperature. A row at "optimum" drive is kept and marked, since it is what the sheet guarantees.
+ * temperature (or a span of temperatures that holds it). A row at "optimum" drive is kept and marked, since it is what the sheet guarantees.
  */
 function limitsFor(model: SheetModel, curve: DesignInCurve, at: { query: DesignInQuery; temperatureC: number | null }): DesignInLimit[] {
   const groups = new Map(model.statistics.groups.map((g) => [g.groupId, g]));
@@ -500,6 +500,8 @@ function rowApplies(c: Conditions, { query, temperatureC }: { query: DesignInQue
   if (typeof c.startHz === "number" && typeof c.stopHz === "number" && !(query.frequencyHz >= c.startHz && query.frequencyHz <= c.stopHz)) return false;
   if (typeof c.loPowerDbm === "number" && Math.abs(c.loPowerDbm - query.driveDbm) > SAME_DRIVE_DB) return false;
   if (temperatureC !== null && typeof c.temperatureC === "number" && c.temperatureC !== temperatureC) return false;
+  // A row over temperature applies at the curves' temperature when its span holds it.
+  if (temperatureC !== null && typeof c.temperatureMinC === "number" && typeof c.temperatureMaxC === "number" && !(temperatureC >= c.temperatureMinC && temperatureC <= c.temperatureMaxC)) return false;
   return true;
 }
 

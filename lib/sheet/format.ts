@@ -33,6 +33,16 @@ export function formatTemperature(celsius: number): string {
 }
 
 /**
+ * A span of temperatures as ratings write it: "−40 to +85 °C" (the high end signed when the low end is
+ * below zero), "25 to 85 °C"; one temperature when both ends agree.
+ */
+export function formatTemperatureRange(lowC: number, highC: number): string {
+  if (lowC === highC) return formatTemperature(lowC);
+  const digits = { maxDecimals: 1 };
+  return `${formatNumber(lowC, { digits })} to ${formatNumber(highC, { digits, signed: lowC < 0 })}\u00a0°C`;
+}
+
+/**
  * A stated limit (min, typ or max) with the digits the engineer typed: 9.5 stays "9.5" and 10.0
  * stays "10.0", whatever the template's decimals. A limit saved without its typed digits (through
  * the API as a JSON number, or before they were kept) prints the stored number's shortest exact

@@ -2,7 +2,8 @@ import type { SheetTemplate, TrendTemplate } from "../../templates/types";
 import { buildChartSpec, type ChartSource } from "./charts";
 import { compareStrings } from "./compare";
 import { formatQuantity, formatRange } from "../format/quantity";
-import { formatTemperature } from "./format";
+import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
+import { formatTemperature, formatTemperatureRange } from "./format";
 import type { ApprovedSetInput, ChartSpec, SheetModel } from "./types";
 
 /**
@@ -36,7 +37,7 @@ export function buildCharts(template: SheetTemplate, sets: ApprovedSetInput[]): 
     if (chart) charts.push(chart);
   }
   for (const trend of template.trends ?? []) {
-    const chart = buildTrendChart(trend, sets);
+    const chart = trend.x.key === "temperatureC" ? buildTemperatureTrendChart(template, trend, sets) : buildTrendChart(trend, sets);
     if (chart) charts.push(chart);
   }
   return charts;
@@ -84,6 +85,74 @@ function buildTrendChart(trend: TrendTemplate, sets: ApprovedSetInput[]): ChartS
     },
   }));
   return buildChartSpec(trend, sources, { conditionsLabel: best[0], points: true });
+}
+
+/**
+ * A chart against temperature: each unit's value at each temperature it was measured at, the
+ * temperature being the set's own (the file's temperature line or the upload's field, as the
+ * statistics read it). Lines group by the trend's groupBy conditions; the group with the most units
+ * is drawn (among equals the first by its conditions) and named in the caption, which also states
+ * the lowest and highest value drawn over the span of temperatures. Drawn only over two or more
+ * temperatures.
+ */
+function buildTemperatureTrendChart(template: SheetTemplate, trend: TrendTemplate, sets: ApprovedSetInput[]): ChartSpec | null {
+  // conditions key → serial → temperature → value (the latest set wins, as in the statistics)
+  const byGroup = new Map<string, Map<string, Map<number, { value: number; order: string }>>>();
+  for (const set of sets) {
+    if (set.temperatureC === undefined || !Number.isFinite(set.temperatureC)) continue;
+    for (const parameter of set.parameters) {
+      if (parameter.name !== trend.parameter || parameter.value === null || !Number.isFinite(parameter.value)) continue;
+      if (trend.match && !Object.entries(trend.match).every(([k, v]) => parameter.conditions[k] === v)) continue;
+      const grouped: Conditions = { ...trend.match };
+      for (const key of trend.groupBy ?? []) if (parameter.conditions[key] !== undefined) grouped[key] = parameter.conditions[key];
+      const key = makeConditionsKey(grouped);
+      let units = byGroup.get(key);
+      if (!units) byGroup.set(key, (units = new Map()));
+      let points = units.get(set.serial);
+      if (!points) units.set(set.serial, (points = new Map()));
+      const order = `${set.measuredOn}|${String(set.id).padStart(12, "0")}`;
+      const current = points.get(set.temperatureC);
+      if (!current || order > current.order) points.set(set.temperatureC, { value: parameter.value, order });
+    }
+  }
+  let best: [string, Map<string, Map<number, { value: number }>>] | null = null;
+  for (const entry of [...byGroup.entries()].sort((a, b) => compareStrings(a[0], b[0]))) {
+    if (!best || entry[1].size > best[1].size) best = entry;
+  }
+  if (!best) return null;
+  const temperatures: number[] = [];
+  const values: number[] = [];
+  for (const points of best[1].values()) {
+    for (const [t, p] of points) {
+      temperatures.push(t);
+      values.push(p.value);
+    }
+  }
+  if (new Set(temperatures).size < 2) return null;
+  const sources: ChartSource[] = [...best[1].entries()].map(([serial, points]) => ({
+    serial,
+    curve: {
+      id: trend.id,
+      title: trend.title,
+      x: { label: trend.x.label, unit: trend.x.unit, scale: "linear" },
+      y: { label: trend.y.label, unit: trend.y.unit },
+      series: [{ name: trend.y.label, points: [...points.entries()].sort((a, b) => a[0] - b[0]).map(([t, p]) => [t, p.value] as [number, number]) }],
+    },
+  }));
+  const conditions = parseConditionsKey(best[0]);
+  const conditionsLabel = template.specifications.conditionColumns
+    .filter((column) => column.sources.every((source) => !source.key.startsWith("temperature")))
+    .map((column) => {
+      const cell = formatConditionCell(column, conditions);
+      return cell ? `${column.label} ${cell}` : "";
+    })
+    .filter(Boolean)
+    .join(", ");
+  const digits = { digits: { maxDecimals: 2 } };
+  const note =
+    `Over ${formatTemperatureRange(Math.min(...temperatures), Math.max(...temperatures))}: ` +
+    `lowest ${formatQuantity(Math.min(...values), trend.y.unit, digits)}, highest ${formatQuantity(Math.max(...values), trend.y.unit, digits)}.`;
+  return buildChartSpec(trend, sources, { conditionsLabel, points: true, note });
 }
 
 /**

@@ -4,6 +4,7 @@ import { compareStrings } from "./compare";
 import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
 import { formatLimitValue, formatValue, typicalDecimals } from "./format";
 import { computeGroupStatistics, DEFAULT_CPK_MIN_UNITS, type GroupStatistics, type UnitValue } from "./statistics";
+import type { LimitBasis } from "../domain/sheets";
 import type { ApprovedSetInput, GroupIdentity, SheetInput, SheetModel, SpecLimitInput, SpecTableRow, StatisticsGroup } from "./types";
 
 const MEASURED_MEAN_FOOTNOTE =
@@ -112,8 +113,17 @@ function groupIdentity(row: SpecRowTemplate, conditionsKey: string): GroupIdenti
   };
 }
 
+/**
+ * The basis a group states when no limit gives one: the row's default, except that a figure with no
+ * limit is screened on no unit, so "tested on every unit" cannot be its basis: characterization (a row
+ * at another temperature or input frequency than production test's, say).
+ */
+function unlimitedBasis(row: SpecRowTemplate): LimitBasis {
+  return row.defaultBasis === "test" ? "characterization" : row.defaultBasis;
+}
+
 function buildStatisticsGroup({ row, conditionsKey, limit, stats }: RowGroup, conditionsText: string): StatisticsGroup {
-  const basis = limit?.basis ?? row.defaultBasis;
+  const basis = limit?.basis ?? unlimitedBasis(row);
   return {
     ...groupIdentity(row, conditionsKey),
     conditionsText,
@@ -152,7 +162,7 @@ function buildSpecRow(
   conditionCells: string[],
   footnoteMark: (text: string) => string,
 ): SpecTableRow {
-  const basis = limit?.basis ?? row.defaultBasis;
+  const basis = limit?.basis ?? unlimitedBasis(row);
   const typIsMeasuredMean = limit?.typ === undefined && stats.meanValue !== null;
   const marks: string[] = [];
   if (limit?.footnote) marks.push(footnoteMark(limit.footnote.trim()));
@@ -267,7 +277,8 @@ function groupConditions(row: SpecRowTemplate, conditions: Conditions): Conditio
   const match = row.match ?? {};
   for (const key of Object.keys(match)) if (conditions[key] !== match[key]) return null;
   const picked: Conditions = { ...match };
-  for (const key of row.groupBy) if (conditions[key] !== undefined) picked[key] = conditions[key];
+  const keys = row.overTemperature ? [...row.groupBy.filter((k) => k !== "temperatureC"), "temperatureMinC", "temperatureMaxC"] : row.groupBy;
+  for (const key of keys) if (conditions[key] !== undefined) picked[key] = conditions[key];
   return picked;
 }
 
@@ -284,6 +295,7 @@ interface Candidate extends UnitValue {
 
 /** Values of one row by condition group, one per unit: the latest set wins when a unit was measured twice. */
 function collectRowValues(row: SpecRowTemplate, sets: ApprovedSetInput[]): Map<string, UnitValue[]> {
+  if (row.overTemperature) return collectOverTemperatureValues(row, row.overTemperature, sets);
   const byGroup = new Map<string, Map<string, Candidate>>();
   for (const set of sets) {
     const setId = String(set.id);
@@ -322,6 +334,37 @@ function collectRowValues(row: SpecRowTemplate, sets: ApprovedSetInput[]): Map<s
         .sort((a, b) => compareStrings(a.serial, b.serial))
         .map(({ serial, lot, setId, value }) => ({ serial, lot, setId, value })),
     );
+  }
+  return result;
+}
+
+/**
+ * A row over temperature: the values of the row's groups taken without their temperature, per unit and
+ * temperature the latest set (as in any row), then per unit its worst value over its temperatures (the
+ * highest for "max", the lowest for "min"). A group is kept only when its sets span two or more
+ * temperatures, and carries that span as temperatureMinC and temperatureMaxC. A set's temperature is its
+ * own condition: the file's temperature line or the upload's field (lib/ingest mergeUploadConditions).
+ */
+function collectOverTemperatureValues(row: SpecRowTemplate, worst: "max" | "min", sets: ApprovedSetInput[]): Map<string, UnitValue[]> {
+  const perTemperature = collectRowValues({ ...row, overTemperature: undefined, groupBy: [...row.groupBy.filter((k) => k !== "temperatureC"), "temperatureC"] }, sets);
+  const byGroup = new Map<string, { temperatures: Set<number>; units: Map<string, UnitValue> }>();
+  for (const [key, values] of perTemperature) {
+    const { temperatureC, ...rest } = parseConditionsKey(key);
+    if (typeof temperatureC !== "number") continue;
+    const groupKey = makeConditionsKey(rest);
+    let group = byGroup.get(groupKey);
+    if (!group) byGroup.set(groupKey, (group = { temperatures: new Set(), units: new Map() }));
+    group.temperatures.add(temperatureC);
+    for (const value of values) {
+      const current = group.units.get(value.serial);
+      if (!current || (worst === "max" ? value.value > current.value : value.value < current.value)) group.units.set(value.serial, value);
+    }
+  }
+  const result = new Map<string, UnitValue[]>();
+  for (const [groupKey, { temperatures, units }] of byGroup) {
+    if (temperatures.size < 2) continue;
+    const conditions = { ...parseConditionsKey(groupKey), temperatureMinC: Math.min(...temperatures), temperatureMaxC: Math.max(...temperatures) };
+    result.set(makeConditionsKey(conditions), [...units.values()].sort((a, b) => compareStrings(a.serial, b.serial)));
   }
   return result;
 }

@@ -8,7 +8,10 @@
  *   the optimum drive and flattening above it; the fundamental and the odd orders leak through
  *   the balance, the fourth order follows the wanted one.
  * - Mixers: conversion loss rising at both ends of the balun's band, LO isolation falling with
- *   frequency.
+ *   frequency; a two-tone sweep from a fixed intercept with a soft compression; the three ports'
+ *   match as a three-port Touchstone file.
+ * - Over temperature (a file's temperatureC, 25 °C when absent, where the models above are
+ *   unchanged): the coefficients below, each with its basis.
  * - Quadrature hybrids and in-phase splitters: the branch-line coupler and the Wilkinson divider
  *   as networks of lossy transmission lines (and the Wilkinson's resistor), solved exactly at each
  *   frequency (nodal admittance matrix, then S = (I − z0·Y)(I + z0·Y)⁻¹). Each unit's line
@@ -23,6 +26,36 @@ type Random = () => number;
 const spread = (rand: Random, half: number) => (rand() * 2 - 1) * half;
 /** A roughly normal draw (Irwin–Hall sum of four uniforms), standard deviation `sigma`. */
 const gauss = (rand: Random, sigma: number) => ((rand() + rand() + rand() + rand() - 2) / Math.sqrt(4 / 12)) * sigma;
+
+// ─── Temperature ───────────────────────────────────────────────────────────────────────────────────
+// Values from memory of the usual handbook and datasheet figures, not from one published table.
+
+/**
+ * A Schottky diode's forward voltage at constant current falls by about 1 to 2 mV/°C (the usual
+ * handbook figure for silicon Schottky barriers); the middle of that range is used.
+ */
+export const SCHOTTKY_FORWARD_VOLTAGE_MV_PER_C = -1.5;
+/**
+ * Rise of a diode ring's conversion loss with temperature at its optimum drive (series resistance
+ * and the diodes' saturation current grow): about 0.5 dB from −40 to +85 °C on passive diode mixer and
+ * doubler datasheets, common practice.
+ */
+export const DIODE_CONVERSION_LOSS_DB_PER_C = 0.006;
+/** Isolation falls slightly as the ring's diodes drift apart when hot: a few tenths of a dB over the range, common practice. */
+export const ISOLATION_DB_PER_C = -0.008;
+
+/**
+ * How far a diode ring's optimum drive moves at `temperatureC`: two diodes conduct in series in each
+ * half-cycle, so the peak voltage that turns the ring fully on moves by 2·dVf/dT·ΔT against the peak
+ * voltage of the optimum drive into 50 Ω; in dB.
+ */
+export function optimumDriveShiftDb(optimumDriveDbm: number, temperatureC: number): number {
+  const peakVolts = Math.sqrt(2 * 50 * 10 ** ((optimumDriveDbm - 30) / 10));
+  const turnOnShiftVolts = (2 * SCHOTTKY_FORWARD_VOLTAGE_MV_PER_C * (temperatureC - 25)) / 1000;
+  return 20 * Math.log10(1 + turnOnShiftVolts / peakVolts);
+}
+
+const temperatureLine = (temperatureC: number | undefined) => `# temperature: ${temperatureC ?? 25} C`;
 
 // ─── Doublers ──────────────────────────────────────────────────────────────────────────────────────
 
@@ -46,6 +79,10 @@ export interface DriveSweepFile {
   serial: string;
   lot: string;
   inputFrequencyHz: number;
+  /** Ambient temperature of the measurement (°C); 25 when absent. */
+  temperatureC?: number;
+  /** Total source power swept (dBm, 1 dB steps); 12 dB below to 8 dB above the optimum's when absent. */
+  sourceSweepDbm?: { start: number; stop: number };
 }
 
 const splitterExcessLossDb = 0.4;
@@ -82,14 +119,16 @@ export function doublerDriveSweep(model: DoublerModel, file: DriveSweepFile, see
   const { min, max } = model.inputBandHz;
   const centre = (min + max) / 2;
   const edge = (file.inputFrequencyHz - centre) / ((max - min) / 2); // −1 … +1 across the band
-  const clMin = model.conversionLossDb + clOffset + 0.9 * edge * edge;
-  const pOpt = model.optimumDriveDbm + optOffset + 0.4 * edge;
+  const dT = (file.temperatureC ?? 25) - 25;
+  const clMin = model.conversionLossDb + clOffset + 0.9 * edge * edge + DIODE_CONVERSION_LOSS_DB_PER_C * dT;
+  const pOpt = model.optimumDriveDbm + optOffset + 0.4 * edge + optimumDriveShiftDb(model.optimumDriveDbm, file.temperatureC ?? 25);
   const rejection = model.fundamentalRejectionDb + rejOffset - 3 * edge * edge;
 
   const referredDb = idealSplitDb + splitterExcessLossDb + cableLossDb;
-  const first = Math.round(pOpt + referredDb - 12);
+  const first = file.sourceSweepDbm?.start ?? Math.round(pOpt + referredDb - 12);
+  const last = file.sourceSweepDbm?.stop ?? first + 20;
   const rows: string[] = [];
-  for (let total = first; total <= first + 20; total++) {
+  for (let total = first; total <= last; total++) {
     const perPort = total - referredDb;
     const below = pOpt - perPort;
     const cl = clMin + doublerLossShape(below + knee.atDb) - knee.lossDb;
@@ -107,7 +146,7 @@ export function doublerDriveSweep(model: DoublerModel, file: DriveSweepFile, see
     "# wanted_order: 2",
     `# splitter_excess_loss: ${splitterExcessLossDb} dB`,
     `# cable_loss: ${cableLossDb} dB`,
-    "# temperature: 25 C",
+    temperatureLine(file.temperatureC),
     "input_power [dBm],p1_out [dBm],p2_out [dBm],p3_out [dBm],p4_out [dBm]",
     ...rows,
     "",
@@ -124,6 +163,8 @@ export interface MixerModel {
   /** LO-to-RF and LO-to-IF isolation at the low end of the sweep (dB). */
   loRfIsolationDb: number;
   loIfIsolationDb: number;
+  /** RF-to-IF isolation at the low end of the sweep (dB); no RF–IF column when absent. */
+  rfIfIsolationDb?: number;
   loPowerDbm: number;
   ifFrequencyHz: number;
   /** Swept RF band (Hz) and step. */
@@ -132,13 +173,16 @@ export interface MixerModel {
 }
 
 /** One unit's conversion loss and isolations against RF frequency at the stated LO drive. */
-export function mixerFrequencySweep(model: MixerModel, file: { serial: string; lot: string }, seed: number): string {
+export function mixerFrequencySweep(model: MixerModel, file: { serial: string; lot: string; temperatureC?: number }, seed: number): string {
   const unit = mulberry32(seed);
   const clOffset = gauss(unit, model.unitSpreadDb);
   const loRfOffset = gauss(unit, 1.5);
   const loIfOffset = gauss(unit, 1.5);
   const ripplePhase = unit() * 2 * Math.PI;
-  const noise = mulberry32(seed * 104729);
+  // Drawn after the others, so that a model without RF–IF isolation writes what it always wrote.
+  const rfIfOffset = model.rfIfIsolationDb === undefined ? 0 : gauss(unit, 1.5);
+  const dT = (file.temperatureC ?? 25) - 25;
+  const noise = mulberry32(seed * 104729 + (file.temperatureC === undefined ? 0 : Math.round(file.temperatureC) + 1000));
   const { min, max } = model.balunBandHz;
   const { start, stop, step } = model.sweepHz;
   const rows: string[] = [];
@@ -146,12 +190,15 @@ export function mixerFrequencySweep(model: MixerModel, file: { serial: string; l
     // The balun's low-frequency roll-off (its magnetising inductance) and high-end loss.
     const rollOff = 10 * Math.log10(1 + (min / f) ** 2) + 10 * Math.log10(1 + (f / max) ** 4);
     const ripple = 0.12 * Math.sin((2 * Math.PI * f) / (0.35 * (max - min)) + ripplePhase);
-    const cl = model.conversionLossDb + clOffset + rollOff + ripple + gauss(noise, 0.03);
+    const cl = model.conversionLossDb + clOffset + rollOff + ripple + gauss(noise, 0.03) + DIODE_CONVERSION_LOSS_DB_PER_C * dT;
     // Coupling through the balun's imbalance grows about 6 dB per octave above the low end.
     const coupling = 10 * Math.log10(1 + (f / (4 * min)) ** 2);
-    const loRf = model.loRfIsolationDb + loRfOffset - coupling + gauss(noise, 0.3);
-    const loIf = model.loIfIsolationDb + loIfOffset - 0.8 * coupling + gauss(noise, 0.3);
-    rows.push([(f / 1e6).toFixed(0), cl.toFixed(2), loRf.toFixed(2), loIf.toFixed(2)].join(","));
+    const isolationDrift = ISOLATION_DB_PER_C * dT;
+    const loRf = model.loRfIsolationDb + loRfOffset - coupling + gauss(noise, 0.3) + isolationDrift;
+    const loIf = model.loIfIsolationDb + loIfOffset - 0.8 * coupling + gauss(noise, 0.3) + isolationDrift;
+    const row = [(f / 1e6).toFixed(0), cl.toFixed(2), loRf.toFixed(2), loIf.toFixed(2)];
+    if (model.rfIfIsolationDb !== undefined) row.push((model.rfIfIsolationDb + rfIfOffset - 0.6 * coupling + gauss(noise, 0.3) + isolationDrift).toFixed(2));
+    rows.push(row.join(","));
   }
   return [
     "# kind: frequency-sweep",
@@ -159,11 +206,107 @@ export function mixerFrequencySweep(model: MixerModel, file: { serial: string; l
     `# lot: ${file.lot}`,
     `# lo_power: ${model.loPowerDbm} dBm`,
     `# if_frequency: ${model.ifFrequencyHz / 1e6} MHz`,
-    "# temperature: 25 C",
-    "frequency [MHz],conversion_loss [dB],isolation_lo_rf [dB],isolation_lo_if [dB]",
+    temperatureLine(file.temperatureC),
+    `frequency [MHz],conversion_loss [dB],isolation_lo_rf [dB],isolation_lo_if [dB]${model.rfIfIsolationDb === undefined ? "" : ",isolation_rf_if [dB]"}`,
     ...rows,
     "",
   ].join("\n");
+}
+
+export interface MixerTwoToneModel {
+  /** Conversion gain at the tone frequency (dB, negative for a lossy mixer). */
+  conversionGainDb: number;
+  /** Input third-order intercept per tone (dBm). */
+  iip3Dbm: number;
+  /** Input 1 dB compression per tone (dBm). */
+  inputP1dbDbm: number;
+  loPowerDbm: number;
+  tone1Hz: number;
+  toneSpacingHz: number;
+  /** Input per tone (dBm): start, stop, step. */
+  sweepDbm: { start: number; stop: number; step: number };
+}
+
+/**
+ * One unit's two-tone sweep: the tone output follows the conversion gain and compresses softly (the
+ * gain falls by 1 dB at the unit's P1dB, quadratically from 7.07 dB below it), the third-order product
+ * rises 3 dB per dB from the intercept: P_IM3 = 3·P_out − 2·OIP3 (the standard intercept relation).
+ */
+export function mixerTwoTone(model: MixerTwoToneModel, file: { serial: string; lot: string }, seed: number): string {
+  const unit = mulberry32(seed);
+  const iip3 = model.iip3Dbm + gauss(unit, 0.5);
+  const p1db = model.inputP1dbDbm + gauss(unit, 0.3);
+  const gain = model.conversionGainDb + gauss(unit, 0.15);
+  const noise = mulberry32(seed * 6151);
+  const knee = p1db - Math.sqrt(50);
+  const oip3 = iip3 + gain;
+  const rows: string[] = [];
+  const { start, stop, step } = model.sweepDbm;
+  for (let p = start; p <= stop + step / 2; p += step) {
+    const tone = p + gain - 0.02 * Math.max(0, p - knee) ** 2 + gauss(noise, 0.02);
+    const im3 = 3 * tone - 2 * oip3 + gauss(noise, 0.1);
+    rows.push([p, tone, im3].map((v) => v.toFixed(2)).join("\t"));
+  }
+  return [
+    "# kind: two-tone",
+    `# serial: ${file.serial}`,
+    `# lot: ${file.lot}`,
+    `# tone1_frequency: ${model.tone1Hz / 1e6} MHz`,
+    `# tone2_frequency: ${(model.tone1Hz + model.toneSpacingHz) / 1e6} MHz`,
+    `# lo_power: ${model.loPowerDbm} dBm`,
+    "# temperature: 25 C",
+    "input_power [dBm]\tfund_out [dBm]\tim3_out [dBm]",
+    ...rows,
+    "",
+  ].join("\n");
+}
+
+export interface MixerPortMatchModel {
+  /** Best return loss of the RF, LO and IF ports in their band (dB, positive). */
+  returnLossDb: { rf: number; lo: number; if: number };
+  /** The balun's band (Hz): RF and LO match worsens towards and beyond its ends; the IF port is matched at low frequencies. */
+  balunBandHz: { min: number; max: number };
+  /** LO–RF, LO–IF and RF–IF leakage at the low end (dB, positive), as in the frequency sweep. */
+  isolationDb: { loRf: number; loIf: number; rfIf: number };
+  sweepHz: { start: number; stop: number; step: number };
+}
+
+/**
+ * One unit's port match as a three-port Touchstone file (dB/angle), port 1 RF, 2 LO, 3 IF, each port
+ * measured with the others terminated in 50 Ω (the LO off). Reflection: the best return loss of the port,
+ * worsening 3 dB per factor of two outside the balun's band (RF, LO) or above its top end (IF). The
+ * off-diagonal terms are the leakage paths, small and reciprocal.
+ */
+export function mixerPortMatch(model: MixerPortMatchModel, file: { serial: string }, seed: number): string {
+  const unit = mulberry32(seed);
+  const offsets = [gauss(unit, 1), gauss(unit, 1), gauss(unit, 1)];
+  const noise = mulberry32(seed * 7727);
+  const { min, max } = model.balunBandHz;
+  const lines = [
+    `! Benchfold demo: double-balanced mixer port match, serial ${file.serial} (invented data)`,
+    "! ports: 1 RF, 2 LO, 3 IF; LO off, the other ports terminated in 50 ohm",
+    "# GHz S DB R 50",
+  ];
+  const { start, stop, step } = model.sweepHz;
+  for (let f = start; f <= stop + step / 2; f += step) {
+    const outside = 10 * Math.log10(1 + (min / f) ** 2) + 10 * Math.log10(1 + (f / max) ** 2);
+    const rf = -(model.returnLossDb.rf + offsets[0] - outside);
+    const lo = -(model.returnLossDb.lo + offsets[1] - outside);
+    const ifPort = -(model.returnLossDb.if + offsets[2] - 10 * Math.log10(1 + (f / max) ** 2));
+    const coupling = 10 * Math.log10(1 + (f / (4 * min)) ** 2);
+    const loRf = -(model.isolationDb.loRf - coupling);
+    const loIf = -(model.isolationDb.loIf - 0.8 * coupling);
+    const rfIf = -(model.isolationDb.rfIf - 0.6 * coupling);
+    const angle = (k: number) => (((-57 * (f / 1e9) * (k + 1) + 180) % 360) + 360) % 360 - 180;
+    const cell = (db: number, k: number) => `${(db + gauss(noise, 0.05)).toFixed(3)} ${angle(k).toFixed(2)}`;
+    const rows = [
+      [cell(rf, 0), cell(loRf, 3), cell(rfIf, 4)],
+      [cell(loRf, 3), cell(lo, 1), cell(loIf, 5)],
+      [cell(rfIf, 4), cell(loIf, 5), cell(ifPort, 2)],
+    ];
+    rows.forEach((row, i) => lines.push(i === 0 ? `${(f / 1e9).toFixed(3)} ${row.join(" ")}` : `      ${row.join(" ")}`));
+  }
+  return `${lines.join("\n")}\n`;
 }
 
 // ─── Hybrids and splitters: transmission-line networks ─────────────────────────────────────────────

@@ -85,4 +85,4 @@ export const demoConformityUnits: DemoConformityUnit[] = [
  * that alert with this reason (scripts/seed-demo-releases.ts, through closeDemoAlerts).
  */
 export const demoRevisionAAlertReason =
-  "BFD-0004 is from the same October build as the first three units; revision A's spread rests on those three alone. Revision B adds BFD-0004 to the population, which widens the chart rather than the limits.";
+  "BFD-0004 is from the same October build as the first three units, and lot L2410 was measured in the same temperature characterization; revision A's spread rests on three units alone. Revision B adds them to the population, which widens the chart rather than the limits.";

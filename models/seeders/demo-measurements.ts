@@ -7,6 +7,7 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { mulberry32 } from "../../lib/stats/seeded-random";
+import { demoCharacterizationUploads } from "./demo-characterization";
 
 const examples = path.resolve(__dirname, "../../fixtures/examples");
 
@@ -153,7 +154,7 @@ const hybrid = (serial: string, seed: number, measuredOn: string): DemoUpload =>
 });
 
 /** In upload order: on a fresh database the measurement sets get ids 1, 2, 3… in this order. */
-export const demoUploads: DemoUpload[] = [
+const storyUploads: DemoUpload[] = [
   { org: "kestrine", part: "KDX-2G4", file: "drive-sweep-doubler.csv", fields: { measuredOn: "2026-10-05" }, instruments: ["source", "analyzer"], approve: true, bytes: example("drive-sweep-doubler.csv") },
   doubler("BFD-0002", 11, "2026-10-05", true),
   doubler("BFD-0003", 12, "2026-10-06", true),
@@ -172,3 +173,20 @@ export const demoUploads: DemoUpload[] = [
   { org: "wrenfield-lab", part: "WL-C2611-KDX", file: "drive-sweep-doubler.csv", fields: { measuredOn: "2026-11-12" }, instruments: ["source", "analyzer"], approve: true, bytes: example("drive-sweep-doubler.csv") },
   { org: "wrenfield-lab", part: "WL-C2611-KDX", file: "phase-noise-doubler.csv", fields: { measuredOn: "2026-11-13" }, instruments: ["source"], approve: false, bytes: example("phase-noise-doubler.csv") },
 ];
+
+/**
+ * The story's files, then the runs over temperature and the mixer's other measurements
+ * (demo-characterization.ts), which read some units' 25 °C sweeps above.
+ */
+export const demoUploads: DemoUpload[] = [
+  ...storyUploads,
+  ...demoCharacterizationUploads(
+    Object.fromEntries(
+      storyUploads.filter((u) => u.org === "kestrine" && (u.part === "KDX-2G4" || u.part === "KM-7H")).map((u) => [serialOf(u), u.bytes]),
+    ),
+  ),
+];
+
+function serialOf(upload: DemoUpload): string {
+  return /^# serial: (\S+)/m.exec(upload.bytes().toString("utf8"))?.[1] ?? "";
+}

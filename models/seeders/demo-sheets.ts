@@ -23,6 +23,8 @@ const doubler1GHz = "drive=optimum;inputFrequencyHz=1000000000;temperatureC=25";
 const mixerBand = "ifFrequencyHz=70000000;loPowerDbm=7;startHz=500000000;stopHz=3000000000;temperatureC=25";
 // KQH-2G is a 1.7–2.3 GHz part measured 1.5–2.5 GHz: its upload states the band (demo-measurements.ts).
 const hybridBand = "startHz=1700000000;stopHz=2300000000;temperatureC=25";
+/** The rated operating range, as the rows over temperature state it (the span of the sets' temperatures). */
+const ratedRange = "temperatureMaxC=85;temperatureMinC=-40";
 
 /** Sheets of devices that have no approved measurements yet: words and ratings only. */
 const shell = (description: string, features: string, ratings: DemoSheetContent["absoluteMaximumRatings"]): DemoSheetContent => ({
@@ -36,6 +38,14 @@ export const demoSheets: Record<string, DemoSheetContent> = {
   "KDX-2G4": {
     limits: [
       { parameter: "conversion-loss", conditionsKey: doubler1GHz, typ: 9.5, max: 11, unit: "dB", basis: "test" },
+      {
+        parameter: "conversion-loss",
+        conditionsKey: `drive=optimum;inputFrequencyHz=1000000000;${ratedRange}`,
+        max: 11.5,
+        unit: "dB",
+        basis: "characterization",
+        footnote: "Each unit's highest value over −40, +25 and +85 °C, from two lots; tested at 25 °C only.",
+      },
       { parameter: "harmonic-suppression", conditionsKey: "drive=optimum;inputFrequencyHz=1000000000;order=1;temperatureC=25", min: 22, typ: 26, unit: "dBc", basis: "test" },
       { parameter: "harmonic-suppression", conditionsKey: "drive=optimum;inputFrequencyHz=1000000000;order=3;temperatureC=25", min: 25, unit: "dBc", basis: "characterization" },
       { parameter: "harmonic-suppression", conditionsKey: "drive=optimum;inputFrequencyHz=1000000000;order=4;temperatureC=25", min: 20, unit: "dBc", basis: "characterization" },
@@ -53,10 +63,10 @@ export const demoSheets: Record<string, DemoSheetContent> = {
       description:
         "The **KDX-2G4** doubles a 0.5–1.2 GHz input to 1.0–2.4 GHz. A Schottky diode ring is driven on both ports from one source through an in-phase splitter, so the second harmonic adds at the output while the fundamental and the odd orders cancel.\n\nNo bias supply is needed. Best conversion is near +10.8 dBm per port.",
       features:
-        "- Conversion loss below 11 dB at optimum drive, tested on every unit\n- Fundamental suppression above 22 dBc\n- Residual phase noise typically −152 dBc/Hz at 10 kHz offset\n- Passive: no DC supply",
+        "- Conversion loss below 11 dB at optimum drive, tested on every unit at 25 °C; below 11.5 dB from −40 to +85 °C\n- Fundamental suppression above 22 dBc\n- Residual phase noise typically −152 dBc/Hz at 10 kHz offset\n- Passive: no DC supply",
       applications: "- Local-oscillator multiplier chains\n- Clock doubling in frequency synthesizers\n- Laboratory frequency extension",
       "test-fixture":
-        "Units are soldered to a 0.508 mm laminate fixture with SMA launches. Both device ports are fed from one signal generator through a two-way in-phase splitter; its 0.4 dB excess loss and the 0.6 dB cable loss are taken out of the stated drive. Output orders 1 to 4 are read on a spectrum analyzer. Reference impedance 50 Ω.",
+        "Units are soldered to a 0.508 mm laminate fixture with SMA launches. Both device ports are fed from one signal generator through a two-way in-phase splitter; its 0.4 dB excess loss and the 0.6 dB cable loss are taken out of the stated drive. Output orders 1 to 4 are read on a spectrum analyzer. Reference impedance 50 Ω.\n\nThe runs over temperature put the fixture in a chamber at −40, +25 and +85 °C, soaked 20 minutes at each; the temperature of each run is the one its bench file states.",
     },
     absoluteMaximumRatings: [{ label: "RF input power, per port", value: "+20", unit: "dBm" }, ...temperatures("−40 to +85", "−55 to +125"), esd("1A")],
     measurementUncertainty: { "conversion-loss": 0.5, "harmonic-suppression": 0.3, "spot-phase-noise": 2 },
@@ -65,15 +75,24 @@ export const demoSheets: Record<string, DemoSheetContent> = {
     limits: [
       { parameter: "conversion-loss", conditionsKey: `${mixerBand.replace("stopHz", "statistic=max;stopHz")}`, max: 8.5, unit: "dB", basis: "test" },
       { parameter: "conversion-loss", conditionsKey: `${mixerBand.replace("stopHz", "statistic=typ;stopHz")}`, typ: 6.6, unit: "dB", basis: "characterization" },
+      {
+        parameter: "conversion-loss",
+        conditionsKey: `${mixerBand.replace("stopHz", "statistic=max;stopHz").replace("temperatureC=25", ratedRange)}`,
+        max: 9,
+        unit: "dB",
+        basis: "characterization",
+        footnote: "Each unit's highest value in band over −40, +25 and +85 °C, from two lots; tested at 25 °C only.",
+      },
       { parameter: "isolation", conditionsKey: `ifFrequencyHz=70000000;loPowerDbm=7;path=LO-RF;startHz=500000000;statistic=min;stopHz=3000000000;temperatureC=25`, min: 22, unit: "dB", basis: "test" },
     ],
     prose: {
       description:
         "The **KM-7H** is a level-7 double-balanced mixer: a quad of Schottky diodes between two wideband baluns. With +7 dBm of LO it converts 500–3000 MHz to an IF from DC to 1 GHz with about 6.6 dB of loss.",
-      features: "- Conversion loss below 8.5 dB across 500–3000 MHz\n- LO-to-RF isolation above 22 dB\n- +7 dBm LO drive",
+      features:
+        "- Conversion loss below 8.5 dB across 500–3000 MHz at 25 °C, below 9 dB from −40 to +85 °C\n- LO-to-RF isolation above 22 dB, LO-to-IF typically 23 dB\n- Input IP3 typically +16 dBm, input P1dB typically +0.8 dBm\n- +7 dBm LO drive",
       applications: "- Up- and down-conversion in receivers and transmitters\n- Phase detection\n- Frequency doubling with both ports driven",
       "test-fixture":
-        "Units are measured on a 50 Ω evaluation board. The RF port is swept from 500 to 3000 MHz at −10 dBm against a +7 dBm LO, the IF held at 70 MHz; conversion loss and LO-to-RF leakage are read on a spectrum analyzer, corrected for fixture and cable loss.",
+        "Units are measured on a 50 Ω evaluation board. The RF port is swept from 500 to 3000 MHz at −10 dBm against a +7 dBm LO, the IF held at 70 MHz; conversion loss and LO-to-RF leakage are read on a spectrum analyzer, corrected for fixture and cable loss. LO-to-IF and RF-to-IF leakage are read the same way with the IF port to the analyzer.\n\nThe two-tone runs put 1000 and 1001 MHz on the RF port, −20 to +6 dBm per tone; the intercept comes from the slope-fitted small-signal points, the compression point from the tone output. Port match is a three-port network-analyzer measurement with the LO off: port 1 RF, port 2 LO, port 3 IF.\n\nThe runs over temperature put the board in a chamber at −40, +25 and +85 °C; the temperature of each run is the one its bench file states.",
     },
     absoluteMaximumRatings: [
       { label: "RF input power", value: "+17", unit: "dBm" },
@@ -82,7 +101,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
       ...temperatures("−40 to +85", "−55 to +100"),
       esd("1A"),
     ],
-    measurementUncertainty: { "conversion-loss": 0.5, isolation: 1 },
+    measurementUncertainty: { "conversion-loss": 0.5, isolation: 1, iip3: 1, "input-p1db": 0.5 },
   },
   "KQH-2G": {
     limits: [

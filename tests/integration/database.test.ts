@@ -77,6 +77,11 @@ describe("demo measurement sets", () => {
     expect(sets.filter((s) => s.state === "submitted").length).toBeGreaterThan(0);
     const doubler = await Device.findOne({ where: { organizationId: kestrine!.id, partNumber: "KDX-2G4" } });
     const serials = sets.filter((s) => s.deviceId === doubler!.id && s.kind === "drive-sweep").map((s) => s.conditions.serial);
-    expect(serials.sort()).toEqual(["BFD-0001", "BFD-0002", "BFD-0003", "BFD-0004", "BFD-0005", "BFD-0021"]);
+    // BFD-0002 and BFD-0003 again at −40 and +85 °C; lot L2410's BFD-0011 and BFD-0012 at three temperatures and two more input frequencies.
+    const l2410 = (serial: string) => Array<string>(5).fill(serial);
+    expect(serials.sort()).toEqual([
+      "BFD-0001", "BFD-0002", "BFD-0002", "BFD-0002", "BFD-0003", "BFD-0003", "BFD-0003", "BFD-0004", "BFD-0005",
+      ...l2410("BFD-0011"), ...l2410("BFD-0012"), "BFD-0021",
+    ]);
   });
 });

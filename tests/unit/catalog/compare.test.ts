@@ -271,7 +271,8 @@ describe("the CSV export", () => {
     );
     expect(lines).toHaveLength(table.rows.length + 2); // header, rows, and the empty string after the last CRLF
     expect(lines[1]).toBe(
-      '"Insertion loss, port 1 to 2 (S21)",IL,typ,dB,lower is better,differ: band,3.24,"Band 1.7–2.3\u00a0GHz, T_A 25\u00a0°C",test,3.50,"Band 0.5–2.5\u00a0GHz, T_A 25\u00a0°C",test,KQH-2G Rev. A',
+      // PS-2W states no limit (typical values of one unit): characterization, not test.
+      '"Insertion loss, port 1 to 2 (S21)",IL,typ,dB,lower is better,differ: band,3.24,"Band 1.7–2.3\u00a0GHz, T_A 25\u00a0°C",test,3.50,"Band 0.5–2.5\u00a0GHz, T_A 25\u00a0°C",characterization,KQH-2G Rev. A',
     );
     // The page's figures, with a hyphen-minus for a spreadsheet.
     expect(lines.find((l) => l.startsWith('"Phase balance, from nominal",Δφ,typ'))).toContain(",-1.5,");
@@ -298,7 +299,14 @@ describe("the overlaid curves", () => {
 
   it("overlays each chart two or more sheets carry, one panel per series, and names the rest", () => {
     expect(charts.map((c) => c.chartId)).toEqual(["insertion-loss", "isolation", "amplitude-balance", "phase-balance", "return-loss"]);
-    expect(single).toEqual([{ label: "KM-7H Rev. A", titles: ["Conversion loss vs RF frequency", "Isolation vs RF frequency"] }]);
+    expect(single).toEqual([
+      {
+        label: "KM-7H Rev. A",
+        titles: ["Conversion loss vs RF frequency", "Isolation vs RF frequency", "Tone and IM3 output vs input per tone", "Highest conversion loss in band vs temperature"],
+      },
+    ]);
+    // The mixer's port match joins the network analyzer's return-loss panel of the hybrid and the splitter.
+    expect(charts[4].sources.map((s) => s.label)).toEqual(["KQH-2G Rev. A", "PS-2W Rev. A", "KM-7H Rev. A"]);
     const [insertionLoss, isolation] = charts;
     expect(insertionLoss.panels.map((p) => p.series)).toEqual(["insertion loss S21", "insertion loss S31"]);
     expect(insertionLoss.unmatched).toEqual([]);
