@@ -14,6 +14,7 @@ import type { User, BenchToken } from "../models";
 import { demoInstruments, demoUploads } from "../models/seeders/demo-measurements";
 import { demoPassword } from "../models/seeders/demo-scenario";
 import { demoSheets } from "../models/seeders/demo-sheets";
+import { demoDesignIn, demoOutlineBytes } from "../models/seeders/demo-design-in";
 import { seedDemoCatalog } from "./seed-demo-catalog";
 import { seedDemoReleases } from "./seed-demo-releases";
 import { seedDemoConformity } from "./seed-demo-conformity";
@@ -40,6 +41,14 @@ async function call(session: string, method: string, url: string, body: unknown,
   });
   if (r.status !== expected) throw new Error(`${method} ${url}: ${r.status} ${await r.text()}`);
   return r.json();
+}
+
+/** The demo's package outline (an SVG in models/seeders/outlines/) through the workspace's upload endpoint, rasterised there. */
+async function uploadOutline(session: string, deviceId: number, file: string): Promise<void> {
+  const form = new FormData();
+  form.set("file", new Blob([new Uint8Array(demoOutlineBytes(file))], { type: "image/svg+xml" }), file);
+  const r = await fetch(`${appUrl}/api/devices/${deviceId}/package-outline`, { method: "POST", headers: { cookie: session, origin: new URL(appUrl).origin }, body: form });
+  if (r.status !== 201) throw new Error(`POST /api/devices/${deviceId}/package-outline (${file}): ${r.status} ${await r.text()}`);
 }
 
 async function loadDemoMeasurements() {
@@ -97,6 +106,7 @@ async function loadDemoMeasurements() {
 
   // What the engineers wrote on their sheets: limits, prose, ratings, stated uncertainty.
   let sheets = 0;
+  let designed = 0;
   for (const org of await Organization.findAll()) {
     const content = Object.entries(demoSheets);
     const devices = await Device.findAll({ where: { organizationId: org.id } });
@@ -107,6 +117,14 @@ async function loadDemoMeasurements() {
       const id = devices.find((d) => d.partNumber === part)!.id;
       await call(session, "PUT", `/api/devices/${id}/spec-limits`, { limits: sheet.limits }, 200);
       await call(session, "PUT", `/api/devices/${id}/sheet-content`, { prose: sheet.prose, absoluteMaximumRatings: sheet.absoluteMaximumRatings, measurementUncertainty: sheet.measurementUncertainty }, 200);
+      const designIn = demoDesignIn[part];
+      if (designIn) {
+        // Before any release, so every released revision carries the design-in sections.
+        const { packageOutline, ...lists } = designIn;
+        await call(session, "PUT", `/api/devices/${id}/design-data`, { ...lists, packageOutlineCaption: packageOutline.caption }, 200);
+        await uploadOutline(session, id, packageOutline.file);
+        designed++;
+      }
       sheets++;
     }
   }
@@ -114,7 +132,7 @@ async function loadDemoMeasurements() {
   await sequelize.query("INSERT INTO benchfold_seeds (name) VALUES (?)", { replacements: [marker] });
   console.error(
     `[benchfold] demo measurements: ${demoUploads.length} files uploaded through the bench API, ${[...toApprove.values()].flat().length} approved; ` +
-      `${instrumentIds.size} instruments; ${sheets} sheets with limits and prose (${((Date.now() - started) / 1000).toFixed(1)} s)`,
+      `${instrumentIds.size} instruments; ${sheets} sheets with limits and prose, ${designed} with design-in data (${((Date.now() - started) / 1000).toFixed(1)} s)`,
   );
 }
 

@@ -14,6 +14,7 @@ import { demoUploads } from "../models/seeders/demo-measurements";
 import { demoChangesRequested, demoDoublerStory, demoFirstReleases, demoOpenReview, type DemoRole } from "../models/seeders/demo-releases";
 import { demoOrganizations, demoPassword } from "../models/seeders/demo-scenario";
 import { demoSheets, type DemoSheetContent } from "../models/seeders/demo-sheets";
+import { demoDesignIn, type DemoDesignIn } from "../models/seeders/demo-design-in";
 import { DemoApiSession } from "./demo-api-session";
 import { closeDemoAlerts } from "./seed-demo-conformity";
 import { demoRevisionAAlertReason } from "../models/seeders/demo-conformity";
@@ -105,11 +106,16 @@ const approvedBeforeRelease = (part: string) => (set: MeasurementSetSummary) =>
 const approvedAfterRevisionA = (part: string) => (set: MeasurementSetSummary) =>
   demoUploads.some((u) => u.part === part && u.file === set.fileName && u.approve && u.approveAfterRevisionA);
 
-/** The sheet's limits and words as given, the rest of its content as demo-sheets.ts has it. */
-async function putSheet(engineer: DemoApiSession, deviceId: number, part: string, edits: Partial<Pick<DemoSheetContent, "limits" | "prose">> = {}) {
+/** The sheet's limits, words and design-in lists as given, the rest of its content as demo-sheets.ts and demo-design-in.ts have it (the outline drawing stays as uploaded). */
+async function putSheet(engineer: DemoApiSession, deviceId: number, part: string, edits: Partial<Pick<DemoSheetContent, "limits" | "prose">> & { designIn?: DemoDesignIn } = {}) {
   const { limits, prose, absoluteMaximumRatings, measurementUncertainty } = { ...demoSheets[part], ...edits };
   await engineer.call("PUT", `/api/devices/${deviceId}/spec-limits`, { limits }, 200);
   await engineer.call("PUT", `/api/devices/${deviceId}/sheet-content`, { prose, absoluteMaximumRatings, measurementUncertainty }, 200);
+  const designIn = edits.designIn ?? demoDesignIn[part];
+  if (designIn) {
+    const { packageOutline, ...lists } = designIn;
+    await engineer.call("PUT", `/api/devices/${deviceId}/design-data`, { ...lists, packageOutlineCaption: packageOutline.caption }, 200);
+  }
 }
 
 /** The demo customer follows the part (201, or 200 when already following), so its next release sends them the change notice. */
@@ -131,7 +137,7 @@ async function playDoublerStory(team: Team): Promise<string[]> {
   const done: string[] = [];
   if (!letters.includes("A")) {
     await approveWaiting(team.reviewer, deviceId, approvedBeforeRelease(story.part));
-    await putSheet(team.engineer, deviceId, story.part, { limits: story.limitsAtRevisionA, prose: story.proseAtRevisionA });
+    await putSheet(team.engineer, deviceId, story.part, { limits: story.limitsAtRevisionA, prose: story.proseAtRevisionA, designIn: story.designInAtRevisionA });
     done.push(`${story.part} ${await releaseNext(team, deviceId, story.revisionA)}`);
   }
   await followAsCustomer(team.engineer.appUrl, story.org, story.part, story.followerBeforeRevisionB);

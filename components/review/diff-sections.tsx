@@ -1,6 +1,7 @@
 import { ScrollTable } from "@/components/ui/scroll-table";
 import { kindLabel } from "@/lib/domain/measurements";
-import type { MeasurementSetRef, ProseChange, ProseDiffPart, RatingChange, RatingFigures, SheetDiff } from "@/lib/sheet/diff-types";
+import { designInSectionTitles } from "@/lib/sheet/diff-design-in";
+import type { DesignInChange, MeasurementSetRef, ProseChange, ProseDiffPart, RatingChange, RatingFigures, SheetDiff } from "@/lib/sheet/diff-types";
 import { Absent, DiffSection, MarkWord, type DiffHooks } from "./diff-parts";
 import { rowKindWords } from "./diff-spec-rows";
 
@@ -108,6 +109,61 @@ export function DiffRatings({ diff }: { diff: SheetDiff }) {
               </td>
               <td className="num">
                 <RatingValue figures={rating.next} />
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </ScrollTable>
+    </DiffSection>
+  );
+}
+
+function DesignInLine({ change, side }: { change: DesignInChange; side: "previous" | "next" }) {
+  const text = change[side];
+  if (text === null) return <Absent />;
+  if (change.section === "outline") {
+    const drawing = change.fields.includes("drawing") ? (side === "previous" ? "Drawing replaced. " : "New drawing. ") : "";
+    return (
+      <span>
+        {drawing}
+        {text || <span className="text-ink-muted">No caption</span>}
+      </span>
+    );
+  }
+  return text ? <span>{text}</span> : <span className="text-ink-muted">Nothing stated</span>;
+}
+
+/** Pins, ordering, operating conditions and the outline, row by row: which changed, and what it read before and now. */
+export function DiffDesignIn({ diff }: { diff: SheetDiff }) {
+  if (diff.designIn.length === 0) return null;
+  return (
+    <DiffSection id="diff-design-in" title="Design-in data" testId="diff-design-in">
+      <ScrollTable label="Changed design-in rows" testId="diff-design-in-table">
+        <thead>
+          <tr>
+            <th scope="col">Change</th>
+            <th scope="col">Section</th>
+            <th scope="col">Row</th>
+            <th scope="col">{diff.previousLabel ?? "Previous"}</th>
+            <th scope="col">{diff.nextLabel}</th>
+          </tr>
+        </thead>
+        <tbody>
+          {diff.designIn.map((change) => (
+            <tr key={`${change.section}-${change.key}`}>
+              <td>
+                <MarkWord {...rowKindWords[change.kind]} />
+              </td>
+              <td>{designInSectionTitles[change.section]}</td>
+              <th scope="row">
+                {change.key}
+                {change.kind === "changed" ? <span className="block text-ink-muted text-sm">{change.fields.join(", ")}</span> : null}
+              </th>
+              <td>
+                <DesignInLine change={change} side="previous" />
+              </td>
+              <td>
+                <DesignInLine change={change} side="next" />
               </td>
             </tr>
           ))}

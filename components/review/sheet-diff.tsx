@@ -3,7 +3,7 @@ import { diffIsEmpty, rowMovedWithDataOnly } from "@/lib/sheet/diff-queries";
 import type { SheetDiff } from "@/lib/sheet/diff-types";
 import { DiffCharts } from "./diff-charts";
 import type { DiffHooks } from "./diff-parts";
-import { DiffCautions, DiffDetails, DiffMeasurementSets, DiffProse, DiffRatings } from "./diff-sections";
+import { DiffCautions, DiffDesignIn, DiffDetails, DiffMeasurementSets, DiffProse, DiffRatings } from "./diff-sections";
 import { DiffBasisChanges, DiffSpecRows, rowKindWords } from "./diff-spec-rows";
 
 export type { DiffAnchor, DiffHooks } from "./diff-parts";
@@ -37,8 +37,8 @@ export function SheetDiffView({ diff, headingId = "sheet-diff", anchorActions, d
       ) : empty ? (
         <div className="mt-3" data-testid="diff-empty">
           <Notice>
-            Nothing on the {diff.nextLabel.toLowerCase()} differs from {previousLabel}: the same rows, figures, prose, ratings, cautions, sets and
-            curves.
+            Nothing on the {diff.nextLabel.toLowerCase()} differs from {previousLabel}: the same rows, figures, prose, ratings, design-in data, cautions,
+            sets and curves.
           </Notice>
         </div>
       ) : (
@@ -48,6 +48,7 @@ export function SheetDiffView({ diff, headingId = "sheet-diff", anchorActions, d
           <DiffBasisChanges diff={diff} hooks={hooks} />
           <DiffProse diff={diff} hooks={hooks} />
           <DiffRatings diff={diff} />
+          <DiffDesignIn diff={diff} />
           <DiffCautions diff={diff} />
           <DiffDetails diff={diff} />
           <DiffMeasurementSets diff={diff} />
@@ -74,6 +75,7 @@ function DiffCounts({ diff }: { diff: SheetDiff }) {
     { key: "basis", count: diff.basisChanges.length, words: plural(diff.basisChanges.length, "basis", "bases"), href: "#diff-basis" },
     { key: "prose", count: diff.prose.length, words: plural(diff.prose.length, "prose section", "prose sections"), href: "#diff-prose" },
     { key: "ratings", count: diff.ratings.length, words: plural(diff.ratings.length, "rating", "ratings"), href: "#diff-ratings" },
+    { key: "design-in", count: diff.designIn.length, words: plural(diff.designIn.length, "design-in row", "design-in rows"), href: "#diff-design-in" },
     { key: "cautions", count: cautions, words: plural(cautions, "caution", "cautions"), href: "#diff-cautions" },
     { key: "details", count: diff.details.length, words: plural(diff.details.length, "header item", "header items"), href: "#diff-details" },
     { key: "sets", count: sets, words: plural(sets, "measurement set", "measurement sets"), href: "#diff-sets" },

@@ -12,6 +12,7 @@ export function diffIsEmpty(diff: SheetDiff): boolean {
     diff.basisChanges.length === 0 &&
     diff.prose.length === 0 &&
     diff.ratings.length === 0 &&
+    diff.designIn.length === 0 &&
     diff.cautions.added.length === 0 &&
     diff.cautions.removed.length === 0 &&
     diff.measurementSets.added.length === 0 &&

@@ -6,7 +6,8 @@
 import { kindLabel } from "../domain/measurements";
 import { joinUnit } from "../format/quantity";
 import { rowMovedWithDataOnly } from "./diff-queries";
-import type { LimitFieldChange, MeasurementSetRef, RatingFigures, SheetDiff, SpecRowChange, SpecRowFieldChange, SpecRowRef } from "./diff-types";
+import { designInSectionTitles } from "./diff-design-in";
+import type { DesignInChange, LimitFieldChange, MeasurementSetRef, RatingFigures, SheetDiff, SpecRowChange, SpecRowFieldChange, SpecRowRef } from "./diff-types";
 
 /** Measurement sets named one by one up to this many; beyond it, counted. */
 const SETS_NAMED = 6;
@@ -22,6 +23,7 @@ export function summaryLines(diff: SheetDiff): string[] {
   for (const change of diff.basisChanges) lines.push(`${rowName(change)}: basis ${change.previous} → ${change.next}`);
   for (const section of diff.prose) lines.push(`Prose changed: ${section.title}`);
   for (const rating of diff.ratings) lines.push(ratingLine(rating.kind, rating.label, rating.previous, rating.next));
+  for (const change of diff.designIn) lines.push(designInLine(change));
   for (const caution of diff.cautions.added) lines.push(`Caution added: ${caution}`);
   for (const caution of diff.cautions.removed) lines.push(`Caution removed: ${caution}`);
   if (diff.measurementSets.added.length > 0) lines.push(setsLine("added", diff.measurementSets.added));
@@ -98,4 +100,16 @@ function setsLine(kind: "added" | "removed", sets: MeasurementSetRef[]): string 
   const named = sets.slice(0, SETS_NAMED).map((s) => `${s.serial}, ${kindLabel(s.kind).toLowerCase()}, ${s.measuredOn}`);
   const more = sets.length - named.length;
   return `Measurement sets ${kind} (${sets.length}): ${named.join("; ")}${more > 0 ? `; and ${more} more` : ""}`;
+}
+
+/** "Recommended operating conditions, LO drive: min 5, typ 7, max 10 dBm → min 6, typ 7, max 10 dBm"; "Package outline: drawing changed". */
+function designInLine(change: DesignInChange): string {
+  const where = change.section === "outline" ? change.key : `${designInSectionTitles[change.section]}, ${change.key}`;
+  if (change.kind === "added") return `Added: ${where}${change.next ? `: ${change.next}` : ""}`;
+  if (change.kind === "removed") return `Removed: ${where}`;
+  if (change.section === "outline") {
+    const words = change.fields.map((f) => (f === "drawing" ? "drawing changed" : `caption ${change.previous ? `“${change.previous}”` : "none"} → ${change.next ? `“${change.next}”` : "none"}`));
+    return `${where}: ${words.join("; ")}`;
+  }
+  return `${where}: ${change.previous || "none"} → ${change.next || "none"}`;
 }

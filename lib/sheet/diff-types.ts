@@ -143,6 +143,26 @@ export interface ChartOverlay {
   panels: ChartOverlayPanel[];
 }
 
+/** The four design-in sections of a sheet (DEVELOPERS.md "Design-in data"). */
+export type DesignInSection = "pins" | "ordering" | "conditions" | "outline";
+
+/**
+ * One row of a design-in section that was added, removed or changed: a pin (matched by its pin
+ * number, or its name when it has none), an ordering entry (by part number), an operating condition
+ * (by parameter) or the package outline (its drawing compared by SHA-256, its caption by text).
+ */
+export interface DesignInChange {
+  section: DesignInSection;
+  kind: "added" | "removed" | "changed";
+  /** What the row is known by: "Pin 1", "KM-7H-TR1", "LO drive", "Package outline". */
+  key: string;
+  /** The row as printed, one line ("LO · Local-oscillator input"; "min 5, typ 7, max 10 dBm"; the outline's caption); null when absent. */
+  previous: string | null;
+  next: string | null;
+  /** What changed in a changed row, in the section's column order: "name", "function", "min", "drawing", "caption", … */
+  fields: string[];
+}
+
 export interface SheetDiff {
   /** True when there is no previous revision: everything else is then empty. */
   firstRelease: boolean;
@@ -154,6 +174,8 @@ export interface SheetDiff {
   basisChanges: BasisChange[];
   prose: ProseChange[];
   ratings: RatingChange[];
+  /** Operating conditions, the outline, pins, ordering (the sheet's order); within each, added and changed in the sheet's order, then removed. */
+  designIn: DesignInChange[];
   cautions: { added: string[]; removed: string[] };
   measurementSets: { added: MeasurementSetRef[]; removed: MeasurementSetRef[] };
   details: DetailChange[];

@@ -7,6 +7,7 @@ import { diffWords } from "diff";
 import { joinUnit, MINUS, splitPrefixedUnit } from "../format/quantity";
 import { diffProseAnchorId, diffRowAnchorId } from "./diff-anchors";
 import { overlayCharts } from "./diff-charts";
+import { diffDesignIn } from "./diff-design-in";
 import type {
   BasisChange,
   ChangeDirection,
@@ -48,6 +49,7 @@ export function diffSheetModels(previous: SheetModel | null, next: SheetModel, o
       basisChanges: [],
       prose: [],
       ratings: [],
+      designIn: [],
       cautions: { added: [], removed: [] },
       measurementSets: { added: [], removed: [] },
       details: [],
@@ -64,6 +66,7 @@ export function diffSheetModels(previous: SheetModel | null, next: SheetModel, o
     basisChanges,
     prose: diffProse(previous, next),
     ratings: diffRatings(previous, next),
+    designIn: diffDesignIn(previous.designData, next.designData),
     cautions: diffLists(previous.cautions, next.cautions),
     measurementSets: diffMeasurementSets(previous, next),
     details: diffDetails(previous, next),

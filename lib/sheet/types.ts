@@ -116,6 +116,8 @@ export interface DesignDataInput {
   recommendedOperatingConditions: { parameter: string; min: string; typ: string; max: string; unit: string }[];
   /** The drawing as the sheet prints it: a PNG (an SVG upload is rasterised on the server first). */
   packageOutline: { caption: string; sha256: string; widthPx: number; heightPx: number; pngBase64: string } | null;
+  /** The outline's caption as saved, also when no drawing is on the sheet yet (the editor shows it; the sheet prints it only with a drawing). */
+  packageOutlineCaption?: string;
 }
 
 export interface DesignData {

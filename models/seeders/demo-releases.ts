@@ -6,6 +6,7 @@
  * them, so the draft snapshots of the unit tests still hold.
  */
 import { demoSheets, type DemoSheetContent } from "./demo-sheets";
+import { demoDesignIn, type DemoDesignIn } from "./demo-design-in";
 
 export type DemoRole = "engineer" | "reviewer";
 
@@ -84,13 +85,20 @@ function proseAtRevisionA(): DemoSheetContent["prose"] {
   };
 }
 
+/** The doubler's design-in data at revision A: the evaluation board was not orderable yet (B adds it). */
+function designInAtRevisionA(): DemoDesignIn {
+  const designIn = demoDesignIn["KDX-2G4"];
+  return { ...designIn, ordering: designIn.ordering.filter((entry) => !entry.partNumber.endsWith("-EB")) };
+}
+
 /**
  * The Kestrine doubler: revision A from three units (BFD-0004's drive sweep and the runs over
  * temperature wait for review, see demo-measurements.ts and demo-characterization.ts) with a
  * conversion-loss maximum of 11.5 dB (and a features line to match); then BFD-0004 and the −40, +25 and
  * +85 °C runs of lots L2405 and L2410 are approved, the reviewer sends the first resubmission back, the
  * engineer tightens the maximum to 11.0 dB, states 11.5 dB over the rated range and puts the feature
- * line right (the content of demo-sheets.ts) and revision B goes out.
+ * line right (the content of demo-sheets.ts), adds the evaluation board to the ordering information
+ * (demo-design-in.ts) and revision B goes out.
  * Between A and B the demo customer follows the part, so B's release queues a change notice to them.
  */
 export const demoDoublerStory = {
@@ -98,6 +106,7 @@ export const demoDoublerStory = {
   part: "KDX-2G4",
   limitsAtRevisionA: limitsAtRevisionA(),
   proseAtRevisionA: proseAtRevisionA(),
+  designInAtRevisionA: designInAtRevisionA(),
   /** The demo customer (Tarnby Radio Systems), who follows the part once A is out and so is sent the change notice of B. */
   followerBeforeRevisionB: "anneli.vos@tarnby-radio.example",
   issueReasons: demoIssueReasons["KDX-2G4"],
@@ -117,9 +126,9 @@ export const demoDoublerStory = {
   revisionB: {
     issueReasons: demoIssueReasons["KDX-2G4"],
     submitNote:
-      "Conversion-loss maximum tightened from 11.5 to 11.0 dB on the six-unit spread at 25 °C, and 11.5 dB stated over −40 to +85 °C from the runs of two lots, as requested; the features line says so.",
+      "Conversion-loss maximum tightened from 11.5 to 11.0 dB on the six-unit spread at 25 °C, and 11.5 dB stated over −40 to +85 °C from the runs of two lots, as requested; the features line says so. The evaluation board is now orderable.",
     releaseNote:
-      "Fourth unit (BFD-0004) and lot L2410 added to the test population; conversion-loss maximum tightened from 11.5 dB to 11.0 dB at 25 °C, 11.5 dB from −40 to +85 °C characterized on two lots.",
+      "Fourth unit (BFD-0004) and lot L2410 added to the test population; conversion-loss maximum tightened from 11.5 dB to 11.0 dB at 25 °C, 11.5 dB from −40 to +85 °C characterized on two lots; evaluation board KDX-2G4-EB added to the ordering information.",
   },
 } as const;
 

@@ -68,6 +68,10 @@ describe("the demo's releases", () => {
     // B's generated notes (the diff against A) name the tightened limit and the added unit.
     expect(doubler[0].notes.some((n) => /^Conversion loss.*11\.5\sdB → 11\sdB/.test(n)), doubler[0].notes.join(" | ")).toBe(true);
     expect(doubler[0].notes.some((n) => n.includes("BFD-0004"))).toBe(true);
+    // …and the evaluation board added to the ordering information (the design-in diff), nothing else of the design-in sections.
+    expect(doubler[0].notes.filter((n) => /Ordering information|Pin functions|operating conditions|Package outline/.test(n))).toEqual([
+      "Added: Ordering information, KDX-2G4-EB: Evaluation board with the in-phase splitter fitted · Single board, anti-static bag",
+    ]);
     expect(doubler[1].notes).toEqual(["First release.", demoDoublerStory.revisionA.releaseNote]);
   });
 
@@ -97,6 +101,25 @@ describe("the demo's releases", () => {
     expect(overTemperature(models[0])).toMatchObject({ conditionsKey: "drive=optimum;inputFrequencyHz=1000000000;temperatureMaxC=85;temperatureMinC=-40", n: 6, lots: 2 });
     expect(overTemperature(models[0])!.limits?.max.value).toBe(11.5);
     expect(overTemperature(models[0])!.supported).toBe(true);
+  });
+
+  it("froze the design-in sections into every demo release: the outline as the PNG the server drew from the demo's SVG, the same drawing at A and B", async () => {
+    const { SheetRevision } = db();
+    const frozen = async (org: string, part: string) =>
+      Promise.all((await revisions(org, part)).map(async (r) => JSON.parse((await SheetRevision.unscoped().findByPk(r.id, { attributes: ["modelJson"] }))!.modelJson) as SheetModel));
+    const [b, a] = await frozen("kestrine", "KDX-2G4");
+    expect(a.designData!.ordering.map((o) => o.partNumber)).toEqual(["KDX-2G4-TR1", "KDX-2G4-CT"]);
+    expect(b.designData!.ordering.map((o) => o.partNumber)).toEqual(["KDX-2G4-TR1", "KDX-2G4-CT", "KDX-2G4-EB"]);
+    expect(b.designData!.packageOutline!.sha256).toBe(a.designData!.packageOutline!.sha256);
+    for (const part of ["KM-7H", "KQH-2G"]) {
+      const [model] = await frozen("kestrine", part);
+      const data = model.designData!;
+      expect(data.pinFunctions.length, part).toBeGreaterThan(3);
+      expect(data.recommendedOperatingConditions.map((c) => c.parameter), part).toContain("Ambient temperature");
+      const png = Buffer.from(data.packageOutline!.dataUri.replace(/^data:image\/png;base64,/, ""), "base64");
+      expect(createHash("sha256").update(png).digest("hex"), part).toBe(data.packageOutline!.sha256);
+      expect(png.subarray(1, 4).toString("latin1"), part).toBe("PNG");
+    }
   });
 
   it("released the mixer, the hybrid and the Pellacourt splitter as revision A", async () => {

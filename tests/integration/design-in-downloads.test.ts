@@ -79,6 +79,10 @@ describe("design-in data in the workspace", () => {
     expect((await as.get("customer")!.request(`/api/devices/${deviceId}/design-data`, { method: "PUT", json: designData })).status).toBe(403);
     const ok = await engineer.request(`/api/devices/${deviceId}/design-data`, { method: "PUT", json: designData });
     expect(ok.status, await ok.clone().text()).toBe(200);
+    // No drawing yet: the caption saved with the lists is still in the editor when the workspace is loaded again.
+    const workspace = await engineer.request(`/sheets/${deviceId}`);
+    expect(workspace.status).toBe(200);
+    expect(await workspace.text()).toContain("tolerance ±0.1 mm unless stated");
   });
 
   it("takes an SVG outline rasterised to PNG, and answers 415, 422 and 413 in words for the rest", async () => {

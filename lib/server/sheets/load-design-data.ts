@@ -28,6 +28,7 @@ export async function loadDesignData(content: SheetContent | null, organizationI
       };
     }
   }
-  if (!pinFunctions.length && !ordering.length && !recommendedOperatingConditions.length && !packageOutline) return undefined;
-  return { pinFunctions, ordering, recommendedOperatingConditions, packageOutline };
+  const packageOutlineCaption = content.packageOutlineCaption ?? "";
+  if (!pinFunctions.length && !ordering.length && !recommendedOperatingConditions.length && !packageOutline && !packageOutlineCaption) return undefined;
+  return { pinFunctions, ordering, recommendedOperatingConditions, packageOutline, packageOutlineCaption };
 }

@@ -107,6 +107,29 @@ describe("SheetDiffView", () => {
     expect(sets).toContain("Drive sweep");
   });
 
+  it("lists the design-in rows that changed: the section, the row, what changed and both sides; the drawing by its digest", () => {
+    const designData = {
+      pinFunctions: [{ pin: "1", name: "IN", function: "Input" }],
+      ordering: [{ partNumber: "HX-TR", options: "", packing: "Reel, 1000" }],
+      recommendedOperatingConditions: [{ parameter: "Input drive", min: "9", typ: "", max: "13", unit: "dBm" }],
+      packageOutline: { caption: "3 × 3 mm", sha256: "a".repeat(64), widthPx: 4, heightPx: 3, pngBase64: "AAAA" },
+    };
+    const before = buildSheetModel({ ...structuredClone(base), designData, revision: { ...base.revision, label: "A", state: "released" } });
+    const changed = structuredClone(designData);
+    changed.recommendedOperatingConditions[0].max = "12";
+    changed.packageOutline.sha256 = "b".repeat(64);
+    changed.ordering.push({ partNumber: "HX-EB", options: "Evaluation board", packing: "" });
+    const diff = diffSheetModels(before, buildSheetModel({ ...structuredClone(base), designData: changed }));
+    const section = render({ diff }).split('data-testid="diff-design-in"')[1].split("</section>")[0];
+    const rows = [...section.matchAll(/<tr>(.*?)<\/tr>/g)].slice(1).map((m) => m[1].replace(/<[^>]+>/g, "|").replace(/\|+/g, "|").replace(/\u00a0/g, " "));
+    expect(rows).toEqual([
+      "|~|Changed|Recommended operating conditions|Input drive|max|min 9, max 13 dBm|min 9, max 12 dBm|",
+      "|~|Changed|Package outline|Package outline|drawing|Drawing replaced. 3 × 3 mm|New drawing. 3 × 3 mm|",
+      "|+|Added|Ordering information|HX-EB|—|none|Evaluation board|",
+    ]);
+    expect(render({ diff }).split('data-testid="diff-counts"')[1].split("</ul>")[0]).toContain("3</span> design-in rows");
+  });
+
   it("gives each overlay its anchor and a description, and loads the chart lazily", () => {
     const figures = html.match(/<figure id="diff-chart-[^"]+"/g) ?? [];
     const panelCount = busyDiff.charts.reduce((n, c) => n + c.panels.length, 0);

@@ -10,6 +10,10 @@ import { demoConformityUnits } from "@/models/seeders/demo-conformity";
 import { demoInstruments, demoUploads } from "@/models/seeders/demo-measurements";
 import { demoOrganizations } from "@/models/seeders/demo-scenario";
 import { demoSheets } from "@/models/seeders/demo-sheets";
+import { demoDesignIn, demoOutlineBytes } from "@/models/seeders/demo-design-in";
+import { outlinePng } from "@/lib/server/sheets/outline-png";
+import { createHash } from "node:crypto";
+import type { DesignDataInput } from "@/lib/sheet/types";
 
 /**
  * The sheet input each demo device gets on a fresh database, built without one: the demo files
@@ -18,6 +22,8 @@ import { demoSheets } from "@/models/seeders/demo-sheets";
  * what the demo loader saves. Organization settings are the defaults of the organizations table.
  * Conformity alerts live only in the database: the open one the demo raises on KDX-2G4 is not in
  * these inputs (tests/integration/sheets.test.ts leaves it out of the comparison and checks it apart).
+ * The design-in data is what the loader saves, the outline rasterised as the upload endpoint does it
+ * (a test importing this needs `vi.mock("server-only", () => ({}))`).
  */
 export function demoSheetInputs(date: string): { partNumber: string; input: SheetInput }[] {
   const setsByPart = new Map<string, ApprovedSetInput[]>();
@@ -60,9 +66,23 @@ export function demoSheetInputs(date: string): { partNumber: string; input: Shee
           limits: content?.limits ?? [],
           prose: content?.prose ?? {},
           absoluteMaximumRatings: content?.absoluteMaximumRatings ?? [],
+          ...(demoDesignIn[device.partNumber] ? { designData: demoDesignData(device.partNumber) } : {}),
           settings: { cpkThreshold: 1.33, toleranceCoverage: 0.99, toleranceConfidence: 0.95, measurementUncertainty: content?.measurementUncertainty ?? {} },
         },
       };
     }),
   );
+}
+
+/** The design-in data the demo loader saves for a part, the outline as the server stores it. */
+function demoDesignData(part: string): DesignDataInput {
+  const { packageOutline, pinFunctions, ordering, recommendedOperatingConditions } = demoDesignIn[part];
+  const { png, widthPx, heightPx } = outlinePng({ name: packageOutline.file, bytes: demoOutlineBytes(packageOutline.file) });
+  return {
+    pinFunctions,
+    ordering,
+    recommendedOperatingConditions,
+    packageOutline: { caption: packageOutline.caption, sha256: createHash("sha256").update(png).digest("hex"), widthPx, heightPx, pngBase64: png.toString("base64") },
+    packageOutlineCaption: packageOutline.caption,
+  };
 }

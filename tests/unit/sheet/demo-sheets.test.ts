@@ -1,4 +1,6 @@
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
+
+vi.mock("server-only", () => ({}));
 import { buildSheetModel, serializeSheetModel } from "@/lib/sheet";
 import { demoSheetInputs } from "./demo-inputs";
 

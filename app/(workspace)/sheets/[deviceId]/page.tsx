@@ -56,7 +56,8 @@ export default async function SheetPage({ params }: Props) {
         ordering: input.designData?.ordering ?? [],
         recommendedOperatingConditions: input.designData?.recommendedOperatingConditions ?? [],
         packageOutline: input.designData?.packageOutline ? { widthPx: input.designData.packageOutline.widthPx, heightPx: input.designData.packageOutline.heightPx } : null,
-        packageOutlineCaption: input.designData?.packageOutline?.caption ?? "",
+        // Saved with the lists, so it is there after a reload also before any drawing is uploaded.
+        packageOutlineCaption: input.designData?.packageOutlineCaption ?? input.designData?.packageOutline?.caption ?? "",
         templatePins: template?.designIn?.pins ?? [],
         templateConditions: template?.designIn?.recommendedOperatingConditions ?? [],
       }}
