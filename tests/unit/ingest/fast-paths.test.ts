@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { IngestError } from "@/lib/ingest";
 import { parseNumberAt, readBlankDelimitedNumber } from "@/lib/ingest/number";
-import { decodeInput, findControlChar, hasControlByte } from "@/lib/ingest/text-guards";
+import { BYTE_SCAN_FROM, decodeInput, findControlChar, hasControlByte } from "@/lib/ingest/text-guards";
 import { mulberry32 } from "@/lib/stats/seeded-random";
 
 // The fast paths of DEVELOPERS.md ("Fast paths, same answers") against the full reading they
@@ -66,8 +66,10 @@ describe("control characters found in the bytes, four at a time", () => {
 
   it("gives decodeInput the same message from bytes as from the decoded text (line of the character)", () => {
     const random = mulberry32(7);
+    // Large enough to be checked in its bytes.
+    const rows = "0.25,-3.5e-9\n".repeat(Math.ceil(BYTE_SCAN_FROM / 13));
     for (let n = 0; n < 400; n++) {
-      const text = `# kind: drive-sweep\n${seededText(random)}\n`;
+      const text = `# kind: drive-sweep\n${n % 2 === 0 ? rows : ""}${seededText(random)}\n${n % 4 === 1 ? rows : ""}`;
       if (text.includes("\u0000")) continue; // NUL bytes are refused earlier, as binary, by their byte
       const fromText = message(() => decodeInput({ fileName: "f.csv", text }));
       expect(message(() => decodeInput({ fileName: "f.csv", bytes: new TextEncoder().encode(text) }))).toBe(fromText);
