@@ -18,7 +18,7 @@ export interface TextInput {
 const STRICT_UTF8 = new TextDecoder("utf-8", { fatal: true, ignoreBOM: false });
 
 /** Files from this size on are checked for control characters in their bytes (hasControlByte). */
-export const BYTE_SCAN_FROM = 16 * 1024;
+export const BYTE_SCAN_FROM = 64;
 
 function lineOfByte(bytes: Uint8Array, index: number): number {
   let line = 1;
@@ -93,9 +93,8 @@ export function decodeInput(input: TextInput): string {
   } else {
     text = "";
   }
-  // From the bytes of a large file, the control characters are looked for in the bytes four at a time
-  // (hasControlByte); the string is scanned only when one is there, for the same position and message.
-  // A small file is scanned as a string: there the typed view over its bytes cost more than it saved.
+  // From bytes, the control characters are looked for in the bytes four at a time (hasControlByte); the
+  // string is scanned only when one is there, for the same position and message, or for a tiny file.
   const bad = input.bytes && input.bytes.length >= BYTE_SCAN_FROM && !hasControlByte(input.bytes) ? -1 : findControlChar(text);
   if (bad !== -1) {
     throw new IngestError({

@@ -66,7 +66,7 @@ describe("control characters found in the bytes, four at a time", () => {
 
   it("gives decodeInput the same message from bytes as from the decoded text (line of the character)", () => {
     const random = mulberry32(7);
-    // Large enough to be checked in its bytes.
+    // Some large, some small enough (below BYTE_SCAN_FROM) to be checked as a string.
     const rows = "0.25,-3.5e-9\n".repeat(Math.ceil(BYTE_SCAN_FROM / 13));
     for (let n = 0; n < 400; n++) {
       const text = `# kind: drive-sweep\n${n % 2 === 0 ? rows : ""}${seededText(random)}\n${n % 4 === 1 ? rows : ""}`;
