@@ -71,6 +71,19 @@ export interface CsvDocument {
 const DELIMITER_NAMES: Record<Delimiter, string> = { ",": "comma", ";": "semicolon", "\t": "tab" };
 
 export function normalizeName(raw: string): string {
+  // A name already written in lower case, digits and "_" between spaces (most keys and column
+  // names: " kind", "input_power ") is its own normal form once the spaces are cut: lower-casing
+  // and the replacement would copy it unchanged.
+  let start = 0;
+  let end = raw.length;
+  while (start < end && raw.charCodeAt(start) === 32) start++;
+  while (end > start && raw.charCodeAt(end - 1) === 32) end--;
+  let plain = start < end;
+  for (let i = start; plain && i < end; i++) {
+    const c = raw.charCodeAt(i);
+    plain = (c >= 97 && c <= 122) || (c >= 48 && c <= 57) || c === 95;
+  }
+  if (plain) return start === 0 && end === raw.length ? raw : raw.slice(start, end);
   return raw.trim().toLowerCase().replace(/[\s-]+/g, "_");
 }
 

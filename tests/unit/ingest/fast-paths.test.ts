@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { IngestError } from "@/lib/ingest";
+import { normalizeName } from "@/lib/ingest/csv-table";
 import { parseNumberAt, readBlankDelimitedNumber, readPlainCsvNumber } from "@/lib/ingest/number";
 import { BYTE_SCAN_FROM, decodeInput, findControlChar, hasControlByte } from "@/lib/ingest/text-guards";
 import { mulberry32 } from "@/lib/stats/seeded-random";
@@ -152,5 +153,24 @@ describe("CSV cells read as plain numbers while their end is looked for", () => 
     // Both sides of the fast path are exercised.
     expect(plain).toBeGreaterThan(10_000);
     expect(plain).toBeLessThan(35_000);
+  });
+});
+
+describe("names already in their normal form", () => {
+  it("normalizeName gives trim, lower case and one _ per run of blanks or hyphens on 20,000 seeded names", () => {
+    const random = mulberry32(99);
+    const pieces = ["a", "z", "k", "_", "0", "9", " ", "  ", "-", "`", "{", "/", "\t", "A", "Ö", "ä", "\u00a0", "\u2003", "[", "µ"];
+    let unchanged = 0;
+    for (let n = 0; n < 20_000; n++) {
+      let raw = "";
+      const length = Math.floor(random() * 12);
+      // Mostly names a file would have ("input_power ", " kind"), now and then anything.
+      const alphabet = random() < 0.6 ? pieces.slice(0, 8) : pieces;
+      for (let k = 0; k < length; k++) raw += alphabet[Math.floor(random() * alphabet.length)];
+      const full = raw.trim().toLowerCase().replace(/[\s-]+/g, "_");
+      if (full === raw.trim()) unchanged++;
+      expect(normalizeName(raw), JSON.stringify(raw)).toBe(full);
+    }
+    expect(unchanged).toBeGreaterThan(3_000);
   });
 });
