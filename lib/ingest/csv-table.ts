@@ -14,7 +14,7 @@
  */
 import { cellLine, outsideQuotes, recordCells, spansFrom, tokenizeCsvSpans, type CsvSpans, type Delimiter } from "./csv-tokens";
 import { IngestError, shortenFound } from "./errors";
-import { looksNonFinite, parseNumberAt as parseNumberAtImport } from "./number";
+import { looksNonFinite, parseNumberAt as parseNumberAtImport, readPlainCsvNumber } from "./number";
 import {
   acceptedUnits,
   describeQuantity,
@@ -32,6 +32,9 @@ export type { Delimiter };
 // its module, and these two are called for every cell.
 const parseNumberAt = parseNumberAtImport;
 const inRange = inRangeImport;
+const readPlainNumber = readPlainCsvNumber;
+/** Where readPlainNumber puts a cell's value. */
+const plainValue = new Float64Array(1);
 
 export interface MetadataEntry {
   key: string;
@@ -68,6 +71,19 @@ export interface CsvDocument {
 const DELIMITER_NAMES: Record<Delimiter, string> = { ",": "comma", ";": "semicolon", "\t": "tab" };
 
 export function normalizeName(raw: string): string {
+  // A name already written in lower case, digits and "_" between spaces (most keys and column
+  // names: " kind", "input_power ") is its own normal form once the spaces are cut: lower-casing
+  // and the replacement would copy it unchanged.
+  let start = 0;
+  let end = raw.length;
+  while (start < end && raw.charCodeAt(start) === 32) start++;
+  while (end > start && raw.charCodeAt(end - 1) === 32) end--;
+  let plain = start < end;
+  for (let i = start; plain && i < end; i++) {
+    const c = raw.charCodeAt(i);
+    plain = (c >= 97 && c <= 122) || (c >= 48 && c <= 57) || c === 95;
+  }
+  if (plain) return start === 0 && end === raw.length ? raw : raw.slice(start, end);
   return raw.trim().toLowerCase().replace(/[\s-]+/g, "_");
 }
 
@@ -286,6 +302,7 @@ export function readCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): Col
 
 function scanCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): ColumnValues {
   const { text, fileName, delimiter, decimalComma } = doc;
+  const delimiterCode = delimiter.charCodeAt(0);
   const width = doc.header.length;
   const slot = new Int32Array(width).fill(-1);
   requests.forEach((r, k) => (slot[r.cell.index] = k));
@@ -326,6 +343,26 @@ function scanCsvColumns(doc: CsvDocument, requests: ColumnRequest[]): ColumnValu
     let cellStart = lineStart;
     let cell = 0;
     for (;;) {
+      // A requested cell holding a plain number is read in one pass that also finds its end.
+      const wanted = cell < width ? slot[cell] : -1;
+      const plainEnd = wanted !== -1 ? readPlainNumber(text, cellStart, end, delimiterCode, decimalComma, plainValue, 0) : -1;
+      if (plainEnd !== -1) {
+        const r = requests[wanted];
+        const x = plainValue[0];
+        const v = r.conversion.toCanonical(x);
+        if (r.conversion.invalid !== undefined || !inRange(v, r.range)) {
+          let s = cellStart;
+          let e = plainEnd;
+          while (s < e && text.charCodeAt(s) === 32) s++;
+          while (e > s && text.charCodeAt(e - 1) === 32) e--;
+          convertChecked(doc, r, x, lineNo, cell, text.slice(s, e));
+        }
+        buffer[rows * columns + wanted] = v;
+        cell++;
+        if (plainEnd >= end) break;
+        cellStart = plainEnd + 1;
+        continue;
+      }
       if (nextDelim !== -1 && nextDelim < cellStart) nextDelim = text.indexOf(delimiter, cellStart);
       const cellEnd = nextDelim !== -1 && nextDelim < end ? nextDelim : end;
       if (cell < width) {

@@ -113,3 +113,81 @@ export function parseDecimalText(text: string): number | undefined {
   const x = parseNumberAt(normalized, 0, normalized.length);
   return Number.isFinite(x) ? x : NaN;
 }
+
+/**
+ * Reads the token that starts at text[start] (not a blank) and runs to the next blank (space, tab,
+ * CR or form feed) or `end`, as parseNumberAt(text, start, tokenEnd) would: the value goes to
+ * out[at] and the token's end is returned. The common token (a sign, at most 15 digits and a
+ * decimal point, nothing else) is converted while its end is looked for, so each character is read
+ * once; any other token (an exponent, more digits, text) is read by parseNumberAt itself.
+ */
+export function readBlankDelimitedNumber(text: string, start: number, end: number, out: Float64Array, at: number): number {
+  let i = start;
+  let c = text.charCodeAt(i);
+  const negative = c === C_MINUS;
+  if (negative || c === C_PLUS) c = text.charCodeAt(++i);
+  let mantissa = 0;
+  let digits = 0;
+  let fractionDigits = 0;
+  let seenDot = false;
+  for (; i < end; c = text.charCodeAt(++i)) {
+    if (c >= C_0 && c <= C_9) {
+      mantissa = mantissa * 10 + (c - C_0);
+      digits++;
+      if (seenDot) fractionDigits++;
+    } else if (c === C_DOT && !seenDot) {
+      seenDot = true;
+    } else {
+      break;
+    }
+  }
+  // At most 15 digits: exact in a double and within parseNumberAt's exact fast path (scale −15 … 0).
+  if (digits > 0 && digits <= 15 && (i === end || c === 32 || c === 9 || c === 13 || c === 12)) {
+    const value = mantissa / POW10[fractionDigits];
+    out[at] = negative ? -value : value;
+    return i;
+  }
+  let e = start + 1;
+  for (; e < end; e++) {
+    const k = text.charCodeAt(e);
+    if (k === 32 || k === 9 || k === 13 || k === 12) break;
+  }
+  out[at] = parseNumberAt(text, start, e);
+  return e;
+}
+
+/**
+ * Reads the CSV cell that starts at text[start] and ends at the next `delimiter` (a character code)
+ * or at `end`, as a plain number: spaces, a sign, at most 15 digits with one decimal separator ("."
+ * or, with `decimalComma`, ","), spaces. Then the value (parseNumberAt's on the trimmed cell) goes to
+ * out[at] and the cell's end (the delimiter's position, or `end`) is returned; any other cell (a tab
+ * around it, an exponent, more digits, text, an empty cell) returns -1 and is read the full way.
+ */
+export function readPlainCsvNumber(text: string, start: number, end: number, delimiter: number, decimalComma: boolean, out: Float64Array, at: number): number {
+  let i = start;
+  let c = text.charCodeAt(i);
+  while (i < end && c === 32) c = text.charCodeAt(++i);
+  if (i >= end) return -1;
+  const negative = c === C_MINUS;
+  if (negative || c === C_PLUS) c = text.charCodeAt(++i);
+  let mantissa = 0;
+  let digits = 0;
+  let fractionDigits = 0;
+  let seenSep = false;
+  for (; i < end; c = text.charCodeAt(++i)) {
+    if (c >= C_0 && c <= C_9) {
+      mantissa = mantissa * 10 + (c - C_0);
+      digits++;
+      if (seenSep) fractionDigits++;
+    } else if ((c === C_DOT || (decimalComma && c === C_COMMA)) && !seenSep) {
+      seenSep = true;
+    } else {
+      break;
+    }
+  }
+  while (i < end && c === 32) c = text.charCodeAt(++i);
+  if (digits === 0 || digits > 15 || (i < end && c !== delimiter)) return -1;
+  const value = mantissa / POW10[fractionDigits];
+  out[at] = negative ? -value : value;
+  return i;
+}
