@@ -61,6 +61,13 @@ export interface SpecRowTemplate {
    * the group's sets span two or more temperatures.
    */
   overTemperature?: "max" | "min";
+  /**
+   * A row held at the drive its `match.drive` states (per-port dBm), not at each unit's optimum: each
+   * unit's figure at its optimum (`drive: "optimum"`) is read again off the set's stored curve `curveId`
+   * (x: per-port drive) at that drive, by linear interpolation between the two measured steps around it
+   * (lib/sheet/stated-drive.ts). `series`: the curve's series by name; its first when absent.
+   */
+  atStatedDrive?: { curveId: string; series?: string };
 }
 
 export interface CurveTemplate {
@@ -89,6 +96,8 @@ export interface TrendTemplate {
   parameter: string;
   /** Conditions the parameter must carry, value for value (as SpecRowTemplate.match). */
   match?: Record<string, string | number>;
+  /** Each unit read off its stored sweep at the drive `match.drive` states (as SpecRowTemplate.atStatedDrive). */
+  atStatedDrive?: SpecRowTemplate["atStatedDrive"];
   /**
    * The condition key on the x axis, with its axis words. "temperatureC" draws against each set's
    * temperature (the set's own condition, as the statistics read it) instead of picking one temperature.

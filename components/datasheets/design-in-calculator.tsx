@@ -258,7 +258,7 @@ function LimitLine({ limit }: { limit: DesignInLimit }) {
       </abbr>
       <span className="block text-sm text-ink-muted">
         {limit.label}; <Notation text={limit.conditionsText} />
-        {limit.driveDiffers ? ". Stated at optimum drive, not at yours." : ""}
+        {limit.driveDiffers ? ". Stated at that drive, not at yours." : ""}
       </span>
     </li>
   );

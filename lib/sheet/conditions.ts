@@ -32,7 +32,8 @@ export function parseConditionsKey(conditionsKey: string): Conditions {
 export function formatConditionCell(column: ConditionColumn, conditions: Conditions): string {
   for (const source of column.sources) {
     const text = formatSource(source, conditions);
-    if (text !== null) return source.suffix ? `${text} ${source.suffix}` : text;
+    // The suffix belongs to a number ("+10 dBm per port"), not to a word such as "optimum".
+    if (text !== null) return source.suffix && typeof conditions[source.key] === "number" ? `${text} ${source.suffix}` : text;
   }
   return "";
 }

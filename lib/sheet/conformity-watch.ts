@@ -24,7 +24,8 @@ import { collectGroupValues } from "./spec-table";
 import type { ApprovedSetInput, SheetModel, StatisticsGroup } from "./types";
 
 /** A set approved after the release, oldest approval first. */
-export type WatchedSet = Pick<ApprovedSetInput, "id" | "kind" | "serial" | "lot" | "temperatureC" | "measuredOn" | "parameters">;
+/** Its curves too: a row at a stated drive reads each unit off its stored sweep (lib/sheet/stated-drive.ts). */
+export type WatchedSet = Pick<ApprovedSetInput, "id" | "kind" | "serial" | "lot" | "temperatureC" | "measuredOn" | "parameters" | "curves">;
 
 interface GroupRef {
   groupId: string;
@@ -121,7 +122,7 @@ export function assessConformity(opts: { model: SheetModel; template: SheetTempl
   const perSet = sets.map((set) => ({
     setId: String(set.id),
     serial: set.serial,
-    values: collectGroupValues(template, [{ ...set, curves: [], instruments: [] }]),
+    values: collectGroupValues(template, [{ ...set, instruments: [] }]),
   }));
   const groups: GuaranteedGroupWatch[] = [];
   const notes: string[] = [];

@@ -324,7 +324,7 @@ export interface DesignInSpread {
 export interface DesignInLimit {
   rowId: string;
   label: string;
-  /** The row's conditions as the statistics annex words them ("Frequency 1 GHz in, Drive optimum, T_A 25 °C"). */
+  /** The row's conditions as the statistics annex words them ("Frequency 1 GHz in, Drive +10 dBm per port, T_A 25 °C"). */
   conditionsText: string;
   min: number | null;
   typ: number | null;
@@ -337,7 +337,7 @@ export interface DesignInLimit {
   basis: LimitBasis;
   basisMark: string;
   basisText: string;
-  /** True when the row's limit is stated at another drive than the design's (e.g. "optimum"). */
+  /** True when the row's limit is stated at another drive than the design's (the conditions text names it). */
   driveDiffers: boolean;
 }
 
@@ -479,7 +479,7 @@ function bracket(points: Point[], x: number): DesignInReading["between"] {
 /**
  * The specification rows of the figure's parameter at the design's conditions: an input frequency
  * that is the design's, a band that contains it, an LO drive that is the design's, the curves'
- * temperature (or a span of temperatures that holds it). A row at "optimum" drive is kept and marked, since it is what the sheet guarantees.
+ * temperature (or a span of temperatures that holds it). A multiplier's row at another per-port drive than the design's is kept and marked (its conditions name the drive), since it is what the sheet guarantees.
  */
 function limitsFor(model: SheetModel, curve: DesignInCurve, at: { query: DesignInQuery; temperatureC: number | null }): DesignInLimit[] {
   const groups = new Map(model.statistics.groups.map((g) => [g.groupId, g]));
@@ -490,7 +490,9 @@ function limitsFor(model: SheetModel, curve: DesignInCurve, at: { query: DesignI
     if (!Object.entries(curve.match).every(([k, v]) => c[k] === v)) continue;
     if (!rowApplies(c, at)) continue;
     if (row.min.value === null && row.typ.value === null && row.max.value === null) continue;
-    out.push(limitOf(row, groups.get(row.groupId)?.conditionsText ?? "", typeof c.drive === "string"));
+    // A multiplier's row names its drive: a stated per-port drive (+10 dBm), or "optimum" on a sheet built before drives were stated.
+    const driveDiffers = typeof c.drive === "string" || (typeof c.drive === "number" && Math.abs(c.drive - at.query.driveDbm) > SAME_DRIVE_DB);
+    out.push(limitOf(row, groups.get(row.groupId)?.conditionsText ?? "", driveDiffers));
   }
   return out;
 }

@@ -5,6 +5,7 @@ import { formatQuantity, formatRange } from "../format/quantity";
 import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
 import { formatTemperature, formatTemperatureRange } from "./format";
 import type { ApprovedSetInput, ChartSpec, SheetModel } from "./types";
+import { readAtStatedDrive } from "./stated-drive";
 
 /**
  * A chart draws one curve per unit under one set of conditions: the sets are grouped by
@@ -51,7 +52,7 @@ function buildTrendChart(trend: TrendTemplate, sets: ApprovedSetInput[]): ChartS
   // temperature label → serial → x → value (the latest set wins, as in the statistics)
   const byTemperature = new Map<string, Map<string, Map<number, { value: number; order: string }>>>();
   for (const set of sets) {
-    for (const parameter of set.parameters) {
+    for (const parameter of trend.atStatedDrive ? readAtStatedDrive(trend, set).parameters : set.parameters) {
       if (parameter.name !== trend.parameter || parameter.value === null || !Number.isFinite(parameter.value)) continue;
       if (trend.match && !Object.entries(trend.match).every(([k, v]) => parameter.conditions[k] === v)) continue;
       const x = parameter.conditions[trend.x.key];
@@ -100,7 +101,7 @@ function buildTemperatureTrendChart(template: SheetTemplate, trend: TrendTemplat
   const byGroup = new Map<string, Map<string, Map<number, { value: number; order: string }>>>();
   for (const set of sets) {
     if (set.temperatureC === undefined || !Number.isFinite(set.temperatureC)) continue;
-    for (const parameter of set.parameters) {
+    for (const parameter of trend.atStatedDrive ? readAtStatedDrive(trend, set).parameters : set.parameters) {
       if (parameter.name !== trend.parameter || parameter.value === null || !Number.isFinite(parameter.value)) continue;
       if (trend.match && !Object.entries(trend.match).every(([k, v]) => parameter.conditions[k] === v)) continue;
       const grouped: Conditions = { ...trend.match };

@@ -2,7 +2,8 @@ import { limitBasisWords } from "../domain/sheets";
 import type { SheetTemplate, SpecRowTemplate } from "../../templates/types";
 import { compareStrings } from "./compare";
 import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
-import { formatLimitValue, formatValue, typicalDecimals } from "./format";
+import { formatDrive, formatLimitValue, formatValue, typicalDecimals } from "./format";
+import { readAtStatedDrive, type StatedDriveMiss } from "./stated-drive";
 import { computeGroupStatistics, DEFAULT_CPK_MIN_UNITS, type GroupStatistics, type UnitValue } from "./statistics";
 import type { LimitBasis } from "../domain/sheets";
 import type { ApprovedSetInput, GroupIdentity, SheetInput, SheetModel, SpecLimitInput, SpecTableRow, StatisticsGroup } from "./types";
@@ -76,7 +77,7 @@ export function buildSpecTable(options: {
     groups,
     footnotes: footnotes.list,
     decisionRules: [...decisionRules].sort(),
-    issues: [...duplicateIssues, ...unusedLimitIssues(limits, usedLimits, options.classLabel)],
+    issues: [...duplicateIssues, ...unusedLimitIssues(limits, usedLimits, options.classLabel), ...statedDriveIssues(template, sets)],
   };
 }
 
@@ -222,6 +223,35 @@ function orderedConditionKeys(row: SpecRowTemplate, collected: Map<string, UnitV
   return [...collected.keys()].sort((a, b) => compareConditions(parseConditionsKey(a), parseConditionsKey(b), row.groupBy));
 }
 
+/**
+ * Units whose stored sweep does not reach a row's stated drive, one issue per unit and set naming the rows
+ * it is left out of: the figure is not extrapolated, and the unit is not dropped silently.
+ */
+function statedDriveIssues(template: SheetTemplate, sets: ApprovedSetInput[]): Issues {
+  const bySet = new Map<string, { miss: StatedDriveMiss; labels: string[] }>();
+  for (const row of template.specifications.rows) {
+    if (!row.atStatedDrive) continue;
+    for (const set of sets) {
+      for (const miss of readAtStatedDrive(row, set).misses) {
+        const key = `${miss.serial}|${miss.setId}|${miss.driveDbm}`;
+        const entry = bySet.get(key) ?? { miss, labels: [] };
+        bySet.set(key, entry);
+        const label = row.label.toLowerCase();
+        if (!entry.labels.includes(label)) entry.labels.push(label);
+      }
+    }
+  }
+  return [...bySet.values()]
+    .sort((a, b) => compareStrings(a.miss.serial, b.miss.serial) || compareStrings(a.miss.setId, b.miss.setId))
+    .map(({ miss, labels }) => ({
+      code: "stated-drive-outside-sweep",
+      message:
+        `Unit ${miss.serial} (set ${miss.setId}) was swept ` +
+        (miss.sweep ? `from ${formatDrive(miss.sweep.min)} to ${formatDrive(miss.sweep.max)} per port` : "with no curve against per-port drive") +
+        `, which does not reach the stated drive of ${formatDrive(miss.driveDbm)} per port: it is left out of ${labels.join(", ")} (no figure is extrapolated).`,
+    }));
+}
+
 function unusedLimitIssues(limits: Map<string, SpecLimitInput>, usedLimits: Set<string>, classLabel: string): Issues {
   const issues: Issues = [];
   for (const [key, limit] of limits) {
@@ -299,7 +329,8 @@ function collectRowValues(row: SpecRowTemplate, sets: ApprovedSetInput[]): Map<s
   const byGroup = new Map<string, Map<string, Candidate>>();
   for (const set of sets) {
     const setId = String(set.id);
-    for (const parameter of set.parameters) {
+    const parameters = row.atStatedDrive ? readAtStatedDrive(row, set).parameters : set.parameters;
+    for (const parameter of parameters) {
       if (parameter.name !== row.parameter || parameter.value === null || !Number.isFinite(parameter.value)) continue;
       const conditions: Conditions = { ...parameter.conditions };
       if (set.temperatureC !== undefined && conditions.temperatureC === undefined) conditions.temperatureC = set.temperatureC;

@@ -54,7 +54,7 @@ export interface DemoCatalogPart {
   limits: DemoLimitRule[];
   /**
    * The sheet's words; `{row.side}` in the features is replaced by the limit set from the data
-   * (e.g. `{conversion-loss-optimum.max}`), so the features promise what the table guarantees.
+   * (e.g. `{conversion-loss-at-drive.max}`), so the features promise what the table guarantees.
    */
   prose: Partial<Record<ProseSectionId, string>>;
   absoluteMaximumRatings: { label: string; value: string; unit: string }[];
@@ -100,7 +100,7 @@ const temperatures = (operating: string, storage: string) => [
 ];
 
 const doublerLimits: DemoLimitRule[] = [
-  { row: "conversion-loss-optimum", side: "max", basis: "test", step: 0.5 },
+  { row: "conversion-loss-at-drive", side: "max", basis: "test", step: 0.5 },
   { row: "fundamental-suppression", side: "min", basis: "test", step: 1 },
   { row: "third-harmonic-suppression", side: "min", basis: "characterization", step: 1 },
   { row: "fourth-harmonic-suppression", side: "min", basis: "characterization", step: 1 },
@@ -125,7 +125,7 @@ const networkLimits = (isolationRow: "isolation-input" | "isolation-outputs"): D
 const networkUncertainty = { "insertion-loss": 0.08, "amplitude-balance": 0.08, "phase-balance": 0.8, isolation: 0.3 };
 
 const doublerFeatures =
-  "- Conversion loss below {conversion-loss-optimum.max} dB at optimum drive, tested on every unit\n- Fundamental suppression above {fundamental-suppression.min} dBc\n- Passive: no DC supply";
+  "- Conversion loss below {conversion-loss-at-drive.max} dB at +10 dBm per port, tested on every unit\n- Fundamental suppression above {fundamental-suppression.min} dBc\n- Passive: no DC supply";
 const doublerFixture =
   "Units are soldered to a 0.508 mm laminate fixture with SMA launches. Both device ports are fed from one signal generator through a two-way in-phase splitter; its 0.4 dB excess loss and the 0.6 dB cable loss are taken out of the stated drive. Output orders 1 to 4 are read on a spectrum analyzer. Reference impedance 50 Ω.";
 const mixerFeatures = "- Conversion loss below {conversion-loss-worst.max} dB across the band\n- LO-to-RF isolation above {isolation-lo-rf.min} dB";

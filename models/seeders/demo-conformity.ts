@@ -3,7 +3,7 @@
  * release. Uploaded through the bench API and approved by scripts/seed-demo-conformity.ts once the
  * demo's releases are out, so the approval runs the watch against the current revision.
  *
- * - KDX-2G4 (Rev. B, conversion loss ≤ 11 dB at 1 GHz, optimum drive, 25 °C): unit BFD-0021 of a new
+ * - KDX-2G4 (Rev. B, conversion loss ≤ 11 dB at 1 GHz, +10 dBm per port, 25 °C): unit BFD-0021 of a new
  *   lot reads 2.5 dB more conversion loss than the first unit: outside the guaranteed limit and far
  *   beyond 3σ of the release, so its approval raises a conformity alert.
  * - KM-7H (Rev. A): unit BFD-0121 reads within 0.04 dB (conversion loss) and 0.3 dB (isolation) of the

@@ -64,7 +64,7 @@ const demoIssueReasons = {
   },
 } satisfies Record<string, Record<string, string>>;
 
-const doubler1GHz = "drive=optimum;inputFrequencyHz=1000000000;temperatureC=25";
+const doubler1GHz = "drive=10;inputFrequencyHz=1000000000;temperatureC=25";
 
 /**
  * The doubler's limits at revision A: the conversion-loss maximum still 11.5 dB, set before the fourth
@@ -81,7 +81,7 @@ function proseAtRevisionA(): DemoSheetContent["prose"] {
   const prose = demoSheets["KDX-2G4"].prose;
   return {
     ...prose,
-    features: prose.features?.replace("Conversion loss below 11 dB at optimum drive, tested on every unit at 25 °C; below 11.5 dB from −40 to +85 °C", "Conversion loss below 11.5 dB at optimum drive, tested on every unit"),
+    features: prose.features?.replace("Conversion loss below 11 dB at +10 dBm per port, tested on every unit at 25 °C; below 11.5 dB from −40 to +85 °C", "Conversion loss below 11.5 dB at +10 dBm per port, tested on every unit"),
   };
 }
 
@@ -121,7 +121,7 @@ export const demoDoublerStory = {
   firstResubmission: {
     note: "BFD-0004 and the −40, +25 and +85 °C runs of lots L2405 and L2410 added to the sheet; limits unchanged from revision A.",
     changeRequest:
-      "With BFD-0004 and lot L2410 in, all six units sit well inside 11.5 dB at optimum drive at 25 °C, and the temperature runs of both lots stay near 10 dB from −40 to +85 °C. Tighten the conversion-loss maximum to 11.0 dB as we agreed at revision A, so the sheet states what production test actually screens, and state what holds over the rated range: 11.5 dB keeps the six units' spread capable there.",
+      "With BFD-0004 and lot L2410 in, all six units sit well inside 11.5 dB at +10 dBm per port at 25 °C, and the temperature runs of both lots stay near 10 dB from −40 to +85 °C. Tighten the conversion-loss maximum to 11.0 dB as we agreed at revision A, so the sheet states what production test actually screens, and state what holds over the rated range: 11.5 dB keeps the six units' spread capable there.",
   },
   revisionB: {
     issueReasons: demoIssueReasons["KDX-2G4"],
@@ -166,10 +166,10 @@ export const demoOpenReview = {
   submitNote: "Characterization of one unit of the customer's lot 2611, used as a doubler. Phase noise is not included yet.",
   comment: {
     parameter: "conversion-loss",
-    body: "The typical conversion loss rests on a single unit of lot 2611. Name the per-port drive it was read at in the row's footnote, so the customer can repeat the measurement on their own bench.",
+    body: "The typical conversion loss rests on a single unit of lot 2611. Say in the row's footnote how far the stated +10 dBm per port lies from that unit's optimum, so the customer knows the margin on their own bench.",
   },
   reply:
-    "Agreed. It is the unit's optimum drive, as in the optimum-drive row; I'll name it in the footnote and resubmit together with the phase-noise set of 13 November once that has passed review.",
+    "Agreed. Its optimum is +10.5 dBm per port, as in the optimum-drive row, half a decibel above the stated drive; I'll say so in the footnote and resubmit together with the phase-noise set of 13 November once that has passed review.",
 };
 
 /** A sheet the reviewer sent back, with the reason. */

@@ -19,7 +19,7 @@ const temperatures = (operating: string, storage: string) => [
   { label: "Storage temperature", value: storage, unit: "°C" },
 ];
 
-const doubler1GHz = "drive=optimum;inputFrequencyHz=1000000000;temperatureC=25";
+const doubler1GHz = "drive=10;inputFrequencyHz=1000000000;temperatureC=25";
 const mixerBand = "ifFrequencyHz=70000000;loPowerDbm=7;startHz=500000000;stopHz=3000000000;temperatureC=25";
 // KQH-2G is a 1.7–2.3 GHz part measured 1.5–2.5 GHz: its upload states the band (demo-measurements.ts).
 const hybridBand = "startHz=1700000000;stopHz=2300000000;temperatureC=25";
@@ -40,15 +40,15 @@ export const demoSheets: Record<string, DemoSheetContent> = {
       { parameter: "conversion-loss", conditionsKey: doubler1GHz, typ: 9.5, max: 11, unit: "dB", basis: "test" },
       {
         parameter: "conversion-loss",
-        conditionsKey: `drive=optimum;inputFrequencyHz=1000000000;${ratedRange}`,
+        conditionsKey: `drive=10;inputFrequencyHz=1000000000;${ratedRange}`,
         max: 11.5,
         unit: "dB",
         basis: "characterization",
         footnote: "Each unit's highest value over −40, +25 and +85 °C, from two lots; tested at 25 °C only.",
       },
-      { parameter: "harmonic-suppression", conditionsKey: "drive=optimum;inputFrequencyHz=1000000000;order=1;temperatureC=25", min: 22, typ: 26, unit: "dBc", basis: "test" },
-      { parameter: "harmonic-suppression", conditionsKey: "drive=optimum;inputFrequencyHz=1000000000;order=3;temperatureC=25", min: 25, unit: "dBc", basis: "characterization" },
-      { parameter: "harmonic-suppression", conditionsKey: "drive=optimum;inputFrequencyHz=1000000000;order=4;temperatureC=25", min: 20, unit: "dBc", basis: "characterization" },
+      { parameter: "harmonic-suppression", conditionsKey: "drive=10;inputFrequencyHz=1000000000;order=1;temperatureC=25", min: 22, typ: 26, unit: "dBc", basis: "test" },
+      { parameter: "harmonic-suppression", conditionsKey: "drive=10;inputFrequencyHz=1000000000;order=3;temperatureC=25", min: 25, unit: "dBc", basis: "characterization" },
+      { parameter: "harmonic-suppression", conditionsKey: "drive=10;inputFrequencyHz=1000000000;order=4;temperatureC=25", min: 20, unit: "dBc", basis: "characterization" },
       { parameter: "optimum-drive", conditionsKey: "inputFrequencyHz=1000000000;temperatureC=25", typ: 10.8, unit: "dBm", basis: "characterization" },
       {
         parameter: "spot-phase-noise",
@@ -63,7 +63,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
       description:
         "The **KDX-2G4** doubles a 0.5–1.2 GHz input to 1.0–2.4 GHz. A Schottky diode ring is driven on both ports from one source through an in-phase splitter, so the second harmonic adds at the output while the fundamental and the odd orders cancel.\n\nNo bias supply is needed. Best conversion is near +10.8 dBm per port.",
       features:
-        "- Conversion loss below 11 dB at optimum drive, tested on every unit at 25 °C; below 11.5 dB from −40 to +85 °C\n- Fundamental suppression above 22 dBc\n- Residual phase noise typically −152 dBc/Hz at 10 kHz offset\n- Passive: no DC supply",
+        "- Conversion loss below 11 dB at +10 dBm per port, tested on every unit at 25 °C; below 11.5 dB from −40 to +85 °C\n- Fundamental suppression above 22 dBc\n- Residual phase noise typically −152 dBc/Hz at 10 kHz offset\n- Passive: no DC supply",
       applications: "- Local-oscillator multiplier chains\n- Clock doubling in frequency synthesizers\n- Laboratory frequency extension",
       "test-fixture":
         "Units are soldered to a 0.508 mm laminate fixture with SMA launches. Both device ports are fed from one signal generator through a two-way in-phase splitter; its 0.4 dB excess loss and the 0.6 dB cable loss are taken out of the stated drive. Output orders 1 to 4 are read on a spectrum analyzer. Reference impedance 50 Ω.\n\nThe runs over temperature put the fixture in a chamber at −40, +25 and +85 °C, soaked 20 minutes at each; the temperature of each run is the one its bench file states.",
@@ -126,7 +126,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
   "WL-C2611-KDX": {
     limits: [
       { parameter: "conversion-loss", conditionsKey: doubler1GHz, typ: 9.5, unit: "dB", basis: "characterization", footnote: "One unit of lot 2611; typical only." },
-      { parameter: "harmonic-suppression", conditionsKey: "drive=optimum;inputFrequencyHz=1000000000;order=1;temperatureC=25", typ: 26, unit: "dBc", basis: "characterization" },
+      { parameter: "harmonic-suppression", conditionsKey: "drive=10;inputFrequencyHz=1000000000;order=1;temperatureC=25", typ: 26, unit: "dBc", basis: "characterization" },
     ],
     prose: {
       description:

@@ -2,6 +2,7 @@ import { composeCautions, composeProse, defaultHandlingProse, esdRating, tempera
 import { frequencyMultiplierConditions } from "./conditions";
 import type { SheetTemplate } from "../types";
 import { harmonicSuppressionLabel } from "../../lib/domain/parameter-names";
+import { formatDrive } from "../../lib/sheet/format";
 
 const frequencyColumn = {
   id: "frequency",
@@ -11,6 +12,16 @@ const frequencyColumn = {
     { key: "carrierFrequencyHz", format: "frequency" as const, suffix: "out" },
   ],
 };
+
+/**
+ * The per-port drive at which the multiplier's conversion-loss and suppression rows are stated (dBm): a
+ * reader can set it on the bench, where each unit's optimum differs (the optimum is its own row). +10 dBm
+ * sits inside every demo unit's sweep, near the demo doubler's typical optimum (+10.1 dBm,
+ * models/seeders/demo-characterization.ts).
+ */
+export const MULTIPLIER_STATED_DRIVE_DBM = 10;
+const atDrive = { drive: MULTIPLIER_STATED_DRIVE_DBM };
+const statedDriveWords = `${formatDrive(MULTIPLIER_STATED_DRIVE_DBM)} per port`;
 
 /** Frequency multipliers, including a double-balanced mixer driven on both ports as a doubler. */
 export const frequencyMultiplierTemplate: SheetTemplate = {
@@ -24,7 +35,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "drive",
         label: "Drive",
-        sources: [{ key: "drive", format: "text" }],
+        sources: [{ key: "drive", format: "power-dbm", suffix: "per port" }],
       },
       {
         id: "offset",
@@ -39,13 +50,14 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
     ],
     rows: [
       {
-        id: "conversion-loss-optimum",
+        id: "conversion-loss-at-drive",
         parameter: "conversion-loss",
         label: "Conversion loss",
         symbol: "CL",
         unit: "dB",
         decimals: 2,
-        match: { drive: "optimum" },
+        match: atDrive,
+        atStatedDrive: { curveId: "conversion-loss-vs-drive" },
         groupBy: ["inputFrequencyHz", "temperatureC"],
         defaultBasis: "test",
       },
@@ -56,7 +68,8 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
         symbol: "CL",
         unit: "dB",
         decimals: 2,
-        match: { drive: "optimum" },
+        match: atDrive,
+        atStatedDrive: { curveId: "conversion-loss-vs-drive" },
         groupBy: ["inputFrequencyHz", "temperatureC"],
         defaultBasis: "characterization",
         overTemperature: "max",
@@ -78,7 +91,8 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
         symbol: "HS1",
         unit: "dBc",
         decimals: 1,
-        match: { order: 1, drive: "optimum" },
+        match: { order: 1, ...atDrive },
+        atStatedDrive: { curveId: "harmonic-suppression-vs-drive", series: "order 1" },
         groupBy: ["inputFrequencyHz", "temperatureC"],
         defaultBasis: "test",
       },
@@ -89,7 +103,8 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
         symbol: "HS3",
         unit: "dBc",
         decimals: 1,
-        match: { order: 3, drive: "optimum" },
+        match: { order: 3, ...atDrive },
+        atStatedDrive: { curveId: "harmonic-suppression-vs-drive", series: "order 3" },
         groupBy: ["inputFrequencyHz", "temperatureC"],
         defaultBasis: "characterization",
       },
@@ -100,7 +115,8 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
         symbol: "HS4",
         unit: "dBc",
         decimals: 1,
-        match: { order: 4, drive: "optimum" },
+        match: { order: 4, ...atDrive },
+        atStatedDrive: { curveId: "harmonic-suppression-vs-drive", series: "order 4" },
         groupBy: ["inputFrequencyHz", "temperatureC"],
         defaultBasis: "characterization",
       },
@@ -168,6 +184,8 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
     notes: [
       "Conversion loss is P_in − P_out of the wanted 2nd-order output; suppression is P_wanted − P_order (positive below the wanted output).",
       "Per-port drive is the source power less the 3.01 dB split, splitter excess loss and cable loss. System impedance 50 Ω.",
+      "Conversion loss and suppression hold at the per-port drive in the Drive column: each unit's figure is read off its measured " +
+        "sweep by linear interpolation between the two drive steps around it. Each unit's optimum drive is its own row.",
       "Residual phase noise is single-sideband L(f) per IEEE Std 1139-2008; an ideal ×2 adds 6.02 dB.",
       "RMS jitter and phase integrate L(f) over the offset band printed beside them: φ_rms = √(2∫L(f)df), σ_t = φ_rms/(2π f_0).",
     ],
@@ -207,29 +225,32 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
     {
       id: "conversion-loss-vs-input-frequency",
       parameter: "conversion-loss",
-      match: { drive: "optimum" },
+      match: atDrive,
+      atStatedDrive: { curveId: "conversion-loss-vs-drive" },
       x: { key: "inputFrequencyHz", label: "Input frequency", unit: "Hz" },
       y: { label: "Conversion loss", unit: "dB" },
-      title: "Conversion loss at optimum drive vs input frequency",
+      title: `Conversion loss at ${statedDriveWords} vs input frequency`,
       caption: "Each line one unit, through its measured frequencies.",
     },
     {
       id: "fundamental-suppression-vs-input-frequency",
       parameter: "harmonic-suppression",
-      match: { order: 1, drive: "optimum" },
+      match: { order: 1, ...atDrive },
+      atStatedDrive: { curveId: "harmonic-suppression-vs-drive", series: "order 1" },
       x: { key: "inputFrequencyHz", label: "Input frequency", unit: "Hz" },
       y: { label: harmonicSuppressionLabel(1), unit: "dBc" },
-      title: "Fundamental suppression at optimum drive vs input frequency",
+      title: `Fundamental suppression at ${statedDriveWords} vs input frequency`,
       caption: "Each line one unit, through its measured frequencies.",
     },
     {
       id: "conversion-loss-vs-temperature",
       parameter: "conversion-loss",
-      match: { drive: "optimum" },
+      match: atDrive,
+      atStatedDrive: { curveId: "conversion-loss-vs-drive" },
       groupBy: ["inputFrequencyHz"],
       x: { key: "temperatureC", label: "Ambient temperature", unit: "°C" },
       y: { label: "Conversion loss", unit: "dB" },
-      title: "Conversion loss at optimum drive vs temperature",
+      title: `Conversion loss at ${statedDriveWords} vs temperature`,
       caption: "Each line one unit, through the temperatures it was measured at.",
     },
   ],
@@ -237,7 +258,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
     description:
       "A passive frequency doubler: the input drives both ports of a diode ring through a splitter, and the wanted " +
       "output is the second harmonic.",
-    features: "- Conversion loss at optimum drive, measured on every unit\n- Fundamental and harmonic suppression at optimum drive\n- Residual phase noise at decade offsets",
+    features: `- Conversion loss at ${statedDriveWords}, measured on every unit\n- Fundamental and harmonic suppression at ${statedDriveWords}\n- Residual phase noise at decade offsets`,
     applications: "- Local-oscillator chains\n- Frequency synthesis\n- Test equipment",
     handling: defaultHandlingProse,
     testFixture:

@@ -69,7 +69,7 @@ test("a unit outside a released limit raises an alert on the device page, which 
   const sheet = (await (await engineer.request.get(`/api/devices/${deviceId}/sheet`)).json()) as {
     sheet: { statistics: { groups: { groupId: string; parameter: string; conditionsKey: string; mean: { value: number } }[] } };
   };
-  const group = sheet.sheet.statistics.groups.find((g) => g.groupId.startsWith("conversion-loss-optimum:"))!;
+  const group = sheet.sheet.statistics.groups.find((g) => g.groupId.startsWith("conversion-loss-at-drive:"))!;
   expect((await engineer.request.put(`/api/devices/${deviceId}/sheet-content`, { data: { measurementUncertainty: { "conversion-loss": 0.1 } } })).status()).toBe(200);
   const limits = await engineer.request.put(`/api/devices/${deviceId}/spec-limits`, {
     data: { limits: [{ parameter: "conversion-loss", conditionsKey: group.conditionsKey, max: Math.round((group.mean.value + 0.8) * 100) / 100, unit: "dB", basis: "test" }] },

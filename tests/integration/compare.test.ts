@@ -59,9 +59,9 @@ describe("GET /api/v1/compare/csv", () => {
     expect(header[6]).toBe(`${partNumber} Rev. A`);
     expect(header[9]).toBe(`${partNumber} Rev. B`);
     expect(header).toHaveLength(13);
-    // The conversion loss of the doubler at its optimum drive, as each released model states it.
+    // The conversion loss of the doubler at +10 dBm per port, as each released model states it.
     const sheetA = (await (await anon.request(`/api/v1/sheets/${own("A")}`)).json()) as { sheet: { specifications: { rows: { rowId: string; typ: { text: string } }[] } } };
-    const typA = sheetA.sheet.specifications.rows.find((row) => row.rowId === "conversion-loss-optimum")!.typ.text;
+    const typA = sheetA.sheet.specifications.rows.find((row) => row.rowId === "conversion-loss-at-drive")!.typ.text;
     const cl = lines.find((l) => l[0] === "Conversion loss" && l[2] === "typ")!;
     expect(cl[3]).toBe("dB");
     expect(cl[4]).toBe("lower is better");

@@ -25,7 +25,7 @@ let deviceId: number;
 let releaseMean: number;
 let releaseSigma: number;
 const as = (who: Who) => clients.get(who)!;
-const groupKey = "drive=optimum;inputFrequencyHz=1000000000;temperatureC=25";
+const groupKey = "drive=10;inputFrequencyHz=1000000000;temperatureC=25";
 
 /** The example drive sweep as unit `serial`, its outputs lowered by `offsetDb`. */
 function unitFile(serial: string, offsetDb: number): Uint8Array<ArrayBuffer> {
@@ -81,7 +81,7 @@ beforeAll(async () => {
   const content = await as("engineer").request(`/api/devices/${deviceId}/sheet-content`, { method: "PUT", json: { measurementUncertainty: { "conversion-loss": 0.1 } } });
   expect(content.status, await content.clone().text()).toBe(200);
   const draft = (await (await as("engineer").request(`/api/devices/${deviceId}/sheet`)).json()) as { sheet: SheetModel };
-  const group = draft.sheet.statistics.groups.find((g) => g.groupId === `conversion-loss-optimum:${groupKey}`)!;
+  const group = draft.sheet.statistics.groups.find((g) => g.groupId === `conversion-loss-at-drive:${groupKey}`)!;
   expect(group.n).toBe(5);
   releaseMean = group.mean.value!;
   releaseSigma = group.standardDeviation.value!;

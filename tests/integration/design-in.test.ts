@@ -45,7 +45,7 @@ describe("the design-in endpoint", () => {
     expect(loss.spread.standardDeviation!).toBeCloseTo(expected.standardDeviation, 8);
     // BFD-0001 to BFD-0004 and lot L2410's BFD-0011 and BFD-0012 at 25 °C.
     expect(loss.spread.n).toBe(6);
-    expect(loss.limits[0]).toMatchObject({ rowId: "conversion-loss-optimum", maxText: "11", basis: "test" });
+    expect(loss.limits[0]).toMatchObject({ rowId: "conversion-loss-at-drive", maxText: "11", basis: "test" });
     expect(loss.limits[1]).toMatchObject({ rowId: "conversion-loss-over-temperature", maxText: "11.5", basis: "characterization" });
     const fundamental = answer.readings.find((r) => r.label === "Fundamental suppression")!;
     expect(fundamental.typical).toBeCloseTo(numpyAt("harmonic-suppression-vs-drive", "fundamental (×1)", 10).typical, 8);

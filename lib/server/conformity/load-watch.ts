@@ -1,6 +1,7 @@
 import "server-only";
 import { Op, type Transaction } from "sequelize";
 import type { SheetModel } from "@/lib/sheet";
+import type { Curve } from "@/lib/analysis/types";
 import type { WatchedSet } from "@/lib/sheet/conformity-watch";
 import type { SheetTemplate } from "@/templates/types";
 import { findSheetTemplate } from "@/templates";
@@ -37,7 +38,7 @@ export async function loadWatchInput(opts: { organizationId: number; deviceId: n
   if (!template) return null;
   const rows = await MeasurementSet.findAll({
     where: { organizationId, deviceId, state: "approved", supersededById: { [Op.is]: null }, reviewedAt: { [Op.gt]: newest.releasedAt } },
-    attributes: ["id", "kind", "conditions", "measuredOn", "parameters", "reviewedAt"],
+    attributes: ["id", "kind", "conditions", "measuredOn", "parameters", "curves", "reviewedAt"],
     order: [
       ["reviewedAt", "ASC"],
       ["id", "ASC"],
@@ -56,6 +57,7 @@ export async function loadWatchInput(opts: { organizationId: number; deviceId: n
       temperatureC: s.conditions.temperatureC,
       measuredOn: s.measuredOn ?? "",
       parameters: s.parameters,
+      curves: (s.curves ?? []) as Curve[],
     })),
   };
 }

@@ -229,7 +229,7 @@ describe("units and conditions", () => {
     const row = { rowId: "cl", parameter: "conversion-loss", label: "Conversion loss", unit: "dB" };
     const at = (hz: number, c: number, typ: string): Partial<SpecTableRow> => ({
       ...row,
-      conditionsKey: `drive=optimum;inputFrequencyHz=${hz};temperatureC=${c}`,
+      conditionsKey: `drive=10;inputFrequencyHz=${hz};temperatureC=${c}`,
       conditions: [`${hz / 1e9} GHz in`, `${c} °C`],
       typ: fig(typ),
     });

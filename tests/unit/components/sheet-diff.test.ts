@@ -5,9 +5,9 @@ import { SheetDiffView, type DiffAnchor } from "@/components/review/sheet-diff";
 import { buildSheetModel, diffSheetModels, rowMovedWithDataOnly, type SheetInput, type SpecLimitInput } from "@/lib/sheet";
 import { loadDoublerInput } from "../sheet/fixture";
 
-const CL_2GHZ = "drive=optimum;inputFrequencyHz=2000000000;temperatureC=25";
-const CL_3GHZ = "drive=optimum;inputFrequencyHz=3000000000;temperatureC=25";
-const HS1_2GHZ = "drive=optimum;inputFrequencyHz=2000000000;order=1;temperatureC=25";
+const CL_2GHZ = "drive=10;inputFrequencyHz=2000000000;temperatureC=25";
+const CL_3GHZ = "drive=10;inputFrequencyHz=3000000000;temperatureC=25";
+const HS1_2GHZ = "drive=10;inputFrequencyHz=2000000000;order=1;temperatureC=25";
 
 const base = loadDoublerInput();
 const revA = buildSheetModel({ ...base, revision: { ...base.revision, label: "A", state: "released" } });
@@ -21,7 +21,7 @@ function busyCandidate(): SheetInput {
     if (limit.parameter === "harmonic-suppression" && limit.conditionsKey === HS1_2GHZ) return { ...limit, typ: 32 };
     return limit;
   });
-  input.limits.push({ parameter: "conversion-loss", conditionsKey: "drive=optimum;inputFrequencyHz=5000000000;temperatureC=25", max: 13, unit: "dB", basis: "test" });
+  input.limits.push({ parameter: "conversion-loss", conditionsKey: "drive=10;inputFrequencyHz=5000000000;temperatureC=25", max: 13, unit: "dB", basis: "test" });
   input.prose.description = base.prose.description!.replace("passive frequency doubler", "rugged passive frequency multiplier");
   input.absoluteMaximumRatings = input.absoluteMaximumRatings.map((r) => (r.label === "RF input power, per port" ? { ...r, value: "+23" } : r));
   input.approvedSets = input.approvedSets.filter((s) => s.serial !== "HX-0101");

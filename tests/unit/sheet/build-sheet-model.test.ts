@@ -1,10 +1,12 @@
 import { describe, expect, it } from "vitest";
 import { buildSheetModel, serializeSheetModel, type SheetInput } from "@/lib/sheet";
 import { computeToleranceInterval } from "@/lib/stats";
-import { loadDoublerInput, shuffled } from "./fixture";
+import { readAtStatedDrive } from "@/lib/sheet/stated-drive";
+import { findSheetTemplate } from "@/templates";
+import { flatDriveCurves, loadDoublerInput, shuffled } from "./fixture";
 
-const CL_2GHZ = "drive=optimum;inputFrequencyHz=2000000000;temperatureC=25";
-const CL_3GHZ = "drive=optimum;inputFrequencyHz=3000000000;temperatureC=25";
+const CL_2GHZ = "drive=10;inputFrequencyHz=2000000000;temperatureC=25";
+const CL_3GHZ = "drive=10;inputFrequencyHz=3000000000;temperatureC=25";
 
 /** The fixture's values for one group, read straight from the sets (one per unit, 25 °C sets only). */
 function rawValues(input: SheetInput, name: string, conditions: Record<string, number | string>, temperatureC: number): number[] {
@@ -29,13 +31,16 @@ describe("buildSheetModel on the doubler fixture", () => {
   };
 
   it("computes n, mean, s, median, min, max by hand", () => {
-    const values = rawValues(input, "conversion-loss", { drive: "optimum", inputFrequencyHz: 2e9 }, 25);
+    // Each unit's figure at +10 dBm per port, read off its sweep (checked against numpy.interp in stated-drive.test.ts).
+    const clRow = findSheetTemplate("frequency-multiplier")!.specifications.rows.find((r) => r.id === "conversion-loss-at-drive")!;
+    const atDrive = { ...input, approvedSets: input.approvedSets.map((set) => ({ ...set, parameters: readAtStatedDrive(clRow, set).parameters })) };
+    const values = rawValues(atDrive, "conversion-loss", { drive: 10, inputFrequencyHz: 2e9 }, 25);
     expect(values).toHaveLength(10);
     const n = values.length;
     const mean = values.reduce((a, b) => a + b, 0) / n;
     const s = Math.sqrt(values.reduce((a, v) => a + (v - mean) ** 2, 0) / (n - 1));
     const sorted = [...values].sort((a, b) => a - b);
-    const g = group("conversion-loss-optimum", CL_2GHZ);
+    const g = group("conversion-loss-at-drive", CL_2GHZ);
     expect(g.n).toBe(10);
     expect(g.lots).toBe(2);
     expect(g.mean.value).toBeCloseTo(mean, 8);
@@ -49,7 +54,7 @@ describe("buildSheetModel on the doubler fixture", () => {
   });
 
   it("gives the exact two-sided tolerance interval (99 % coverage, 95 % confidence)", () => {
-    const g = group("conversion-loss-optimum", CL_2GHZ);
+    const g = group("conversion-loss-at-drive", CL_2GHZ);
     // Exact factor for n = 10, p = 0.99, γ = 0.95: 4.4369 (Berthouex & Brown Table 21.1 gives 4.44).
     expect(g.toleranceInterval?.factor.value).toBeCloseTo(4.4369, 3);
     const expected = computeToleranceInterval({
@@ -64,7 +69,7 @@ describe("buildSheetModel on the doubler fixture", () => {
   });
 
   it("flags a limit whose Cpk is below the threshold", () => {
-    const g = group("fundamental-suppression", "drive=optimum;inputFrequencyHz=2000000000;order=1;temperatureC=25");
+    const g = group("fundamental-suppression", "drive=10;inputFrequencyHz=2000000000;order=1;temperatureC=25");
     expect(g.cpk.value!).toBeLessThan(1.33);
     expect(g.flags.map((f) => f.code)).toContain("cpk-below-threshold");
     expect(g.supported).toBe(false);
@@ -72,7 +77,7 @@ describe("buildSheetModel on the doubler fixture", () => {
   });
 
   it("passes a well-supported limit without flags and states the guard-band rule", () => {
-    const g = group("conversion-loss-optimum", CL_2GHZ);
+    const g = group("conversion-loss-at-drive", CL_2GHZ);
     expect(g.flags).toEqual([]);
     expect(g.decisionRule).toBe("guard-band");
     expect(g.acceptance?.upper.value).toBeCloseTo(12 - 0.4, 10);
@@ -81,7 +86,7 @@ describe("buildSheetModel on the doubler fixture", () => {
   });
 
   it("fails every unit above the guard-banded limit (max − U) and flags the group", () => {
-    const g = group("conversion-loss-optimum", CL_3GHZ);
+    const g = group("conversion-loss-at-drive", CL_3GHZ);
     const acceptance = 11.5 - 0.4;
     const outside = g.units.filter((u) => u.value.value! > acceptance).map((u) => u.serial);
     expect(outside.length).toBeGreaterThan(0);
@@ -90,11 +95,11 @@ describe("buildSheetModel on the doubler fixture", () => {
   });
 
   it("prints limits, the measured mean as typ when none is stated, basis marks and footnotes", () => {
-    const row = model.specifications.rows.find((r) => r.groupId === `conversion-loss-optimum:${CL_3GHZ}`)!;
+    const row = model.specifications.rows.find((r) => r.groupId === `conversion-loss-at-drive:${CL_3GHZ}`)!;
     expect(row.max.text).toBe("11.5");
     expect(row.typIsMeasuredMean).toBe(true);
     expect(row.basisMark).toBe("T");
-    expect(row.conditions).toEqual(["3\u00a0GHz in", "optimum", "", "25\u00a0°C"]);
+    expect(row.conditions).toEqual(["3\u00a0GHz in", "+10\u00a0dBm per port", "", "25\u00a0°C"]);
     const marks = row.footnoteMarks.map((m) => model.specifications.footnotes.find((f) => f.mark === m)?.text);
     expect(marks).toContain("At 3 GHz input the limit applies to lots from L24-07 on.");
     const pn = model.specifications.rows.find((r) => r.rowId === "residual-phase-noise" && r.max.text)!;
@@ -160,7 +165,7 @@ describe("buildSheetModel on the doubler fixture", () => {
     const values = (chart.vegaLite as { data: { values: { x: number; y: number; unit: string }[] } }).data.values;
     expect(chart.caption).toContain("at 25\u00a0°C");
     for (const [key, xGhz] of [[CL_2GHZ, 2], [CL_3GHZ, 3]] as const) {
-      const g = group("conversion-loss-optimum", key);
+      const g = group("conversion-loss-at-drive", key);
       const drawn = values.filter((v) => v.x === xGhz);
       expect(drawn).toHaveLength(g.n);
       for (const unit of g.units) expect(drawn.find((v) => v.unit === unit.serial)?.y).toBeCloseTo(unit.value.value!, 4);
@@ -198,7 +203,7 @@ describe("decisions per unit", () => {
       const input: SheetInput = {
         ...base,
         approvedSets: [
-          { ...set, parameters: [{ name: "conversion-loss", value: c.value, unit: "dB", conditions: { drive: "optimum", inputFrequencyHz: 2e9 } }] },
+          { ...set, parameters: [{ name: "conversion-loss", value: c.value, unit: "dB", conditions: { drive: "optimum", inputFrequencyHz: 2e9 } }], curves: flatDriveCurves({ conversionLossDb: c.value }) },
         ],
         limits: [{ parameter: "conversion-loss", conditionsKey: CL_2GHZ, max: c.max, unit: "dB", basis: "test" }],
         settings: { ...base.settings, measurementUncertainty: c.u === undefined ? {} : { "conversion-loss": c.u } },

@@ -1,3 +1,4 @@
+import { flatDriveCurves } from "./fixture";
 import { describe, expect, it } from "vitest";
 import { findSheetTemplate } from "@/templates";
 import { assessConformity, controlChartData, findingsForSet, type WatchedSet } from "@/lib/sheet/conformity-watch";
@@ -10,7 +11,7 @@ import { doublerCandidateAndRelease } from "./released-fixture";
 // 10 kHz offset from a 4 GHz carrier.
 const { released } = doublerCandidateAndRelease();
 const template = findSheetTemplate("frequency-multiplier")!;
-const group2GHz = released.statistics.groups.find((g) => g.groupId === "conversion-loss-optimum:drive=optimum;inputFrequencyHz=2000000000;temperatureC=25")!;
+const group2GHz = released.statistics.groups.find((g) => g.groupId === "conversion-loss-at-drive:drive=10;inputFrequencyHz=2000000000;temperatureC=25")!;
 const centre = group2GHz.mean.value!;
 const sigma = group2GHz.standardDeviation.value!;
 
@@ -24,6 +25,7 @@ function newSet(index: number, conversionLossDb: number): WatchedSet {
     temperatureC: 25,
     measuredOn: "2026-12-10",
     parameters: [{ name: "conversion-loss", value: conversionLossDb, unit: "dB", conditions: { inputFrequencyHz: 2e9, drive: "optimum" } }],
+    curves: flatDriveCurves({ conversionLossDb }),
   };
 }
 /** The formatter puts a no-break space between a value and its unit. */
@@ -39,10 +41,10 @@ describe("the conformity watch against a released sheet", () => {
   it("reads the release's guaranteed limits, its decision rule and its key conditions", () => {
     const a = assess([]);
     expect(a.groups.map((g) => g.groupId)).toEqual([
-      "conversion-loss-optimum:drive=optimum;inputFrequencyHz=2000000000;temperatureC=25",
-      "conversion-loss-optimum:drive=optimum;inputFrequencyHz=3000000000;temperatureC=25",
-      "fundamental-suppression:drive=optimum;inputFrequencyHz=2000000000;order=1;temperatureC=25",
-      "third-harmonic-suppression:drive=optimum;inputFrequencyHz=2000000000;order=3;temperatureC=25",
+      "conversion-loss-at-drive:drive=10;inputFrequencyHz=2000000000;temperatureC=25",
+      "conversion-loss-at-drive:drive=10;inputFrequencyHz=3000000000;temperatureC=25",
+      "fundamental-suppression:drive=10;inputFrequencyHz=2000000000;order=1;temperatureC=25",
+      "third-harmonic-suppression:drive=10;inputFrequencyHz=2000000000;order=3;temperatureC=25",
       "residual-phase-noise:carrierFrequencyHz=4000000000;offsetHz=10000;temperatureC=25",
     ]);
     const cl = a.groups[0];
@@ -52,8 +54,8 @@ describe("the conformity watch against a released sheet", () => {
     // The key condition of conversion loss: of its two guaranteed groups (ten units each), the first.
     expect(a.charts.map((c) => c.groupId)).toEqual([
       cl.groupId,
-      "fundamental-suppression:drive=optimum;inputFrequencyHz=2000000000;order=1;temperatureC=25",
-      "third-harmonic-suppression:drive=optimum;inputFrequencyHz=2000000000;order=3;temperatureC=25",
+      "fundamental-suppression:drive=10;inputFrequencyHz=2000000000;order=1;temperatureC=25",
+      "third-harmonic-suppression:drive=10;inputFrequencyHz=2000000000;order=3;temperatureC=25",
       "residual-phase-noise:carrierFrequencyHz=4000000000;offsetHz=10000;temperatureC=25",
     ]);
     // Centre and sigma are the release's mean and s (n − 1) as the annex states them.
@@ -78,7 +80,7 @@ describe("the conformity watch against a released sheet", () => {
     // The same unit is also 5σ above the release mean: Nelson's test 1 signals with it.
     expect(kinds).toEqual(["outside-limit", "test 1"]);
     expect(plain(found[2][0].message)).toBe(
-      "Unit HX-9002 (set #1002): Conversion loss at Frequency 2 GHz in, Drive optimum, T_A 25 °C reads 11.7 dB, outside the guaranteed max 12 dB (accepted up to 11.6 dB, guarded acceptance w = U).",
+      "Unit HX-9002 (set #1002): Conversion loss at Frequency 2 GHz in, Drive +10 dBm per port, T_A 25 °C reads 11.7 dB, outside the guaranteed max 12 dB (accepted up to 11.6 dB, guarded acceptance w = U).",
     );
     expect(assess(sets).groups[0]).toMatchObject({ insideCount: 3, outsideCount: 1 });
     // 11.5 dB is accepted (below 11.6 dB).
@@ -89,7 +91,7 @@ describe("the conformity watch against a released sheet", () => {
     const found = findingsPerSet(setsAt([0.4, 0.6, 0.2, 0.9, 0.5, 0.3, 0.7, 0.4, 0.6]));
     expect(found.slice(0, 8).flat()).toEqual([]);
     expect(found[8].map((f) => f.kind === "run-rule" && f.rule)).toEqual([2]);
-    expect(plain(found[8][0].message)).toMatch(/^Conversion loss at Frequency 2 GHz in, Drive optimum, T_A 25 °C: Nelson test 2, nine points in a row on one side of the centre line, ends at unit HX-9008 \(set #1008\)/);
+    expect(plain(found[8][0].message)).toMatch(/^Conversion loss at Frequency 2 GHz in, Drive \+10 dBm per port, T_A 25 °C: Nelson test 2, nine points in a row on one side of the centre line, ends at unit HX-9008 \(set #1008\)/);
   });
 
   it("a trend of six signals at the sixth unit", () => {
@@ -99,7 +101,7 @@ describe("the conformity watch against a released sheet", () => {
   });
 
   it("counts a set that measured nothing of a group nowhere", () => {
-    const other: WatchedSet = { ...newSet(0, 10), parameters: [{ name: "conversion-loss", value: 30, unit: "dB", conditions: { inputFrequencyHz: 1e9, drive: "optimum" } }] };
+    const other: WatchedSet = { ...newSet(0, 10), parameters: [{ name: "conversion-loss", value: 30, unit: "dB", conditions: { inputFrequencyHz: 1e9, drive: "optimum" } }], curves: flatDriveCurves({ conversionLossDb: 30 }) };
     const a = assess([other]);
     expect(a.groups.every((g) => g.units.length === 0)).toBe(true);
     expect(findingsForSet(a, other.id)).toEqual([]);

@@ -51,7 +51,7 @@ describe("the device's stated band against the bands the sheet specifies", () =>
   const multiplier = frequencyMultiplierTemplate;
   const mixer = doubleBalancedMixerTemplate;
   const hybrid = quadratureHybridTemplate;
-  const spot = (hz: number, rowId = "conversion-loss-optimum") => group({ rowId, conditionsKey: `drive=optimum;inputFrequencyHz=${hz};temperatureC=25`, lots: ["A"] });
+  const spot = (hz: number, rowId = "conversion-loss-at-drive") => group({ rowId, conditionsKey: `drive=10;inputFrequencyHz=${hz};temperatureC=25`, lots: ["A"] });
   const band = (startHz: number, stopHz: number, rowId = "insertion-loss-through") =>
     group({ rowId, conditionsKey: `path=S21;startHz=${startHz};statistic=worst;stopHz=${stopHz};temperatureC=25`, lots: ["A"] });
 

@@ -72,7 +72,7 @@ function handModel(): SheetModel {
     header: { ...base.header, partNumber: "HAND-1" },
     charts: [chart],
     specifications: { ...base.specifications, rows: [] },
-    statistics: { ...base.statistics, groups: [{ ...base.statistics.groups[0], conditionsKey: "drive=optimum;inputFrequencyHz=2000000000;temperatureC=25" }] },
+    statistics: { ...base.statistics, groups: [{ ...base.statistics.groups[0], conditionsKey: "drive=10;inputFrequencyHz=2000000000;temperatureC=25" }] },
   };
 }
 
@@ -112,13 +112,20 @@ describe("design-in on the demo sheets", () => {
     expect(read.curves.curves.map((c) => c.label)).toEqual(["Conversion loss", "Fundamental suppression", "3rd harmonic suppression", "4th harmonic suppression"]);
   });
 
-  it("KDX-2G4: the guaranteed limits beside the reading, stated at optimum drive", () => {
+  it("KDX-2G4: the guaranteed limits beside the reading, stated at +10 dBm per port and marked at another drive", () => {
     const answer = answered(demoModel("KDX-2G4"), { driveDbm: 10, frequencyHz: 1e9 });
     const loss = answer.readings.find((r) => r.id === "conversion-loss")!;
     // The 25 °C production limit and the maximum characterized over −40 to +85 °C, a span that holds 25 °C.
     expect(loss.limits).toHaveLength(2);
-    expect(loss.limits[0]).toMatchObject({ rowId: "conversion-loss-optimum", maxText: "11", basis: "test", driveDiffers: true });
-    expect(loss.limits[1]).toMatchObject({ rowId: "conversion-loss-over-temperature", maxText: "11.5", basis: "characterization", driveDiffers: true });
+    expect(loss.limits[0]).toMatchObject({ rowId: "conversion-loss-at-drive", maxText: "11", basis: "test", driveDiffers: false });
+    expect(loss.limits[0].conditionsText.replace(/\u00a0/g, " ")).toContain("Drive +10 dBm per port");
+    expect(loss.limits[1]).toMatchObject({ rowId: "conversion-loss-over-temperature", maxText: "11.5", basis: "characterization", driveDiffers: false });
+    // At +12 dBm the same rows apply, marked as stated at their own drive.
+    const at12 = answered(demoModel("KDX-2G4"), { driveDbm: 12, frequencyHz: 1e9 }).readings.find((r) => r.id === "conversion-loss")!;
+    expect(at12.limits.map((l) => [l.rowId, l.driveDiffers])).toEqual([
+      ["conversion-loss-at-drive", true],
+      ["conversion-loss-over-temperature", true],
+    ]);
     const fundamental = answer.readings.find((r) => r.label === "Fundamental suppression")!;
     expect(fundamental.limits[0]).toMatchObject({ rowId: "fundamental-suppression", minText: "22" });
   });

@@ -17,14 +17,14 @@ import type { SheetTemplate } from "@/templates/types";
 import { loadDoublerInput, shuffled } from "./fixture";
 
 const NBSP = "\u00a0";
-const CL_2GHZ = "drive=optimum;inputFrequencyHz=2000000000;temperatureC=25";
-const CL_3GHZ = "drive=optimum;inputFrequencyHz=3000000000;temperatureC=25";
+const CL_2GHZ = "drive=10;inputFrequencyHz=2000000000;temperatureC=25";
+const CL_3GHZ = "drive=10;inputFrequencyHz=3000000000;temperatureC=25";
 /** No unit was measured at 5 or 6 GHz: a limit there makes a row of its own. */
-const CL_5GHZ = "drive=optimum;inputFrequencyHz=5000000000;temperatureC=25";
-const CL_6GHZ = "drive=optimum;inputFrequencyHz=6000000000;temperatureC=25";
-const HS1_2GHZ = "drive=optimum;inputFrequencyHz=2000000000;order=1;temperatureC=25";
-const CL_ROW = "conversion-loss-optimum";
-const CL_2GHZ_NAME = `Conversion loss (Frequency 2${NBSP}GHz in, Drive optimum, T_A 25${NBSP}°C)`;
+const CL_5GHZ = "drive=10;inputFrequencyHz=5000000000;temperatureC=25";
+const CL_6GHZ = "drive=10;inputFrequencyHz=6000000000;temperatureC=25";
+const HS1_2GHZ = "drive=10;inputFrequencyHz=2000000000;order=1;temperatureC=25";
+const CL_ROW = "conversion-loss-at-drive";
+const CL_2GHZ_NAME = `Conversion loss (Frequency 2${NBSP}GHz in, Drive +10${NBSP}dBm per port, T_A 25${NBSP}°C)`;
 
 const base = loadDoublerInput();
 /** The released revision A: the fixture as it stands. */
@@ -152,11 +152,11 @@ describe("diffSheetModels: spec-table limits", () => {
 
     const added = diffSheetModels(revA, withRow);
     expect(rowChange(added, `${CL_ROW}:${CL_5GHZ}`)).toMatchObject({ kind: "added", previous: null, fields: [] });
-    expect(summaryLines(added)).toEqual([`Added: Conversion loss (Frequency 5${NBSP}GHz in, Drive optimum, T_A 25${NBSP}°C): max 13${NBSP}dB`]);
+    expect(summaryLines(added)).toEqual([`Added: Conversion loss (Frequency 5${NBSP}GHz in, Drive +10${NBSP}dBm per port, T_A 25${NBSP}°C): max 13${NBSP}dB`]);
 
     const removed = diffSheetModels(withRow, revA);
     expect(rowChange(removed, `${CL_ROW}:${CL_5GHZ}`)).toMatchObject({ kind: "removed", next: null });
-    expect(summaryLines(removed)).toEqual([`Removed: Conversion loss (Frequency 5${NBSP}GHz in, Drive optimum, T_A 25${NBSP}°C)`]);
+    expect(summaryLines(removed)).toEqual([`Removed: Conversion loss (Frequency 5${NBSP}GHz in, Drive +10${NBSP}dBm per port, T_A 25${NBSP}°C)`]);
 
     // All five kinds at once: 3 GHz max loosened, 2 GHz max tightened, 5 GHz added, 6 GHz removed, HS1 typ changed.
     const all = withLimits(

@@ -17,3 +17,25 @@ export function shuffled<T>(items: readonly T[], seed: number): T[] {
   }
   return out;
 }
+
+/**
+ * A drive sweep's stored curves that read `values` (by curve id and series) at every drive from +5 to
+ * +15 dBm per port: a constructed set's figure at the multiplier's stated drive (+10 dBm) is the value itself.
+ */
+export function flatDriveCurves(values: { conversionLossDb?: number; suppressionDbc?: Record<number, number> }) {
+  const flat = (y: number): [number, number][] => [[5, y], [15, y]];
+  const curves = [];
+  if (values.conversionLossDb !== undefined) {
+    curves.push({ id: "conversion-loss-vs-drive", title: "", x: { label: "Per-port drive", unit: "dBm", scale: "linear" as const }, y: { label: "Conversion loss", unit: "dB" }, series: [{ name: "order 2", points: flat(values.conversionLossDb) }] });
+  }
+  if (values.suppressionDbc) {
+    curves.push({
+      id: "harmonic-suppression-vs-drive",
+      title: "",
+      x: { label: "Per-port drive", unit: "dBm", scale: "linear" as const },
+      y: { label: "Suppression", unit: "dBc" },
+      series: Object.entries(values.suppressionDbc).map(([order, y]) => ({ name: `order ${order}`, points: flat(y) })),
+    });
+  }
+  return curves;
+}

@@ -1,3 +1,4 @@
+import { flatDriveCurves } from "./fixture";
 import { execFileSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
 import { buildSheetModel, type ApprovedSetInput, type SheetInput } from "@/lib/sheet";
@@ -6,7 +7,7 @@ import { optimumDriveShiftDb } from "@/models/seeders/demo-catalog-curves";
 
 /**
  * Rows over temperature and charts against temperature, on a constructed doubler: unit A at −40, +25
- * and +85 °C, unit B at +25 and +85 °C (lot L2), unit C at +25 °C only. Conversion loss at optimum drive
+ * and +85 °C, unit B at +25 and +85 °C (lot L2), unit C at +25 °C only. Conversion loss at the stated drive (+10 dBm per port)
  * (dB): A 9.1 / 9.5 / 10.2, B 9.8 / 10.6, C 9.4.
  */
 const readings: [serial: string, lot: string, temperatureC: number, lossDb: number][] = [
@@ -27,12 +28,12 @@ function set(id: number, [serial, lot, temperatureC, lossDb]: (typeof readings)[
     temperatureC,
     measuredOn: "2026-10-01",
     parameters: [{ name: "conversion-loss", value: lossDb, unit: "dB", conditions: { drive: "optimum", inputFrequencyHz: 1e9 } }],
-    curves: [],
+    curves: flatDriveCurves({ conversionLossDb: lossDb }),
     instruments: [],
   };
 }
 
-const overRange = "drive=optimum;inputFrequencyHz=1000000000;temperatureMaxC=85;temperatureMinC=-40";
+const overRange = "drive=10;inputFrequencyHz=1000000000;temperatureMaxC=85;temperatureMinC=-40";
 
 function input(sets: ApprovedSetInput[], limits: SheetInput["limits"] = []): SheetInput {
   return {
@@ -75,14 +76,14 @@ describe("a row over temperature", () => {
   });
 
   it("keeps the rows at each temperature; without a limit nothing is screened, so none claims basis test", () => {
-    const atEach = model.specifications.rows.filter((r) => r.rowId === "conversion-loss-optimum");
+    const atEach = model.specifications.rows.filter((r) => r.rowId === "conversion-loss-at-drive");
     expect(atEach.map((r) => [r.conditions.at(-1), r.n, r.basis])).toEqual([
       ["−40\u00a0°C", 1, "characterization"],
       ["25\u00a0°C", 3, "characterization"],
       ["85\u00a0°C", 2, "characterization"],
     ]);
-    const tested = buildSheetModel(input(readings.map((r, i) => set(i + 1, r)), [{ parameter: "conversion-loss", conditionsKey: "drive=optimum;inputFrequencyHz=1000000000;temperatureC=25", max: 11, unit: "dB", basis: "test" }]));
-    expect(tested.specifications.rows.find((r) => r.rowId === "conversion-loss-optimum" && r.conditionsKey.endsWith("temperatureC=25"))!.basis).toBe("test");
+    const tested = buildSheetModel(input(readings.map((r, i) => set(i + 1, r)), [{ parameter: "conversion-loss", conditionsKey: "drive=10;inputFrequencyHz=1000000000;temperatureC=25", max: 11, unit: "dB", basis: "test" }]));
+    expect(tested.specifications.rows.find((r) => r.rowId === "conversion-loss-at-drive" && r.conditionsKey.endsWith("temperatureC=25"))!.basis).toBe("test");
   });
 
   it("is left out when every set is at one temperature", () => {
@@ -106,7 +107,7 @@ describe("a chart against temperature", () => {
   it("draws one line per unit through its temperatures and states the lowest and highest value drawn", () => {
     const { lowest, highest } = pythonReference();
     expect(chart.unitCount).toBe(3);
-    expect(chart.caption).toContain("Frequency 1\u00a0GHz in, Drive optimum");
+    expect(chart.caption).toContain("Frequency 1\u00a0GHz in, Drive +10\u00a0dBm per port");
     expect(chart.caption).toContain(`Over −40 to +85\u00a0°C: lowest ${String(lowest)}\u00a0dB, highest ${String(highest)}\u00a0dB.`);
   });
 

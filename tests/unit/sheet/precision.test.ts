@@ -6,9 +6,9 @@ import { computeGroupStatistics, type UnitValue } from "@/lib/sheet/statistics";
 import type { SpecLimitInput } from "@/lib/sheet/types";
 import { specLimitsBodySchema } from "@/lib/schemas/sheets";
 import { checkLimitDrafts, draftOf, type EditorRow } from "@/components/sheets/spec-limits-state";
-import { loadDoublerInput } from "./fixture";
+import { flatDriveCurves, loadDoublerInput } from "./fixture";
 
-const CL_2GHZ = "drive=optimum;inputFrequencyHz=2000000000;temperatureC=25";
+const CL_2GHZ = "drive=10;inputFrequencyHz=2000000000;temperatureC=25";
 
 function units(values: number[]): UnitValue[] {
   return values.map((value, i) => ({ serial: `U-${i + 1}`, lot: "L1", setId: String(i + 1), value }));
@@ -53,7 +53,7 @@ describe("a limit prints with the digits the engineer typed", () => {
       limits: [...base.limits.filter((l) => !(l.parameter === limit.parameter && l.conditionsKey === limit.conditionsKey)), limit],
     });
     const typed = buildSheetModel(withLimit({ ...maxLimit(12), min: 9.5, decimals: { min: 1, max: 1 } }));
-    const row = typed.specifications.rows.find((r) => r.rowId === "conversion-loss-optimum" && r.conditionsKey === CL_2GHZ)!;
+    const row = typed.specifications.rows.find((r) => r.rowId === "conversion-loss-at-drive" && r.conditionsKey === CL_2GHZ)!;
     expect([row.min.text, row.max.text]).toEqual(["9.5", "12.0"]);
     const group = typed.statistics.groups.find((g) => g.groupId === row.groupId)!;
     expect([group.limits?.min.text, group.limits?.max.text]).toEqual(["9.5", "12.0"]);
@@ -111,6 +111,7 @@ describe("a typical value taken from the units prints with the digits their spre
       id: 9000 + i,
       serial: `P-${i}`,
       parameters: [{ name: "conversion-loss", value, unit: "dB", conditions: { drive: "optimum", inputFrequencyHz: 2e9 } }],
+      curves: flatDriveCurves({ conversionLossDb: value }),
     }));
     const measured = buildSheetModel({ ...base, approvedSets: sets, limits: [] });
     const row = measured.specifications.rows.find((r) => r.conditionsKey === CL_2GHZ)!;
