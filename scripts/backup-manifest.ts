@@ -1,3 +1,6 @@
+import { createHash } from "node:crypto";
+import { createReadStream } from "node:fs";
+
 /** What npm run backup writes beside the dump and npm run restore reads (scripts/backup.ts, scripts/restore.ts). */
 export const BACKUP_FORMAT = "benchfold-backup/1";
 
@@ -49,4 +52,15 @@ export function parseManifest(text: string): BackupManifest {
     }
   });
   return m;
+}
+
+/** A file's SHA-256 and size, read as a stream (a dump may be larger than memory should hold). */
+export async function sha256File(file: string): Promise<{ sha256: string; sizeBytes: number }> {
+  const hash = createHash("sha256");
+  let sizeBytes = 0;
+  for await (const chunk of createReadStream(file)) {
+    hash.update(chunk as Buffer);
+    sizeBytes += (chunk as Buffer).length;
+  }
+  return { sha256: hash.digest("hex"), sizeBytes };
 }

@@ -14,28 +14,17 @@
  * good). Settings: DB_* as the app (scripts/lib.sh), S3_* (lib/server/storage/storage-config.ts).
  */
 import { spawn } from "node:child_process";
-import { createHash } from "node:crypto";
-import { createReadStream, createWriteStream, mkdirSync, writeFileSync } from "node:fs";
+import { createWriteStream, mkdirSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { QueryTypes } from "sequelize";
 import { createS3ObjectStore, readVerified } from "../lib/server/storage/object-store";
 import { readStorageSettings } from "../lib/server/storage/storage-config";
 import { createSequelize, readDatabaseSettings } from "../models/connection";
-import { BACKUP_FORMAT, type BackupManifest, referencedObjects } from "./backup-manifest";
+import { BACKUP_FORMAT, type BackupManifest, referencedObjects, sha256File } from "./backup-manifest";
 
 function argument(name: string): string | undefined {
   const i = process.argv.indexOf(name);
   return i >= 0 ? process.argv[i + 1] : undefined;
-}
-
-async function sha256File(file: string): Promise<{ sha256: string; sizeBytes: number }> {
-  const hash = createHash("sha256");
-  let sizeBytes = 0;
-  for await (const chunk of createReadStream(file)) {
-    hash.update(chunk as Buffer);
-    sizeBytes += (chunk as Buffer).length;
-  }
-  return { sha256: hash.digest("hex"), sizeBytes };
 }
 
 function dumpDatabase(file: string, settings: ReturnType<typeof readDatabaseSettings>): Promise<void> {

@@ -11,7 +11,6 @@
  * database refers to is read back from the store and checked against its recorded SHA-256.
  */
 import { spawn, spawnSync } from "node:child_process";
-import { createHash } from "node:crypto";
 import { createReadStream, existsSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { createInterface } from "node:readline";
@@ -19,17 +18,7 @@ import { QueryTypes } from "sequelize";
 import { createS3ObjectStore, readVerified, sha256Hex } from "../lib/server/storage/object-store";
 import { readStorageSettings } from "../lib/server/storage/storage-config";
 import { createSequelize, readDatabaseSettings, type DatabaseSettings } from "../models/connection";
-import { parseManifest, referencedObjects } from "./backup-manifest";
-
-async function sha256File(file: string): Promise<{ sha256: string; sizeBytes: number }> {
-  const hash = createHash("sha256");
-  let sizeBytes = 0;
-  for await (const chunk of createReadStream(file)) {
-    hash.update(chunk as Buffer);
-    sizeBytes += (chunk as Buffer).length;
-  }
-  return { sha256: hash.digest("hex"), sizeBytes };
-}
+import { parseManifest, referencedObjects, sha256File } from "./backup-manifest";
 
 const isLoopback = (host: string) => host === "localhost" || host === "::1" || host.startsWith("127.");
 

@@ -203,8 +203,12 @@ test("engineer: prose full of script payloads is shown as text and runs nothing;
     const found = await webSheet.evaluate((root) => {
       const sheet = root.querySelector("article.sheet-view")!;
       const handlers = Array.from(sheet.querySelectorAll("*")).filter((el) => Array.from(el.attributes).some((a) => /^on/i.test(a.name)));
-      const badLinks = Array.from(sheet.querySelectorAll("[href], [src], [action], [data], [srcdoc]")).filter((el) =>
-        ["href", "src", "action", "data", "srcdoc"].some((name) => /^\s*(javascript|data|vbscript):|<script/i.test(el.getAttribute(name) ?? "")),
+      // The package outline is the server's own PNG (signature checked, or rasterised from a checked SVG), carried as a
+      // data URI in the frozen model: the one data: source allowed, and only as a PNG in that section.
+      const ownOutline = (el: Element) =>
+        el.matches('section[aria-labelledby="sheet-package-outline"] img') && /^data:image\/png;base64,[A-Za-z0-9+/=]+$/.test(el.getAttribute("src") ?? "");
+      const badLinks = Array.from(sheet.querySelectorAll("[href], [src], [action], [data], [srcdoc]")).filter(
+        (el) => !ownOutline(el) && ["href", "src", "action", "data", "srcdoc"].some((name) => /^\s*(javascript|data|vbscript):|<script/i.test(el.getAttribute(name) ?? "")),
       );
       return {
         scripts: sheet.querySelectorAll("script").length,
