@@ -2,6 +2,7 @@ import "server-only";
 import { AppError } from "@/lib/errors";
 import { uploadFieldsSchema, type UploadFields } from "@/lib/schemas/measurements";
 import { formatByteSize } from "@/lib/format";
+import { readMultipartFile } from "../multipart-file";
 
 /** Largest measurement file accepted, in bytes (BENCHFOLD_MAX_UPLOAD_BYTES overrides). */
 export function maxUploadBytes(): number {
@@ -19,25 +20,12 @@ export async function readUploadForm(
   extraKeys: readonly string[] = [],
 ): Promise<{ file: UploadedFile; fields: UploadFields; extra: Record<string, string> }> {
   const limit = maxUploadBytes();
-  const declared = Number(request.headers.get("content-length") ?? NaN);
-  // The multipart envelope adds a little around the file.
-  if (Number.isFinite(declared) && declared > limit + 64 * 1024) {
-    throw new AppError("payload-too-large", `The upload is ${formatByteSize(declared)}; the limit is ${formatByteSize(limit)} per file.`);
-  }
-  if (!(request.headers.get("content-type") ?? "").includes("multipart/form-data")) {
-    throw new AppError("unsupported-media-type", "Send the file as multipart/form-data with a field named \"file\".");
-  }
-  let form: FormData;
-  try {
-    form = await request.formData();
-  } catch {
-    throw new AppError("bad-request", "The multipart body could not be read.");
-  }
-  const file = form.get("file");
-  if (!(file instanceof File)) throw new AppError("invalid", "Attach the measurement file in a field named \"file\".", { field: "file" });
-  if (file.size > limit) {
-    throw new AppError("payload-too-large", `${file.name} is ${formatByteSize(file.size)}; the limit is ${formatByteSize(limit)} per file.`);
-  }
+  const { form, file } = await readMultipartFile(request, {
+    limitBytes: limit,
+    envelopeBytes: 64 * 1024,
+    what: "the measurement file",
+    limitWords: `the limit is ${formatByteSize(limit)} per file`,
+  });
   const raw: Record<string, unknown> = {};
   const extra: Record<string, string> = {};
   for (const [key, value] of form.entries()) {

@@ -9,6 +9,7 @@ import { recordAuditEvent } from "../audit/record-audit-event";
 import { authorize } from "../auth/authorize";
 import type { SessionUser } from "../auth/session-user";
 import { lockOwnRow } from "../auth/own-row";
+import { readMultipartFile } from "../multipart-file";
 import { refreshOpenCandidates } from "../reviews/freshness";
 import { findOrCreateSheetContent } from "./save-design-data";
 import { storeFile } from "../storage/store-file";
@@ -19,22 +20,12 @@ export { outlinePng, type OutlineUpload };
 /** Reads the multipart upload of a drawing: one `file`, within the size limit (checked before and after buffering). */
 export async function readOutlineUpload(request: Request): Promise<OutlineUpload> {
   const limit = packageOutlineLimits.uploadBytes;
-  const declared = Number(request.headers.get("content-length") ?? NaN);
-  if (Number.isFinite(declared) && declared > limit + 16 * 1024) {
-    throw new AppError("payload-too-large", `The upload is ${formatByteSize(declared)}; a package outline may be at most ${formatByteSize(limit)}.`);
-  }
-  if (!(request.headers.get("content-type") ?? "").includes("multipart/form-data")) {
-    throw new AppError("unsupported-media-type", 'Send the drawing as multipart/form-data with a field named "file".');
-  }
-  let form: FormData;
-  try {
-    form = await request.formData();
-  } catch {
-    throw new AppError("bad-request", "The multipart body could not be read.");
-  }
-  const file = form.get("file");
-  if (!(file instanceof File)) throw new AppError("invalid", 'Attach the drawing (SVG or PNG) in a field named "file".', { field: "file" });
-  if (file.size > limit) throw new AppError("payload-too-large", `${file.name} is ${formatByteSize(file.size)}; a package outline may be at most ${formatByteSize(limit)}.`, { field: "file" });
+  const { file } = await readMultipartFile(request, {
+    limitBytes: limit,
+    envelopeBytes: 16 * 1024,
+    what: "the drawing (SVG or PNG)",
+    limitWords: `a package outline may be at most ${formatByteSize(limit)}`,
+  });
   if (file.size === 0) throw new AppError("invalid", `${file.name} is empty.`, { field: "file" });
   return { name: file.name || "outline", bytes: new Uint8Array(await file.arrayBuffer()) };
 }
