@@ -3,7 +3,7 @@ import type { RevisionSummary } from "@/lib/domain/reviews";
 import { closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { clientsByRole, makeOrganization, type Who } from "./helpers/factories";
-import { addApprovedSet, deviceWithApprovedData, releaseSheet } from "./helpers/reviews";
+import { releaseTwoRevisions } from "./helpers/reviews";
 
 // GET /api/v1/compare/csv and the /compare page over HTTP: a part's two revisions released here,
 // and the demo's released hybrids (scripts/seed-demo-releases.ts runs before the integration tests).
@@ -19,11 +19,7 @@ const as = (who: Who) => clients.get(who)!;
 beforeAll(async () => {
   org = await makeOrganization();
   clients = await clientsByRole(org);
-  const deviceId = await deviceWithApprovedData(org.organization.id, as("engineer"), as("reviewer"));
-  revA = await releaseSheet(as("engineer"), as("reviewer"), deviceId, "First lot.");
-  partNumber = decodeURIComponent(revA.publicPath.split("/")[3]);
-  await addApprovedSet(deviceId, as("engineer"), as("reviewer"), "docs/drive-sweep-doubler-unit-6.csv");
-  revB = await releaseSheet(as("engineer"), as("reviewer"), deviceId, "Second lot added.");
+  ({ partNumber, revA, revB } = await releaseTwoRevisions(org.organization.id, as("engineer"), as("reviewer")));
 }, 180_000);
 afterAll(() => closeDb());
 

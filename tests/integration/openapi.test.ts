@@ -4,7 +4,7 @@ import { closeDb } from "@/models";
 import { openApiValidator } from "../helpers/openapi-validator";
 import { TestClient } from "./helpers/client";
 import { clientsByRole, makeDevice, makeOrganization, type Who } from "./helpers/factories";
-import { addApprovedSet, deviceWithApprovedData, releaseSheet } from "./helpers/reviews";
+import { releaseTwoRevisions } from "./helpers/reviews";
 import { fixtureUpload } from "./helpers/uploads";
 
 // The running server's answers, successes and refusals alike, against the OpenAPI document it
@@ -34,11 +34,7 @@ async function expectDocumented(pathTemplate: string, method: string, response: 
 beforeAll(async () => {
   org = await makeOrganization();
   clients = await clientsByRole(org);
-  const deviceId = await deviceWithApprovedData(org.organization.id, as("engineer"), as("reviewer"));
-  revA = await releaseSheet(as("engineer"), as("reviewer"), deviceId, "First lot.");
-  partNumber = decodeURIComponent(revA.publicPath.split("/")[3]);
-  await addApprovedSet(deviceId, as("engineer"), as("reviewer"), "docs/drive-sweep-doubler-unit-6.csv");
-  revB = await releaseSheet(as("engineer"), as("reviewer"), deviceId, "Second lot added.");
+  ({ partNumber, revA, revB } = await releaseTwoRevisions(org.organization.id, as("engineer"), as("reviewer")));
   const withdrawn = await as("reviewer").request(`/api/sheet-revisions/${revA.id}/withdraw`, { json: { reason: "Wrong lot printed on page 2." } });
   expect(withdrawn.status, await withdrawn.clone().text()).toBe(200);
 

@@ -5,7 +5,7 @@ import type { VerifyAnswer } from "@/lib/domain/verify";
 import { closeDb } from "@/models";
 import { TestClient } from "./helpers/client";
 import { clientsByRole, makeOrganization, type Who } from "./helpers/factories";
-import { addApprovedSet, deviceWithApprovedData, releaseSheet } from "./helpers/reviews";
+import { releaseTwoRevisions } from "./helpers/reviews";
 
 let org: Awaited<ReturnType<typeof makeOrganization>>;
 let clients: Map<Who, TestClient>;
@@ -23,11 +23,7 @@ async function verify(query: string): Promise<{ status: number; body: { verifica
 beforeAll(async () => {
   org = await makeOrganization();
   clients = await clientsByRole(org);
-  const deviceId = await deviceWithApprovedData(org.organization.id, as("engineer"), as("reviewer"));
-  revA = await releaseSheet(as("engineer"), as("reviewer"), deviceId, "First lot.");
-  partNumber = decodeURIComponent(revA.publicPath.split("/")[3]);
-  await addApprovedSet(deviceId, as("engineer"), as("reviewer"), "docs/drive-sweep-doubler-unit-6.csv");
-  revB = await releaseSheet(as("engineer"), as("reviewer"), deviceId, "Second lot added.");
+  ({ partNumber, revA, revB } = await releaseTwoRevisions(org.organization.id, as("engineer"), as("reviewer")));
 }, 180_000);
 afterAll(() => closeDb());
 

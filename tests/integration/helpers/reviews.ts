@@ -61,3 +61,20 @@ export async function releaseSheet(engineer: TestClient, reviewer: TestClient, d
   expect(released.status, await released.clone().text()).toBe(201);
   return ((await released.json()) as { revision: RevisionSummary }).revision;
 }
+
+/**
+ * A device of the organization released twice: A from its first approved set, then B once a second
+ * unit's set is approved. The part number is the one in the public address.
+ */
+export async function releaseTwoRevisions(
+  organizationId: number,
+  engineer: TestClient,
+  reviewer: TestClient,
+): Promise<{ deviceId: number; partNumber: string; revA: RevisionSummary; revB: RevisionSummary }> {
+  const deviceId = await deviceWithApprovedData(organizationId, engineer, reviewer);
+  const revA = await releaseSheet(engineer, reviewer, deviceId, "First lot.");
+  const partNumber = decodeURIComponent(revA.publicPath.split("/")[3]);
+  await addApprovedSet(deviceId, engineer, reviewer, "docs/drive-sweep-doubler-unit-6.csv");
+  const revB = await releaseSheet(engineer, reviewer, deviceId, "Second lot added.");
+  return { deviceId, partNumber, revA, revB };
+}
