@@ -1,5 +1,5 @@
-import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type Page } from "@playwright/test";
+import { expectAccessible } from "./helpers";
 
 // The public catalog as a signed-out visitor uses it: conditions typed as an engineer writes them,
 // the search kept in the address, the facets, and a clear message for a condition it cannot read.
@@ -66,13 +66,6 @@ test("one vendor's demo parts, counted per class in the facet; a hybrid found by
   await expect(page.getByTestId("catalog-results").getByRole("link", { name: "KQH-3G5", exact: true })).toHaveAttribute("href", "/datasheets/kestrine/KQH-3G5/A");
   await expect(page.getByTestId("catalog-results").getByRole("link", { name: "KQH-2G", exact: true })).toHaveCount(0);
 });
-
-/** WCAG 2.x A and AA rules of axe-core on the whole page: no violation. */
-async function expectAccessible(page: Page, what: string): Promise<void> {
-  const results = await new AxeBuilder({ page }).include("main").withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
-  const found = results.violations.map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
-  expect(found, `axe-core on ${what}`).toEqual([]);
-}
 
 test("is accessible: the search form, the facets, a class's result table, and a refused query", async ({ page }) => {
   await page.goto("/catalog");

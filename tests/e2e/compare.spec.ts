@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
-import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type Page } from "@playwright/test";
+import { expectAccessible } from "./helpers";
 
 // Compare as a signed-out visitor does it: tick sheets in the catalog, read the aligned figures and
 // the overlaid curves, download the CSV; and the words for a selection that cannot be compared.
@@ -12,13 +12,6 @@ const screensDir = process.env.BENCHFOLD_E2E_SCREENS;
 async function screenshot(page: Page, name: string): Promise<void> {
   if (!screensDir) return;
   await page.screenshot({ path: path.join(screensDir, `${name}.png`), fullPage: true });
-}
-
-/** WCAG 2.x A and AA rules of axe-core on the page's main region: no violation. */
-async function expectAccessible(page: Page, what: string): Promise<void> {
-  const results = await new AxeBuilder({ page }).include("main").withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
-  const found = results.violations.map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
-  expect(found, `axe-core on ${what}`).toEqual([]);
 }
 
 test("ticks two hybrids in the catalog and compares them: aligned figures, the better value, the mismatch, the curves, the CSV", async ({ page }) => {

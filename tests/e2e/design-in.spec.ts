@@ -1,5 +1,5 @@
-import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type Page } from "@playwright/test";
+import { expectAccessible } from "./helpers";
 
 // The design-in calculator on the released sheet page, as a signed-out customer uses it: the demo
 // releases KDX-2G4 (a doubler) as B and KM-7H (a mixer) as A before the tests (scripts/seed-demo-releases.ts).
@@ -9,13 +9,6 @@ const screens = process.env.BENCHFOLD_E2E_SCREENS;
 
 async function screenshot(page: Page, name: string): Promise<void> {
   if (screens) await page.getByTestId("design-in").screenshot({ path: `${screens}/design-in-${name}.png` });
-}
-
-/** WCAG 2.x A and AA rules of axe-core on the whole page: no violation. */
-async function expectAccessible(page: Page, what: string): Promise<void> {
-  const results = await new AxeBuilder({ page }).include("main").withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
-  const found = results.violations.map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
-  expect(found, `axe-core on ${what}`).toEqual([]);
 }
 
 test("reads the doubler's curves at the customer's drive and frequency; the query stays in the address", async ({ page }) => {

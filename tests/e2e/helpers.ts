@@ -1,4 +1,5 @@
-import { expect, type Page } from "@playwright/test";
+import AxeBuilder from "@axe-core/playwright";
+import { expect, test, type Page } from "@playwright/test";
 
 export const demoPassword = "bench-demo-2026";
 
@@ -42,4 +43,16 @@ export async function expectRefused(page: Page, path: string): Promise<void> {
   await expect(page).toHaveURL(new RegExp(`${path.replace(/\//g, "\\/")}$`));
   await expect(page.getByTestId("forbidden")).toBeVisible();
   await expect(page.getByRole("heading", { level: 1 })).toContainText("Your role does not open");
+}
+
+/**
+ * WCAG 2.0/2.1 A and AA rules of axe-core on one region of the page (the main region unless named):
+ * no violation. A scan of a long page can take tens of seconds on a loaded machine, so each scan adds
+ * its own 30 s to the test's budget rather than eating into the steps around it.
+ */
+export async function expectAccessible(page: Page, what: string, scope = "main"): Promise<void> {
+  test.info().setTimeout(test.info().timeout + 30_000);
+  const results = await new AxeBuilder({ page }).include(scope).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
+  const found = results.violations.map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
+  expect(found, `axe-core on ${what}`).toEqual([]);
 }

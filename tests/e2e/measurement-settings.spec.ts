@@ -1,8 +1,7 @@
-import AxeBuilder from "@axe-core/playwright";
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { expect as baseExpect, test, type Page } from "@playwright/test";
-import { signInAs } from "./helpers";
+import { expectAccessible, signInAs } from "./helpers";
 
 // The upload form's measurement settings (issue 12): a phase-noise file uploaded with "Other band…"
 // 1 kHz – 100 kHz; the set page prints that band beside rms jitter and rms phase, with who set it, and
@@ -10,12 +9,6 @@ import { signInAs } from "./helpers";
 test.describe.configure({ timeout: 180_000 });
 const expect = baseExpect.configure({ timeout: 45_000 });
 const fixtures = path.join(__dirname, "..", "..", "fixtures");
-
-async function expectAccessible(page: Page, what: string): Promise<void> {
-  const results = await new AxeBuilder({ page }).include("main").withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
-  const found = results.violations.map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
-  expect(found, `axe-core on ${what}`).toEqual([]);
-}
 
 test("an engineer states the integration band in the upload form and reads it beside the jitter", async ({ page }) => {
   await signInAs(page, "engineer");

@@ -1,19 +1,12 @@
-import AxeBuilder from "@axe-core/playwright";
 import { readFileSync } from "node:fs";
 import { expect, test, type Page } from "@playwright/test";
-import { signInAs } from "./helpers";
+import { expectAccessible, signInAs } from "./helpers";
 
 // A released sheet's data as files (the demo's hybrid KQH-2G, released as A before the tests by
 // scripts/seed-demo-catalog.ts), and a set's raw file from its workspace page.
 // BENCHFOLD_E2E_SCREENS=<dir> saves a screenshot of each.
 
 const screens = process.env.BENCHFOLD_E2E_SCREENS;
-
-async function expectAccessible(page: Page, what: string): Promise<void> {
-  const results = await new AxeBuilder({ page }).include("main").withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
-  const found = results.violations.map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
-  expect(found, `axe-core on ${what}`).toEqual([]);
-}
 
 test("a visitor takes a released hybrid's Touchstone files and its specifications away as files", async ({ page }) => {
   test.setTimeout(120_000);

@@ -1,8 +1,7 @@
 import { mkdirSync, readFileSync } from "node:fs";
 import path from "node:path";
-import AxeBuilder from "@axe-core/playwright";
 import { expect as baseExpect, test, type Browser, type Locator, type Page } from "@playwright/test";
-import { demoPassword, demoUsers, signInViaApi } from "./helpers";
+import { demoPassword, demoUsers, expectAccessible, signInViaApi } from "./helpers";
 
 // Two people take one fresh sheet from draft to revision A and on to revision B: each submission
 // freezes the model, each release renders and stores a PDF, and the pages draw the sheet and its
@@ -37,13 +36,6 @@ async function personPage(browser: Browser, email: string): Promise<Page> {
   const page = await context.newPage();
   await signInViaApi(page, email);
   return page;
-}
-
-/** WCAG 2.x A and AA rules of axe-core within one part of the page: no violation. */
-async function expectAccessible(page: Page, selector: string, what: string): Promise<void> {
-  const results = await new AxeBuilder({ page }).include(selector).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
-  const found = results.violations.map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
-  expect(found, `axe-core on ${what}`).toEqual([]);
 }
 
 /** With BENCHFOLD_E2E_SCREENS set: the top of the page, and each part named, as PNGs to look at. */
@@ -126,7 +118,7 @@ test("two people take a sheet through review to revision A, then to revision B w
   const first = await submitFromWorkspace(engineer, deviceId, "First release of the review-path doubler.");
   await expect(panel.getByTestId("open-review")).toHaveAttribute("href", `/review/sheets/${first}`);
   await screenshot(engineer, "1-workspace-in-review", { panel });
-  await expectAccessible(engineer, '[data-testid="review-release-panel"]', "the workspace's review-and-release panel");
+  await expectAccessible(engineer, "the workspace's review-and-release panel", '[data-testid="review-release-panel"]');
 
   // The reviewer finds it in the queue, reads it beside "first release", comments on a row and asks for changes.
   await reviewer.goto("/review");
@@ -196,7 +188,7 @@ test("two people take a sheet through review to revision A, then to revision B w
   await expect(carried.getByTestId("thread-state")).toHaveText(/Resolved by/);
   await expect(carried.getByTestId("comment")).toHaveCount(2);
   await screenshot(reviewer, "3-review-page-first-release", { notes: review.getByTestId("engineer-notes"), comments, changes: review.getByTestId("review-changes"), decision: review.getByTestId("decision") });
-  await expectAccessible(reviewer, '[data-testid="candidate-review"]', "the review page");
+  await expectAccessible(reviewer, "the review page", '[data-testid="candidate-review"]');
 
   const sign = review.getByTestId("sign-form");
   await sign.getByLabel("Reviewed and approved for release").check();
@@ -232,7 +224,7 @@ test("two people take a sheet through review to revision A, then to revision B w
   const canonical = await engineer.locator('link[rel="canonical"]').getAttribute("href");
   expect(new URL(canonical!).pathname).toMatch(/\/datasheets\/.+\/A$/);
   await screenshot(engineer, "5-public-rev-A", { history: publicSheet.getByTestId("revision-history"), release: publicSheet.getByTestId("sheet-release") });
-  await expectAccessible(engineer, '[data-testid="released-sheet"]', "the public released sheet");
+  await expectAccessible(engineer, "the public released sheet", '[data-testid="released-sheet"]');
 
   // Revision B: one limit tightened; the review page lists it against Rev. A.
   await putLimit(engineer, deviceId, group, Math.ceil(group.mean.value! + 3));
@@ -290,5 +282,5 @@ test("two people take a sheet through review to revision A, then to revision B w
   await reviewer.goto(publicA!);
   await expect(reviewer.getByTestId("released-web-sheet").getByTestId("sheet-withdrawn")).toContainText("de-embedded twice");
   await screenshot(reviewer, "9-public-rev-A-withdrawn");
-  await expectAccessible(reviewer, '[data-testid="released-sheet"]', "a withdrawn revision's public page");
+  await expectAccessible(reviewer, "a withdrawn revision's public page", '[data-testid="released-sheet"]');
 });

@@ -1,8 +1,7 @@
-import AxeBuilder from "@axe-core/playwright";
 import path from "node:path";
 import { expect, test, type Locator, type Page } from "@playwright/test";
 import { outlineSvg } from "../unit/sheet/design-data/outline-fixture";
-import { signInAs } from "./helpers";
+import { expectAccessible, signInAs } from "./helpers";
 
 // Issue 13, layout: the whole specifications table reads without sideways scrolling at 1360 px, on
 // every released demo sheet's page and in the workspace preview of every demo draft; and the
@@ -10,12 +9,6 @@ import { signInAs } from "./helpers";
 
 const screens = process.env.BENCHFOLD_E2E_SCREENS;
 test.use({ viewport: { width: 1360, height: 900 } });
-
-async function expectAccessible(page: Page, what: string, scope = "main"): Promise<void> {
-  const results = await new AxeBuilder({ page }).include(scope).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
-  const found = results.violations.map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
-  expect(found, `axe-core on ${what}`).toEqual([]);
-}
 
 /** The scrolling region around a specifications table: nothing hidden to its right. */
 async function expectNoSidewaysScroll(region: Locator, what: string): Promise<void> {

@@ -1,8 +1,7 @@
-import AxeBuilder from "@axe-core/playwright";
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { expect as baseExpect, test, type Page } from "@playwright/test";
-import { signInAs } from "./helpers";
+import { expectAccessible, signInAs } from "./helpers";
 
 // Issue 13, item 1: the upload form asks for the device class's own conditions (templates/<class>/conditions.ts):
 // a mixer's RF, LO and IF frequencies and LO drive, a hybrid's band; never a splitter's excess loss.
@@ -12,12 +11,6 @@ const expect = baseExpect.configure({ timeout: 45_000 });
 const fixtures = path.join(__dirname, "..", "..", "fixtures");
 
 type StoredSet = { measurementSet: { conditions: Record<string, unknown>; parameters: { name: string; conditions: Record<string, string | number> }[] } };
-
-async function expectAccessible(page: Page, what: string): Promise<void> {
-  const results = await new AxeBuilder({ page }).include("main").withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
-  const found = results.violations.map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
-  expect(found, `axe-core on ${what}`).toEqual([]);
-}
 
 async function openNewDevice(page: Page, deviceClass: string, title: string): Promise<string> {
   await signInAs(page, "engineer");
