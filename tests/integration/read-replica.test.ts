@@ -130,7 +130,7 @@ describe("public reads with a read replica", () => {
       expect(found.summary).toEqual(revision);
       // It was asked of the replica first, which has neither the organization nor the revision yet.
       expect(await replicaLogCount(`o.slug = '${made.organization.slug}'`)).toBeGreaterThan(0);
-      expect(await onReplica(`SELECT COUNT(*) FROM organizations WHERE slug = '${made.organization.slug}'`)).toMatch(/\b0\s*$/);
+      expect(await onReplica(`SELECT COUNT(*) FROM \`${readDatabaseSettings().database}\`.organizations WHERE slug = '${made.organization.slug}'`)).toMatch(/\b0\s*$/);
       expect((await verifyPrintout({ reference: revision.reference })).letter).toBe(revision.letter);
     } finally {
       await onReplica("STOP SLAVE; CHANGE MASTER TO MASTER_DELAY = 0; START SLAVE");
