@@ -12,8 +12,7 @@ import { formatByteSize } from "../lib/format/byte-size";
 import { createS3ObjectStore } from "../lib/server/storage/object-store";
 import { readStorageSettings } from "../lib/server/storage/storage-config";
 import { sweepOrphanObjects, type SweepOutcome } from "../lib/server/storage/sweep-orphan-objects";
-import { createSequelize, readDatabaseSettings } from "../models/connection";
-import { withDatabaseLock } from "../models/instance-secrets";
+import { createSequelize, readDatabaseSettings, withDatabaseLock } from "../models";
 
 const HOUR_MS = 3_600_000;
 
