@@ -1,5 +1,6 @@
 import { createHash } from "node:crypto";
 import { createReadStream } from "node:fs";
+import { referencedObjectsSql } from "../lib/server/storage/object-references";
 
 /** What npm run backup writes beside the dump and npm run restore reads (scripts/backup.ts, scripts/restore.ts). */
 export const BACKUP_FORMAT = "benchfold-backup/1";
@@ -15,14 +16,11 @@ export type BackupManifest = {
 
 /**
  * Every object the database refers to, once each, in key order: bench files and other uploads
- * (stored_files) and released PDFs (sheet_revisions). Content keys, so one key has one SHA-256.
+ * (stored_files) and released PDFs (sheet_revisions), as objectReferences lists them. Content keys,
+ * so one key has one SHA-256.
  */
 export async function referencedObjects(select: (sql: string) => Promise<object[]>): Promise<BackupObject[]> {
-  const rows = (await select(
-    `SELECT storage_key AS k, sha256 AS h, size_bytes AS n FROM stored_files
-     UNION SELECT pdf_key, pdf_sha256, pdf_bytes FROM sheet_revisions
-     ORDER BY k`,
-  )) as { k: string; h: string; n: number }[];
+  const rows = (await select(referencedObjectsSql)) as { k: string; h: string; n: number }[];
   const byKey = new Map<string, BackupObject>();
   for (const r of rows) {
     const seen = byKey.get(r.k);

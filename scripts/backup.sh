@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
-# npm run backup [-- --out <folder>] / npm run restore -- <folder>: the settings of npm start
-# (.env, the local MariaDB and fake S3 store when none is configured), then scripts/backup.ts or
-# scripts/restore.ts. The local database and store must be running (npm start, or db:start).
+# npm run backup [-- --out <folder>] / npm run restore -- <folder> / npm run storage:sweep [-- --dry-run]
+# [--grace-hours N]: the settings of npm start (.env, the local MariaDB and fake S3 store when none is
+# configured), then scripts/backup.ts, scripts/restore.ts or scripts/storage-sweep.ts. The local database and store must be running (npm start, or db:start).
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$BENCHFOLD_ROOT"
@@ -14,6 +14,9 @@ start_fake_s3
 if [ "${1:-}" = --restore ]; then
   shift
   node --conditions=react-server "$BENCHFOLD_ROOT/node_modules/tsx/dist/cli.mjs" scripts/restore.ts "$@"
+elif [ "${1:-}" = --sweep ]; then
+  shift
+  node --conditions=react-server "$BENCHFOLD_ROOT/node_modules/tsx/dist/cli.mjs" scripts/storage-sweep.ts "$@"
 else
   node --conditions=react-server "$BENCHFOLD_ROOT/node_modules/tsx/dist/cli.mjs" scripts/backup.ts "$@"
 fi

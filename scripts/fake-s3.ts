@@ -8,9 +8,12 @@
  * digit) answer only to this machine:
  *   GET /_fake/health                  {"ok":true}
  *   PUT /_fake/faults {"writes":"fail"} every write (PUT, POST, DELETE) answers 503 SlowDown
+ *   PUT /_fake/faults {"writes":"lose-answer"} every write is carried out, but answers 503 SlowDown, as if
+ *                                      the store's answer was lost on the way back: the caller thinks
+ *                                      nothing was written and an unreferenced object is left behind
  *   PUT /_fake/faults {"reads":"fail"}  every read (GET, HEAD) answers 503 as well
  *   PUT /_fake/faults {}               back to normal
- * so a test can make the store refuse an upload or a release's PDF.
+ * so a test can make the store refuse an upload or a release's PDF, or leave an orphan for the sweep.
  * Never started in production: the scripts start it only when no S3_BUCKET is configured.
  */
 import { mkdirSync, rmSync } from "node:fs";
@@ -30,7 +33,7 @@ const s3 = new S3rver({
   configureBuckets: buckets.map((name) => ({ name, configs: [] })),
 });
 const handle = s3.callback();
-let faults: { writes?: "fail"; reads?: "fail" } = {};
+let faults: { writes?: "fail" | "lose-answer"; reads?: "fail" } = {};
 
 function fromThisMachine(req: IncomingMessage): boolean {
   const peer = (req.socket.remoteAddress ?? "").replace(/^::ffff:/, "");
@@ -54,7 +57,10 @@ async function control(req: IncomingMessage, res: ServerResponse) {
     for await (const chunk of req) body += chunk;
     try {
       const next = JSON.parse(body || "{}") as typeof faults;
-      faults = { ...(next.writes === "fail" ? { writes: "fail" } : {}), ...(next.reads === "fail" ? { reads: "fail" } : {}) };
+      faults = {
+        ...(next.writes === "fail" || next.writes === "lose-answer" ? { writes: next.writes } : {}),
+        ...(next.reads === "fail" ? { reads: "fail" } : {}),
+      };
     } catch {
       res.writeHead(400, { "content-type": "application/json" });
       return res.end(JSON.stringify({ error: "body must be JSON like {\"writes\":\"fail\"}" }));
@@ -66,12 +72,30 @@ async function control(req: IncomingMessage, res: ServerResponse) {
   s3Error(res, 404, "NotFound", "Not found");
 }
 
+/** s3rver carries the request out; whatever it answers is dropped and a 503 SlowDown goes back instead. */
+function loseAnswer(res: ServerResponse) {
+  const real = { writeHead: res.writeHead, write: res.write, end: res.end };
+  res.writeHead = (() => res) as typeof res.writeHead;
+  res.write = (() => true) as typeof res.write;
+  res.end = (() => {
+    Object.assign(res, real);
+    for (const name of res.getHeaderNames()) res.removeHeader(name);
+    s3Error(res, 503, "SlowDown", "The local fake store wrote the object and lost its answer (a fault set through /_fake/faults).");
+    return res;
+  }) as typeof res.end;
+}
+
 const server = createServer((req, res) => {
   if ((req.url ?? "").startsWith("/_fake/")) {
     control(req, res).catch(() => s3Error(res, 500, "InternalError", "control failed"));
     return;
   }
   const reading = req.method === "GET" || req.method === "HEAD";
+  if (!reading && faults.writes === "lose-answer") {
+    loseAnswer(res);
+    handle(req, res);
+    return;
+  }
   if ((reading && faults.reads) || (!reading && faults.writes)) {
     // Drain the body first, as a real store would before answering.
     req.resume();

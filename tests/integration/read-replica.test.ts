@@ -5,6 +5,10 @@
  * (its @@server_id is 2, the primary's 1), that what the primary writes reaches it, that no write
  * is ever sent to it (its general log, as a table), and that a replica whose replication is stopped
  * (lagging without bound) or that is down is passed over: the reads go to the primary and succeed.
+ * The public sheet's lookup (findReleasedRevision: the sheet page, its JSON, compare) and the
+ * verification of a printout run on it too, answer what the primary answers, and a revision the
+ * replica does not have yet (released while it is held back by MASTER_DELAY) is still found, on the
+ * primary.
  * The replica is stopped at the end; nothing else in the run uses it.
  */
 import { execFile } from "node:child_process";
@@ -16,7 +20,8 @@ import { closeDb, db } from "@/models";
 import { readDatabaseSettings } from "@/models/connection";
 import { parseCatalogQuery } from "@/lib/catalog/catalog-query";
 import { assertLoopbackDatabase } from "./helpers/loopback";
-import { makeOrganization } from "./helpers/factories";
+import { clientsByRole, makeOrganization } from "./helpers/factories";
+import { deviceWithApprovedData, releaseSheet } from "./helpers/reviews";
 
 vi.mock("server-only", () => ({}));
 
@@ -31,6 +36,8 @@ process.env.DB_REPLICA_HOSTS = `127.0.0.1:${replicaPort}`;
 process.env.DB_REPLICA_CHECK_MS = "100";
 const { publicSelect, closePublicReads } = await import("@/lib/server/db/public-reads");
 const { searchCatalog } = await import("@/lib/server/catalog/search-catalog");
+const { findReleasedRevision, revisionSummaries } = await import("@/lib/server/reviews/list-revisions");
+const { verifyPrintout } = await import("@/lib/server/reviews/verify-printout");
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 const SERVER = "SELECT @@server_id AS server";
@@ -40,6 +47,15 @@ async function readOrganization(slug: string): Promise<{ server: number; found: 
   const [row] = await publicSelect<{ server: number; found: number }>(`${SERVER}, (SELECT COUNT(*) FROM organizations WHERE slug = ?) AS found`, [slug]);
   return { server: Number(row.server), found: Number(row.found) };
 }
+
+/** How many statements of the app's user the replica's general log holds that contain `fragment` (LIKE, so % and _ are wildcards). */
+async function replicaLogCount(fragment: string): Promise<number> {
+  const out = await onReplica(`SELECT COUNT(*) FROM mysql.general_log WHERE user_host LIKE 'benchfold[%' AND argument LIKE '%${fragment.replace(/'/g, "''")}%'`);
+  return Number(out.trim().split("\n").pop());
+}
+
+// The demo's doubler, released as A and B before the integration tests run (scripts/seed-demo-releases.ts).
+const demoSheet = { organizationSlug: "kestrine", partNumber: "KDX-2G4" };
 
 async function until<T>(read: () => Promise<T>, ok: (value: T) => boolean, ms = 10_000): Promise<T> {
   const end = Date.now() + ms;
@@ -80,6 +96,53 @@ describe("public reads with a read replica", () => {
     expect(Number(searches.trim().split("\n").pop())).toBeGreaterThan(0);
   });
 
+  it("serve the public sheet's lookup (page, JSON, compare) and the verification of a printout, with what the primary has", async () => {
+    const before = await replicaLogCount("o.slug = 'kestrine' AND d.part_number = 'KDX-2G4'");
+    const sheet = await findReleasedRevision({ ...demoSheet, revision: "A" });
+    expect(await replicaLogCount("o.slug = 'kestrine' AND d.part_number = 'KDX-2G4'")).toBeGreaterThan(before);
+    expect(await replicaLogCount(`SELECT model_json FROM sheet_revisions WHERE id = ${sheet.summary.id}`)).toBeGreaterThan(0);
+    // The same summaries as the workspace's read of the primary, and the frozen model of that revision.
+    expect(sheet.history).toEqual(await revisionSummaries({ deviceId: sheet.summary.deviceId }));
+    expect(sheet.summary).toMatchObject({ letter: "A", standing: "superseded" });
+    const [frozen] = await db().sequelize.query<{ model_json: string }>("SELECT model_json FROM sheet_revisions WHERE id = ?", { type: QueryTypes.SELECT, replacements: [sheet.summary.id] });
+    expect(sheet.model).toEqual(JSON.parse(frozen.model_json));
+    expect((await findReleasedRevision({ ...demoSheet, revision: "current" })).summary).toMatchObject({ letter: "B", standing: "current" });
+    await expect(findReleasedRevision({ ...demoSheet, revision: "Z" })).rejects.toMatchObject({ code: "not-found" });
+
+    const verified = await verifyPrintout({ sha256: sheet.summary.pdfSha256 });
+    expect(verified).toMatchObject({ partNumber: "KDX-2G4", letter: "A", standing: "superseded", supersededBy: { letter: "B" } });
+    expect(await replicaLogCount(`r.pdf_sha256 = '${sheet.summary.pdfSha256}'`)).toBeGreaterThan(0);
+  });
+
+  it("find a revision released while the replica is held back, on the primary", { timeout: 240_000 }, async () => {
+    const made = await makeOrganization();
+    const clients = await clientsByRole(made);
+    const deviceId = await deviceWithApprovedData(made.organization.id, clients.get("engineer")!, clients.get("reviewer")!);
+    // Held back an hour and counted as fresh (its lag stays under the limit), so the replica is asked and lacks the revision.
+    process.env.DB_REPLICA_MAX_LAG_SECONDS = "7200";
+    await onReplica("STOP SLAVE; CHANGE MASTER TO MASTER_DELAY = 3600; START SLAVE");
+    try {
+      const revision = await releaseSheet(clients.get("engineer")!, clients.get("reviewer")!, deviceId);
+      const partNumber = decodeURIComponent(revision.publicPath.split("/")[3]);
+      await sleep(200); // past DB_REPLICA_CHECK_MS: the next read probes the replica again
+      const address = { organizationSlug: made.organization.slug, partNumber, revision: revision.letter };
+      const found = await findReleasedRevision(address);
+      expect(found.summary).toEqual(revision);
+      // It was asked of the replica first, which has the organization (made before the hold) but not the revision.
+      expect(await replicaLogCount(`o.slug = '${made.organization.slug}'`)).toBeGreaterThan(0);
+      const onReplicaCount = async (sql: string) => Number((await onReplica(sql)).trim().split("\n").pop());
+      const database = readDatabaseSettings().database;
+      expect(await onReplicaCount(`SELECT COUNT(*) FROM \`${database}\`.organizations WHERE slug = '${made.organization.slug}'`)).toBe(1);
+      expect(await onReplicaCount(`SELECT COUNT(*) FROM \`${database}\`.sheet_revisions WHERE id = ${revision.id}`)).toBe(0);
+      expect((await verifyPrintout({ reference: revision.reference })).letter).toBe(revision.letter);
+    } finally {
+      await onReplica("STOP SLAVE; CHANGE MASTER TO MASTER_DELAY = 0; START SLAVE");
+      delete process.env.DB_REPLICA_MAX_LAG_SECONDS;
+    }
+    const { organization } = await makeOrganization();
+    expect(await until(() => readOrganization(organization.slug), (r) => r.server === 2 && r.found === 1, 30_000)).toEqual({ server: 2, found: 1 });
+  });
+
   it("never send it a write: publicSelect refuses one, and its log shows none from the app's user", async () => {
     await expect(publicSelect("DELETE FROM organizations WHERE id = 0")).rejects.toThrow(/SELECT statements only/);
     await expect(publicSelect("  update organizations SET name = name")).rejects.toThrow(/SELECT statements only/);
@@ -113,5 +176,8 @@ describe("public reads with a read replica", () => {
     const query = parseCatalogQuery({ q: "" });
     if (!query.ok) throw new Error("the empty catalog query was refused");
     await expect(searchCatalog(query.query)).resolves.toMatchObject({ page: 1 });
+    const sheet = await findReleasedRevision({ ...demoSheet, revision: "B" });
+    expect(sheet.summary).toMatchObject({ letter: "B", standing: "current" });
+    expect(sheet.history).toEqual(await revisionSummaries({ deviceId: sheet.summary.deviceId }));
   });
 });

@@ -1,14 +1,16 @@
 import "server-only";
 import { QueryTypes, type Sequelize } from "sequelize";
+import { isAppError } from "@/lib/errors";
 import { onShutdown } from "@/lib/shutdown";
 import { db } from "@/models";
 import { createSequelize, readDatabaseSettings, readReplicaHosts } from "@/models/connection";
 import { isDatabaseUnavailable } from "./database-unavailable";
 
 /**
- * Reads of released, public data (the catalog search, the sitemap, a released PDF's lookup) that
- * may come from a MariaDB read replica when DB_REPLICA_HOSTS names some; everything else, and
- * these too without replicas, goes to the primary through db().
+ * Reads of released, public data (the catalog search, the sitemap, a released sheet's page, JSON,
+ * compare and PDF lookup, the verification of a printout) that may come from a MariaDB read replica
+ * when DB_REPLICA_HOSTS names some; everything else, and these too without replicas, goes to the
+ * primary through db().
  *
  * Why a second Sequelize and not `replication` on db()'s: Sequelize sends every SELECT outside a
  * transaction to its read pool, so the workspace would read its own writes from a replica that may
@@ -84,6 +86,12 @@ async function probe(s: State): Promise<void> {
   s.checkedAt = Date.now();
 }
 
+/** How a read-only statement reaches the database: publicSelect or primarySelect. */
+export type SelectRows = <T extends object>(sql: string, replacements?: unknown[] | Record<string, unknown>) => Promise<T[]>;
+
+/** A read-only statement on the primary (db()): what the workspace reads, so it always sees its own writes. */
+export const primarySelect: SelectRows = (sql, replacements) => db().sequelize.query(sql, { type: QueryTypes.SELECT, replacements });
+
 /** A read-only statement over released data, from a replica when one is up and caught up, else from the primary. */
 export async function publicSelect<T extends object>(sql: string, replacements?: unknown[] | Record<string, unknown>): Promise<T[]> {
   if (!/^\s*\(?\s*(SELECT|WITH)\b/i.test(sql)) throw new Error("publicSelect runs SELECT statements only");
@@ -98,5 +106,23 @@ export async function publicSelect<T extends object>(sql: string, replacements?:
       console.warn(`[benchfold] a read replica did not answer (${(error as Error).message}); public reads go to the primary for ${DOWN_MS / 1000} s`);
     }
   }
-  return db().sequelize.query<T>(sql, options);
+  return primarySelect<T>(sql, replacements);
+}
+
+/**
+ * A public lookup by address (a released revision, a verification reference, a printout's hash):
+ * `find` runs with publicSelect, and once more with primarySelect when that answers AppError
+ * "not-found" while replicas are configured. A replica may lag a little behind (at most
+ * DB_REPLICA_MAX_LAG_SECONDS), and the release panel links to the new revision's page at once: so a
+ * revision released a moment ago is found on the primary rather than answered 404. Anything a
+ * replica has, the primary has too, so a lookup the replica answers needs no second look.
+ */
+export async function publicLookup<T>(find: (select: SelectRows) => Promise<T>): Promise<T> {
+  if (!replicaState()) return find(primarySelect);
+  try {
+    return await find(publicSelect);
+  } catch (error) {
+    if (isAppError(error) && error.code === "not-found") return find(primarySelect);
+    throw error;
+  }
 }

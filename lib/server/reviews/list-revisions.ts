@@ -1,16 +1,12 @@
 import "server-only";
-import { Op, QueryTypes } from "sequelize";
 import { AppError } from "@/lib/errors";
 import { datasheetPath, datasheetPdfPath, type RevisionStanding, type RevisionSummary } from "@/lib/domain/reviews";
 import type { SheetModel } from "@/lib/sheet";
 import { db } from "@/models";
-import type { Device, Organization, SheetRevision, SheetRevisionWithdrawal, User } from "@/models";
 import { authorize } from "../auth/authorize";
-import { publicSelect } from "../db/public-reads";
+import { primarySelect, publicLookup, type SelectRows } from "../db/public-reads";
 import { readObject } from "../storage/stored-objects";
 import type { SessionUser } from "../auth/session-user";
-
-type RevisionRow = SheetRevision & { SheetRevisionWithdrawal?: SheetRevisionWithdrawal | null };
 
 /** A device's released revisions, newest first, for anyone of its organization who reads devices. */
 export async function listDeviceRevisions(opts: { viewer: SessionUser; deviceId: number }): Promise<RevisionSummary[]> {
@@ -27,44 +23,87 @@ export async function getRevision(revisionId: number): Promise<RevisionSummary> 
   return summary;
 }
 
-/** Summaries of the revisions matching `where` (one device's, or one), newest first. */
-export async function revisionSummaries(where: { deviceId?: number; id?: number }): Promise<RevisionSummary[]> {
-  const { SheetRevision, SheetRevisionWithdrawal, SheetSignature, Device, Organization, User } = db();
-  const rows = (await SheetRevision.findAll({
-    where: where.id !== undefined ? { id: where.id } : { deviceId: where.deviceId },
-    include: [{ model: SheetRevisionWithdrawal }],
-    order: [["sequence", "DESC"]],
-  })) as RevisionRow[];
+type SummaryRow = {
+  id: number;
+  device_id: number;
+  candidate_id: number;
+  letter: string;
+  released_at: Date | string;
+  released_by_id: number;
+  released_by_name: string;
+  release_notes: string | string[];
+  pdf_sha256: string;
+  pdf_bytes: number;
+  reference: string;
+  part_number: string;
+  slug: string;
+  withdrawal_reason: string | null;
+  withdrawn_at: Date | string | null;
+  withdrawn_by_name: string;
+  superseded: number;
+};
+
+/** Which revisions: one device's, one by id, or one part's by its public address (organization slug and part number). */
+type RevisionsWhere = { deviceId: number } | { id: number } | { organizationSlug: string; partNumber: string };
+
+/** A DATETIME as the driver returned it (a Date, or its text in UTC: the connection's time zone is +00:00) as ISO 8601. */
+function isoTime(value: Date | string): string {
+  return value instanceof Date ? value.toISOString() : new Date(`${value.replace(" ", "T")}Z`).toISOString();
+}
+
+/**
+ * Summaries of the revisions matching `where`, newest first, in two statements. `select` is where
+ * they are read: the primary by default (the workspace reads its own releases and withdrawals), or
+ * publicSelect for the public pages (see lib/server/db/public-reads.ts).
+ */
+export async function revisionSummaries(where: RevisionsWhere, select: SelectRows = primarySelect): Promise<RevisionSummary[]> {
+  const [condition, replacements] =
+    "id" in where
+      ? ["r.id = :id", { id: where.id }]
+      : "deviceId" in where
+        ? ["r.device_id = :deviceId", { deviceId: where.deviceId }]
+        : ["o.slug = :slug AND d.part_number = :part", { slug: where.organizationSlug, part: where.partNumber }];
+  const rows = await select<SummaryRow>(
+    `SELECT r.id, r.device_id, r.candidate_id, r.letter, r.released_at, r.released_by_id, COALESCE(ru.name, '') AS released_by_name,
+            r.release_notes, r.pdf_sha256, r.pdf_bytes, r.reference, d.part_number, o.slug,
+            w.reason AS withdrawal_reason, w.withdrawn_at, COALESCE(wu.name, '') AS withdrawn_by_name,
+            EXISTS (SELECT 1 FROM sheet_revisions n WHERE n.previous_revision_id = r.id) AS superseded
+       FROM sheet_revisions r
+       JOIN devices d ON d.id = r.device_id
+       JOIN organizations o ON o.id = d.organization_id
+       LEFT JOIN users ru ON ru.id = r.released_by_id
+       LEFT JOIN sheet_revision_withdrawals w ON w.revision_id = r.id
+       LEFT JOIN users wu ON wu.id = w.withdrawn_by_id
+      WHERE ${condition}
+      ORDER BY r.sequence DESC`,
+    replacements,
+  );
   if (!rows.length) return [];
-  const deviceId = rows[0].deviceId;
-  const device = (await Device.findByPk(deviceId, { attributes: ["partNumber", "organizationId"], include: [{ model: Organization, attributes: ["slug"] }] })) as Device & { Organization: Organization };
-  const later = await SheetRevision.findAll({ where: { deviceId, previousRevisionId: { [Op.in]: rows.map((r) => r.id) } }, attributes: ["previousRevisionId"] });
-  const superseded = new Set(later.map((r) => r.previousRevisionId));
-  const signatures = await SheetSignature.findAll({ where: { candidateId: { [Op.in]: rows.map((r) => r.candidateId) } }, order: [["id", "ASC"]] });
-  const people = await User.findAll({
-    where: { id: { [Op.in]: [...rows.map((r) => r.releasedById), ...rows.flatMap((r) => (r.SheetRevisionWithdrawal ? [r.SheetRevisionWithdrawal.withdrawnById] : []))] } },
-    attributes: ["id", "name"],
-  });
-  const nameOf = new Map(people.map((p: User) => [p.id, p.name]));
-  const slug = device.Organization.slug;
+  const signatures = await select<{ candidate_id: number; printed_name: string; role_word: string; signed_at: Date | string }>(
+    "SELECT candidate_id, printed_name, role_word, signed_at FROM sheet_signatures WHERE candidate_id IN (:ids) ORDER BY id",
+    { ids: rows.map((r) => r.candidate_id) },
+  );
   return rows.map((r) => {
-    const w = r.SheetRevisionWithdrawal ?? null;
-    const standing: RevisionStanding = w ? "withdrawn" : superseded.has(r.id) ? "superseded" : "current";
+    const withdrawn = r.withdrawn_at !== null;
+    const standing: RevisionStanding = withdrawn ? "withdrawn" : Number(r.superseded) ? "superseded" : "current";
     return {
-      id: r.id,
-      deviceId: r.deviceId,
+      id: Number(r.id),
+      deviceId: Number(r.device_id),
       letter: r.letter,
-      releasedAt: r.releasedAt.toISOString(),
-      releasedBy: { id: r.releasedById, name: nameOf.get(r.releasedById) ?? "" },
-      signers: signatures.filter((s) => s.candidateId === r.candidateId).map((s) => ({ name: s.printedName, roleWord: s.roleWord, signedAt: s.signedAt.toISOString() })),
+      releasedAt: isoTime(r.released_at),
+      releasedBy: { id: Number(r.released_by_id), name: r.released_by_name },
+      signers: signatures
+        .filter((s) => Number(s.candidate_id) === Number(r.candidate_id))
+        .map((s) => ({ name: s.printed_name, roleWord: s.role_word, signedAt: isoTime(s.signed_at) })),
       standing,
-      withdrawal: w ? { reason: w.reason, withdrawnAt: w.withdrawnAt.toISOString(), by: nameOf.get(w.withdrawnById) ?? "" } : null,
-      notes: r.releaseNotes,
-      pdfSha256: r.pdfSha256,
-      pdfBytes: r.pdfBytes,
+      withdrawal: withdrawn ? { reason: r.withdrawal_reason ?? "", withdrawnAt: isoTime(r.withdrawn_at!), by: r.withdrawn_by_name } : null,
+      // A JSON column: the driver may hand it over parsed or as its text.
+      notes: typeof r.release_notes === "string" ? (JSON.parse(r.release_notes) as string[]) : r.release_notes,
+      pdfSha256: r.pdf_sha256,
+      pdfBytes: Number(r.pdf_bytes),
       reference: r.reference,
-      publicPath: datasheetPath(slug, device.partNumber, r.letter),
-      pdfPath: datasheetPdfPath(slug, device.partNumber, r.letter),
+      publicPath: datasheetPath(r.slug, r.part_number, r.letter),
+      pdfPath: datasheetPdfPath(r.slug, r.part_number, r.letter),
     };
   });
 }
@@ -74,25 +113,27 @@ export type ReleasedSheet = { summary: RevisionSummary; model: SheetModel; histo
 /**
  * A released revision by its public address: organization slug, part number, and a letter or
  * "current" (the newest revision that is not withdrawn). Anyone may read it; nothing of a draft.
+ * Public data: read through publicLookup (a replica when one is up and caught up).
  */
-export async function findReleasedRevision(opts: { organizationSlug: string; partNumber: string; revision: string }): Promise<ReleasedSheet> {
-  const { Organization, Device, SheetRevision } = db();
-  const organization = await Organization.findOne({ where: { slug: opts.organizationSlug }, attributes: ["id"] });
-  const device = organization ? await Device.findOne({ where: { organizationId: organization.id, partNumber: opts.partNumber }, attributes: ["id"] }) : null;
-  const history = device ? await revisionSummaries({ deviceId: device.id }) : [];
-  const summary =
-    opts.revision === "current" ? history.find((r) => r.standing === "current") : history.find((r) => r.letter === opts.revision);
-  if (!summary) throw new AppError("not-found", "No such released sheet.");
-  const row = await SheetRevision.unscoped().findByPk(summary.id, { attributes: ["modelJson"] });
-  return { summary, model: JSON.parse(row!.modelJson) as SheetModel, history };
+export function findReleasedRevision(opts: { organizationSlug: string; partNumber: string; revision: string }): Promise<ReleasedSheet> {
+  return publicLookup(async (select) => {
+    const history = await revisionSummaries({ organizationSlug: opts.organizationSlug, partNumber: opts.partNumber }, select);
+    const summary =
+      opts.revision === "current" ? history.find((r) => r.standing === "current") : history.find((r) => r.letter === opts.revision);
+    if (!summary) throw new AppError("not-found", "No such released sheet.");
+    const [row] = await select<{ model_json: string }>("SELECT model_json FROM sheet_revisions WHERE id = ?", [summary.id]);
+    return { summary, model: JSON.parse(row.model_json) as SheetModel, history };
+  });
 }
 
-/** A released revision by its verification reference, as printed in its PDF's footer. */
-export async function findRevisionByReference(reference: string): Promise<RevisionSummary> {
-  const { SheetRevision } = db();
-  const row = await SheetRevision.findOne({ where: { reference: reference.trim().toUpperCase() }, attributes: ["id"] });
-  if (!row) throw new AppError("not-found", "No released sheet has this verification reference.");
-  return getRevision(row.id);
+/** A released revision by its verification reference, as printed in its PDF's footer (public: through publicLookup). */
+export function findRevisionByReference(reference: string): Promise<RevisionSummary> {
+  return publicLookup(async (select) => {
+    const [row] = await select<{ id: number }>("SELECT id FROM sheet_revisions WHERE reference = ?", [reference.trim().toUpperCase()]);
+    const [summary] = row ? await revisionSummaries({ id: Number(row.id) }, select) : [];
+    if (!summary) throw new AppError("not-found", "No released sheet has this verification reference.");
+    return summary;
+  });
 }
 
 /** The stored PDF bytes of a released revision, exactly as released: read from the file store and checked against its SHA-256. */
@@ -137,10 +178,14 @@ export type ReleasedRevisionHead = { id: number; deviceId: number; letter: strin
  * not withdrawn for "current", with its standing. The downloads (PDF, CSV, Touchstone) start here and
  * keep what they make from the frozen model by the revision id, which never changes meaning.
  */
-export async function locateReleasedRevision(opts: { organizationSlug: string; partNumber: string; revision: string }): Promise<ReleasedRevisionHead> {
-  const current = opts.revision === "current";
+export function locateReleasedRevision(opts: { organizationSlug: string; partNumber: string; revision: string }): Promise<ReleasedRevisionHead> {
   // The lookup may come from a read replica (public data); the bytes from the file store.
-  const rows = await publicSelect<{ id: number; device_id: number; letter: string; pdf_sha256: string; withdrawn: number; superseded: number }>(
+  return publicLookup((select) => locateIn(select, opts));
+}
+
+async function locateIn(select: SelectRows, opts: { organizationSlug: string; partNumber: string; revision: string }): Promise<ReleasedRevisionHead> {
+  const current = opts.revision === "current";
+  const rows = await select<{ id: number; device_id: number; letter: string; pdf_sha256: string; withdrawn: number; superseded: number }>(
     `SELECT r.id, r.device_id, r.letter, r.pdf_sha256,
             EXISTS (SELECT 1 FROM sheet_revision_withdrawals w WHERE w.revision_id = r.id) AS withdrawn,
             EXISTS (SELECT 1 FROM sheet_revisions n WHERE n.previous_revision_id = r.id) AS superseded

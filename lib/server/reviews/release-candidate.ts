@@ -89,7 +89,7 @@ export async function releaseCandidate(opts: { engineer: SessionUser; candidateI
     const pdf = await sheetPdfRenderPool().render(model);
     // To the file store before the revision row: a store that refuses the PDF throws a 503 and the
     // transaction rolls back, so a failed upload leaves no revision.
-    const storedPdf = await putObject({ bytes: pdf, contentType: "application/pdf" });
+    const storedPdf = await putObject({ bytes: pdf, contentType: "application/pdf" }, transaction);
     const revision = await SheetRevision.create(
       {
         organizationId: candidate.organizationId,

@@ -1,6 +1,7 @@
 import { createHash } from "node:crypto";
 import {
   CreateBucketCommand,
+  DeleteObjectCommand,
   GetObjectCommand,
   HeadBucketCommand,
   ListObjectsV2Command,
@@ -43,6 +44,8 @@ export class StorageIntegrityError extends Error {
   }
 }
 
+export type ListedObject = { key: string; sizeBytes: number; lastModified: Date };
+
 export type PutObject = { key: string; bytes: Uint8Array; sha256: string; contentType: string };
 
 /**
@@ -54,8 +57,10 @@ export interface ObjectStore {
   put(object: PutObject): Promise<void>;
   /** The bytes under the key, unverified (readVerified checks them against the record). */
   get(key: string): Promise<Buffer>;
-  /** Every key under the prefix (for backups and checks), in key order. */
-  list(prefix?: string): AsyncIterable<{ key: string; sizeBytes: number }>;
+  /** Every key under the prefix (for backups, checks and the orphan sweep), in key order, with when the store last wrote it. */
+  list(prefix?: string): AsyncIterable<ListedObject>;
+  /** Removes the object under the key (the orphan sweep only: the app never deletes a file it refers to). */
+  delete(key: string): Promise<void>;
   /** Resolves when the bucket answers. */
   probe(): Promise<void>;
   /** Creates the bucket when it does not exist (local fake and restore targets only). */
@@ -136,9 +141,18 @@ export function createS3ObjectStore(settings: StorageSettings, options: { timeou
         } catch (error) {
           throw new StorageUnavailableError("The file store could not list its objects.", error);
         }
-        for (const o of page.Contents ?? []) yield { key: o.Key!.slice(settings.prefix.length), sizeBytes: Number(o.Size ?? 0) };
+        for (const o of page.Contents ?? []) {
+          yield { key: o.Key!.slice(settings.prefix.length), sizeBytes: Number(o.Size ?? 0), lastModified: o.LastModified ?? new Date(0) };
+        }
         token = page.IsTruncated ? page.NextContinuationToken : undefined;
       } while (token);
+    },
+    async delete(key) {
+      try {
+        await client.send(new DeleteObjectCommand({ Bucket: bucket, Key: full(key) }));
+      } catch (error) {
+        throw new StorageUnavailableError("The file store did not delete the object.", error);
+      }
     },
     async probe() {
       try {

@@ -14,7 +14,7 @@ export async function storeFile(
   file: { organizationId: number; bytes: Uint8Array; originalName: string; contentType: string; sha256?: string },
   transaction: Transaction,
 ): Promise<StoredFile> {
-  const stored = await putObject({ bytes: file.bytes, contentType: file.contentType, sha256: file.sha256 });
+  const stored = await putObject({ bytes: file.bytes, contentType: file.contentType, sha256: file.sha256 }, transaction);
   return db().StoredFile.create(
     { organizationId: file.organizationId, sha256: stored.sha256, sizeBytes: stored.sizeBytes, storageKey: stored.key, originalName: file.originalName, contentType: file.contentType },
     { transaction },

@@ -1,5 +1,8 @@
 import "server-only";
+import type { Transaction } from "sequelize";
 import { AppError } from "@/lib/errors";
+import { db } from "@/models";
+import { claimObjectKey } from "./claim-object-key";
 import { contentKey } from "./object-key";
 import {
   createS3ObjectStore,
@@ -32,12 +35,15 @@ export function objectStore(): ObjectStore {
 export type StoredObject = { key: string; sha256: string; sizeBytes: number };
 
 /**
- * Writes bytes to the store under their content key. A store that does not take them is a 503 that
- * says nothing was saved; callers write inside their database transaction, so the throw rolls it back.
+ * Writes bytes to the store under their content key, inside the transaction that will refer to them.
+ * The key is claimed first (claimObjectKey: a row lock held until that transaction ends), so the
+ * orphan sweep cannot delete the object between this write and the commit. A store that does not
+ * take the bytes is a 503 that says nothing was saved; the throw rolls the caller's transaction back.
  */
-export async function putObject(opts: { bytes: Uint8Array; contentType: string; sha256?: string }): Promise<StoredObject> {
+export async function putObject(opts: { bytes: Uint8Array; contentType: string; sha256?: string }, transaction: Transaction): Promise<StoredObject> {
   const sha256 = opts.sha256 ?? sha256Hex(opts.bytes);
   const key = contentKey(sha256);
+  await claimObjectKey(db().sequelize, key, transaction);
   try {
     await objectStore().put({ key, bytes: opts.bytes, sha256, contentType: opts.contentType });
   } catch (error) {

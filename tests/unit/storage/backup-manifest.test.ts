@@ -32,3 +32,18 @@ describe("referencedObjects", () => {
     await expect(referencedObjects(async () => [row, { ...row, n: 4 }])).rejects.toThrow(/disagree/);
   });
 });
+
+describe("objectReferences", () => {
+  it("lists every column of the schema that holds an object key, and the sweep's and backup's SQL read each", async () => {
+    const { objectReferences, referencedObjectsSql, keyReferencesSql } = await import("@/lib/server/storage/object-references");
+    // The key columns the migrations made (files-to-object-store: stored_files.storage_key and the generated sheet_revisions.pdf_key).
+    const { readFileSync, readdirSync } = await import("node:fs");
+    const migrations = readdirSync("models/migrations").map((f) => readFileSync(`models/migrations/${f}`, "utf8")).join("\n");
+    const keyColumns = [...migrations.matchAll(/ADD COLUMN (\w+_key) /g)].map((m) => m[1]).sort();
+    expect(keyColumns).toEqual(objectReferences.map((r) => r.key).sort());
+    for (const r of objectReferences) {
+      expect(referencedObjectsSql).toContain(`SELECT ${r.key} AS k, ${r.sha256} AS h, ${r.sizeBytes} AS n FROM ${r.table}`);
+      expect(keyReferencesSql).toContain(`FROM ${r.table} WHERE ${r.lookup}`);
+    }
+  });
+});

@@ -63,7 +63,14 @@ describe("the S3 driver", () => {
     await store.put({ key, bytes, sha256, contentType: "text/csv" });
     const listed = [];
     for await (const o of store.list()) listed.push(o);
-    expect(listed).toEqual([{ key, sizeBytes: bytes.length }]);
+    expect(listed).toEqual([{ key, sizeBytes: bytes.length, lastModified: expect.any(Date) }]);
+    // The store's own clock, within a minute of ours (s3rver runs in this process).
+    expect(Math.abs(listed[0].lastModified.getTime() - Date.now())).toBeLessThan(60_000);
+    await store.delete(key);
+    const after = [];
+    for await (const o of store.list()) after.push(o);
+    expect(after).toEqual([]);
+    await expect(store.get(key)).rejects.toBeInstanceOf(StorageMissingError);
   });
 
   it("creates a missing bucket once (restore targets), and a probe of a missing bucket fails", async () => {

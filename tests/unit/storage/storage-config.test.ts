@@ -1,6 +1,6 @@
 import { createHash } from "node:crypto";
 import { describe, expect, it } from "vitest";
-import { contentKey } from "@/lib/server/storage/object-key";
+import { contentKey, contentKeySha256 } from "@/lib/server/storage/object-key";
 import { readStorageSettings } from "@/lib/server/storage/storage-config";
 
 describe("readStorageSettings", () => {
@@ -55,5 +55,22 @@ describe("contentKey", () => {
   it("refuses anything but a lowercase hex SHA-256", () => {
     expect(() => contentKey("../../etc/passwd")).toThrow(/Not a lowercase hex SHA-256/);
     expect(() => contentKey("BA7816BF8F01CFEA414140DE5DAE2223B00361A396177A9CB410FF61F20015AD")).toThrow(/Not a lowercase hex SHA-256/);
+  });
+});
+
+describe("contentKeySha256", () => {
+  it("reads the SHA-256 back out of a content key, and nothing out of any other key", () => {
+    const hex = "ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad";
+    expect(contentKeySha256(contentKey(hex))).toBe(hex);
+    for (const other of [
+      `sha256/bb/${hex}`, // the folder is not the hash's first two digits
+      `sha256/ba/${hex}.tmp`,
+      `sha256/ba/${hex.toUpperCase()}`,
+      `drawings/${hex}`,
+      `sha256/ba/${hex}/x`,
+      "sha256/ba/",
+    ]) {
+      expect(contentKeySha256(other), other).toBeNull();
+    }
   });
 });
