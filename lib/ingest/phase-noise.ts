@@ -110,7 +110,7 @@ function inputColumn(doc: CsvDocument, multiplicationFactor: number | undefined)
     code: "missing-metadata",
     line: doc.headerLine,
     column: request.cell.index + 1,
-    field: "multiplication_factor",
+    field: request.cell.raw,
     expected: "# multiplication_factor: 2",
     detail:
       multiplicationFactor === undefined
