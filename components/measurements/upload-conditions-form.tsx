@@ -87,8 +87,10 @@ export function UploadConditionsForm({ conditions, classLabel, onChange: set, di
 
 /**
  * The settings the engine uses for this batch: the phase-noise integration band (a named band, or two
- * ends), the compression reference drive and the impedance of power readings. A file's own "# integration_start:" /
- * "# integration_stop:" / "# compression_reference:" / "# impedance:" lines win over these; left empty, the device class's defaults apply.
+ * ends), the compression reference drive, the impedance of power readings and the phase-noise trace's
+ * analyzer bandwidth (its 3 dB RBW or its noise bandwidth, for spurs in dBc). A file's own "# integration_start:" /
+ * "# integration_stop:" / "# compression_reference:" / "# impedance:" / bandwidth lines and columns win over these;
+ * left empty, the device class's defaults apply (no bandwidth: spurs stay as plotted, in dBc/Hz).
  */
 function MeasurementSettings({ conditions, onChange: set }: Pick<UploadConditionsFormProps, "conditions" | "onChange">) {
   const id = useId();
