@@ -20,7 +20,7 @@ import type { Section } from "./section";
 import type { Curve, DeriveOptions, DerivedParameter } from "./types";
 import { formatNumber, formatQuantity } from "../format/quantity";
 import { settingSourceWords, type SpurBandwidth } from "../domain/analysis-settings";
-import { AnalysisSettingError, describeBand, ENGINE_INTEGRATION_BAND_HZ, type ResolvedSetting } from "./settings";
+import { AnalysisSettingError, describeBand, describeSpurBandwidth, ENGINE_INTEGRATION_BAND_HZ, type ResolvedSetting } from "./settings";
 
 const DEFAULT_SPUR_THRESHOLD_DB = 10;
 
@@ -192,6 +192,12 @@ function addSpurs(out: Derivation): ReturnType<typeof findSpurs> {
     if (column) return { value: { kind: column.kind, hz: column.hz[lowerBound(data.offsetHz, offsetHz)] }, source: "file" };
     return settings.spurBandwidth;
   };
+  const stated = settings.spurBandwidth;
+  if (data.spurBandwidthColumn && stated && stated.source !== "file") {
+    out.warnings.push(
+      `Analyzer bandwidth: the file's ${data.spurBandwidthColumn.kind}_bandwidth column is used at each offset; ${settingSourceWords[stated.source]}'s ${describeSpurBandwidth(stated.value)} is not`,
+    );
+  }
   let worstDbc: number | undefined;
   const unconverted: number[] = [];
   for (const spur of spurs) {

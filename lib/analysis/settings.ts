@@ -47,7 +47,7 @@ const settingLabels: Record<keyof StatedAnalysisSettings, string> = {
   integrationBandHz: "Integration band",
   compressionReferenceDbm: "Compression reference drive",
   impedanceOhm: "Impedance",
-  spurBandwidth: "Spur bandwidth",
+  spurBandwidth: "Analyzer bandwidth",
 };
 
 export type SettingLayers = Partial<Record<Exclude<SettingSource, "engine">, StatedAnalysisSettings | undefined>>;

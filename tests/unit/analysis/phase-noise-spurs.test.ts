@@ -122,7 +122,7 @@ describe("spurs through the engine", () => {
     const fromFile = analyzeWithSettings(parseText(flatTrace(["# noise_bandwidth: 1 Hz"])), { upload });
     expect(valueOf(fromFile.parameters, "discrete-spur")).toBeCloseTo(-120, 9);
     expect(fromFile.warnings.map((w) => w.replaceAll("\u00a0", " "))).toContain(
-      "Spur bandwidth: the file says noise bandwidth 1 Hz, the upload said resolution bandwidth 100 Hz; the file's is used",
+      "Analyzer bandwidth: the file says noise bandwidth 1 Hz, the upload said resolution bandwidth 100 Hz; the file's is used",
     );
   });
 
@@ -132,6 +132,9 @@ describe("spurs through the engine", () => {
     // The spur sits at 1 kHz, where the column says 0.1 kHz = 100 Hz: −120 + 20 = −100 dBc.
     expect(pick(result.parameters, "discrete-spur")).toMatchObject({ conditions: { noiseBandwidthHz: 100, bandwidthSource: "file" } });
     expect(valueOf(result.parameters, "discrete-spur")).toBeCloseTo(-100, 9);
+    expect(result.warnings.map((w) => w.replaceAll("\u00a0", " "))).toContain(
+      "Analyzer bandwidth: the file's noise_bandwidth column is used at each offset; the upload's noise bandwidth 1 Hz is not",
+    );
   });
 });
 
