@@ -37,10 +37,13 @@ const names: Record<string, string> = {
   referenceSource: "reference set by",
   tone2RelativeLevelDb: "tone 2 relative",
   product: "product",
+  noiseBandwidthHz: "noise bandwidth",
+  resolutionBandwidthHz: "RBW",
+  bandwidthSource: "bandwidth set by",
 };
 
 /** Condition values that name where a setting came from are printed in words. */
-const sourceKeys = new Set(["bandSource", "referenceSource"]);
+const sourceKeys = new Set(["bandSource", "referenceSource", "bandwidthSource"]);
 
 function words(key: string): string {
   if (key in names) return names[key];

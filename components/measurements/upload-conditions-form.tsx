@@ -6,7 +6,7 @@ import { formatDate } from "@/lib/format";
 import { frequencyUnitNames, type FrequencyUnit } from "@/components/devices/frequency-units";
 import { selectClass } from "@/components/ui/field";
 import { kindLabel, measurementKindLabels } from "@/lib/domain/measurements";
-import { namedIntegrationBands } from "@/lib/domain/analysis-settings";
+import { namedIntegrationBands, spurBandwidthKinds, type SpurBandwidthKind } from "@/lib/domain/analysis-settings";
 import { conditionFields, type ConditionFieldId } from "@/lib/domain/measurement-conditions";
 import { unitOf, type SupersedableSet, type UploadConditions } from "./upload-form-data";
 
@@ -87,8 +87,10 @@ export function UploadConditionsForm({ conditions, classLabel, onChange: set, di
 
 /**
  * The settings the engine uses for this batch: the phase-noise integration band (a named band, or two
- * ends), the compression reference drive and the impedance of power readings. A file's own "# integration_start:" /
- * "# integration_stop:" / "# compression_reference:" / "# impedance:" lines win over these; left empty, the device class's defaults apply.
+ * ends), the compression reference drive, the impedance of power readings and the phase-noise trace's
+ * analyzer bandwidth (its 3 dB RBW or its noise bandwidth, for spurs in dBc). A file's own "# integration_start:" /
+ * "# integration_stop:" / "# compression_reference:" / "# impedance:" / bandwidth lines and columns win over these;
+ * left empty, the device class's defaults apply (no bandwidth: spurs stay as plotted, in dBc/Hz).
  */
 function MeasurementSettings({ conditions, onChange: set }: Pick<UploadConditionsFormProps, "conditions" | "onChange">) {
   const id = useId();
@@ -121,6 +123,30 @@ function MeasurementSettings({ conditions, onChange: set }: Pick<UploadCondition
           onChange={(v) => set("impedanceOhm", v)}
           hint="For Vrms and dBµV of power readings, 1 to 1000 Ω; empty: 50 Ω. A Touchstone file keeps its own"
         />
+        <LabelledInput id={`${id}-bandwidth-kind`} label="Analyzer bandwidth stated as" hint="Phase-noise files only: which bandwidth the figure below is">
+          <select
+            id={`${id}-bandwidth-kind`}
+            value={conditions.spurBandwidthKind}
+            onChange={(e) => set("spurBandwidthKind", e.target.value as SpurBandwidthKind)}
+            className={selectClass}
+            aria-describedby={`${id}-bandwidth-kind-hint`}
+          >
+            {spurBandwidthKinds.map((kind) => (
+              <option key={kind} value={kind}>
+                {spurBandwidthOptionWords[kind]}
+              </option>
+            ))}
+          </select>
+        </LabelledInput>
+        <FrequencyInput
+          label="Analyzer bandwidth (spurs in dBc)"
+          hint="The trace's own line or column wins; empty: spurs stay as plotted, in dBc/Hz"
+          value={conditions.spurBandwidth}
+          unit={conditions.spurBandwidthUnit}
+          onValue={(v) => set("spurBandwidth", v)}
+          onUnit={(u) => set("spurBandwidthUnit", u)}
+          testId="upload-spur-bandwidth"
+        />
       </div>
       {conditions.integrationBand === "custom" ? (
         <div className="flex flex-wrap gap-4">
@@ -131,6 +157,12 @@ function MeasurementSettings({ conditions, onChange: set }: Pick<UploadCondition
     </fieldset>
   );
 }
+
+/** The choice's words: the 3 dB RBW is converted by a Gaussian filter's factor, a noise bandwidth is used as it is. */
+const spurBandwidthOptionWords: Record<SpurBandwidthKind, string> = {
+  resolution: "Resolution bandwidth (3 dB RBW)",
+  noise: "Noise bandwidth (ENBW)",
+};
 
 /** One of the class's condition fields: a frequency with its unit, or a number in dBm or dB. */
 function ClassConditionInput({ fieldId, conditions, onChange: set }: { fieldId: ConditionFieldId } & Pick<UploadConditionsFormProps, "conditions" | "onChange">) {

@@ -3,7 +3,7 @@ import type { FrequencyUnit } from "@/components/devices/frequency-units";
 import { toHz } from "@/components/devices/frequency-units";
 import { parseDecimalText } from "@/lib/ingest/number";
 import { formatNumber } from "@/lib/format";
-import { impedanceProblem } from "@/lib/domain/analysis-settings";
+import { impedanceProblem, spurBandwidthKindWords, spurBandwidthProblem, type SpurBandwidthKind } from "@/lib/domain/analysis-settings";
 import { conditionFieldPairs, conditionFields, type ConditionFieldId } from "@/lib/domain/measurement-conditions";
 
 /** What the upload form holds for a batch: strings as typed, converted when the form is sent. */
@@ -41,6 +41,10 @@ export type UploadConditions = {
   integrationStopUnit: FrequencyUnit;
   compressionReferenceDbm: string;
   impedanceOhm: string;
+  /** The phase-noise trace's analyzer bandwidth, for spurs in dBc: as typed, in its unit, and which bandwidth it is. */
+  spurBandwidth: string;
+  spurBandwidthUnit: FrequencyUnit;
+  spurBandwidthKind: SpurBandwidthKind;
 };
 
 export const initialConditions = (classFields: readonly ConditionFieldId[]): UploadConditions => ({
@@ -62,6 +66,9 @@ export const initialConditions = (classFields: readonly ConditionFieldId[]): Upl
   integrationStopUnit: "MHz",
   compressionReferenceDbm: "",
   impedanceOhm: "",
+  spurBandwidth: "",
+  spurBandwidthUnit: "Hz",
+  spurBandwidthKind: "resolution",
 });
 
 /** A frequency field's unit until the engineer picks another. */
@@ -99,6 +106,8 @@ export function buildForm(file: File, c: UploadConditions): FormData {
     if (value !== undefined) form.append(id, value);
   }
   if (c.instrumentIds.length) form.append("instrumentIds", c.instrumentIds.join(","));
+  const bandwidthHz = toHz(c.spurBandwidth, c.spurBandwidthUnit);
+  if (bandwidthHz !== undefined) form.append(c.spurBandwidthKind === "noise" ? "noiseBandwidthHz" : "resolutionBandwidthHz", String(bandwidthHz));
   if (c.integrationBand === "custom") {
     const startHz = toHz(c.integrationStart, c.integrationStartUnit);
     const stopHz = toHz(c.integrationStop, c.integrationStopUnit);
@@ -146,6 +155,8 @@ export function checkConditions(c: UploadConditions, fileCount: number): string 
     if (startHz === undefined || stopHz === undefined) return "State both ends of the integration band, or choose a named band.";
     if (!(startHz > 0 && stopHz > startHz)) return "The integration band's stop offset must lie above its start, both above 0.";
   }
+  const bandwidthHz = toHz(c.spurBandwidth, c.spurBandwidthUnit);
+  if (bandwidthHz !== undefined && spurBandwidthProblem(bandwidthHz)) return `The ${spurBandwidthKindWords[c.spurBandwidthKind]}: ${spurBandwidthProblem(bandwidthHz)}.`;
   if (c.supersedesId && fileCount > 1) return "A correction replaces one set: choose one file when a set is superseded.";
   return null;
 }

@@ -125,11 +125,23 @@ export const parameterCatalog = {
       "(−173.975 dBm/Hz at 290 K, the trade's −174 dBm/Hz) and half of additive thermal noise taken as PM (L = Sφ/2).",
   },
   spur: {
-    label: "Spur",
+    label: "Spur as plotted",
     unit: "dBc/Hz",
     description:
       "Discrete spur: trace peak as plotted, more than the threshold above the running median of its neighbours (±0.15 decade). " +
-      "Its true dBc depends on the analyzer's resolution bandwidth, which the trace does not carry.",
+      "Given only when no bandwidth is stated: its power in dBc depends on the bandwidth the analyzer normalised the trace with.",
+  },
+  "discrete-spur": {
+    label: "Discrete spur",
+    unit: "dBc",
+    description:
+      "A discrete spur's power relative to the carrier: the plotted peak plus 10·log10(B), B the analyzer's equivalent noise bandwidth at its offset " +
+      "(a stated 3 dB resolution bandwidth × 1.0645, an ideal Gaussian filter's ratio; Keysight AN 150). Found as for \"Spur as plotted\".",
+  },
+  "worst-discrete-spur": {
+    label: "Worst discrete spur",
+    unit: "dBc",
+    description: "The highest discrete spur in dBc over the offsets searched (the trace's span); a trace with no spur above the threshold gives none.",
   },
   "return-loss": {
     label: "Return loss",

@@ -1,5 +1,5 @@
 import { deviceClasses, type DeviceClass } from "../domain/device-classes";
-import { findNamedIntegrationBand, impedanceProblem, namedIntegrationBands, type StatedAnalysisSettings } from "../domain/analysis-settings";
+import { findNamedIntegrationBand, impedanceProblem, namedIntegrationBands, spurBandwidthProblem, type StatedAnalysisSettings } from "../domain/analysis-settings";
 import { measurementKinds, type MeasurementKind } from "../domain/measurements";
 import { parseDecimalText } from "../ingest/number";
 
@@ -19,6 +19,7 @@ export type CliCommand =
 
 export const CLI_USAGE = `Usage: benchfold analyze <file> [--kind <kind>] [--json] [--integration <start>:<stop>]
                          [--compression-reference <dBm>] [--class <device class>] [--impedance <ohm>]
+                         [--resolution-bandwidth <Hz> | --noise-bandwidth <Hz>]
        benchfold --help
 
 Parses a bench measurement file and prints the parameters Benchfold derives from it.
@@ -33,9 +34,14 @@ Parses a bench measurement file and prints the parameters Benchfold derives from
   --class <class>    use this device class's defaults and plausibility bounds: ${deviceClasses.join(", ")}
   --impedance <ohm>  impedance for dBm, Vrms and dBµV of power readings, 1 to 1000 (50 by default;
                      a Touchstone file keeps its own reference impedance)
+  --resolution-bandwidth <Hz>, --noise-bandwidth <Hz>
+                     the bandwidth the phase-noise trace was normalised with, for spurs in dBc: the
+                     analyzer's 3 dB RBW (times 1.0645, a Gaussian filter's noise bandwidth) or its
+                     noise bandwidth as it is; one of the two, 1e-3 to 1e7
   --help, -h         show this help
 
-A setting in the file ("# integration_start:", "# integration_stop:", "# compression_reference:", "# impedance:")
+A setting in the file ("# integration_start:", "# integration_stop:", "# compression_reference:", "# impedance:",
+"# resolution_bandwidth:" or "# noise_bandwidth:" and their columns)
 wins over the command line, which wins over the class's default.
 
 Exit codes: 0 done, 2 bad usage, a file that does not parse or a setting the data cannot honour, 1 anything else.`;
@@ -59,7 +65,7 @@ export function parseCliArgs(argv: readonly string[]): CliCommand {
     const valueOf = (): string | undefined => (option?.[2] !== undefined ? option[2] : rest[++i]);
     if (arg === "--json") {
       out.json = true;
-    } else if (option && ["--kind", "--integration", "--compression-reference", "--class", "--impedance"].includes(option[1])) {
+    } else if (option && ["--kind", "--integration", "--compression-reference", "--class", "--impedance", "--resolution-bandwidth", "--noise-bandwidth"].includes(option[1])) {
       const name = option[1];
       const value = valueOf();
       if (value === undefined || value === "") return { command: "error", message: `${name} needs a value` };
@@ -93,6 +99,14 @@ function readOption(name: string, value: string, out: Omit<Analyze, "command" | 
       const ohm = parseDecimalText(value);
       if (ohm === undefined || impedanceProblem(ohm)) return `--impedance needs a resistance in ohms from 1 to 1000, e.g. 75; found "${value}"`;
       settings.impedanceOhm = ohm;
+      return undefined;
+    }
+    case "--resolution-bandwidth":
+    case "--noise-bandwidth": {
+      const hz = parseDecimalText(value);
+      if (hz === undefined || spurBandwidthProblem(hz)) return `${name} needs a bandwidth in Hz from 1e-3 to 1e7, e.g. 1000; found "${value}"`;
+      if (settings.spurBandwidth) return "State --resolution-bandwidth or --noise-bandwidth, once";
+      settings.spurBandwidth = { kind: name === "--noise-bandwidth" ? "noise" : "resolution", hz };
       return undefined;
     }
     case "--compression-reference": {

@@ -8,17 +8,19 @@ import {
   findSpurs,
   integratePhaseNoise,
   interpolatePhaseNoiseDbcHz,
+  noiseBandwidthHz,
   REFERENCE_TEMPERATURE_K,
+  spurPowerDbc,
   type SpotPhaseNoise,
 } from "../rf";
 import { lowerBound } from "../rf/sorted-search";
 import { computeMedian } from "../stats";
-import { errorMessage, makeParameter, makeSeries } from "./curves";
+import { errorMessage, makeParameter, makeSeries, roundCondition } from "./curves";
 import type { Section } from "./section";
 import type { Curve, DeriveOptions, DerivedParameter } from "./types";
-import { formatNumber } from "../format/quantity";
-import { settingSourceWords } from "../domain/analysis-settings";
-import { AnalysisSettingError, describeBand, ENGINE_INTEGRATION_BAND_HZ } from "./settings";
+import { formatNumber, formatQuantity } from "../format/quantity";
+import { settingSourceWords, type SpurBandwidth } from "../domain/analysis-settings";
+import { AnalysisSettingError, describeBand, describeSpurBandwidth, ENGINE_INTEGRATION_BAND_HZ, type ResolvedSetting } from "./settings";
 
 const DEFAULT_SPUR_THRESHOLD_DB = 10;
 
@@ -122,7 +124,7 @@ function addMultiplicationExcess(out: Derivation, spots: SpotPhaseNoise[]): void
   const { data, settings } = out;
   const n = data.multiplicationFactor;
   if (n === undefined || n <= 1) return;
-  const reference = settings.inputReference;
+  const reference = settings.inputReference ?? (data.inputLDbcHz ? { offsetHz: data.offsetHz, lDbcHz: data.inputLDbcHz } : undefined);
   if (!reference) {
     const penaltyDb = computeMultiplicationPenaltyDb(n);
     out.parameters.push(makeParameter("ideal-multiplication-penalty", penaltyDb, { multiplicationFactor: n }));
@@ -174,11 +176,60 @@ function addNoiseFloor(out: Derivation): void {
   );
 }
 
-/** Discrete spurs standing above the local noise by the threshold. */
+/**
+ * Discrete spurs standing above the local noise by the threshold. With the bandwidth the trace was
+ * normalised with (the file's per-offset column, else the setting in force) each is a power in dBc
+ * (lib/rf spurPowerDbc), carrying its offset and the bandwidth used, and the worst of them over the
+ * offsets searched is the sheet's figure; without one each stays as plotted, in dBc/Hz, and a warning
+ * says why no dBc figure is given.
+ */
 function addSpurs(out: Derivation): ReturnType<typeof findSpurs> {
-  const thresholdDb = out.settings.spurThresholdDb ?? DEFAULT_SPUR_THRESHOLD_DB;
-  const spurs = findSpurs({ trace: { offsetHz: out.data.offsetHz, phaseNoiseDbcHz: out.data.lDbcHz }, thresholdDb });
-  for (const spur of spurs) out.parameters.push(makeParameter("spur", spur.levelDbcHz, { ...out.base, offsetHz: spur.offsetHz }));
+  const { data, settings } = out;
+  const thresholdDb = settings.spurThresholdDb ?? DEFAULT_SPUR_THRESHOLD_DB;
+  const spurs = findSpurs({ trace: { offsetHz: data.offsetHz, phaseNoiseDbcHz: data.lDbcHz }, thresholdDb });
+  const bandwidthAt = (offsetHz: number): ResolvedSetting<SpurBandwidth> | undefined => {
+    const column = data.spurBandwidthColumn;
+    if (column) return { value: { kind: column.kind, hz: column.hz[lowerBound(data.offsetHz, offsetHz)] }, source: "file" };
+    return settings.spurBandwidth;
+  };
+  const stated = settings.spurBandwidth;
+  if (data.spurBandwidthColumn && stated && stated.source !== "file") {
+    out.warnings.push(
+      `Analyzer bandwidth: the file's ${data.spurBandwidthColumn.kind}_bandwidth column is used at each offset; ${settingSourceWords[stated.source]}'s ${describeSpurBandwidth(stated.value)} is not`,
+    );
+  }
+  let worstDbc: number | undefined;
+  const unconverted: number[] = [];
+  for (const spur of spurs) {
+    const bandwidth = bandwidthAt(spur.offsetHz);
+    if (!bandwidth) {
+      out.parameters.push(makeParameter("spur", spur.levelDbcHz, { ...out.base, offsetHz: spur.offsetHz }));
+      unconverted.push(spur.offsetHz);
+      continue;
+    }
+    const enbwHz = noiseBandwidthHz(bandwidth.value);
+    const levelDbc = spurPowerDbc(spur.levelDbcHz, enbwHz);
+    worstDbc = worstDbc === undefined ? levelDbc : Math.max(worstDbc, levelDbc);
+    out.parameters.push(
+      makeParameter("discrete-spur", levelDbc, {
+        ...out.base,
+        offsetHz: spur.offsetHz,
+        noiseBandwidthHz: roundCondition(enbwHz, 6),
+        ...(bandwidth.value.kind === "resolution" ? { resolutionBandwidthHz: bandwidth.value.hz } : {}),
+        bandwidthSource: bandwidth.source,
+      }),
+    );
+  }
+  if (worstDbc !== undefined) {
+    out.parameters.push(makeParameter("worst-discrete-spur", worstDbc, { ...out.base, startHz: firstOffsetHz(data), stopHz: lastOffsetHz(data) }));
+  }
+  if (unconverted.length > 0) {
+    const where = unconverted.map((f) => formatQuantity(f, "Hz", { digits: { maxSignificant: 6 } })).join(", ");
+    out.warnings.push(
+      `No noise or resolution bandwidth stated: the spur${unconverted.length === 1 ? "" : "s"} at ${where} ${unconverted.length === 1 ? "is" : "are"} given as plotted, in dBc/Hz, not in dBc; ` +
+        `state the analyzer's bandwidth (a "# resolution_bandwidth:" or "# noise_bandwidth:" line or column, or the upload's field) for the spur power`,
+    );
+  }
   return spurs;
 }
 

@@ -3,10 +3,12 @@ import {
   settingSources,
   settingSourceWords,
   type IntegrationBandHz,
+  spurBandwidthKindWords,
   type SettingSource,
+  type SpurBandwidth,
   type StatedAnalysisSettings,
 } from "../domain/analysis-settings";
-import { formatBand } from "../format/quantity";
+import { formatBand, formatQuantity } from "../format/quantity";
 import type { ParsedMeasurement } from "../ingest/types";
 import type { DeriveOptions } from "./types";
 
@@ -23,6 +25,8 @@ export interface ResolvedAnalysisSettings {
   compressionReferenceDbm?: ResolvedSetting<number>;
   /** The impedance of power readings for dBm ↔ Vrms ↔ dBµV (lib/analysis/tables.ts); 50 Ω from the engine when no source states one. */
   impedance: ResolvedSetting<number>;
+  /** The bandwidth the phase-noise trace was normalised with, for spurs in dBc; none when no source states one (a file's per-offset column is read by the engine itself). */
+  spurBandwidth?: ResolvedSetting<SpurBandwidth>;
 }
 
 /** A setting the data cannot honour (a band outside the trace, a reference drive outside the sweep): a 422 in the app, exit 2 in the CLI. */
@@ -43,6 +47,7 @@ const settingLabels: Record<keyof StatedAnalysisSettings, string> = {
   integrationBandHz: "Integration band",
   compressionReferenceDbm: "Compression reference drive",
   impedanceOhm: "Impedance",
+  spurBandwidth: "Analyzer bandwidth",
 };
 
 export type SettingLayers = Partial<Record<Exclude<SettingSource, "engine">, StatedAnalysisSettings | undefined>>;
@@ -73,11 +78,13 @@ export function resolveAnalysisSettings(layers: SettingLayers): { settings: Reso
   const band = pick("integrationBandHz", describeBand);
   const reference = pick("compressionReferenceDbm", describeDbm);
   const impedance = pick("impedanceOhm", describeOhm);
+  const spurBandwidth = pick("spurBandwidth", describeSpurBandwidth);
   return {
     settings: {
       integrationBand: band ?? { value: ENGINE_INTEGRATION_BAND_HZ, source: "engine" },
       ...(reference ? { compressionReferenceDbm: reference } : {}),
       impedance: impedance ?? { value: DEFAULT_ANALYSIS_IMPEDANCE_OHM, source: "engine" },
+      ...(spurBandwidth ? { spurBandwidth } : {}),
     },
     conflicts,
   };
@@ -96,13 +103,22 @@ function describeOhm(ohm: number): string {
   return `${ohm} Ω`;
 }
 
+/** "resolution bandwidth 1 kHz". */
+export function describeSpurBandwidth(bandwidth: SpurBandwidth): string {
+  return `${spurBandwidthKindWords[bandwidth.kind]} ${formatQuantity(bandwidth.hz, "Hz", { digits: { maxSignificant: 6 } })}`;
+}
+
 /** What a parsed file states about its own analysis (its `# key: value` lines; a Touchstone file's reference impedance). */
 export function fileAnalysisSettings(parsed: ParsedMeasurement): StatedAnalysisSettings {
   if (parsed.kind === "touchstone") return { impedanceOhm: parsed.data.referenceOhm[0] };
   const impedance = parsed.data.impedanceOhm !== undefined ? { impedanceOhm: parsed.data.impedanceOhm } : {};
   switch (parsed.kind) {
     case "phase-noise":
-      return { ...(parsed.data.integrationBandHz ? { integrationBandHz: parsed.data.integrationBandHz } : {}), ...impedance };
+      return {
+        ...(parsed.data.integrationBandHz ? { integrationBandHz: parsed.data.integrationBandHz } : {}),
+        ...(parsed.data.spurBandwidth ? { spurBandwidth: parsed.data.spurBandwidth } : {}),
+        ...impedance,
+      };
     case "drive-sweep":
     case "two-tone":
       return { ...(parsed.data.compressionReferenceDbm !== undefined ? { compressionReferenceDbm: parsed.data.compressionReferenceDbm } : {}), ...impedance };
@@ -115,7 +131,7 @@ export function fileAnalysisSettings(parsed: ParsedMeasurement): StatedAnalysisS
 export function deriveOptionsFor(settings: ResolvedAnalysisSettings, options: DeriveOptions = {}): DeriveOptions {
   return {
     ...options,
-    phaseNoise: { ...options.phaseNoise, integrationBand: settings.integrationBand },
+    phaseNoise: { ...options.phaseNoise, integrationBand: settings.integrationBand, ...(settings.spurBandwidth ? { spurBandwidth: settings.spurBandwidth } : {}) },
     compression: { ...options.compression, ...(settings.compressionReferenceDbm ? { referenceInputPowerDbm: settings.compressionReferenceDbm } : {}) },
   };
 }

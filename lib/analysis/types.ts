@@ -1,5 +1,5 @@
 import type { MeasurementKind } from "../ingest/types";
-import type { IntegrationBandHz } from "../domain/analysis-settings";
+import type { IntegrationBandHz, SpurBandwidth } from "../domain/analysis-settings";
 import type { ResolvedSetting } from "./settings";
 
 /** One derived figure. Stored as-is; the datasheet's statistics group by name + conditions. */
@@ -79,7 +79,9 @@ export interface DeriveOptions {
   phaseNoise?: {
     /** Integration band and where it came from; by default the engine's 10 Hz … 1 MHz, narrowed to the trace. */
     integrationBand?: ResolvedSetting<IntegrationBandHz>;
-    /** L(f) of the signal driving the multiplier, for the excess over ideal ×N. */
+    /** The bandwidth the trace was normalised with, for spurs in dBc; a file's per-offset column wins. */
+    spurBandwidth?: ResolvedSetting<SpurBandwidth>;
+    /** L(f) of the signal driving the multiplier, for the excess over ideal ×N; by default the file's `L_input` column. */
     inputReference?: { offsetHz: readonly number[]; lDbcHz: readonly number[] };
     /** Rise above the local median that makes a point a spur, dB; 10 by default. */
     spurThresholdDb?: number;

@@ -37,6 +37,8 @@ export const betterDirections: Record<ParameterName, BetterDirection | null> = {
   "noise-floor": "lower",
   "noise-floor-above-kt": "lower",
   spur: "lower",
+  "discrete-spur": "lower",
+  "worst-discrete-spur": "lower",
   "return-loss": "higher",
   vswr: "lower",
   "insertion-loss": "lower",

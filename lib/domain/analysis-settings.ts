@@ -42,6 +42,37 @@ export interface StatedAnalysisSettings {
   compressionReferenceDbm?: number;
   /** The impedance power readings are referred to for dBm ↔ Vrms ↔ dBµV, Ω (a Touchstone file states its own). */
   impedanceOhm?: number;
+  /** The bandwidth a phase-noise trace was normalised to 1 Hz with, for discrete spurs in dBc. */
+  spurBandwidth?: SpurBandwidth;
+}
+
+/**
+ * Which bandwidth an engineer states for a phase-noise trace: "noise", the analyzer's equivalent noise
+ * bandwidth (ENBW, what it divided by to print dBc/Hz), used as it is; or "resolution", the 3 dB
+ * resolution bandwidth (RBW) the analyzer shows, turned into a noise bandwidth by the filter-shape
+ * factor of lib/rf/spurs.ts (an ideal Gaussian filter's, 1.0645).
+ */
+export const spurBandwidthKinds = ["noise", "resolution"] as const;
+export type SpurBandwidthKind = (typeof spurBandwidthKinds)[number];
+
+export interface SpurBandwidth {
+  kind: SpurBandwidthKind;
+  hz: number;
+}
+
+/** The words a warning, the form and the set page use for each kind. */
+export const spurBandwidthKindWords: Record<SpurBandwidthKind, string> = {
+  noise: "noise bandwidth",
+  resolution: "resolution bandwidth",
+};
+
+/** The bandwidths the file, the upload and the CLI may state, Hz: from an FFT analyzer's millihertz bins to a swept analyzer's widest RBW. */
+export const spurBandwidthRangeHz = { min: 1e-3, max: 10e6 } as const;
+
+/** Why a bandwidth cannot be used, or undefined when it can. */
+export function spurBandwidthProblem(hz: number): string | undefined {
+  if (!Number.isFinite(hz) || hz < spurBandwidthRangeHz.min || hz > spurBandwidthRangeHz.max) return "the bandwidth must lie from 1 mHz to 10 MHz";
+  return undefined;
 }
 
 /** Impedance when no source states one, Ω (common practice: RF benches are 50 Ω systems, video and cable TV 75 Ω). */

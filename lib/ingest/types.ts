@@ -4,6 +4,7 @@
  */
 
 import type { MeasurementKind } from "../domain/measurements";
+import type { SpurBandwidth, SpurBandwidthKind } from "../domain/analysis-settings";
 
 /** The kinds are listed once, in lib/domain/measurements.ts. */
 export type { MeasurementKind };
@@ -85,9 +86,15 @@ export interface PhaseNoiseTrace extends UnitConditions {
   multiplicationFactor?: number;
   /** `# integration_start:` and `# integration_stop:`, the band for rms phase and jitter. */
   integrationBandHz?: { startHz: number; stopHz: number };
+  /** `# noise_bandwidth:` or `# resolution_bandwidth:`: the one bandwidth the whole trace was normalised with. */
+  spurBandwidth?: SpurBandwidth;
+  /** A `noise_bandwidth` or `resolution_bandwidth` column: the bandwidth at each offset, Hz (analyzers change it per decade). */
+  spurBandwidthColumn?: { kind: SpurBandwidthKind; hz: number[] };
   /** Strictly increasing, > 0. */
   offsetHz: number[];
   lDbcHz: number[];
+  /** An `L_input` column: L(f) of the signal driving the multiplier, at its own (input) frequency, on the same offsets. */
+  inputLDbcHz?: number[];
 }
 
 /**

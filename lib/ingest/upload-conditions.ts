@@ -3,7 +3,14 @@ import { isCalendarDate } from "../schemas/calendar-date";
 import type { UploadFields } from "../schemas/measurements";
 import type { ParsedMeasurement } from "./types";
 import { conditionFieldIds, conditionFieldPairs, conditionFields, type ConditionFieldId } from "../domain/measurement-conditions";
-import { findNamedIntegrationBand, impedanceProblem, type StatedAnalysisSettings } from "../domain/analysis-settings";
+import {
+  findNamedIntegrationBand,
+  impedanceProblem,
+  spurBandwidthKinds,
+  spurBandwidthKindWords,
+  spurBandwidthProblem,
+  type StatedAnalysisSettings,
+} from "../domain/analysis-settings";
 
 /** The conditions a measurement set is filed under: the unit, and what it was measured at. */
 export type MeasurementConditions = {
@@ -136,10 +143,13 @@ export function uploadMeasuredOn(parsed: ParsedMeasurement, fields: Pick<UploadF
 
 /**
  * The measurement settings an upload states (form or bench API): a named band or both ends of one,
- * the compression reference drive and the impedance of power readings. Half a band, a stop not above its start, or a name and ends
- * that disagree are refused (422 naming the field).
+ * the compression reference drive, the impedance of power readings and the phase-noise trace's noise or
+ * resolution bandwidth. Half a band, a stop not above its start, a name and ends that disagree, or both
+ * bandwidths are refused (422 naming the field).
  */
-export function uploadAnalysisSettings(fields: Pick<UploadFields, "integrationBand" | "integrationStartHz" | "integrationStopHz" | "compressionReferenceDbm" | "impedanceOhm">): StatedAnalysisSettings {
+export function uploadAnalysisSettings(
+  fields: Pick<UploadFields, "integrationBand" | "integrationStartHz" | "integrationStopHz" | "compressionReferenceDbm" | "impedanceOhm" | "noiseBandwidthHz" | "resolutionBandwidthHz">,
+): StatedAnalysisSettings {
   const out: StatedAnalysisSettings = {};
   const { integrationStartHz: startHz, integrationStopHz: stopHz } = fields;
   if ((startHz === undefined) !== (stopHz === undefined)) {
@@ -162,6 +172,16 @@ export function uploadAnalysisSettings(fields: Pick<UploadFields, "integrationBa
     const problem = impedanceProblem(fields.impedanceOhm);
     if (problem) throw new AppError("invalid", `The ${problem}.`, { field: "impedanceOhm" });
     out.impedanceOhm = fields.impedanceOhm;
+  }
+  if (fields.noiseBandwidthHz !== undefined && fields.resolutionBandwidthHz !== undefined) {
+    throw new AppError("invalid", "State the noise bandwidth or the resolution bandwidth of the phase-noise trace, not both.", { field: "resolutionBandwidthHz" });
+  }
+  for (const kind of spurBandwidthKinds) {
+    const hz = kind === "noise" ? fields.noiseBandwidthHz : fields.resolutionBandwidthHz;
+    if (hz === undefined) continue;
+    const problem = spurBandwidthProblem(hz);
+    if (problem) throw new AppError("invalid", `The ${spurBandwidthKindWords[kind]}: ${problem}.`, { field: kind === "noise" ? "noiseBandwidthHz" : "resolutionBandwidthHz" });
+    out.spurBandwidth = { kind, hz };
   }
   return out;
 }

@@ -11,10 +11,9 @@ export interface FindSpursOptions {
 }
 
 /**
- * A discrete spur. Its level is the trace's peak value in dBc/Hz as plotted: a
- * spur is a discrete tone, so its true power in dBc depends on the analyzer's
- * resolution bandwidth, which a trace does not carry. Benchfold reports the peak
- * dBc/Hz reading and says so.
+ * A discrete spur as the trace plots it: its peak value in dBc/Hz. A spur is a discrete tone, so
+ * its power in dBc depends on the bandwidth the analyzer normalised the trace with
+ * (spurPowerDbc below), which the trace alone does not carry.
  */
 export interface Spur {
   offsetHz: number;
@@ -182,4 +181,30 @@ class LevelCounts {
     this.add(point, 1);
     return median;
   }
+}
+
+/**
+ * Equivalent noise bandwidth of a Gaussian filter over its 3 dB bandwidth: for |H(f)|² = exp(−a·f²)
+ * with a·(B₃/2)² = ln 2, ∫|H|² df = √(π/a), so ENBW/B₃ = √π / (2·√ln 2) ≈ 1.0645. Swept and FFT
+ * analyzers use near-Gaussian resolution filters whose noise bandwidth is 1.05 to 1.13 times the 3 dB
+ * bandwidth (Keysight Application Note 150, Spectrum Analysis Basics, ch. 5, noise-power bandwidth);
+ * the ideal Gaussian's factor sits at the low end, so a spur read through it is at most about 0.3 dB low.
+ */
+export const GAUSSIAN_NOISE_BANDWIDTH_PER_RBW = Math.sqrt(Math.PI) / (2 * Math.sqrt(Math.LN2));
+
+/** The equivalent noise bandwidth a stated bandwidth stands for, Hz: a noise bandwidth as it is, a 3 dB RBW through the Gaussian factor. */
+export function noiseBandwidthHz(bandwidth: { kind: "noise" | "resolution"; hz: number }): number {
+  return bandwidth.kind === "noise" ? bandwidth.hz : bandwidth.hz * GAUSSIAN_NOISE_BANDWIDTH_PER_RBW;
+}
+
+/**
+ * A discrete spur's power relative to the carrier, dBc, from its reading on a trace normalised to 1 Hz.
+ * The analyzer divides the power in its filter by the filter's noise bandwidth B to print dBc/Hz; a
+ * discrete tone passes the filter whole, so its reading is P_spur − 10·log10(B / 1 Hz) and
+ * P_spur = L_plotted + 10·log10(B) (Keysight AN 150 ch. 5: a level measured in one bandwidth is moved to
+ * another by 10·log(BW₂/BW₁)).
+ */
+export function spurPowerDbc(levelDbcHz: number, noiseBandwidthHz: number): number {
+  if (!(noiseBandwidthHz > 0)) throw new RangeError(`The noise bandwidth must be above 0 Hz, got ${noiseBandwidthHz}`);
+  return levelDbcHz + 10 * Math.log10(noiseBandwidthHz);
 }

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { deviceClasses } from "@/lib/domain/device-classes";
 import { mappableKinds, measurementKinds } from "@/lib/domain/measurements";
 import { calendarDateSchema, optionalCalendarDateSchema } from "./calendar-date";
-import { impedanceRangeOhm, namedIntegrationBandIds } from "@/lib/domain/analysis-settings";
+import { impedanceRangeOhm, namedIntegrationBandIds, spurBandwidthRangeHz } from "@/lib/domain/analysis-settings";
 import { findProseLimitBreach } from "@/lib/sheet/render-prose";
 import { conditionFieldIds, conditionFieldLabel, conditionFields, type ConditionFieldId } from "@/lib/domain/measurement-conditions";
 import { minNotAboveMax, optionalDecimal, requiredDecimal } from "./decimal";
@@ -31,6 +31,10 @@ export const measurementConditionsSchema = z.object({
   compressionReferenceDbm: optionalNumber(-200, 60, "compression reference drive (dBm)"),
   // The impedance power readings are referred to for dBm ↔ Vrms ↔ dBµV; a Touchstone file keeps its own.
   impedanceOhm: optionalNumber(impedanceRangeOhm.min, impedanceRangeOhm.max, "impedance (Ω)"),
+  // The bandwidth a phase-noise trace was normalised with, for spurs in dBc: the analyzer's noise bandwidth (used
+  // as is) or its 3 dB resolution bandwidth (× 1.0645, lib/rf/spurs.ts); one of the two. The file's own line or column wins.
+  noiseBandwidthHz: optionalNumber(spurBandwidthRangeHz.min, spurBandwidthRangeHz.max, "noise bandwidth (Hz)"),
+  resolutionBandwidthHz: optionalNumber(spurBandwidthRangeHz.min, spurBandwidthRangeHz.max, "resolution bandwidth (Hz)"),
 });
 function conditionFieldSchemas() {
   const entries = conditionFieldIds.map((id) => {

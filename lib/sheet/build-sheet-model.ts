@@ -15,6 +15,7 @@ import {
   checkLimitUnitCount,
   checkStatedBands,
   checkStatedUncertainty,
+  checkSpurBandwidth,
   DEFAULT_LIMIT_MIN_UNITS,
   ratedOperatingTemperature,
   reviewCheckStatements,
@@ -97,6 +98,7 @@ function consistencyIssues(template: SheetTemplate, input: SheetInput, sets: App
     ...checkStatedUncertainty({ rows: template.specifications.rows, sets, measurementUncertainty: input.settings.measurementUncertainty }),
     ...checkLimitSpread({ groups: specTable.groups, operatingTemperatureC: ratedOperatingTemperature(input.absoluteMaximumRatings) }),
     ...checkLimitUnitCount({ groups: specTable.groups, minUnits: input.settings.limitMinUnits ?? DEFAULT_LIMIT_MIN_UNITS }),
+    ...checkSpurBandwidth({ rows: template.specifications.rows, sets }),
   ];
 }
 

@@ -25,7 +25,8 @@ export const reviewCheckStatements: string[] = [
     "each stated measurement uncertainty against the root-sum-square of the stated uncertainties of the instruments that measured " +
     "the data (JCGM 100:2008 §5.1.2); the lots and temperatures behind each guaranteed limit against the rated operating " +
     "temperature; the units behind each limit guaranteed by characterization against the organization's minimum; the calibration " +
-    "of each instrument on the measurement date; plausibility of the measured values; every absolute maximum rating filled in.",
+    "of each instrument on the measurement date; plausibility of the measured values; every absolute maximum rating filled in; " +
+    "the analyzer bandwidth behind each phase-noise set's spurs, where the sheet states spurs in dBc.",
   "Not checked: the prose (description, features, handling, test fixture) is free text, so a statement there that contradicts " +
     "the fixture, the conditions or the data is for the reviewer to find; so are limits that are consistent but wrong.",
 ];
@@ -311,3 +312,35 @@ export function checkLimitUnitCount(options: { groups: LimitGroup[]; minUnits: n
 }
 
 const count = (n: number, noun: string) => `${n} ${noun}${n === 1 ? "" : "s"}`;
+
+/* ---------- spurs without the analyzer's bandwidth ---------- */
+
+/** The parameters a sheet row of discrete spurs in dBc reads (lib/analysis parameterCatalog). */
+const SPUR_DBC_PARAMETERS = new Set(["discrete-spur", "worst-discrete-spur"]);
+
+/**
+ * Phase-noise sets whose spurs are known only as plotted, in dBc/Hz, because neither the file nor the
+ * upload stated the bandwidth the analyzer normalised the trace with: a spur's power in dBc needs it
+ * (lib/rf/spurs.ts), so those spurs are left out of the sheet's dBc rows and a reader would take the
+ * row for the whole sample. One issue per set, naming the spurs' offsets. A set with no spur above the
+ * threshold needs no bandwidth for the row and is not flagged. Quiet when the template has no spur row.
+ */
+export function checkSpurBandwidth(options: { rows: Pick<SheetTemplate["specifications"]["rows"][number], "parameter" | "label">[]; sets: ApprovedSetInput[] }): Issue[] {
+  const rows = options.rows.filter((row) => SPUR_DBC_PARAMETERS.has(row.parameter));
+  if (rows.length === 0) return [];
+  const rowWords = [...new Set(rows.map((row) => row.label.toLowerCase()))].join(", ");
+  return options.sets.flatMap((set) => {
+    const offsets = set.parameters.filter((p) => p.name === "spur" && typeof p.conditions.offsetHz === "number").map((p) => p.conditions.offsetHz as number);
+    if (offsets.length === 0) return [];
+    const where = [...offsets].sort((a, b) => a - b).map((f) => formatQuantity(f, "Hz", { digits: { maxSignificant: 6 } })).join(", ");
+    return [
+      {
+        code: "spur-bandwidth-missing",
+        message:
+          `Measurement set ${String(set.id)} (${set.kind}, ${set.serial}) states no analyzer bandwidth: its ${count(offsets.length, "spur")} at ${where} ` +
+          `${offsets.length === 1 ? "is" : "are"} known only as plotted, in dBc/Hz, and left out of ${rowWords}; state the resolution or noise bandwidth ` +
+          `in the file or the upload (a corrected set) for the spur power in dBc.`,
+      },
+    ];
+  });
+}

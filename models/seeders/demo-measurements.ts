@@ -153,7 +153,13 @@ const hybrid = (serial: string, seed: number, measuredOn: string): DemoUpload =>
   bytes: anotherHybridUnit(serial, seed),
 });
 
-/** In upload order: on a fresh database the measurement sets get ids 1, 2, 3… in this order. */
+/**
+ * In upload order: on a fresh database the measurement sets get ids 1, 2, 3… in this order.
+ * phase-noise-doubler.csv states the analyzer's resolution bandwidth at each offset and carries the
+ * 1 GHz source's own L(f) (scripts/fixtures/make-examples.ts): its three spurs reach the sheet in dBc
+ * (worst −108.2 dBc at 50 Hz) and the doubler's excess over an ideal ×2 is about 1.5 dB close in.
+ * Invented values, as every demo file.
+ */
 const storyUploads: DemoUpload[] = [
   { org: "kestrine", part: "KDX-2G4", file: "drive-sweep-doubler.csv", fields: { measuredOn: "2026-10-05" }, instruments: ["source", "analyzer"], approve: true, bytes: example("drive-sweep-doubler.csv") },
   doubler("BFD-0002", 11, "2026-10-05", true),

@@ -34,6 +34,7 @@ const figures: Record<string, { typ: [number, number]; limit: "min" | "max"; mar
   "spot-phase-noise": { typ: [-152, -128], limit: "max", margin: 4 },
   "excess-over-ideal-multiplication": { typ: [0.3, 3], limit: "max", margin: 1 },
   "noise-floor-above-kt": { typ: [2, 12], limit: "max", margin: 2 },
+  "worst-discrete-spur": { typ: [-100, -70], limit: "max", margin: 6 },
   vswr: { typ: [1.15, 1.8], limit: "max", margin: 0.3 },
   "amplitude-balance": { typ: [0.1, 0.6], limit: "max", margin: 0.3 },
   "phase-balance": { typ: [1, 5], limit: "max", margin: 2 },

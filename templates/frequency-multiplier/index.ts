@@ -180,6 +180,17 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
         groupBy: ["carrierFrequencyHz", "temperatureC"],
         defaultBasis: "characterization",
       },
+      {
+        id: "worst-discrete-spur",
+        parameter: "worst-discrete-spur",
+        label: "Worst discrete spur",
+        symbol: "P_spur",
+        unit: "dBc",
+        decimals: 1,
+        // The offsets searched are the trace's span, printed in the Offset column as a band.
+        groupBy: ["carrierFrequencyHz", "startHz", "stopHz", "temperatureC"],
+        defaultBasis: "characterization",
+      },
     ],
     notes: [
       "Conversion loss is P_in − P_out of the wanted 2nd-order output; suppression is P_wanted − P_order (positive below the wanted output).",
@@ -188,6 +199,9 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
         "sweep by linear interpolation between the two drive steps around it. Each unit's optimum drive is its own row.",
       "Residual phase noise is single-sideband L(f) per IEEE Std 1139-2008; an ideal ×2 adds 6.02 dB.",
       "RMS jitter and phase integrate L(f) over the offset band printed beside them: φ_rms = √(2∫L(f)df), σ_t = φ_rms/(2π f_0).",
+      "Excess over ideal ×N is L_out − (L_in + 20·log10 N) at each offset, L_in the source's own L(f) measured on the same offsets.",
+      "Discrete spurs are in dBc: the plotted peak plus 10·log10 of the analyzer's noise bandwidth at the spur's offset (a stated 3 dB " +
+        "resolution bandwidth × 1.0645, a Gaussian filter's). The row gives each unit's highest spur over the offsets searched; a unit with no spur adds no value.",
     ],
   },
   // The input band holds the drive sweeps' input frequency; the output band the phase-noise carrier.

@@ -217,3 +217,80 @@ describe("the impedance of power readings (issue 12: dBm ↔ Vrms ↔ dBµV for 
   });
 });
 
+
+describe("discrete spurs in dBc and the excess over ideal ×N through an upload (issue 13)", () => {
+  type WithUnit = Parameter & { unit: string };
+  /** The example without its RBW column (offset, L, L_input), under a fresh serial. */
+  function withoutBandwidthColumn(): Uint8Array<ArrayBuffer> {
+    const text = Buffer.from(phaseNoiseFile()).toString("utf8")
+      .split("\n")
+      .map((line) => (line.startsWith("#") || line === "" ? line : line.split(",").filter((_, i) => i !== 2).join(",")))
+      .join("\n");
+    return new Uint8Array(Buffer.from(text, "utf8"));
+  }
+  /** The rows of the set page's parameters table whose heading cell is `label`, as text. */
+  async function pageRows(setId: number, label: string): Promise<string[]> {
+    const page = await engineer.request(`/devices/${deviceId}/measurements/${setId}`);
+    expect(page.status).toBe(200);
+    const html = noBreak(await page.text());
+    return [...html.matchAll(/<tr>(.*?)<\/tr>/g)].map((m) => m[1]).filter((row) => row.includes(`>${label}</th>`)).map((row) => row.replace(/<[^>]+>/g, " ").replace(/\s+/g, " "));
+  }
+
+  it("the file's RBW column gives each spur in dBc with its offset and bandwidth; the set page prints them in dBc", async () => {
+    const r = await benchUpload({});
+    const body = (await r.json()) as Posted;
+    expect(r.status, JSON.stringify(body)).toBe(201);
+    const parameters = body.measurementSet.parameters as WithUnit[];
+    const spurs = parameters.filter((p) => p.name === "discrete-spur");
+    expect(spurs.map((p) => [p.conditions.offsetHz, p.unit, p.conditions.bandwidthSource])).toEqual([
+      [50, "dBc", "file"],
+      [150, "dBc", "file"],
+      [25000, "dBc", "file"],
+    ]);
+    // −108.5 dBc/Hz plotted at RBW 1 Hz: −108.5 + 10·log10(1.0645) = −108.229 dBc (the same as the CLI's, tests/unit/cli/__snapshots__).
+    expect(parameters.find((p) => p.name === "worst-discrete-spur")!.value).toBeCloseTo(-108.229, 3);
+    // The source's L(f) in the file's L_input column: the excess over ideal ×2 at 1 kHz, as the CLI prints it.
+    expect(parameters.find((p) => p.name === "excess-over-ideal-multiplication" && p.conditions.offsetHz === 1000)!.value).toBeCloseTo(1.609, 3);
+
+    const rows = await pageRows(body.measurementSet.id, "Discrete spur");
+    expect(rows).toHaveLength(3);
+    for (const row of rows) {
+      expect(row).toMatch(/ dBc $/);
+      expect(row).toContain("bandwidth set by the file");
+    }
+    expect(rows[0]).toContain("−108.23 dBc");
+    expect(await pageRows(body.measurementSet.id, "Spur as plotted")).toEqual([]);
+  });
+
+  it("the upload's resolution bandwidth when the file states none", async () => {
+    const r = await benchUpload({ resolutionBandwidthHz: "1" }, withoutBandwidthColumn());
+    const body = (await r.json()) as Posted;
+    expect(r.status, JSON.stringify(body)).toBe(201);
+    const spur = body.measurementSet.parameters.find((p) => p.name === "discrete-spur" && p.conditions.offsetHz === 50)!;
+    expect(spur.conditions).toMatchObject({ resolutionBandwidthHz: 1, bandwidthSource: "upload" });
+    expect(spur.value).toBeCloseTo(-108.229, 3);
+  });
+
+  it("without a bandwidth the spurs stay as plotted in dBc/Hz, with a warning, and the set page labels them so", async () => {
+    const r = await benchUpload({}, withoutBandwidthColumn());
+    const body = (await r.json()) as Posted;
+    expect(r.status, JSON.stringify(body)).toBe(201);
+    const parameters = body.measurementSet.parameters as WithUnit[];
+    expect(parameters.some((p) => p.name === "discrete-spur" || p.name === "worst-discrete-spur")).toBe(false);
+    expect(parameters.filter((p) => p.name === "spur").map((p) => p.unit)).toEqual(["dBc/Hz", "dBc/Hz", "dBc/Hz"]);
+    expect(noBreak(body.measurementSet.warnings.join("\n"))).toContain("No noise or resolution bandwidth stated: the spurs at 50 Hz, 150 Hz, 25 kHz are given as plotted, in dBc/Hz, not in dBc");
+    const rows = await pageRows(body.measurementSet.id, "Spur as plotted");
+    expect(rows).toHaveLength(3);
+    for (const row of rows) expect(row).toMatch(/ dBc\/Hz $/);
+    expect(await pageRows(body.measurementSet.id, "Discrete spur")).toEqual([]);
+  });
+
+  it("both bandwidths at once are refused, nothing stored", async () => {
+    const before = await uploadRowCounts();
+    const r = await benchUpload({ resolutionBandwidthHz: "1", noiseBandwidthHz: "1" }, withoutBandwidthColumn());
+    const body = (await r.json()) as Refused;
+    expect(r.status, JSON.stringify(body)).toBe(422);
+    expect(body.error.details.field).toBe("resolutionBandwidthHz");
+    expect(await uploadRowCounts()).toEqual(before);
+  });
+});

@@ -10,6 +10,11 @@ export function analyzeExample(name: string, options?: DeriveOptions) {
   return deriveParameters(parseMeasurementFile({ fileName: name, bytes }), options);
 }
 
+/** A file's text through the parser and the engine, as an upload of that name. */
+export function analyzeText(text: string, options?: DeriveOptions, name = "trace.csv") {
+  return deriveParameters(parseMeasurementFile({ fileName: name, bytes: new Uint8Array(Buffer.from(text, "utf8")) }), options);
+}
+
 /** The one parameter with this name whose conditions include every given entry; fails loudly otherwise. */
 export function pick(parameters: DerivedParameter[], name: string, conditions: Record<string, string | number> = {}): DerivedParameter {
   const found = parameters.filter(

@@ -43,7 +43,15 @@ describe("benchfold CLI settings", () => {
     expect(parseCliArgs(["analyze", "a.csv", "--class", "frequency-multiplier", "--impedance", "75"])).toMatchObject({ deviceClass: "frequency-multiplier", settings: { impedanceOhm: 75 } });
   });
 
+  it("--resolution-bandwidth and --noise-bandwidth: the phase-noise trace's bandwidth for spurs in dBc", () => {
+    expect(parseCliArgs(["analyze", "a.csv", "--resolution-bandwidth", "1e3"])).toMatchObject({ settings: { spurBandwidth: { kind: "resolution", hz: 1000 } } });
+    expect(parseCliArgs(["analyze", "a.csv", "--noise-bandwidth=0.5"])).toMatchObject({ settings: { spurBandwidth: { kind: "noise", hz: 0.5 } } });
+  });
+
   it.each([
+    [["analyze", "a.csv", "--resolution-bandwidth", "1e3", "--noise-bandwidth", "1e3"], "State --resolution-bandwidth or --noise-bandwidth, once"],
+    [["analyze", "a.csv", "--noise-bandwidth", "0"], "--noise-bandwidth needs a bandwidth in Hz"],
+    [["analyze", "a.csv", "--resolution-bandwidth", "wide"], "--resolution-bandwidth needs a bandwidth in Hz"],
     [["analyze", "a.csv", "--integration", "20e6:12e3"], "0 < start < stop"],
     [["analyze", "a.csv", "--integration", "12k"], "--integration needs <start>:<stop>"],
     [["analyze", "a.csv", "--integration", "0x10:1e6"], "--integration needs <start>:<stop>"],

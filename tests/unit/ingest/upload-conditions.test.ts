@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { AppError } from "@/lib/errors";
-import { checkClassConditions, stampStatedConditions } from "@/lib/ingest/upload-conditions";
+import { checkClassConditions, stampStatedConditions, uploadAnalysisSettings } from "@/lib/ingest/upload-conditions";
 import { conditionFieldIds } from "@/lib/domain/measurement-conditions";
 import { deviceClassLabels } from "@/lib/domain/device-classes";
 import { classConditions, uploadConditionFields } from "@/templates/upload-conditions";
@@ -66,5 +66,25 @@ describe("stampStatedConditions", () => {
   it("returns the same parameters when nothing is stated", () => {
     const parameters = [band, spot];
     expect(stampStatedConditions(parameters, { serial: "X", temperatureC: 25 })).toBe(parameters);
+  });
+});
+
+describe("uploadAnalysisSettings: the phase-noise trace's bandwidth", () => {
+  it("takes a resolution or a noise bandwidth, and says which", () => {
+    expect(uploadAnalysisSettings({ resolutionBandwidthHz: 1000 })).toEqual({ spurBandwidth: { kind: "resolution", hz: 1000 } });
+    expect(uploadAnalysisSettings({ noiseBandwidthHz: 0.25 })).toEqual({ spurBandwidth: { kind: "noise", hz: 0.25 } });
+    expect(uploadAnalysisSettings({})).toEqual({});
+  });
+
+  it("refuses both at once, naming the field", () => {
+    let caught: unknown;
+    try {
+      uploadAnalysisSettings({ resolutionBandwidthHz: 1000, noiseBandwidthHz: 1064 });
+    } catch (error) {
+      caught = error;
+    }
+    expect(caught).toBeInstanceOf(AppError);
+    expect(caught).toMatchObject({ code: "invalid", details: { field: "resolutionBandwidthHz" } });
+    expect((caught as Error).message).toContain("not both");
   });
 });

@@ -275,3 +275,47 @@ describe("the uncertainty and spread of a level are said in dB", () => {
     expect(rule).not.toContain("dBc");
   });
 });
+
+describe("spurs without the analyzer's bandwidth behind a spur row in dBc", () => {
+  const checkSpurBandwidth = plain(checks.checkSpurBandwidth);
+  const phaseNoiseSet = (id: number, parameters: ApprovedSetInput["parameters"]): ApprovedSetInput => ({
+    id,
+    kind: "phase-noise",
+    serial: `BFD-09${id}`,
+    temperatureC: 25,
+    measuredOn: "2026-10-09",
+    parameters,
+    curves: [],
+    instruments: [],
+  });
+  const asPlotted = (offsetHz: number) => ({ name: "spur", value: -120, unit: "dBc/Hz", conditions: { carrierFrequencyHz: 2 * GHz, offsetHz } });
+  const inDbc = { name: "discrete-spur", value: -110, unit: "dBc", conditions: { carrierFrequencyHz: 2 * GHz, offsetHz: 1000, noiseBandwidthHz: 10, bandwidthSource: "file" } };
+  const rows = frequencyMultiplierTemplate.specifications.rows;
+
+  it("fires for a set whose spurs are known only as plotted, naming the set, the offsets and the row", () => {
+    const issues = checkSpurBandwidth({ rows, sets: [phaseNoiseSet(7, [asPlotted(25000), asPlotted(50)]), phaseNoiseSet(8, [inDbc])] });
+    expect(issues).toEqual([
+      {
+        code: "spur-bandwidth-missing",
+        message:
+          "Measurement set 7 (phase-noise, BFD-097) states no analyzer bandwidth: its 2 spurs at 50 Hz, 25 kHz are known only as plotted, in dBc/Hz, " +
+          "and left out of worst discrete spur; state the resolution or noise bandwidth in the file or the upload (a corrected set) for the spur power in dBc.",
+      },
+    ]);
+  });
+
+  it("stays quiet when every spur is in dBc, when a set found no spur, and for a template without a spur row", () => {
+    expect(checkSpurBandwidth({ rows, sets: [phaseNoiseSet(8, [inDbc]), phaseNoiseSet(9, [])] })).toEqual([]);
+    expect(checkSpurBandwidth({ rows: doubleBalancedMixerTemplate.specifications.rows, sets: [phaseNoiseSet(7, [asPlotted(50)])] })).toEqual([]);
+  });
+
+  it("is among the sheet model's open issues, and the worst spur row is fed by the sets in dBc only", () => {
+    const input = loadDoublerInput();
+    const worst = { name: "worst-discrete-spur", value: -110, unit: "dBc", conditions: { carrierFrequencyHz: 2 * GHz, startHz: 10, stopHz: 1e6 } };
+    const model = buildSheetModel({ ...input, approvedSets: [...input.approvedSets, phaseNoiseSet(901, [asPlotted(50)]), phaseNoiseSet(902, [inDbc, worst])] });
+    expect(model.issues.filter((i) => i.code === "spur-bandwidth-missing").map((i) => i.message)).toEqual([expect.stringContaining("Measurement set 901 (phase-noise, BFD-09901)")]);
+    const row = model.specifications.rows.find((r) => r.rowId === "worst-discrete-spur")!;
+    expect(row).toMatchObject({ unit: "dBc", n: 1, label: "Worst discrete spur" });
+    expect(row.typ.value).toBe(-110);
+  });
+});
