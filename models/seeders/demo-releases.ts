@@ -41,9 +41,6 @@ const demoIssueReasons = {
     "limit-from-few-units": "The characterization limits rest on the October build's units; more are added as production tests them.",
   },
   "KM-7H": {
-    "specified-outside-stated-band":
-      "The device record states the balun's design band; this lot was characterized on the 0.5–3 GHz bench, and the rows say so. The record follows the characterized band at the next revision.",
-    "stated-band-not-specified": "Below 500 MHz the mixer is specified by design only; the low-band bench is being built.",
     "uncertainty-below-instruments": sourceLevelledOnAnalyzer,
     "limit-at-one-temperature": screenedAtRoomTemperature,
   },
