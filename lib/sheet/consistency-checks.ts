@@ -245,7 +245,8 @@ export function ratedOperatingTemperature(ratings: SheetInput["absoluteMaximumRa
  * - Temperature: a limit guaranteed by test or characterization whose template row has data at one
  *   temperature only, while the operating temperature is rated over a range, holds at that
  *   temperature; a designer at the range's ends has nothing. Quiet when no range is rated (the
- *   missing rating is its own issue), or when the row has data at two temperatures or more.
+ *   missing rating is its own issue), or when the row has data at two temperatures or more (a row over
+ *   temperature, whose groups carry temperatureMinC and temperatureMaxC, has the two ends of its span).
  * One issue per kind, listing the limits.
  */
 export function checkLimitSpread(options: { groups: LimitGroup[]; operatingTemperatureC: { min: number; max: number } | null }): Issue[] {
@@ -269,9 +270,12 @@ export function checkLimitSpread(options: { groups: LimitGroup[]; operatingTempe
     const temperaturesByRow = new Map<string, Set<number | string>>();
     for (const g of options.groups) {
       if (g.n === 0) continue;
-      const t = parseConditionsKey(g.conditionsKey).temperatureC;
+      const { temperatureC, temperatureMinC, temperatureMaxC } = parseConditionsKey(g.conditionsKey);
       if (!temperaturesByRow.has(g.rowId)) temperaturesByRow.set(g.rowId, new Set());
-      temperaturesByRow.get(g.rowId)!.add(t ?? "unstated");
+      const temperatures = temperaturesByRow.get(g.rowId)!;
+      // A row over temperature states no one temperature: its group carries the span its units were measured over.
+      if (typeof temperatureMinC === "number" && typeof temperatureMaxC === "number") [temperatureMinC, temperatureMaxC].forEach((t) => temperatures.add(t));
+      else temperatures.add(temperatureC ?? "unstated");
     }
     const oneTemperature = guaranteed.filter((g) => g.limits!.basis !== "design" && (temperaturesByRow.get(g.rowId)?.size ?? 0) <= 1);
     if (oneTemperature.length > 0) {
