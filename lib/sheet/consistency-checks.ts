@@ -7,6 +7,7 @@
 
 import type { SheetTemplate, StatedBandTemplate } from "../../templates/types";
 import { differenceUnit, formatNumber, formatQuantity, formatRange } from "../format/quantity";
+import { lowerFirst } from "../format/text";
 import { combineUncertainty } from "../stats/uncertainty";
 import { parseConditionsKey, type Conditions } from "./conditions";
 import { formatTemperature } from "./format";
@@ -187,7 +188,7 @@ export function checkStatedUncertainty(options: {
     issues.push({
       code: "uncertainty-below-instruments",
       message:
-        `The stated uncertainty of ${row.label.toLowerCase()}, U = ${formatQuantity(statedU, unit, { digits: { maxSignificant: 3 } })} (k = 2), ` +
+        `The stated uncertainty of ${lowerFirst(row.label)}, U = ${formatQuantity(statedU, unit, { digits: { maxSignificant: 3 } })} (k = 2), ` +
         `is smaller than ${formatQuantity(worst.expanded, unit, { digits: { maxSignificant: 3 } })} (k = 2), ${how} measurement set ${worst.setId} ` +
         `(${listed}; JCGM 100:2008 §5.1.2, uncorrelated inputs, unit sensitivity): the guard bands built on it are too narrow.`,
     });
