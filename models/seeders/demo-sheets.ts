@@ -107,7 +107,8 @@ export const demoSheets: Record<string, DemoSheetContent> = {
     limits: [
       { parameter: "insertion-loss", conditionsKey: `path=S21;${hybridBand.replace("stopHz", "statistic=worst;stopHz")}`, max: 3.6, unit: "dB", basis: "test" },
       { parameter: "insertion-loss", conditionsKey: `path=S31;${hybridBand.replace("stopHz", "statistic=worst;stopHz")}`, max: 3.7, unit: "dB", basis: "test" },
-      { parameter: "amplitude-balance", conditionsKey: hybridBand.replace("stopHz", "statistic=worst;stopHz"), max: 0.5, unit: "dB", basis: "test" },
+      // Balance is signed (the largest deviation, sign kept), so "within 0.5 dB" is a limit on both sides.
+      { parameter: "amplitude-balance", conditionsKey: hybridBand.replace("stopHz", "statistic=worst;stopHz"), min: -0.5, max: 0.5, unit: "dB", basis: "test" },
       { parameter: "phase-balance", conditionsKey: hybridBand.replace("stopHz", "statistic=worst;stopHz"), min: -3, max: 3, unit: "°", basis: "test" },
       { parameter: "isolation", conditionsKey: `path=S41;${hybridBand.replace("stopHz", "statistic=worst;stopHz")}`, min: 20, unit: "dB", basis: "test" },
       { parameter: "vswr", conditionsKey: `port=1;${hybridBand.replace("stopHz", "statistic=worst;stopHz")}`, max: 1.3, unit: ":1", basis: "characterization" },
@@ -115,7 +116,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
     prose: {
       description:
         "The **KQH-2G** splits a signal into two outputs of equal amplitude in quadrature (90° apart) over 1.7–2.3 GHz. The fourth port is isolated and takes the reflected power of mismatched loads into its 50 Ω termination.",
-      features: "- Amplitude balance within 0.5 dB\n- Phase balance within ±3° of 90°\n- Isolation above 20 dB\n- Surface mount, no DC path between ports",
+      features: "- Amplitude balance within ±0.5 dB\n- Phase balance within ±3° of 90°\n- Isolation above 20 dB\n- Surface mount, no DC path between ports",
       applications: "- Balanced amplifiers\n- Image-reject and I/Q mixers\n- Quadrature LO generation",
       "test-fixture":
         "Four-port S-parameters from 1.5 to 2.5 GHz on a 50 Ω test board, the board's lines de-embedded with a thru-reflect-line calibration. Port 1 input, 2 through, 3 coupled, 4 isolated.",
