@@ -11,7 +11,7 @@ import { lowerFirst } from "../format/text";
 import { combineUncertainty } from "../stats/uncertainty";
 import { parseConditionsKey, type Conditions } from "./conditions";
 import { formatTemperature } from "./format";
-import { notationSegments } from "./notation";
+import { plainNotation } from "./notation";
 import type { ApprovedSetInput, SheetInput, SheetModel, StatisticsGroup } from "./types";
 
 
@@ -218,7 +218,6 @@ type LimitGroup = Pick<StatisticsGroup, "rowId" | "label" | "conditionsKey" | "c
 const guarantees = (g: LimitGroup) => g.limits !== null && (g.limits.min.value !== null || g.limits.max.value !== null);
 
 /** Issue messages are plain text everywhere they are shown: the notation's subscripts are written inline ("TA 25 °C"). */
-const plainNotation = (text: string) => notationSegments(text).map((s) => s.text + (s.sub ?? "")).join("");
 
 const describeGroup = (g: LimitGroup) => plainNotation(g.conditionsText ? `${g.label} (${g.conditionsText})` : g.label);
 
