@@ -129,7 +129,7 @@ async function playPart(opts: { appUrl: string; team: Team; token: string; instr
   const prose = { ...part.prose, ...(part.prose.features ? { features: fillFeatures(part.prose.features, limits, sheet) } : {}) };
   await team.engineer.call("PUT", `/api/devices/${deviceId}/spec-limits`, { limits }, 200);
   await team.engineer.call("PUT", `/api/devices/${deviceId}/sheet-content`, { prose, absoluteMaximumRatings: part.absoluteMaximumRatings, measurementUncertainty: part.measurementUncertainty }, 200);
-  return `${part.partNumber} ${await releaseNext(team, deviceId, { ...part, issueReasons: demoCatalogIssueReasons })}`;
+  return `${part.partNumber} ${await releaseNext(team, deviceId, { ...part, issueReasons: { ...demoCatalogIssueReasons, ...part.issueReasons } })}`;
 }
 
 /** The parts of one organization, one after the other, with one bench token made for the run and revoked after it. */

@@ -2,3 +2,4 @@ export * from "./quantity";
 export * from "./date";
 export * from "./byte-size";
 export * from "./typed-decimals";
+export * from "./text";

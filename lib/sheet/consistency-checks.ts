@@ -7,10 +7,11 @@
 
 import type { SheetTemplate, StatedBandTemplate } from "../../templates/types";
 import { differenceUnit, formatNumber, formatQuantity, formatRange } from "../format/quantity";
+import { lowerFirst } from "../format/text";
 import { combineUncertainty } from "../stats/uncertainty";
 import { parseConditionsKey, type Conditions } from "./conditions";
 import { formatTemperature } from "./format";
-import { notationSegments } from "./notation";
+import { plainNotation } from "./notation";
 import type { ApprovedSetInput, SheetInput, SheetModel, StatisticsGroup } from "./types";
 
 
@@ -188,7 +189,7 @@ export function checkStatedUncertainty(options: {
     issues.push({
       code: "uncertainty-below-instruments",
       message:
-        `The stated uncertainty of ${row.label.toLowerCase()}, U = ${formatQuantity(statedU, unit, { digits: { maxSignificant: 3 } })} (k = 2), ` +
+        `The stated uncertainty of ${lowerFirst(row.label)}, U = ${formatQuantity(statedU, unit, { digits: { maxSignificant: 3 } })} (k = 2), ` +
         `is smaller than ${formatQuantity(worst.expanded, unit, { digits: { maxSignificant: 3 } })} (k = 2), ${how} measurement set ${worst.setId} ` +
         `(${listed}; JCGM 100:2008 §5.1.2, uncorrelated inputs, unit sensitivity): the guard bands built on it are too narrow.`,
     });
@@ -218,7 +219,6 @@ type LimitGroup = Pick<StatisticsGroup, "rowId" | "label" | "conditionsKey" | "c
 const guarantees = (g: LimitGroup) => g.limits !== null && (g.limits.min.value !== null || g.limits.max.value !== null);
 
 /** Issue messages are plain text everywhere they are shown: the notation's subscripts are written inline ("TA 25 °C"). */
-const plainNotation = (text: string) => notationSegments(text).map((s) => s.text + (s.sub ?? "")).join("");
 
 const describeGroup = (g: LimitGroup) => plainNotation(g.conditionsText ? `${g.label} (${g.conditionsText})` : g.label);
 
@@ -246,7 +246,8 @@ export function ratedOperatingTemperature(ratings: SheetInput["absoluteMaximumRa
  * - Temperature: a limit guaranteed by test or characterization whose template row has data at one
  *   temperature only, while the operating temperature is rated over a range, holds at that
  *   temperature; a designer at the range's ends has nothing. Quiet when no range is rated (the
- *   missing rating is its own issue), or when the row has data at two temperatures or more.
+ *   missing rating is its own issue), or when the row has data at two temperatures or more (a row over
+ *   temperature, whose groups carry temperatureMinC and temperatureMaxC, has the two ends of its span).
  * One issue per kind, listing the limits.
  */
 export function checkLimitSpread(options: { groups: LimitGroup[]; operatingTemperatureC: { min: number; max: number } | null }): Issue[] {
@@ -270,9 +271,12 @@ export function checkLimitSpread(options: { groups: LimitGroup[]; operatingTempe
     const temperaturesByRow = new Map<string, Set<number | string>>();
     for (const g of options.groups) {
       if (g.n === 0) continue;
-      const t = parseConditionsKey(g.conditionsKey).temperatureC;
+      const { temperatureC, temperatureMinC, temperatureMaxC } = parseConditionsKey(g.conditionsKey);
       if (!temperaturesByRow.has(g.rowId)) temperaturesByRow.set(g.rowId, new Set());
-      temperaturesByRow.get(g.rowId)!.add(t ?? "unstated");
+      const temperatures = temperaturesByRow.get(g.rowId)!;
+      // A row over temperature states no one temperature: its group carries the span its units were measured over.
+      if (typeof temperatureMinC === "number" && typeof temperatureMaxC === "number") [temperatureMinC, temperatureMaxC].forEach((t) => temperatures.add(t));
+      else temperatures.add(temperatureC ?? "unstated");
     }
     const oneTemperature = guaranteed.filter((g) => g.limits!.basis !== "design" && (temperaturesByRow.get(g.rowId)?.size ?? 0) <= 1);
     if (oneTemperature.length > 0) {

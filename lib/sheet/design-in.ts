@@ -11,6 +11,7 @@
  */
 import { readQuantity } from "../catalog/catalog-query";
 import { formatQuantity, formatRange } from "../format/quantity";
+import { lowerFirst } from "../format/text";
 import { computeMean, computeSampleStandardDeviation } from "../stats/descriptive";
 import { limitBasisWords, type LimitBasis } from "../domain/sheets";
 import { parseConditionsKey, type Conditions } from "./conditions";
@@ -166,11 +167,6 @@ const CLASS_CHARTS: Record<DesignInDeviceClass, { swept: DesignInField; sweptLab
 function harmonicOrder(series: string): number | null {
   const m = /\(×(\d+)\)$/.exec(series);
   return m ? Number(m[1]) : null;
-}
-
-/** "Input frequency" → "input frequency"; "LO drive" and "RF frequency" keep their capitals. */
-function lowerFirst(text: string): string {
-  return /^[A-Z][a-z]/.test(text) ? text.charAt(0).toLowerCase() + text.slice(1) : text;
 }
 
 function capitalize(text: string): string {

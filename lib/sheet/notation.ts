@@ -18,3 +18,10 @@ export function notationSegments(text: string): NotationSegment[] {
   if (last < text.length) segments.push({ text: text.slice(last) });
   return segments;
 }
+
+/** A string in plain text, its subscripts set on the line ("T_A" → "TA"): issue messages, which are read and acknowledged as plain text. */
+export function plainNotation(text: string): string {
+  return notationSegments(text)
+    .map((s) => s.text + (s.sub ?? ""))
+    .join("");
+}

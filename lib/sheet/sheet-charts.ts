@@ -2,6 +2,7 @@ import type { SheetTemplate, TrendTemplate } from "../../templates/types";
 import { buildChartSpec, type ChartSource } from "./charts";
 import { compareStrings } from "./compare";
 import { formatQuantity, formatRange } from "../format/quantity";
+import { lowerFirst } from "../format/text";
 import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
 import { formatTemperature, formatTemperatureRange } from "./format";
 import type { ApprovedSetInput, ChartSpec, SheetModel } from "./types";
@@ -145,7 +146,7 @@ function buildTemperatureTrendChart(template: SheetTemplate, trend: TrendTemplat
     .filter((column) => column.sources.every((source) => !source.key.startsWith("temperature")))
     .map((column) => {
       const cell = formatConditionCell(column, conditions);
-      return cell ? `${column.label} ${cell}` : "";
+      return cell ? `${lowerFirst(column.label)} ${cell}` : ""; // inside the caption's sentence: "drive +10 dBm per port", "LO drive +7 dBm"
     })
     .filter(Boolean)
     .join(", ");

@@ -61,6 +61,8 @@ export interface DemoCatalogPart {
   measurementUncertainty: Record<string, number>;
   submitNote: string;
   releaseNote: string;
+  /** Reasons of this part's own, over demoCatalogIssueReasons (a lab's report is not a vendor's production sheet). */
+  issueReasons?: Readonly<Record<string, string>>;
 }
 
 /**
@@ -78,6 +80,19 @@ export const demoCatalogIssueReasons: Readonly<Record<string, string>> = {
     "The limits are stated at +25 °C, as the table's T_A column says; the temperature runs are planned for the next revision.",
   "limit-from-one-lot": "All units come from the first production lot; the second lot joins the characterization before the next revision.",
   "limit-from-few-units": "The characterization limits rest on the first build's units; more are added as production tests them.",
+};
+
+/**
+ * The demo lab's reports: three units of a customer's lot, measured once. Its limits describe the units it measured
+ * (basis characterization); it tests no shipped unit, so none of its rows is "tested on every unit", and its reasons
+ * speak of the lot the customer sent, not of production.
+ */
+const labLimits = (rules: DemoLimitRule[]): DemoLimitRule[] => rules.map((rule) => ({ ...rule, basis: "characterization" }));
+const labIssueReasons: Readonly<Record<string, string>> = {
+  "stated-band-not-specified": "The customer asked for the frequencies the rows state; the band edges were not part of the order.",
+  "limit-at-one-temperature": "The customer ordered a +25 °C characterization; the T_A column says so.",
+  "limit-from-one-lot": "The customer sent units of one lot; the report describes that lot and says so in its description.",
+  "limit-from-few-units": "Three units are what the customer sent; the figures describe those units, not the maker's production.",
 };
 
 /** Instruments the loader enters where an organization has none of that kind (through the admin API). */
@@ -128,6 +143,9 @@ const doublerFeatures =
   "- Conversion loss below {conversion-loss-at-drive.max} dB at +10 dBm per port, tested on every unit\n- Fundamental suppression above {fundamental-suppression.min} dBc\n- Passive: no DC supply";
 const doublerFixture =
   "Units are soldered to a 0.508 mm laminate fixture with SMA launches. Both device ports are fed from one signal generator through a two-way in-phase splitter; its 0.4 dB excess loss and the 0.6 dB cable loss are taken out of the stated drive. Output orders 1 to 4 are read on a spectrum analyzer. Reference impedance 50 Ω.";
+/** The lab's words for the same rows: what the units it measured showed, no test of every unit. */
+const labDoublerFeatures =
+  "- Conversion loss of the units measured below {conversion-loss-at-drive.max} dB at +10 dBm per port\n- Fundamental suppression above {fundamental-suppression.min} dBc";
 const mixerFeatures = "- Conversion loss below {conversion-loss-worst.max} dB across the band\n- LO-to-RF isolation above {isolation-lo-rf.min} dB";
 const mixerFixture = (lo: number, ifMHz: number) =>
   `Units are measured on a 50 Ω evaluation board. The RF port is swept at −10 dBm against a +${lo} dBm LO, the IF held at ${ifMHz} MHz; conversion loss and LO leakage at the RF and IF ports are read on a spectrum analyzer, corrected for fixture and cable loss.`;
@@ -364,17 +382,18 @@ export const demoCatalogParts: DemoCatalogPart[] = [
       { conversionLossDb: 10.9, optimumDriveDbm: 12, fundamentalRejectionDb: 31, thirdSuppressionDbc: 26, fourthSuppressionDbc: 18, inputBandHz: { min: 1.5 * GHz, max: 3 * GHz }, unitSpreadDb: 0.25 },
       { serials: serials("WL-2620-", 1, 3, 2), lot: "2620", inputFrequenciesHz: [2 * GHz, 2.5 * GHz], measuredOn: ["2026-11-18", "2026-11-19"], seed: 2620 },
     ),
-    limits: doublerLimits,
+    limits: labLimits(doublerLimits),
     prose: {
       description:
         "An independent characterization by Wrenfield RF Test Laboratory of three units of a customer's diode doubler, lot 2620, at 2.0 and 2.5 GHz input.\n\nThe figures describe the units tested. They are not the maker's guarantees.",
-      features: doublerFeatures,
+      features: labDoublerFeatures,
       "test-fixture": doublerFixture,
     },
     absoluteMaximumRatings: [{ label: "RF input power, per port", value: "+20", unit: "dBm" }, ...temperatures("−40 to +85", "−55 to +125"), esd("1A")],
     measurementUncertainty: { "conversion-loss": 0.4, "harmonic-suppression": 0.3 },
     submitNote: "Three units of lot 2620 at two input frequencies.",
     releaseNote: "First release: three units of lot 2620.",
+    issueReasons: labIssueReasons,
   },
   {
     org: "wrenfield-lab",
@@ -387,7 +406,7 @@ export const demoCatalogParts: DemoCatalogPart[] = [
       { conversionLossDb: 6.8, balunBandHz: { min: 700 * MHz, max: 2.8 * GHz }, loRfIsolationDb: 40, loIfIsolationDb: 35, loPowerDbm: 7, ifFrequencyHz: 70 * MHz, sweepHz: { start: 1000 * MHz, stop: 2500 * MHz, step: 100 * MHz }, unitSpreadDb: 0.2 },
       { serials: serials("WL-2622-", 1, 3, 2), lot: "2622", measuredOn: ["2026-11-20"], seed: 2622 },
     ),
-    limits: mixerLimits,
+    limits: labLimits(mixerLimits),
     prose: {
       description:
         "An independent characterization by Wrenfield RF Test Laboratory of three units of a customer's level-7 mixer, lot 2622.\n\nThe figures describe the units tested. They are not the maker's guarantees.",
@@ -404,6 +423,7 @@ export const demoCatalogParts: DemoCatalogPart[] = [
     measurementUncertainty: { "conversion-loss": 0.4, isolation: 1 },
     submitNote: "Three units of lot 2622 across 1.0–2.5 GHz.",
     releaseNote: "First release: three units of lot 2622.",
+    issueReasons: labIssueReasons,
   },
   {
     org: "wrenfield-lab",
@@ -416,7 +436,7 @@ export const demoCatalogParts: DemoCatalogPart[] = [
       { topology: "branch-line", centreHz: 1.3 * GHz, lineLossDb: 0.08, tolerance: { impedanceFraction: 0.01, lengthFraction: 0.006 }, sweepHz: { start: 1.2 * GHz, stop: 1.4 * GHz, step: 10 * MHz } },
       { serials: serials("WL-2625-", 1, 3, 2), lot: "2625", measuredOn: ["2026-11-24"], seed: 2625, description: "90-degree branch-line hybrid" },
     ),
-    limits: networkLimits("isolation-input"),
+    limits: labLimits(networkLimits("isolation-input")),
     prose: {
       description:
         "An independent characterization by Wrenfield RF Test Laboratory of three units of a customer's branch-line hybrid, lot 2625, over 1.2–1.4 GHz.\n\nThe figures describe the units tested. They are not the maker's guarantees.",
@@ -427,5 +447,6 @@ export const demoCatalogParts: DemoCatalogPart[] = [
     measurementUncertainty: networkUncertainty,
     submitNote: "Three units of lot 2625, four-port.",
     releaseNote: "First release: three units of lot 2625.",
+    issueReasons: labIssueReasons,
   },
 ];

@@ -205,7 +205,8 @@ function mixerUploads(at25: Record<string, () => Buffer>): DemoUpload[] {
   });
   [["BFD-0108", "L2409"], ["BFD-0109", "L2409"], ["BFD-0110", "L2409"], ["BFD-0131", "L2412"], ["BFD-0132", "L2412"]].forEach(([serial, lot], u) => {
     const text = mixerTwoTone(kmTwoTone, { serial, lot }, 5300 + u);
-    uploads.push({ ...base, file: `two-tone-${serial.toLowerCase()}.tsv`, fields: { measuredOn: "2026-10-01" }, bytes: () => Buffer.from(text) });
+    // The file names the tones and the LO drive; the upload states the IF the runs were made at, as the sweeps' files do.
+    uploads.push({ ...base, file: `two-tone-${serial.toLowerCase()}.tsv`, fields: { measuredOn: "2026-10-01", ifFrequencyHz: String(kmModel.ifFrequencyHz) }, bytes: () => Buffer.from(text) });
   });
   [["BFD-0107", "L2409"], ["BFD-0108", "L2409"], ["BFD-0131", "L2412"], ["BFD-0132", "L2412"]].forEach(([serial, lot], u) => {
     const text = mixerPortMatch(kmPortMatch, { serial }, 5400 + u);

@@ -23,9 +23,6 @@ export interface DemoRelease {
 /** The same words on every sheet measured at room temperature on one bench. */
 const atRoomTemperature =
   "The limits are stated at +25 °C, as the table's T_A column says; the −40 °C and +85 °C runs are planned for the next revision.";
-/** Where the sheet has runs over temperature: the 25 °C rows are the production screen, the row over temperature the rated range. */
-const screenedAtRoomTemperature =
-  "The 25 °C limits are what production test screens on every unit; what holds from −40 to +85 °C is the row over temperature, characterized on two lots.";
 const sourceLevelledOnAnalyzer =
   "On this bench the generator is levelled against the analyzer at every step, so its own 0.6 dB level uncertainty does not enter the " +
   "conversion loss; the stated U is the bench budget for that method.";
@@ -36,16 +33,11 @@ const demoIssueReasons = {
     "stated-band-not-specified":
       "Production test screens every unit at 1 GHz in (2 GHz out), and every row states it; units at the band edges are on the bench for the next revision.",
     "uncertainty-below-instruments": sourceLevelledOnAnalyzer,
-    "limit-at-one-temperature": screenedAtRoomTemperature,
     "limit-from-one-lot": "All units are from the October build; the next build's units join the characterization before the next revision.",
     "limit-from-few-units": "The characterization limits rest on the October build's units; more are added as production tests them.",
   },
   "KM-7H": {
-    "specified-outside-stated-band":
-      "The device record states the balun's design band; this lot was characterized on the 0.5–3 GHz bench, and the rows say so. The record follows the characterized band at the next revision.",
-    "stated-band-not-specified": "Below 500 MHz the mixer is specified by design only; the low-band bench is being built.",
     "uncertainty-below-instruments": sourceLevelledOnAnalyzer,
-    "limit-at-one-temperature": screenedAtRoomTemperature,
   },
   "KQH-2G": {
     "specified-outside-stated-band":

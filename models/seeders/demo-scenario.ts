@@ -62,9 +62,9 @@ export const demoOrganizations: DemoOrganization[] = [
       {
         partNumber: "KM-7H",
         deviceClass: "double-balanced-mixer",
-        title: "Double-balanced mixer, +7 dBm LO, 5–2500 MHz",
+        title: "Double-balanced mixer, +7 dBm LO, 0.5–3 GHz",
         description: "Level 7 passive mixer for general frequency conversion.",
-        keyConditions: { inputFrequencyHz: { min: 5 * MHz, max: 2.5 * GHz }, driveLevelDbm: 7 },
+        keyConditions: { inputFrequencyHz: { min: 0.5 * GHz, max: 3 * GHz }, driveLevelDbm: 7 },
       },
       {
         partNumber: "KQH-2G",

@@ -44,7 +44,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
         max: 11.5,
         unit: "dB",
         basis: "characterization",
-        footnote: "Each unit's highest value over −40, +25 and +85 °C, from two lots; tested at 25 °C only.",
+        footnote: "Each unit's highest value over the temperatures it was measured at: −40, +25 and +85 °C for the four units of the runs over temperature (two lots), +25 °C for the others; tested at 25 °C only.",
       },
       { parameter: "harmonic-suppression", conditionsKey: "drive=10;inputFrequencyHz=1000000000;order=1;temperatureC=25", min: 22, typ: 26, unit: "dBc", basis: "test" },
       { parameter: "harmonic-suppression", conditionsKey: "drive=10;inputFrequencyHz=1000000000;order=3;temperatureC=25", min: 25, unit: "dBc", basis: "characterization" },
@@ -81,7 +81,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
         max: 9,
         unit: "dB",
         basis: "characterization",
-        footnote: "Each unit's highest value in band over −40, +25 and +85 °C, from two lots; tested at 25 °C only.",
+        footnote: "Each unit's highest value in band over the temperatures it was measured at: −40, +25 and +85 °C for the four units of the runs over temperature (two lots), +25 °C for the others; tested at 25 °C only.",
       },
       { parameter: "isolation", conditionsKey: `ifFrequencyHz=70000000;loPowerDbm=7;path=LO-RF;startHz=500000000;statistic=min;stopHz=3000000000;temperatureC=25`, min: 22, unit: "dB", basis: "test" },
     ],
@@ -92,7 +92,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
         "- Conversion loss below 8.5 dB across 500–3000 MHz at 25 °C, below 9 dB from −40 to +85 °C\n- LO-to-RF isolation above 22 dB, LO-to-IF typically 23 dB\n- Input IP3 typically +16 dBm, input P1dB typically +0.8 dBm\n- +7 dBm LO drive",
       applications: "- Up- and down-conversion in receivers and transmitters\n- Phase detection\n- Frequency doubling with both ports driven",
       "test-fixture":
-        "Units are measured on a 50 Ω evaluation board. The RF port is swept from 500 to 3000 MHz at −10 dBm against a +7 dBm LO, the IF held at 70 MHz; conversion loss and LO-to-RF leakage are read on a spectrum analyzer, corrected for fixture and cable loss. LO-to-IF and RF-to-IF leakage are read the same way with the IF port to the analyzer.\n\nThe two-tone runs put 1000 and 1001 MHz on the RF port, −20 to +6 dBm per tone; the intercept comes from the slope-fitted small-signal points, the compression point from the tone output. Port match is a three-port network-analyzer measurement with the LO off: port 1 RF, port 2 LO, port 3 IF.\n\nThe runs over temperature put the board in a chamber at −40, +25 and +85 °C; the temperature of each run is the one its bench file states.",
+        "Units are measured on a 50 Ω evaluation board. The RF port is swept from 500 to 3000 MHz at −10 dBm against a +7 dBm LO, the IF held at 70 MHz with the LO 70 MHz above the RF; conversion loss and LO-to-RF leakage are read on a spectrum analyzer, corrected for fixture and cable loss. LO-to-IF and RF-to-IF leakage are read the same way with the IF port to the analyzer.\n\nThe two-tone runs put 1000 and 1001 MHz on the RF port, −20 to +6 dBm per tone, against the same +7 dBm LO at 1070 MHz (IF 70 MHz); the intercept comes from the slope-fitted small-signal points, the compression point from the tone output. Port match is a three-port network-analyzer measurement with the LO off: port 1 RF, port 2 LO, port 3 IF.\n\nThe runs over temperature put the board in a chamber at −40, +25 and +85 °C; the temperature of each run is the one its bench file states.",
     },
     absoluteMaximumRatings: [
       { label: "RF input power", value: "+17", unit: "dBm" },
@@ -107,7 +107,8 @@ export const demoSheets: Record<string, DemoSheetContent> = {
     limits: [
       { parameter: "insertion-loss", conditionsKey: `path=S21;${hybridBand.replace("stopHz", "statistic=worst;stopHz")}`, max: 3.6, unit: "dB", basis: "test" },
       { parameter: "insertion-loss", conditionsKey: `path=S31;${hybridBand.replace("stopHz", "statistic=worst;stopHz")}`, max: 3.7, unit: "dB", basis: "test" },
-      { parameter: "amplitude-balance", conditionsKey: hybridBand.replace("stopHz", "statistic=worst;stopHz"), max: 0.5, unit: "dB", basis: "test" },
+      // Balance is signed (the largest deviation, sign kept), so "within 0.5 dB" is a limit on both sides.
+      { parameter: "amplitude-balance", conditionsKey: hybridBand.replace("stopHz", "statistic=worst;stopHz"), min: -0.5, max: 0.5, unit: "dB", basis: "test" },
       { parameter: "phase-balance", conditionsKey: hybridBand.replace("stopHz", "statistic=worst;stopHz"), min: -3, max: 3, unit: "°", basis: "test" },
       { parameter: "isolation", conditionsKey: `path=S41;${hybridBand.replace("stopHz", "statistic=worst;stopHz")}`, min: 20, unit: "dB", basis: "test" },
       { parameter: "vswr", conditionsKey: `port=1;${hybridBand.replace("stopHz", "statistic=worst;stopHz")}`, max: 1.3, unit: ":1", basis: "characterization" },
@@ -115,7 +116,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
     prose: {
       description:
         "The **KQH-2G** splits a signal into two outputs of equal amplitude in quadrature (90° apart) over 1.7–2.3 GHz. The fourth port is isolated and takes the reflected power of mismatched loads into its 50 Ω termination.",
-      features: "- Amplitude balance within 0.5 dB\n- Phase balance within ±3° of 90°\n- Isolation above 20 dB\n- Surface mount, no DC path between ports",
+      features: "- Amplitude balance within ±0.5 dB\n- Phase balance within ±3° of 90°\n- Isolation above 20 dB\n- Surface mount, no DC path between ports",
       applications: "- Balanced amplifiers\n- Image-reject and I/Q mixers\n- Quadrature LO generation",
       "test-fixture":
         "Four-port S-parameters from 1.5 to 2.5 GHz on a 50 Ω test board, the board's lines de-embedded with a thru-reflect-line calibration. Port 1 input, 2 through, 3 coupled, 4 isolated.",

@@ -5,6 +5,7 @@ import { buildVegaLiteSpec } from "@/lib/charts";
 import type { ConformityAlertView, ConformityWatchView } from "@/lib/domain/conformity";
 import { formatQuantity } from "@/lib/format/quantity";
 import { assessConformity, controlChartData } from "@/lib/sheet/conformity-watch";
+import { plainNotation } from "@/lib/sheet/notation";
 import { runRuleSource, runRuleWords, type RunRuleNumber } from "@/lib/stats/run-rules";
 import { db } from "@/models";
 import type { ConformityAlert, MeasurementSet, SheetRevision, User } from "@/models";
@@ -113,5 +114,6 @@ export async function openConformityIssues(opts: { organizationId: number; devic
     attributes: ["id", "summary"],
     order: [["id", "ASC"]],
   });
-  return rows.map((r) => `Conformity alert #${r.id}: ${r.summary}. Close it on the device page with a reason, or revise the limits.`);
+  // Plain text like the consistency checks' issues: the summary names its row with the T_A notation.
+  return rows.map((r) => `Conformity alert #${r.id}: ${plainNotation(r.summary)}. Close it on the device page with a reason, or revise the limits.`);
 }

@@ -337,11 +337,18 @@ function TitleBlock({ model }: { model: SheetModel }) {
 
 function SpecificationsTable({ model }: { model: SheetModel }) {
   const { specifications } = model;
-  const conditionWidth = Math.floor(34 / Math.max(1, specifications.conditionColumns.length));
+  // The condition columns share 34 % of the width by the longest word each must hold on one line (a value and
+  // its unit are one word, joined by a no-break space), plus room for the cell's padding: an equal share left
+  // "0.5–3 GHz" too narrow a box, and react-pdf breaks a word that does not fit with a hyphen ("0.5–3 -").
+  const longestWord = (text: string) => Math.max(0, ...text.split(/[ \n]+/).map((word) => word.length));
+  const conditionChars = specifications.conditionColumns.map(
+    (c, i) => Math.max(3, longestWord(c.label), ...specifications.rows.map((r) => longestWord(r.conditions[i] ?? ""))) + 2,
+  );
+  const totalChars = conditionChars.reduce((sum, n) => sum + n, 0);
   const columns: Column[] = [
     { header: "Parameter", width: "22%" },
     { header: "Symbol", width: "7%" },
-    ...specifications.conditionColumns.map((c): Column => ({ header: c.label, width: `${conditionWidth}%` })),
+    ...specifications.conditionColumns.map((c, i): Column => ({ header: c.label, width: `${Math.floor((3400 * conditionChars[i]) / totalChars) / 100}%` })),
     { header: "Min", width: "7%", align: "right", mono: true },
     { header: "Typ", width: "7.5%", align: "right", mono: true },
     { header: "Max", width: "7.5%", align: "right", mono: true },

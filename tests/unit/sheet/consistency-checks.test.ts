@@ -236,6 +236,15 @@ describe("what stands behind a guaranteed limit", () => {
     expect(checkLimitSpread({ groups: [at(25, ["L1", "L2"], { max: 10, basis: "design" })], operatingTemperatureC: rated })).toEqual([]);
   });
 
+  it("reads a row over temperature as the span it states, not as one unstated temperature", () => {
+    const span = (min: number, max: number) =>
+      group({ rowId: "cl-over-t", conditionsKey: `inputFrequencyHz=1000000000;temperatureMaxC=${max};temperatureMinC=${min}`, lots: ["L1", "L2"], limit: { max: 11.5, basis: "characterization" } });
+    expect(checkLimitSpread({ groups: [span(-40, 85)], operatingTemperatureC: rated })).toEqual([]);
+    // Without a span (a key that states neither) the row still counts as one temperature.
+    const unstated = group({ rowId: "cl-over-t", conditionsKey: "inputFrequencyHz=1000000000", lots: ["L1", "L2"], limit: { max: 11.5, basis: "characterization" } });
+    expect(checkLimitSpread({ groups: [unstated], operatingTemperatureC: rated }).map((i) => i.code)).toEqual(["limit-at-one-temperature"]);
+  });
+
   it("fires when a characterization limit rests on fewer units than the organization's minimum", () => {
     const issues = checkLimitUnitCount({ groups: [at(25, ["L1", "L2", "L2"], { max: 10, basis: "characterization" })], minUnits: 5 });
     expect(issues).toEqual([

@@ -20,3 +20,11 @@ describe("notationSegments", () => {
     expect(notationSegments("snake_case_word")).toEqual([{ text: "snake_case_word" }]);
   });
 });
+
+describe("plainNotation", () => {
+  it("sets subscripts on the line for plain-text issue messages, and leaves other text alone", async () => {
+    const { plainNotation } = await import("@/lib/sheet/notation");
+    expect(plainNotation("Conversion loss (Frequency 1 GHz in, T_A 25 °C): Nelson test 1")).toBe("Conversion loss (Frequency 1 GHz in, TA 25 °C): Nelson test 1");
+    expect(plainNotation("snake_case_word")).toBe("snake_case_word");
+  });
+});

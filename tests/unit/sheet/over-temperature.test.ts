@@ -107,7 +107,7 @@ describe("a chart against temperature", () => {
   it("draws one line per unit through its temperatures and states the lowest and highest value drawn", () => {
     const { lowest, highest } = pythonReference();
     expect(chart.unitCount).toBe(3);
-    expect(chart.caption).toContain("Frequency 1\u00a0GHz in, Drive +10\u00a0dBm per port");
+    expect(chart.caption).toContain("drawn at frequency 1\u00a0GHz in, drive +10\u00a0dBm per port.");
     expect(chart.caption).toContain(`Over −40 to +85\u00a0°C: lowest ${String(lowest)}\u00a0dB, highest ${String(highest)}\u00a0dB.`);
   });
 
