@@ -5,6 +5,7 @@
  * checked, so the reviewer knows what was left to them; both renderers print it under the review notes.
  */
 
+import { nameInSentence, parameterName } from "../domain/parameter-names";
 import type { SheetTemplate, StatedBandTemplate } from "../../templates/types";
 import { differenceUnit, formatNumber, formatQuantity, formatRange } from "../format/quantity";
 import { combineUncertainty } from "../stats/uncertainty";
@@ -153,7 +154,7 @@ interface InstrumentContribution {
  * even the most favourable reading of the register exceeds the stated U; the worst set is named.
  */
 export function checkStatedUncertainty(options: {
-  rows: Pick<SheetTemplate["specifications"]["rows"][number], "parameter" | "label" | "unit">[];
+  rows: Pick<SheetTemplate["specifications"]["rows"][number], "parameter" | "unit">[];
   sets: Pick<ApprovedSetInput, "id" | "serial" | "parameters" | "instruments">[];
   measurementUncertainty: Record<string, number> | undefined;
 }): Issue[] {
@@ -187,7 +188,7 @@ export function checkStatedUncertainty(options: {
     issues.push({
       code: "uncertainty-below-instruments",
       message:
-        `The stated uncertainty of ${row.label.toLowerCase()}, U = ${formatQuantity(statedU, unit, { digits: { maxSignificant: 3 } })} (k = 2), ` +
+        `The stated uncertainty of ${nameInSentence(parameterName(parameter))}, U = ${formatQuantity(statedU, unit, { digits: { maxSignificant: 3 } })} (k = 2), ` +
         `is smaller than ${formatQuantity(worst.expanded, unit, { digits: { maxSignificant: 3 } })} (k = 2), ${how} measurement set ${worst.setId} ` +
         `(${listed}; JCGM 100:2008 §5.1.2, uncorrelated inputs, unit sensitivity): the guard bands built on it are too narrow.`,
     });

@@ -9,6 +9,7 @@
  * along the swept axis and asks the other to be the one value the curves were measured at. It never
  * extrapolates: outside the range every drawn unit covers, it answers with that range instead.
  */
+import { composeParameterName, parameterName } from "../domain/parameter-names";
 import { readQuantity } from "../catalog/catalog-query";
 import { formatQuantity, formatRange } from "../format/quantity";
 import { computeMean, computeSampleStandardDeviation } from "../stats/descriptive";
@@ -141,13 +142,15 @@ const CLASS_CHARTS: Record<DesignInDeviceClass, { swept: DesignInField; sweptLab
     swept: "drive",
     sweptLabel: "Per-port drive",
     charts: [
-      { chartId: "conversion-loss-vs-drive", parameter: "conversion-loss", curve: () => ({ label: "Conversion loss", match: {} }) },
+      { chartId: "conversion-loss-vs-drive", parameter: "conversion-loss", curve: () => ({ label: parameterName("conversion-loss"), match: {} }) },
       {
         chartId: "harmonic-suppression-vs-drive",
         parameter: "harmonic-suppression",
         curve: (series) => {
           const order = harmonicOrder(series);
-          return { label: order === 1 ? "Fundamental suppression" : `${capitalize(series.replace(/ \(×\d+\)$/, ""))} suppression`, match: order === null ? ({} as Conditions) : { order } };
+          return order === null
+            ? { label: parameterName("harmonic-suppression"), match: {} as Conditions }
+            : { label: composeParameterName("harmonic-suppression", { order }), match: { order } };
         },
       },
     ],
@@ -156,8 +159,9 @@ const CLASS_CHARTS: Record<DesignInDeviceClass, { swept: DesignInField; sweptLab
     swept: "frequency",
     sweptLabel: "RF frequency",
     charts: [
-      { chartId: "conversion-loss-vs-frequency", parameter: "conversion-loss", curve: () => ({ label: "Conversion loss", match: {} }) },
-      { chartId: "isolation-vs-frequency", parameter: "isolation", curve: (series) => ({ label: `Isolation ${series.replace("-", "–")}`, match: { path: series } }) },
+      { chartId: "conversion-loss-vs-frequency", parameter: "conversion-loss", curve: () => ({ label: parameterName("conversion-loss"), match: {} }) },
+// The legend writes the path with an en dash (lib/charts seriesLabel); a model frozen before that, with the engine's hyphen.
+      { chartId: "isolation-vs-frequency", parameter: "isolation", curve: (series) => ({ label: composeParameterName("isolation", { path: series }), match: { path: series.replace("\u2013", "-") } }) },
     ],
   },
 };
@@ -171,10 +175,6 @@ function harmonicOrder(series: string): number | null {
 /** "Input frequency" → "input frequency"; "LO drive" and "RF frequency" keep their capitals. */
 function lowerFirst(text: string): string {
   return /^[A-Z][a-z]/.test(text) ? text.charAt(0).toLowerCase() + text.slice(1) : text;
-}
-
-function capitalize(text: string): string {
-  return text.charAt(0).toUpperCase() + text.slice(1);
 }
 
 /**
@@ -215,7 +215,8 @@ export function readDesignInCurves(model: SheetModel): { ok: true; curves: Desig
       const min = Math.max(...spans.map((s) => s.min));
       const max = Math.min(...spans.map((s) => s.max));
       curves.push({
-        id: `${source.parameter}${reading.series.size > 1 || source.parameter !== "conversion-loss" ? `:${series}` : ""}`,
+        // An id is the same whether the legend wrote the mixer's path with the engine's hyphen or the en dash ("isolation:LO-RF").
+        id: `${source.parameter}${reading.series.size > 1 || source.parameter !== "conversion-loss" ? `:${series.replace("\u2013", "-")}` : ""}`,
         ...source.curve(series),
         unit: reading.y.unit,
         chartId: chart.id,
