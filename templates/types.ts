@@ -7,7 +7,7 @@ import type { DeviceClass } from "../lib/domain/device-classes";
 import type { MeasurementKind } from "../lib/domain/measurements";
 import type { LimitBasis, ProseSectionId } from "../lib/domain/sheets";
 import type { StatedAnalysisSettings } from "../lib/domain/analysis-settings";
-import type { ConditionFieldId } from "../lib/domain/measurement-conditions";
+import type { ClassFieldWords, ConditionFieldId } from "../lib/domain/measurement-conditions";
 import type { NameQualifier, ParameterName } from "../lib/domain/parameter-names";
 
 export type { DeviceClass, LimitBasis, ProseSectionId };
@@ -138,13 +138,20 @@ export interface AbsoluteMaximumRatingTemplate {
  */
 export interface ClassConditions {
   uploadFields: readonly ConditionFieldId[];
-  /** The class's words for the device's key conditions on the sheet (a mixer's input is its RF, its drive the LO's). */
-  keyConditionWords?: KeyConditionWords;
-}
-
-export interface KeyConditionWords {
-  inputFrequency?: string;
-  driveLevel?: string;
+  /**
+   * The class's own words for a field where the shared ones (lib/domain/measurement-conditions.ts) say too
+   * little: a multiplier's drive is stated per port. The upload form, the device form, the sheet's key facts
+   * and the design-in calculator all read a field's words through classConditionField.
+   */
+  fieldWords?: ClassFieldWords;
+  /**
+   * Which condition field names the device's key input frequency and drive on the sheet, the device form and
+   * the design-in calculator (a mixer's input is its RF, its drive the LO's); the shared input frequency and
+   * drive level by default.
+   */
+  keyFields?: { inputFrequency?: ConditionFieldId; drive?: ConditionFieldId };
+  /** The key input frequency's words where no upload field names it (a hybrid's range is its "Band"). */
+  keyConditionWords?: { inputFrequency?: string };
 }
 
 /**

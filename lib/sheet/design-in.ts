@@ -9,6 +9,8 @@
  * along the swept axis and asks the other to be the one value the curves were measured at. It never
  * extrapolates: outside the range every drawn unit covers, it answers with that range instead.
  */
+import { keyConditionField } from "../domain/measurement-conditions";
+import { classConditions } from "../../templates/upload-conditions";
 import { composeParameterName, parameterName } from "../domain/parameter-names";
 import { readQuantity } from "../catalog/catalog-query";
 import { formatQuantity, formatRange } from "../format/quantity";
@@ -157,7 +159,7 @@ const CLASS_CHARTS: Record<DesignInDeviceClass, { swept: DesignInField; sweptLab
   },
   "double-balanced-mixer": {
     swept: "frequency",
-    sweptLabel: "RF frequency",
+    sweptLabel: keyConditionField(classConditions["double-balanced-mixer"], "inputFrequency").label,
     charts: [
       { chartId: "conversion-loss-vs-frequency", parameter: "conversion-loss", curve: () => ({ label: parameterName("conversion-loss"), match: {} }) },
 // The legend writes the path with an en dash (lib/charts seriesLabel); a model frozen before that, with the engine's hyphen.
@@ -280,7 +282,7 @@ function multiplierFrequency(model: SheetModel, label: string): FixedAxisResult 
   const exact = model.statistics.groups
     .map((g) => parseConditionsKey(g.conditionsKey).inputFrequencyHz)
     .find((f): f is number => typeof f === "number" && formatQuantity(f, "Hz") === printed);
-  return { ok: true, axis: { field: "frequency", label: "Input frequency", unit: "Hz", scale: "linear", value: exact ?? read.value } };
+  return { ok: true, axis: { field: "frequency", label: keyConditionField(classConditions["frequency-multiplier"], "inputFrequency").label, unit: "Hz", scale: "linear", value: exact ?? read.value } };
 }
 
 /**
@@ -307,7 +309,7 @@ function mixerLoDrive(model: SheetModel, temperatureC: number | null): FixedAxis
           : `The released curves of ${model.header.partNumber} hold more than one LO drive in one chart, so the calculator cannot tell which curve is which.`,
     };
   }
-  return { ok: true, axis: { field: "drive", label: "LO drive", unit: "dBm", scale: "linear", value: [...drives][0] } };
+  return { ok: true, axis: { field: "drive", label: keyConditionField(classConditions["double-balanced-mixer"], "drive").label, unit: "dBm", scale: "linear", value: [...drives][0] } };
 }
 
 /* ---------- one design point ---------- */

@@ -47,6 +47,19 @@ describe("one name per harmonic order, on the set page, the sheet and the charts
   });
 });
 
+describe("a chart legend names a path as the rows do", () => {
+  it.each([
+    ["order 3", "3rd harmonic (×3)"],
+    ["insertion loss S21", "Insertion loss S21"],
+    ["isolation S41", "Isolation S41"],
+    ["LO-RF", "LO\u2013RF"],
+    ["port 2", "port 2"],
+  ])("%s reads %s, and reading it again changes nothing (a frozen model's legend meets today's)", (engine, legend) => {
+    expect(seriesLabel(engine)).toBe(legend);
+    expect(seriesLabel(legend)).toBe(legend);
+  });
+});
+
 describe("a name composed of the parameter's and the row's qualifiers", () => {
   it.each([
     [{ parameter: "conversion-loss" }, "Conversion loss"],
