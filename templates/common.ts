@@ -45,7 +45,7 @@ export function worstVswrRow(defaultBasis: LimitBasis): SpecRowTemplate {
   return {
     id: "vswr",
     parameter: "vswr",
-    label: "VSWR, highest in band",
+    qualifiers: ["highest-in-band"],
     symbol: "VSWR",
     unit: ":1",
     decimals: 2,

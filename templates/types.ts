@@ -7,7 +7,8 @@ import type { DeviceClass } from "../lib/domain/device-classes";
 import type { MeasurementKind } from "../lib/domain/measurements";
 import type { LimitBasis, ProseSectionId } from "../lib/domain/sheets";
 import type { StatedAnalysisSettings } from "../lib/domain/analysis-settings";
-import type { ConditionFieldId } from "../lib/domain/measurement-conditions";
+import type { ClassFieldWords, ConditionFieldId } from "../lib/domain/measurement-conditions";
+import type { NameQualifier, ParameterName } from "../lib/domain/parameter-names";
 
 export type { DeviceClass, LimitBasis, ProseSectionId };
 
@@ -42,9 +43,13 @@ export interface ConditionColumn {
 export interface SpecRowTemplate {
   /** Stable id within the template. */
   id: string;
-  /** lib/analysis parameter name (parameterCatalog key). */
-  parameter: string;
-  label: string;
+  /** lib/analysis parameter name (parameterCatalog key): its label is the start of the row's name. */
+  parameter: ParameterName;
+  /**
+   * What the row's name adds after the parameter's (lib/domain/parameter-names.ts specRowName composes it with
+   * the harmonic order and path of `match` and "over temperature"): a row never spells a parameter's name.
+   */
+  qualifiers?: readonly NameQualifier[];
   symbol: string;
   unit: string;
   /** Decimals printed for limits and typical values (statistics get one more for s). */
@@ -80,8 +85,8 @@ export interface CurveTemplate {
   caption: string;
   /** Keep only some series of the curve (by series name); all by default. */
   selectSeries?: (seriesName: string) => boolean;
-  /** The y axis's word when the kept series are one quantity of a curve that holds several (unit unchanged). */
-  yLabel?: string;
+  /** The parameter the y axis is named by when the kept series are one quantity of a curve that holds several (unit unchanged). */
+  yParameter?: ParameterName;
 }
 
 /**
@@ -93,7 +98,7 @@ export interface TrendTemplate {
   /** Stable chart id in the sheet. */
   id: string;
   /** lib/analysis parameter name (parameterCatalog key). */
-  parameter: string;
+  parameter: ParameterName;
   /** Conditions the parameter must carry, value for value (as SpecRowTemplate.match). */
   match?: Record<string, string | number>;
   /** Each unit read off its stored sweep at the drive `match.drive` states (as SpecRowTemplate.atStatedDrive). */
@@ -108,8 +113,8 @@ export interface TrendTemplate {
    * frequency); the group with the most units is drawn and named in the caption.
    */
   groupBy?: string[];
-  /** The y axis words; the unit is the parameter's. */
-  y: { label: string; unit: string };
+  /** The y axis: named as a row of the same parameter, match and qualifiers is (specRowName); the unit is the parameter's. */
+  y: { unit: string; qualifiers?: readonly NameQualifier[] };
   title: string;
   caption: string;
 }
@@ -133,13 +138,20 @@ export interface AbsoluteMaximumRatingTemplate {
  */
 export interface ClassConditions {
   uploadFields: readonly ConditionFieldId[];
-  /** The class's words for the device's key conditions on the sheet (a mixer's input is its RF, its drive the LO's). */
-  keyConditionWords?: KeyConditionWords;
-}
-
-export interface KeyConditionWords {
-  inputFrequency?: string;
-  driveLevel?: string;
+  /**
+   * The class's own words for a field where the shared ones (lib/domain/measurement-conditions.ts) say too
+   * little: a multiplier's drive is stated per port. The upload form, the device form, the sheet's key facts
+   * and the design-in calculator all read a field's words through classConditionField.
+   */
+  fieldWords?: ClassFieldWords;
+  /**
+   * Which condition field names the device's key input frequency and drive on the sheet, the device form and
+   * the design-in calculator (a mixer's input is its RF, its drive the LO's); the shared input frequency and
+   * drive level by default.
+   */
+  keyFields?: { inputFrequency?: ConditionFieldId; drive?: ConditionFieldId };
+  /** The key input frequency's words where no upload field names it (a hybrid's range is its "Band"). */
+  keyConditionWords?: { inputFrequency?: string };
 }
 
 /**

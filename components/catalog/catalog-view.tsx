@@ -7,7 +7,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { NumberQuantity, RangeQuantity } from "@/components/ui/quantity";
 import { ScrollTable } from "@/components/ui/scroll-table";
 import { catalogParameters, conditionText, serializeCatalogQuery, type CatalogQuery, type CatalogQueryIssue, type CatalogSortKey } from "@/lib/catalog/catalog-query";
-import { catalogKeyColumns } from "@/lib/catalog/key-columns";
+import { catalogKeyColumns, keyColumnHead } from "@/lib/catalog/key-columns";
 import type { CatalogFacet, CatalogHit, CatalogResult } from "@/lib/catalog/types";
 import { deviceClasses, deviceClassLabels } from "@/lib/domain/device-classes";
 import { formatDate } from "@/lib/format";
@@ -258,7 +258,7 @@ function CatalogTable({ query, result }: { query: CatalogQuery; result: CatalogR
               const sort = `${c.key}.${c.guarantee}` as CatalogSortKey;
               return (
                 <th key={c.key} scope="col" className="num" aria-sort={ariaSort(query, sort)}>
-                  <SortLink query={query} sort={sort} label={<abbr title={parameters.get(c.key)?.label}>{c.symbol}</abbr>} />
+                  <SortLink query={query} sort={sort} label={<abbr title={keyColumnHead(c.key).name}>{keyColumnHead(c.key).symbol}</abbr>} />
                   <span className="block font-normal text-ink-muted">
                     typ · {c.guarantee}, <span className="normal-case">{parameters.get(c.key)?.unit}</span>
                   </span>
@@ -333,14 +333,13 @@ function FigureValue({ value }: { value: number | null }) {
 }
 
 function KeyFigures({ hit }: { hit: CatalogHit }) {
-  const columns = catalogKeyColumns[hit.deviceClass] ?? [];
   const shown = hit.figures.filter((f) => f.limit !== null || f.typ !== null);
   if (!shown.length) return <span className="text-ink-muted">—</span>;
   return (
     <ul className="space-y-0.5">
       {shown.map((f) => (
         <li key={f.key} className="whitespace-nowrap">
-          <abbr title={catalogParameters().get(f.key)?.label}>{columns.find((c) => c.key === f.key)?.symbol ?? f.key}</abbr>{" "}
+          <abbr title={keyColumnHead(f.key).name}>{keyColumnHead(f.key).symbol}</abbr>{" "}
           {f.limit !== null ? (
             <>
               {f.guarantee} <NumberQuantity value={f.limit} unit={f.unit} digits={{ maxDecimals: 2 }} />

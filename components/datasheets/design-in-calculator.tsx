@@ -7,6 +7,8 @@ import { Notation } from "@/components/sheet/notation";
 import { quantityText, type DesignInAnswer, type DesignInCurves, type DesignInLimit, type DesignInOutcome, type DesignInReading } from "@/lib/sheet/design-in";
 import type { DesignInChart } from "@/lib/sheet/design-in-charts";
 import { formatNumber, formatRange } from "@/lib/format";
+import { keyConditionField } from "@/lib/domain/measurement-conditions";
+import { classConditions } from "@/templates/upload-conditions";
 
 type DesignInCalculatorProps = {
   /** The page's own address, which the GET form submits to (the query is the calculator's state). */
@@ -40,6 +42,10 @@ export function DesignInCalculator({ action, partNumber, revisionLetter, standin
   const messageIdFor = (field: "drive" | "frequency") =>
     issues.some((i) => i.field === field) ? `design-in-issue-${field}` : refusal && refusal.field === field ? "design-in-refusal-message" : undefined;
   const blank = outcome.kind === "blank";
+  // The class's words for its drive and input frequency, as its upload form and its sheet's key facts say them.
+  const words = curves.ok ? classConditions[curves.curves.deviceClass] : undefined;
+  const drive = keyConditionField(words, "drive");
+  const frequency = keyConditionField(words, "inputFrequency");
   const fixedDefault = (field: "drive" | "frequency") =>
     blank && curves.ok && curves.curves.fixed.field === field ? quantityText(curves.curves.fixed.value, curves.curves.fixed.unit).replace(/\u00a0/g, " ") : "";
   return (
@@ -68,20 +74,16 @@ export function DesignInCalculator({ action, partNumber, revisionLetter, standin
             <DesignField
               id="design-in-drive"
               name="drive"
-              label={curves.curves.deviceClass === "frequency-multiplier" ? "Drive level, per port" : "LO drive"}
+              label={drive.label}
               defaultValue={typed.drive || fixedDefault("drive")}
               placeholder="e.g. +10 dBm"
-              hint={
-                curves.curves.deviceClass === "frequency-multiplier"
-                  ? "As the curves are drawn: at each device port, after the input split. dBm if no unit is typed."
-                  : "The available LO power at the LO port. dBm if no unit is typed."
-              }
+              hint={`${drive.hint ? `${drive.hint}. ` : ""}dBm if no unit is typed.`}
               messageId={messageIdFor("drive")}
             />
             <DesignField
               id="design-in-frequency"
               name="frequency"
-              label={curves.curves.deviceClass === "frequency-multiplier" ? "Input frequency" : "RF frequency"}
+              label={frequency.label}
               defaultValue={typed.frequency || fixedDefault("frequency")}
               placeholder="e.g. 1.5 GHz"
               hint="With its unit: GHz, MHz, kHz or Hz."

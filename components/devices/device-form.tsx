@@ -1,5 +1,7 @@
 "use client";
 
+import { keyConditionField } from "@/lib/domain/measurement-conditions";
+import { classConditions } from "@/templates/upload-conditions";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import type { DeviceBody } from "@/lib/schemas/measurements";
@@ -44,7 +46,7 @@ export function DeviceForm({ device }: { device?: DeviceSummary }) {
         <FrequencyRangeField legend="Output frequency range" value={output} onChange={set("output")} error={errors.outputFrequencyHz} testId="output-range" />
       </div>
       <div className="grid gap-5 sm:grid-cols-2">
-        <DriveLevelField value={values.drive} onChange={set("drive")} error={errors.driveLevelDbm} />
+        <DriveLevelField label={keyConditionField(classConditions[deviceClass], "drive").label} value={values.drive} onChange={set("drive")} error={errors.driveLevelDbm} />
         {deviceClass === "frequency-multiplier" ? <MultiplicationFactorField value={values.factor} onChange={set("factor")} error={errors.multiplicationFactor} /> : null}
       </div>
       <div aria-live="polite" className="empty:hidden">
@@ -91,11 +93,12 @@ function DescriptionField({ value, onChange }: { value: string; onChange: (value
   );
 }
 
-function DriveLevelField({ value, onChange, error }: { value: string; onChange: (value: string) => void; error?: string }) {
+/** The device's drive, named as its class names it ("Drive level, per port", "LO drive"). */
+function DriveLevelField({ label, value, onChange, error }: { label: string; value: string; onChange: (value: string) => void; error?: string }) {
   return (
     <div className="space-y-1.5">
       <label htmlFor="new-device-drive" className="block text-[0.9375rem] font-semibold">
-        Drive level <span className="font-normal text-ink-muted">(optional)</span>
+        {label} <span className="font-normal text-ink-muted">(optional)</span>
       </label>
       <div className="flex items-center gap-2">
         <input

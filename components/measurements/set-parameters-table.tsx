@@ -1,14 +1,22 @@
-import { parameterCatalog } from "@/lib/analysis/catalog";
+import { parameterCatalog, type ParameterDescription } from "@/lib/analysis/catalog";
 import type { DerivedParameter } from "@/lib/analysis/types";
 import { NumberQuantity } from "@/components/ui/quantity";
 import { describeConditions } from "./parameter-conditions";
-import { harmonicSuppressionLabel } from "@/lib/domain/parameter-names";
+import { derivedParameterName, nameConditionKeys } from "@/lib/domain/parameter-names";
 
-/** The parameter's name; a harmonic order's suppression is named as the sheet's row and the charts' legend name it. */
+/**
+ * The figure's name as the sheet's row and the charts' legend name it (lib/domain/parameter-names.ts): the
+ * parameter with its harmonic order or path; the conditions column then leaves those out.
+ */
 function labelOf(name: string, conditions: DerivedParameter["conditions"] = {}): { label: string; description?: string } {
-  const entry = (parameterCatalog as Record<string, { label: string; description: string }>)[name];
-  const label = name === "harmonic-suppression" && typeof conditions.order === "number" ? harmonicSuppressionLabel(conditions.order) : entry?.label ?? name;
+  const entry = (parameterCatalog as Record<string, ParameterDescription>)[name];
+  const label = derivedParameterName(name, conditions);
   return entry ? { label, description: entry.description } : { label };
+}
+
+/** The conditions not already said by the figure's name. */
+function conditionsBesideName(conditions: DerivedParameter["conditions"]): DerivedParameter["conditions"] {
+  return Object.fromEntries(Object.entries(conditions).filter(([key]) => !(nameConditionKeys as readonly string[]).includes(key)));
 }
 
 function ParameterValue({ p }: { p: DerivedParameter }) {
@@ -63,7 +71,7 @@ function ParameterRows({ parameters, testId }: { parameters: DerivedParameter[];
         <tbody>
           {parameters.map((p, i) => {
             const { label, description } = labelOf(p.name, p.conditions);
-            const parts = describeConditions(p.conditions);
+            const parts = describeConditions(conditionsBesideName(p.conditions));
             return (
               <tr key={i}>
                 <th scope="row" className="font-semibold" title={description}>

@@ -8,7 +8,7 @@ import { selectClass } from "@/components/ui/field";
 import { kindLabel, measurementKindLabels } from "@/lib/domain/measurements";
 import { namedIntegrationBands, spurBandwidthKinds, type SpurBandwidthKind } from "@/lib/domain/analysis-settings";
 import { conditionFields, type ConditionFieldId } from "@/lib/domain/measurement-conditions";
-import { unitOf, type SupersedableSet, type UploadConditions } from "./upload-form-data";
+import { fieldOf, unitOf, type SupersedableSet, type UploadConditions } from "./upload-form-data";
 
 type UploadConditionsFormProps = {
   conditions: UploadConditions;
@@ -27,7 +27,7 @@ export function UploadConditionsForm({ conditions, classLabel, onChange: set, di
     <fieldset className="space-y-4" disabled={disabled} data-testid="upload-conditions">
       <legend className="running-head mb-3">Conditions for this batch</legend>
       <p className="text-sm text-ink-muted" data-testid="upload-class-conditions">
-        A {classLabel.toLowerCase()} is stated at: {conditions.classFields.map((f) => conditionFields[f].label.replace(/^(?!RF|LO|IF)./, (c) => c.toLowerCase())).join(", ")}, besides the unit and temperature.
+        A {classLabel.toLowerCase()} is stated at: {conditions.classFields.map((f) => fieldOf(conditions, f).label.replace(/^(?!RF|LO|IF)./, (c) => c.toLowerCase())).join(", ")}, besides the unit and temperature.
       </p>
       <div className="grid gap-4 sm:grid-cols-2">
         <TextInput label="Serial" value={conditions.serial} onChange={(v) => set("serial", v)} hint="Used when the file has no # serial: line" mono />
@@ -166,7 +166,7 @@ const spurBandwidthOptionWords: Record<SpurBandwidthKind, string> = {
 
 /** One of the class's condition fields: a frequency with its unit, or a number in dBm or dB. */
 function ClassConditionInput({ fieldId, conditions, onChange: set }: { fieldId: ConditionFieldId } & Pick<UploadConditionsFormProps, "conditions" | "onChange">) {
-  const field = conditionFields[fieldId];
+  const field = fieldOf(conditions, fieldId);
   const value = conditions.values[fieldId] ?? "";
   const setValue = (v: string) => set("values", { ...conditions.values, [fieldId]: v });
   if (field.kind === "frequency") {

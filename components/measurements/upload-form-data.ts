@@ -4,7 +4,7 @@ import { toHz } from "@/components/devices/frequency-units";
 import { parseDecimalText } from "@/lib/ingest/number";
 import { formatNumber } from "@/lib/format";
 import { impedanceProblem, spurBandwidthKindWords, spurBandwidthProblem, type SpurBandwidthKind } from "@/lib/domain/analysis-settings";
-import { conditionFieldPairs, conditionFields, type ConditionFieldId } from "@/lib/domain/measurement-conditions";
+import { classConditionField, conditionFieldPairs, conditionFields, type ClassConditionWords, type ConditionField, type ConditionFieldId } from "@/lib/domain/measurement-conditions";
 
 /** What the upload form holds for a batch: strings as typed, converted when the form is sent. */
 export type SupersedableSet = { id: number; kind: string; fileName: string; serial?: string };
@@ -25,6 +25,8 @@ export type UploadConditions = {
   temperatureC: string;
   /** The device class's own condition fields (templates/<class>/conditions.ts), in the form's order. */
   classFields: readonly ConditionFieldId[];
+  /** The class's own words for some of them ("Drive level, per port"): read through fieldOf. */
+  classWords?: ClassConditionWords;
   /** Each condition as typed; a frequency in the unit beside it. */
   values: Partial<Record<ConditionFieldId, string>>;
   units: Partial<Record<ConditionFieldId, FrequencyUnit>>;
@@ -47,11 +49,12 @@ export type UploadConditions = {
   spurBandwidthKind: SpurBandwidthKind;
 };
 
-export const initialConditions = (classFields: readonly ConditionFieldId[]): UploadConditions => ({
+export const initialConditions = (classFields: readonly ConditionFieldId[], classWords?: ClassConditionWords): UploadConditions => ({
   serial: "",
   lot: "",
   temperatureC: "",
   classFields,
+  ...(classWords ? { classWords } : {}),
   values: {},
   units: {},
   measuredOn: "",
@@ -119,10 +122,15 @@ export function buildForm(file: File, c: UploadConditions): FormData {
   return form;
 }
 
+/** A condition field as the device's class words it (lib/domain/measurement-conditions.ts classConditionField). */
+export function fieldOf(c: Pick<UploadConditions, "classWords">, id: ConditionFieldId): ConditionField {
+  return classConditionField(c.classWords, id);
+}
+
 export function checkConditions(c: UploadConditions, fileCount: number): string | null {
   const numbers: [string, string][] = [
     ["Temperature", c.temperatureC],
-    ...c.classFields.map((id): [string, string] => [conditionFields[id].label, c.values[id] ?? ""]),
+    ...c.classFields.map((id): [string, string] => [fieldOf(c, id).label, c.values[id] ?? ""]),
     ["Compression reference drive", c.compressionReferenceDbm],
     ["Impedance", c.impedanceOhm],
   ];
@@ -132,7 +140,7 @@ export function checkConditions(c: UploadConditions, fileCount: number): string 
   const ohm = parseDecimalText(c.impedanceOhm);
   if (ohm !== undefined && impedanceProblem(ohm)) return `The ${impedanceProblem(ohm)}.`;
   for (const id of c.classFields) {
-    const field = conditionFields[id];
+    const field = fieldOf(c, id);
     const typed = c.values[id] ?? "";
     if (field.kind === "frequency") {
       const hz = toHz(typed, unitOf(c, id));
@@ -146,8 +154,8 @@ export function checkConditions(c: UploadConditions, fileCount: number): string 
     if (!c.classFields.includes(startId)) continue;
     const start = toHz(c.values[startId] ?? "", unitOf(c, startId));
     const stop = toHz(c.values[stopId] ?? "", unitOf(c, stopId));
-    if ((start === undefined) !== (stop === undefined)) return `State both ends: ${conditionFields[startId].label.toLowerCase()} and ${conditionFields[stopId].label.toLowerCase()}.`;
-    if (start !== undefined && stop !== undefined && !(stop > start)) return `The ${conditionFields[stopId].label.toLowerCase()} must lie above the ${conditionFields[startId].label.toLowerCase()}.`;
+    if ((start === undefined) !== (stop === undefined)) return `State both ends: ${fieldOf(c, startId).label.toLowerCase()} and ${fieldOf(c, stopId).label.toLowerCase()}.`;
+    if (start !== undefined && stop !== undefined && !(stop > start)) return `The ${fieldOf(c, stopId).label.toLowerCase()} must lie above the ${fieldOf(c, startId).label.toLowerCase()}.`;
   }
   if (c.integrationBand === "custom") {
     const startHz = toHz(c.integrationStart, c.integrationStartUnit);

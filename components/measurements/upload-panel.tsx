@@ -3,7 +3,7 @@
 import { useId, useState } from "react";
 import type { InstrumentSummary } from "@/lib/domain/instruments";
 import { deviceClassLabels, type DeviceClass } from "@/lib/domain/device-classes";
-import { uploadConditionFields } from "@/templates/upload-conditions";
+import { classConditions, uploadConditionFields } from "@/templates/upload-conditions";
 import { buttonClass } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { ColumnMappingPanel } from "./column-mapping-panel";
@@ -19,7 +19,7 @@ type UploadPanelProps = { deviceId: number; deviceClass: DeviceClass; instrument
 
 export function UploadPanel({ deviceId, deviceClass, instruments, supersedable }: UploadPanelProps) {
   const id = useId();
-  const [conditions, setConditions] = useState<UploadConditions>(() => initialConditions(uploadConditionFields(deviceClass)));
+  const [conditions, setConditions] = useState<UploadConditions>(() => initialConditions(uploadConditionFields(deviceClass), classConditions[deviceClass]));
   const { rows, setRows, updateRow, addFiles, uploadRows, formError, running } = useUploadQueue(deviceId, conditions);
 
   const set = <K extends keyof UploadConditions>(key: K, value: UploadConditions[K]) => setConditions((c) => ({ ...c, [key]: value }));

@@ -1,4 +1,4 @@
-import { ScrollTable } from "@/components/ui/scroll-table";
+import { RuledTable } from "@/components/ui/ruled-table";
 import { kindLabel } from "@/lib/domain/measurements";
 import { designInSectionTitles } from "@/lib/sheet/diff-design-in";
 import type { DesignInChange, MeasurementSetRef, ProseChange, ProseDiffPart, RatingChange, RatingFigures, SheetDiff } from "@/lib/sheet/diff-types";
@@ -84,36 +84,14 @@ export function DiffRatings({ diff }: { diff: SheetDiff }) {
   if (diff.ratings.length === 0) return null;
   return (
     <DiffSection id="diff-ratings" title="Absolute maximum ratings" testId="diff-ratings">
-      <ScrollTable label="Changed absolute maximum ratings" testId="diff-ratings-table">
-        <thead>
-          <tr>
-            <th scope="col">Change</th>
-            <th scope="col">Rating</th>
-            <th scope="col" className="num">
-              {diff.previousLabel ?? "Previous"}
-            </th>
-            <th scope="col" className="num">
-              {diff.nextLabel}
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {diff.ratings.map((rating: RatingChange) => (
-            <tr key={rating.label}>
-              <td>
-                <MarkWord {...rowKindWords[rating.kind]} />
-              </td>
-              <th scope="row">{rating.label}</th>
-              <td className="num">
-                <RatingValue figures={rating.previous} />
-              </td>
-              <td className="num">
-                <RatingValue figures={rating.next} />
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </ScrollTable>
+      <RuledTable
+        scroll={{ label: "Changed absolute maximum ratings", testId: "diff-ratings-table" }}
+        columns={[{ head: "Change" }, { head: "Rating", rowHeader: true }, { head: diff.previousLabel ?? "Previous", numeric: true }, { head: diff.nextLabel, numeric: true }]}
+        rows={diff.ratings.map((rating: RatingChange) => ({
+          key: rating.label,
+          cells: [<MarkWord key="kind" {...rowKindWords[rating.kind]} />, rating.label, <RatingValue key="previous" figures={rating.previous} />, <RatingValue key="next" figures={rating.next} />],
+        }))}
+      />
     </DiffSection>
   );
 }
@@ -138,37 +116,23 @@ export function DiffDesignIn({ diff }: { diff: SheetDiff }) {
   if (diff.designIn.length === 0) return null;
   return (
     <DiffSection id="diff-design-in" title="Design-in data" testId="diff-design-in">
-      <ScrollTable label="Changed design-in rows" testId="diff-design-in-table">
-        <thead>
-          <tr>
-            <th scope="col">Change</th>
-            <th scope="col">Section</th>
-            <th scope="col">Row</th>
-            <th scope="col">{diff.previousLabel ?? "Previous"}</th>
-            <th scope="col">{diff.nextLabel}</th>
-          </tr>
-        </thead>
-        <tbody>
-          {diff.designIn.map((change) => (
-            <tr key={`${change.section}-${change.key}`}>
-              <td>
-                <MarkWord {...rowKindWords[change.kind]} />
-              </td>
-              <td>{designInSectionTitles[change.section]}</td>
-              <th scope="row">
-                {change.key}
-                {change.kind === "changed" ? <span className="block text-ink-muted text-sm">{change.fields.join(", ")}</span> : null}
-              </th>
-              <td>
-                <DesignInLine change={change} side="previous" />
-              </td>
-              <td>
-                <DesignInLine change={change} side="next" />
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </ScrollTable>
+      <RuledTable
+        scroll={{ label: "Changed design-in rows", testId: "diff-design-in-table" }}
+        columns={[{ head: "Change" }, { head: "Section" }, { head: "Row", rowHeader: true }, { head: diff.previousLabel ?? "Previous" }, { head: diff.nextLabel }]}
+        rows={diff.designIn.map((change) => ({
+          key: `${change.section}-${change.key}`,
+          cells: [
+            <MarkWord key="kind" {...rowKindWords[change.kind]} />,
+            designInSectionTitles[change.section],
+            <>
+              {change.key}
+              {change.kind === "changed" ? <span className="block text-ink-muted text-sm">{change.fields.join(", ")}</span> : null}
+            </>,
+            <DesignInLine key="previous" change={change} side="previous" />,
+            <DesignInLine key="next" change={change} side="next" />,
+          ],
+        }))}
+      />
     </DiffSection>
   );
 }
@@ -205,34 +169,21 @@ export function DiffMeasurementSets({ diff }: { diff: SheetDiff }) {
   ];
   return (
     <DiffSection id="diff-sets" title={`Measurement sets (${added.length} added, ${removed.length} removed)`} testId="diff-sets">
-      <ScrollTable label="Measurement sets added and removed" testId="diff-sets-table">
-        <thead>
-          <tr>
-            <th scope="col">Change</th>
-            <th scope="col">Unit</th>
-            <th scope="col">Kind</th>
-            <th scope="col">Lot</th>
-            <th scope="col">Temperature</th>
-            <th scope="col">Measured on</th>
-          </tr>
-        </thead>
-        <tbody>
-          {rows.map(({ kind, set }) => (
-            <tr key={`${kind}-${set.id}`}>
-              <td>
-                <MarkWord {...rowKindWords[kind]} />
-              </td>
-              <th scope="row" className="figure">
-                {set.serial}
-              </th>
-              <td>{kindLabel(set.kind)}</td>
-              <td className="figure">{set.lot ?? <Absent />}</td>
-              <td className="figure">{set.temperature || <Absent />}</td>
-              <td className="figure whitespace-nowrap">{set.measuredOn}</td>
-            </tr>
-          ))}
-        </tbody>
-      </ScrollTable>
+      <RuledTable
+        scroll={{ label: "Measurement sets added and removed", testId: "diff-sets-table" }}
+        columns={[
+          { head: "Change" },
+          { head: "Unit", rowHeader: true, cellClassName: "figure" },
+          { head: "Kind" },
+          { head: "Lot", cellClassName: "figure" },
+          { head: "Temperature", cellClassName: "figure" },
+          { head: "Measured on", cellClassName: "figure whitespace-nowrap" },
+        ]}
+        rows={rows.map(({ kind, set }) => ({
+          key: `${kind}-${set.id}`,
+          cells: [<MarkWord key="kind" {...rowKindWords[kind]} />, set.serial, kindLabel(set.kind), set.lot ?? <Absent />, set.temperature || <Absent />, set.measuredOn],
+        }))}
+      />
     </DiffSection>
   );
 }
@@ -241,24 +192,11 @@ export function DiffDetails({ diff }: { diff: SheetDiff }) {
   if (diff.details.length === 0) return null;
   return (
     <DiffSection id="diff-details" title="Header and key facts" testId="diff-details">
-      <ScrollTable label="Changed header and key facts" testId="diff-details-table">
-        <thead>
-          <tr>
-            <th scope="col">Item</th>
-            <th scope="col">{diff.previousLabel ?? "Previous"}</th>
-            <th scope="col">{diff.nextLabel}</th>
-          </tr>
-        </thead>
-        <tbody>
-          {diff.details.map((detail) => (
-            <tr key={detail.label}>
-              <th scope="row">{detail.label}</th>
-              <td>{detail.previous ?? <Absent />}</td>
-              <td>{detail.next ?? <Absent />}</td>
-            </tr>
-          ))}
-        </tbody>
-      </ScrollTable>
+      <RuledTable
+        scroll={{ label: "Changed header and key facts", testId: "diff-details-table" }}
+        columns={[{ head: "Item", rowHeader: true }, { head: diff.previousLabel ?? "Previous" }, { head: diff.nextLabel }]}
+        rows={diff.details.map((detail) => ({ key: detail.label, cells: [detail.label, detail.previous ?? <Absent />, detail.next ?? <Absent />] }))}
+      />
     </DiffSection>
   );
 }

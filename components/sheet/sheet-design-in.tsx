@@ -1,5 +1,6 @@
 import { hasDesignData } from "@/lib/sheet/design-data";
 import type { SheetModel } from "@/lib/sheet/types";
+import { RuledTable } from "@/components/ui/ruled-table";
 import { SheetHeading } from "./sheet-heading";
 
 /** Package outline, pin functions, recommended operating conditions and ordering information: what a designer needs beside the table. */
@@ -12,28 +13,17 @@ export function SheetDesignIn({ model }: { model: SheetModel }) {
       {data.recommendedOperatingConditions.length ? (
         <section aria-labelledby="sheet-operating-conditions" className="sheet-keep mt-10">
           <SheetHeading id="sheet-operating-conditions">Recommended operating conditions</SheetHeading>
-          <table className="sheet-table max-w-2xl">
-            <thead>
-              <tr>
-                <th scope="col">Parameter</th>
-                <th scope="col" className="num">Min</th>
-                <th scope="col" className="num">Typ</th>
-                <th scope="col" className="num">Max</th>
-                <th scope="col">Unit</th>
-              </tr>
-            </thead>
-            <tbody>
-              {data.recommendedOperatingConditions.map((c, i) => (
-                <tr key={`${c.parameter}-${i}`}>
-                  <th scope="row">{c.parameter}</th>
-                  <td className="num figure">{c.min.text}</td>
-                  <td className="num figure">{c.typ.text}</td>
-                  <td className="num figure">{c.max.text}</td>
-                  <td className="unit">{c.unit}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <RuledTable
+            className="max-w-2xl"
+            columns={[
+              { head: "Parameter", rowHeader: true },
+              { head: "Min", numeric: true, cellClassName: "figure" },
+              { head: "Typ", numeric: true, cellClassName: "figure" },
+              { head: "Max", numeric: true, cellClassName: "figure" },
+              { head: "Unit", cellClassName: "unit" },
+            ]}
+            rows={data.recommendedOperatingConditions.map((c, i) => ({ key: `${c.parameter}-${i}`, cells: [c.parameter, c.min.text, c.typ.text, c.max.text, c.unit] }))}
+          />
         </section>
       ) : null}
       {outline ? (
@@ -55,47 +45,21 @@ export function SheetDesignIn({ model }: { model: SheetModel }) {
       {data.pinFunctions.length ? (
         <section aria-labelledby="sheet-pin-functions" className="sheet-keep mt-10">
           <SheetHeading id="sheet-pin-functions">Pin functions</SheetHeading>
-          <table className="sheet-table max-w-2xl">
-            <thead>
-              <tr>
-                <th scope="col">Pin</th>
-                <th scope="col">Name</th>
-                <th scope="col">Function</th>
-              </tr>
-            </thead>
-            <tbody>
-              {data.pinFunctions.map((p, i) => (
-                <tr key={`${p.pin}-${p.name}-${i}`}>
-                  <td className="figure">{p.pin}</td>
-                  <th scope="row">{p.name}</th>
-                  <td>{p.function}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <RuledTable
+            className="max-w-2xl"
+            columns={[{ head: "Pin", cellClassName: "figure" }, { head: "Name", rowHeader: true }, { head: "Function" }]}
+            rows={data.pinFunctions.map((p, i) => ({ key: `${p.pin}-${p.name}-${i}`, cells: [p.pin, p.name, p.function] }))}
+          />
         </section>
       ) : null}
       {data.ordering.length ? (
         <section aria-labelledby="sheet-ordering" className="sheet-keep mt-10">
           <SheetHeading id="sheet-ordering">Ordering information</SheetHeading>
-          <table className="sheet-table max-w-2xl">
-            <thead>
-              <tr>
-                <th scope="col">Part number</th>
-                <th scope="col">Options</th>
-                <th scope="col">Packing</th>
-              </tr>
-            </thead>
-            <tbody>
-              {data.ordering.map((o, i) => (
-                <tr key={`${o.partNumber}-${i}`}>
-                  <th scope="row" className="figure">{o.partNumber}</th>
-                  <td>{o.options}</td>
-                  <td>{o.packing}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <RuledTable
+            className="max-w-2xl"
+            columns={[{ head: "Part number", rowHeader: true, cellClassName: "figure" }, { head: "Options" }, { head: "Packing" }]}
+            rows={data.ordering.map((o, i) => ({ key: `${o.partNumber}-${i}`, cells: [o.partNumber, o.options, o.packing] }))}
+          />
         </section>
       ) : null}
     </>

@@ -1,4 +1,5 @@
 import { proseLayout } from "@/lib/sheet/prose-layout";
+import { RuledTable } from "@/components/ui/ruled-table";
 import type { SheetModel } from "@/lib/sheet/types";
 import { Notation } from "./notation";
 import { SheetHeading } from "./sheet-heading";
@@ -100,26 +101,11 @@ export function SheetRevisionHistory({ model }: ModelProps) {
   return (
     <section aria-labelledby="sheet-history" className="sheet-keep mt-10">
       <SheetHeading id="sheet-history">Revision history</SheetHeading>
-      <table className="sheet-table max-w-3xl">
-        <thead>
-          <tr>
-            <th scope="col">Revision</th>
-            <th scope="col">Date</th>
-            <th scope="col">Changes</th>
-          </tr>
-        </thead>
-        <tbody>
-          {model.revisionHistory.map((entry) => (
-            <tr key={`${entry.label}|${entry.date}`}>
-              <th scope="row">{entry.label}</th>
-              <td className="figure whitespace-nowrap">{entry.date}</td>
-              <td>
-                <Notation text={entry.summary} />
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <RuledTable
+        className="max-w-3xl"
+        columns={[{ head: "Revision", rowHeader: true }, { head: "Date", cellClassName: "figure whitespace-nowrap" }, { head: "Changes" }]}
+        rows={model.revisionHistory.map((entry) => ({ key: `${entry.label}|${entry.date}`, cells: [entry.label, entry.date, <Notation key="summary" text={entry.summary} />] }))}
+      />
     </section>
   );
 }

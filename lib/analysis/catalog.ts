@@ -1,4 +1,8 @@
-/** What the UI and the datasheet show for each machine name of a derived parameter. */
+/**
+ * What the UI and the datasheet show for each machine name of a derived parameter. `label` is the
+ * parameter's one name, in the trade's words: every surface takes it through lib/domain/parameter-names.ts
+ * (which composes a row's order, path and qualifiers onto it); nothing else spells it.
+ */
 export interface ParameterDescription {
   label: string;
   unit: string;
@@ -28,7 +32,7 @@ export const parameterCatalog = {
       "P_wanted − P_order at the measured step nearest the optimum drive; positive means the order lies below the wanted output.",
   },
   "input-p1db": {
-    label: "Input 1 dB compression",
+    label: "Input P1dB",
     unit: "dBm",
     description:
       "Input where gain (−conversion loss for a converter) is 1 dB below its small-signal value, interpolated between the straddling steps " +
@@ -37,19 +41,19 @@ export const parameterCatalog = {
       "Empty when the sweep does not reach it.",
   },
   "output-p1db": {
-    label: "Output 1 dB compression",
+    label: "Output P1dB",
     unit: "dBm",
     description: "Output at the input 1 dB compression point: input + small-signal gain − 1 dB.",
   },
   iip3: {
-    label: "Input third-order intercept",
+    label: "Input IP3",
     unit: "dBm",
     description:
       "Per-tone input intercept (Kundert): \"slope-fit\" meets least-squares lines of slope 1 and 3 over the small-signal points; " +
       "\"single-point\" is P_in + ΔIM/2 at the lowest drive, as a cross-check.",
   },
   oip3: {
-    label: "Output third-order intercept",
+    label: "Output IP3",
     unit: "dBm",
     description: "Per-tone output intercept: OIP3 = P_out + ΔIM/2 (Kundert); for a mixer IIP3 = OIP3 + CL.",
   },
@@ -81,29 +85,29 @@ export const parameterCatalog = {
     description: "−10·log10(1 − |Sii|²), the power a port reflects (Pozar §2.3); \"worst\" is the highest over the band.",
   },
   "spot-phase-noise": {
-    label: "Phase noise L(f)",
+    label: "Residual phase noise",
     unit: "dBc/Hz",
     description:
       "Single-sideband L(f) = ½·Sφ(f) (IEEE Std 1139-2008) at a decade offset, log-log interpolated between trace points.",
   },
   "integrated-phase-noise": {
-    label: "Integrated phase noise",
+    label: "Integrated residual phase noise",
     unit: "dBc",
     description:
       "∫ L(f) df between the stated offsets, each segment a power law (IEEE Std 1139-2008; the method of MathWorks phaseNoiseToJitter). Spurs are included.",
   },
   "rms-phase-error": {
-    label: "RMS phase error",
+    label: "Residual RMS phase error",
     unit: "deg",
     description: "φrms = √(2·∫L(f)df), both sidebands, in degrees, over the integration band printed beside it.",
   },
   "rms-jitter": {
-    label: "RMS jitter",
+    label: "Residual RMS jitter",
     unit: "fs",
     description: "σt = φrms / (2π·f0) over the integration band printed beside it, in femtoseconds.",
   },
   "excess-over-ideal-multiplication": {
-    label: "Excess over ideal multiplication",
+    label: "Excess over ideal ×N",
     unit: "dB",
     description: "L_out − (L_in + 20·log10 N) at an offset: what the multiplier adds beyond an ideal ×N. Needs an input reference trace.",
   },
@@ -118,7 +122,7 @@ export const parameterCatalog = {
     description: "Median L(f) over the trace's last decade of offset (the last fifth of its log-offset span when that is shorter).",
   },
   "noise-floor-above-kt": {
-    label: "Noise floor above kT",
+    label: "Far-out noise floor above kT",
     unit: "dB",
     description:
       "Far-out floor minus the thermal phase-noise floor kT − 3.01 dB − P_carrier, with kT = 10·log10(k·T/1 mW) " +

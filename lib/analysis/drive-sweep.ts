@@ -1,4 +1,5 @@
 import type { DriveSweep } from "../ingest/types";
+import { parameterName } from "../domain/parameter-names";
 import { computeConversionLossDb, computePerPortDriveDbm } from "../rf/conversion";
 import { computeSuppressionDbc, findOptimumDrive } from "../rf/harmonics";
 import { addCompressionPoint } from "./compression";
@@ -123,7 +124,7 @@ function driveSweepCurves(data: DriveSweep, sweep: DeEmbeddedSweep, markers: Non
       id: "conversion-loss-vs-drive",
       title: "Conversion loss vs per-port drive",
       x: { label: "Per-port drive", unit: "dBm", scale: "linear" },
-      y: { label: "Conversion loss", unit: "dB" },
+      y: { label: parameterName("conversion-loss"), unit: "dB" },
       series: [makeSeries(`order ${data.wantedOrder}`, perPortDbm, conversionLossDb, decimate)],
       markers,
     },
@@ -138,7 +139,7 @@ function driveSweepCurves(data: DriveSweep, sweep: DeEmbeddedSweep, markers: Non
       id: "harmonic-suppression-vs-drive",
       title: "Suppression of each order vs per-port drive",
       x: { label: "Per-port drive", unit: "dBm", scale: "linear" },
-      y: { label: "Suppression", unit: "dBc" },
+      y: { label: parameterName("harmonic-suppression"), unit: "dBc" },
       series: data.harmonics
         .filter((h) => h.order !== data.wantedOrder)
         .map((h) =>

@@ -1,4 +1,5 @@
 import type { FrequencySweep } from "../ingest/types";
+import { parameterName } from "../domain/parameter-names";
 import { computeConversionLossDb } from "../rf";
 import { summarizeSample } from "../stats";
 import { makeParameter, makeSeries } from "./curves";
@@ -38,7 +39,7 @@ export function analyzeFrequencySweep(data: FrequencySweep, maxPoints: number): 
       id: "conversion-loss-vs-frequency",
       title: "Conversion loss vs frequency",
       x: xAxis,
-      y: { label: "Conversion loss", unit: "dB" },
+      y: { label: parameterName("conversion-loss"), unit: "dB" },
       series: [makeSeries("conversion loss", f, conversionLossDb, decimate)],
     });
   } else {
@@ -57,7 +58,7 @@ export function analyzeFrequencySweep(data: FrequencySweep, maxPoints: number): 
       id: "isolation-vs-frequency",
       title: "Isolation vs frequency",
       x: xAxis,
-      y: { label: "Isolation", unit: "dB" },
+      y: { label: parameterName("isolation"), unit: "dB" },
       series: isolationSeries,
     });
   }

@@ -1,4 +1,5 @@
 import type { PhaseNoiseTrace } from "../ingest/types";
+import { parameterName } from "../domain/parameter-names";
 import {
   computeMultiplicationPenaltyDb,
   computeSpotPhaseNoise,
@@ -39,7 +40,7 @@ export function analyzePhaseNoise(data: PhaseNoiseTrace, options: DeriveOptions,
   const curves: Curve[] = [
     {
       id: "phase-noise",
-      title: "Phase noise L(f)",
+      title: `${parameterName("spot-phase-noise")} L(f)`,
       x: { label: "Offset", unit: "Hz", scale: "log" },
       y: { label: "L(f)", unit: "dBc/Hz" },
       series: [makeSeries("L(f)", data.offsetHz, data.lDbcHz, { maxPoints, logX: true, keep: spurs.map((spur) => lowerBound(data.offsetHz, spur.offsetHz)) })],

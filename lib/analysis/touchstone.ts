@@ -1,4 +1,5 @@
 import { sParameter } from "../ingest/touchstone";
+import { parameterName } from "../domain/parameter-names";
 import type { TouchstoneData } from "../ingest/types";
 import { type Complex, computeMismatchLossDb, computePhaseBalanceSweepDeg, computeReturnLossDb, computeVswr } from "../rf";
 import { errorMessage, makeParameter, makeSeries } from "./curves";
@@ -104,7 +105,7 @@ function addPortMatch(network: Network): void {
     }
     returnLossSeries.push(makeSeries(`port ${port}`, f, rl, network.decimate));
   }
-  network.curves.push({ id: "return-loss", title: "Return loss vs frequency", x: network.xAxis, y: { label: "Return loss", unit: "dB" }, series: returnLossSeries });
+  network.curves.push({ id: "return-loss", title: "Return loss vs frequency", x: network.xAxis, y: { label: parameterName("return-loss"), unit: "dB" }, series: returnLossSeries });
 }
 
 /** Which paths are transmission, isolation and balance depends on the port count and the stated port roles. */
@@ -185,14 +186,14 @@ function addBalance(network: Network, pairing: { a: number; b: number; from: num
     id: "amplitude-balance",
     title: `Amplitude balance ${pair}`,
     x: xAxis,
-    y: { label: "Amplitude balance", unit: "dB" },
+    y: { label: parameterName("amplitude-balance"), unit: "dB" },
     series: [makeSeries(pair, f, amplitude, decimate)],
   });
   network.curves.push({
     id: "phase-balance",
     title: `Phase balance ${pair} vs ${nominalDeg}°`,
     x: xAxis,
-    y: { label: "Phase balance", unit: "deg" },
+    y: { label: parameterName("phase-balance"), unit: "deg" },
     series: [makeSeries(pair, f, phase, decimate)],
   });
 }

@@ -12,7 +12,7 @@
  * `<=` reads the max and `>=` the min, as an engineer reads "CL ≤ 10 dB".
  */
 import { deviceClasses, deviceClassLabels, type DeviceClass } from "../domain/device-classes";
-import { parameterCatalog } from "../analysis/catalog";
+import { parameterName, specRowName } from "../domain/parameter-names";
 import { parseDecimalText } from "../ingest/number";
 import { splitPrefixedUnit, takesPrefix } from "../format";
 import { findSheetTemplate } from "../../templates";
@@ -31,7 +31,10 @@ export const specFields: readonly SpecField[] = ["min", "typ", "max"];
 /** A searchable figure: a spec parameter (all rows of that parameter), one template row, or a per-sheet fact. */
 export type CatalogParameter = {
   key: string;
+  /** The parameter's name, or the row's (lib/domain/parameter-names.ts). */
   label: string;
+  /** The symbol the sheet prints beside it (its first row's, for a parameter of several rows). */
+  symbol?: string;
   unit: string;
   /** Which column of released_spec_values names it, or "fact" for a per-revision column of released_sheets. */
   column: "parameter" | "row_id" | "fact";
@@ -67,9 +70,8 @@ export function catalogParameters(): Map<string, CatalogParameter> {
   }
   for (const deviceClass of deviceClasses) {
     for (const row of findSheetTemplate(deviceClass)?.specifications.rows ?? []) {
-      const described = (parameterCatalog as Record<string, { label: string }>)[row.parameter];
-      add({ key: row.parameter, label: described?.label ?? row.label, unit: row.unit, column: "parameter" }, deviceClass);
-      if (!parameterNames.has(row.id)) add({ key: row.id, label: row.label, unit: row.unit, column: "row_id" }, deviceClass);
+      add({ key: row.parameter, label: parameterName(row.parameter), symbol: row.symbol, unit: row.unit, column: "parameter" }, deviceClass);
+      if (!parameterNames.has(row.id)) add({ key: row.id, label: specRowName(row), symbol: row.symbol, unit: row.unit, column: "row_id" }, deviceClass);
     }
   }
   for (const [key, fact] of Object.entries(catalogFacts)) {

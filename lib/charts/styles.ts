@@ -6,7 +6,7 @@
  * the colours are design tokens (lib/design/tokens.ts), so they follow the page.
  */
 import { tokens } from "../design/tokens";
-import { harmonicOrderName } from "../domain/parameter-names";
+import { harmonicOrderName, parameterName } from "../domain/parameter-names";
 
 export type PointShape = "circle" | "square" | "triangle-up" | "diamond" | "cross" | "triangle-down";
 
@@ -51,12 +51,21 @@ export function seriesStyle(name: string, curveSeriesNames: readonly string[]): 
   return SERIES_STYLES[seriesStyleIndex(name, curveSeriesNames) % SERIES_STYLES.length];
 }
 
-/** "order 2" → "2nd harmonic (×2)"; order 1 is the fundamental (the names of lib/domain/parameter-names.ts). Other names as the engine gives them. */
+/**
+ * A series' legend words, from the names of lib/domain/parameter-names.ts: "order 2" → "2nd harmonic (×2)"
+ * (order 1 is the fundamental); "insertion loss S21" → "Insertion loss S21"; a mixer's path "LO-RF" →
+ * "LO–RF". Other names as the engine gives them.
+ */
 export function seriesLabel(name: string): string {
-  const m = /^order (\d+)$/.exec(name);
-  if (!m) return name;
-  const n = Number(m[1]);
-  return `${harmonicOrderName(n)} (×${n})`;
+  const order = /^order (\d+)$/.exec(name);
+  if (order) {
+    const n = Number(order[1]);
+    return `${harmonicOrderName(n)} (×${n})`;
+  }
+  const sPath = /^(insertion loss|isolation) (S\d\d)$/.exec(name);
+  if (sPath) return `${parameterName(sPath[1].replace(" ", "-"))} ${sPath[2]}`;
+  if (/^(LO|RF|IF)-(LO|RF|IF)$/.test(name)) return name.replace("-", "\u2013");
+  return name;
 }
 
 export type ChartFonts = { text: string; figures: string };

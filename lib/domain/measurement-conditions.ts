@@ -59,3 +59,30 @@ export function conditionFieldLabel(id: ConditionFieldId): string {
   const field = conditionFields[id];
   return `${field.label.toLowerCase().replace(/^(lo|rf|if) /, (m) => m.toUpperCase())} (${field.unit})`;
 }
+
+/** A class's own words for some of its fields (templates/<class>/conditions.ts `fieldWords`): label and hint. */
+export type ClassFieldWords = Partial<Record<ConditionFieldId, { label: string; hint?: string }>>;
+
+/** What a class says of its conditions' words: its own words for some fields, and which fields are its key input frequency and drive. */
+export interface ClassConditionWords {
+  fieldWords?: ClassFieldWords;
+  keyFields?: { inputFrequency?: ConditionFieldId; drive?: ConditionFieldId };
+  keyConditionWords?: { inputFrequency?: string };
+}
+
+/** A field as a class states it: the shared entry with the class's own label and hint ("Drive level, per port" for a multiplier). */
+export function classConditionField(words: ClassConditionWords | undefined, id: ConditionFieldId): ConditionField {
+  const own = words?.fieldWords?.[id];
+  return own ? { ...conditionFields[id], label: own.label, ...(own.hint ? { hint: own.hint } : {}) } : conditionFields[id];
+}
+
+/**
+ * The field naming a device's key input frequency or drive for a class (a mixer's RF frequency and LO drive;
+ * the input frequency and drive level otherwise), as the class words it.
+ */
+export function keyConditionField(words: ClassConditionWords | undefined, key: "inputFrequency" | "drive"): ConditionField {
+  const id = words?.keyFields?.[key] ?? (key === "drive" ? "driveLevelDbm" : "inputFrequencyHz");
+  const field = classConditionField(words, id);
+  const own = key === "inputFrequency" ? words?.keyConditionWords?.inputFrequency : undefined;
+  return own ? { ...field, label: own } : field;
+}

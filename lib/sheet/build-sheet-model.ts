@@ -1,7 +1,8 @@
 import { deviceClassLabels } from "../domain/device-classes";
 import { limitBases, limitBasisWords, revisionStateLabels } from "../domain/sheets";
 import { findSheetTemplate } from "../../templates";
-import type { KeyConditionWords, SheetTemplate } from "../../templates/types";
+import type { ClassConditions, SheetTemplate } from "../../templates/types";
+import { keyConditionField } from "../domain/measurement-conditions";
 import { compareSets, compareStrings } from "./compare";
 import { formatNumber, formatQuantity, quantityParts, rangeParts } from "../format/quantity";
 import { renderProse } from "./render-prose";
@@ -67,7 +68,7 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
     schemaVersion: 1,
     template: { deviceClass: template.deviceClass, label: classLabel },
     header,
-    keyFacts: buildKeyFacts(input.device.keyConditions, template.conditions.keyConditionWords),
+    keyFacts: buildKeyFacts(input.device.keyConditions, template.conditions),
     noDataNotice: sets.length === 0 ? NO_DATA_NOTICE : null,
     specifications: {
       ...withoutEmptyConditionColumns(template, specTable.rows),
@@ -219,16 +220,17 @@ function buildAbsoluteMaximumRatings(
   return rows;
 }
 
-function buildKeyFacts(conditions: SheetInput["device"]["keyConditions"], words: KeyConditionWords = {}): SheetModel["keyFacts"] {
+/** The device's key conditions, each named by the class's condition words ("Drive level, per port", "LO drive", "Band"). */
+function buildKeyFacts(conditions: SheetInput["device"]["keyConditions"], words: ClassConditions): SheetModel["keyFacts"] {
   const facts: SheetModel["keyFacts"] = [];
   const range = (label: string, r: { min: number; max: number } | undefined) => {
     if (!r) return;
     facts.push({ label, ...rangeParts(r.min, r.max, "Hz") });
   };
-  range(words.inputFrequency ?? "Input frequency", conditions.inputFrequencyHz);
+  range(keyConditionField(words, "inputFrequency").label, conditions.inputFrequencyHz);
   range("Output frequency", conditions.outputFrequencyHz);
   if (conditions.driveLevelDbm !== undefined) {
-    facts.push({ label: words.driveLevel ?? "Drive level", ...quantityParts(conditions.driveLevelDbm, "dBm", { signed: true, digits: { maxDecimals: 1 } }) });
+    facts.push({ label: keyConditionField(words, "drive").label, ...quantityParts(conditions.driveLevelDbm, "dBm", { signed: true, digits: { maxDecimals: 1 } }) });
   }
   if (conditions.multiplicationFactor !== undefined) {
     facts.push({ label: "Multiplication factor", value: `×${formatNumber(conditions.multiplicationFactor, { digits: { maxDecimals: 0 } })}`, unit: "" });

@@ -1,6 +1,7 @@
 import type { Curve } from "../analysis/types";
 import { buildVegaLiteSpec } from "../charts/build-vega-lite-spec";
 import { formatNumber } from "../format/quantity";
+import { parameterName } from "../domain/parameter-names";
 import type { CurveTemplate } from "../../templates/types";
 import type { ChartSpec } from "./types";
 
@@ -34,7 +35,7 @@ export interface ChartOptions {
  * curve the look it has everywhere (lib/charts), with a legend when there is more than one series.
  */
 export function buildChartSpec(
-  template: Pick<CurveTemplate, "id" | "title" | "caption" | "selectSeries" | "yLabel">,
+  template: Pick<CurveTemplate, "id" | "title" | "caption" | "selectSeries" | "yParameter">,
   sources: ChartSource[],
   options: ChartOptions = {},
 ): ChartSpec | null {
@@ -57,7 +58,7 @@ export function buildChartSpec(
     {
       title: template.title,
       x: first.x,
-      y: template.yLabel ? { ...first.y, label: template.yLabel } : first.y,
+      y: template.yParameter ? { ...first.y, label: parameterName(template.yParameter) } : first.y,
       seriesNames,
       traces: drawn.flatMap(({ serial, curve }) =>
         curve.series.filter((s) => !template.selectSeries || template.selectSeries(s.name)).map((s) => ({ series: s.name, unit: serial, points: s.points })),

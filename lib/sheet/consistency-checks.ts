@@ -5,6 +5,7 @@
  * checked, so the reviewer knows what was left to them; both renderers print it under the review notes.
  */
 
+import { parameterName, specRowName } from "../domain/parameter-names";
 import type { SheetTemplate, StatedBandTemplate } from "../../templates/types";
 import { differenceUnit, formatNumber, formatQuantity, formatRange } from "../format/quantity";
 import { lowerFirst } from "../format/text";
@@ -155,7 +156,7 @@ interface InstrumentContribution {
  * even the most favourable reading of the register exceeds the stated U; the worst set is named.
  */
 export function checkStatedUncertainty(options: {
-  rows: Pick<SheetTemplate["specifications"]["rows"][number], "parameter" | "label" | "unit">[];
+  rows: Pick<SheetTemplate["specifications"]["rows"][number], "parameter" | "unit">[];
   sets: Pick<ApprovedSetInput, "id" | "serial" | "parameters" | "instruments">[];
   measurementUncertainty: Record<string, number> | undefined;
 }): Issue[] {
@@ -189,7 +190,7 @@ export function checkStatedUncertainty(options: {
     issues.push({
       code: "uncertainty-below-instruments",
       message:
-        `The stated uncertainty of ${lowerFirst(row.label)}, U = ${formatQuantity(statedU, unit, { digits: { maxSignificant: 3 } })} (k = 2), ` +
+        `The stated uncertainty of ${lowerFirst(parameterName(parameter))}, U = ${formatQuantity(statedU, unit, { digits: { maxSignificant: 3 } })} (k = 2), ` +
         `is smaller than ${formatQuantity(worst.expanded, unit, { digits: { maxSignificant: 3 } })} (k = 2), ${how} measurement set ${worst.setId} ` +
         `(${listed}; JCGM 100:2008 §5.1.2, uncorrelated inputs, unit sensitivity): the guard bands built on it are too narrow.`,
     });
@@ -329,10 +330,10 @@ const SPUR_DBC_PARAMETERS = new Set(["discrete-spur", "worst-discrete-spur"]);
  * row for the whole sample. One issue per set, naming the spurs' offsets. A set with no spur above the
  * threshold needs no bandwidth for the row and is not flagged. Quiet when the template has no spur row.
  */
-export function checkSpurBandwidth(options: { rows: Pick<SheetTemplate["specifications"]["rows"][number], "parameter" | "label">[]; sets: ApprovedSetInput[] }): Issue[] {
+export function checkSpurBandwidth(options: { rows: Pick<SheetTemplate["specifications"]["rows"][number], "parameter" | "match" | "overTemperature" | "qualifiers">[]; sets: ApprovedSetInput[] }): Issue[] {
   const rows = options.rows.filter((row) => SPUR_DBC_PARAMETERS.has(row.parameter));
   if (rows.length === 0) return [];
-  const rowWords = [...new Set(rows.map((row) => row.label.toLowerCase()))].join(", ");
+  const rowWords = [...new Set(rows.map((row) => lowerFirst(specRowName(row))))].join(", ");
   return options.sets.flatMap((set) => {
     const offsets = set.parameters.filter((p) => p.name === "spur" && typeof p.conditions.offsetHz === "number").map((p) => p.conditions.offsetHz as number);
     if (offsets.length === 0) return [];

@@ -7,6 +7,7 @@
  * point shape (lib/charts/styles.ts), so traces are never told apart by colour alone.
  */
 import { buildVegaLiteSpec, type ChartAxis } from "../charts/build-vega-lite-spec";
+import { seriesLabel } from "../charts/styles";
 import { splitPrefixedUnit } from "../format/quantity";
 import { computeMedian } from "../stats/descriptive";
 import type { ChartSpec } from "./types";
@@ -162,7 +163,9 @@ export function readChart(chart: Pick<ChartSpec, "vegaLite">): ChartReading | nu
   for (const row of values as Record<string, unknown>[]) {
     const { x: px, y: py } = row;
     if (typeof px !== "number" || typeof py !== "number" || !Number.isFinite(px) || !Number.isFinite(py)) continue;
-    const name = typeof row.series === "string" ? row.series : "";
+    // Read as today's legend words: a model frozen before them carries the engine's ("insertion loss S21", "LO-RF"),
+    // so two releases either side of that change still meet on one panel.
+    const name = typeof row.series === "string" ? seriesLabel(row.series) : "";
     const unit = typeof row.unit === "string" ? row.unit : "";
     let units = series.get(name);
     if (!units) series.set(name, (units = new Map()));

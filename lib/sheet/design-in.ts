@@ -9,9 +9,12 @@
  * along the swept axis and asks the other to be the one value the curves were measured at. It never
  * extrapolates: outside the range every drawn unit covers, it answers with that range instead.
  */
+import { keyConditionField } from "../domain/measurement-conditions";
+import { classConditions } from "../../templates/upload-conditions";
+import { composeParameterName, parameterName } from "../domain/parameter-names";
 import { readQuantity } from "../catalog/catalog-query";
 import { formatQuantity, formatRange } from "../format/quantity";
-import { lowerFirst } from "../format/text";
+import { lowerFirst, upperFirst } from "../format/text";
 import { computeMean, computeSampleStandardDeviation } from "../stats/descriptive";
 import { limitBasisWords, type LimitBasis } from "../domain/sheets";
 import { parseConditionsKey, type Conditions } from "./conditions";
@@ -142,23 +145,26 @@ const CLASS_CHARTS: Record<DesignInDeviceClass, { swept: DesignInField; sweptLab
     swept: "drive",
     sweptLabel: "Per-port drive",
     charts: [
-      { chartId: "conversion-loss-vs-drive", parameter: "conversion-loss", curve: () => ({ label: "Conversion loss", match: {} }) },
+      { chartId: "conversion-loss-vs-drive", parameter: "conversion-loss", curve: () => ({ label: parameterName("conversion-loss"), match: {} }) },
       {
         chartId: "harmonic-suppression-vs-drive",
         parameter: "harmonic-suppression",
         curve: (series) => {
           const order = harmonicOrder(series);
-          return { label: order === 1 ? "Fundamental suppression" : `${capitalize(series.replace(/ \(×\d+\)$/, ""))} suppression`, match: order === null ? ({} as Conditions) : { order } };
+          return order === null
+            ? { label: parameterName("harmonic-suppression"), match: {} as Conditions }
+            : { label: composeParameterName("harmonic-suppression", { order }), match: { order } };
         },
       },
     ],
   },
   "double-balanced-mixer": {
     swept: "frequency",
-    sweptLabel: "RF frequency",
+    sweptLabel: keyConditionField(classConditions["double-balanced-mixer"], "inputFrequency").label,
     charts: [
-      { chartId: "conversion-loss-vs-frequency", parameter: "conversion-loss", curve: () => ({ label: "Conversion loss", match: {} }) },
-      { chartId: "isolation-vs-frequency", parameter: "isolation", curve: (series) => ({ label: `Isolation ${series.replace("-", "–")}`, match: { path: series } }) },
+      { chartId: "conversion-loss-vs-frequency", parameter: "conversion-loss", curve: () => ({ label: parameterName("conversion-loss"), match: {} }) },
+// The legend writes the path with an en dash (lib/charts seriesLabel); a model frozen before that, with the engine's hyphen.
+      { chartId: "isolation-vs-frequency", parameter: "isolation", curve: (series) => ({ label: composeParameterName("isolation", { path: series }), match: { path: series.replace("\u2013", "-") } }) },
     ],
   },
 };
@@ -167,10 +173,6 @@ const CLASS_CHARTS: Record<DesignInDeviceClass, { swept: DesignInField; sweptLab
 function harmonicOrder(series: string): number | null {
   const m = /\(×(\d+)\)$/.exec(series);
   return m ? Number(m[1]) : null;
-}
-
-function capitalize(text: string): string {
-  return text.charAt(0).toUpperCase() + text.slice(1);
 }
 
 /**
@@ -211,7 +213,8 @@ export function readDesignInCurves(model: SheetModel): { ok: true; curves: Desig
       const min = Math.max(...spans.map((s) => s.min));
       const max = Math.min(...spans.map((s) => s.max));
       curves.push({
-        id: `${source.parameter}${reading.series.size > 1 || source.parameter !== "conversion-loss" ? `:${series}` : ""}`,
+        // An id is the same whether the legend wrote the mixer's path with the engine's hyphen or the en dash ("isolation:LO-RF").
+        id: `${source.parameter}${reading.series.size > 1 || source.parameter !== "conversion-loss" ? `:${series.replace("\u2013", "-")}` : ""}`,
         ...source.curve(series),
         unit: reading.y.unit,
         chartId: chart.id,
@@ -275,7 +278,7 @@ function multiplierFrequency(model: SheetModel, label: string): FixedAxisResult 
   const exact = model.statistics.groups
     .map((g) => parseConditionsKey(g.conditionsKey).inputFrequencyHz)
     .find((f): f is number => typeof f === "number" && formatQuantity(f, "Hz") === printed);
-  return { ok: true, axis: { field: "frequency", label: "Input frequency", unit: "Hz", scale: "linear", value: exact ?? read.value } };
+  return { ok: true, axis: { field: "frequency", label: keyConditionField(classConditions["frequency-multiplier"], "inputFrequency").label, unit: "Hz", scale: "linear", value: exact ?? read.value } };
 }
 
 /**
@@ -302,7 +305,7 @@ function mixerLoDrive(model: SheetModel, temperatureC: number | null): FixedAxis
           : `The released curves of ${model.header.partNumber} hold more than one LO drive in one chart, so the calculator cannot tell which curve is which.`,
     };
   }
-  return { ok: true, axis: { field: "drive", label: "LO drive", unit: "dBm", scale: "linear", value: [...drives][0] } };
+  return { ok: true, axis: { field: "drive", label: keyConditionField(classConditions["double-balanced-mixer"], "drive").label, unit: "dBm", scale: "linear", value: [...drives][0] } };
 }
 
 /* ---------- one design point ---------- */

@@ -55,7 +55,8 @@ function diffRows(section: DesignInSection, previous: Row[], next: Row[]): Desig
   return changes;
 }
 
-const OUTLINE = "Package outline";
+/** The outline section's one row: the drawing (compared by digest) and its caption (by text), named apart from the section it is in. */
+const OUTLINE = "Drawing and caption";
 
 function diffOutline(previous: DesignData["packageOutline"], next: DesignData["packageOutline"]): DesignInChange[] {
   // The outline's line is its caption ("" when it has none); the drawing itself is compared by digest.

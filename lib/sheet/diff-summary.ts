@@ -104,7 +104,8 @@ function setsLine(kind: "added" | "removed", sets: MeasurementSetRef[]): string 
 
 /** "Recommended operating conditions, LO drive: min 5, typ 7, max 10 dBm → min 6, typ 7, max 10 dBm"; "Package outline: drawing changed". */
 function designInLine(change: DesignInChange): string {
-  const where = change.section === "outline" ? change.key : `${designInSectionTitles[change.section]}, ${change.key}`;
+  // The outline is one row of its section: the section's name says it ("Package outline: drawing changed").
+  const where = change.section === "outline" ? designInSectionTitles.outline : `${designInSectionTitles[change.section]}, ${change.key}`;
   if (change.kind === "added") return `Added: ${where}${change.next ? `: ${change.next}` : ""}`;
   if (change.kind === "removed") return `Removed: ${where}`;
   if (change.section === "outline") {

@@ -154,7 +154,7 @@ export type DesignInSection = "pins" | "ordering" | "conditions" | "outline";
 export interface DesignInChange {
   section: DesignInSection;
   kind: "added" | "removed" | "changed";
-  /** What the row is known by: "Pin 1", "KM-7H-TR1", "LO drive", "Package outline". */
+  /** What the row is known by: "Pin 1", "KM-7H-TR1", "LO drive", "Drawing and caption" (the outline's one row). */
   key: string;
   /** The row as printed, one line ("LO · Local-oscillator input"; "min 5, typ 7, max 10 dBm"; the outline's caption); null when absent. */
   previous: string | null;

@@ -1,5 +1,6 @@
 import type { SheetTemplate, TrendTemplate } from "../../templates/types";
 import { buildChartSpec, type ChartSource } from "./charts";
+import { specRowName } from "../domain/parameter-names";
 import { compareStrings } from "./compare";
 import { formatQuantity, formatRange } from "../format/quantity";
 import { lowerFirst } from "../format/text";
@@ -49,6 +50,11 @@ export function buildCharts(template: SheetTemplate, sets: ApprovedSetInput[]): 
  * A trend chart: each unit's values of one parameter against one condition, at the
  * temperature with the most units. Drawn only when there are two or more x values.
  */
+/** A trend's y axis and series are named as a row of the same parameter, match and qualifiers is on the sheet. */
+function trendAxisName(trend: TrendTemplate): string {
+  return specRowName({ parameter: trend.parameter, match: trend.match, qualifiers: trend.y.qualifiers });
+}
+
 function buildTrendChart(trend: TrendTemplate, sets: ApprovedSetInput[]): ChartSpec | null {
   // temperature label → serial → x → value (the latest set wins, as in the statistics)
   const byTemperature = new Map<string, Map<string, Map<number, { value: number; order: string }>>>();
@@ -76,14 +82,15 @@ function buildTrendChart(trend: TrendTemplate, sets: ApprovedSetInput[]): ChartS
   const xs = new Set<number>();
   for (const points of best[1].values()) for (const x of points.keys()) xs.add(x);
   if (xs.size < 2) return null;
+  const trendName = trendAxisName(trend);
   const sources: ChartSource[] = [...best[1].entries()].map(([serial, points]) => ({
     serial,
     curve: {
       id: trend.id,
       title: trend.title,
       x: { label: trend.x.label, unit: trend.x.unit, scale: "linear" },
-      y: { label: trend.y.label, unit: trend.y.unit },
-      series: [{ name: trend.y.label, points: [...points.entries()].sort((a, b) => a[0] - b[0]).map(([x, p]) => [x, p.value] as [number, number]) }],
+      y: { label: trendName, unit: trend.y.unit },
+      series: [{ name: trendName, points: [...points.entries()].sort((a, b) => a[0] - b[0]).map(([x, p]) => [x, p.value] as [number, number]) }],
     },
   }));
   return buildChartSpec(trend, sources, { conditionsLabel: best[0], points: true });
@@ -131,14 +138,15 @@ function buildTemperatureTrendChart(template: SheetTemplate, trend: TrendTemplat
     }
   }
   if (new Set(temperatures).size < 2) return null;
+  const trendName = trendAxisName(trend);
   const sources: ChartSource[] = [...best[1].entries()].map(([serial, points]) => ({
     serial,
     curve: {
       id: trend.id,
       title: trend.title,
       x: { label: trend.x.label, unit: trend.x.unit, scale: "linear" },
-      y: { label: trend.y.label, unit: trend.y.unit },
-      series: [{ name: trend.y.label, points: [...points.entries()].sort((a, b) => a[0] - b[0]).map(([t, p]) => [t, p.value] as [number, number]) }],
+      y: { label: trendName, unit: trend.y.unit },
+      series: [{ name: trendName, points: [...points.entries()].sort((a, b) => a[0] - b[0]).map(([t, p]) => [t, p.value] as [number, number]) }],
     },
   }));
   const conditions = parseConditionsKey(best[0]);

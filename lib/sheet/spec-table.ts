@@ -1,4 +1,6 @@
 import { limitBasisWords } from "../domain/sheets";
+import { specRowName } from "../domain/parameter-names";
+import { lowerFirst } from "../format/text";
 import type { SheetTemplate, SpecRowTemplate } from "../../templates/types";
 import { compareStrings } from "./compare";
 import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
@@ -54,7 +56,7 @@ export function buildSpecTable(options: {
       const conditions = parseConditionsKey(conditionsKey);
       const conditionCells = template.specifications.conditionColumns.map((column) => formatConditionCell(column, conditions));
       const stats = computeGroupStatistics({
-        label: row.label,
+        label: specRowName(row),
         unit: row.unit,
         decimals: row.decimals,
         values: collected.get(conditionsKey) ?? [],
@@ -108,7 +110,7 @@ function groupIdentity(row: SpecRowTemplate, conditionsKey: string): GroupIdenti
     rowId: row.id,
     parameter: row.parameter,
     conditionsKey,
-    label: row.label,
+    label: specRowName(row),
     symbol: row.symbol,
     unit: row.unit,
   };
@@ -236,7 +238,7 @@ function statedDriveIssues(template: SheetTemplate, sets: ApprovedSetInput[]): I
         const key = `${miss.serial}|${miss.setId}|${miss.driveDbm}`;
         const entry = bySet.get(key) ?? { miss, labels: [] };
         bySet.set(key, entry);
-        const label = row.label.toLowerCase();
+        const label = lowerFirst(specRowName(row));
         if (!entry.labels.includes(label)) entry.labels.push(label);
       }
     }

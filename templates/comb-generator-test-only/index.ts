@@ -18,7 +18,6 @@ export const combGeneratorTemplate: SheetTemplate = {
       {
         id: "conversion-loss",
         parameter: "conversion-loss",
-        label: "Loss to the wanted line",
         symbol: "CL",
         unit: "dB",
         decimals: 1,

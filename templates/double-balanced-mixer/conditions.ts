@@ -7,5 +7,5 @@ import type { ClassConditions } from "../types";
  */
 export const doubleBalancedMixerConditions: ClassConditions = {
   uploadFields: ["rfFrequencyHz", "loFrequencyHz", "ifFrequencyHz", "loDriveDbm"],
-  keyConditionWords: { inputFrequency: "RF frequency", driveLevel: "LO drive" },
+  keyFields: { inputFrequency: "rfFrequencyHz", drive: "loDriveDbm" },
 };

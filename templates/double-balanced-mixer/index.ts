@@ -20,7 +20,6 @@ function isolationRow(path: "LO-RF" | "LO-IF" | "RF-IF", basis: SpecRowTemplate[
   return {
     id: `isolation-${path.toLowerCase()}`,
     parameter: "isolation",
-    label: `Isolation ${path.replace("-", "–")}`,
     symbol: `ISO ${path}`,
     unit: "dB",
     decimals: 1,
@@ -68,7 +67,7 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
       {
         id: "conversion-loss-worst",
         parameter: "conversion-loss",
-        label: "Conversion loss, highest in band",
+        qualifiers: ["highest-in-band"],
         symbol: "CL",
         unit: "dB",
         decimals: 2,
@@ -79,7 +78,7 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
       {
         id: "conversion-loss-typical",
         parameter: "conversion-loss",
-        label: "Conversion loss, median over band",
+        qualifiers: ["median-over-band"],
         symbol: "CL",
         unit: "dB",
         decimals: 2,
@@ -90,7 +89,7 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
       {
         id: "conversion-loss-worst-over-temperature",
         parameter: "conversion-loss",
-        label: "Conversion loss over temperature, highest in band",
+        qualifiers: ["highest-in-band"],
         symbol: "CL",
         unit: "dB",
         decimals: 2,
@@ -105,7 +104,6 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
       {
         id: "iip3",
         parameter: "iip3",
-        label: "Input third-order intercept",
         symbol: "IIP3",
         unit: "dBm",
         decimals: 1,
@@ -116,7 +114,6 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
       {
         id: "input-p1db",
         parameter: "input-p1db",
-        label: "Input 1 dB compression",
         symbol: "P1dB",
         unit: "dBm",
         decimals: 1,
@@ -149,7 +146,7 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
       match: { statistic: "max" },
       groupBy: [...bandKeys, ...mixerKeys],
       x: { key: "temperatureC", label: "Ambient temperature", unit: "°C" },
-      y: { label: "Conversion loss, highest in band", unit: "dB" },
+      y: { unit: "dB", qualifiers: ["highest-in-band"] },
       title: "Highest conversion loss in band vs temperature",
       caption: "Each line one unit, through the temperatures it was measured at.",
     },

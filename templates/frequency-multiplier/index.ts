@@ -1,7 +1,7 @@
 import { composeCautions, composeProse, defaultHandlingProse, esdRating, temperatureColumn, temperatureRatings } from "../common";
 import { frequencyMultiplierConditions } from "./conditions";
 import type { SheetTemplate } from "../types";
-import { harmonicSuppressionLabel } from "../../lib/domain/parameter-names";
+import { parameterName } from "../../lib/domain/parameter-names";
 import { formatDrive } from "../../lib/sheet/format";
 
 const frequencyColumn = {
@@ -52,7 +52,6 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "conversion-loss-at-drive",
         parameter: "conversion-loss",
-        label: "Conversion loss",
         symbol: "CL",
         unit: "dB",
         decimals: 2,
@@ -64,7 +63,6 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "conversion-loss-over-temperature",
         parameter: "conversion-loss",
-        label: "Conversion loss over temperature",
         symbol: "CL",
         unit: "dB",
         decimals: 2,
@@ -77,7 +75,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "optimum-drive",
         parameter: "optimum-drive",
-        label: "Optimum drive, per port",
+        qualifiers: ["per-port"],
         symbol: "P_opt",
         unit: "dBm",
         decimals: 1,
@@ -87,7 +85,6 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "fundamental-suppression",
         parameter: "harmonic-suppression",
-        label: harmonicSuppressionLabel(1),
         symbol: "HS1",
         unit: "dBc",
         decimals: 1,
@@ -99,7 +96,6 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "third-harmonic-suppression",
         parameter: "harmonic-suppression",
-        label: harmonicSuppressionLabel(3),
         symbol: "HS3",
         unit: "dBc",
         decimals: 1,
@@ -111,7 +107,6 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "fourth-harmonic-suppression",
         parameter: "harmonic-suppression",
-        label: harmonicSuppressionLabel(4),
         symbol: "HS4",
         unit: "dBc",
         decimals: 1,
@@ -123,7 +118,6 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "input-p1db",
         parameter: "input-p1db",
-        label: "Input 1 dB compression",
         symbol: "P1dB",
         unit: "dBm",
         decimals: 1,
@@ -133,7 +127,6 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "residual-phase-noise",
         parameter: "spot-phase-noise",
-        label: "Residual phase noise",
         symbol: "L(f)",
         unit: "dBc/Hz",
         decimals: 1,
@@ -143,7 +136,6 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "rms-jitter",
         parameter: "rms-jitter",
-        label: "Residual rms jitter",
         symbol: "σ_t",
         unit: "fs",
         decimals: 1,
@@ -153,7 +145,6 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "rms-phase-error",
         parameter: "rms-phase-error",
-        label: "Residual rms phase",
         symbol: "φ_rms",
         unit: "°",
         decimals: 4,
@@ -163,7 +154,6 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "excess-over-ideal",
         parameter: "excess-over-ideal-multiplication",
-        label: "Excess over ideal ×N",
         symbol: "ΔL",
         unit: "dB",
         decimals: 1,
@@ -173,7 +163,6 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "noise-floor-above-kt",
         parameter: "noise-floor-above-kt",
-        label: "Far-out floor above kT",
         symbol: "NF_kT",
         unit: "dB",
         decimals: 1,
@@ -183,7 +172,6 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       {
         id: "worst-discrete-spur",
         parameter: "worst-discrete-spur",
-        label: "Worst discrete spur",
         symbol: "P_spur",
         unit: "dBc",
         decimals: 1,
@@ -242,8 +230,8 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       match: atDrive,
       atStatedDrive: { curveId: "conversion-loss-vs-drive" },
       x: { key: "inputFrequencyHz", label: "Input frequency", unit: "Hz" },
-      y: { label: "Conversion loss", unit: "dB" },
-      title: `Conversion loss at ${statedDriveWords} vs input frequency`,
+      y: { unit: "dB" },
+      title: `${parameterName("conversion-loss")} at ${statedDriveWords} vs input frequency`,
       caption: "Each line one unit, through its measured frequencies.",
     },
     {
@@ -252,7 +240,7 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       match: { order: 1, ...atDrive },
       atStatedDrive: { curveId: "harmonic-suppression-vs-drive", series: "order 1" },
       x: { key: "inputFrequencyHz", label: "Input frequency", unit: "Hz" },
-      y: { label: harmonicSuppressionLabel(1), unit: "dBc" },
+      y: { unit: "dBc" },
       title: `Fundamental suppression at ${statedDriveWords} vs input frequency`,
       caption: "Each line one unit, through its measured frequencies.",
     },
@@ -263,8 +251,8 @@ export const frequencyMultiplierTemplate: SheetTemplate = {
       atStatedDrive: { curveId: "conversion-loss-vs-drive" },
       groupBy: ["inputFrequencyHz"],
       x: { key: "temperatureC", label: "Ambient temperature", unit: "°C" },
-      y: { label: "Conversion loss", unit: "dB" },
-      title: `Conversion loss at ${statedDriveWords} vs temperature`,
+      y: { unit: "dB" },
+      title: `${parameterName("conversion-loss")} at ${statedDriveWords} vs temperature`,
       caption: "Each line one unit, through the temperatures it was measured at.",
     },
   ],

@@ -39,7 +39,6 @@ export const quadratureHybridTemplate: SheetTemplate = {
       bandRow({
         id: "insertion-loss-through",
         parameter: "insertion-loss",
-        label: "Insertion loss, port 1 to 2 (S21)",
         symbol: "IL",
         unit: "dB",
         decimals: 2,
@@ -49,7 +48,6 @@ export const quadratureHybridTemplate: SheetTemplate = {
       bandRow({
         id: "insertion-loss-coupled",
         parameter: "insertion-loss",
-        label: "Insertion loss, port 1 to 3 (S31)",
         symbol: "IL",
         unit: "dB",
         decimals: 2,
@@ -59,7 +57,6 @@ export const quadratureHybridTemplate: SheetTemplate = {
       bandRow({
         id: "amplitude-balance",
         parameter: "amplitude-balance",
-        label: "Amplitude balance",
         symbol: "ΔA",
         unit: "dB",
         decimals: 2,
@@ -68,7 +65,7 @@ export const quadratureHybridTemplate: SheetTemplate = {
       bandRow({
         id: "phase-balance",
         parameter: "phase-balance",
-        label: "Phase balance, from nominal",
+        qualifiers: ["from-nominal"],
         symbol: "Δφ",
         unit: "°",
         decimals: 1,
@@ -77,7 +74,6 @@ export const quadratureHybridTemplate: SheetTemplate = {
       bandRow({
         id: "isolation-input",
         parameter: "isolation",
-        label: "Isolation, port 1 to 4 (S41)",
         symbol: "ISO",
         unit: "dB",
         decimals: 1,
@@ -87,7 +83,6 @@ export const quadratureHybridTemplate: SheetTemplate = {
       bandRow({
         id: "isolation-outputs",
         parameter: "isolation",
-        label: "Isolation, port 2 to 3 (S32)",
         symbol: "ISO",
         unit: "dB",
         decimals: 1,
@@ -112,7 +107,7 @@ export const quadratureHybridTemplate: SheetTemplate = {
       title: "Insertion loss vs frequency",
       caption: "Line style tells the paths apart.",
       selectSeries: (name) => name.startsWith("insertion loss"),
-      yLabel: "Insertion loss",
+      yParameter: "insertion-loss",
     },
     {
       id: "isolation",
@@ -120,7 +115,7 @@ export const quadratureHybridTemplate: SheetTemplate = {
       title: "Isolation vs frequency",
       caption: "Line style tells the paths apart.",
       selectSeries: (name) => name.startsWith("isolation"),
-      yLabel: "Isolation",
+      yParameter: "isolation",
     },
     { id: "amplitude-balance", curveId: "amplitude-balance", title: "Amplitude balance vs frequency", caption: "Each line one unit." },
     { id: "phase-balance", curveId: "phase-balance", title: "Phase balance vs frequency", caption: "Deviation from the nominal 90° (hybrid) or 0° (splitter); each line one unit." },

@@ -75,7 +75,7 @@ describe("a device class added by the recipe", () => {
     const model = await sheetOf(deviceId);
     expect(model.template).toEqual({ deviceClass, label: "Comb generator" });
     expect(model.header).toMatchObject({ partNumber: "CMB-10G", deviceClassLabel: "Comb generator", released: false });
-    expect(model.specifications.rows.map((r) => r.label)).toEqual(["Loss to the wanted line"]);
+    expect(model.specifications.rows.map((r) => r.label)).toEqual(["Conversion loss"]);
     expect(model.specifications.notes).toEqual(["Comb lines measured one at a time. System impedance 50 Ω."]);
     expect(model.statistics.groups.map((g) => ({ parameter: g.parameter, n: g.n }))).toEqual([{ parameter: "conversion-loss", n: 1 }]);
     expect(model.charts.map((c) => c.id)).toEqual(["cl"]);
@@ -92,7 +92,7 @@ describe("a device class added by the recipe", () => {
     // poppler's pdftotext reads the PDF independently of the renderer that wrote it.
     const text = execFileSync("pdftotext", ["-layout", file, "-"], { encoding: "utf8" }).replace(/\s+/g, " ");
     expect(text).toContain("CMB-10G");
-    expect(text).toContain("Loss to the wanted line");
+    expect(text).toContain("Conversion loss");
     expect(text).toContain("Loss vs drive");
     const typ = model.specifications.rows[0].typ;
     expect(typ.value).not.toBeNull();
@@ -102,6 +102,6 @@ describe("a device class added by the recipe", () => {
   it("shows its sheet on the workspace page", async () => {
     const page = await engineer.request(`/sheets/${deviceId}`);
     expect(page.status).toBe(200);
-    expect(await page.text()).toContain("Loss to the wanted line");
+    expect(await page.text()).toContain("Conversion loss");
   });
 });

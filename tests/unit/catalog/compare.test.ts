@@ -308,11 +308,11 @@ describe("the overlaid curves", () => {
     // The mixer's port match joins the network analyzer's return-loss panel of the hybrid and the splitter.
     expect(charts[4].sources.map((s) => s.label)).toEqual(["KQH-2G Rev. A", "PS-2W Rev. A", "KM-7H Rev. A"]);
     const [insertionLoss, isolation] = charts;
-    expect(insertionLoss.panels.map((p) => p.series)).toEqual(["insertion loss S21", "insertion loss S31"]);
+    expect(insertionLoss.panels.map((p) => p.series)).toEqual(["Insertion loss S21", "Insertion loss S31"]);
     expect(insertionLoss.unmatched).toEqual([]);
-    expect(isolation.panels.map((p) => p.series)).toEqual(["isolation S32"]);
+    expect(isolation.panels.map((p) => p.series)).toEqual(["Isolation S32"]);
     // S41 and port 4 exist on the 90° hybrid only: named, not drawn as a one-sheet "comparison".
-    expect(isolation.unmatched).toEqual([{ series: "isolation S41", label: "KQH-2G Rev. A" }]);
+    expect(isolation.unmatched).toEqual([{ series: "Isolation S41", label: "KQH-2G Rev. A" }]);
     expect(insertionLoss.sources.map((s) => s.drawnAt)).toEqual(["1.7–2.3\u00a0GHz, 25\u00a0°C", "0.5–2.5\u00a0GHz, 25\u00a0°C", null]);
     expect(insertionLoss.conditionsDiffer).toBe(true);
   });

@@ -124,7 +124,7 @@ describe("SheetDiffView", () => {
     const rows = [...section.matchAll(/<tr>(.*?)<\/tr>/g)].slice(1).map((m) => m[1].replace(/<[^>]+>/g, "|").replace(/\|+/g, "|").replace(/\u00a0/g, " "));
     expect(rows).toEqual([
       "|~|Changed|Recommended operating conditions|Input drive|max|min 9, max 13 dBm|min 9, max 12 dBm|",
-      "|~|Changed|Package outline|Package outline|drawing|Drawing replaced. 3 × 3 mm|New drawing. 3 × 3 mm|",
+      "|~|Changed|Package outline|Drawing and caption|drawing|Drawing replaced. 3 × 3 mm|New drawing. 3 × 3 mm|",
       "|+|Added|Ordering information|HX-EB|—|none|Evaluation board|",
     ]);
     expect(render({ diff }).split('data-testid="diff-counts"')[1].split("</ul>")[0]).toContain("3</span> design-in rows");

@@ -16,7 +16,7 @@ describe("a range reads the same on the sheet and on the device page", () => {
     const fact = (label: string) => model.keyFacts.find((f) => f.label === label);
     expect(fact("Input frequency")).toMatchObject({ value: "0.2\u20132", unit: "GHz" });
     expect(fact("Output frequency")).toMatchObject({ value: "10\u20133000", unit: "MHz" });
-    expect(fact("Drive level")).toMatchObject({ value: "\u22123", unit: "dBm" });
+    expect(fact("Drive level, per port")).toMatchObject({ value: "\u22123", unit: "dBm" });
   });
 
   it("device page", () => {

@@ -148,7 +148,7 @@ describe("a fourth device class", () => {
     const pdf = await renderSheetPdf(model);
     const text = poppler("pdftotext", pdf, "comb");
     expect(text).toContain("TST-CMB9");
-    expect(text).toContain("Loss to the wanted line");
+    expect(text).toContain("Conversion loss");
     expect(text).toContain("±1 dB flat comb");
   }, 60_000);
 });

@@ -104,8 +104,8 @@ describe("the device's stated band against the bands the sheet specifies", () =>
 
 describe("a stated uncertainty against the instruments that produced the data (JCGM 100:2008 §5.1.2)", () => {
   const rows = [
-    { parameter: "conversion-loss", label: "Conversion loss", unit: "dB" },
-    { parameter: "harmonic-suppression", label: "Fundamental suppression", unit: "dBc" },
+    { parameter: "conversion-loss" as const, unit: "dB" },
+    { parameter: "harmonic-suppression" as const, unit: "dBc" },
   ];
   const instrument = (serial: string, uncertainty: { quantity: string; value: number; unit: string; coverageFactor: number }[]) => ({
     kind: "instrument",

@@ -331,12 +331,12 @@ describe("diffSheetModels: prose, ratings, cautions, sets", () => {
     const diff = diffSheetModels(revA, candidate(input));
     expect(diff.details).toEqual([
       { label: "Title", previous: base.device.title, next: `${base.device.title}, rugged` },
-      { label: "Drive level", previous: `+10${NBSP}dBm`, next: `+13${NBSP}dBm` },
+      { label: "Drive level, per port", previous: `+10${NBSP}dBm`, next: `+13${NBSP}dBm` },
       { label: "Multiplication factor", previous: "×2", next: null },
     ]);
     expect(summaryLines(diff)).toEqual([
       `Title: ${base.device.title} → ${base.device.title}, rugged`,
-      `Drive level: +10${NBSP}dBm → +13${NBSP}dBm`,
+      `Drive level, per port: +10${NBSP}dBm → +13${NBSP}dBm`,
       "Key fact removed: Multiplication factor",
     ]);
   });

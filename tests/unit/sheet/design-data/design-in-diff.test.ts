@@ -90,7 +90,7 @@ describe("diffSheetModels: design-in sections", () => {
 
   it("compares the outline's drawing by its SHA-256 and its caption by text", () => {
     const redrawn = diffSheetModels(revA, model((d) => (d.packageOutline = outline("b", d.packageOutline!.caption))));
-    expect(redrawn.designIn).toEqual([{ section: "outline", kind: "changed", key: "Package outline", previous: "KL6, 3.00 × 3.00 mm", next: "KL6, 3.00 × 3.00 mm", fields: ["drawing"] }]);
+    expect(redrawn.designIn).toEqual([{ section: "outline", kind: "changed", key: "Drawing and caption", previous: "KL6, 3.00 × 3.00 mm", next: "KL6, 3.00 × 3.00 mm", fields: ["drawing"] }]);
     expect(summaryLines(redrawn)).toEqual(["Package outline: drawing changed"]);
 
     const recaptioned = diffSheetModels(revA, model((d) => (d.packageOutline!.caption = "KL6, 3.00 × 3.00 mm, 1.10 mm high")));
@@ -108,7 +108,7 @@ describe("diffSheetModels: design-in sections", () => {
     expect(diff.designIn.map((c) => `${c.kind} ${c.section} ${c.key}`)).toEqual([
       "added conditions Input drive",
       "added conditions Ambient temperature",
-      "added outline Package outline",
+      "added outline Drawing and caption",
       "added pins Pin 1",
       "added pins Pin 2",
       "added pins Pin 3",
