@@ -2,7 +2,7 @@ import type { DeviceClass } from "../lib/domain/device-classes";
 import { isDeviceClass } from "../lib/domain/device-classes";
 import { combGeneratorTemplate } from "./comb-generator-test-only";
 import { doubleBalancedMixerTemplate } from "./double-balanced-mixer";
-import { frequencyMultiplierTemplate } from "./frequency-multiplier";
+import { frequencyMultiplierTemplate, frequencyMultiplierTemplateAt } from "./frequency-multiplier";
 import { quadratureHybridTemplate } from "./quadrature-hybrid";
 import type { SheetTemplate } from "./types";
 
@@ -19,9 +19,16 @@ const sheetTemplates: Readonly<Record<DeviceClass, SheetTemplate>> = {
   "comb-generator-test-only": combGeneratorTemplate,
 };
 
-/** The template of a class this build offers (a test-only class only in the test build). */
-export function findSheetTemplate(deviceClass: string): SheetTemplate | undefined {
-  return isDeviceClass(deviceClass) ? sheetTemplates[deviceClass] : undefined;
+/**
+ * The template of a class this build offers (a test-only class only in the test build). Given the
+ * device's stated drive (its key condition `driveLevelDbm`, per port for a multiplier), a class whose
+ * rows are held at a stated drive holds them at the device's; without one, at the class's default.
+ */
+export function findSheetTemplate(deviceClass: string, stated: { driveLevelDbm?: number } = {}): SheetTemplate | undefined {
+  if (!isDeviceClass(deviceClass)) return undefined;
+  const drive = stated.driveLevelDbm;
+  if (deviceClass === "frequency-multiplier" && typeof drive === "number" && Number.isFinite(drive)) return frequencyMultiplierTemplateAt(drive);
+  return sheetTemplates[deviceClass];
 }
 
 /**

@@ -173,6 +173,11 @@ export interface StatedBandTemplate {
 export interface SheetTemplate {
   /** A name from lib/domain/device-classes.ts, which also holds the class's human name. */
   deviceClass: DeviceClass;
+  /**
+   * The per-port drive (dBm) the rows and trends with `atStatedDrive` are held at: the device's own key
+   * drive, or the class's default (findSheetTemplate). Absent for a class with no drive-held rows.
+   */
+  statedDriveDbm?: number;
   /** The class's conditions (templates/<class>/conditions.ts). */
   conditions: ClassConditions;
   /** Measurement kinds whose approved sets feed the sheet. */

@@ -44,7 +44,7 @@ export interface BuildSheetModelOptions {
  * (serializeSheetModel makes it byte-identical JSON).
  */
 export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptions = {}): SheetModel {
-  const template = options.template ?? findSheetTemplate(input.device.deviceClass);
+  const template = options.template ?? findSheetTemplate(input.device.deviceClass, input.device.keyConditions);
   if (!template) throw new RangeError(`No sheet template for device class "${input.device.deviceClass}"`);
   if (!/^\d{4}-\d{2}-\d{2}$/.test(input.revision.date)) {
     throw new RangeError(`Revision date must be an ISO date (YYYY-MM-DD), got "${input.revision.date}"`);
@@ -66,7 +66,7 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
 
   return {
     schemaVersion: 1,
-    template: { deviceClass: template.deviceClass, label: classLabel },
+    template: { deviceClass: template.deviceClass, label: classLabel, ...(template.statedDriveDbm === undefined ? {} : { statedDriveDbm: template.statedDriveDbm }) },
     header,
     keyFacts: buildKeyFacts(input.device.keyConditions, template.conditions),
     noDataNotice: sets.length === 0 ? NO_DATA_NOTICE : null,

@@ -287,7 +287,11 @@ export interface SheetRelease {
 
 export interface SheetModel {
   schemaVersion: 1;
-  template: { deviceClass: string; label: string };
+  /**
+   * The class, and the per-port drive its drive-held rows were read at (a released model's conformity watch
+   * reads new sets at the same drive; a model released before the drive was recorded was at the class's default).
+   */
+  template: { deviceClass: string; label: string; statedDriveDbm?: number };
   header: {
     partNumber: string;
     title: string;

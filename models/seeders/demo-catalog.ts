@@ -7,6 +7,7 @@
  */
 import type { DeviceClass } from "../../lib/domain/device-classes";
 import type { LimitBasis, ProseSectionId } from "../../lib/domain/sheets";
+import { formatDrive } from "../../lib/sheet/format";
 import {
   doublerDriveSweep,
   mixerFrequencySweep,
@@ -139,13 +140,14 @@ const networkLimits = (isolationRow: "isolation-input" | "isolation-outputs"): D
 ];
 const networkUncertainty = { "insertion-loss": 0.08, "amplitude-balance": 0.08, "phase-balance": 0.8, isolation: 0.3 };
 
-const doublerFeatures =
-  "- Conversion loss below {conversion-loss-at-drive.max} dB at +10 dBm per port, tested on every unit\n- Fundamental suppression above {fundamental-suppression.min} dBc\n- Passive: no DC supply";
+/** A doubler's features at its stated per-port drive (the device's key drive, at which its sheet holds the rows). */
+const doublerFeatures = (driveDbm: number) =>
+  `- Conversion loss below {conversion-loss-at-drive.max} dB at ${formatDrive(driveDbm)} per port, tested on every unit\n- Fundamental suppression above {fundamental-suppression.min} dBc\n- Passive: no DC supply`;
 const doublerFixture =
   "Units are soldered to a 0.508 mm laminate fixture with SMA launches. Both device ports are fed from one signal generator through a two-way in-phase splitter; its 0.4 dB excess loss and the 0.6 dB cable loss are taken out of the stated drive. Output orders 1 to 4 are read on a spectrum analyzer. Reference impedance 50 Ω.";
 /** The lab's words for the same rows: what the units it measured showed, no test of every unit. */
-const labDoublerFeatures =
-  "- Conversion loss of the units measured below {conversion-loss-at-drive.max} dB at +10 dBm per port\n- Fundamental suppression above {fundamental-suppression.min} dBc";
+const labDoublerFeatures = (driveDbm: number) =>
+  `- Conversion loss of the units measured below {conversion-loss-at-drive.max} dB at ${formatDrive(driveDbm)} per port\n- Fundamental suppression above {fundamental-suppression.min} dBc`;
 const mixerFeatures = "- Conversion loss below {conversion-loss-worst.max} dB across the band\n- LO-to-RF isolation above {isolation-lo-rf.min} dB";
 const mixerFixture = (lo: number, ifMHz: number) =>
   `Units are measured on a 50 Ω evaluation board. The RF port is swept at −10 dBm against a +${lo} dBm LO, the IF held at ${ifMHz} MHz; conversion loss and LO leakage at the RF and IF ports are read on a spectrum analyzer, corrected for fixture and cable loss.`;
@@ -203,7 +205,7 @@ export const demoCatalogParts: DemoCatalogPart[] = [
     deviceClass: "frequency-multiplier",
     title: "Passive ×2 frequency multiplier, 2.4–4.8 GHz output",
     description: "Schottky-diode ring doubler for S- and C-band local oscillators.",
-    keyConditions: { inputFrequencyHz: { min: 1.2 * GHz, max: 2.4 * GHz }, outputFrequencyHz: { min: 2.4 * GHz, max: 4.8 * GHz }, driveLevelDbm: 13, multiplicationFactor: 2 },
+    keyConditions: { inputFrequencyHz: { min: 1.2 * GHz, max: 2.4 * GHz }, outputFrequencyHz: { min: 2.4 * GHz, max: 4.8 * GHz }, driveLevelDbm: 10, multiplicationFactor: 2 },
     files: doublerFiles(
       { conversionLossDb: 10.4, optimumDriveDbm: 10, fundamentalRejectionDb: 33, thirdSuppressionDbc: 27, fourthSuppressionDbc: 19, inputBandHz: { min: 1.2 * GHz, max: 2.4 * GHz }, unitSpreadDb: 0.22 },
       { serials: serials("BFD-", 201, 4), lot: "L2609", inputFrequenciesHz: [1.4 * GHz, 1.8 * GHz, 2.2 * GHz], measuredOn: ["2026-09-14", "2026-09-15"], seed: 4801 },
@@ -212,7 +214,7 @@ export const demoCatalogParts: DemoCatalogPart[] = [
     prose: {
       description:
         "The **KDX-4G8** doubles a 1.2–2.4 GHz input to 2.4–4.8 GHz. Like the KDX-2G4 it drives a Schottky ring on both ports from one source, so the fundamental and odd orders cancel at the output.\n\nBest conversion is near +10 dBm per port.",
-      features: doublerFeatures,
+      features: doublerFeatures(10),
       applications: "- Local-oscillator multiplier chains up to 4.8 GHz\n- Frequency extension of synthesizers",
       "test-fixture": doublerFixture,
     },
@@ -227,7 +229,7 @@ export const demoCatalogParts: DemoCatalogPart[] = [
     deviceClass: "frequency-multiplier",
     title: "Passive ×2 frequency multiplier, 0.5–1.2 GHz output",
     description: "Low-drive Schottky-diode ring doubler for UHF clock and LO chains.",
-    keyConditions: { inputFrequencyHz: { min: 0.25 * GHz, max: 0.6 * GHz }, outputFrequencyHz: { min: 0.5 * GHz, max: 1.2 * GHz }, driveLevelDbm: 10, multiplicationFactor: 2 },
+    keyConditions: { inputFrequencyHz: { min: 0.25 * GHz, max: 0.6 * GHz }, outputFrequencyHz: { min: 0.5 * GHz, max: 1.2 * GHz }, driveLevelDbm: 7, multiplicationFactor: 2 },
     files: doublerFiles(
       { conversionLossDb: 9.0, optimumDriveDbm: 7.4, fundamentalRejectionDb: 36, thirdSuppressionDbc: 29, fourthSuppressionDbc: 21, inputBandHz: { min: 0.25 * GHz, max: 0.6 * GHz }, unitSpreadDb: 0.18 },
       { serials: serials("BFD-", 221, 4), lot: "L2608", inputFrequenciesHz: [0.3 * GHz, 0.45 * GHz], measuredOn: ["2026-08-25", "2026-08-26"], seed: 1201 },
@@ -235,7 +237,7 @@ export const demoCatalogParts: DemoCatalogPart[] = [
     limits: doublerLimits,
     prose: {
       description: "The **KDX-1G** doubles a 250–600 MHz input to 0.5–1.2 GHz with about +7 dBm per port. No bias supply is needed.",
-      features: doublerFeatures,
+      features: doublerFeatures(7),
       applications: "- Clock doubling\n- UHF local oscillators",
       "test-fixture": doublerFixture,
     },
@@ -300,9 +302,9 @@ export const demoCatalogParts: DemoCatalogPart[] = [
     org: "pellacourt",
     partNumber: "PX-80",
     deviceClass: "frequency-multiplier",
-    title: "×2 multiplier, 4–8 GHz output, +17 dBm drive",
+    title: "×2 multiplier, 4–8 GHz output, +14 dBm per port",
     description: "High-drive diode doubler for C-band local oscillators.",
-    keyConditions: { inputFrequencyHz: { min: 2 * GHz, max: 4 * GHz }, outputFrequencyHz: { min: 4 * GHz, max: 8 * GHz }, driveLevelDbm: 17, multiplicationFactor: 2 },
+    keyConditions: { inputFrequencyHz: { min: 2 * GHz, max: 4 * GHz }, outputFrequencyHz: { min: 4 * GHz, max: 8 * GHz }, driveLevelDbm: 14, multiplicationFactor: 2 },
     files: doublerFiles(
       { conversionLossDb: 11.6, optimumDriveDbm: 14, fundamentalRejectionDb: 29, thirdSuppressionDbc: 24, fourthSuppressionDbc: 17, inputBandHz: { min: 2 * GHz, max: 4 * GHz }, unitSpreadDb: 0.3 },
       { serials: serials("PX-", 1101, 3), lot: "P-26A", inputFrequenciesHz: [2.5 * GHz, 3 * GHz, 3.5 * GHz], measuredOn: ["2026-10-19", "2026-10-20"], seed: 8001 },
@@ -310,7 +312,7 @@ export const demoCatalogParts: DemoCatalogPart[] = [
     limits: doublerLimits,
     prose: {
       description: "The **PX-80** doubles 2–4 GHz to 4–8 GHz. A high-barrier diode ring takes +14 dBm per port for its best conversion.",
-      features: doublerFeatures,
+      features: doublerFeatures(14),
       applications: "- C-band local oscillators\n- Test-equipment frequency extension",
       "test-fixture": doublerFixture,
     },
@@ -377,7 +379,7 @@ export const demoCatalogParts: DemoCatalogPart[] = [
     deviceClass: "frequency-multiplier",
     title: "Independent characterization: ×2 multiplier, 3–6 GHz output, lot 2620",
     description: "Third-party characterization of a customer's diode doubler, lot 2620.",
-    keyConditions: { inputFrequencyHz: { min: 1.5 * GHz, max: 3 * GHz }, outputFrequencyHz: { min: 3 * GHz, max: 6 * GHz }, driveLevelDbm: 15, multiplicationFactor: 2 },
+    keyConditions: { inputFrequencyHz: { min: 1.5 * GHz, max: 3 * GHz }, outputFrequencyHz: { min: 3 * GHz, max: 6 * GHz }, driveLevelDbm: 12, multiplicationFactor: 2 },
     files: doublerFiles(
       { conversionLossDb: 10.9, optimumDriveDbm: 12, fundamentalRejectionDb: 31, thirdSuppressionDbc: 26, fourthSuppressionDbc: 18, inputBandHz: { min: 1.5 * GHz, max: 3 * GHz }, unitSpreadDb: 0.25 },
       { serials: serials("WL-2620-", 1, 3, 2), lot: "2620", inputFrequenciesHz: [2 * GHz, 2.5 * GHz], measuredOn: ["2026-11-18", "2026-11-19"], seed: 2620 },
@@ -386,7 +388,7 @@ export const demoCatalogParts: DemoCatalogPart[] = [
     prose: {
       description:
         "An independent characterization by Wrenfield RF Test Laboratory of three units of a customer's diode doubler, lot 2620, at 2.0 and 2.5 GHz input.\n\nThe figures describe the units tested. They are not the maker's guarantees.",
-      features: labDoublerFeatures,
+      features: labDoublerFeatures(12),
       "test-fixture": doublerFixture,
     },
     absoluteMaximumRatings: [{ label: "RF input power, per port", value: "+20", unit: "dBm" }, ...temperatures("−40 to +85", "−55 to +125"), esd("1A")],

@@ -31,7 +31,7 @@ export const demoOrganizations: DemoOrganization[] = [
         deviceClass: "frequency-multiplier",
         title: "Independent characterization: mixer-based ×2 multiplier, lot 2611",
         description: "Third-party characterization of a double-balanced mixer driven on both ports as a frequency doubler.",
-        keyConditions: { inputFrequencyHz: { min: 0.5 * GHz, max: 1.5 * GHz }, outputFrequencyHz: { min: 1 * GHz, max: 3 * GHz }, driveLevelDbm: 13, multiplicationFactor: 2 },
+        keyConditions: { inputFrequencyHz: { min: 0.5 * GHz, max: 1.5 * GHz }, outputFrequencyHz: { min: 1 * GHz, max: 3 * GHz }, driveLevelDbm: 10, multiplicationFactor: 2 },
       },
       {
         partNumber: "WL-C2614-PM13",
@@ -57,7 +57,7 @@ export const demoOrganizations: DemoOrganization[] = [
         deviceClass: "frequency-multiplier",
         title: "Passive ×2 frequency multiplier, 1.0–2.4 GHz output",
         description: "Schottky-diode ring doubler with integral input balun.",
-        keyConditions: { inputFrequencyHz: { min: 0.5 * GHz, max: 1.2 * GHz }, outputFrequencyHz: { min: 1 * GHz, max: 2.4 * GHz }, driveLevelDbm: 15, multiplicationFactor: 2 },
+        keyConditions: { inputFrequencyHz: { min: 0.5 * GHz, max: 1.2 * GHz }, outputFrequencyHz: { min: 1 * GHz, max: 2.4 * GHz }, driveLevelDbm: 10, multiplicationFactor: 2 },
       },
       {
         partNumber: "KM-7H",
@@ -88,9 +88,9 @@ export const demoOrganizations: DemoOrganization[] = [
       {
         partNumber: "PX-40",
         deviceClass: "frequency-multiplier",
-        title: "×2 multiplier, 2–4 GHz output, +17 dBm drive",
+        title: "×2 multiplier, 2–4 GHz output, +14 dBm per port",
         description: "High-drive diode doubler for local-oscillator chains.",
-        keyConditions: { inputFrequencyHz: { min: 1 * GHz, max: 2 * GHz }, outputFrequencyHz: { min: 2 * GHz, max: 4 * GHz }, driveLevelDbm: 17, multiplicationFactor: 2 },
+        keyConditions: { inputFrequencyHz: { min: 1 * GHz, max: 2 * GHz }, outputFrequencyHz: { min: 2 * GHz, max: 4 * GHz }, driveLevelDbm: 14, multiplicationFactor: 2 },
       },
       {
         partNumber: "PM-13",

@@ -149,7 +149,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
     [{ label: "RF input power", value: "+20", unit: "dBm" }, { label: "LO input power", value: "+23", unit: "dBm" }, { label: "IF current", value: "40", unit: "mA" }, ...temperatures("−40 to +85", "−55 to +100"), esd("1A")],
   ),
   "PX-40": shell(
-    "The **PX-40** doubles 1–2 GHz to 2–4 GHz with +17 dBm of drive. Characterization has not started.",
+    "The **PX-40** doubles 1–2 GHz to 2–4 GHz with +14 dBm per port. Characterization has not started.",
     "- High-drive diode ring for low near-carrier noise\n- Passive: no DC supply",
     [{ label: "RF input power, per port", value: "+24", unit: "dBm" }, ...temperatures("−40 to +85", "−55 to +125"), esd("1A")],
   ),

@@ -34,7 +34,8 @@ export async function loadWatchInput(opts: { organizationId: number; deviceId: n
   if (withdrawn) return null;
   const model = JSON.parse(newest.modelJson) as SheetModel;
   const device = await Device.findByPk(deviceId, { attributes: ["deviceClass"], transaction });
-  const template = findSheetTemplate(model.template.deviceClass) ?? (device ? findSheetTemplate(device.deviceClass) : undefined);
+  const stated = { driveLevelDbm: model.template.statedDriveDbm };
+  const template = findSheetTemplate(model.template.deviceClass, stated) ?? (device ? findSheetTemplate(device.deviceClass, stated) : undefined);
   if (!template) return null;
   const rows = await MeasurementSet.findAll({
     where: { organizationId, deviceId, state: "approved", supersededById: { [Op.is]: null }, reviewedAt: { [Op.gt]: newest.releasedAt } },

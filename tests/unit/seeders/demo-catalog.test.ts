@@ -9,6 +9,7 @@ import { demoCatalogInstruments, demoCatalogIssueReasons, demoCatalogParts } fro
 import { demoInstruments } from "@/models/seeders/demo-measurements";
 import { demoOrganizations } from "@/models/seeders/demo-scenario";
 import { fillFeatures, limitsFromStatistics } from "@/scripts/seed-demo-catalog";
+import { formatDrive } from "@/lib/sheet/format";
 
 // The demo catalog's generated bench files: the networks against Pozar's ideal matrices, the files
 // through the same parser and derivation as an upload, and the limits the loader sets from them.
@@ -132,6 +133,13 @@ describe("the demo catalog's parts", () => {
       }
     }
     if (part.prose.features) expect(fillFeatures(part.prose.features, limits, sheet)).not.toMatch(/[{}]/);
+    // A doubler's rows are held at its own key drive, per port, and its features name that drive.
+    const drive = part.keyConditions.driveLevelDbm;
+    if (part.deviceClass === "frequency-multiplier") {
+      expect(sheet.template.statedDriveDbm).toBe(drive);
+      expect(sheet.statistics.groups.filter((g) => g.rowId === "conversion-loss-at-drive").every((g) => g.conditionsKey.startsWith(`drive=${drive};`))).toBe(true);
+      expect(part.prose.features!.replace(/\u00a0/g, " ")).toContain(`at ${formatDrive(drive!)} per port`.replace(/\u00a0/g, " "));
+    }
   });
 
   it("doublers: best conversion near the modelled optimum drive, square law (≈ 2 dB per dB) well below it", () => {

@@ -334,11 +334,18 @@ describe("diffSheetModels: prose, ratings, cautions, sets", () => {
       { label: "Drive level, per port", previous: `+10${NBSP}dBm`, next: `+13${NBSP}dBm` },
       { label: "Multiplication factor", previous: "×2", next: null },
     ]);
-    expect(summaryLines(diff)).toEqual([
+    const lines = summaryLines(diff);
+    expect(lines.filter((line) => !/^(Added|Removed): /.test(line))).toEqual([
       `Title: ${base.device.title} → ${base.device.title}, rugged`,
       `Drive level, per port: +10${NBSP}dBm → +13${NBSP}dBm`,
       "Key fact removed: Multiplication factor",
+      `Typical curves changed: Conversion loss at +13${NBSP}dBm per port vs input frequency; Fundamental suppression at +13${NBSP}dBm per port vs input frequency`,
     ]);
+    // The drive is the one the drive-held rows are stated at: each such row leaves at +10 dBm and comes back at +13 dBm.
+    const plain = lines.map((line) => line.replace(/\u00a0/g, " "));
+    expect(plain.some((line) => /^Removed: Conversion loss \(.*Drive \+10 dBm per port/.test(line))).toBe(true);
+    expect(plain.some((line) => /^Added: Conversion loss \(.*Drive \+13 dBm per port/.test(line))).toBe(true);
+    expect(plain.filter((line) => /^(Added|Removed): /.test(line)).every((line) => /Drive \+1[03] dBm per port/.test(line))).toBe(true);
   });
 
   it("gives the same diff, byte for byte, whatever order the inputs came in", () => {

@@ -3,7 +3,7 @@ import { describe, expect, it } from "vitest";
 import { buildSheetModel, type ApprovedSetInput } from "@/lib/sheet";
 import { readAtStatedDrive } from "@/lib/sheet/stated-drive";
 import { findSheetTemplate } from "@/templates";
-import { MULTIPLIER_STATED_DRIVE_DBM } from "@/templates/frequency-multiplier";
+import { MULTIPLIER_DEFAULT_STATED_DRIVE_DBM } from "@/templates/frequency-multiplier";
 import { loadDoublerInput } from "./fixture";
 
 const template = findSheetTemplate("frequency-multiplier")!;
@@ -24,8 +24,9 @@ const curvePoints = (set: ApprovedSetInput, curveId: string, series?: string) =>
 };
 
 describe("a multiplier's rows at the drive its template states", () => {
-  it("states +10 dBm per port, inside every fixture unit's sweep", () => {
-    expect(MULTIPLIER_STATED_DRIVE_DBM).toBe(10);
+  it("states +10 dBm per port (the fixture device's own drive and the class default), inside every fixture unit's sweep", () => {
+    expect(MULTIPLIER_DEFAULT_STATED_DRIVE_DBM).toBe(10);
+    expect(input.device.keyConditions.driveLevelDbm).toBe(10);
     for (const set of sweeps) {
       const xs = curvePoints(set, "conversion-loss-vs-drive").map(([x]) => x);
       expect(Math.min(...xs)).toBeLessThan(10);
@@ -87,5 +88,34 @@ describe("a multiplier's rows at the drive its template states", () => {
     const after = model.statistics.groups.find((g) => g.groupId === group.groupId)!;
     expect(after.units.map((u) => u.setId)).not.toContain(String(used.id));
     expect(after.n).toBe(group.n - 1);
+  });
+
+  it("holds the rows, trends and their titles at the device's own per-port drive, and the model records it", () => {
+    // A device rated at +11.5 dBm per port: every unit's sweep reaches it (the steps sit at +9.28, +10.28, ... dBm).
+    const drive = 11.5;
+    const own = findSheetTemplate("frequency-multiplier", { driveLevelDbm: drive })!;
+    expect(own.statedDriveDbm).toBe(drive);
+    expect(findSheetTemplate("frequency-multiplier")!.statedDriveDbm).toBe(MULTIPLIER_DEFAULT_STATED_DRIVE_DBM);
+    // The same rows by id; only the held drive differs.
+    expect(own.specifications.rows.map((r) => r.id)).toEqual(template.specifications.rows.map((r) => r.id));
+    for (const r of own.specifications.rows.filter((r) => r.atStatedDrive)) expect(r.match?.drive).toBe(drive);
+    for (const t of own.trends!.filter((t) => t.atStatedDrive)) {
+      expect(t.match?.drive).toBe(drive);
+      expect(plain(t.title)).toContain("+11.5 dBm per port");
+    }
+    const atDrive = { ...input, device: { ...input.device, keyConditions: { ...input.device.keyConditions, driveLevelDbm: drive } } };
+    const model = buildSheetModel(atDrive);
+    expect(model.template.statedDriveDbm).toBe(drive);
+    const cl = model.specifications.rows.find((r) => r.rowId === "conversion-loss-at-drive" && r.conditionsKey.includes("temperatureC=25"))!;
+    expect(plain(cl.conditions[1])).toBe("+11.5 dBm per port");
+    // The row's units read off their sweeps at +11.5 dBm as numpy.interp does (NumPy 1.24, Debian's python3-numpy).
+    const group = model.statistics.groups.find((g) => g.groupId === cl.groupId)!;
+    const sets = group.units.map((u) => input.approvedSets.find((s) => String(s.id) === u.setId)!);
+    const expected = numpyInterp(drive, sets.map((set) => curvePoints(set, "conversion-loss-vs-drive")));
+    expect(group.units.length).toBeGreaterThan(1);
+    group.units.forEach((u, i) => expect(u.value.value).toBeCloseTo(expected[i], 7)); // the annex keeps 8 decimals
+    // The key fact states the same drive the rows are held at.
+    expect(model.keyFacts.find((f) => f.label === "Drive level, per port")).toMatchObject({ value: "+11.5" });
+    expect(() => findSheetTemplate("frequency-multiplier", { driveLevelDbm: Number.NaN })).not.toThrow();
   });
 });

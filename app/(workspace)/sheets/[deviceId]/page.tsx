@@ -29,7 +29,7 @@ export default async function SheetPage({ params }: Props) {
     Promise.all([loadDraftSheet(user, deviceId), findDeviceReview({ viewer: user, deviceId }), listDeviceRevisions({ viewer: user, deviceId })]),
   );
   const model = buildSheetModel(input);
-  const template = findSheetTemplate(input.device.deviceClass);
+  const template = findSheetTemplate(input.device.deviceClass, input.device.keyConditions);
   return (
     <SheetWorkspace
       deviceId={deviceId}
