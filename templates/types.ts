@@ -31,6 +31,13 @@ export interface ConditionSource {
   format: ConditionFormat;
   /** Written after the value, e.g. "in" / "out" to say which frequency it is. */
   suffix?: string;
+  /**
+   * Only in these rows (template row ids) / in every row but these: one condition key means different things
+   * in different rows (a mixer's conversion loss holds over an RF band, a port's VSWR over the band its port
+   * was swept over). A cell outside any row (a chart's caption) takes `exceptRows` sources and no `rows` one.
+   */
+  rows?: readonly string[];
+  exceptRows?: readonly string[];
 }
 
 /** One condition column of the electrical-specifications table. A cell shows the first source present. */
@@ -170,6 +177,13 @@ export interface StatedBandTemplate {
   rowIds?: string[];
 }
 
+/** A note under the specifications table that explains some rows only. */
+export interface SpecNoteTemplate {
+  text: string;
+  /** Template row ids: the note is printed when at least one of them is on the sheet. */
+  rows: string[];
+}
+
 export interface SheetTemplate {
   /** A name from lib/domain/device-classes.ts, which also holds the class's human name. */
   deviceClass: DeviceClass;
@@ -192,8 +206,12 @@ export interface SheetTemplate {
   specifications: {
     conditionColumns: ConditionColumn[];
     rows: SpecRowTemplate[];
-    /** Printed under the table, e.g. the reference impedance. */
-    notes: string[];
+    /**
+     * Printed under the table, e.g. the reference impedance. A note about some rows names them (`rows`, template
+     * row ids) and is printed only on a sheet where one of them has a figure: no jitter formula under a
+     * table without jitter.
+     */
+    notes: (string | SpecNoteTemplate)[];
   };
   /** The bands the device states and how the rows name frequencies in them; none: the band is not checked. */
   statedBands?: StatedBandTemplate[];

@@ -72,7 +72,7 @@ export function buildSheetModel(input: SheetInput, options: BuildSheetModelOptio
     noDataNotice: sets.length === 0 ? NO_DATA_NOTICE : null,
     specifications: {
       ...withoutEmptyConditionColumns(template, specTable.rows),
-      notes: [...template.specifications.notes],
+      notes: notesForRows(template, specTable.rows),
       basisLegend: BASIS_LEGEND.map((entry) => ({ ...entry })),
       footnotes: specTable.footnotes,
     },
@@ -236,6 +236,12 @@ function buildKeyFacts(conditions: SheetInput["device"]["keyConditions"], words:
     facts.push({ label: "Multiplication factor", value: `×${formatNumber(conditions.multiplicationFactor, { digits: { maxDecimals: 0 } })}`, unit: "" });
   }
   return facts;
+}
+
+/** The template's notes under the table: each note about some rows only where one of those rows is on the sheet. */
+function notesForRows(template: SheetTemplate, rows: SheetModel["specifications"]["rows"]): string[] {
+  const present = new Set(rows.map((row) => row.rowId));
+  return template.specifications.notes.flatMap((note) => (typeof note === "string" ? [note] : note.rows.some((id) => present.has(id)) ? [note.text] : []));
 }
 
 /**

@@ -29,8 +29,11 @@ export function parseConditionsKey(conditionsKey: string): Conditions {
   return conditions;
 }
 
-export function formatConditionCell(column: ConditionColumn, conditions: Conditions): string {
+/** A condition cell: the first of the column's sources present in `conditions` that serves the row `rowId`. */
+export function formatConditionCell(column: ConditionColumn, conditions: Conditions, rowId?: string): string {
   for (const source of column.sources) {
+    if (source.rows && (rowId === undefined || !source.rows.includes(rowId))) continue;
+    if (source.exceptRows && rowId !== undefined && source.exceptRows.includes(rowId)) continue;
     const text = formatSource(source, conditions);
     // The suffix belongs to a number ("+10 dBm per port"), not to a word such as "optimum".
     if (text !== null) return source.suffix && typeof conditions[source.key] === "number" ? `${text} ${source.suffix}` : text;

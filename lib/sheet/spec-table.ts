@@ -54,7 +54,7 @@ export function buildSpecTable(options: {
       const limit = limits.get(limitKey);
       if (limit) usedLimits.add(limitKey);
       const conditions = parseConditionsKey(conditionsKey);
-      const conditionCells = template.specifications.conditionColumns.map((column) => formatConditionCell(column, conditions));
+      const conditionCells = template.specifications.conditionColumns.map((column) => formatConditionCell(column, conditions, row.id));
       const stats = computeGroupStatistics({
         label: specRowName(row),
         unit: row.unit,

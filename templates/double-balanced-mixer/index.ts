@@ -41,7 +41,8 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
         id: "rf",
         label: "RF",
         sources: [
-          { key: "startHz", stopKey: "stopHz", format: "frequency-range" },
+          // A port's VSWR band is the band its port was swept over, not an RF band: it has its own column.
+          { key: "startHz", stopKey: "stopHz", format: "frequency-range", exceptRows: ["vswr"] },
           { key: "rfFrequencyHz", format: "frequency" },
         ],
       },
@@ -61,6 +62,7 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
         sources: [{ key: "loPowerDbm", format: "power-dbm" }],
       },
       portColumn,
+      { id: "port-band", label: "Band", sources: [{ key: "startHz", stopKey: "stopHz", format: "frequency-range", rows: ["vswr"] }] },
       temperatureColumn,
     ],
     rows: [
@@ -124,9 +126,10 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
       worstVswrRow("characterization"),
     ],
     notes: [
-      "Conversion loss is P_RF − P_IF (positive for a lossy mixer). Intercepts are per tone, from slope-1 and slope-3 fits over the small-signal points.",
+      { text: "Conversion loss is P_RF − P_IF (positive for a lossy mixer).", rows: ["conversion-loss-worst", "conversion-loss-typical", "conversion-loss-worst-over-temperature"] },
+      { text: "Intercepts are per tone, from slope-1 and slope-3 fits over the small-signal points.", rows: ["iip3"] },
       "System impedance 50 Ω; LO drive is the available power at the LO port. Where a row states an IF and no LO, the RF was swept at that fixed IF with the LO following it.",
-      "Port match (VSWR, return loss) is measured as a three-port network: port 1 RF, port 2 LO, port 3 IF, with the LO off.",
+      { text: "Port match (VSWR, return loss) is measured as a three-port network: port 1 RF, port 2 LO, port 3 IF, with the LO off.", rows: ["vswr"] },
     ],
   },
   // The device states its RF band; the conversion-loss and isolation rows are figures over an RF band.

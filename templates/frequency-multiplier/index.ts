@@ -31,6 +31,8 @@ export function frequencyMultiplierTemplateAt(statedDriveDbm: number): SheetTemp
   if (!Number.isFinite(statedDriveDbm)) throw new RangeError(`A stated drive must be a finite number of dBm, got ${statedDriveDbm}`);
   const atDrive = { drive: statedDriveDbm };
   const statedDriveWords = `${formatDrive(statedDriveDbm)} per port`;
+  // The rows held at the stated drive, which the conversion-loss and suppression notes explain.
+  const heldRowIds = ["conversion-loss-at-drive", "conversion-loss-over-temperature", "fundamental-suppression", "third-harmonic-suppression", "fourth-harmonic-suppression"];
 
   // Frequency multipliers, including a double-balanced mixer driven on both ports as a doubler.
   return {
@@ -191,18 +193,35 @@ export function frequencyMultiplierTemplateAt(statedDriveDbm: number): SheetTemp
         },
       ],
       notes: [
-        "Conversion loss is P_in − P_out of the wanted 2nd-order output; suppression is P_wanted − P_order (positive below the wanted output).",
+        {
+          text: "Conversion loss is P_in − P_out of the wanted 2nd-order output; suppression is P_wanted − P_order (positive below the wanted output).",
+          rows: [...heldRowIds],
+        },
         "Per-port drive is the source power less the 3.01 dB split, splitter excess loss and cable loss. System impedance 50 Ω.",
-        "Conversion loss and suppression hold at the per-port drive in the Drive column: each unit's figure is read off its measured " +
-          "sweep by linear interpolation between the two drive steps around it. Each unit's optimum drive is its own row.",
-        "Residual phase noise is single-sideband L(f) per IEEE Std 1139-2008; an ideal ×2 adds 6.02 dB.",
-        "RMS jitter and phase integrate L(f) over the offset band printed beside them: φ_rms = √(2∫L(f)df), σ_t = φ_rms/(2π f_0).",
-        "Excess over ideal ×N is L_out − (L_in + 20·log10 N) at each offset, L_in the source's own L(f) measured on the same offsets.",
-        "Discrete spurs are in dBc: the plotted peak plus 10·log10 of the analyzer's noise bandwidth at the spur's offset (a stated 3 dB " +
-          "resolution bandwidth × 1.0645, a Gaussian filter's). The row gives each unit's highest spur over the offsets searched; a unit with no spur adds no value.",
+        {
+          text:
+            "Conversion loss and suppression hold at the per-port drive in the Drive column: each unit's figure is read off its measured " +
+            "sweep by linear interpolation between the two drive steps around it. Each unit's optimum drive is its own row.",
+          rows: [...heldRowIds],
+        },
+        { text: "Residual phase noise is single-sideband L(f) per IEEE Std 1139-2008; an ideal ×2 adds 6.02 dB.", rows: ["residual-phase-noise", "excess-over-ideal"] },
+        {
+          text: "RMS jitter and phase integrate L(f) over the offset band printed beside them: φ_rms = √(2∫L(f)df), σ_t = φ_rms/(2π f_0).",
+          rows: ["rms-jitter", "rms-phase-error"],
+        },
+        {
+          text: "Excess over ideal ×N is L_out − (L_in + 20·log10 N) at each offset, L_in the source's own L(f) measured on the same offsets.",
+          rows: ["excess-over-ideal"],
+        },
+        {
+          text:
+            "Discrete spurs are in dBc: the plotted peak plus 10·log10 of the analyzer's noise bandwidth at the spur's offset (a stated 3 dB " +
+            "resolution bandwidth × 1.0645, a Gaussian filter's). The row gives each unit's highest spur over the offsets searched; a unit with no spur adds no value.",
+          rows: ["worst-discrete-spur"],
+        },
       ],
     },
-    // The input band holds the drive sweeps' input frequency; the output band the phase-noise carrier.
+  // The input band holds the drive sweeps' input frequency; the output band the phase-noise carrier.
     statedBands: [
       { deviceKey: "inputFrequencyHz", label: "input band", sources: [{ key: "inputFrequencyHz" }] },
       { deviceKey: "outputFrequencyHz", label: "output band", sources: [{ key: "carrierFrequencyHz" }] },
