@@ -15,6 +15,8 @@ async function waitForMail(to: string, subject?: string): Promise<{ subject: str
 }
 
 test("a visitor signs up as a customer through the form, forgets the password and sets a new one from the mailed link", async ({ page }) => {
+  // Eight pages and two mails in one flow: 30 s is too little for the first pages of a run on a loaded machine.
+  test.setTimeout(120_000);
   const email = `buyer-${Date.now()}-${Math.random().toString(36).slice(2, 8)}@benchfold-tests.example`;
   await page.goto("/sign-up");
   const form = page.getByTestId("sign-up-form");
