@@ -108,7 +108,7 @@ function HomeIntro({ start }: { start: { href: string; label: string } | null })
             </tr>
             <tr>
               <th scope="row" className="py-1.5 text-left font-sans font-normal">
-                Residual phase noise, 10 kHz
+                Phase noise, 10 kHz
               </th>
               <td className="text-right text-ink-muted">—</td>
               <td className="text-right">−158</td>
@@ -175,7 +175,7 @@ function DeviceClassesSection() {
             </th>
             <td>
               Conversion loss against drive and frequency, the optimum drive, suppression of the fundamental and of the 3rd and 4th
-              harmonics in <span className="unit">dBc</span>, residual phase noise at decade offsets and its excess over the ideal{" "}
+              harmonics in <span className="unit">dBc</span>, phase noise at decade offsets (residual or absolute) and its excess over the ideal{" "}
               <span className="figure">20·log₁₀(N)</span>, noise floor against <Quantity value="−174" unit="dBm/Hz" /> at{" "}
               <Quantity value="290" unit="K" />, discrete spurs.
             </td>

@@ -85,24 +85,24 @@ export const parameterCatalog = {
     description: "−10·log10(1 − |Sii|²), the power a port reflects (Pozar §2.3); \"worst\" is the highest over the band.",
   },
   "spot-phase-noise": {
-    label: "Residual phase noise",
+    label: "Phase noise",
     unit: "dBc/Hz",
     description:
       "Single-sideband L(f) = ½·Sφ(f) (IEEE Std 1139-2008) at a decade offset, log-log interpolated between trace points.",
   },
   "integrated-phase-noise": {
-    label: "Integrated residual phase noise",
+    label: "Integrated phase noise",
     unit: "dBc",
     description:
       "∫ L(f) df between the stated offsets, each segment a power law (IEEE Std 1139-2008; the method of MathWorks phaseNoiseToJitter). Spurs are included.",
   },
   "rms-phase-error": {
-    label: "Residual RMS phase error",
+    label: "RMS phase error",
     unit: "deg",
     description: "φrms = √(2·∫L(f)df), both sidebands, in degrees, over the integration band printed beside it.",
   },
   "rms-jitter": {
-    label: "Residual RMS jitter",
+    label: "RMS jitter",
     unit: "fs",
     description: "σt = φrms / (2π·f0) over the integration band printed beside it, in femtoseconds.",
   },

@@ -138,7 +138,7 @@ const labelled = z.object({ label: z.string(), value: z.string(), unit: z.string
 export const sheetModelSchema = z
   .object({
     schemaVersion: z.literal(1),
-    template: z.object({ deviceClass: z.string(), label: z.string() }),
+    template: z.object({ deviceClass: z.string(), label: z.string(), statedDriveDbm: z.number().optional().describe("Per-port drive (dBm) the drive-held rows are read at; a multiplier's only.") }),
     header: z.object({
       partNumber: z.string(),
       title: z.string(),

@@ -63,7 +63,7 @@ export const demoSheets: Record<string, DemoSheetContent> = {
       description:
         "The **KDX-2G4** doubles a 0.5–1.2 GHz input to 1.0–2.4 GHz. A Schottky diode ring is driven on both ports from one source through an in-phase splitter, so the second harmonic adds at the output while the fundamental and the odd orders cancel.\n\nNo bias supply is needed. Best conversion is near +10.8 dBm per port.",
       features:
-        "- Conversion loss below 11 dB at +10 dBm per port, tested on every unit at 25 °C; below 11.5 dB from −40 to +85 °C\n- Fundamental suppression above 22 dBc\n- Residual phase noise typically −152 dBc/Hz at 10 kHz offset\n- Passive: no DC supply",
+        "- Conversion loss below 11 dB at +10 dBm per port, tested on every unit at 25 °C; below 11.5 dB from −40 to +85 °C\n- Fundamental suppression above 22 dBc\n- Phase noise typically −152 dBc/Hz at 10 kHz offset\n- Passive: no DC supply",
       applications: "- Local-oscillator multiplier chains\n- Clock doubling in frequency synthesizers\n- Laboratory frequency extension",
       "test-fixture":
         "Units are soldered to a 0.508 mm laminate fixture with SMA launches. Both device ports are fed from one signal generator through a two-way in-phase splitter; its 0.4 dB excess loss and the 0.6 dB cable loss are taken out of the stated drive. Output orders 1 to 4 are read on a spectrum analyzer. Reference impedance 50 Ω.\n\nThe runs over temperature put the fixture in a chamber at −40, +25 and +85 °C, soaked 20 minutes at each; the temperature of each run is the one its bench file states.",

@@ -204,7 +204,12 @@ export function frequencyMultiplierTemplateAt(statedDriveDbm: number): SheetTemp
             "sweep by linear interpolation between the two drive steps around it. Each unit's optimum drive is its own row.",
           rows: [...heldRowIds],
         },
-        { text: "Residual phase noise is single-sideband L(f) per IEEE Std 1139-2008; an ideal ×2 adds 6.02 dB.", rows: ["residual-phase-noise", "excess-over-ideal"] },
+        {
+          text:
+            "Phase noise is single-sideband L(f) per IEEE Std 1139-2008 at the output, as the bench file measured it: residual (the source's " +
+            "noise cancelled in the test set) or absolute (the source's included). An ideal ×N adds 20·log10 N, 6.02 dB for ×2.",
+          rows: ["residual-phase-noise", "rms-jitter", "rms-phase-error", "excess-over-ideal"],
+        },
         {
           text: "RMS jitter and phase integrate L(f) over the offset band printed beside them: φ_rms = √(2∫L(f)df), σ_t = φ_rms/(2π f_0).",
           rows: ["rms-jitter", "rms-phase-error"],
@@ -248,7 +253,7 @@ export function frequencyMultiplierTemplateAt(statedDriveDbm: number): SheetTemp
       {
         id: "phase-noise",
         curveId: "phase-noise",
-        title: "Residual phase noise L(f)",
+        title: "Phase noise L(f)",
         caption: "Single-sideband, at the output frequency; each line one unit.",
       },
     ],
@@ -289,7 +294,7 @@ export function frequencyMultiplierTemplateAt(statedDriveDbm: number): SheetTemp
       description:
         "A passive frequency doubler: the input drives both ports of a diode ring through a splitter, and the wanted " +
         "output is the second harmonic.",
-      features: `- Conversion loss at ${statedDriveWords}, measured on every unit\n- Fundamental and harmonic suppression at ${statedDriveWords}\n- Residual phase noise at decade offsets`,
+      features: `- Conversion loss at ${statedDriveWords}, measured on every unit\n- Fundamental and harmonic suppression at ${statedDriveWords}\n- Phase noise at decade offsets`,
       applications: "- Local-oscillator chains\n- Frequency synthesis\n- Test equipment",
       handling: defaultHandlingProse,
       testFixture:

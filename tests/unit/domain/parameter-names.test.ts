@@ -70,7 +70,7 @@ describe("a name composed of the parameter's and the row's qualifiers", () => {
     [{ parameter: "isolation", match: { path: "S32" } }, "Isolation, port 2 to 3 (S32)"],
     [{ parameter: "harmonic-suppression", match: { order: 3, drive: 10 } }, "3rd harmonic suppression"],
     [{ parameter: "iip3" }, "Input IP3"],
-    [{ parameter: "spot-phase-noise" }, "Residual phase noise"],
+    [{ parameter: "spot-phase-noise" }, "Phase noise"],
   ])("%j reads %s", (row, name) => expect(specRowName(row)).toBe(name));
 });
 
@@ -111,7 +111,7 @@ const GUARDED = [
 describe("no surface spells a parameter's name itself", () => {
   it("finds a name typed in a row's label, an axis label or a bare string (the check can fail)", () => {
     expect(spelledNames(`{ id: "x", label: "Conversion loss, highest in band" }`)).toEqual(["Conversion loss"]);
-    expect(spelledNames(`y: { label: "Residual RMS jitter", unit: "fs" }`)).toEqual(["Residual RMS jitter"]);
+    expect(spelledNames(`y: { label: "RMS jitter", unit: "fs" }`)).toEqual(["RMS jitter"]);
     expect(spelledNames(`<th>{"3rd harmonic suppression"}</th>`)).toEqual(["3rd harmonic suppression"]);
     expect(spelledNames(`{ key: "conversion-loss", title: "Conversion loss vs drive" }`)).toEqual([]);
     expect(spelledNames(`{ parameter: "vswr", symbol: "VSWR", select: (n) => n.startsWith("insertion loss") }`)).toEqual([]);

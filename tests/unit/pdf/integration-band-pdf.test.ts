@@ -17,7 +17,7 @@ describe("the integration band beside rms jitter and rms phase", () => {
 
   it("in the sheet model the web sheet draws", () => {
     const rows = model.specifications.rows.filter((r) => r.parameter === "rms-jitter" || r.parameter === "rms-phase-error");
-    expect(rows.map((r) => r.label)).toEqual(["Residual RMS jitter", "Residual RMS phase error"]);
+    expect(rows.map((r) => r.label)).toEqual(["RMS jitter", "RMS phase error"]);
     // No-break spaces inside each quantity, and a zero-width space after the dash where a narrow column may wrap.
     for (const row of rows) expect(row.conditions).toContain("10\u00a0Hz – 1\u00a0MHz");
   });
@@ -32,7 +32,7 @@ describe("the integration band beside rms jitter and rms phase", () => {
     // The Offset column is narrow: the band wraps after its dash, onto the figure's next text line.
     const lines = text.split("\n");
     const at = (label: string) => lines.findIndex((line) => line.includes(label));
-    for (const [label, figure] of [["Residual RMS jitter", /10 Hz –\s+25 °C\s+1\.4\s+fs/], ["Residual RMS phase error", /10 Hz –\s+25 °C\s+0\.0010\s+°/]] as const) {
+    for (const [label, figure] of [["RMS jitter", /10 Hz –\s+25 °C\s+1\.4\s+fs/], ["RMS phase error", /10 Hz –\s+25 °C\s+0\.0010\s+°/]] as const) {
       const i = at(label);
       expect(lines[i]).toMatch(figure);
       // The next text line, past blank lines and letters of the draft's diagonal mark that pdftotext interleaves.

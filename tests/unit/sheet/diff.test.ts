@@ -432,7 +432,7 @@ describe("diffSheetModels: typical-curve overlays", () => {
     const without = candidate(base, template);
     const removed = diffSheetModels(revA, without);
     expect(removed.charts.find((c) => c.chartId === "phase-noise")).toMatchObject({ presence: "previous-only" });
-    expect(summaryLines(removed)).toContain("Chart removed: Residual phase noise L(f)");
+    expect(summaryLines(removed)).toContain("Chart removed: Phase noise L(f)");
     expect(diffIsEmpty(removed)).toBe(false);
     const added = diffSheetModels(without, revA).charts.find((c) => c.chartId === "phase-noise")!;
     expect(added.presence).toBe("next-only");

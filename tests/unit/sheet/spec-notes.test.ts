@@ -31,7 +31,7 @@ describe("notes under the specifications table", () => {
     const limited = buildSheetModel({ ...input, approvedSets: input.approvedSets.filter((s) => s.kind !== "phase-noise") });
     const phaseNoiseRows = limited.specifications.rows.filter((r) => r.rowId === "residual-phase-noise");
     expect(phaseNoiseRows.length).toBeGreaterThan(0);
-    expect(limited.specifications.notes.some((n) => /^Residual phase noise is single-sideband/.test(n))).toBe(true);
+    expect(limited.specifications.notes.some((n) => /^Phase noise is single-sideband/.test(n))).toBe(true);
   });
 
   it("with no data only the notes that name no rows: the reference impedance still stands", () => {
