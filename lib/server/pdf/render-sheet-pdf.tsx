@@ -337,18 +337,24 @@ function TitleBlock({ model }: { model: SheetModel }) {
 
 function SpecificationsTable({ model }: { model: SheetModel }) {
   const { specifications } = model;
-  // The condition columns share 34 % of the width by the longest word each must hold on one line (a value and
-  // its unit are one word, joined by a no-break space), plus room for the cell's padding: an equal share left
-  // "0.5–3 GHz" too narrow a box, and react-pdf breaks a word that does not fit with a hyphen ("0.5–3 -").
+  // Each condition column is as wide as the longest word it must hold on one line (a value and its unit are one
+  // word, joined by a no-break space) at the cell's type size, plus the cell's padding: a narrower box and react-pdf
+  // breaks the word with a hyphen ("0.5–3 -", "70 -"). Together they take 34 % of the width or what they need up to
+  // 46 %, the rest from the Parameter column, whose names wrap at spaces; beyond 46 % they share it by their needs.
   const longestWord = (text: string) => Math.max(0, ...text.split(/[ \n]+/).map((word) => word.length));
-  const conditionChars = specifications.conditionColumns.map(
-    (c, i) => Math.max(3, longestWord(c.label), ...specifications.rows.map((r) => longestWord(r.conditions[i] ?? ""))) + 2,
+  const conditionChars = specifications.conditionColumns.map((c, i) =>
+    Math.max(3, longestWord(c.label), ...specifications.rows.map((r) => longestWord(r.conditions[i] ?? ""))),
   );
-  const totalChars = conditionChars.reduce((sum, n) => sum + n, 0);
+  const tableWidthPt = A4_WIDTH_PT - 2 * PAGE_MARGIN;
+  // 0.52 em a character of the 7.8 pt cell type (common practice for a proportional sans serif's digits and units), 4 pt padding and 2 pt to spare.
+  const neededPercent = conditionChars.map((chars) => (100 * (chars * 0.52 * 7.8 + 6)) / tableWidthPt);
+  const neededTotal = neededPercent.reduce((sum, n) => sum + n, 0);
+  const conditionsShare = Math.min(46, Math.max(34, neededTotal));
+  const percent = (n: number): `${number}%` => `${Math.floor(n * 100) / 100}%`;
   const columns: Column[] = [
-    { header: "Parameter", width: "22%" },
+    { header: "Parameter", width: percent(22 - (conditionsShare - 34)) },
     { header: "Symbol", width: "7%" },
-    ...specifications.conditionColumns.map((c, i): Column => ({ header: c.label, width: `${Math.floor((3400 * conditionChars[i]) / totalChars) / 100}%` })),
+    ...specifications.conditionColumns.map((c, i): Column => ({ header: c.label, width: percent((conditionsShare * neededPercent[i]) / neededTotal) })),
     { header: "Min", width: "7%", align: "right", mono: true },
     { header: "Typ", width: "7.5%", align: "right", mono: true },
     { header: "Max", width: "7.5%", align: "right", mono: true },

@@ -99,6 +99,21 @@ describe("the printed demo sheets", () => {
     expect(short, `${partNumber}: pages ${fills.map((f) => Math.round(f * 100)).join(" / ")} % full`).toEqual([]);
   });
 
+  it.each(sheets.filter((s) => s.model.specifications.rows.length > 0).map((s) => [s.partNumber, s.model] as const))(
+    "%s prints each condition of its specifications table unbroken",
+    (partNumber, model) => {
+      // A condition cell too narrow for its value makes react-pdf break a value with a hyphen ("70 -" over "MHz"):
+      // poppler then reads the halves on two lines. The table's text runs from its head ("PARAMETER") to the basis
+      // legend under it; in it, each value and its unit (one word, joined by a no-break space) is read on one line.
+      const text = execFileSync("pdftotext", ["-layout", path.join(dir, `${partNumber}.pdf`), "-"], { encoding: "utf8" });
+      const table = text.slice(text.indexOf("PARAMETER"), text.indexOf("Basis: T"));
+      const lines = table.split("\n").map((line) => line.replace(/\s+/g, " "));
+      const words = new Set(model.specifications.rows.flatMap((row) => row.conditions.flatMap((cell) => cell.split(" ").filter((word) => word.includes("\u00a0")))));
+      expect(words.size).toBeGreaterThan(0);
+      for (const word of words) expect(lines.some((line) => line.includes(word.replace(/\u00a0/g, " "))), `${partNumber}: "${word}"`).toBe(true);
+    },
+  );
+
   it("measures what pdftoppm draws: the lowest dark row of a rendered page lies where the lowest word ends", () => {
     const { partNumber } = sheets.find((s) => s.model.charts.length > 0)!;
     const words = pages.get(partNumber)!;
