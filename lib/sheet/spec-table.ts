@@ -13,6 +13,10 @@ import type { ApprovedSetInput, GroupIdentity, SheetInput, SheetModel, SpecLimit
 const MEASURED_MEAN_FOOTNOTE =
   "No typical value is stated: the figure is the mean of the units measured (n in the statistics annex), " +
   "rounded to the decade of their spread s (JCGM 100:2008 §7.2.6).";
+/** The same for a row behind which one unit was measured: there is no spread to round to. */
+const ONE_UNIT_FOOTNOTE =
+  "No typical value is stated: the figure is the one unit measured (see the statistics annex), printed to the row's " +
+  "usual decimals; one unit shows no spread to round it to.";
 
 type Issues = SheetModel["issues"];
 
@@ -169,7 +173,7 @@ function buildSpecRow(
   const typIsMeasuredMean = limit?.typ === undefined && stats.meanValue !== null;
   const marks: string[] = [];
   if (limit?.footnote) marks.push(footnoteMark(limit.footnote.trim()));
-  if (typIsMeasuredMean) marks.push(footnoteMark(MEASURED_MEAN_FOOTNOTE));
+  if (typIsMeasuredMean) marks.push(footnoteMark(stats.n < 2 ? ONE_UNIT_FOOTNOTE : MEASURED_MEAN_FOOTNOTE));
   return {
     ...groupIdentity(row, conditionsKey),
     conditions: conditionCells,

@@ -119,6 +119,17 @@ describe("a typical value taken from the units prints with the digits their spre
     expect(row.typ.text).toBe("10.5");
     const stated = buildSheetModel({ ...base, approvedSets: sets, limits: [{ ...maxLimit(12), typ: 10.47, decimals: { typ: 2 } }] });
     expect(stated.specifications.rows.find((r) => r.conditionsKey === CL_2GHZ)!.typ.text).toBe("10.47");
+    // Its footnote says how it was rounded: to the decade of the units' spread.
+    const footnote = (model: typeof measured, r: (typeof measured)["specifications"]["rows"][number]) => model.specifications.footnotes.find((f) => r.footnoteMarks.includes(f.mark))!.text;
+    expect(footnote(measured, row)).toMatch(/rounded to the decade of their spread s/);
+
+    // One unit has no spread: the row's usual decimals, and a footnote that says so instead.
+    const one = buildSheetModel({ ...base, approvedSets: sets.slice(0, 1), limits: [] });
+    const single = one.specifications.rows.find((r) => r.conditionsKey === CL_2GHZ)!;
+    expect(single.n).toBe(1);
+    expect(single.typ.text).toBe("10.02");
+    expect(footnote(one, single)).toMatch(/^No typical value is stated: the figure is the one unit measured/);
+    expect(one.specifications.footnotes.some((f) => /decade of their spread/.test(f.text))).toBe(false);
   });
 });
 
