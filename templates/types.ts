@@ -69,8 +69,9 @@ export interface SpecRowTemplate {
   /**
    * A row over temperature: the sets' temperatures are not split into groups; each unit's worst value
    * over the temperatures it was measured at ("max": its highest, "min": its lowest) is its value, and the
-   * group carries the span of set temperatures as temperatureMinC and temperatureMaxC. Shown only where
-   * the group's sets span two or more temperatures.
+   * group carries the span of set temperatures as temperatureMinC and temperatureMaxC. Only units measured
+   * at both ends of the span count (a unit measured at 25 °C alone is in the 25 °C rows, not here). Shown only
+   * where the group's sets span two or more temperatures and some unit was measured at both ends.
    */
   overTemperature?: "max" | "min";
   /**

@@ -384,7 +384,8 @@ function collectRowValues(row: SpecRowTemplate, sets: ApprovedSetInput[]): Map<s
  */
 function collectOverTemperatureValues(row: SpecRowTemplate, worst: "max" | "min", sets: ApprovedSetInput[]): Map<string, UnitValue[]> {
   const perTemperature = collectRowValues({ ...row, overTemperature: undefined, groupBy: [...row.groupBy.filter((k) => k !== "temperatureC"), "temperatureC"] }, sets);
-  const byGroup = new Map<string, { temperatures: Set<number>; units: Map<string, UnitValue> }>();
+  type Unit = { worst: UnitValue; temperatures: Set<number> };
+  const byGroup = new Map<string, { temperatures: Set<number>; units: Map<string, Unit> }>();
   for (const [key, values] of perTemperature) {
     const { temperatureC, ...rest } = parseConditionsKey(key);
     if (typeof temperatureC !== "number") continue;
@@ -394,14 +395,23 @@ function collectOverTemperatureValues(row: SpecRowTemplate, worst: "max" | "min"
     group.temperatures.add(temperatureC);
     for (const value of values) {
       const current = group.units.get(value.serial);
-      if (!current || (worst === "max" ? value.value > current.value : value.value < current.value)) group.units.set(value.serial, value);
+      if (!current) group.units.set(value.serial, { worst: value, temperatures: new Set([temperatureC]) });
+      else {
+        current.temperatures.add(temperatureC);
+        if (worst === "max" ? value.value > current.worst.value : value.value < current.worst.value) current.worst = value;
+      }
     }
   }
+  // Only the units measured at both ends of the span speak for it: a unit measured at 25 °C alone would put its
+  // 25 °C figure among the worst over temperature and pull the row's typical value and spread towards 25 °C.
   const result = new Map<string, UnitValue[]>();
   for (const [groupKey, { temperatures, units }] of byGroup) {
     if (temperatures.size < 2) continue;
-    const conditions = { ...parseConditionsKey(groupKey), temperatureMinC: Math.min(...temperatures), temperatureMaxC: Math.max(...temperatures) };
-    result.set(makeConditionsKey(conditions), [...units.values()].sort((a, b) => compareStrings(a.serial, b.serial)));
+    const [lowest, highest] = [Math.min(...temperatures), Math.max(...temperatures)];
+    const spanning = [...units.values()].filter((u) => u.temperatures.has(lowest) && u.temperatures.has(highest)).map((u) => u.worst);
+    if (spanning.length === 0) continue;
+    const conditions = { ...parseConditionsKey(groupKey), temperatureMinC: lowest, temperatureMaxC: highest };
+    result.set(makeConditionsKey(conditions), spanning.sort((a, b) => compareStrings(a.serial, b.serial)));
   }
   return result;
 }

@@ -34,10 +34,12 @@ const demoIssueReasons = {
       "Production test screens every unit at 1 GHz in (2 GHz out), and every row states it; units at the band edges are on the bench for the next revision.",
     "uncertainty-below-instruments": sourceLevelledOnAnalyzer,
     "limit-from-one-lot": "All units are from the October build; the next build's units join the characterization before the next revision.",
-    "limit-from-few-units": "The characterization limits rest on the October build's units; more are added as production tests them.",
+    "limit-from-few-units":
+      "The characterization limits rest on the units measured so far, the one over temperature on the four run in the chamber (two lots); more join as each lot is characterized.",
   },
   "KM-7H": {
     "uncertainty-below-instruments": sourceLevelledOnAnalyzer,
+    "limit-from-few-units": "The over-temperature limit rests on the four units run in the chamber (two lots); the next lot's units join it before the next revision.",
   },
   "KQH-2G": {
     "specified-outside-stated-band":

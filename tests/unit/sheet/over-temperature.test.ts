@@ -47,10 +47,15 @@ function input(sets: ApprovedSetInput[], limits: SheetInput["limits"] = []): She
   };
 }
 
-/** Python's own max() of each unit's readings and min()/max() over them all: the reference outside the project. */
+/**
+ * Python's own max() of each unit's readings, over the units measured at both the lowest and the highest
+ * temperature, and min()/max() over all readings: the reference outside the project.
+ */
 function pythonReference(): { worst: Record<string, number>; lowest: number; highest: number } {
   const script =
-    "import json,sys\nrows=json.load(sys.stdin)\nworst={}\nfor s,l,t,v in rows: worst[s]=max(worst.get(s,v),v)\n" +
+    "import json,sys\nrows=json.load(sys.stdin)\nlo=min(r[2] for r in rows)\nhi=max(r[2] for r in rows)\n" +
+    "temps={}\nfor s,l,t,v in rows: temps.setdefault(s,set()).add(t)\n" +
+    "worst={}\nfor s,l,t,v in rows:\n  if lo in temps[s] and hi in temps[s]: worst[s]=max(worst.get(s,v),v)\n" +
     "print(json.dumps({'worst':worst,'lowest':min(r[3] for r in rows),'highest':max(r[3] for r in rows)}))";
   return JSON.parse(execFileSync("/usr/bin/python3", ["-c", script], { input: JSON.stringify(readings), encoding: "utf8" }));
 }
@@ -60,11 +65,13 @@ describe("a row over temperature", () => {
   const row = model.specifications.rows.find((r) => r.rowId === "conversion-loss-over-temperature")!;
   const group = model.statistics.groups.find((g) => g.rowId === "conversion-loss-over-temperature")!;
 
-  it("takes each unit's highest value over the temperatures it was measured at, as Python's max() does", () => {
+  it("takes each unit's highest value over the span, from the units measured at both ends, as Python's max() does", () => {
     const { worst } = pythonReference();
     expect(group.units.map((u) => [u.serial, u.value.value])).toEqual(Object.entries(worst).sort());
-    expect(group.n).toBe(3);
-    expect(group.lots).toBe(2);
+    // A spans −40 to +85 °C; B (+25 and +85 °C) and C (+25 °C) do not, and stay in their own temperatures' rows.
+    expect(Object.keys(worst)).toEqual(["A"]);
+    expect(group.n).toBe(1);
+    expect(group.lots).toBe(1);
   });
 
   it("states the span of the sets' temperatures in the temperature column and carries the limit stated over it", () => {
@@ -86,6 +93,14 @@ describe("a row over temperature", () => {
     expect(tested.specifications.rows.find((r) => r.rowId === "conversion-loss-at-drive" && r.conditionsKey.endsWith("temperatureC=25"))!.basis).toBe("test");
   });
 
+  it("is left out when no unit was measured at both ends of the span", () => {
+    // A at −40 and +25 °C, B at +25 and +85 °C: the span is −40 to +85 °C and neither unit covers it.
+    const halves = readings.filter((r) => !(r[0] === "A" && r[2] === 85) && r[0] !== "C");
+    const split = buildSheetModel(input(halves.map((r, i) => set(i + 1, r))));
+    expect(split.specifications.rows.some((r) => r.rowId === "conversion-loss-over-temperature")).toBe(false);
+    expect(split.specifications.rows.filter((r) => r.rowId === "conversion-loss-at-drive").length).toBe(3);
+  });
+
   it("is left out when every set is at one temperature", () => {
     const room = buildSheetModel(input(readings.filter((r) => r[2] === 25).map((r, i) => set(i + 1, r))));
     expect(room.specifications.rows.some((r) => r.rowId === "conversion-loss-over-temperature")).toBe(false);
@@ -96,7 +111,7 @@ describe("a row over temperature", () => {
     const { buildSpecTable } = await import("@/lib/sheet/spec-table");
     const template = { ...frequencyMultiplierTemplate, specifications: { ...frequencyMultiplierTemplate.specifications, rows: [{ ...frequencyMultiplierTemplate.specifications.rows[1], overTemperature: "min" as const }] } };
     const table = buildSpecTable({ template, sets: readings.map((r, i) => set(i + 1, r)), limits: [], settings: input([]).settings, classLabel: "Frequency multiplier" });
-    expect(table.groups[0].units.map((u) => [u.serial, u.value.value])).toEqual([["A", 9.1], ["B", 9.8], ["C", 9.4]]);
+    expect(table.groups[0].units.map((u) => [u.serial, u.value.value])).toEqual([["A", 9.1]]);
   });
 });
 
