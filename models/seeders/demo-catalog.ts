@@ -11,6 +11,8 @@ import { formatDrive } from "../../lib/sheet/format";
 import {
   doublerDriveSweep,
   mixerFrequencySweep,
+  mixerPortMatch,
+  mixerTwoTone,
   touchstoneFile,
   type DoublerModel,
   type MixerModel,
@@ -172,14 +174,49 @@ function doublerFiles(model: DoublerModel, opts: { serials: string[]; lot: strin
     );
 }
 
+/**
+ * Each unit's frequency sweep (conversion loss, isolation), two-tone run (IIP3, P1dB) and three-port port match
+ * (VSWR): every row the mixer class defines. The two-tone run is at mid-band against the same LO, its IF the
+ * sweep's; a diode ring's intercept and compression follow its LO drive, IIP3 ≈ LO + 9 dB and P1dB ≈ LO − 6 dB
+ * (common practice for level-7 to level-13 rings, from memory; the KM-7H's are +15.9 and +1 dBm at +7 dBm LO).
+ */
 function mixerFiles(model: MixerModel, opts: { serials: string[]; lot: string; measuredOn: string[]; seed: number }): () => DemoCatalogFile[] {
+  const { start, stop, step } = model.sweepHz;
+  const twoTone = {
+    conversionGainDb: -(model.conversionLossDb + 0.4),
+    iip3Dbm: model.loPowerDbm + 9,
+    inputP1dbDbm: model.loPowerDbm - 6,
+    loPowerDbm: model.loPowerDbm,
+    tone1Hz: start + Math.round((stop - start) / 2 / step) * step,
+    toneSpacingHz: 1 * MHz,
+    sweepDbm: { start: -20, stop: model.loPowerDbm - 1, step: 2 },
+  };
+  const portMatch = {
+    returnLossDb: { rf: 17, lo: 15, if: 19 },
+    balunBandHz: model.balunBandHz,
+    isolationDb: { loRf: model.loRfIsolationDb, loIf: model.loIfIsolationDb, rfIf: model.rfIfIsolationDb ?? model.loIfIsolationDb - 7 },
+    sweepHz: { start, stop, step: step / 2 },
+  };
   return () =>
-    opts.serials.map((serial, u) => ({
-      name: `frequency-sweep-${serial.toLowerCase()}.csv`,
-      fields: { measuredOn: opts.measuredOn[u % opts.measuredOn.length] },
-      instruments: ["source", "analyzer"],
-      text: mixerFrequencySweep(model, { serial, lot: opts.lot }, opts.seed + u),
-    }));
+    opts.serials.flatMap((serial, u): DemoCatalogFile[] => {
+      const measuredOn = opts.measuredOn[u % opts.measuredOn.length];
+      const name = serial.toLowerCase();
+      return [
+        { name: `frequency-sweep-${name}.csv`, fields: { measuredOn }, instruments: ["source", "analyzer"], text: mixerFrequencySweep(model, { serial, lot: opts.lot }, opts.seed + u) },
+        {
+          name: `two-tone-${name}.tsv`,
+          fields: { measuredOn, ifFrequencyHz: String(model.ifFrequencyHz) },
+          instruments: ["source", "analyzer"],
+          text: mixerTwoTone(twoTone, { serial, lot: opts.lot }, opts.seed + 500 + u),
+        },
+        {
+          name: `port-match-${name}.s3p`,
+          fields: { serial, lot: opts.lot, temperatureC: "25", measuredOn },
+          instruments: ["vna"],
+          text: mixerPortMatch(portMatch, { serial }, opts.seed + 900 + u),
+        },
+      ];
+    });
 }
 
 function networkFiles(model: NetworkModel, opts: { serials: string[]; lot: string; measuredOn: string[]; seed: number; description: string }): () => DemoCatalogFile[] {
@@ -254,7 +291,7 @@ export const demoCatalogParts: DemoCatalogPart[] = [
     description: "Level 10 passive mixer with wideband transmission-line baluns.",
     keyConditions: { inputFrequencyHz: { min: 0.8 * GHz, max: 4 * GHz }, driveLevelDbm: 10 },
     files: mixerFiles(
-      { conversionLossDb: 6.3, balunBandHz: { min: 600 * MHz, max: 4.5 * GHz }, loRfIsolationDb: 44, loIfIsolationDb: 38, loPowerDbm: 10, ifFrequencyHz: 140 * MHz, sweepHz: { start: 800 * MHz, stop: 4000 * MHz, step: 100 * MHz }, unitSpreadDb: 0.15 },
+      { conversionLossDb: 6.3, balunBandHz: { min: 600 * MHz, max: 4.5 * GHz }, loRfIsolationDb: 44, loIfIsolationDb: 38, rfIfIsolationDb: 30, loPowerDbm: 10, ifFrequencyHz: 140 * MHz, sweepHz: { start: 800 * MHz, stop: 4000 * MHz, step: 100 * MHz }, unitSpreadDb: 0.15 },
       { serials: serials("BFD-", 131, 4), lot: "L2611", measuredOn: ["2026-11-09", "2026-11-10"], seed: 1001 },
     ),
     limits: mixerLimits,
@@ -329,7 +366,7 @@ export const demoCatalogParts: DemoCatalogPart[] = [
     description: "Level 7 mixer with ferrite transformers for VHF and UHF.",
     keyConditions: { inputFrequencyHz: { min: 50 * MHz, max: 1.5 * GHz }, driveLevelDbm: 7 },
     files: mixerFiles(
-      { conversionLossDb: 5.6, balunBandHz: { min: 15 * MHz, max: 1.9 * GHz }, loRfIsolationDb: 64, loIfIsolationDb: 55, loPowerDbm: 7, ifFrequencyHz: 10.7 * MHz, sweepHz: { start: 50 * MHz, stop: 1500 * MHz, step: 50 * MHz }, unitSpreadDb: 0.12 },
+      { conversionLossDb: 5.6, balunBandHz: { min: 15 * MHz, max: 1.9 * GHz }, loRfIsolationDb: 64, loIfIsolationDb: 55, rfIfIsolationDb: 45, loPowerDbm: 7, ifFrequencyHz: 10.7 * MHz, sweepHz: { start: 50 * MHz, stop: 1500 * MHz, step: 50 * MHz }, unitSpreadDb: 0.12 },
       { serials: serials("PM-", 2201, 4), lot: "P-26B", measuredOn: ["2026-10-26"], seed: 7001 },
     ),
     limits: mixerLimits,
@@ -405,7 +442,7 @@ export const demoCatalogParts: DemoCatalogPart[] = [
     description: "Third-party characterization of a customer's level-7 mixer, lot 2622.",
     keyConditions: { inputFrequencyHz: { min: 1 * GHz, max: 2.5 * GHz }, driveLevelDbm: 7 },
     files: mixerFiles(
-      { conversionLossDb: 6.8, balunBandHz: { min: 700 * MHz, max: 2.8 * GHz }, loRfIsolationDb: 40, loIfIsolationDb: 35, loPowerDbm: 7, ifFrequencyHz: 70 * MHz, sweepHz: { start: 1000 * MHz, stop: 2500 * MHz, step: 100 * MHz }, unitSpreadDb: 0.2 },
+      { conversionLossDb: 6.8, balunBandHz: { min: 700 * MHz, max: 2.8 * GHz }, loRfIsolationDb: 40, loIfIsolationDb: 35, rfIfIsolationDb: 28, loPowerDbm: 7, ifFrequencyHz: 70 * MHz, sweepHz: { start: 1000 * MHz, stop: 2500 * MHz, step: 100 * MHz }, unitSpreadDb: 0.2 },
       { serials: serials("WL-2622-", 1, 3, 2), lot: "2622", measuredOn: ["2026-11-20"], seed: 2622 },
     ),
     limits: labLimits(mixerLimits),

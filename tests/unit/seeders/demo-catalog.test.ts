@@ -133,6 +133,15 @@ describe("the demo catalog's parts", () => {
       }
     }
     if (part.prose.features) expect(fillFeatures(part.prose.features, limits, sheet)).not.toMatch(/[{}]/);
+    // Every row its class defines that a 25 °C characterization can fill (the rows over temperature need runs at other temperatures).
+    if (part.deviceClass === "double-balanced-mixer") {
+      const rows = new Set(sheet.specifications.rows.map((r) => r.rowId));
+      for (const id of ["conversion-loss-worst", "conversion-loss-typical", "isolation-lo-rf", "isolation-lo-if", "isolation-rf-if", "iip3", "input-p1db", "vswr"]) expect(rows.has(id), `${part.partNumber}: ${id}`).toBe(true);
+      // IIP3 ≈ LO + 9 dB and P1dB ≈ LO − 6 dB, as the generator models them: the engine's fit finds them back within 1.5 dB.
+      const mean = (rowId: string) => sheet.statistics.groups.find((g) => g.rowId === rowId)!.mean.value!;
+      expect(Math.abs(mean("iip3") - (part.keyConditions.driveLevelDbm! + 9))).toBeLessThan(1.5);
+      expect(Math.abs(mean("input-p1db") - (part.keyConditions.driveLevelDbm! - 6))).toBeLessThan(1.5);
+    }
     // A doubler's rows are held at its own key drive, per port, and its features name that drive.
     const drive = part.keyConditions.driveLevelDbm;
     if (part.deviceClass === "frequency-multiplier") {
