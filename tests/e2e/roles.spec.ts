@@ -30,7 +30,7 @@ test.describe("each role sees its own workspace", () => {
     const doubler = table.getByRole("row", { name: /WL-C2611-KDX/ });
     await expect(doubler).toContainText("Frequency multiplier");
     await expect(doubler).toContainText("0.5–1.5\u00a0GHz");
-    await expect(doubler).toContainText("+13\u00a0dBm");
+    await expect(doubler).toContainText("+10\u00a0dBm");
     await expect(table.getByRole("row", { name: /WL-C2614-PM13/ })).toContainText("10–3000\u00a0MHz");
     // Another organization's parts never show, not even to a search that would match them.
     await page.goto("/devices?q=KDX");
