@@ -7,6 +7,7 @@ import type { DeviceClass } from "../lib/domain/device-classes";
 import type { MeasurementKind } from "../lib/domain/measurements";
 import type { LimitBasis, ProseSectionId } from "../lib/domain/sheets";
 import type { StatedAnalysisSettings } from "../lib/domain/analysis-settings";
+import type { DeriveOptions } from "../lib/analysis/types";
 import type { ClassFieldWords, ConditionFieldId } from "../lib/domain/measurement-conditions";
 import type { NameQualifier, ParameterName } from "../lib/domain/parameter-names";
 
@@ -227,6 +228,8 @@ export interface SheetTemplate {
    * operating conditions (parameter and unit; the figures always come from the engineer).
    */
   designIn?: { pins: { pin: string; name: string; function: string }[]; recommendedOperatingConditions: { parameter: string; unit: string }[] };
+  /** How the engine reads this class's files where the kind alone does not say (a mixer's Touchstone file is port match only). */
+  deriveOptions?: Pick<DeriveOptions, "touchstone">;
   /**
    * The class's default measurement settings (the last source, after the file, the upload and the
    * command line): e.g. the phase-noise integration band for rms phase and jitter.

@@ -19,6 +19,7 @@ export const DEFAULT_SPLITTER_PORTS: SplitterPorts = { common: 1, outputs: [2, 3
 export function analyzeTouchstone(data: TouchstoneData, options: DeriveOptions, maxPoints: number): Section {
   const network = describeNetwork(data, maxPoints);
   addPortMatch(network);
+  if (options.touchstone?.portMatchOnly) return { parameters: network.parameters, warnings: network.warnings, curves: network.curves };
   try {
     addTransmissionByRoles(network, options);
   } catch (error) {

@@ -95,5 +95,11 @@ export interface DeriveOptions {
     splitterPorts?: SplitterPorts;
     /** Designed ∠S_through − ∠S_coupled; by default ±90°, the sign nearest the data at the first frequency. */
     hybridNominalPhaseDeg?: number;
+    /**
+     * The network is measured for its ports' match only (a mixer's RF, LO and IF ports with the LO off):
+     * no insertion loss, isolation or balance by a splitter's or a hybrid's port roles, which would call a
+     * mixer's LO-to-RF leakage an "output" and its two leakage paths an "amplitude balance".
+     */
+    portMatchOnly?: boolean;
   };
 }

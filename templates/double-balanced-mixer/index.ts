@@ -192,6 +192,8 @@ export const doubleBalancedMixerTemplate: SheetTemplate = {
   cautions: composeCautions(
     "Do not exceed the maximum RF and LO input powers or the IF current stated under absolute maximum ratings.",
   ),
+  // Its Touchstone file is the three ports' match with the LO off (port 1 RF, 2 LO, 3 IF), not a splitter.
+  deriveOptions: { touchstone: { portMatchOnly: true } },
   absoluteMaximumRatings: [
     { label: "RF input power", unit: "dBm" },
     { label: "LO input power", unit: "dBm" },

@@ -135,6 +135,22 @@ describe("who may read, upload and approve", () => {
     }
   });
 
+  it("reads a mixer's three-port file as its ports' match: VSWR per port, no splitter's insertion loss or balance", async () => {
+    const mixer = await makeDevice(org.organization.id);
+    await mixer.update({ deviceClass: "double-balanced-mixer", title: "Factory mixer" });
+    const upload = async (id: number) =>
+      (await (await as.engineer.request(`/api/devices/${id}/measurements`, { multipart: fixtureUpload("examples/splitter-3port.s3p", { serial: "BFD-0302" }) })).json()) as {
+        measurementSet: { parameters: { name: string }[] };
+      };
+    const asMixer = new Set((await upload(mixer.id)).measurementSet.parameters.map((p) => p.name));
+    expect(asMixer.has("vswr")).toBe(true);
+    for (const name of ["insertion-loss", "amplitude-balance", "phase-balance"]) expect(asMixer.has(name), name).toBe(false);
+    // The same bytes on another class's device are read by the splitter's roles, as before.
+    const hybrid = await makeDevice(org.organization.id);
+    await hybrid.update({ deviceClass: "quadrature-hybrid", title: "Factory splitter" });
+    expect((await upload(hybrid.id)).measurementSet.parameters.map((p) => p.name)).toContain("amplitude-balance");
+  });
+
   it("keeps both sets when a correction supersedes an approved one", async () => {
     const first = (await (await as.engineer.request(`/api/devices/${deviceId}/measurements`, { multipart: fixtureUpload("examples/splitter-3port.s3p", { serial: "BFD-0301" }) })).json()) as { measurementSet: { id: number } };
     await as.reviewer.request(`/api/measurements/${first.measurementSet.id}/review`, { json: { decision: "approve" } });

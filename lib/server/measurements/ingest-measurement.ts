@@ -115,7 +115,8 @@ function deriveWithSettings(input: { parsed: ParsedMeasurement; fields: UploadFi
   const upload = uploadAnalysisSettings(input.fields);
   const parsed = inStatedBand(input.parsed, input.fields, input.fileName);
   try {
-    return analyzeWithSettings(parsed, { upload, template: findSheetTemplate(input.deviceClass)?.analysisDefaults });
+    const template = findSheetTemplate(input.deviceClass);
+    return analyzeWithSettings(parsed, { upload, template: template?.analysisDefaults }, template?.deriveOptions);
   } catch (error) {
     if (isAnalysisSettingError(error)) throw new AppError("invalid", `${input.fileName}: ${error.message}.`, { field: error.field });
     throw error;

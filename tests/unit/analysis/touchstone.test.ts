@@ -47,6 +47,21 @@ describe("3-port splitter (splitter-3port.s3p, dB/angle)", () => {
   });
 });
 
+describe("a 3-port read as port match only (a mixer's RF, LO and IF with the LO off)", () => {
+  const full = analyzeExample("splitter-3port.s3p");
+  const { parameters: p, curves } = analyzeExample("splitter-3port.s3p", { touchstone: { portMatchOnly: true } });
+
+  it("gives each port's return loss and VSWR, the same as the full reading, and nothing by a splitter's roles", () => {
+    // Port 1 at 1.5 GHz: −22 dB reflection (the file's row), as above.
+    expect(valueOf(p, "vswr", { port: 1, frequencyHz: 1.5e9 })).toBeCloseTo(vswr(10 ** (-22 / 20)), 9);
+    const matchOf = (ps: typeof p) => ps.filter((x) => x.name === "return-loss" || x.name === "vswr" || x.name === "mismatch-loss");
+    expect(matchOf(p)).toEqual(matchOf(full.parameters));
+    expect(p.filter((x) => ["insertion-loss", "isolation", "amplitude-balance", "phase-balance"].includes(x.name))).toEqual([]);
+    expect(curves.map((c) => c.id)).toEqual(["return-loss"]);
+    expect(full.curves.map((c) => c.id)).toContain("amplitude-balance");
+  });
+});
+
 describe("4-port quadrature hybrid (ports 1 in, 2 through, 3 coupled, 4 isolated)", () => {
   const v2 = analyzeExample("hybrid-4port-v2.s4p");
   const v1 = analyzeExample("hybrid-4port.s4p");

@@ -36,7 +36,8 @@ export function demoSheetInputs(date: string): { partNumber: string; input: Shee
     const deviceClass = demoOrganizations.find((o) => o.slug === upload.org)!.devices.find((d) => d.partNumber === upload.part)!.deviceClass;
     const inBand = parsedInStatedBand(parsed, fields);
     if ("problem" in inBand) throw new Error(`${upload.file}: ${inBand.problem}`);
-    const analyzed = analyzeWithSettings(inBand.parsed, { upload: uploadAnalysisSettings(fields), template: findSheetTemplate(deviceClass)?.analysisDefaults });
+    const template = findSheetTemplate(deviceClass);
+    const analyzed = analyzeWithSettings(inBand.parsed, { upload: uploadAnalysisSettings(fields), template: template?.analysisDefaults }, template?.deriveOptions);
     const derived = JSON.parse(JSON.stringify(analyzed)) as typeof analyzed;
     if (!upload.approve) return;
     const instruments = upload.instruments.map((key) => demoInstruments[upload.org].find((i) => i.key === key)!);
