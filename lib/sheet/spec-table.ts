@@ -4,7 +4,7 @@ import { lowerFirst } from "../format/text";
 import type { SheetTemplate, SpecRowTemplate } from "../../templates/types";
 import { compareStrings } from "./compare";
 import { formatConditionCell, makeConditionsKey, parseConditionsKey, type Conditions } from "./conditions";
-import { formatDrive, formatLimitValue, formatValue, typicalDecimals } from "./format";
+import { formatDrive, formatLimitValue, formatTemperatureRange, formatValue, typicalDecimals } from "./format";
 import { readAtStatedDrive, type StatedDriveMiss } from "./stated-drive";
 import { computeGroupStatistics, DEFAULT_CPK_MIN_UNITS, type GroupStatistics, type UnitValue } from "./statistics";
 import type { LimitBasis } from "../domain/sheets";
@@ -83,7 +83,12 @@ export function buildSpecTable(options: {
     groups,
     footnotes: footnotes.list,
     decisionRules: [...decisionRules].sort(),
-    issues: [...duplicateIssues, ...unusedLimitIssues(limits, usedLimits, options.classLabel), ...statedDriveIssues(template, sets)],
+    issues: [
+      ...duplicateIssues,
+      ...unusedLimitIssues(limits, usedLimits, options.classLabel),
+      ...statedDriveIssues(template, sets),
+      ...uncoveredSpanIssues(template, sets),
+    ],
   };
 }
 
@@ -258,6 +263,29 @@ function statedDriveIssues(template: SheetTemplate, sets: ApprovedSetInput[]): I
     }));
 }
 
+/**
+ * Rows over temperature whose sets span two or more temperatures but no unit was measured at both ends:
+ * the row is left out (lib/sheet/spec-table.ts collectOverTemperatureValues), and the sheet says why.
+ */
+function uncoveredSpanIssues(template: SheetTemplate, sets: ApprovedSetInput[]): Issues {
+  const issues: Issues = [];
+  for (const row of template.specifications.rows) {
+    if (!row.overTemperature) continue;
+    for (const span of overTemperatureGroups(row, row.overTemperature, sets).uncovered) {
+      const message =
+        `${specRowName(row)}: no unit was measured at both ends of ${formatTemperatureRange(span.lowest, span.highest)}, ` +
+        `so the row over that span is left out; each unit's figures stay in the rows at the temperatures it was measured at.`;
+      // One issue per row and span, however many condition groups share it.
+      if (issues.some((issue) => issue.message === message)) continue;
+      issues.push({
+        code: "temperature-span-not-covered",
+        message,
+      });
+    }
+  }
+  return issues;
+}
+
 function unusedLimitIssues(limits: Map<string, SpecLimitInput>, usedLimits: Set<string>, classLabel: string): Issues {
   const issues: Issues = [];
   for (const [key, limit] of limits) {
@@ -383,6 +411,15 @@ function collectRowValues(row: SpecRowTemplate, sets: ApprovedSetInput[]): Map<s
  * own condition: the file's temperature line or the upload's field (lib/ingest mergeUploadConditions).
  */
 function collectOverTemperatureValues(row: SpecRowTemplate, worst: "max" | "min", sets: ApprovedSetInput[]): Map<string, UnitValue[]> {
+  return overTemperatureGroups(row, worst, sets).values;
+}
+
+/** The groups of a row over temperature, and the spans that no unit covers end to end (left out, named in an issue). */
+function overTemperatureGroups(
+  row: SpecRowTemplate,
+  worst: "max" | "min",
+  sets: ApprovedSetInput[],
+): { values: Map<string, UnitValue[]>; uncovered: { lowest: number; highest: number }[] } {
   const perTemperature = collectRowValues({ ...row, overTemperature: undefined, groupBy: [...row.groupBy.filter((k) => k !== "temperatureC"), "temperatureC"] }, sets);
   type Unit = { worst: UnitValue; temperatures: Set<number> };
   const byGroup = new Map<string, { temperatures: Set<number>; units: Map<string, Unit> }>();
@@ -405,13 +442,17 @@ function collectOverTemperatureValues(row: SpecRowTemplate, worst: "max" | "min"
   // Only the units measured at both ends of the span speak for it: a unit measured at 25 °C alone would put its
   // 25 °C figure among the worst over temperature and pull the row's typical value and spread towards 25 °C.
   const result = new Map<string, UnitValue[]>();
+  const uncovered: { lowest: number; highest: number }[] = [];
   for (const [groupKey, { temperatures, units }] of byGroup) {
     if (temperatures.size < 2) continue;
     const [lowest, highest] = [Math.min(...temperatures), Math.max(...temperatures)];
     const spanning = [...units.values()].filter((u) => u.temperatures.has(lowest) && u.temperatures.has(highest)).map((u) => u.worst);
-    if (spanning.length === 0) continue;
+    if (spanning.length === 0) {
+      uncovered.push({ lowest, highest });
+      continue;
+    }
     const conditions = { ...parseConditionsKey(groupKey), temperatureMinC: lowest, temperatureMaxC: highest };
     result.set(makeConditionsKey(conditions), spanning.sort((a, b) => compareStrings(a.serial, b.serial)));
   }
-  return result;
+  return { values: result, uncovered };
 }

@@ -99,6 +99,12 @@ describe("a row over temperature", () => {
     const split = buildSheetModel(input(halves.map((r, i) => set(i + 1, r))));
     expect(split.specifications.rows.some((r) => r.rowId === "conversion-loss-over-temperature")).toBe(false);
     expect(split.specifications.rows.filter((r) => r.rowId === "conversion-loss-at-drive").length).toBe(3);
+    // Not silently: the open issues say which span no unit covers.
+    expect(split.issues.filter((i) => i.code === "temperature-span-not-covered").map((i) => i.message.replace(/\u00a0/g, " "))).toEqual([
+      "Conversion loss over temperature: no unit was measured at both ends of −40 to +85 °C, so the row over that span is left out; each unit's figures stay in the rows at the temperatures it was measured at.",
+    ]);
+    // And quiet where a unit covers the span.
+    expect(model.issues.some((i) => i.code === "temperature-span-not-covered")).toBe(false);
   });
 
   it("is left out when every set is at one temperature", () => {
