@@ -19,6 +19,11 @@ const sheetTemplates: Readonly<Record<DeviceClass, SheetTemplate>> = {
   "comb-generator-test-only": combGeneratorTemplate,
 };
 
+/** The classes whose rows are held at a stated drive: their template at a device's own drive (per port for a multiplier). */
+const sheetTemplatesAtDrive: Readonly<Partial<Record<DeviceClass, (driveDbm: number) => SheetTemplate>>> = {
+  "frequency-multiplier": frequencyMultiplierTemplateAt,
+};
+
 /**
  * The template of a class this build offers (a test-only class only in the test build). Given the
  * device's stated drive (its key condition `driveLevelDbm`, per port for a multiplier), a class whose
@@ -27,8 +32,8 @@ const sheetTemplates: Readonly<Record<DeviceClass, SheetTemplate>> = {
 export function findSheetTemplate(deviceClass: string, stated: { driveLevelDbm?: number } = {}): SheetTemplate | undefined {
   if (!isDeviceClass(deviceClass)) return undefined;
   const drive = stated.driveLevelDbm;
-  if (deviceClass === "frequency-multiplier" && typeof drive === "number" && Number.isFinite(drive)) return frequencyMultiplierTemplateAt(drive);
-  return sheetTemplates[deviceClass];
+  const atDrive = sheetTemplatesAtDrive[deviceClass];
+  return atDrive && typeof drive === "number" && Number.isFinite(drive) ? atDrive(drive) : sheetTemplates[deviceClass];
 }
 
 /**

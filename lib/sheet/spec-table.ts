@@ -50,8 +50,15 @@ export function buildSpecTable(options: {
   const rows: SpecTableRow[] = [];
   const groups: StatisticsGroup[] = [];
 
+  const uncoveredSpans: Issues = [];
   for (const row of template.specifications.rows) {
-    const collected = collectRowValues(row, sets);
+    // A row over temperature: its groups, and the spans no unit covers end to end, from one pass over the sets.
+    const overTemperature = row.overTemperature ? overTemperatureGroups(row, row.overTemperature, sets) : undefined;
+    const collected = overTemperature ? overTemperature.values : collectRowValues(row, sets);
+    for (const span of overTemperature?.uncovered ?? []) {
+      const issue = uncoveredSpanIssue(row, span);
+      if (!uncoveredSpans.some((known) => known.message === issue.message)) uncoveredSpans.push(issue); // once per row and span
+    }
     addLimitOnlyGroups(row, collected, limits, usedLimits);
     for (const conditionsKey of orderedConditionKeys(row, collected)) {
       const limitKey = `${row.parameter}|${conditionsKey}`;
@@ -87,7 +94,7 @@ export function buildSpecTable(options: {
       ...duplicateIssues,
       ...unusedLimitIssues(limits, usedLimits, options.classLabel),
       ...statedDriveIssues(template, sets),
-      ...uncoveredSpanIssues(template, sets),
+      ...uncoveredSpans,
     ],
   };
 }
@@ -264,26 +271,16 @@ function statedDriveIssues(template: SheetTemplate, sets: ApprovedSetInput[]): I
 }
 
 /**
- * Rows over temperature whose sets span two or more temperatures but no unit was measured at both ends:
- * the row is left out (lib/sheet/spec-table.ts collectOverTemperatureValues), and the sheet says why.
+ * A row over temperature whose sets span two or more temperatures but no unit was measured at both ends:
+ * the row is left out (overTemperatureGroups), and the sheet says why.
  */
-function uncoveredSpanIssues(template: SheetTemplate, sets: ApprovedSetInput[]): Issues {
-  const issues: Issues = [];
-  for (const row of template.specifications.rows) {
-    if (!row.overTemperature) continue;
-    for (const span of overTemperatureGroups(row, row.overTemperature, sets).uncovered) {
-      const message =
-        `${specRowName(row)}: no unit was measured at both ends of ${formatTemperatureRange(span.lowest, span.highest)}, ` +
-        `so the row over that span is left out; each unit's figures stay in the rows at the temperatures it was measured at.`;
-      // One issue per row and span, however many condition groups share it.
-      if (issues.some((issue) => issue.message === message)) continue;
-      issues.push({
-        code: "temperature-span-not-covered",
-        message,
-      });
-    }
-  }
-  return issues;
+function uncoveredSpanIssue(row: SpecRowTemplate, span: { lowest: number; highest: number }): Issues[number] {
+  return {
+    code: "temperature-span-not-covered",
+    message:
+      `${specRowName(row)}: no unit was measured at both ends of ${formatTemperatureRange(span.lowest, span.highest)}, ` +
+      `so the row over that span is left out; each unit's figures stay in the rows at the temperatures it was measured at.`,
+  };
 }
 
 function unusedLimitIssues(limits: Map<string, SpecLimitInput>, usedLimits: Set<string>, classLabel: string): Issues {
